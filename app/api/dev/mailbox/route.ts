@@ -1,0 +1,28 @@
+import { route } from '@/lib/api/handler';
+import { requireActor } from '@/lib/auth/session';
+import { db } from '@/lib/db';
+import { env } from '@/lib/env';
+import { OutgoingMail } from '@/models';
+
+/**
+ * GET /api/dev/mailbox (admins): the organisation's outbox with each message's status,
+ * and, when a local mail catcher is configured, what it has received.
+ */
+export const GET = route(async () => {
+  const actor = await requireActor('mailbox.read');
+  db();
+  const outbox = await OutgoingMail.findAll({
+    where: { organisationId: actor.organisationId },
+    order: [['createdAt', 'DESC']],
+    limit: 100,
+    attributes: ['id', 'toAddress', 'subject', 'status', 'attempts', 'lastError', 'createdAt', 'sentAt'],
+  });
+  let caught: unknown[] | null = null;
+  const catcher = env().MAIL_CATCHER_URL;
+  if (catcher) {
+    caught = await fetch(new URL('/messages', catcher), { signal: AbortSignal.timeout(2_000) })
+      .then((r) => (r.ok ? (r.json() as Promise<unknown[]>) : null))
+      .catch(() => null);
+  }
+  return Response.json({ outbox: outbox.map((m) => m.toJSON()), caught });
+});

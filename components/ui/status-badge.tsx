@@ -1,0 +1,30 @@
+import { cn } from '@/lib/cn';
+import type { BoardStatus } from '@/models/board';
+
+const words: Record<BoardStatus, string> = {
+  draft: 'Draft',
+  'in-review': 'In review',
+  issued: 'Issued',
+  verified: 'Verified',
+};
+
+const tones: Record<BoardStatus, string> = {
+  draft: 'border-line-strong bg-paper-sunk text-ink-soft',
+  'in-review': 'border-copper/50 bg-copper-light text-copper-dark',
+  issued: 'border-ink/30 bg-ink/5 text-ink',
+  verified: 'border-verdict-pass/40 bg-verdict-pass-bg text-verdict-pass',
+};
+
+/** A board's lifecycle stage, in words. */
+export function StatusBadge({ status }: { status: BoardStatus }) {
+  return (
+    <span
+      className={cn(
+        'inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium',
+        tones[status],
+      )}
+    >
+      {words[status]}
+    </span>
+  );
+}

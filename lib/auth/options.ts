@@ -1,0 +1,70 @@
+import bcrypt from 'bcryptjs';
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import { z } from 'zod';
+
+import { db } from '@/lib/db';
+import { env } from '@/lib/env';
+import { checkSignInAllowed, recordSignInResult } from '@/lib/auth/sign-in-limiter';
+import { User } from '@/models';
+
+const credentialsSchema = z.object({
+  email: z.string().trim().toLowerCase().email().max(254),
+  password: z.string().min(1).max(200),
+});
+
+/** Sessions last a working day; a signed-in tab refreshes them as it is used. */
+export const SESSION_MAX_AGE_S = 12 * 60 * 60;
+
+export const authOptions: NextAuthOptions = {
+  secret: env().NEXTAUTH_SECRET,
+  session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
+  pages: { signIn: '/login' },
+  providers: [
+    CredentialsProvider({
+      name: 'Email and password',
+      credentials: { email: { type: 'email' }, password: { type: 'password' } },
+      async authorize(raw, req) {
+        const parsed = credentialsSchema.safeParse(raw);
+        if (!parsed.success) return null;
+        const { email, password } = parsed.data;
+        const address = String(
+          (req?.headers?.['x-forwarded-for'] as string | undefined)?.split(',')[0] ?? 'local',
+        );
+        await checkSignInAllowed(email, address);
+        db();
+        const user = await User.findOne({ where: { email } });
+        const ok =
+          !!user?.passwordHash && user.active && (await bcrypt.compare(password, user.passwordHash));
+        await recordSignInResult(email, address, ok);
+        if (!ok || !user) return null;
+        return {
+          id: user.id,
+          email: user.email,
+          name: user.name,
+          role: user.role,
+          organisationId: user.organisationId,
+        };
+      },
+    }),
+  ],
+  callbacks: {
+    jwt({ token, user }) {
+      if (user) {
+        token.userId = user.id;
+        token.role = user.role;
+        token.organisationId = user.organisationId;
+      }
+      return token;
+    },
+    session({ session, token }) {
+      session.user = {
+        ...session.user,
+        id: token.userId,
+        role: token.role,
+        organisationId: token.organisationId,
+      };
+      return session;
+    },
+  },
+};

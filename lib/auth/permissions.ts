@@ -1,0 +1,36 @@
+import type { Role } from '@/models/user';
+
+/**
+ * What each role may do (product.md, Roles). Every route handler and server action
+ * asks `can(role, action)` on the server; the UI only hides what the server refuses anyway.
+ */
+export const PERMISSIONS = {
+  'members.manage': ['admin'],
+  'boards.read': ['admin', 'designer', 'inspector', 'installer'],
+  'boards.edit': ['admin', 'designer'],
+  'sizing.run': ['admin', 'designer', 'inspector'],
+  'boards.submit': ['admin', 'designer'],
+  'boards.review': ['admin', 'inspector'],
+  'schedule.print': ['admin', 'designer', 'inspector', 'installer'],
+  'walk.record': ['admin', 'inspector', 'installer'],
+  'mailbox.read': ['admin'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Action = keyof typeof PERMISSIONS;
+
+/** True when the role may perform the action. */
+export function can(role: Role, action: Action): boolean {
+  return (PERMISSIONS[action] as readonly Role[]).includes(role);
+}
+
+export const ACTION_WORDS: Record<Action, string> = {
+  'members.manage': 'manage members',
+  'boards.read': 'read boards',
+  'boards.edit': 'edit sites and boards',
+  'sizing.run': 'run sizing',
+  'boards.submit': 'send boards for review',
+  'boards.review': 'review boards',
+  'schedule.print': 'print schedules',
+  'walk.record': 'record label walks',
+  'mailbox.read': 'read the development mailbox',
+};

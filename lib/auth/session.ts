@@ -1,0 +1,49 @@
+import 'server-only';
+
+import { getServerSession } from 'next-auth';
+
+import { authOptions } from '@/lib/auth/options';
+import { ACTION_WORDS, can, type Action } from '@/lib/auth/permissions';
+import { db } from '@/lib/db';
+import { forbidden, unauthorized } from '@/lib/errors';
+import { User } from '@/models';
+import type { Role } from '@/models/user';
+
+/** The signed-in person behind a request, as the server knows them now. */
+export type Actor = {
+  userId: string;
+  organisationId: string;
+  role: Role;
+  name: string;
+  email: string;
+};
+
+/**
+ * Reads the session and re-reads the member from the database, so that a role change
+ * or a deactivation takes effect on the next request, not when the token expires.
+ */
+export async function getActor(): Promise<Actor | null> {
+  const session = await getServerSession(authOptions);
+  const id = session?.user?.id;
+  if (!id) return null;
+  db();
+  const user = await User.findByPk(id, {
+    attributes: ['id', 'organisationId', 'role', 'name', 'email', 'active'],
+  });
+  if (!user || !user.active) return null;
+  return {
+    userId: user.id,
+    organisationId: user.organisationId,
+    role: user.role,
+    name: user.name,
+    email: user.email,
+  };
+}
+
+/** The actor, or a 401 when signed out and a 403 when the role may not perform `action`. */
+export async function requireActor(action?: Action): Promise<Actor> {
+  const actor = await getActor();
+  if (!actor) throw unauthorized();
+  if (action && !can(actor.role, action)) throw forbidden(ACTION_WORDS[action]);
+  return actor;
+}

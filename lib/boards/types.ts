@@ -1,0 +1,32 @@
+import type { BoardStatus } from '@/models/board';
+import type { LabelStatus } from '@/models/way';
+
+import type { BoardSettings, WayInput } from './schemas';
+
+/** A way as the API hands it to the client. */
+export type WayDto = WayInput & { labelStatus: LabelStatus; labelNote: string };
+
+/** A board as the API hands it to the client: plain data, never a model instance. */
+export type BoardDto = BoardSettings & {
+  id: string;
+  siteId: string;
+  siteName: string;
+  status: BoardStatus;
+  version: number;
+  revision: number;
+  updatedAt: string;
+  ways: WayDto[];
+};
+
+export type BoardSummary = {
+  id: string;
+  siteId: string;
+  siteName: string;
+  name: string;
+  location: string;
+  phases: 1 | 3;
+  status: BoardStatus;
+  revision: number;
+  wayCount: number;
+  updatedAt: string;
+};

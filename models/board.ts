@@ -1,0 +1,63 @@
+import { DataTypes, Model, type Sequelize } from 'sequelize';
+
+export const BOARD_STATUSES = ['draft', 'in-review', 'issued', 'verified'] as const;
+export type BoardStatus = (typeof BOARD_STATUSES)[number];
+
+export type SupplyData = {
+  earthing: 'TN-S' | 'TN-C-S' | 'TT';
+  uoV: number;
+  zeOhm: number;
+  pfcKa: number;
+  source: 'public' | 'private';
+};
+
+export type IncomingDevice = {
+  kind: 'main-switch' | 'mcb' | 'fuse-bs88-2' | 'rcd';
+  ratingA: number;
+  busbarRatingA?: number;
+};
+
+export class Board extends Model {
+  declare id: string;
+  declare organisationId: string;
+  declare siteId: string;
+  declare name: string;
+  declare location: string;
+  declare phases: 1 | 3;
+  declare supply: SupplyData;
+  declare incoming: IncomingDevice;
+  declare enclosureModules: number;
+  declare rails: number;
+  declare dwelling: boolean;
+  declare status: BoardStatus;
+  /** Bumped on every save; a save naming an older version is refused (optimistic locking). */
+  declare version: number;
+  /** The revision being drafted or last issued; issued revisions are frozen in board_revisions. */
+  declare revision: number;
+  declare createdById: string | null;
+  declare createdAt: Date;
+  declare updatedAt: Date;
+
+  static setup(sequelize: Sequelize): void {
+    Board.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        organisationId: { type: DataTypes.UUID, allowNull: false },
+        siteId: { type: DataTypes.UUID, allowNull: false },
+        name: { type: DataTypes.STRING(160), allowNull: false },
+        location: { type: DataTypes.STRING(200), allowNull: false, defaultValue: '' },
+        phases: { type: DataTypes.SMALLINT, allowNull: false },
+        supply: { type: DataTypes.JSONB, allowNull: false },
+        incoming: { type: DataTypes.JSONB, allowNull: false },
+        enclosureModules: { type: DataTypes.SMALLINT, allowNull: false },
+        rails: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: 1 },
+        dwelling: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        status: { type: DataTypes.ENUM(...BOARD_STATUSES), allowNull: false, defaultValue: 'draft' },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+        revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+        createdById: { type: DataTypes.UUID, allowNull: true },
+      },
+      { sequelize, tableName: 'boards', underscored: true },
+    );
+  }
+}

@@ -1,0 +1,71 @@
+#!/usr/bin/env bash
+# The whole test suite from a fresh clone: install, chromium, PostgreSQL (a fresh test
+# database), the fakes on their own ports, unit + component + integration tests, build,
+# browser tests against the built app. Ends with one line: "N passed, N failed".
+set -uo pipefail
+export DB_NAME=boardwright_test APP_PORT=3100 SMTP_PORT=2535 S3_PORT=4579
+export MAIL_CATCHER_URL=http://127.0.0.1:2536 S3_BUCKET=boardwright-test
+source "$(dirname "$0")/env.sh"
+cd "$ROOT"
+set -e
+
+bash scripts/install.sh
+if [ ! -x /usr/bin/chromium ]; then
+  if [ "$(id -u)" = 0 ]; then
+    echo "Installing Debian's chromium for the browser tests…"
+    apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+  else
+    echo "The browser tests need Debian's chromium: run 'apt-get install chromium' as root." >&2
+    exit 1
+  fi
+fi
+
+PG_WAS_UP=0
+bash scripts/pg.sh status >/dev/null 2>&1 && PG_WAS_UP=1
+bash scripts/pg.sh start
+bash scripts/pg.sh dropdb "$DB_NAME" >/dev/null
+bash scripts/pg.sh createdb "$DB_NAME"
+rm -rf "$DATA_DIR/mail-$SMTP_PORT" "$DATA_DIR/s3-$S3_PORT"
+bash scripts/services.sh start
+
+RESULTS=$DATA_DIR/test-results
+rm -rf "$RESULTS"; mkdir -p "$RESULTS"
+APP_PID=
+cleanup() {
+  trap - EXIT INT TERM
+  [ -n "$APP_PID" ] && kill -- -"$APP_PID" 2>/dev/null || true
+  bash scripts/services.sh stop || true
+  # Stop PostgreSQL only if this run started it (a running demo keeps its database).
+  [ "$PG_WAS_UP" = 1 ] || bash scripts/pg.sh stop || true
+}
+trap cleanup EXIT INT TERM
+set +e
+
+node_modules/.bin/tsx scripts/migrate.ts up || exit 1
+node_modules/.bin/tsx scripts/seed.ts >/dev/null || exit 1
+
+status=0
+echo "== unit, component and integration tests"
+node_modules/.bin/vitest run --project unit --project components --project integration \
+  --reporter=default --reporter=json --outputFile.json="$RESULTS/fast.json" || status=1
+
+echo "== build"
+if node_modules/.bin/next build > "$RESULTS/build.log" 2>&1; then
+  grep -E '^(Route|[├└┌│ ]|\+ First Load|ƒ|○)' "$RESULTS/build.log" | head -60 || true
+  echo "== browser tests (chromium against the built app on $APP_URL)"
+  setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT" > "$RESULTS/server.log" 2>&1 &
+  APP_PID=$!
+  for _ in $(seq 1 100); do
+    curl -fsS -o /dev/null "$APP_URL/login" && break
+    sleep 0.2
+  done
+  node_modules/.bin/vitest run --project browser \
+    --reporter=default --reporter=json --outputFile.json="$RESULTS/browser.json" || status=1
+else
+  tail -40 "$RESULTS/build.log"
+  echo "next build failed" >&2
+  status=1
+fi
+
+node scripts/count-results.mjs "$RESULTS"/fast.json "$RESULTS"/browser.json || status=1
+exit $status
