@@ -1,8 +1,8 @@
 import { cn } from '@/lib/cn';
+import { SIZING_CAUTION } from '@/lib/sizing';
 
-/** The words every sizing screen and printed schedule carries. */
-export const CAUTION_TEXT =
-  'Boardwright is a design aid. Every result must be checked by a competent person against the current edition of BS 7671 (or the local wiring rules) and the manufacturers’ data. Local codes and licensed practice take precedence.';
+/** The words every sizing screen and printed schedule carries (one text, from the engine). */
+export const CAUTION_TEXT = SIZING_CAUTION;
 
 /** The safety caution, shown on every sizing screen. */
 export function Caution({ className }: { className?: string }) {

@@ -1,0 +1,132 @@
+import crypto from 'node:crypto';
+
+import { beforeAll, describe, expect, it } from 'vitest';
+
+import * as boardSizingRoute from '@/app/api/boards/[boardId]/sizing/route';
+import * as sizingRoute from '@/app/api/sizing/route';
+import type { BoardResult, CircuitResult } from '@/lib/sizing';
+import { demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
+
+import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
+
+type Org = Awaited<ReturnType<typeof makeOrganisation>>;
+let ours: Org;
+let theirs: Org;
+let ourBoardId: string;
+let theirBoardId: string;
+
+// A 3 kW immersion heater in 2.5 mm² twin and earth, clipped direct, 12 m, B16.
+const circuitBody = {
+  supply: { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.35, pfcKa: 1.5, source: 'public' },
+  circuit: {
+    phases: 1,
+    use: 'fixed',
+    load: { kind: 'known', watts: 3000, powerFactor: 1 },
+    lengthM: 12,
+    cable: 'te-70',
+    method: 'C',
+    ambientC: 30,
+    grouping: { circuits: 1, arrangement: 'bunched' },
+    insulationMm: 0,
+    csaMm2: null,
+    concealedInWall: false,
+    device: { kind: 'mcb', curve: 'B', ratingA: 16, breakingKa: 6 },
+  },
+};
+
+beforeAll(async () => {
+  ours = await makeOrganisation('Sizing');
+  theirs = await makeOrganisation('Elsewhere');
+  ourBoardId = (await makeBoard(ours.org.id, 'workshop')).board.id;
+  theirBoardId = (await makeBoard(theirs.org.id, 'workshop')).board.id;
+});
+
+describe('POST /api/sizing', () => {
+  it('is 401 signed out and 403 for installers (product.md: installers do not size)', async () => {
+    signInAs(null);
+    expect((await sizingRoute.POST(jsonRequest('POST', circuitBody), ctx({}))).status).toBe(401);
+    signInAs(ours.users.installer);
+    expect((await sizingRoute.POST(jsonRequest('POST', circuitBody), ctx({}))).status).toBe(403);
+  });
+
+  it('sizes one circuit for a designer', async () => {
+    signInAs(ours.users.designer);
+    const res = await sizingRoute.POST(jsonRequest('POST', circuitBody), ctx({}));
+    expect(res.status).toBe(200);
+    const { result } = (await res.json()) as { result: CircuitResult };
+    // Ib = 3000 W / 230 V = 13.04 A; In 16 A as given.
+    expect(result.ibA).toBeCloseTo(3000 / 230, 6);
+    expect(result.inA).toBe(16);
+    expect(result.checks.length).toBeGreaterThan(3);
+    expect(['passes', 'near-limit', 'fails']).toContain(result.verdict);
+  });
+
+  it('answers junk with 400 and one entry per bad field', async () => {
+    signInAs(ours.users.designer);
+    const junk = structuredClone(circuitBody) as Record<string, any>;
+    junk.supply.zeOhm = 'lots';
+    junk.circuit.lengthM = -4;
+    junk.circuit.method = 'Z';
+    junk.circuit.surprise = true;
+    const res = await sizingRoute.POST(jsonRequest('POST', junk), ctx({}));
+    expect(res.status).toBe(400);
+    const paths = (await res.json()).issues.map((i: { path: string }) => i.path);
+    expect(paths).toEqual(
+      expect.arrayContaining(['supply.zeOhm', 'circuit.lengthM', 'circuit.method']),
+    );
+  });
+});
+
+describe('POST /api/boards/:boardId/sizing', () => {
+  it('is 401 signed out, 403 for installers, 404 for another organisation’s board', async () => {
+    signInAs(null);
+    const empty = () => jsonRequest('POST');
+    expect((await boardSizingRoute.POST(empty(), ctx({ boardId: ourBoardId }))).status).toBe(401);
+    signInAs(ours.users.installer);
+    expect((await boardSizingRoute.POST(empty(), ctx({ boardId: ourBoardId }))).status).toBe(403);
+    signInAs(ours.users.designer);
+    expect((await boardSizingRoute.POST(empty(), ctx({ boardId: theirBoardId }))).status).toBe(404);
+    expect(
+      (await boardSizingRoute.POST(empty(), ctx({ boardId: crypto.randomUUID() }))).status,
+    ).toBe(404);
+  });
+
+  it('sizes the stored board for designers and inspectors', async () => {
+    for (const role of ['designer', 'inspector', 'admin'] as const) {
+      signInAs(ours.users[role]);
+      const res = await boardSizingRoute.POST(jsonRequest('POST'), ctx({ boardId: ourBoardId }));
+      expect(res.status).toBe(200);
+      const body = (await res.json()) as BoardResult;
+      // Every way of the stored workshop board comes back, in rail order.
+      expect(body.ways).toHaveLength(WORKSHOP_BOARD.ways.length);
+      expect(body.summary.phaseCurrentsA).not.toBeNull();
+    }
+  });
+
+  it('sizes an unsaved draft sent in the body', async () => {
+    signInAs(ours.users.designer);
+    const ways = demoWays(WORKSHOP_BOARD).slice(0, 3);
+    const res = await boardSizingRoute.POST(
+      jsonRequest('POST', { draft: { settings: WORKSHOP_BOARD.settings, ways } }),
+      ctx({ boardId: ourBoardId }),
+    );
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as BoardResult;
+    expect(body.ways.map((w) => w.id)).toEqual(ways.map((w) => w.id));
+  });
+
+  it('answers a junk draft with 400 and field paths', async () => {
+    signInAs(ours.users.designer);
+    const ways = demoWays(WORKSHOP_BOARD).slice(0, 2);
+    (ways[1] as Record<string, any>).device.modules = 9;
+    const res = await boardSizingRoute.POST(
+      jsonRequest('POST', { draft: { settings: { ...WORKSHOP_BOARD.settings, phases: 2 }, ways } }),
+      ctx({ boardId: ourBoardId }),
+    );
+    expect(res.status).toBe(400);
+    const paths = (await res.json()).issues.map((i: { path: string }) => i.path);
+    expect(paths).toEqual(
+      expect.arrayContaining(['draft.settings.phases', 'draft.ways.1.device.modules']),
+    );
+  });
+});
