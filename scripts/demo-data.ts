@@ -319,3 +319,8 @@ export function demoWays(demo: { settings: BoardSettings; ways: Way[] }): WayInp
     return phase ? { ...w, device: { ...w.device, phase } } : w;
   });
 }
+
+/** The demo account of one role. */
+export function demoUser(role: Role) {
+  return DEMO_USERS.find((u) => u.role === role)!;
+}

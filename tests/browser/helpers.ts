@@ -8,15 +8,13 @@ import path from 'node:path';
 
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
-import { DEMO_USERS } from '@/scripts/demo-data';
+import { DEMO_USERS, demoUser } from '@/scripts/demo-data';
+
+export { demoUser };
 
 export const APP_URL = process.env.APP_URL ?? 'http://127.0.0.1:3100';
 
 export type Role = (typeof DEMO_USERS)[number]['role'];
-
-export function demoUser(role: Role) {
-  return DEMO_USERS.find((u) => u.role === role)!;
-}
 
 /** A fresh browser profile (its own cookies), desktop or phone sized. */
 export async function openBrowser(opts: { phone?: boolean } = {}): Promise<{

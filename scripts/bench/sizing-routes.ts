@@ -1,0 +1,63 @@
+/**
+ * The board sizing route under load against a trivial authenticated route on the same
+ * production server: autocannon, 16 connections, 10 s each, on a 36-way board.
+ * Needs a running server at APP_URL with the demo seeded (scripts/bench/sizing.sh does that).
+ */
+import crypto from 'node:crypto';
+
+import { db } from '@/lib/db';
+import { Board, Organisation, Site, Way } from '@/models';
+import { DEMO_ORG, demoUser, demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
+
+import { signInCookie } from './http-session';
+import { describe, load } from './load';
+
+const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3200';
+const duration = Number(process.env.BENCH_SECONDS ?? 10);
+
+/** A 36-way three-phase board: the workshop's ways, repeated, under a bench-only name. */
+async function benchBoard(): Promise<string> {
+  db();
+  const org = await Organisation.findOne({ where: { name: DEMO_ORG } });
+  if (!org) throw new Error('seed the demo first');
+  const name = 'Bench board, 36 ways';
+  const existing = await Board.findOne({ where: { organisationId: org.id, name } });
+  if (existing) return existing.id;
+  const site = await Site.findOne({ where: { organisationId: org.id } });
+  const board = await Board.create({
+    ...WORKSHOP_BOARD.settings,
+    name,
+    enclosureModules: 72,
+    organisationId: org.id,
+    siteId: site!.id,
+  });
+  const outgoing = demoWays(WORKSHOP_BOARD).filter((w) => w.device.kind !== 'main-switch');
+  const ways = [demoWays(WORKSHOP_BOARD)[0], ...outgoing, ...outgoing.map((w) => ({ ...w, id: crypto.randomUUID() }))];
+  await Way.bulkCreate(ways.map((w, position) => ({ ...w, position, rail: 0, boardId: board.id })));
+  return board.id;
+}
+
+async function main() {
+  const boardId = await benchBoard();
+  const cookie = await signInCookie(baseUrl, demoUser('designer').email, demoUser('designer').password);
+  const common = { connections: 16, duration, headers: { cookie, 'content-type': 'application/json' } };
+  const ways = await Way.count({ where: { boardId } });
+  await db().close();
+
+  const trivial = await load({ ...common, url: `${baseUrl}/api/me` });
+  const sizing = await load({
+    ...common,
+    url: `${baseUrl}/api/boards/${boardId}/sizing`,
+    method: 'POST',
+    body: '',
+  });
+  console.log(`board: ${ways} ways; 16 connections, ${duration} s each, ${baseUrl}`);
+  console.log(describe('GET /api/me (trivial, signed in)', trivial));
+  console.log(describe('POST /api/boards/:id/sizing', sizing));
+  console.log(`ratio sizing / trivial: ${(sizing.rps / trivial.rps).toFixed(2)}`);
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
