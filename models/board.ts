@@ -1,7 +1,8 @@
 import { DataTypes, Model, type Sequelize } from 'sequelize';
 
-export const BOARD_STATUSES = ['draft', 'in-review', 'issued', 'verified'] as const;
-export type BoardStatus = (typeof BOARD_STATUSES)[number];
+import { BOARD_STATUSES, type BoardStatus } from '@/lib/domain';
+
+export { BOARD_STATUSES, type BoardStatus };
 
 export type SupplyData = {
   earthing: 'TN-S' | 'TN-C-S' | 'TT';

@@ -1,7 +1,8 @@
 import { DataTypes, Model, type Sequelize } from 'sequelize';
 
-export const ROLES = ['admin', 'designer', 'inspector', 'installer'] as const;
-export type Role = (typeof ROLES)[number];
+import { ROLES, type Role } from '@/lib/domain';
+
+export { ROLES, type Role };
 
 export class User extends Model {
   declare id: string;

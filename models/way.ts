@@ -1,7 +1,8 @@
 import { DataTypes, Model, type Sequelize } from 'sequelize';
 
-export const LABEL_STATUSES = ['unchecked', 'matches', 'wrong', 'missing'] as const;
-export type LabelStatus = (typeof LABEL_STATUSES)[number];
+import { LABEL_STATUSES, type LabelStatus } from '@/lib/domain';
+
+export { LABEL_STATUSES, type LabelStatus };
 
 /**
  * One device on the rail. `device` and `circuit` hold the engine's DeviceOnRail and

@@ -1,5 +1,5 @@
 import { cn } from '@/lib/cn';
-import type { BoardStatus } from '@/models/board';
+import type { BoardStatus } from '@/lib/domain';
 
 const words: Record<BoardStatus, string> = {
   draft: 'Draft',

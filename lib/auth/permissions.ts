@@ -1,4 +1,4 @@
-import type { Role } from '@/models/user';
+import type { Role } from '@/lib/domain';
 
 /**
  * What each role may do (product.md, Roles). Every route handler and server action

@@ -7,7 +7,7 @@ import { ACTION_WORDS, can, type Action } from '@/lib/auth/permissions';
 import { db } from '@/lib/db';
 import { forbidden, unauthorized } from '@/lib/errors';
 import { User } from '@/models';
-import type { Role } from '@/models/user';
+import type { Role } from '@/lib/domain';
 
 /** The signed-in person behind a request, as the server knows them now. */
 export type Actor = {

@@ -1,5 +1,5 @@
-import type { BoardStatus } from '@/models/board';
-import type { LabelStatus } from '@/models/way';
+import type { BoardStatus } from '@/lib/domain';
+import type { LabelStatus } from '@/lib/domain';
 
 import type { BoardSettings, WayInput } from './schemas';
 

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 
-import { ROLES } from '@/models/user';
+import { ROLES } from '@/lib/domain';
 
 /** Password rules: at least 10 characters, with a letter and a digit (common practice). */
 export const passwordSchema = z
