@@ -1,0 +1,221 @@
+import {
+  DISTRIBUTION_TIMES_S,
+  FINAL_CIRCUIT_LIMITS_A,
+  FINAL_CIRCUIT_TIMES_S,
+} from './tables/disconnection';
+import { K_VALUES } from './tables/k-values';
+import { CLASS3_LET_THROUGH_A2S } from './tables/let-through';
+import { BREAKER_TRIP_MULTIPLE, CMIN, FUSE_MAX_ZS_OHM } from './tables/max-zs';
+import type { CableKind, CircuitUse, Curve, Earthing, ProtectiveDeviceKind } from './types';
+
+/** The device facts the protection rules need. */
+export interface DeviceFacts {
+  kind: ProtectiveDeviceKind;
+  curve: Curve | null;
+  inA: number;
+}
+
+type FuseKind = keyof typeof FUSE_MAX_ZS_OHM;
+
+function isBreaker(kind: ProtectiveDeviceKind): boolean {
+  return kind === 'mcb' || kind === 'rcbo';
+}
+
+/**
+ * Maximum disconnection time, s (BS 7671 411.3.2): final circuits up to 63 A with sockets
+ * and up to 32 A otherwise take Table 41.1 (TN 0.4 s / TT 0.2 s at 230 V); distribution
+ * circuits and larger final circuits 5 s (TN) / 1 s (TT).
+ */
+export function requiredDisconnectionTime(
+  use: CircuitUse,
+  inA: number,
+  earthing: Earthing,
+  uoV: number,
+): number {
+  const tt = earthing === 'TT';
+  const limit = use === 'sockets' ? FINAL_CIRCUIT_LIMITS_A.sockets : FINAL_CIRCUIT_LIMITS_A.other;
+  if (use === 'distribution' || inA > limit) return tt ? DISTRIBUTION_TIMES_S.tt : DISTRIBUTION_TIMES_S.tn;
+  for (const row of FINAL_CIRCUIT_TIMES_S) if (uoV <= row.maxUoV) return tt ? row.tt : row.tn;
+  return tt ? FINAL_CIRCUIT_TIMES_S[3].tt : FINAL_CIRCUIT_TIMES_S[3].tn;
+}
+
+/** Current that trips a breaker instantaneously, Ia = 5/10/20·In for curve B/C/D (BS EN 60898-1). */
+export function breakerTripCurrent(curve: Curve, inA: number): number {
+  return BREAKER_TRIP_MULTIPLE[curve] * inA;
+}
+
+/**
+ * Fuse current for a disconnection time column ('0.4' or '5'), derived from the tabulated
+ * max Zs: Ia = Cmin·230 / Zs(table). Null where the table has no value.
+ */
+export function fuseOperatingCurrent(kind: FuseKind, inA: number, column: '0.4' | '5'): number | null {
+  const zs = (FUSE_MAX_ZS_OHM[kind][column] as Record<number, number>)[inA];
+  return zs === undefined ? null : (CMIN * 230) / zs;
+}
+
+/**
+ * Maximum earth fault loop impedance Zs, Ω, for the device to disconnect in `timeS`.
+ * Breakers: Cmin·Uo / Ia (BS 7671 Table 41.3 by formula; instantaneous within 0.1 s, so any
+ * required time ≥ 0.1 s). Fuses: Cmin·Uo / Ia with Ia from Tables 41.2 (0.4 s) or 41.4 (5 s),
+ * using the longest tabulated time not above the required time. Null when not tabulated.
+ */
+export function maxZs(device: DeviceFacts, timeS: number, uoV: number): number | null {
+  if (isBreaker(device.kind)) {
+    if (!device.curve || timeS < 0.1) return null;
+    return (CMIN * uoV) / breakerTripCurrent(device.curve, device.inA);
+  }
+  const column = timeS >= 5 ? '5' : timeS >= 0.4 ? '0.4' : null;
+  if (column === null) return null;
+  const ia = fuseOperatingCurrent(device.kind as FuseKind, device.inA, column);
+  return ia === null ? null : (CMIN * uoV) / ia;
+}
+
+/** Lower limit of the fuse time model, s: a half cycle; below it the fuse limits the energy. */
+const FUSE_MIN_TIME_S = 0.01;
+
+/**
+ * Fuse operating time, s, at fault current I: a straight line on log-log axes through the
+ * 5 s and 0.4 s points derived from Tables 41.4 and 41.2 (an approximation of the
+ * time-current curve — common practice when no manufacturer's curve is to hand). Null
+ * below the 5 s current (too slow to model). Where only the 5 s point exists, 5 s.
+ */
+export function fuseOperatingTime(kind: FuseKind, inA: number, faultA: number): number | null {
+  const i5 = fuseOperatingCurrent(kind, inA, '5');
+  const i04 = fuseOperatingCurrent(kind, inA, '0.4');
+  if (i5 === null || faultA < i5) return null;
+  if (i04 === null) return 5;
+  const n = Math.log(5 / 0.4) / Math.log(i04 / i5);
+  return Math.max(FUSE_MIN_TIME_S, 0.4 * Math.pow(i04 / faultA, n));
+}
+
+/** Energy let through, A²s, and how it was found. */
+export interface FaultEnergy {
+  i2t: number;
+  /** Time used, s, or null when the energy came from a let-through figure. */
+  timeS: number | null;
+  basis: string;
+}
+
+function logInterp(x: number, x0: number, y0: number, x1: number, y1: number): number {
+  const f = Math.log(x / x0) / Math.log(x1 / x0);
+  return Math.exp(Math.log(y0) + f * (Math.log(y1) - Math.log(y0)));
+}
+
+/**
+ * Energy let through by a breaker at fault current I above its instantaneous trip current.
+ * B and C curves up to 32 A: the energy-limiting class 3 figures of BS EN 60898-1 Annex ZA
+ * (from memory), interpolated on log-log axes between Ia (where the bound is Ia²·0.1 s) and
+ * the tabulated prospective currents — an assumption; manufacturers' data is usually lower.
+ * Others, or above 10 kA: I²·0.1 s (instantaneous trip within 0.1 s, common practice).
+ */
+export function breakerLetThrough(curve: Curve, inA: number, faultA: number): FaultEnergy {
+  const ia = breakerTripCurrent(curve, inA);
+  const table =
+    curve === 'D' || inA > 32
+      ? null
+      : CLASS3_LET_THROUGH_A2S[`${curve}-${inA <= 16 ? 16 : 32}` as keyof typeof CLASS3_LET_THROUGH_A2S];
+  if (table && faultA <= table[table.length - 1][0]) {
+    let x0 = ia;
+    let y0 = ia * ia * 0.1;
+    for (const [x1, y1] of table) {
+      if (faultA <= x1) {
+        const i2t = Math.min(faultA * faultA * 0.1, logInterp(faultA, x0, y0, x1, y1));
+        return { i2t, timeS: null, basis: 'class 3 let-through (BS EN 60898-1 Annex ZA, from memory), interpolated' };
+      }
+      x0 = x1;
+      y0 = y1;
+    }
+  }
+  return { i2t: faultA * faultA * 0.1, timeS: 0.1, basis: 'I²t with t = 0.1 s (instantaneous trip, common practice)' };
+}
+
+/** Maximum tripping time of a general (non-delayed) RCD at IΔn, s (BS EN 61008/61009, from memory). */
+export const RCD_MAX_TIME_S = 0.3;
+
+/**
+ * Energy the cpc must withstand for an earth fault.
+ * Fuses: at the far-end fault current (lowest current → longest time, the worst case for a
+ * fuse), t from fuseOperatingTime; below 10 ms the energy is held at its 10 ms value.
+ * Breakers: at the largest earth fault current on the circuit, at its origin, Uo/Ze (capped
+ * at the PFC) — a breaker lets through more energy at a higher current.
+ * If the overcurrent device gives no time and an RCD is present: t = 0.3 s at the origin
+ * fault current (the largest on the circuit). Null when it cannot be found (the
+ * disconnection check then fails too).
+ */
+export function faultEnergy(args: {
+  device: DeviceFacts;
+  farEndFaultA: number | null;
+  originFaultA: number | null;
+  rcdMa: number | null;
+}): { energy: FaultEnergy; faultA: number } | null {
+  const { device, rcdMa, originFaultA, farEndFaultA } = args;
+  if (isBreaker(device.kind)) {
+    if (usable(originFaultA) && device.curve && originFaultA >= breakerTripCurrent(device.curve, device.inA)) {
+      return { energy: breakerLetThrough(device.curve, device.inA, originFaultA), faultA: originFaultA };
+    }
+  } else if (usable(farEndFaultA)) {
+    const kind = device.kind as FuseKind;
+    const t = fuseOperatingTime(kind, device.inA, farEndFaultA);
+    if (t !== null) {
+      let i2t = farEndFaultA * farEndFaultA * t;
+      const i04 = fuseOperatingCurrent(kind, device.inA, '0.4');
+      const i5 = fuseOperatingCurrent(kind, device.inA, '5');
+      // Above the 10 ms current a current-limiting fuse lets through about its 10 ms energy.
+      if (t === FUSE_MIN_TIME_S && i04 !== null && i5 !== null) {
+        const n = Math.log(5 / 0.4) / Math.log(i04 / i5);
+        const iAt10ms = i04 * Math.pow(0.4 / FUSE_MIN_TIME_S, 1 / n);
+        i2t = iAt10ms * iAt10ms * FUSE_MIN_TIME_S;
+      }
+      return {
+        energy: { i2t, timeS: t, basis: 'fuse time from Tables 41.2/41.4 (log-log interpolation)' },
+        faultA: farEndFaultA,
+      };
+    }
+  }
+  if (rcdMa !== null && usable(originFaultA)) {
+    return {
+      energy: {
+        i2t: originFaultA * originFaultA * RCD_MAX_TIME_S,
+        timeS: RCD_MAX_TIME_S,
+        basis: 'RCD operating time 0.3 s at the origin fault current',
+      },
+      faultA: originFaultA,
+    };
+  }
+  return null;
+}
+
+/** A fault current that can be used: positive and finite. */
+function usable(i: number | null): i is number {
+  return i !== null && i > 0 && Number.isFinite(i);
+}
+
+/** Adiabatic k for the cable's cpc (BS 7671 Tables 54.2/54.3). */
+export function kFactor(cable: CableKind, cpcMm2: number): number {
+  if (cable === 'swa-xlpe-90') return K_VALUES.coreThermosetting90;
+  if (cable === 'single-pvc-70') return K_VALUES.separateThermoplastic70;
+  return cpcMm2 > 300 ? K_VALUES.coreThermoplastic70Over300 : K_VALUES.coreThermoplastic70;
+}
+
+/** Minimum cpc size, mm², from the adiabatic equation S = √(I²t) / k (BS 7671 543.1.3). */
+export function minimumCpc(i2t: number, k: number): number {
+  return Math.sqrt(i2t) / k;
+}
+
+/**
+ * Whether a 30 mA RCD is required for additional protection, and why: sockets up to 32 A
+ * (411.3.3), cables concealed in a wall at less than 50 mm (522.6.202/203), lighting in
+ * dwellings (411.3.4).
+ */
+export function additionalRcdReasons(args: {
+  use: CircuitUse;
+  inA: number;
+  concealedInWall: boolean;
+  dwelling: boolean;
+}): string[] {
+  const reasons: string[] = [];
+  if (args.use === 'sockets' && args.inA <= 32) reasons.push('socket-outlets rated up to 32 A (411.3.3)');
+  if (args.concealedInWall) reasons.push('cable concealed in a wall at less than 50 mm (522.6.202)');
+  if (args.use === 'lighting' && args.dwelling) reasons.push('lighting in a dwelling (411.3.4)');
+  return reasons;
+}
