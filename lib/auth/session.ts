@@ -1,9 +1,7 @@
 import 'server-only';
 
-import { getServerSession } from 'next-auth';
-
-import { authOptions } from '@/lib/auth/options';
 import { ACTION_WORDS, can, type Action } from '@/lib/auth/permissions';
+import { sessionUserId } from '@/lib/auth/session-cookie';
 import { db } from '@/lib/db';
 import { forbidden, unauthorized } from '@/lib/errors';
 import { User } from '@/models';
@@ -23,8 +21,7 @@ export type Actor = {
  * or a deactivation takes effect on the next request, not when the token expires.
  */
 export async function getActor(): Promise<Actor | null> {
-  const session = await getServerSession(authOptions);
-  const id = session?.user?.id;
+  const id = await sessionUserId();
   if (!id) return null;
   db();
   const user = await User.findByPk(id, {

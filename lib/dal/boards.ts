@@ -101,14 +101,19 @@ export async function findBoard(
   return board;
 }
 
-/** One board with its ways. */
+/** One board with its ways, read in one query. */
 export async function getBoard(actor: Actor, boardId: string): Promise<BoardDto> {
-  const board = await findBoard(actor, boardId);
-  const [site, ways] = await Promise.all([
-    Site.findByPk(board.siteId, { attributes: ['name'] }),
-    Way.findAll({ where: { boardId } }),
-  ]);
-  return boardDto(board, site?.name ?? '', ways);
+  db();
+  const board = await Board.findOne({
+    where: { id: boardId, organisationId: actor.organisationId },
+    include: [
+      { model: Site, as: 'site', attributes: ['name'] },
+      { model: Way, as: 'ways' },
+    ],
+  });
+  if (!board) throw notFound('The board');
+  const withParts = board as Board & { site?: Site; ways?: Way[] };
+  return boardDto(board, withParts.site?.name ?? '', withParts.ways ?? []);
 }
 
 export async function createBoard(actor: Actor, input: BoardCreateInput): Promise<BoardDto> {

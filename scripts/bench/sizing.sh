@@ -2,7 +2,7 @@
 # npm run bench:sizing — the engine on one core, then the board sizing route against a
 # trivial signed-in route on a production server (its own port 3200, the demo database).
 set -euo pipefail
-export APP_PORT=${APP_PORT:-3200}
+export APP_PORT=${BENCH_PORT:-3200} APP_URL=http://127.0.0.1:${BENCH_PORT:-3200}
 source "$(dirname "$0")/../env.sh"
 cd "$ROOT"
 bash scripts/install.sh

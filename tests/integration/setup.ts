@@ -1,6 +1,6 @@
 /**
  * Integration tests run server code in-process against the real PostgreSQL test database
- * (scripts/test.sh creates and migrates it). The only stand-in is next-auth's session
+ * (scripts/test.sh creates and migrates it). The only stand-in is the session cookie
  * lookup, which needs a Next request: tests choose who is signed in with `signInAs`.
  */
 import { afterAll, vi } from 'vitest';
@@ -15,15 +15,9 @@ process.env.AWS_RESPONSE_CHECKSUM_VALIDATION ??= 'WHEN_REQUIRED';
 
 const state = globalThis as unknown as { testSessionUserId?: string | null };
 
-vi.mock('next-auth', async (importOriginal) => {
-  const actual = await importOriginal<typeof import('next-auth')>();
-  return {
-    ...actual,
-    getServerSession: vi.fn(async () =>
-      state.testSessionUserId ? { user: { id: state.testSessionUserId } } : null,
-    ),
-  };
-});
+vi.mock('@/lib/auth/session-cookie', () => ({
+  sessionUserId: vi.fn(async () => state.testSessionUserId ?? null),
+}));
 
 afterAll(async () => {
   const { db } = await import('@/lib/db');

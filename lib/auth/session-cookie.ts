@@ -1,0 +1,19 @@
+import { cookies } from 'next/headers';
+import { decode } from 'next-auth/jwt';
+
+import { env } from '@/lib/env';
+
+const COOKIE_NAMES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
+
+/**
+ * The user id in the request's session cookie, or null. Decrypts next-auth's JWT directly
+ * (expiry checked by jose) instead of running the whole next-auth handler per request,
+ * which made every API call several times slower.
+ */
+export async function sessionUserId(): Promise<string | null> {
+  const store = await cookies();
+  const raw = COOKIE_NAMES.map((n) => store.get(n)?.value).find(Boolean);
+  if (!raw) return null;
+  const token = await decode({ token: raw, secret: env().NEXTAUTH_SECRET }).catch(() => null);
+  return typeof token?.userId === 'string' ? token.userId : null;
+}
