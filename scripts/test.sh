@@ -51,7 +51,7 @@ node_modules/.bin/vitest run --project unit --project components --project integ
 
 echo "== build"
 if node_modules/.bin/next build > "$RESULTS/build.log" 2>&1; then
-  grep -E '^(Route|[├└┌│ ]|\+ First Load|ƒ|○)' "$RESULTS/build.log" | head -60 || true
+  node scripts/first-load-js.mjs || true
   echo "== browser tests (chromium against the built app on $APP_URL)"
   setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT" > "$RESULTS/server.log" 2>&1 &
   APP_PID=$!
