@@ -6,12 +6,24 @@ import { setupModels } from '@/models';
 
 const globalForDb = globalThis as unknown as { boardwrightSequelize?: Sequelize };
 
+// Next bundles server code per layer (route handlers, pages), each with its own copy of
+// the model classes: every copy must be registered, while the pool is shared.
+let modelsReady = false;
+
 /**
- * The one connection pool of this process, with every model registered. Cached on
- * globalThis so that hot reloads and route bundles share it.
+ * The one connection pool of this process, with every model registered. The pool is
+ * cached on globalThis so that hot reloads and every bundle share it.
  */
 export function db(): Sequelize {
-  if (globalForDb.boardwrightSequelize) return globalForDb.boardwrightSequelize;
+  const sequelize = globalForDb.boardwrightSequelize ?? connect();
+  if (!modelsReady) {
+    setupModels(sequelize);
+    modelsReady = true;
+  }
+  return sequelize;
+}
+
+function connect(): Sequelize {
   const sequelize = new Sequelize(env().DATABASE_URL, {
     dialect: 'postgres',
     dialectModule: pg,
@@ -19,7 +31,6 @@ export function db(): Sequelize {
     pool: { max: env().DB_POOL_MAX, min: 0, idle: 10_000, acquire: 5_000 },
     dialectOptions: { connectionTimeoutMillis: 3_000, statement_timeout: 15_000 },
   });
-  setupModels(sequelize);
   globalForDb.boardwrightSequelize = sequelize;
   return sequelize;
 }
