@@ -1,0 +1,57 @@
+import { apiFetch } from '@/lib/api/client';
+import type { BoardCreateInput } from '@/lib/boards/schemas';
+import type { BoardDto, BoardSummary } from '@/lib/boards/types';
+
+/** A site as the board dialogs need it: enough to pick one. */
+export type SiteOption = { id: string; name: string };
+
+/** What a rename may change. */
+export type BoardRename = { name?: string; location?: string };
+
+/** Cache keys for boards; everything under `['boards']` is refreshed after a board changes. */
+export const boardKeys = {
+  all: ['boards'] as const,
+  list: (siteId?: string) => ['boards', 'list', siteId ?? 'all'] as const,
+  // Kept under the sites prefix so a site change refreshes the choices too
+  siteOptions: () => ['sites', 'options'] as const,
+};
+
+/** GET /api/boards[?siteId=] */
+export async function fetchBoards(siteId?: string): Promise<BoardSummary[]> {
+  const query = siteId ? `?siteId=${encodeURIComponent(siteId)}` : '';
+  const { boards } = await apiFetch<{ boards: BoardSummary[] }>(`/api/boards${query}`);
+  return boards;
+}
+
+/** GET /api/sites, reduced to the choices for a site picker. */
+export async function fetchSiteOptions(): Promise<SiteOption[]> {
+  const { sites } = await apiFetch<{ sites: SiteOption[] }>('/api/sites');
+  return sites.map(({ id, name }) => ({ id, name }));
+}
+
+/** POST /api/boards */
+export async function postBoard(input: BoardCreateInput): Promise<BoardDto> {
+  const { board } = await apiFetch<{ board: BoardDto }>('/api/boards', {
+    method: 'POST',
+    body: input,
+  });
+  return board;
+}
+
+/** PATCH /api/boards/:boardId (name and location only) */
+export async function patchBoard(
+  boardId: string,
+  input: BoardRename,
+): Promise<BoardDto> {
+  const url = `/api/boards/${encodeURIComponent(boardId)}`;
+  const { board } = await apiFetch<{ board: BoardDto }>(url, {
+    method: 'PATCH',
+    body: input,
+  });
+  return board;
+}
+
+/** DELETE /api/boards/:boardId */
+export async function removeBoard(boardId: string): Promise<void> {
+  await apiFetch<void>(`/api/boards/${encodeURIComponent(boardId)}`, { method: 'DELETE' });
+}

@@ -1,0 +1,45 @@
+'use client';
+
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+
+import type { BoardCreateInput } from '@/lib/boards/schemas';
+
+import { boardKeys, patchBoard, postBoard, removeBoard, type BoardRename } from './boards-api';
+
+/** Refreshes board lists and the sites' board counts. */
+function useRefreshLists() {
+  const queryClient = useQueryClient();
+  return () =>
+    Promise.all([
+      queryClient.invalidateQueries({ queryKey: boardKeys.all }),
+      queryClient.invalidateQueries({ queryKey: ['sites'] }),
+    ]);
+}
+
+/** Creates an empty board on a site. */
+export function useCreateBoard() {
+  const refresh = useRefreshLists();
+  return useMutation({
+    mutationFn: (input: BoardCreateInput) => postBoard(input),
+    onSuccess: () => refresh(),
+  });
+}
+
+/** Renames or relocates a board. */
+export function useRenameBoard() {
+  const refresh = useRefreshLists();
+  return useMutation({
+    mutationFn: ({ boardId, input }: { boardId: string; input: BoardRename }) =>
+      patchBoard(boardId, input),
+    onSuccess: () => refresh(),
+  });
+}
+
+/** Deletes a board with its revisions. */
+export function useDeleteBoard() {
+  const refresh = useRefreshLists();
+  return useMutation({
+    mutationFn: (boardId: string) => removeBoard(boardId),
+    onSuccess: () => refresh(),
+  });
+}

@@ -1,0 +1,99 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { toast } from 'sonner';
+import type { z } from 'zod';
+
+import { Button } from '@/components/ui/button';
+import { Dialog, DialogActions } from '@/components/ui/dialog';
+import { Field, Input } from '@/components/ui/field';
+import { FormAlert } from '@/components/ui/form-alert';
+import { boardRenameSchema } from '@/lib/boards/schemas';
+import type { BoardSummary } from '@/lib/boards/types';
+import { applyServerIssues } from '@/lib/forms/server-issues';
+import { formErrorMap } from '@/lib/forms/zod-messages';
+
+import { useRenameBoard } from '../api/use-board-mutations';
+
+// The form always sends a name, so an empty one is refused here as on the server
+const renameFormSchema = boardRenameSchema.required({ name: true });
+type RenameValues = z.input<typeof renameFormSchema>;
+type RenameInput = z.output<typeof renameFormSchema>;
+
+/** Renames a board or records where it is fixed. */
+export function BoardRenameDialog({
+  board,
+  onClose,
+}: {
+  board: BoardSummary | null;
+  onClose: () => void;
+}) {
+  return (
+    <Dialog open={board !== null} onClose={onClose} title="Rename board">
+      {board ? <RenameForm board={board} onClose={onClose} /> : null}
+    </Dialog>
+  );
+}
+
+function RenameForm({ board, onClose }: { board: BoardSummary; onClose: () => void }) {
+  const rename = useRenameBoard();
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<RenameValues, unknown, RenameInput>({
+    resolver: zodResolver(renameFormSchema, { error: formErrorMap }),
+    defaultValues: { name: board.name, location: board.location },
+  });
+
+  const onSubmit = handleSubmit(async (input) => {
+    setFormError(null);
+    try {
+      const saved = await rename.mutateAsync({ boardId: board.id, input });
+      toast.success(`Saved ${saved.name}.`);
+      onClose();
+    } catch (error) {
+      setFormError(applyServerIssues(error, setError, ['name', 'location']));
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <Field label="Board name" error={errors.name?.message}>
+        {(id, d) => (
+          <Input
+            id={id}
+            aria-describedby={d}
+            aria-invalid={errors.name ? true : undefined}
+            autoComplete="off"
+            {...register('name')}
+          />
+        )}
+      </Field>
+      <Field label="Location" hint="Optional" error={errors.location?.message}>
+        {(id, d) => (
+          <Input
+            id={id}
+            aria-describedby={d}
+            aria-invalid={errors.location ? true : undefined}
+            autoComplete="off"
+            {...register('location')}
+          />
+        )}
+      </Field>
+      {formError ? <FormAlert>{formError}</FormAlert> : null}
+      <DialogActions>
+        <Button variant="secondary" onClick={onClose} disabled={isSubmitting}>
+          Cancel
+        </Button>
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : 'Save'}
+        </Button>
+      </DialogActions>
+    </form>
+  );
+}

@@ -1,0 +1,115 @@
+'use client';
+
+import { LayoutGrid, Plus } from 'lucide-react';
+import { useCallback, useState } from 'react';
+
+import { Button } from '@/components/ui/button';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorState } from '@/components/ui/error-state';
+import { PageHeader } from '@/components/ui/page-header';
+import { can } from '@/lib/auth/permissions';
+import type { BoardSummary } from '@/lib/boards/types';
+import type { Role } from '@/lib/domain';
+
+import { useBoards, useSiteOptions } from '../api/use-boards';
+import { BoardCreateDialog } from './board-create-dialog';
+import { BoardRenameDialog } from './board-rename-dialog';
+import { BoardsTable } from './boards-table';
+import { DeleteBoardDialog } from './delete-board-dialog';
+
+type BoardsViewProps = {
+  role: Role;
+  /** Shows one site's boards (on the site page) instead of the organisation's. */
+  siteId?: string;
+};
+
+/** The boards list with its loading, empty and error states, and the board dialogs. */
+export function BoardsView({ role, siteId }: BoardsViewProps) {
+  const canEdit = can(role, 'boards.edit');
+  const boards = useBoards(siteId);
+  const [creating, setCreating] = useState(false);
+  const siteOptions = useSiteOptions(canEdit && creating);
+  const [renaming, setRenaming] = useState<BoardSummary | null>(null);
+  const [deleting, setDeleting] = useState<BoardSummary | null>(null);
+  const onRename = useCallback((board: BoardSummary) => setRenaming(board), []);
+  const onDelete = useCallback((board: BoardSummary) => setDeleting(board), []);
+
+  const createButton = canEdit ? (
+    <Button onClick={() => setCreating(true)}>
+      <Plus aria-hidden className="h-4 w-4" />
+      New board
+    </Button>
+  ) : null;
+
+  let body: React.ReactNode;
+  if (boards.isError) {
+    body = (
+      <ErrorState
+        title="The boards could not be loaded"
+        message={boards.error.message}
+        onRetry={() => void boards.refetch()}
+        retrying={boards.isFetching}
+      />
+    );
+  } else if (boards.isSuccess && boards.data.length === 0) {
+    body = (
+      <EmptyState
+        icon={<LayoutGrid aria-hidden className="h-8 w-8" />}
+        title={siteId ? 'No boards on this site yet' : 'No boards yet'}
+        action={createButton}
+      >
+        {canEdit
+          ? 'Start a board with its supply and enclosure, then arrange its ways in the editor.'
+          : 'When a designer starts a board it appears here.'}
+      </EmptyState>
+    );
+  } else {
+    body = (
+      <BoardsTable
+        boards={boards.data ?? []}
+        loading={boards.isPending}
+        canEdit={canEdit}
+        singleSite={Boolean(siteId)}
+        onRename={onRename}
+        onDelete={onDelete}
+      />
+    );
+  }
+
+  const actions = boards.isSuccess && boards.data.length > 0 ? createButton : null;
+  return (
+    <section aria-labelledby={siteId ? 'site-boards-heading' : undefined}>
+      {siteId ? (
+        <div className="mb-4 flex flex-wrap items-center justify-between gap-3">
+          <h2 id="site-boards-heading" className="text-lg font-semibold text-ink">
+            Boards on this site
+          </h2>
+          {actions}
+        </div>
+      ) : (
+        <PageHeader
+          title="Boards"
+          description="Every board of the organisation, from first draft to verified."
+          actions={actions}
+        />
+      )}
+      {body}
+      {canEdit ? (
+        <>
+          <BoardCreateDialog
+            open={creating}
+            onClose={() => setCreating(false)}
+            sites={siteOptions.data ?? []}
+            sitesLoading={siteOptions.isPending}
+            sitesError={siteOptions.isError ? siteOptions.error.message : null}
+            onRetrySites={() => void siteOptions.refetch()}
+            siteId={siteId}
+          />
+          <BoardRenameDialog board={renaming} onClose={() => setRenaming(null)} />
+          <DeleteBoardDialog board={deleting} onClose={() => setDeleting(null)} />
+        </>
+      ) : null}
+    </section>
+  );
+}
+

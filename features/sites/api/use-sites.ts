@@ -1,0 +1,21 @@
+'use client';
+
+import { useQuery } from '@tanstack/react-query';
+
+import type { SiteSummary } from '@/lib/dal/sites';
+
+import { fetchSite, fetchSites, siteKeys } from './sites-api';
+
+/** The organisation's sites. */
+export function useSites() {
+  return useQuery({ queryKey: siteKeys.list(), queryFn: fetchSites });
+}
+
+/** One site, starting from what the server page already read when given. */
+export function useSite(siteId: string, initialData?: SiteSummary) {
+  return useQuery({
+    queryKey: siteKeys.detail(siteId),
+    queryFn: () => fetchSite(siteId),
+    initialData,
+  });
+}

@@ -1,0 +1,103 @@
+'use client';
+
+import { ChevronRight, Pencil, Trash2 } from 'lucide-react';
+import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+
+import { Button } from '@/components/ui/button';
+import { ErrorState } from '@/components/ui/error-state';
+import { PageHeader } from '@/components/ui/page-header';
+import { When } from '@/components/ui/when';
+import { can } from '@/lib/auth/permissions';
+import type { SiteSummary } from '@/lib/dal/sites';
+import type { Role } from '@/lib/domain';
+
+import { useSite } from '../api/use-sites';
+import { DeleteSiteDialog } from './delete-site-dialog';
+import { SiteFormDialog } from './site-form';
+
+type SiteDetailsProps = {
+  /** The site as the server page read it; kept fresh on the client afterwards. */
+  site: SiteSummary;
+  role: Role;
+};
+
+/** A site's heading: name, client, address and board count; edit and delete for editors. */
+export function SiteDetails({ site: initial, role }: SiteDetailsProps) {
+  const router = useRouter();
+  const canEdit = can(role, 'boards.edit');
+  const query = useSite(initial.id, initial);
+  const [editing, setEditing] = useState(false);
+  const [deleting, setDeleting] = useState(false);
+  const site = query.data ?? initial;
+
+  return (
+    <>
+      <PageHeader
+        eyebrow={
+          <Link href="/sites" className="inline-flex items-center gap-1 hover:text-ink">
+            Sites <ChevronRight aria-hidden className="h-3.5 w-3.5" />
+          </Link>
+        }
+        title={site.name}
+        actions={
+          canEdit ? (
+            <>
+              <Button variant="secondary" onClick={() => setEditing(true)}>
+                <Pencil aria-hidden className="h-4 w-4" />
+                Edit site
+              </Button>
+              <Button
+                variant="quiet"
+                onClick={() => setDeleting(true)}
+                className="hover:text-verdict-fail"
+              >
+                <Trash2 aria-hidden className="h-4 w-4" />
+                Delete
+              </Button>
+            </>
+          ) : null
+        }
+      />
+      {query.isError ? (
+        <ErrorState
+          className="mb-6"
+          title="This site could not be refreshed"
+          message={query.error.message}
+          onRetry={() => void query.refetch()}
+          retrying={query.isFetching}
+        />
+      ) : null}
+      <dl className="mb-8 grid gap-x-8 gap-y-4 rounded-card border border-line bg-paper-raised px-5 py-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
+        <Detail term="Client">{site.client || <span className="text-ink-faint">Not recorded</span>}</Detail>
+        <Detail term="Address">
+          {site.address || <span className="text-ink-faint">Not recorded</span>}
+        </Detail>
+        <Detail term="Boards">{site.boardCount}</Detail>
+        <Detail term="Last change">
+          <When iso={site.updatedAt} />
+        </Detail>
+      </dl>
+      {canEdit ? (
+        <>
+          <SiteFormDialog open={editing} site={site} onClose={() => setEditing(false)} />
+          <DeleteSiteDialog
+            site={deleting ? site : null}
+            onClose={() => setDeleting(false)}
+            onDeleted={() => router.push('/sites')}
+          />
+        </>
+      ) : null}
+    </>
+  );
+}
+
+function Detail({ term, children }: { term: string; children: React.ReactNode }) {
+  return (
+    <div className="min-w-0">
+      <dt className="text-xs font-semibold tracking-wide text-ink-soft uppercase">{term}</dt>
+      <dd className="mt-1 break-words text-ink">{children}</dd>
+    </div>
+  );
+}

@@ -1,0 +1,134 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { toast } from 'sonner';
+import type { z } from 'zod';
+
+import { Button } from '@/components/ui/button';
+import { Dialog, DialogActions } from '@/components/ui/dialog';
+import { Field, Input } from '@/components/ui/field';
+import { FormAlert } from '@/components/ui/form-alert';
+import type { SiteSummary } from '@/lib/dal/sites';
+import { applyServerIssues } from '@/lib/forms/server-issues';
+import { formErrorMap } from '@/lib/forms/zod-messages';
+import { siteInputSchema, type SiteInput } from '@/lib/sites/schemas';
+
+import { useCreateSite, useUpdateSite } from '../api/use-site-mutations';
+
+type SiteFormValues = z.input<typeof siteInputSchema>;
+
+const FIELDS = ['name', 'client', 'address'] as const;
+
+type SiteFormDialogProps = {
+  open: boolean;
+  onClose: () => void;
+  /** The site to edit; a new site when absent. */
+  site?: SiteSummary | null;
+  onSaved?: (site: SiteSummary) => void;
+};
+
+/** Creates a site, or renames one and edits its client and address. */
+export function SiteFormDialog({ open, onClose, site, onSaved }: SiteFormDialogProps) {
+  return (
+    <Dialog
+      open={open}
+      onClose={onClose}
+      title={site ? 'Edit site' : 'New site'}
+      description={site ? undefined : 'A site holds the boards of one building or installation.'}
+    >
+      <SiteForm site={site ?? null} onClose={onClose} onSaved={onSaved} />
+    </Dialog>
+  );
+}
+
+function SiteForm({
+  site,
+  onClose,
+  onSaved,
+}: {
+  site: SiteSummary | null;
+  onClose: () => void;
+  onSaved?: (site: SiteSummary) => void;
+}) {
+  const create = useCreateSite();
+  const update = useUpdateSite();
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<SiteFormValues, unknown, SiteInput>({
+    resolver: zodResolver(siteInputSchema, { error: formErrorMap }),
+    defaultValues: {
+      name: site?.name ?? '',
+      client: site?.client ?? '',
+      address: site?.address ?? '',
+    },
+  });
+
+  const onSubmit = handleSubmit(async (input) => {
+    setFormError(null);
+    try {
+      // Send the whole form: a new site, or the edited one
+      const saved = site
+        ? await update.mutateAsync({ siteId: site.id, input })
+        : await create.mutateAsync(input);
+      toast.success(site ? `Saved ${saved.name}.` : `Created ${saved.name}.`);
+      onSaved?.(saved);
+      onClose();
+    } catch (error) {
+      // Field issues go beside their fields; anything else above the buttons
+      setFormError(applyServerIssues(error, setError, FIELDS));
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      <Field label="Site name" error={errors.name?.message}>
+        {(id, describedBy) => (
+          <Input
+            id={id}
+            aria-describedby={describedBy}
+            aria-invalid={errors.name ? true : undefined}
+            autoComplete="off"
+            {...register('name')}
+          />
+        )}
+      </Field>
+      <Field label="Client" hint="Optional" error={errors.client?.message}>
+        {(id, describedBy) => (
+          <Input
+            id={id}
+            aria-describedby={describedBy}
+            aria-invalid={errors.client ? true : undefined}
+            autoComplete="off"
+            {...register('client')}
+          />
+        )}
+      </Field>
+      <Field label="Address" hint="Optional" error={errors.address?.message}>
+        {(id, describedBy) => (
+          <Input
+            id={id}
+            aria-describedby={describedBy}
+            aria-invalid={errors.address ? true : undefined}
+            autoComplete="off"
+            {...register('address')}
+          />
+        )}
+      </Field>
+      {formError ? <FormAlert>{formError}</FormAlert> : null}
+      <DialogActions>
+        <Button variant="secondary" onClick={onClose} disabled={isSubmitting}>
+          Cancel
+        </Button>
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : site ? 'Save site' : 'Create site'}
+        </Button>
+      </DialogActions>
+    </form>
+  );
+}

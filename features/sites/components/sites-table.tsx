@@ -1,0 +1,164 @@
+'use client';
+
+import {
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from '@tanstack/react-table';
+import { Pencil, Trash2 } from 'lucide-react';
+import Link from 'next/link';
+import { useMemo, useState } from 'react';
+
+import { Button } from '@/components/ui/button';
+import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
+import { When } from '@/components/ui/when';
+import type { SiteSummary } from '@/lib/dal/sites';
+
+type SitesTableProps = {
+  sites: SiteSummary[];
+  loading?: boolean;
+  canEdit: boolean;
+  onRename: (site: SiteSummary) => void;
+  onDelete: (site: SiteSummary) => void;
+};
+
+/** Searches a site's name, client and address. */
+function matchesSearch(site: SiteSummary, query: string): boolean {
+  const needle = query.trim().toLowerCase();
+  if (!needle) return true;
+  return [site.name, site.client, site.address].some((v) => v.toLowerCase().includes(needle));
+}
+
+/** The organisation's sites: sortable by every column, searchable, editable by editors. */
+export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: SitesTableProps) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
+  const [search, setSearch] = useState('');
+
+  const columns = useMemo<ColumnDef<SiteSummary>[]>(() => {
+    const base: ColumnDef<SiteSummary>[] = [
+      {
+        id: 'name',
+        accessorKey: 'name',
+        header: 'Site',
+        sortingFn: byText,
+        cell: ({ row }) => (
+          <Link
+            href={`/sites/${row.original.id}`}
+            className="font-medium text-ink underline-offset-4 hover:text-copper-dark hover:underline"
+          >
+            {row.original.name}
+          </Link>
+        ),
+      },
+      {
+        id: 'client',
+        accessorKey: 'client',
+        header: 'Client',
+        sortingFn: byText,
+        cell: ({ getValue }) => getValue<string>() || <span className="text-ink-faint">—</span>,
+      },
+      {
+        id: 'address',
+        accessorKey: 'address',
+        header: 'Address',
+        sortingFn: byText,
+        meta: { className: 'max-w-[22rem]' },
+        cell: ({ getValue }) =>
+          getValue<string>() ? (
+            <span className="line-clamp-2 text-ink-soft">{getValue<string>()}</span>
+          ) : (
+            <span className="text-ink-faint">—</span>
+          ),
+      },
+      {
+        id: 'boards',
+        accessorKey: 'boardCount',
+        header: 'Boards',
+        sortDescFirst: true,
+        meta: { align: 'right' },
+      },
+      {
+        id: 'updatedAt',
+        accessorKey: 'updatedAt',
+        header: 'Last change',
+        sortDescFirst: true,
+        cell: ({ row }) => <When iso={row.original.updatedAt} />,
+      },
+    ];
+    if (!canEdit) return base;
+    return [
+      ...base,
+      {
+        id: 'actions',
+        header: () => <span className="sr-only">Actions</span>,
+        enableSorting: false,
+        meta: { align: 'right' },
+        cell: ({ row }) => (
+          <div className="flex justify-end gap-1">
+            <Button
+              variant="quiet"
+              size="sm"
+              onClick={() => onRename(row.original)}
+              aria-label={`Edit ${row.original.name}`}
+            >
+              <Pencil aria-hidden className="h-4 w-4" />
+              Edit
+            </Button>
+            <Button
+              variant="quiet"
+              size="sm"
+              onClick={() => onDelete(row.original)}
+              aria-label={`Delete ${row.original.name}`}
+              className="hover:text-verdict-fail"
+            >
+              <Trash2 aria-hidden className="h-4 w-4" />
+              Delete
+            </Button>
+          </div>
+        ),
+      },
+    ];
+  }, [canEdit, onRename, onDelete]);
+
+  const table = useReactTable({
+    data: sites,
+    columns,
+    state: { sorting, globalFilter: search },
+    onSortingChange: setSorting,
+    onGlobalFilterChange: setSearch,
+    globalFilterFn: (row, _columnId, value: string) => matchesSearch(row.original, value),
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
+
+  const shown = table.getRowModel().rows.length;
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <TableSearch
+          label="Search sites"
+          placeholder="Search by site, client or address"
+          value={search}
+          onChange={setSearch}
+        />
+        {!loading ? (
+          <p className="text-sm text-ink-soft" aria-live="polite">
+            {shown === sites.length
+              ? `${sites.length} ${sites.length === 1 ? 'site' : 'sites'}`
+              : `${shown} of ${sites.length} sites`}
+          </p>
+        ) : null}
+      </div>
+      <DataTable
+        table={table}
+        caption="Sites"
+        loading={loading}
+        noMatch={`No site matches “${search.trim()}”.`}
+      />
+    </div>
+  );
+}

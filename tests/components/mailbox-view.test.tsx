@@ -1,0 +1,63 @@
+import { screen, within } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+
+import { MailboxView } from '@/features/mailbox/components/mailbox-view';
+
+import { json, mockFetch, renderWithQuery } from './helpers';
+
+afterEach(() => {
+  vi.unstubAllGlobals();
+});
+
+describe('MailboxView', () => {
+  it('shows the outbox with status, attempts and last error, and the caught messages', async () => {
+    mockFetch(
+      json({
+        outbox: [
+          {
+            id: 'm1',
+            toAddress: 'sam@example.test',
+            subject: 'You are invited to Oakley Electrical on Boardwright',
+            status: 'queued',
+            attempts: 3,
+            lastError: 'connect ECONNREFUSED 127.0.0.1:2525',
+            createdAt: '2025-03-01T09:00:00.000Z',
+            sentAt: null,
+          },
+        ],
+        caught: [
+          {
+            id: 'c1',
+            receivedAt: '2025-03-01T09:01:00.000Z',
+            from: 'boardwright@example.test',
+            to: ['dana@example.test'],
+            subject: 'Board schedule: Workshop DB1',
+            text: 'The schedule is attached.',
+            html: '',
+            attachments: [
+              { filename: 'workshop-db1.pdf', contentType: 'application/pdf', size: 2048 },
+            ],
+          },
+          { nonsense: true },
+        ],
+      }),
+    );
+    renderWithQuery(<MailboxView />);
+    expect(screen.getByRole('heading', { name: 'Development outbox' })).toBeTruthy();
+    const outbox = await screen.findByRole('table', { name: 'Outbox' });
+    const row = within(outbox).getByText('sam@example.test').closest('tr')!;
+    expect(within(row).getByText('Waiting')).toBeTruthy();
+    expect(within(row).getByText('3')).toBeTruthy();
+    expect(within(row).getByText('connect ECONNREFUSED 127.0.0.1:2525')).toBeTruthy();
+    expect(screen.getByText('Board schedule: Workshop DB1')).toBeTruthy();
+    expect(screen.getByText(/workshop-db1\.pdf/)).toBeTruthy();
+    expect(screen.getByText(/1 item\(s\) were not in the expected shape/)).toBeTruthy();
+  });
+
+  it('says when no mail catcher answered', async () => {
+    mockFetch(json({ outbox: [], caught: null }));
+    renderWithQuery(<MailboxView />);
+    expect(await screen.findByText(/no mail catcher is configured/i)).toBeTruthy();
+    expect(screen.getByText('Nothing has been queued yet.')).toBeTruthy();
+  });
+});
