@@ -97,7 +97,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
       load: { kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 18 },
       lengthM: 34,
       cable: 'te-70',
-      method: '102',
+      method: 'C',
       concealedInWall: true,
     }),
     breaker('mcb', 'B', 32, {
@@ -106,7 +106,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
       load: { kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 52 },
       lengthM: 58,
       cable: 'te-70',
-      method: '102',
+      method: 'C',
       concealedInWall: true,
     }),
     breaker('mcb', 'B', 6, {
@@ -125,6 +125,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
       lengthM: 9,
       cable: 'te-70',
       method: 'C',
+      csaMm2: 2.5,
     }),
     rcd(2, 63, 30),
     breaker('mcb', 'B', 32, {
@@ -134,15 +135,15 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
       lengthM: 11,
       cable: 'te-70',
       method: 'C',
+      csaMm2: 6,
     }),
-    breaker('mcb', 'B', 40, {
-      serves: 'Shower, bathroom',
+    breaker('mcb', 'B', 6, {
+      serves: 'Towel rail and extract fan, bathroom',
       use: 'fixed',
-      load: known(8500),
-      lengthM: 14,
+      load: known(450, 0.95),
+      lengthM: 12,
       cable: 'te-70',
       method: '103',
-      insulationMm: 0,
     }),
     breaker('mcb', 'B', 6, {
       serves: 'Lighting: bedrooms and bathroom',
