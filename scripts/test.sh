@@ -25,6 +25,8 @@ bash scripts/pg.sh status >/dev/null 2>&1 && PG_WAS_UP=1
 bash scripts/pg.sh start
 bash scripts/pg.sh dropdb "$DB_NAME" >/dev/null
 bash scripts/pg.sh createdb "$DB_NAME"
+# Fresh mail and object stores: stop the fakes first, their files are open.
+bash scripts/services.sh stop
 rm -rf "$DATA_DIR/mail-$SMTP_PORT" "$DATA_DIR/s3-$S3_PORT"
 bash scripts/services.sh start
 

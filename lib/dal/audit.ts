@@ -1,7 +1,10 @@
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { AuditEvent } from '@/models';
+import { layoutWays } from '@/lib/boards/layout';
+import { db } from '@/lib/db';
+import { notFound } from '@/lib/errors';
+import { AuditEvent, Board, User, Way } from '@/models';
 
 export type AuditAction =
   | 'board.created'
@@ -20,7 +23,13 @@ export type AuditAction =
   | 'site.deleted'
   | 'member.invited'
   | 'member.changed'
-  | 'schedule.emailed';
+  | 'schedule.emailed'
+  | 'review.approved'
+  | 'review.returned'
+  | 'board.verified'
+  | 'board.unverified'
+  | 'attachment.added'
+  | 'attachment.deleted';
 
 /** Appends one event to the audit trail, inside the caller's transaction when given. */
 export async function audit(
@@ -47,4 +56,79 @@ export type AuditEntry = {
   details: Record<string, unknown>;
   userName: string | null;
   createdAt: string;
+  /** The way's printed reference now ("7", "3L2"), when the event names a way that still has one. */
+  wayLabel: string | null;
 };
+
+/** One page of a board's trail, newest first; `nextBefore` asks for the page after it. */
+export type AuditPage = { entries: AuditEntry[]; nextBefore: string | null };
+
+/** Most events one page holds. */
+export const AUDIT_PAGE_MAX = 200;
+
+/**
+ * A board's audit trail, newest first, with the name of who did each thing. Scoped to the
+ * caller's organisation (another organisation's board is 404). `before` is the id of the
+ * oldest event already shown, for the next page.
+ */
+export async function listAudit(
+  actor: Actor,
+  boardId: string,
+  opts: { before?: string; limit?: number } = {},
+): Promise<AuditPage> {
+  db();
+  // Ownership: the board must belong to the caller's organisation
+  const board = await Board.findOne({
+    where: { id: boardId, organisationId: actor.organisationId },
+    attributes: ['id', 'phases'],
+  });
+  if (!board) throw notFound('The board');
+  // One page of events, plus one to know whether there is more
+  const limit = Math.min(Math.max(opts.limit ?? 100, 1), AUDIT_PAGE_MAX);
+  const events = await AuditEvent.findAll({
+    where: {
+      boardId,
+      organisationId: actor.organisationId,
+      ...(opts.before ? { id: { [Op.lt]: opts.before } } : {}),
+    },
+    order: [['id', 'DESC']],
+    limit: limit + 1,
+  });
+  const page = events.slice(0, limit);
+  // Who: names of the members involved, from the same organisation only
+  const userIds = [...new Set(page.map((e) => e.userId).filter((id): id is string => !!id))];
+  const users = userIds.length
+    ? await User.findAll({
+        where: { id: { [Op.in]: userIds }, organisationId: actor.organisationId },
+        attributes: ['id', 'name'],
+      })
+    : [];
+  const names = new Map(users.map((u) => [u.id, u.name]));
+  // Where: the current printed reference of each way named by an event
+  const ways = await Way.findAll({ where: { boardId }, attributes: ['id', 'rail', 'position', 'device'] });
+  const labels = new Map(
+    layoutWays(
+      board.phases,
+      ways.map((w) => ({
+        id: w.id,
+        rail: w.rail,
+        position: w.position,
+        device: w.device as { kind: string; poles: number; modules: number },
+      })),
+    ).map((p) => [p.id, p.label]),
+  );
+  return {
+    entries: page.map((e) => {
+      const wayId = typeof e.details?.wayId === 'string' ? e.details.wayId : null;
+      return {
+        id: String(e.id),
+        action: e.action,
+        details: e.details ?? {},
+        userName: e.userId ? (names.get(e.userId) ?? null) : null,
+        createdAt: e.createdAt.toISOString(),
+        wayLabel: wayId ? (labels.get(wayId) ?? null) : null,
+      };
+    }),
+    nextBefore: events.length > limit ? String(page[page.length - 1].id) : null,
+  };
+}

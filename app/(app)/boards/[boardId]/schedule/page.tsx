@@ -1,0 +1,69 @@
+import Link from 'next/link';
+import { notFound, redirect } from 'next/navigation';
+import { z } from 'zod';
+
+import { EmptyState } from '@/components/ui/empty-state';
+import { ScheduleSheet } from '@/features/schedule/components/schedule-sheet';
+import { ScheduleToolbar } from '@/features/schedule/components/schedule-toolbar';
+import { printQuerySchema } from '@/features/schedule/types/schemas';
+import { buildSchedule } from '@/features/schedule/utils/build-schedule';
+import { boardQrCode } from '@/features/schedule/utils/qr-code';
+import { can } from '@/lib/auth/permissions';
+import { getActor } from '@/lib/auth/session';
+import { boardStage, getScheduleSource, listRevisions } from '@/lib/dal/review';
+import { HttpError } from '@/lib/errors';
+
+export const metadata = { title: 'Schedule · Boardwright' };
+
+// The app's top bar is not part of the printed page.
+const PRINT_CSS = '@page { size: A4 landscape; margin: 10mm; } @media print { body > div > header { display: none; } main { padding: 0 !important; max-width: none !important; } }';
+
+/** The board schedule in the browser, printable; the same data as the PDF. */
+export default async function SchedulePage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ boardId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
+  const { boardId } = await params;
+  const actor = await getActor();
+  if (!actor) redirect('/login');
+  if (!z.uuid().safeParse(boardId).success) notFound();
+  const query = printQuerySchema.safeParse(await searchParams);
+  if (!query.success) notFound();
+  if (!can(actor.role, 'schedule.print')) notFound();
+  try {
+    const [source, revisions, stage] = await Promise.all([
+      getScheduleSource(actor, boardId, query.data.revision),
+      listRevisions(actor, boardId),
+      boardStage(actor, boardId),
+    ]);
+    const data = buildSchedule(source);
+    const choices = [
+      ...(actor.role !== 'installer' && !revisions.some((r) => r.revision === stage.revision)
+        ? [{ revision: stage.revision, label: `Revision ${stage.revision} (draft)` }]
+        : []),
+      ...revisions.map((r) => ({ revision: r.revision, label: `Revision ${r.revision} (issued)` })),
+    ];
+    return (
+      <div className="space-y-4">
+        <style>{PRINT_CSS}</style>
+        <div className="flex items-center justify-between print:hidden">
+          <Link href={`/boards/${boardId}`} className="text-sm text-ink-soft hover:text-ink">
+            ← {data.boardName}
+          </Link>
+          <h1 className="text-lg font-semibold">Schedule, revision {data.revision}</h1>
+        </div>
+        <ScheduleToolbar boardId={boardId} revision={data.revision} choices={choices} />
+        <ScheduleSheet data={data} qrDataUrl={await boardQrCode(data.boardUrl)} />
+      </div>
+    );
+  } catch (err) {
+    if (err instanceof HttpError && err.status === 404) notFound();
+    if (err instanceof HttpError && err.status === 403) {
+      return <EmptyState title="No issued schedule yet">{err.message} The schedule can be printed once the board is issued.</EmptyState>;
+    }
+    throw err;
+  }
+}

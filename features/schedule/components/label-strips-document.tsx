@@ -1,0 +1,70 @@
+import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
+
+import { MODULE_PITCH_MM, type LabelSheet } from '../utils/build-labels';
+import { PRINT_FONT } from '../utils/fonts';
+
+/** Points per millimetre (72 pt to the inch). */
+const MM = 72 / 25.4;
+
+/** Height of a label, mm. */
+const LABEL_HEIGHT_MM = 14;
+
+const styles = StyleSheet.create({
+  page: { fontFamily: PRINT_FONT, color: '#1f2a37', padding: 12 * MM, fontSize: 7 },
+  title: { fontSize: 11, fontWeight: 700 },
+  meta: { fontSize: 7.5, color: '#4b5563', marginTop: 2 },
+  scale: { flexDirection: 'row', alignItems: 'center', marginTop: 5, marginBottom: 6 },
+  scaleBar: { width: 50 * MM, height: 4, backgroundColor: '#1f2a37', marginRight: 6 },
+  railTitle: { fontSize: 8, fontWeight: 700, marginTop: 8, marginBottom: 3 },
+  strip: { flexDirection: 'row', marginBottom: 5 },
+  cell: {
+    height: LABEL_HEIGHT_MM * MM,
+    borderWidth: 0.6,
+    borderStyle: 'dashed',
+    borderColor: '#6b7580',
+    paddingHorizontal: 2,
+    paddingVertical: 1.5,
+    justifyContent: 'space-between',
+  },
+  ref: { fontSize: 9, fontWeight: 700, textAlign: 'center' },
+  text: { fontSize: 5.6, textAlign: 'center' },
+  device: { fontSize: 4.8, textAlign: 'center', color: '#4b5563' },
+  draft: { color: '#b3261e', fontWeight: 700, fontSize: 8, marginTop: 3 },
+});
+
+/** Way labels drawn to the module pitch, strip by strip in rail order, with cut lines. */
+export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
+  return (
+    <Document title={`Labels: ${sheet.boardName}, revision ${sheet.revision}`} creator="Boardwright" producer="Boardwright">
+      <Page size="A4" orientation="landscape" style={styles.page}>
+        <Text style={styles.title}>Way labels: {sheet.boardName}</Text>
+        <Text style={styles.meta}>
+          {sheet.siteName} · revision {sheet.revision} · {MODULE_PITCH_MM} mm per module · cut along the dashed lines
+        </Text>
+        {sheet.draft ? <Text style={styles.draft}>Draft, not issued: do not fit these labels.</Text> : null}
+        <View style={styles.scale}>
+          <View style={styles.scaleBar} />
+          <Text>Print at actual size (100 %): this bar must measure 50 mm.</Text>
+        </View>
+        {sheet.rails.map((rail) => (
+          <View key={rail.rail}>
+            <Text style={styles.railTitle}>
+              Rail {rail.rail + 1} ({rail.modules} modules)
+            </Text>
+            {rail.strips.map((strip) => (
+              <View key={strip.firstModule} style={styles.strip} wrap={false}>
+                {strip.cells.map((cell) => (
+                  <View key={cell.wayId} style={[styles.cell, { width: cell.modules * MODULE_PITCH_MM * MM }]}>
+                    <Text style={styles.ref}>{cell.ref ?? ' '}</Text>
+                    <Text style={styles.text}>{cell.text}</Text>
+                    <Text style={styles.device}>{cell.device}</Text>
+                  </View>
+                ))}
+              </View>
+            ))}
+          </View>
+        ))}
+      </Page>
+    </Document>
+  );
+}

@@ -1,0 +1,42 @@
+import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
+import { createElement, type ReactElement } from 'react';
+
+import type { ScheduleSource } from '@/lib/dal/review';
+
+import { LabelStripsDocument } from './components/label-strips-document';
+import { ScheduleDocument } from './components/schedule-document';
+import { buildLabelSheet } from './utils/build-labels';
+import { buildSchedule } from './utils/build-schedule';
+import { printFontMeasure, registerPrintFonts } from './utils/fonts';
+import { paginateSchedule } from './utils/paginate-schedule';
+import { boardQrCode } from './utils/qr-code';
+
+export type RenderedPdf = { pdf: Uint8Array; fileName: string };
+
+/** The board schedule PDF (A4 landscape) of a board state. */
+export async function renderSchedulePdf(source: ScheduleSource, now = new Date()): Promise<RenderedPdf> {
+  const data = buildSchedule(source, now);
+  const [qrDataUrl, measure] = await Promise.all([boardQrCode(data.boardUrl), printFontMeasure()]);
+  const pages = paginateSchedule(data, measure);
+  const element = createElement(ScheduleDocument, { data, qrDataUrl, pages }) as unknown as ReactElement<DocumentProps>;
+  const buffer = await renderToBuffer(element);
+  return { pdf: new Uint8Array(buffer), fileName: data.fileName };
+}
+
+/** The label strips PDF of a board state, drawn to the module pitch. */
+export async function renderLabelStripsPdf(source: ScheduleSource): Promise<RenderedPdf> {
+  registerPrintFonts();
+  const sheet = buildLabelSheet(source);
+  const element = createElement(LabelStripsDocument, { sheet }) as unknown as ReactElement<DocumentProps>;
+  const buffer = await renderToBuffer(element);
+  return { pdf: new Uint8Array(buffer), fileName: sheet.fileName };
+}
+
+/** Headers for a PDF answer: inline (view in the browser) or as a download. */
+export function pdfHeaders(fileName: string, download: boolean): HeadersInit {
+  return {
+    'Content-Type': 'application/pdf',
+    'Content-Disposition': `${download ? 'attachment' : 'inline'}; filename="${fileName}"`,
+    'Cache-Control': 'private, no-store',
+  };
+}

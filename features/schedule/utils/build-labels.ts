@@ -1,0 +1,75 @@
+/**
+ * The label strips of a board: one label per device on the rail, as wide as the device,
+ * in rail order, split into strips that fit across an A4 page. Pure.
+ */
+import { layoutWays, railOrder } from '@/lib/boards/layout';
+import { describeDevice, labelTextOf } from '@/lib/boards/revision-diff';
+import type { ScheduleSource } from '@/lib/dal/review';
+
+/** The common DIN-rail module pitch, mm (one 1-pole MCB is 17.5 mm wide: common practice, EN 60715 rail). */
+export const MODULE_PITCH_MM = 17.5;
+
+/** Printable width across an A4 landscape page with 12 mm margins, mm. */
+export const STRIP_WIDTH_MM = 297 - 2 * 12;
+
+/** Modules that fit on one printed strip. */
+export const MODULES_PER_STRIP = Math.floor(STRIP_WIDTH_MM / MODULE_PITCH_MM);
+
+export type LabelCell = {
+  wayId: string;
+  ref: string | null;
+  text: string;
+  device: string;
+  modules: number;
+};
+
+export type LabelStrip = { firstModule: number; lastModule: number; cells: LabelCell[] };
+
+export type LabelSheet = {
+  boardName: string;
+  siteName: string;
+  revision: number;
+  draft: boolean;
+  rails: { rail: number; modules: number; strips: LabelStrip[] }[];
+  fileName: string;
+};
+
+/** The label strips of a board state, rail by rail. */
+export function buildLabelSheet(source: ScheduleSource): LabelSheet {
+  const { settings, ways } = source.snapshot;
+  const ordered = railOrder(ways);
+  const refs = new Map(layoutWays(settings.phases, ordered).map((p) => [p.id, p.label]));
+  const rails = [...new Set(ordered.map((w) => w.rail))].sort((a, b) => a - b);
+  const slug = settings.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'board';
+  return {
+    boardName: settings.name,
+    siteName: source.snapshot.siteName,
+    revision: source.revision,
+    draft: !source.frozen,
+    fileName: `labels-${slug}-rev${source.revision}${source.frozen ? '' : '-draft'}.pdf`,
+    rails: rails.map((rail) => {
+      const strips: LabelStrip[] = [];
+      let current: LabelStrip | null = null;
+      let module = 0;
+      for (const way of ordered.filter((w) => w.rail === rail)) {
+        const modules = Math.max(1, way.device.modules);
+        const used: number = current ? current.lastModule - current.firstModule + 1 : 0;
+        // A device never straddles two strips: start a new one when it would not fit
+        if (!current || used + modules > MODULES_PER_STRIP) {
+          current = { firstModule: module + 1, lastModule: module, cells: [] };
+          strips.push(current);
+        }
+        current.cells.push({
+          wayId: way.id,
+          ref: refs.get(way.id) ?? null,
+          text: labelTextOf(way),
+          device: way.device.kind === 'blank' ? '' : describeDevice(way.device),
+          modules,
+        });
+        module += modules;
+        current.lastModule = module;
+      }
+      return { rail, modules: module, strips };
+    }),
+  };
+}

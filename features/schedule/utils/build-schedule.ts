@@ -1,0 +1,365 @@
+/**
+ * Turns a board state (an issued revision or the live draft) into the rows, groups,
+ * totals and notices of the printed board schedule. Pure: the PDF and the browser print
+ * view both draw what this returns, so they always say the same thing.
+ */
+import { layoutWays, railOrder } from '@/lib/boards/layout';
+import { describeDevice, type SnapshotWay } from '@/lib/boards/revision-diff';
+import type { ScheduleSource } from '@/lib/dal/review';
+import { SIZING_CAUTION, type CircuitResult, type Verdict } from '@/lib/sizing';
+import type { LabelStatus } from '@/models/way';
+
+export type ColumnKey =
+  | 'way'
+  | 'serves'
+  | 'protection'
+  | 'ib'
+  | 'cable'
+  | 'conductors'
+  | 'run'
+  | 'iz'
+  | 'vd'
+  | 'r1r2'
+  | 'zs'
+  | 'result'
+  | 'label';
+
+export type ScheduleColumn = {
+  key: ColumnKey;
+  heading: string;
+  /** Share of the table width, in points on A4 landscape. */
+  width: number;
+  align: 'left' | 'right' | 'center';
+};
+
+/**
+ * Boardwright's own columns, in the order a designer reasons about a way: what it is and
+ * feeds, its protection, its load, the cable, then the checks and the verdict.
+ */
+export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
+  { key: 'way', heading: 'Way', width: 40, align: 'left' },
+  { key: 'serves', heading: 'Serves', width: 150, align: 'left' },
+  { key: 'protection', heading: 'Protection', width: 92, align: 'left' },
+  { key: 'ib', heading: 'Ib A', width: 34, align: 'right' },
+  { key: 'cable', heading: 'Cable, method', width: 78, align: 'left' },
+  { key: 'conductors', heading: 'Line / cpc mm²', width: 50, align: 'right' },
+  { key: 'run', heading: 'Run m', width: 32, align: 'right' },
+  { key: 'iz', heading: 'Iz A', width: 34, align: 'right' },
+  { key: 'vd', heading: 'Volt drop % (limit)', width: 52, align: 'right' },
+  { key: 'r1r2', heading: 'R1+R2 Ω', width: 40, align: 'right' },
+  { key: 'zs', heading: 'Zs Ω (max)', width: 54, align: 'right' },
+  { key: 'result', heading: 'Design check', width: 58, align: 'left' },
+  { key: 'label', heading: 'Label on site', width: 70, align: 'left' },
+];
+
+export type ScheduleRow = {
+  wayId: string;
+  cells: Record<ColumnKey, string>;
+  verdict: Verdict | null;
+  spare: boolean;
+  label: LabelStatus | null;
+};
+
+export type ScheduleGroup = { heading: string; rows: ScheduleRow[] };
+
+export type ScheduleFact = { label: string; value: string };
+
+export type ScheduleNotice = { title: string; text: string };
+
+export type ScheduleData = {
+  organisationName: string;
+  boardName: string;
+  siteName: string;
+  location: string;
+  boardUrl: string;
+  revision: number;
+  draft: boolean;
+  statusWord: string;
+  supply: ScheduleFact[];
+  document: ScheduleFact[];
+  columns: ScheduleColumn[];
+  groups: ScheduleGroup[];
+  totals: ScheduleFact[];
+  notices: ScheduleNotice[];
+  designNotes: string[];
+  caution: string;
+  fileName: string;
+};
+
+const CABLE_WORDS: Record<string, string> = {
+  'te-70': 'Flat T&E 70°',
+  'single-pvc-70': 'Singles 70°',
+  'multi-pvc-70': 'Multicore 70°',
+  'swa-xlpe-90': 'SWA XLPE 90°',
+};
+
+const VERDICT_WORDS: Record<Verdict, string> = {
+  passes: '✓ Passes',
+  'near-limit': '! Near limit',
+  fails: '✗ Fails',
+};
+
+const LABEL_WORDS: Record<LabelStatus, string> = {
+  unchecked: 'Not checked',
+  matches: '✓ Matches',
+  wrong: '✗ Wrong',
+  missing: '✗ Missing',
+};
+
+const STATUS_WORDS = { draft: 'Draft', 'in-review': 'In review', issued: 'Issued', verified: 'Verified' };
+
+const EARTHING_NOTES: Record<string, string> = {
+  'TN-S': 'TN-S',
+  'TN-C-S': 'TN-C-S (PME)',
+  TT: 'TT',
+};
+
+/** A number with fixed decimals, or a dash when there is none. */
+export function num(value: number | null | undefined, decimals: number): string {
+  return value === null || value === undefined || !Number.isFinite(value) ? '—' : value.toFixed(decimals);
+}
+
+/** "12 Mar 2026" in the UK's time zone. */
+export function formatDate(iso: string): string {
+  return new Intl.DateTimeFormat('en-GB', {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    timeZone: 'Europe/London',
+  }).format(new Date(iso));
+}
+
+function protectionText(way: SnapshotWay, result: CircuitResult | null): string {
+  const text = describeDevice(way.device, result?.inA);
+  const parts = [text];
+  if (way.device.poles > 1 && way.device.kind !== 'blank') parts.push(`${way.device.poles}P`);
+  if (way.device.breakingKa) parts.push(`${way.device.breakingKa} kA`);
+  return parts.join(' · ');
+}
+
+function emptyCells(): Record<ColumnKey, string> {
+  return Object.fromEntries(SCHEDULE_COLUMNS.map((c) => [c.key, '—'])) as Record<ColumnKey, string>;
+}
+
+function labelCell(label: { status: LabelStatus; note: string } | undefined): string {
+  if (!label) return '—';
+  const word = LABEL_WORDS[label.status];
+  return label.note && label.status !== 'unchecked' ? `${word}: ${label.note}` : word;
+}
+
+/** One row of the schedule for a device with a way number (or an SPD). */
+function rowFor(
+  way: SnapshotWay,
+  ref: string | null,
+  result: CircuitResult | null,
+  label: { status: LabelStatus; note: string } | undefined,
+): ScheduleRow {
+  const cells = emptyCells();
+  cells.way = ref ?? '—';
+  cells.protection = protectionText(way, result);
+  cells.label = labelCell(label);
+  const c = way.circuit;
+  if (!c) {
+    const spare = way.device.kind === 'blank' ? 'Spare (blank)' : way.device.kind === 'spd' ? 'Surge protection' : 'Spare (device fitted)';
+    cells.serves = spare;
+    if (way.device.kind === 'blank') cells.protection = '—';
+    return { wayId: way.id, cells, verdict: null, spare: way.device.kind !== 'spd', label: label?.status ?? null };
+  }
+  cells.serves = c.serves?.trim() || '(not named)';
+  cells.cable = `${CABLE_WORDS[c.cable] ?? c.cable}, ref ${c.method}`;
+  cells.run = num(c.lengthM, 0);
+  if (result) {
+    cells.ib = num(result.ibA, 1);
+    cells.conductors = result.csaMm2 ? `${result.csaMm2} / ${result.cpcMm2 ?? '—'}` : '—';
+    cells.iz = num(result.izA, 1);
+    cells.vd = result.vdPct === null ? '—' : `${num(result.vdPct, 2)} (${result.vdLimitPct})`;
+    cells.r1r2 = num(result.r1r2Ohm, 3);
+    cells.zs = result.zsOhm === null ? '—' : `${num(result.zsOhm, 2)} (${num(result.zsMaxOhm, 2)})`;
+    cells.result = VERDICT_WORDS[result.verdict];
+  }
+  return { wayId: way.id, cells, verdict: result?.verdict ?? null, spare: false, label: label?.status ?? null };
+}
+
+function groupHeading(way: SnapshotWay): string {
+  const d = way.device;
+  if (d.kind === 'main-switch') {
+    return `Main switch ${d.ratingA ?? ''} A, ${d.poles}-pole: the ways below have no RCD upstream (RCBOs carry their own)`.replace(' ,', ',');
+  }
+  return `RCD ${d.ratingA ? `${d.ratingA} A, ` : ''}${d.rcdMa ?? 30} mA${d.rcdType ? `, type ${d.rcdType}` : ''}: protects the ways below`;
+}
+
+function incomingText(incoming: ScheduleSource['snapshot']['settings']['incoming']): string {
+  const words: Record<string, string> = {
+    'main-switch': 'Main switch',
+    mcb: 'Circuit-breaker',
+    'fuse-bs88-2': 'Fuse BS 88-2',
+    rcd: 'RCD',
+  };
+  const busbar = incoming.busbarRatingA ? ` · busbar ${incoming.busbarRatingA} A` : '';
+  return `${words[incoming.kind] ?? incoming.kind} ${incoming.ratingA} A${busbar}`;
+}
+
+/** The notices the board calls for, in the spirit of BS 7671 Section 514 (our own words). */
+export function noticesFor(source: ScheduleSource): ScheduleNotice[] {
+  const { settings, ways } = source.snapshot;
+  const notices: ScheduleNotice[] = [];
+  const hasRcd =
+    settings.incoming.kind === 'rcd' || ways.some((w) => w.device.kind === 'rcd' || w.device.kind === 'rcbo');
+  // BS 7671:2018+A2:2022 514.12.2 asks for a notice on RCD testing (six-monthly since A2; from memory)
+  if (hasRcd) {
+    notices.push({
+      title: 'Test the RCDs',
+      text: 'This board has residual current devices (RCDs or RCBOs). Press the test button on each one every six months: it must switch off. Switch it back on afterwards. If one does not switch off, ask an electrician to check it.',
+    });
+  }
+  // 514.12.1: a notice of periodic inspection (from memory)
+  notices.push({
+    title: 'Periodic inspection',
+    text: 'Have this installation inspected and tested periodically by a competent person; the date of the next inspection is on the installation certificate.',
+  });
+  // 514.10.1: a warning where more than 230 V is present between parts (from memory)
+  if (settings.phases === 3) {
+    notices.push({
+      title: '400 V inside',
+      text: 'Three-phase board: 400 V is present between the phases inside this enclosure. Isolate all three phases before removing covers.',
+    });
+  }
+  if (settings.supply.earthing === 'TT') {
+    notices.push({
+      title: 'TT earthing',
+      text: 'Fault protection relies on the RCDs and the installation earth electrode. Do not disconnect the earthing conductor or bypass an RCD.',
+    });
+  }
+  if (ways.some((w) => w.device.kind === 'spd')) {
+    notices.push({
+      title: 'Surge protection',
+      text: 'A surge protective device is fitted. Check its status indicator at every inspection and replace it when it shows the end of its life.',
+    });
+  }
+  if (!source.frozen) {
+    notices.push({
+      title: 'Not issued',
+      text: `This is revision ${source.revision} as drafted, not an issued schedule. Do not build or label a board from it.`,
+    });
+  }
+  return notices;
+}
+
+/** The schedule of a board state: header facts, grouped rows, totals, notices and caution. */
+export function buildSchedule(source: ScheduleSource, now = new Date()): ScheduleData {
+  const { settings, ways } = source.snapshot;
+  const ordered = railOrder(ways);
+  const refs = new Map(layoutWays(settings.phases, ordered).map((p) => [p.id, p.label]));
+  const results = new Map((source.sizing?.ways ?? []).map((w) => [w.id, w.result]));
+  const labels = source.labels ?? {};
+  const walked = Object.values(labels).some((l) => l.status !== 'unchecked');
+
+  // Rows in rail order; a main switch or an RCD starts a new group
+  const groups: ScheduleGroup[] = [
+    {
+      heading:
+        settings.incoming.kind === 'rcd'
+          ? `Incoming RCD ${settings.incoming.ratingA} A: protects the ways below`
+          : 'Ways fed straight from the incoming device',
+      rows: [],
+    },
+  ];
+  for (const way of ordered) {
+    if (way.device.kind === 'main-switch' || way.device.kind === 'rcd') {
+      groups.push({ heading: groupHeading(way), rows: [] });
+      continue;
+    }
+    const row = rowFor(way, refs.get(way.id) ?? null, results.get(way.id) ?? null, walked ? labels[way.id] : undefined);
+    groups[groups.length - 1].rows.push(row);
+  }
+  const filled = groups.filter((g) => g.rows.length);
+
+  // Totals from the board's sizing
+  const s = source.sizing?.summary;
+  const rows = filled.flatMap((g) => g.rows);
+  const spares = rows.filter((r) => r.spare).length;
+  const totals: ScheduleFact[] = [
+    { label: 'Ways', value: `${rows.length - spares} in use, ${spares} spare` },
+  ];
+  if (s) {
+    totals.push(
+      { label: 'Connected load', value: `${num(s.connectedLoadW / 1000, 2)} kW` },
+      { label: 'Maximum demand (after diversity)', value: `${num(s.maxDemandA, 1)} A` },
+    );
+    if (s.phaseCurrentsA) {
+      totals.push({
+        label: 'Per phase',
+        value: `L1 ${num(s.phaseCurrentsA.L1, 1)} A · L2 ${num(s.phaseCurrentsA.L2, 1)} A · L3 ${num(s.phaseCurrentsA.L3, 1)} A${s.imbalancePct !== null ? ` · imbalance ${num(s.imbalancePct, 0)} %` : ''}`,
+      });
+    }
+    totals.push(
+      {
+        label: 'Design checks',
+        value: `${s.counts.passes} pass, ${s.counts.nearLimit} near limit, ${s.counts.fails} fail`,
+      },
+      { label: 'Modules', value: `${s.modulesUsed} of ${s.enclosureModules} used` },
+      { label: 'Incoming device', value: s.incomingCheck.message },
+    );
+  }
+  if (walked) {
+    const all = Object.values(labels);
+    const count = (st: LabelStatus) => all.filter((l) => l.status === st).length;
+    totals.push({
+      label: 'Label walk',
+      value: `${count('matches')} match, ${count('wrong')} wrong, ${count('missing')} missing, ${count('unchecked')} not checked`,
+    });
+  }
+
+  // Design notes: every failed check, so the schedule never hides one
+  const designNotes: string[] = [];
+  for (const way of ordered) {
+    const r = results.get(way.id);
+    if (!r) continue;
+    for (const c of r.checks.filter((x) => !x.ok)) {
+      designNotes.push(`Way ${refs.get(way.id) ?? '?'}: ${c.message} (${c.reference})`);
+    }
+  }
+  for (const c of s?.checks.filter((x) => !x.ok) ?? []) designNotes.push(`Board: ${c.message} (${c.reference})`);
+  for (const issue of source.sizingIssues) designNotes.push(`Not sized: ${issue.path}: ${issue.message}`);
+
+  const columns = SCHEDULE_COLUMNS.filter((c) => c.key !== 'label' || walked);
+  const issued = source.issued
+    ? `${formatDate(source.issued.at)} by ${source.issued.byName}`
+    : 'Not issued';
+  const slug = settings.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'board';
+  return {
+    organisationName: source.snapshot.organisationName,
+    boardName: settings.name,
+    siteName: source.snapshot.siteName,
+    location: settings.location,
+    boardUrl: source.boardUrl,
+    revision: source.revision,
+    draft: !source.frozen,
+    statusWord: source.frozen ? STATUS_WORDS[source.status] : `${STATUS_WORDS[source.status]} (not issued)`,
+    supply: [
+      { label: 'Earthing', value: EARTHING_NOTES[settings.supply.earthing] ?? settings.supply.earthing },
+      { label: 'Uo', value: `${settings.supply.uoV} V` },
+      { label: 'Ze', value: `${settings.supply.zeOhm} Ω` },
+      { label: 'PFC', value: `${settings.supply.pfcKa} kA` },
+      {
+        label: 'Phases',
+        value: `${settings.phases === 3 ? 'Three-phase' : 'Single-phase'}, ${settings.supply.source} supply`,
+      },
+      { label: 'Incoming', value: incomingText(settings.incoming) },
+    ],
+    document: [
+      { label: 'Revision', value: String(source.revision) },
+      { label: 'Status', value: source.frozen ? STATUS_WORDS[source.status] : `${STATUS_WORDS[source.status]} (not issued)` },
+      { label: 'Issued', value: issued },
+      { label: 'Printed', value: formatDate(now.toISOString()) },
+      { label: 'Enclosure', value: `${settings.enclosureModules} modules, ${settings.rails} rail${settings.rails > 1 ? 's' : ''}` },
+    ],
+    columns,
+    groups: filled,
+    totals,
+    notices: noticesFor(source),
+    designNotes,
+    caution: SIZING_CAUTION,
+    fileName: `schedule-${slug}-rev${source.revision}${source.frozen ? '' : '-draft'}.pdf`,
+  };
+}

@@ -1,0 +1,173 @@
+import 'server-only';
+
+import { Op } from 'sequelize';
+
+import type { Actor } from '@/lib/auth/session';
+import { layoutWays, railOrder } from '@/lib/boards/layout';
+import { describeDevice, labelTextOf, type SnapshotWay } from '@/lib/boards/revision-diff';
+import { db } from '@/lib/db';
+import { listAttachments, type AttachmentDto } from '@/lib/dal/attachments';
+import { audit } from '@/lib/dal/audit';
+import { findBoard } from '@/lib/dal/boards';
+import { conflict, notFound } from '@/lib/errors';
+import { Board, Site, User, Way } from '@/models';
+import type { BoardStatus } from '@/models/board';
+import type { LabelStatus } from '@/models/way';
+
+/** One way as the walk shows it: what its label should say and what was found. */
+export type WalkWay = {
+  id: string;
+  /** The printed way reference, null for a main switch, RCD or SPD. */
+  ref: string | null;
+  /** The words of the label on the strip. */
+  labelText: string;
+  device: string;
+  rail: number;
+  status: LabelStatus;
+  note: string;
+  checkedByName: string | null;
+  checkedAt: string | null;
+  photos: AttachmentDto[];
+};
+
+export type WalkProgress = { total: number; checked: number; matches: number; wrong: number; missing: number };
+
+export type WalkData = {
+  boardId: string;
+  name: string;
+  siteName: string;
+  location: string;
+  status: BoardStatus;
+  revision: number;
+  ways: WalkWay[];
+  progress: WalkProgress;
+  /** Photos of the whole board (not of one way). */
+  boardPhotos: AttachmentDto[];
+};
+
+/** Counts of a walk's results. */
+export function walkProgress(statuses: LabelStatus[]): WalkProgress {
+  const count = (s: LabelStatus) => statuses.filter((x) => x === s).length;
+  return {
+    total: statuses.length,
+    checked: statuses.length - count('unchecked'),
+    matches: count('matches'),
+    wrong: count('wrong'),
+    missing: count('missing'),
+  };
+}
+
+function assertWalkable(board: Board): void {
+  if (board.status !== 'issued' && board.status !== 'verified') {
+    throw conflict('The label walk is for issued boards; this board has not been issued yet.');
+  }
+}
+
+/** The walk of a board: every device on the rail in rail order, with its result and photos. */
+export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> {
+  const board = await findBoard(actor, boardId);
+  const [site, ways, photos] = await Promise.all([
+    Site.findByPk(board.siteId, { attributes: ['name'] }),
+    Way.findAll({ where: { boardId } }),
+    listAttachments(actor, boardId),
+  ]);
+  const ordered = railOrder(ways);
+  const refs = new Map(
+    layoutWays(board.phases, ordered as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
+  );
+  const checkers = await User.findAll({
+    where: { id: { [Op.in]: ordered.map((w) => w.labelCheckedById).filter((id): id is string => !!id) } },
+    attributes: ['id', 'name'],
+  });
+  const names = new Map(checkers.map((u) => [u.id, u.name]));
+  const walkWays = ordered.map((w) => {
+    const way = w as unknown as SnapshotWay;
+    return {
+      id: w.id,
+      ref: refs.get(w.id) ?? null,
+      labelText: labelTextOf(way),
+      device: describeDevice(way.device),
+      rail: w.rail,
+      status: w.labelStatus,
+      note: w.labelNote,
+      checkedByName: w.labelCheckedById ? (names.get(w.labelCheckedById) ?? null) : null,
+      checkedAt: w.labelCheckedAt ? w.labelCheckedAt.toISOString() : null,
+      photos: photos.filter((p) => p.wayId === w.id),
+    };
+  });
+  return {
+    boardId,
+    name: board.name,
+    siteName: site?.name ?? '',
+    location: board.location,
+    status: board.status,
+    revision: board.revision,
+    ways: walkWays,
+    progress: walkProgress(walkWays.map((w) => w.status)),
+    boardPhotos: photos.filter((p) => !p.wayId),
+  };
+}
+
+/**
+ * Records what the walker found at one way. When every way's label matches the board
+ * becomes verified; a verified board with a label found wrong or missing goes back to issued.
+ */
+export async function recordLabel(
+  actor: Actor,
+  boardId: string,
+  wayId: string,
+  input: { status: Exclude<LabelStatus, 'unchecked'>; note?: string },
+): Promise<{ boardStatus: BoardStatus; progress: WalkProgress }> {
+  return db().transaction(async (transaction) => {
+    // Lock the board so that saves and other walkers wait their turn
+    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    assertWalkable(board);
+    const way = await Way.findOne({ where: { id: wayId, boardId }, transaction });
+    if (!way) throw notFound('The way');
+    // Record the result
+    await way.update(
+      {
+        labelStatus: input.status,
+        labelNote: input.note?.trim() ?? '',
+        labelCheckedById: actor.userId,
+        labelCheckedAt: new Date(),
+      },
+      { transaction },
+    );
+    await audit(actor, 'label.checked', { wayId, status: input.status }, { boardId, transaction });
+    // Verified when every label matches; back to issued otherwise
+    const statuses = (await Way.findAll({ where: { boardId }, attributes: ['labelStatus'], transaction })).map(
+      (w) => w.labelStatus,
+    );
+    const progress = walkProgress(statuses);
+    const allMatch = progress.total > 0 && progress.matches === progress.total;
+    if (allMatch && board.status === 'issued') {
+      await board.update({ status: 'verified' }, { transaction });
+      await audit(actor, 'board.verified', { revision: board.revision }, { boardId, transaction });
+    } else if (!allMatch && board.status === 'verified') {
+      await board.update({ status: 'issued' }, { transaction });
+      await audit(actor, 'board.unverified', { revision: board.revision, wayId }, { boardId, transaction });
+    }
+    return { boardStatus: board.status, progress };
+  });
+}
+
+/** Label problems of a board (wrong or missing), for the board page and the designer. */
+export async function labelProblems(
+  actor: Actor,
+  boardId: string,
+): Promise<{ wayId: string; ref: string | null; status: 'wrong' | 'missing'; note: string }[]> {
+  const board = await findBoard(actor, boardId);
+  const ways = await Way.findAll({ where: { boardId } });
+  const refs = new Map(
+    layoutWays(board.phases, ways as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
+  );
+  return railOrder(ways)
+    .filter((w) => w.labelStatus === 'wrong' || w.labelStatus === 'missing')
+    .map((w) => ({
+      wayId: w.id,
+      ref: refs.get(w.id) ?? null,
+      status: w.labelStatus as 'wrong' | 'missing',
+      note: w.labelNote,
+    }));
+}

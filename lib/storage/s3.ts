@@ -1,0 +1,77 @@
+import 'server-only';
+
+import {
+  DeleteObjectCommand,
+  GetObjectCommand,
+  NoSuchKey,
+  PutObjectCommand,
+  S3Client,
+} from '@aws-sdk/client-s3';
+
+import { env } from '@/lib/env';
+
+const holder = globalThis as unknown as { boardwrightS3?: S3Client };
+
+/**
+ * The one S3 client of this process. Path-style addressing and checksums only when
+ * required: the local S3 fake stores the SDK's streaming checksum frames inside the
+ * object otherwise (stack.md, "The local fakes", trap 1).
+ */
+export function s3(): S3Client {
+  if (holder.boardwrightS3) return holder.boardwrightS3;
+  const e = env();
+  holder.boardwrightS3 = new S3Client({
+    region: e.S3_REGION,
+    endpoint: e.S3_ENDPOINT,
+    forcePathStyle: true,
+    credentials: { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
+    requestChecksumCalculation: 'WHEN_REQUIRED',
+    responseChecksumValidation: 'WHEN_REQUIRED',
+  });
+  return holder.boardwrightS3;
+}
+
+/** Stores bytes under a key in the app's bucket. */
+export async function putObject(key: string, body: Uint8Array, contentType: string): Promise<void> {
+  await s3().send(
+    new PutObjectCommand({
+      Bucket: env().S3_BUCKET,
+      Key: key,
+      Body: body,
+      ContentType: contentType,
+      ContentLength: body.byteLength,
+    }),
+  );
+}
+
+/** An object as a web stream with its length, or null when the key does not exist. */
+export async function getObjectStream(
+  key: string,
+): Promise<{ body: ReadableStream<Uint8Array>; length: number | undefined } | null> {
+  try {
+    const out = await s3().send(new GetObjectCommand({ Bucket: env().S3_BUCKET, Key: key }));
+    if (!out.Body) return null;
+    return {
+      body: out.Body.transformToWebStream() as ReadableStream<Uint8Array>,
+      length: out.ContentLength,
+    };
+  } catch (err) {
+    if (err instanceof NoSuchKey || (err as { name?: string }).name === 'NoSuchKey') return null;
+    throw err;
+  }
+}
+
+/** An object's bytes, or null when the key does not exist. */
+export async function getObjectBytes(key: string): Promise<Uint8Array | null> {
+  const found = await getObjectStream(key);
+  if (!found) return null;
+  return new Uint8Array(await new Response(found.body).arrayBuffer());
+}
+
+/** Removes objects; keys that do not exist are ignored. */
+export async function deleteObjects(keys: string[]): Promise<void> {
+  // One call per key: the batch call needs a body checksum that not every S3 fake accepts.
+  await Promise.all(
+    keys.map((Key) => s3().send(new DeleteObjectCommand({ Bucket: env().S3_BUCKET, Key }))),
+  );
+}

@@ -1,0 +1,125 @@
+/**
+ * The review and the label walk in real Chromium against the built app: an inspector
+ * issues a board on the review page, then an installer walks it on a phone-sized screen,
+ * marks ways, adds a photo, reloads, resumes on another device and finishes: verified.
+ */
+import crypto from 'node:crypto';
+
+import sharp from 'sharp';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { db } from '@/lib/db';
+import { Board, Organisation, Site, Way } from '@/models';
+import { DEMO_ORG, DEMO_SITE, FLAT_BOARD, demoWays } from '@/scripts/demo-data';
+
+import { APP_URL, openBrowser, signIn } from './helpers';
+
+let boardId: string;
+let boardName: string;
+let total: number;
+
+beforeAll(async () => {
+  // A board of its own in the demo organisation, so other tests' boards are left alone
+  db();
+  const org = await Organisation.findOne({ where: { name: DEMO_ORG } });
+  const site = await Site.findOne({ where: { organisationId: org!.id, name: DEMO_SITE.name } });
+  boardName = `Walk test ${crypto.randomUUID().slice(0, 6)}`;
+  const board = await Board.create({
+    ...FLAT_BOARD.settings,
+    name: boardName,
+    organisationId: org!.id,
+    siteId: site!.id,
+    // Sending for review is the editor's step; the row is put in review directly
+    status: 'in-review',
+  });
+  const ways = demoWays(FLAT_BOARD);
+  await Way.bulkCreate(ways.map((w) => ({ ...w, boardId: board.id })));
+  boardId = board.id;
+  total = ways.length;
+});
+
+afterAll(async () => {
+  await db().close();
+  (globalThis as { boardwrightSequelize?: unknown }).boardwrightSequelize = undefined;
+});
+
+describe('review and label walk', () => {
+  it('an inspector approves the board on the review page', async () => {
+    const { page, close } = await openBrowser();
+    try {
+      await signIn(page, 'inspector');
+      await page.goto(`${APP_URL}/boards/${boardId}/review`);
+      await expect.poll(() => page.getByRole('heading', { name: `Review: ${boardName}` }).count()).toBe(1);
+      await page.getByRole('button', { name: 'Approve and issue' }).click();
+      await page.getByText('Issued as revision 1').waitFor();
+      expect((await Board.findByPk(boardId))!.status).toBe('issued');
+    } finally {
+      await close();
+    }
+  });
+
+  it('an installer walks it on a phone: marks ways, adds a photo, reloads, resumes elsewhere, finishes verified', async () => {
+    const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#9aa3ad' } })
+      .jpeg()
+      .toBuffer();
+    const first = await openBrowser({ phone: true });
+    try {
+      const { page } = first;
+      await signIn(page, 'installer');
+      await page.goto(`${APP_URL}/boards/${boardId}/walk`);
+      await page.getByRole('heading', { name: `Label walk: ${boardName}` }).waitFor();
+      await page.getByText(`0 of ${total} checked`).waitFor();
+      // The first device on the rail is the main switch
+      await expect.poll(() => page.getByRole('heading', { level: 2 }).textContent()).toBe('Main switch 100 A');
+
+      // Three ways match
+      for (let n = 1; n <= 3; n += 1) {
+        await page.getByRole('button', { name: 'Label matches' }).click();
+        await page.getByText(`${n} of ${total} checked`).waitFor();
+      }
+      // The fourth way: a photo of it, then reload: the walk resumes there with the photo
+      const fourth = await page.getByRole('heading', { level: 2 }).textContent();
+      await page.locator('input[type="file"]').setInputFiles({ name: 'way.jpg', mimeType: 'image/jpeg', buffer: photo });
+      await page.getByRole('img', { name: /^Photo of way/ }).waitFor();
+      await page.reload();
+      await page.getByText(`3 of ${total} checked`).waitFor();
+      expect(await page.getByRole('heading', { level: 2 }).textContent()).toBe(fourth);
+      await page.getByRole('img', { name: /^Photo of way/ }).waitFor();
+      const thumb = await page.request.get(
+        (await page.getByRole('img', { name: /^Photo of way/ }).getAttribute('src'))!.replace(/^\//, `${APP_URL}/`),
+      );
+      expect(thumb.headers()['content-type']).toBe('image/jpeg');
+
+      // A wrong label, with a note
+      await page.getByLabel('Note').fill('Label says Cooker');
+      await page.getByRole('button', { name: 'Label is wrong' }).click();
+      await page.getByText(`4 of ${total} checked`).waitFor();
+      await page.getByText('1 wrong').waitFor();
+    } finally {
+      await first.close();
+    }
+
+    // Another phone: the progress is there; go back to the wrong one, fix it, finish the rest
+    const second = await openBrowser({ phone: true });
+    try {
+      const { page } = second;
+      await signIn(page, 'installer');
+      await page.goto(`${APP_URL}/boards/${boardId}/walk`);
+      await page.getByText(`4 of ${total} checked`).waitFor();
+      const goTo = page.getByRole('combobox', { name: 'Go to way' });
+      const wrong = await goTo.locator('option', { hasText: 'Label is wrong' }).getAttribute('value');
+      await goTo.selectOption(wrong!);
+      await page.getByLabel('Note').fill('Relabelled on site');
+      await page.getByRole('button', { name: 'Label matches' }).click();
+      await page.getByText(`4 of ${total} checked · 4 match`).waitFor();
+      for (let n = 5; n <= total; n += 1) {
+        await page.getByRole('button', { name: 'Label matches' }).click();
+        await page.getByText(`${n} of ${total} checked`).waitFor();
+      }
+      await page.getByRole('status').filter({ hasText: 'the board is verified' }).first().waitFor();
+      expect((await Board.findByPk(boardId))!.status).toBe('verified');
+    } finally {
+      await second.close();
+    }
+  });
+});
