@@ -6,7 +6,8 @@ import { OutgoingMail } from '@/models';
 
 /**
  * GET /api/dev/mailbox (admins): the organisation's outbox with each message's status,
- * and, when a local mail catcher is configured, what it has received.
+ * and, when a local mail catcher is configured, what it has received for the organisation's
+ * own recipients.
  */
 export const GET = route(async () => {
   const actor = await requireActor('mailbox.read');
@@ -17,12 +18,23 @@ export const GET = route(async () => {
     limit: 100,
     attributes: ['id', 'toAddress', 'subject', 'status', 'attempts', 'lastError', 'createdAt', 'sentAt'],
   });
-  let caught: unknown[] | null = null;
+  let caught: { to: string[] }[] | null = null;
   const catcher = env().MAIL_CATCHER_URL;
   if (catcher) {
-    caught = await fetch(new URL('/messages', catcher), { signal: AbortSignal.timeout(2_000) })
-      .then((r) => (r.ok ? (r.json() as Promise<unknown[]>) : null))
+    const all = await fetch(new URL('/messages', catcher), { signal: AbortSignal.timeout(2_000) })
+      .then((r) => (r.ok ? (r.json() as Promise<{ to: string[] }[]>) : null))
       .catch(() => null);
+    // The catcher is shared by every organisation: show only what this one's outbox sent.
+    const ours = new Set(
+      (
+        await OutgoingMail.findAll({
+          where: { organisationId: actor.organisationId },
+          attributes: ['toAddress'],
+          group: ['toAddress'],
+        })
+      ).map((m) => m.toAddress.toLowerCase()),
+    );
+    caught = all?.filter((m) => m.to.some((t) => ours.has(t.toLowerCase()))) ?? null;
   }
   return Response.json({ outbox: outbox.map((m) => m.toJSON()), caught });
 });
