@@ -58,7 +58,7 @@ export function MailboxView() {
               Caught by the local mail catcher
             </h2>
             <p className="-mt-2 text-sm text-ink-soft">
-              Everything the catcher on this machine received, whichever organisation sent it.
+              What the catcher on this machine received for this organisation’s recipients.
             </p>
             {mailbox.data.caught ? (
               <CaughtMailList messages={mailbox.data.caught} />
