@@ -1,0 +1,35 @@
+import type { Metadata } from 'next';
+import { notFound } from 'next/navigation';
+
+import { BoardEditor } from '@/features/board-editor/components/board-editor';
+import { can } from '@/lib/auth/permissions';
+import { requireActor } from '@/lib/auth/session';
+import { idParamsSchema } from '@/lib/boards/schemas';
+import { getBoard } from '@/lib/dal/boards';
+import { HttpError } from '@/lib/errors';
+
+export const metadata: Metadata = { title: 'Board editor' };
+
+type Props = { params: Promise<{ boardId: string }> };
+
+/** The board editor for one board of the member's organisation (read-only for some roles). */
+export default async function BoardPage({ params }: Props) {
+  // Params, session and the board (the DAL scopes it to the organisation)
+  const parsed = idParamsSchema.safeParse(await params);
+  if (!parsed.success) notFound();
+  const actor = await requireActor('boards.read');
+  let board;
+  try {
+    board = await getBoard(actor, parsed.data.boardId);
+  } catch (err) {
+    if (err instanceof HttpError && err.status === 404) notFound();
+    throw err;
+  }
+  // What the role may do here; every route checks again on the server
+  const abilities = {
+    edit: can(actor.role, 'boards.edit'),
+    size: can(actor.role, 'sizing.run'),
+    submit: can(actor.role, 'boards.submit'),
+  };
+  return <BoardEditor board={board} can={abilities} />;
+}

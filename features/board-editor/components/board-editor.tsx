@@ -1,0 +1,364 @@
+'use client';
+
+import {
+  closestCorners,
+  DndContext,
+  DragOverlay,
+  KeyboardSensor,
+  PointerSensor,
+  pointerWithin,
+  rectIntersection,
+  useSensor,
+  useSensors,
+  type CollisionDetection,
+  type DragEndEvent,
+  type DragOverEvent,
+  type DragStartEvent,
+} from '@dnd-kit/core';
+import { sortableKeyboardCoordinates } from '@dnd-kit/sortable';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { toast } from 'sonner';
+
+import { layoutWays } from '@/lib/boards/layout';
+import { drawRails, placementProblem, railCapacities } from '@/lib/boards/rail';
+import type { BoardDto } from '@/lib/boards/types';
+import type { DeviceOnRail } from '@/lib/sizing';
+
+import { submitForReview, type RefusedWay } from '../api/board-editor-api';
+import { editorBoard, useBoardSave } from '../hooks/use-board-save';
+import { clearStoredDraft, readStoredDraft, useDraftPersistence } from '../hooks/use-draft-persistence';
+import { useLiveSizing } from '../hooks/use-live-sizing';
+import { useUndoShortcuts } from '../hooks/use-undo-shortcuts';
+import { useBoardDraftStore } from '../stores/board-draft-store';
+import { useSaveStore } from '../stores/save-store';
+import { useSizingStore } from '../stores/sizing-store';
+import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS, type ActiveData } from '../utils/announcements';
+import { deviceWords, TRAY, type TrayChoice, type TrayKind } from '../utils/device-catalogue';
+import { dropTarget, type OverData } from '../utils/drop-target';
+import { newWayId } from '../utils/ids';
+import { BinZone } from './bin-zone';
+import { BoardSummary } from './board-summary';
+import { ConflictDialog } from './conflict-dialog';
+import { DeviceFace } from './device-face';
+import { DeviceTray } from './device-tray';
+import { DrawnBoard } from './drawn-board';
+import { EditorToolbar } from './editor-toolbar';
+import { ReviewRefusalDialog } from './review-refusal-dialog';
+import { WayPanel } from './way-panel';
+
+/** What the signed-in member may do on this board (the server checks each again). */
+export type EditorAbilities = { edit: boolean; size: boolean; submit: boolean };
+
+type BoardEditorProps = { board: BoardDto; can: EditorAbilities };
+
+// A pointer drag uses what is under the pointer (nothing: no target); the keyboard, the nearest zone.
+const collision: CollisionDetection = (args) => {
+  if (args.pointerCoordinates) {
+    const under = pointerWithin(args);
+    return under.length ? under : rectIntersection(args);
+  }
+  return closestCorners(args);
+};
+
+/**
+ * The board editor: the drawn board, the device tray, the way panel and the board summary,
+ * wired to the draft store; live sizing, saving with conflict handling, the kept draft and
+ * undo shortcuts run in hooks beside it.
+ */
+export function BoardEditor({ board, can }: BoardEditorProps) {
+  const loadedId = useBoardDraftStore((s) => s.boardId);
+  const status = useBoardDraftStore((s) => s.status);
+  const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
+  const readOnly = !can.edit || status === 'in-review';
+  const ready = loadedId === board.id;
+
+  // Open the board, with the unsaved draft this tab kept (if any)
+  useEffect(() => {
+    useSizingStore.getState().reset();
+    useSaveStore.getState().reset();
+    const opened = editorBoard(board);
+    const kept = can.edit && board.status !== 'in-review' ? readStoredDraft(board.id) : null;
+    useBoardDraftStore.getState().load(opened, kept ?? undefined);
+    if (kept && kept.baseVersion !== board.version) {
+      // The kept draft was built on an older version: someone saved since
+      useBoardDraftStore.getState().rebase(kept.baseVersion);
+      useSaveStore.getState().set({
+        phase: 'conflict',
+        theirVersion: board.version,
+        message: 'Your unsaved changes were made before someone else saved this board.',
+      });
+    } else if (kept) {
+      toast.info('Your unsaved changes to this board were kept and are back.');
+    }
+    return () => {
+      useBoardDraftStore.getState().reset();
+      useSizingStore.getState().reset();
+      useSaveStore.getState().reset();
+    };
+  }, [board, can.edit]);
+
+  useLiveSizing(board.id, ready && can.size);
+  useDraftPersistence(board.id, ready && !readOnly);
+  useUndoShortcuts(ready && !readOnly);
+  const { save, reloadTheirs, keepMine } = useBoardSave(board.id, ready && !readOnly);
+
+  // Warn before leaving with changes that are not saved (they are kept in the tab anyway)
+  useEffect(() => {
+    const onBeforeUnload = (event: BeforeUnloadEvent) => {
+      if (useBoardDraftStore.getState().dirty) event.preventDefault();
+    };
+    window.addEventListener('beforeunload', onBeforeUnload);
+    return () => window.removeEventListener('beforeunload', onBeforeUnload);
+  }, []);
+
+  // Tray choices and the kind whose choices are shown
+  const [choices, setChoices] = useState<Record<TrayKind, TrayChoice>>(
+    () => Object.fromEntries(TRAY.map((e) => [e.kind, e.initial])) as Record<TrayKind, TrayChoice>,
+  );
+  const [activeKind, setActiveKind] = useState<TrayKind>('mcb');
+
+  // Drag state: what is being dragged and whether it would fit where it is
+  const [dragging, setDragging] = useState<ActiveData>(undefined);
+  const [dropRefusal, setDropRefusal] = useState<string | null>(null);
+  const lastDrop = useRef<string | null>(null);
+  const announcements = useMemo(
+    () => boardAnnouncements(() => useBoardDraftStore.getState(), () => lastDrop.current),
+    [],
+  );
+
+  const sensors = useSensors(
+    useSensor(PointerSensor, { activationConstraint: { distance: 5 } }),
+    useSensor(KeyboardSensor, {
+      coordinateGetter: sortableKeyboardCoordinates,
+      keyboardCodes: { start: ['Space'], cancel: ['Escape'], end: ['Space', 'Enter'] },
+    }),
+  );
+
+  const removeWithUndo = useCallback((id: string) => {
+    const { settings, ways, removeWay, undo } = useBoardDraftStore.getState();
+    const way = ways.find((w) => w.id === id);
+    if (!way || !settings) return;
+    const label = layoutWays(settings.phases, ways).find((p) => p.id === id)?.label;
+    removeWay(id);
+    toast(`Removed ${label ? `way ${label}` : deviceWords(way.device)}.`, {
+      action: { label: 'Undo', onClick: () => undo() },
+    });
+  }, []);
+
+  const refusalFor = useCallback((active: ActiveData, over: OverData): string | null => {
+    const { settings, ways } = useBoardDraftStore.getState();
+    if (!settings || !active) return null;
+    const movingId = active.from === 'rail' ? active.wayId : null;
+    const target = dropTarget(ways, movingId, over);
+    if (!target || target.kind !== 'place') return null;
+    const way =
+      active.from === 'rail'
+        ? ways.find((w) => w.id === active.wayId)
+        : { id: '(new)', rail: target.rail, position: target.index, device: active.device };
+    return way ? placementProblem(settings, ways, way, target.rail, target.index) : null;
+  }, []);
+
+  const onDragStart = ({ active }: DragStartEvent) => {
+    lastDrop.current = null;
+    setDragging(active.data.current as ActiveData);
+    setDropRefusal(null);
+  };
+  const onDragOver = ({ active, over }: DragOverEvent) => {
+    setDropRefusal(refusalFor(active.data.current as ActiveData, over?.data.current as OverData));
+  };
+  const onDragEnd = ({ active, over }: DragEndEvent) => {
+    const data = active.data.current as ActiveData;
+    const overData = over?.data.current as OverData;
+    setDragging(undefined);
+    setDropRefusal(null);
+    lastDrop.current = announcements.describeDrop(data, overData);
+    const store = useBoardDraftStore.getState();
+    if (!data || readOnly) return;
+    const target = dropTarget(store.ways, data.from === 'rail' ? data.wayId : null, overData);
+    if (!target) return;
+    if (target.kind === 'bin') {
+      if (data.from === 'rail') removeWithUndo(data.wayId);
+      return;
+    }
+    if (data.from === 'tray') store.addDevice(newWayId(), data.device, target.rail, target.index);
+    else store.moveWay(data.wayId, target.rail, target.index);
+  };
+
+  // "Add to the board": the first rail with room, at its end
+  const addAnywhere = useCallback((device: DeviceOnRail) => {
+    const store = useBoardDraftStore.getState();
+    if (!store.settings) return;
+    const rails = drawRails(store.settings.phases, railCapacities(store.settings.enclosureModules, store.settings.rails), store.ways);
+    for (const drawing of rails) {
+      const index = store.ways.filter((w) => w.rail === drawing.rail).length;
+      const way = { id: '(new)', rail: drawing.rail, position: index, device };
+      if (!placementProblem(store.settings, store.ways, way, drawing.rail, index)) {
+        store.addDevice(newWayId(), device, drawing.rail, index);
+        toast.success(`Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${drawing.rail + 1}` : 'the rail'}.`);
+        return;
+      }
+    }
+    // Nowhere fits: the store gives the reason for the last rail
+    const last = rails[rails.length - 1];
+    store.addDevice(newWayId(), device, last.rail, store.ways.filter((w) => w.rail === last.rail).length);
+  }, []);
+
+  // Sending for review: save first, then ask the server
+  const [submitting, setSubmitting] = useState(false);
+  const [refusal, setRefusal] = useState<{ message: string; failing: RefusedWay[] } | null>(null);
+  const sendForReview = async () => {
+    setSubmitting(true);
+    try {
+      if (useBoardDraftStore.getState().dirty && !(await save())) {
+        toast.error('Save the board first; it could not be saved just now.');
+        return;
+      }
+      const outcome = await submitForReview(board.id, useBoardDraftStore.getState().baseVersion);
+      if (outcome.kind === 'sent') {
+        clearStoredDraft(board.id);
+        useBoardDraftStore.getState().load(editorBoard(outcome.board));
+        toast.success('Sent for review. The inspectors have been e-mailed.');
+      } else if (outcome.kind === 'refused') {
+        setRefusal({ message: outcome.message, failing: outcome.failing });
+      } else {
+        toast.error(outcome.message);
+      }
+    } catch (err) {
+      toast.error((err as Error).message);
+    } finally {
+      setSubmitting(false);
+    }
+  };
+
+  const savePhase = useSaveStore((s) => s.phase);
+  const saveMessage = useSaveStore((s) => s.message);
+  const [conflictHidden, setConflictHidden] = useState(false);
+  useEffect(() => {
+    if (savePhase === 'conflict') setConflictHidden(false);
+  }, [savePhase]);
+
+  if (!ready) {
+    return (
+      <div aria-busy="true" className="rounded-card border border-line bg-paper-raised p-6 text-sm text-ink-soft">
+        Opening the board…
+      </div>
+    );
+  }
+
+  const readOnlyReason = !can.edit
+    ? `Read only: your role may ${can.size ? 'look at the board and its sizing' : 'look at the board'}, not change it.`
+    : status === 'in-review'
+      ? 'In review: the board can be changed again once the inspector returns it.'
+      : null;
+
+  return (
+    <DndContext
+      sensors={sensors}
+      collisionDetection={collision}
+      onDragStart={onDragStart}
+      onDragOver={onDragOver}
+      onDragEnd={onDragEnd}
+      onDragCancel={() => {
+        setDragging(undefined);
+        setDropRefusal(null);
+      }}
+      accessibility={{ announcements, screenReaderInstructions: SCREEN_READER_INSTRUCTIONS }}
+    >
+      <EditorToolbar
+        siteName={board.siteName}
+        canEdit={!readOnly}
+        canSubmit={can.submit && status === 'draft'}
+        readOnlyReason={readOnlyReason}
+        submitting={submitting}
+        onSave={() => void save()}
+        onSubmit={() => void sendForReview()}
+      />
+      <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
+        <div className="min-w-0 space-y-3">
+          {!readOnly ? (
+            <DeviceTray
+              choices={choices}
+              active={activeKind}
+              boardPhases={phases}
+              onActivate={setActiveKind}
+              onChoose={(kind, choice) => setChoices((c) => ({ ...c, [kind]: choice }))}
+              onAdd={addAnywhere}
+            />
+          ) : null}
+          <Notice />
+          <DrawnBoard readOnly={readOnly} showVerdicts={can.size} dropRefusal={dropRefusal} onRemove={removeWithUndo} />
+          {!readOnly ? (
+            <div className="flex items-center justify-between gap-3">
+              <p className="text-xs text-ink-faint">
+                Drag to move a way along or between rails. Keyboard: Tab to a device, Space to pick it up, arrows to move, Space to put it down.
+              </p>
+              <BinZone dragging={dragging?.from === 'rail'} />
+            </div>
+          ) : null}
+          {can.size ? <BoardSummary /> : null}
+        </div>
+        <div className="xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:self-start xl:overflow-y-auto">
+          <WayPanel readOnly={readOnly} showSizing={can.size} onRemove={removeWithUndo} />
+        </div>
+      </div>
+      <DragOverlay dropAnimation={null}>
+        {dragging ? <DragPreview data={dragging} refusal={dropRefusal} /> : null}
+      </DragOverlay>
+      <ConflictDialog
+        open={savePhase === 'conflict' && !conflictHidden}
+        message={saveMessage}
+        onReloadTheirs={() => void reloadTheirs()}
+        onKeepMine={() => void keepMine()}
+        onClose={() => setConflictHidden(true)}
+      />
+      <ReviewRefusalDialog
+        refusal={refusal}
+        onClose={() => setRefusal(null)}
+        onShowWays={(ids) => {
+          useBoardDraftStore.getState().selectMany(ids);
+          setRefusal(null);
+        }}
+      />
+    </DndContext>
+  );
+}
+
+/** The last refusal, in words, where the designer is looking (and read out). */
+function Notice() {
+  const notice = useBoardDraftStore((s) => s.notice);
+  const clear = useBoardDraftStore((s) => s.clearNotice);
+  if (!notice) return <div aria-live="assertive" className="sr-only" />;
+  return (
+    <div
+      role="alert"
+      data-testid="editor-notice"
+      className="flex items-start justify-between gap-3 rounded-md border border-verdict-fail/30 bg-verdict-fail-bg px-3 py-2 text-sm text-verdict-fail"
+    >
+      <span>
+        <strong className="font-semibold">Does not fit.</strong> {notice.message}
+      </span>
+      <button type="button" onClick={clear} className="text-xs underline">
+        Dismiss
+      </button>
+    </div>
+  );
+}
+
+/** What follows the pointer while dragging: the device, and why it would not fit, if so. */
+function DragPreview({ data, refusal }: { data: NonNullable<ActiveData>; refusal: string | null }) {
+  const ways = useBoardDraftStore((s) => s.ways);
+  const device = data.from === 'tray' ? data.device : ways.find((w) => w.id === data.wayId)?.device;
+  if (!device) return null;
+  return (
+    <div className="pointer-events-none flex items-start gap-2">
+      <div className="h-[100px] shadow-lg" style={{ width: device.modules * 28 }}>
+        <DeviceFace device={device} />
+      </div>
+      {refusal ? (
+        <p className="max-w-64 rounded-md border border-verdict-fail/40 bg-verdict-fail-bg px-2 py-1 text-xs text-verdict-fail shadow">
+          Does not fit here. {refusal}
+        </p>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,132 @@
+'use client';
+
+import { useSortable } from '@dnd-kit/sortable';
+import { CSS } from '@dnd-kit/utilities';
+import { CircleDashed } from 'lucide-react';
+import { memo } from 'react';
+
+import { cn } from '@/lib/cn';
+import { isProtectiveDevice, type WayResult } from '@/lib/sizing';
+
+import type { EditorWay } from '../types/draft';
+import { describeWay } from '../utils/describe';
+import { DeviceFace } from './device-face';
+import { VerdictMark } from './verdict-mark';
+
+type DeviceCellProps = {
+  way: EditorWay;
+  label: string | null;
+  start: number;
+  result: WayResult | undefined;
+  /** The draft revision the shown result belongs to. */
+  sizedFor: number;
+  pending: boolean;
+  showVerdict: boolean;
+  selected: boolean;
+  readOnly: boolean;
+  onSelect: (id: string) => void;
+  onRemove: (id: string) => void;
+};
+
+/**
+ * One device on the rail at its module width: way reference, the device's face, what it
+ * serves and its verdict. Drag it (pointer or keyboard) to move it; click or Enter selects it
+ * for the way panel; Delete removes it (undoable).
+ */
+export const DeviceCell = memo(function DeviceCell({
+  way,
+  label,
+  start,
+  result,
+  sizedFor,
+  pending,
+  showVerdict,
+  selected,
+  readOnly,
+  onSelect,
+  onRemove,
+}: DeviceCellProps) {
+  const { attributes, listeners, setNodeRef, transform, transition, isDragging } = useSortable({
+    id: way.id,
+    data: { from: 'rail', wayId: way.id, rail: way.rail },
+    disabled: readOnly,
+  });
+  const { device, circuit } = way;
+  const narrow = device.modules === 1;
+  const verdict = result?.result?.verdict;
+  const spare = isProtectiveDevice(device.kind) && !circuit;
+
+  return (
+    <div
+      ref={setNodeRef}
+      {...attributes}
+      {...listeners}
+      // Selectable even when it may not be moved (read-only), so never announced as disabled
+      aria-disabled={undefined}
+      aria-roledescription="device on the rail"
+      aria-label={describeWay(way, label, showVerdict ? result : null)}
+      aria-pressed={selected}
+      data-way-id={way.id}
+      data-way-label={label ?? ''}
+      data-sized-for={sizedFor}
+      onClick={() => onSelect(way.id)}
+      onKeyDown={(event) => {
+        if (event.key === 'Enter') {
+          event.preventDefault();
+          onSelect(way.id);
+          return;
+        }
+        if ((event.key === 'Delete' || event.key === 'Backspace') && !readOnly) {
+          event.preventDefault();
+          onRemove(way.id);
+          return;
+        }
+        listeners?.onKeyDown?.(event);
+      }}
+      style={{
+        gridColumn: `${start + 1} / span ${device.modules}`,
+        gridRow: 1,
+        transform: CSS.Translate.toString(transform),
+        transition,
+      }}
+      className={cn(
+        'relative z-10 flex min-w-0 cursor-pointer flex-col items-stretch gap-1 rounded-sm px-[1px] pt-0.5 pb-1 outline-none select-none',
+        'focus-visible:ring-2 focus-visible:ring-copper focus-visible:ring-offset-1',
+        selected && 'bg-copper-light ring-2 ring-copper',
+        isDragging && 'opacity-40',
+        !readOnly && 'cursor-grab active:cursor-grabbing',
+      )}
+    >
+      <span className="h-4 truncate text-center font-mono text-[10px] leading-4 font-semibold text-ink">
+        {label ?? ''}
+      </span>
+      <div className="h-[100px]">
+        <DeviceFace device={device} />
+      </div>
+      <div
+        className={cn(
+          'h-[84px] overflow-hidden text-[10px] leading-tight text-ink-soft',
+          narrow ? 'mx-auto [writing-mode:vertical-rl] rotate-180 whitespace-nowrap' : 'px-0.5 text-center break-words',
+        )}
+        title={circuit?.serves || undefined}
+      >
+        {circuit?.serves ?? ''}
+      </div>
+      <div className="flex h-[70px] items-start justify-center">
+        {showVerdict && verdict ? (
+          <VerdictMark verdict={verdict} vertical={narrow} pending={pending} />
+        ) : spare || device.kind === 'blank' ? (
+          <span
+            className={cn(
+              'inline-flex items-center gap-1 rounded border border-dashed border-line-strong bg-paper px-0.5 py-1 text-[10px] text-ink-soft',
+              narrow && 'flex-col',
+            )}
+          >
+            <CircleDashed aria-hidden className="h-3 w-3" />
+            <span className={cn(narrow && '[writing-mode:vertical-rl] rotate-180')}>Spare</span>
+          </span>
+        ) : null}
+      </div>
+    </div>
+  );
+});

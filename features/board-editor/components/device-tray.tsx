@@ -1,0 +1,188 @@
+'use client';
+
+import { useDraggable } from '@dnd-kit/core';
+import { GripVertical, Plus } from 'lucide-react';
+import { useId } from 'react';
+
+import { Button } from '@/components/ui/button';
+import { cn } from '@/lib/cn';
+import type { DeviceOnRail } from '@/lib/sizing';
+
+import {
+  deviceFromChoice,
+  deviceWords,
+  TRAY,
+  trayEntry,
+  type TrayChoice,
+  type TrayKind,
+} from '../utils/device-catalogue';
+
+type DeviceTrayProps = {
+  choices: Record<TrayKind, TrayChoice>;
+  active: TrayKind;
+  boardPhases: 1 | 3;
+  onActivate: (kind: TrayKind) => void;
+  onChoose: (kind: TrayKind, choice: TrayChoice) => void;
+  /** Puts the active device at the first place it fits (the keyboard's way in). */
+  onAdd: (device: DeviceOnRail) => void;
+};
+
+/** The tray id of a kind's draggable chip. */
+export const trayDragId = (kind: TrayKind) => `tray:${kind}`;
+
+function TrayChip({
+  kind,
+  device,
+  active,
+  onActivate,
+}: {
+  kind: TrayKind;
+  device: DeviceOnRail;
+  active: boolean;
+  onActivate: () => void;
+}) {
+  const { attributes, listeners, setNodeRef, isDragging } = useDraggable({
+    id: trayDragId(kind),
+    data: { from: 'tray', kind, device },
+  });
+  return (
+    <div
+      ref={setNodeRef}
+      {...attributes}
+      {...listeners}
+      aria-roledescription="device in the tray"
+      aria-label={`${deviceWords(device)} from the device tray`}
+      aria-pressed={active}
+      data-tray-kind={kind}
+      onClick={onActivate}
+      onKeyDown={(event) => {
+        if (event.key === 'Enter') {
+          event.preventDefault();
+          onActivate();
+          return;
+        }
+        listeners?.onKeyDown?.(event);
+      }}
+      className={cn(
+        'flex h-10 cursor-grab items-center gap-1.5 rounded-md border bg-paper-raised pr-2.5 pl-1 text-xs font-medium whitespace-nowrap text-ink select-none active:cursor-grabbing',
+        'focus-visible:ring-2 focus-visible:ring-copper focus-visible:outline-none',
+        active ? 'border-copper ring-1 ring-copper' : 'border-line-strong hover:border-ink-faint',
+        isDragging && 'opacity-50',
+      )}
+    >
+      <GripVertical aria-hidden className="h-4 w-4 text-ink-faint" />
+      {deviceWords(device)}
+    </div>
+  );
+}
+
+function Choice<T extends string | number>({
+  label,
+  value,
+  options,
+  format = String,
+  onChange,
+}: {
+  label: string;
+  value: T | undefined;
+  options: readonly T[];
+  format?: (v: T) => string;
+  onChange: (v: T) => void;
+}) {
+  const id = useId();
+  return (
+    <label htmlFor={id} className="flex items-center gap-1.5 text-xs text-ink-soft">
+      {label}
+      <select
+        id={id}
+        value={value === undefined ? '' : String(value)}
+        onChange={(e) => {
+          const found = options.find((o) => String(o) === e.target.value);
+          if (found !== undefined) onChange(found);
+        }}
+        className="h-8 rounded-md border border-line-strong bg-paper-raised px-2 text-xs text-ink focus:border-copper focus:outline-none"
+      >
+        {options.map((o) => (
+          <option key={String(o)} value={String(o)}>
+            {format(o)}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
+/**
+ * The device tray: one chip per kind of device, showing the variant it will drop. The chip
+ * picked (click or Enter) shows its variant choices below; drag a chip onto the board, or use
+ * "Add to the board" to put it at the first place it fits.
+ */
+export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose, onAdd }: DeviceTrayProps) {
+  const entry = trayEntry(active);
+  const choice = choices[active];
+  const set = (patch: Partial<TrayChoice>) => onChoose(active, { ...choice, ...patch });
+  const activeDevice = deviceFromChoice(active, choice);
+  const needsThree = boardPhases === 1 && choice.poles >= 3;
+  return (
+    <section aria-label="Device tray" className="rounded-card border border-line bg-paper-raised p-3">
+      <div className="mb-2 flex items-baseline justify-between gap-2">
+        <h2 className="text-sm font-semibold text-ink">Device tray</h2>
+        <p className="text-xs text-ink-faint">Pick a device, set it up, then drag it onto a rail.</p>
+      </div>
+      <div className="flex flex-wrap gap-1.5">
+        {TRAY.map((e) => (
+          <TrayChip
+            key={e.kind}
+            kind={e.kind}
+            device={deviceFromChoice(e.kind, choices[e.kind])}
+            active={e.kind === active}
+            onActivate={() => onActivate(e.kind)}
+          />
+        ))}
+      </div>
+      <div
+        className="mt-2 flex flex-wrap items-center gap-x-4 gap-y-2 rounded-md bg-paper-sunk/70 px-3 py-2"
+        aria-label={`${entry.name} choices`}
+        role="group"
+      >
+        <span className="text-xs font-semibold text-ink">{entry.name}</span>
+        <span className="text-xs text-ink-faint">{entry.purpose}</span>
+        {entry.poles.length > 1 ? (
+          <Choice label="Poles" value={choice.poles} options={entry.poles} onChange={(poles) => set({ poles })} />
+        ) : null}
+        {entry.curves ? (
+          <Choice label="Curve" value={choice.curve} options={entry.curves} onChange={(curve) => set({ curve })} />
+        ) : null}
+        {entry.ratings ? (
+          <Choice
+            label="Rating"
+            value={choice.ratingA}
+            options={entry.ratings}
+            format={(v) => `${v} A`}
+            onChange={(ratingA) => set({ ratingA })}
+          />
+        ) : null}
+        {entry.rcdMa ? (
+          <Choice
+            label="Trips at"
+            value={choice.rcdMa}
+            options={entry.rcdMa}
+            format={(v) => `${v} mA`}
+            onChange={(rcdMa) => set({ rcdMa })}
+          />
+        ) : null}
+        {entry.rcdTypes ? (
+          <Choice label="Type" value={choice.rcdType} options={entry.rcdTypes} onChange={(rcdType) => set({ rcdType })} />
+        ) : null}
+        <Button size="sm" variant="secondary" className="ml-auto" onClick={() => onAdd(activeDevice)}>
+          <Plus aria-hidden className="h-4 w-4" /> Add to the board
+        </Button>
+        {needsThree ? (
+          <p className="w-full text-xs text-verdict-near">
+            A {choice.poles}-pole device needs a three-phase board; this one is single-phase.
+          </p>
+        ) : null}
+      </div>
+    </section>
+  );
+}

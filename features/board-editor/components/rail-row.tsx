@@ -1,0 +1,171 @@
+'use client';
+
+import { useDroppable } from '@dnd-kit/core';
+import { horizontalListSortingStrategy, SortableContext } from '@dnd-kit/sortable';
+
+import { cn } from '@/lib/cn';
+import type { RailDrawing, RcdGroup } from '@/lib/boards/rail';
+import type { WayResult } from '@/lib/sizing';
+
+import type { EditorWay } from '../types/draft';
+import { DeviceCell } from './device-cell';
+
+/** Widest a module is drawn, px: a short rail does not stretch across the page. */
+const MAX_MODULE_PX = 58;
+
+type RailRowProps = {
+  drawing: RailDrawing;
+  railCount: number;
+  wayById: Map<string, EditorWay>;
+  groups: RcdGroup[];
+  labels: Map<string, string | null>;
+  results: Map<string, WayResult>;
+  sizedFor: number;
+  pending: boolean;
+  showVerdicts: boolean;
+  selection: string[];
+  readOnly: boolean;
+  dropRefusal: string | null;
+  onSelect: (id: string) => void;
+  onRemove: (id: string) => void;
+};
+
+function FreeModules({ rail, start, modules, readOnly, refusal }: { rail: number; start: number; modules: number; readOnly: boolean; refusal: string | null }) {
+  const { setNodeRef, isOver } = useDroppable({ id: `free:${rail}`, data: { to: 'free', rail }, disabled: readOnly });
+  const full = modules <= 0;
+  return (
+    <div
+      ref={setNodeRef}
+      data-free-rail={rail}
+      style={full ? undefined : { gridColumn: `${start + 1} / span ${modules}`, gridRow: 1 }}
+      className={cn(
+        'z-0 flex items-center justify-center rounded-sm border-2 border-dashed text-center text-[11px] text-ink-soft',
+        full ? 'mt-2 h-9 w-full' : 'm-0.5 self-stretch',
+        isOver && !refusal && 'border-copper bg-copper-light/70 text-ink',
+        isOver && refusal && 'border-verdict-fail bg-verdict-fail-bg text-verdict-fail',
+        !isOver && 'border-line-strong/70 bg-white/30',
+      )}
+    >
+      <span className={cn(modules === 1 && '[writing-mode:vertical-rl] rotate-180')}>
+        {isOver && refusal
+          ? 'Does not fit'
+          : full
+            ? `Rail ${rail + 1} is full`
+            : `${modules} free module${modules === 1 ? '' : 's'}`}
+      </span>
+    </div>
+  );
+}
+
+/** One DIN rail drawn to scale: module grid, RCD brackets, devices, phase gaps and free modules. */
+export function RailRow({
+  drawing,
+  railCount,
+  wayById,
+  groups,
+  labels,
+  results,
+  sizedFor,
+  pending,
+  showVerdicts,
+  selection,
+  readOnly,
+  dropRefusal,
+  onSelect,
+  onRemove,
+}: RailRowProps) {
+  const columns = Math.max(drawing.capacity, drawing.used);
+  const grid = { gridTemplateColumns: `repeat(${columns}, minmax(0, 1fr))` };
+  const devices = drawing.cells.flatMap((c) => (c.type === 'device' ? [c] : []));
+  const ids = devices.map((c) => c.id);
+  const cellOf = new Map(devices.map((c) => [c.id, c]));
+
+  // The part of each RCD's bracket that lies on this rail
+  const brackets = groups.flatMap((g) => {
+    const here = g.spanIds.map((id) => cellOf.get(id)).filter((c) => c !== undefined);
+    if (!here.length) return [];
+    const from = Math.min(...here.map((c) => c.start));
+    const to = Math.max(...here.map((c) => c.start + c.modules));
+    const rcd = wayById.get(g.rcdId);
+    const protectedLabels = g.protectedIds.map((id) => labels.get(id)).filter(Boolean);
+    return [{ id: g.rcdId, from, to, rcd, protectedLabels }];
+  });
+
+  return (
+    <div className="mb-4 last:mb-0" data-rail={drawing.rail}>
+      <div className="mb-1 flex items-baseline justify-between text-[11px] text-ink-soft">
+        <span className="font-semibold text-ink">{railCount > 1 ? `Rail ${drawing.rail + 1}` : 'Rail'}</span>
+        <span>
+          {drawing.used} of {drawing.capacity} modules used
+          {drawing.free < 0 ? (
+            <strong className="ml-1 text-verdict-fail">· over-full by {-drawing.free}</strong>
+          ) : null}
+        </span>
+      </div>
+      <div style={{ maxWidth: columns * MAX_MODULE_PX }}>
+        {/* RCD brackets over the ways each RCD protects */}
+        <div className="grid h-7" style={grid} aria-hidden>
+          {brackets.map((b) => (
+            <div
+              key={b.id}
+              style={{ gridColumn: `${b.from + 1} / ${b.to + 1}`, gridRow: 1 }}
+              className="relative mx-px mt-3 rounded-t-sm border-x-2 border-t-2 border-copper"
+            >
+              <span className="absolute -top-3 left-1 max-w-full truncate bg-[#e6e2d8] px-1 text-[10px] font-semibold text-copper-dark">
+                RCD {b.rcd?.device.rcdMa ?? '?'} mA
+                {b.protectedLabels.length ? ` · ${b.protectedLabels.join(', ')}` : ' · nothing yet'}
+              </span>
+            </div>
+          ))}
+        </div>
+        <SortableContext id={`rail-${drawing.rail}`} items={ids} strategy={horizontalListSortingStrategy}>
+          <div className="relative grid min-h-[290px] rounded-sm" style={grid}>
+            {/* The rail itself, with a tick at each module */}
+            <div
+              aria-hidden
+              className="pointer-events-none absolute inset-x-0 top-[60px] h-[64px] rounded-[2px] bg-rail"
+              style={{
+                backgroundImage:
+                  'linear-gradient(to right, rgba(255,255,255,0.35) 1px, transparent 1px), linear-gradient(to bottom, transparent 44%, rgba(0,0,0,0.18) 44%, rgba(0,0,0,0.18) 56%, transparent 56%)',
+                backgroundSize: `calc(100% / ${columns}) 100%, 100% 100%`,
+              }}
+            />
+            {drawing.cells.map((cell) =>
+              cell.type === 'gap' ? (
+                <div
+                  key={`gap-${cell.beforeId}`}
+                  title="Phase positions left empty so that the three-pole device after them starts on L1"
+                  style={{ gridColumn: `${cell.start + 1} / span ${cell.modules}`, gridRow: 1 }}
+                  className="z-0 m-0.5 mt-[22px] h-[100px] rounded-sm border border-dashed border-ink-faint bg-[repeating-linear-gradient(45deg,transparent,transparent_4px,rgba(31,42,55,0.12)_4px,rgba(31,42,55,0.12)_6px)]"
+                >
+                  <span className="sr-only">{cell.modules} phase positions left empty</span>
+                </div>
+              ) : (
+                <DeviceCell
+                  key={cell.id}
+                  way={wayById.get(cell.id)!}
+                  label={cell.label}
+                  start={cell.start}
+                  result={results.get(cell.id)}
+                  sizedFor={sizedFor}
+                  pending={pending}
+                  showVerdict={showVerdicts}
+                  selected={selection.includes(cell.id)}
+                  readOnly={readOnly}
+                  onSelect={onSelect}
+                  onRemove={onRemove}
+                />
+              ),
+            )}
+            {drawing.free > 0 ? (
+              <FreeModules rail={drawing.rail} start={drawing.used} modules={drawing.free} readOnly={readOnly} refusal={dropRefusal} />
+            ) : null}
+          </div>
+        </SortableContext>
+        {drawing.free <= 0 && !readOnly ? (
+          <FreeModules rail={drawing.rail} start={0} modules={0} readOnly={readOnly} refusal={dropRefusal} />
+        ) : null}
+      </div>
+    </div>
+  );
+}

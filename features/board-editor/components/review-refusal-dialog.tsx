@@ -1,0 +1,44 @@
+'use client';
+
+import { CircleX } from 'lucide-react';
+
+import { Button } from '@/components/ui/button';
+import { Dialog, DialogActions } from '@/components/ui/dialog';
+
+import type { RefusedWay } from '../api/board-editor-api';
+
+type ReviewRefusalDialogProps = {
+  refusal: { message: string; failing: RefusedWay[] } | null;
+  onShowWays: (ids: string[]) => void;
+  onClose: () => void;
+};
+
+/** Why a board could not go for review: each failing way and what it fails. */
+export function ReviewRefusalDialog({ refusal, onShowWays, onClose }: ReviewRefusalDialogProps) {
+  return (
+    <Dialog open={!!refusal} onClose={onClose} title="Not sent for review" description={refusal?.message} wide>
+      <ul className="max-h-[50vh] space-y-3 overflow-y-auto">
+        {refusal?.failing.map((w) => (
+          <li key={w.wayId} className="rounded-md border border-verdict-fail/30 bg-verdict-fail-bg/50 px-3 py-2">
+            <div className="flex items-center gap-2 text-sm font-semibold text-verdict-fail">
+              <CircleX aria-hidden className="h-4 w-4" />
+              {w.label ? `Way ${w.label}` : 'A device'}
+              {w.serves ? <span className="font-normal text-ink">· {w.serves}</span> : null}
+            </div>
+            <ul className="mt-1 list-disc pl-6 text-sm text-ink">
+              {w.problems.map((p, i) => (
+                <li key={i}>{p}</li>
+              ))}
+            </ul>
+          </li>
+        ))}
+      </ul>
+      <DialogActions>
+        <Button variant="secondary" onClick={onClose}>
+          Close
+        </Button>
+        <Button onClick={() => onShowWays(refusal?.failing.map((w) => w.wayId) ?? [])}>Show them on the board</Button>
+      </DialogActions>
+    </Dialog>
+  );
+}

@@ -1,0 +1,269 @@
+import { create } from 'zustand';
+
+import { normalisePositions, placementProblem, placeWay, railCapacities, reflowWays } from '@/lib/boards/rail';
+import type { BoardSettings } from '@/lib/boards/schemas';
+import type { CircuitSpec, DeviceOnRail } from '@/lib/sizing';
+import type { BoardStatus } from '@/models/board';
+
+import type { DraftSnapshot, EditorBoard, EditorWay, EditResult } from '../types/draft';
+
+/** How many steps undo keeps (the issue asks for at least 50). */
+export const UNDO_LIMIT = 100;
+
+/** A refusal or a note the editor shows (and reads out) once. */
+export type EditorNotice = { tone: 'refused' | 'info'; message: string; id: number };
+
+type State = {
+  boardId: string | null;
+  settings: BoardSettings | null;
+  ways: EditorWay[];
+  status: BoardStatus;
+  /** The stored version the draft builds on; a save names it. */
+  baseVersion: number;
+  /** Goes up on every change to the draft (edit, undo, redo, load): live sizing keys on it. */
+  revision: number;
+  /** The draft as last saved (or loaded); compared by reference for the dirty flag. */
+  saved: DraftSnapshot | null;
+  dirty: boolean;
+  past: DraftSnapshot[];
+  future: DraftSnapshot[];
+  /** Edits with the same key in a row merge into one undo step (typing in one field). */
+  lastKey: string | null;
+  selection: string[];
+  notice: EditorNotice | null;
+};
+
+type Actions = {
+  /** Opens a board; `draft` restores unsaved work kept from an earlier visit. */
+  load: (board: EditorBoard, draft?: DraftSnapshot) => void;
+  /** Puts a new device (with the id the caller made) at an index of a rail. */
+  addDevice: (id: string, device: DeviceOnRail, rail: number, index: number) => EditResult;
+  /** Moves a way to an index of a rail (the index counts the rail's ways without it). */
+  moveWay: (id: string, rail: number, index: number) => EditResult;
+  removeWay: (id: string) => void;
+  /** Sets a way's circuit (null: a spare way). `key` merges a run of edits into one undo step. */
+  updateCircuit: (id: string, circuit: CircuitSpec | null, key?: string) => void;
+  /** Changes a way's device details (not its width: that is a new device). */
+  updateDevice: (id: string, device: DeviceOnRail, key?: string) => EditResult;
+  /** Sets how many rails the enclosure has; refused if the ways would not fit. */
+  setRails: (rails: number) => EditResult;
+  select: (id: string | null) => void;
+  selectMany: (ids: string[]) => void;
+  undo: () => void;
+  redo: () => void;
+  /** The draft `snapshot` was saved and the board is now at `version`. */
+  markSaved: (version: number, snapshot: DraftSnapshot, status?: BoardStatus) => void;
+  /** Keep this draft but build on `version` (after a conflict: "keep mine"). */
+  rebase: (version: number) => void;
+  setStatus: (status: BoardStatus) => void;
+  clearNotice: () => void;
+  reset: () => void;
+};
+
+export type BoardDraftState = State & Actions;
+
+const initial: State = {
+  boardId: null,
+  settings: null,
+  ways: [],
+  status: 'draft',
+  baseVersion: 0,
+  revision: 0,
+  saved: null,
+  dirty: false,
+  past: [],
+  future: [],
+  lastKey: null,
+  selection: [],
+  notice: null,
+};
+
+let noticeId = 0;
+
+const isSaved = (saved: DraftSnapshot | null, settings: BoardSettings | null, ways: EditorWay[]) =>
+  !!saved && saved.settings === settings && saved.ways === ways;
+
+/** The part of the state a change sets: a new snapshot, one undo step (or merged), dirty. */
+function commit(state: State, next: Partial<DraftSnapshot>, key: string | null = null): Partial<State> {
+  const settings = next.settings ?? state.settings;
+  const ways = next.ways ?? state.ways;
+  const merge = key !== null && key === state.lastKey && state.past.length > 0;
+  const current = { settings: state.settings!, ways: state.ways };
+  const past = merge ? state.past : [...state.past, current].slice(-UNDO_LIMIT);
+  return {
+    settings,
+    ways,
+    past,
+    future: [],
+    lastKey: key,
+    revision: state.revision + 1,
+    dirty: !isSaved(state.saved, settings, ways),
+  };
+}
+
+const refused = (reason: string): Partial<State> => ({
+  notice: { tone: 'refused', message: reason, id: ++noticeId },
+});
+
+/**
+ * The board editor's draft: settings and ways, the selection, undo and redo, and whether the
+ * draft differs from what was last saved. Pure state: no fetches, timers or storage here;
+ * hooks (live sizing, saving, session storage) watch it.
+ */
+export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
+  ...initial,
+
+  load: (board, draft) => {
+    const saved = { settings: board.settings, ways: normalisePositions(board.ways) };
+    const current = draft ? { settings: draft.settings, ways: normalisePositions(draft.ways) } : saved;
+    set({
+      ...initial,
+      boardId: board.id,
+      status: board.status,
+      baseVersion: board.version,
+      settings: current.settings,
+      ways: current.ways,
+      saved,
+      dirty: !!draft,
+      revision: get().revision + 1,
+    });
+  },
+
+  addDevice: (id, device, rail, index) => {
+    const state = get();
+    if (!state.settings) return { ok: false, reason: 'No board is open.' };
+    const way: EditorWay = { id, rail, position: index, device, circuit: null };
+    const problem = placementProblem(state.settings, state.ways, way, rail, index);
+    if (problem) {
+      set(refused(problem));
+      return { ok: false, reason: problem };
+    }
+    set({ ...commit(state, { ways: placeWay(state.ways, way, rail, index) }), selection: [id], notice: null });
+    return { ok: true };
+  },
+
+  moveWay: (id, rail, index) => {
+    const state = get();
+    const way = state.ways.find((w) => w.id === id);
+    if (!state.settings || !way) return { ok: false, reason: 'That way is no longer on the board.' };
+    const problem = placementProblem(state.settings, state.ways, way, rail, index);
+    if (problem) {
+      set(refused(problem));
+      return { ok: false, reason: problem };
+    }
+    const ways = placeWay(state.ways, way, rail, index);
+    // Dropped back where it was: no undo step (both lists are in rail order)
+    const unchanged =
+      ways.length === state.ways.length &&
+      ways.every((w, i) => w.id === state.ways[i].id && w.rail === state.ways[i].rail && w.position === state.ways[i].position);
+    if (unchanged) return { ok: true };
+    set({ ...commit(state, { ways }), notice: null });
+    return { ok: true };
+  },
+
+  removeWay: (id) => {
+    const state = get();
+    if (!state.ways.some((w) => w.id === id)) return;
+    const ways = normalisePositions(state.ways.filter((w) => w.id !== id));
+    set({ ...commit(state, { ways }), selection: state.selection.filter((s) => s !== id) });
+  },
+
+  updateCircuit: (id, circuit, key) => {
+    const state = get();
+    const ways = state.ways.map((w) => (w.id === id ? { ...w, circuit } : w));
+    if (!state.ways.some((w) => w.id === id)) return;
+    set(commit(state, { ways }, key ?? null));
+  },
+
+  updateDevice: (id, device, key) => {
+    const state = get();
+    const way = state.ways.find((w) => w.id === id);
+    if (!way) return { ok: false, reason: 'That way is no longer on the board.' };
+    if (device.modules !== way.device.modules || device.kind !== way.device.kind) {
+      const reason = 'A different kind or width of device is a new device: drag it from the tray.';
+      set(refused(reason));
+      return { ok: false, reason };
+    }
+    const ways = state.ways.map((w) => (w.id === id ? { ...w, device } : w));
+    set(commit(state, { ways }, key ?? null));
+    return { ok: true };
+  },
+
+  setRails: (rails) => {
+    const state = get();
+    if (!state.settings) return { ok: false, reason: 'No board is open.' };
+    if (rails < 1 || rails > 12) return { ok: false, reason: 'A board has between 1 and 12 rails.' };
+    const settings = { ...state.settings, rails };
+    // The devices flow over the new rails in their order, each rail filled from the left
+    const capacities = railCapacities(settings.enclosureModules, rails);
+    const { ways, fits } = reflowWays(settings.phases, capacities, state.ways);
+    if (!fits) {
+      const reason = `The devices do not fit on ${rails} rail${rails === 1 ? '' : 's'} of ${capacities[0]} modules: remove some first.`;
+      set(refused(reason));
+      return { ok: false, reason };
+    }
+    set({ ...commit(state, { settings, ways }), notice: null });
+    return { ok: true };
+  },
+
+  select: (id) => set({ selection: id ? [id] : [] }),
+  selectMany: (ids) => set({ selection: ids }),
+
+  undo: () => {
+    const state = get();
+    const previous = state.past[state.past.length - 1];
+    if (!previous) return;
+    const present = { settings: state.settings!, ways: state.ways };
+    const ids = new Set(previous.ways.map((w) => w.id));
+    set({
+      settings: previous.settings,
+      ways: previous.ways,
+      past: state.past.slice(0, -1),
+      future: [present, ...state.future],
+      lastKey: null,
+      revision: state.revision + 1,
+      dirty: !isSaved(state.saved, previous.settings, previous.ways),
+      selection: state.selection.filter((id) => ids.has(id)),
+    });
+  },
+
+  redo: () => {
+    const state = get();
+    const next = state.future[0];
+    if (!next) return;
+    const present = { settings: state.settings!, ways: state.ways };
+    const ids = new Set(next.ways.map((w) => w.id));
+    set({
+      settings: next.settings,
+      ways: next.ways,
+      past: [...state.past, present].slice(-UNDO_LIMIT),
+      future: state.future.slice(1),
+      lastKey: null,
+      revision: state.revision + 1,
+      dirty: !isSaved(state.saved, next.settings, next.ways),
+      selection: state.selection.filter((id) => ids.has(id)),
+    });
+  },
+
+  markSaved: (version, snapshot, status) => {
+    const state = get();
+    set({
+      baseVersion: version,
+      saved: snapshot,
+      dirty: !isSaved(snapshot, state.settings, state.ways),
+      // The next edit starts a new undo step rather than merging into a saved one
+      lastKey: null,
+      ...(status ? { status } : {}),
+    });
+  },
+
+  rebase: (version) => set({ baseVersion: version }),
+  setStatus: (status) => set({ status }),
+  clearNotice: () => set({ notice: null }),
+  reset: () => set({ ...initial }),
+}));
+
+/** The open draft as a snapshot (for saving and sizing). */
+export function draftSnapshot(state: Pick<State, 'settings' | 'ways'>): DraftSnapshot | null {
+  return state.settings ? { settings: state.settings, ways: state.ways } : null;
+}

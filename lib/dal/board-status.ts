@@ -1,0 +1,153 @@
+import 'server-only';
+
+import type { Actor } from '@/lib/auth/session';
+import { layoutWays } from '@/lib/boards/layout';
+import type { WayInput } from '@/lib/boards/schemas';
+import { boardSizingInput } from '@/lib/boards/sizing-input';
+import type { BoardDto } from '@/lib/boards/types';
+import { db } from '@/lib/db';
+import { audit } from '@/lib/dal/audit';
+import { boardDto, findBoard } from '@/lib/dal/boards';
+import { env } from '@/lib/env';
+import { conflict, unprocessable } from '@/lib/errors';
+import { enqueueMail } from '@/lib/mail/outbox';
+import { boardInputSchema, sizeBoard } from '@/lib/sizing';
+import { Site, User, Way } from '@/models';
+
+/** One way that stops a board going for review, as the refusal lists it. */
+export type FailingWay = {
+  wayId: string;
+  /** The way reference (e.g. "3" or "2L1"), null for a device without one. */
+  label: string | null;
+  serves: string;
+  /** The messages of the checks it fails. */
+  problems: string[];
+};
+
+/** A board-level check that fails (incoming device, busbar, modules, poles). */
+export type FailingBoardCheck = { code: string; message: string; reference: string };
+
+function waysOf(rows: Way[]): WayInput[] {
+  return rows.map((w) => ({
+    id: w.id,
+    rail: w.rail,
+    position: w.position,
+    device: w.device as WayInput['device'],
+    circuit: w.circuit as WayInput['circuit'],
+  }));
+}
+
+/**
+ * Sends a draft board for review: the stored board is sized again, and a board with a failing
+ * way is refused (422, listing the ways). A failing board-level check (incoming device against
+ * the maximum demand, busbar, modules) does not stop it: the inspector judges it, and the
+ * e-mail names it. Otherwise, in one
+ * transaction with the board row locked, the status goes from draft to in review, the version
+ * moves on (so an editor still holding the old one cannot overwrite the board under review),
+ * the change is audited and every active inspector of the organisation is sent an e-mail
+ * through the outbox. `expectedVersion`, when given, must be the stored version (409 if not),
+ * so what goes for review is what the designer saw.
+ */
+export async function submitBoard(
+  actor: Actor,
+  boardId: string,
+  expectedVersion?: number,
+): Promise<BoardDto> {
+  const sequelize = db();
+  const result = await sequelize.transaction(async (transaction) => {
+    // The board, locked, in the caller's organisation, at the version the caller saw
+    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    if (expectedVersion !== undefined && board.version !== expectedVersion) {
+      throw conflict('Someone else saved this board after you opened it.', {
+        currentVersion: board.version,
+      });
+    }
+    if (board.status !== 'draft') {
+      const words = { 'in-review': 'already in review', issued: 'issued', verified: 'verified' } as const;
+      throw conflict(`Only a draft can be sent for review; this board is ${words[board.status as keyof typeof words] ?? board.status}.`);
+    }
+    const rows = await Way.findAll({ where: { boardId }, transaction });
+    const ways = waysOf(rows);
+
+    // Size the stored board exactly as the sizing route does
+    const settings = {
+      name: board.name,
+      location: board.location,
+      phases: board.phases,
+      supply: board.supply,
+      incoming: board.incoming,
+      enclosureModules: board.enclosureModules,
+      rails: board.rails,
+      dwelling: board.dwelling,
+    };
+    const parsed = boardInputSchema.safeParse(boardSizingInput(settings, ways));
+    if (!parsed.success) {
+      throw unprocessable('The stored board is not complete enough to size; open it in the editor and save it again.', {
+        failing: [],
+        boardChecks: parsed.error.issues.map((i) => ({ code: 'input', message: i.message, reference: i.path.join('.') })),
+      });
+    }
+    const sized = sizeBoard(parsed.data);
+
+    // Every failing way and board-level check, in rail order with its way reference
+    const labels = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+    const byId = new Map(ways.map((w) => [w.id, w]));
+    const failing: FailingWay[] = sized.ways
+      .filter((w) => w.result?.verdict === 'fails')
+      .map((w) => ({
+        wayId: w.id,
+        label: labels.get(w.id) ?? null,
+        serves: byId.get(w.id)?.circuit?.serves ?? '',
+        problems: (w.result?.checks ?? []).filter((c) => !c.ok).map((c) => c.message),
+      }));
+    const boardChecks: FailingBoardCheck[] = sized.summary.checks
+      .filter((c) => !c.ok)
+      .map(({ code, message, reference }) => ({ code, message, reference }));
+    if (failing.length) {
+      const n = failing.length;
+      throw unprocessable(
+        `The board cannot go for review: ${n} way${n === 1 ? ' fails' : 's fail'}. Mend ${n === 1 ? 'it' : 'them'} and send it again.`,
+        { failing, boardChecks },
+      );
+    }
+
+    // Status and version, then the audit trail
+    await board.update({ status: 'in-review', version: board.version + 1 }, { transaction });
+    await audit(actor, 'board.status', { from: 'draft', to: 'in-review', revision: board.revision }, { boardId, transaction });
+
+    // The organisation's inspectors hear of it through the outbox (sent once committed)
+    const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
+    const inspectors = await User.findAll({
+      where: { organisationId: actor.organisationId, role: 'inspector', active: true },
+      attributes: ['email', 'name'],
+      transaction,
+    });
+    const link = new URL(`/boards/${board.id}`, env().APP_URL).href;
+    const outgoing = ways.filter((w) => w.circuit).length;
+    for (const inspector of inspectors) {
+      await enqueueMail(
+        {
+          organisationId: actor.organisationId,
+          to: inspector.email,
+          subject: `For review: ${board.name} (${site?.name ?? 'site'}), revision ${board.revision}`,
+          text: [
+            `Hello ${inspector.name},`,
+            '',
+            `${actor.name} has sent the board "${board.name}" at ${site?.name ?? 'the site'} for review.`,
+            `Revision ${board.revision}, ${ways.length} devices on the rail, ${outgoing} circuits; no way fails.`,
+            ...(boardChecks.length
+              ? ['', 'Board-level checks to look at:', ...boardChecks.map((c) => `- ${c.message} (${c.reference})`)]
+              : []),
+            '',
+            `Open it: ${link}`,
+            '',
+            'Boardwright is a design aid: results must be checked by a competent person against the current edition of BS 7671 (or local wiring rules) and manufacturers’ data.',
+          ].join('\n'),
+        },
+        transaction,
+      );
+    }
+    return { board, siteName: site?.name ?? '', rows };
+  });
+  return boardDto(result.board, result.siteName, result.rows);
+}

@@ -1,0 +1,174 @@
+import { DndContext } from '@dnd-kit/core';
+import { act, render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { beforeEach, describe, expect, it, vi } from 'vitest';
+
+import { WayPanel } from '@/features/board-editor/components/way-panel';
+import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-store';
+import { useSizingStore } from '@/features/board-editor/stores/sizing-store';
+import { boardSizingInput } from '@/lib/boards/sizing-input';
+import { boardInputSchema, sizeBoard } from '@/lib/sizing';
+
+import { demoBoard } from './fixtures';
+
+const store = () => useBoardDraftStore.getState();
+
+function openWay(serves: string) {
+  const way = store().ways.find((w) => w.circuit?.serves === serves)!;
+  act(() => store().select(way.id));
+  return way;
+}
+
+const circuitOf = (id: string) => store().ways.find((w) => w.id === id)!.circuit!;
+
+beforeEach(() => {
+  store().reset();
+  useSizingStore.getState().reset();
+});
+
+function renderPanel(readOnly = false) {
+  const onRemove = vi.fn();
+  render(
+    <DndContext>
+      <WayPanel readOnly={readOnly} showSizing onRemove={onRemove} />
+    </DndContext>,
+  );
+  return { onRemove };
+}
+
+describe('the way panel', () => {
+  it('asks for a selection when no way is selected', () => {
+    store().load(demoBoard('flat'));
+    renderPanel();
+    expect(screen.getByText(/Select a device on the board/)).toBeTruthy();
+  });
+
+  it('an empty or out-of-range length shows a field error and leaves the draft alone', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    const length = screen.getByLabelText('Length (m)');
+    expect((length as HTMLInputElement).value).toBe('9');
+
+    await user.clear(length);
+    expect(await screen.findByText('Enter a number.')).toBeTruthy();
+    expect(length.getAttribute('aria-invalid')).toBe('true');
+    expect(circuitOf(way.id).lengthM).toBe(9);
+
+    await user.type(length, '0');
+    expect(await screen.findByText('Use more than 0.')).toBeTruthy();
+    expect(circuitOf(way.id).lengthM).toBe(9);
+    expect(store().past).toHaveLength(0);
+  });
+
+  it('a valid change goes into the draft as one undo step', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    const length = screen.getByLabelText('Length (m)');
+    await user.clear(length);
+    await user.type(length, '27');
+    expect(circuitOf(way.id).lengthM).toBe(27);
+    expect(store().dirty).toBe(true);
+
+    await user.type(screen.getByLabelText('Load (W)'), '0');
+    expect(circuitOf(way.id).load).toEqual({ kind: 'known', watts: 30000, powerFactor: 1 });
+    // Typing "2", "7" in the length is one step, the load another
+    expect(store().past).toHaveLength(2);
+  });
+
+  it('offers only the installation methods the chosen cable has, and keeps the method valid', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    const methods = () =>
+      within(screen.getByLabelText('Installation method')).getAllByRole('option').map((o) => (o as HTMLOptionElement).value);
+    expect(methods()).toEqual(['100', '101', '102', '103', 'A', 'C']);
+
+    await user.selectOptions(screen.getByLabelText('Cable'), 'swa-xlpe-90');
+    expect(methods()).toEqual(['C', 'D', 'E']);
+    expect(circuitOf(way.id)).toMatchObject({ cable: 'swa-xlpe-90', method: 'C' });
+
+    await user.selectOptions(screen.getByLabelText('Installation method'), 'D');
+    expect(circuitOf(way.id).method).toBe('D');
+  });
+
+  it('switches the load to a socket arrangement, and fixes the cable size when asked', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    await user.selectOptions(screen.getByLabelText('Use'), 'sockets');
+    await user.selectOptions(screen.getByLabelText('Load'), 'socket-arrangement');
+    expect(circuitOf(way.id).load).toEqual({ kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 50 });
+    await user.selectOptions(screen.getByLabelText('Cable size'), '4');
+    expect(circuitOf(way.id).csaMm2).toBe(4);
+    await user.selectOptions(screen.getByLabelText('Cable size'), '');
+    expect(circuitOf(way.id).csaMm2).toBeNull();
+  });
+
+  it('a socket arrangement on a lighting circuit is refused with the schema’s message', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Sockets: kitchen and utility (ring)');
+    renderPanel();
+    await user.selectOptions(screen.getByLabelText('Use'), 'lighting');
+    expect(await screen.findByText('a socket arrangement is a sockets circuit')).toBeTruthy();
+    expect(circuitOf(way.id).use).toBe('sockets');
+  });
+
+  it('device details: a fixed rating can go back to "choose for me"', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    await user.selectOptions(screen.getByLabelText('Rating'), '');
+    expect(store().ways.find((w) => w.id === way.id)!.device.ratingA).toBeNull();
+    await user.selectOptions(screen.getByLabelText('Curve'), 'C');
+    expect(store().ways.find((w) => w.id === way.id)!.device.curve).toBe('C');
+  });
+
+  it('undo from elsewhere puts the old value back in the field', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    const length = screen.getByLabelText('Length (m)') as HTMLInputElement;
+    await user.clear(length);
+    await user.type(length, '31');
+    act(() => store().undo());
+    expect(length.value).toBe('9');
+  });
+
+  it('shows the full sizing of the way: figures, each check with its reference, and the caution', () => {
+    const board = demoBoard('flat');
+    store().load(board);
+    const way = openWay('Cooker: oven and hob');
+    const result = sizeBoard(boardInputSchema.parse(boardSizingInput(board.settings, board.ways)));
+    act(() => useSizingStore.getState().apply(store().revision, result));
+    renderPanel();
+    const section = screen.getByRole('region', { name: 'Sizing result' });
+    const sized = result.ways.find((w) => w.id === way.id)!.result!;
+    expect(within(section).getByText('Design current Ib').nextSibling?.textContent).toContain(`${sized.ibA.toFixed(2)} A`);
+    for (const check of sized.checks) {
+      const item = section.querySelector(`[data-check="${check.code}"]`)!;
+      expect(item.textContent).toContain(check.message);
+      expect(item.textContent).toContain(check.reference);
+    }
+    expect(within(section).getByRole('note', { name: 'Caution' }).textContent).toMatch(/competent person/);
+    expect(within(section).getAllByText(/Passes|Near limit|Fails/).length).toBeGreaterThan(0);
+  });
+
+  it('read-only: every field is disabled and there is no remove button', () => {
+    store().load(demoBoard('flat'));
+    openWay('Immersion heater, airing cupboard');
+    renderPanel(true);
+    // Disabled through the form's fieldset
+    expect(screen.getByLabelText('Length (m)').matches(':disabled')).toBe(true);
+    expect(screen.getByLabelText('Rating').matches(':disabled')).toBe(true);
+    expect(screen.queryByRole('button', { name: /Remove/ })).toBeNull();
+  });
+});

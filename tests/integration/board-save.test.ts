@@ -1,0 +1,145 @@
+import crypto from 'node:crypto';
+
+import { beforeAll, describe, expect, it } from 'vitest';
+
+import * as boardRoute from '@/app/api/boards/[boardId]/route';
+import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
+import type { BoardDto } from '@/lib/boards/types';
+import { AuditEvent, Board, Way } from '@/models';
+
+import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
+
+type Org = Awaited<ReturnType<typeof makeOrganisation>>;
+let team: Org;
+
+beforeAll(async () => {
+  team = await makeOrganisation('Save');
+});
+
+async function load(boardId: string): Promise<BoardDto> {
+  const res = await boardRoute.GET(jsonRequest('GET'), ctx({ boardId }));
+  expect(res.status).toBe(200);
+  return (await res.json()).board;
+}
+
+/** The body the editor sends: the settings and ways of a board DTO at a version. */
+function saveBody(board: BoardDto, ways = board.ways, version = board.version) {
+  const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = board;
+  return {
+    version,
+    settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
+    ways: ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit })),
+  };
+}
+
+describe('saving a board from the editor', () => {
+  it('saves moves, a new way, a removed way and a changed circuit; a reload shows them', async () => {
+    signInAs(team.users.designer);
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const before = await load(board.id);
+    // Swap the first two circuits, lengthen one, drop the spare and add an MCB on the end
+    const ways = before.ways.map((w) => ({ ...w }));
+    const spare = ways.find((w) => w.device.kind === 'blank')!;
+    const [a, b] = ways.filter((w) => w.circuit);
+    [a.position, b.position] = [b.position, a.position];
+    a.circuit = { ...a.circuit!, lengthM: 41 };
+    const added = {
+      id: crypto.randomUUID(),
+      rail: 0,
+      position: 50,
+      device: { kind: 'mcb' as const, poles: 1 as const, modules: 1, curve: 'B' as const, ratingA: 16 },
+      circuit: null,
+      labelStatus: 'unchecked' as const,
+      labelNote: '',
+    };
+    const next = [...ways.filter((w) => w.id !== spare.id), added];
+    const res = await boardRoute.PUT(jsonRequest('PUT', saveBody(before, next)), ctx({ boardId: board.id }));
+    expect(res.status).toBe(200);
+    const saved = (await res.json()).board as BoardDto;
+    expect(saved.version).toBe(before.version + 1);
+
+    const after = await load(board.id);
+    expect(after.version).toBe(before.version + 1);
+    expect(after.ways.map((w) => w.id)).not.toContain(spare.id);
+    expect(after.ways.find((w) => w.id === added.id)?.device).toEqual(added.device);
+    expect(after.ways.find((w) => w.id === a.id)?.circuit?.lengthM).toBe(41);
+    // Rail order: b now comes before a
+    const order = after.ways.map((w) => w.id);
+    expect(order.indexOf(b.id)).toBeLessThan(order.indexOf(a.id));
+    // The stored draft sizes: the new MCB is a spare (no circuit), a's circuit is sized at 41 m
+    const sized = await sizingRoute.POST(jsonRequest('POST'), ctx({ boardId: board.id }));
+    const result = await sized.json();
+    expect(result.summary.counts.spare).toBe(1);
+    expect(result.ways.find((w: { id: string }) => w.id === a.id).result.vdV).toBeGreaterThan(0);
+  });
+
+  it('a save at a stale version gets 409 with the current version, and nothing is written', async () => {
+    signInAs(team.users.designer);
+    const { board } = await makeBoard(team.org.id, 'workshop');
+    const opened = await load(board.id);
+    // Someone else saves first
+    const theirs = opened.ways.map((w) => (w.circuit ? { ...w, circuit: { ...w.circuit, lengthM: 19 } } : w));
+    const first = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened, theirs)), ctx({ boardId: board.id }));
+    expect(first.status).toBe(200);
+    const stored = await load(board.id);
+    const auditsBefore = await AuditEvent.count({ where: { boardId: board.id } });
+
+    // Our save still names the version we opened
+    const mine = opened.ways.filter((w) => w.device.kind !== 'blank');
+    const stale = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened, mine)), ctx({ boardId: board.id }));
+    expect(stale.status).toBe(409);
+    const body = await stale.json();
+    expect(body.currentVersion).toBe(stored.version);
+    expect(body.error).toMatch(/saved this board after you opened it/);
+
+    // Nothing written: same version, same ways, no audit events
+    const after = await load(board.id);
+    expect(after.version).toBe(stored.version);
+    expect(after.ways).toEqual(stored.ways);
+    expect(await AuditEvent.count({ where: { boardId: board.id } })).toBe(auditsBefore);
+
+    // "Keep mine": the same ways saved on top of the current version go through
+    const kept = await boardRoute.PUT(
+      jsonRequest('PUT', saveBody(opened, mine, body.currentVersion)),
+      ctx({ boardId: board.id }),
+    );
+    expect(kept.status).toBe(200);
+    expect((await load(board.id)).ways.map((w) => w.id)).toEqual(mine.map((w) => w.id));
+  });
+
+  it('a board in review is not saved (409) and keeps its ways', async () => {
+    signInAs(team.users.designer);
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const opened = await load(board.id);
+    await Board.update({ status: 'in-review' }, { where: { id: board.id } });
+    const res = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened, opened.ways.slice(1))), ctx({ boardId: board.id }));
+    expect(res.status).toBe(409);
+    expect((await res.json()).error).toMatch(/in review/);
+    expect(await Way.count({ where: { boardId: board.id } })).toBe(opened.ways.length);
+  });
+
+  it('bad input is a 400 naming each bad field, and nothing is written', async () => {
+    signInAs(team.users.designer);
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const opened = await load(board.id);
+    const ways = opened.ways.map((w, i) =>
+      i === 2 ? { ...w, circuit: { ...w.circuit!, lengthM: -3 }, device: { ...w.device, ratingA: 17 } } : w,
+    );
+    const res = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened, ways)), ctx({ boardId: board.id }));
+    expect(res.status).toBe(400);
+    const paths = (await res.json()).issues.map((i: { path: string }) => i.path);
+    expect(paths).toEqual(expect.arrayContaining(['ways.2.circuit.lengthM', 'ways.2.device.ratingA']));
+    expect((await load(board.id)).version).toBe(opened.version);
+  });
+
+  it('inspectors and installers may not save', async () => {
+    const { board } = await makeBoard(team.org.id, 'flat');
+    signInAs(team.users.designer);
+    const opened = await load(board.id);
+    for (const role of ['inspector', 'installer'] as const) {
+      signInAs(team.users[role]);
+      const res = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened)), ctx({ boardId: board.id }));
+      expect(res.status).toBe(403);
+    }
+  });
+});
