@@ -192,6 +192,13 @@ export function sizeBoard(input: BoardInput): BoardResult {
       upstream = { id: way.id, ma: d.rcdMa ?? 30 };
       rcdCoverage.push({ rcdId: way.id, wayIds: [] });
     }
+    if (d.kind === 'blank') {
+      // A blank is a spare way: it sits under the RCD before it, like any other way.
+      counts.spare += 1;
+      if (upstream) rcdCoverage[rcdCoverage.length - 1].wayIds.push(way.id);
+      ways.push({ id: way.id, result: null, protectedBy: upstream?.id ?? null });
+      continue;
+    }
     if (!isProtectiveDevice(d.kind)) {
       ways.push({ id: way.id, result: null, protectedBy: null });
       continue;

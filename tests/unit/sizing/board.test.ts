@@ -119,3 +119,26 @@ describe('sizeBoard: the workshop three-phase board (non-dwelling)', () => {
     expect(small.summary.modulesCheck.ok).toBe(false);
   });
 });
+
+describe('sizeBoard: blanks are spare ways', () => {
+  it('a blank counts as a spare and sits under the RCD before it', () => {
+    const out = sizeBoard(
+      boardInputSchema.parse({
+        supply: FLAT_SUPPLY,
+        phases: 1,
+        enclosureModules: 8,
+        incoming: { kind: 'main-switch', ratingA: 100 },
+        ways: [
+          { id: 'main', device: { kind: 'main-switch', poles: 2, modules: 2 }, circuit: null },
+          { id: 'rcd', device: { kind: 'rcd', poles: 2, modules: 2, rcdMa: 30, ratingA: 63 }, circuit: null },
+          { id: 'blank', device: { kind: 'blank', poles: 1, modules: 1 }, circuit: null },
+          { id: 'spd', device: { kind: 'spd', poles: 2, modules: 2 }, circuit: null },
+        ],
+      }),
+    );
+    expect(out.summary.counts.spare).toBe(1);
+    expect(out.ways.find((w) => w.id === 'blank')?.protectedBy).toBe('rcd');
+    expect(out.summary.rcdCoverage).toEqual([{ rcdId: 'rcd', wayIds: ['blank'] }]);
+    expect(out.ways.find((w) => w.id === 'spd')?.protectedBy).toBeNull();
+  });
+});
