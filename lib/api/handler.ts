@@ -40,20 +40,66 @@ export function parseParams<S extends z.ZodType>(params: unknown, schema: S): z.
   return parsed.data;
 }
 
-function isDatabaseDown(err: unknown): boolean {
-  const name = (err as { name?: string })?.name ?? '';
-  const code = (err as { parent?: { code?: string }; original?: { code?: string } })?.parent?.code;
-  return (
+// Error codes of a database that is away: node socket errors, and PostgreSQL's connection
+// exceptions (class 08), shutdown and start-up (57P01-57P03).
+const DOWN_CODES = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EPIPE',
+  'EHOSTUNREACH',
+  'ENETUNREACH',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+  '57P01',
+  '57P02',
+  '57P03',
+  '08000',
+  '08001',
+  '08003',
+  '08004',
+  '08006',
+]);
+// A database that is there but cannot serve just now: a statement cut by statement_timeout
+// (57014), too many connections (53300). The transaction was rolled back either way.
+const BUSY_CODES = new Set(['57014', '53300']);
+
+/**
+ * Whether a failure means the database is away ('down') or overloaded ('busy'), from what
+ * Sequelize and pg actually throw: Sequelize's connection errors (refused, host, access,
+ * acquire timeout), a SequelizeDatabaseError whose `parent` carries the PostgreSQL code, or
+ * pg's own "Connection terminated" errors.
+ */
+function databaseTrouble(err: unknown): 'down' | 'busy' | null {
+  const e = err as {
+    name?: string;
+    code?: string;
+    message?: string;
+    parent?: { code?: string };
+    original?: { code?: string };
+  } | null;
+  if (!e || typeof e !== 'object') return null;
+  // Codes only from the database layer: an S3 or SMTP socket error is not the database
+  const fromSequelize = (e.name ?? '').startsWith('Sequelize');
+  const fromPg = 'severity' in e;
+  const codes = [
+    fromPg ? e.code : undefined,
+    fromSequelize ? e.parent?.code : undefined,
+    fromSequelize ? e.original?.code : undefined,
+  ].filter((c): c is string => !!c);
+  if (codes.some((c) => BUSY_CODES.has(c))) return 'busy';
+  if (
     /^Sequelize(Connection\w*|HostNotReachable|HostNotFound|AccessDenied|InvalidConnection)Error$/.test(
-      name,
+      e.name ?? '',
     ) ||
-    code === 'ECONNREFUSED' ||
-    code === '57P01' ||
-    code === '57P03' ||
-    /Connection terminated|ECONNREFUSED|timeout exceeded when trying to connect/i.test(
-      String((err as Error)?.message ?? ''),
+    codes.some((c) => DOWN_CODES.has(c)) ||
+    /Connection terminated|timeout exceeded when trying to connect|not queryable/i.test(
+      String(e.message ?? ''),
     )
-  );
+  ) {
+    return 'down';
+  }
+  return null;
 }
 
 /**
@@ -82,11 +128,13 @@ export function errorResponse(err: unknown): Response {
       { status: 400 },
     );
   }
-  if (isDatabaseDown(err)) {
-    return Response.json(
-      { error: 'The database is not reachable just now. Nothing was changed; try again shortly.' },
-      { status: 503, headers: { 'Retry-After': '5' } },
-    );
+  const trouble = databaseTrouble(err);
+  if (trouble) {
+    const error =
+      trouble === 'down'
+        ? 'The database is not reachable just now. Nothing was changed; try again shortly.'
+        : 'The database is too busy just now. Nothing was changed; try again shortly.';
+    return Response.json({ error }, { status: 503, headers: { 'Retry-After': '5' } });
   }
   console.error('[api] unexpected error', err);
   return Response.json({ error: 'Something went wrong on our side.' }, { status: 500 });

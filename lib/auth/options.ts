@@ -16,9 +16,22 @@ const credentialsSchema = z.object({
 /** Sessions last a working day; a signed-in tab refreshes them as it is used. */
 export const SESSION_MAX_AGE_S = 12 * 60 * 60;
 
+/**
+ * Session and CSRF cookies are `Secure` (and `__Secure-`/`__Host-` prefixed) when the app is
+ * served over HTTPS. Set from APP_URL rather than left to next-auth's guess from NEXTAUTH_URL,
+ * so that a deployment behind a TLS proxy cannot silently hand out cookies that travel in clear.
+ */
+export function secureCookiesFor(appUrl: string): boolean {
+  return appUrl.startsWith('https://');
+}
+
 export const authOptions: NextAuthOptions = {
   secret: env().NEXTAUTH_SECRET,
+  useSecureCookies: secureCookiesFor(env().APP_URL),
   session: { strategy: 'jwt', maxAge: SESSION_MAX_AGE_S },
+  // next-auth 4 signs the sign-in token with jwt.maxAge (30 days unless set), whatever the
+  // session's maxAge: without this a copied cookie would stay valid for a month.
+  jwt: { maxAge: SESSION_MAX_AGE_S },
   pages: { signIn: '/login' },
   providers: [
     CredentialsProvider({

@@ -34,7 +34,8 @@ describe('sign-in', () => {
     await page.getByLabel('E-mail').fill(demoUser('designer').email);
     await page.getByLabel('Password').fill('not-the-password-1');
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await expect(page.getByRole('alert').textContent()).resolves.toContain('do not match');
+    // The form's own alert (Next's route announcer is an alert too), once the answer is in
+    await expect.poll(() => page.locator('form').getByRole('alert').textContent()).toContain('do not match');
   });
 
   for (const role of Object.keys(expected) as Role[]) {

@@ -1,3 +1,5 @@
+import crypto from 'node:crypto';
+
 import pg from 'pg';
 import { Sequelize } from 'sequelize';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -69,5 +71,25 @@ describe('migrations', () => {
     } finally {
       await client.end();
     }
+  });
+});
+
+describe('the audit trail from the app', () => {
+  it('the app’s own models cannot change or remove an event', async () => {
+    const { db } = await import('@/lib/db');
+    const { AuditEvent } = await import('@/models');
+    db();
+    const event = await AuditEvent.create({
+      organisationId: crypto.randomUUID(),
+      action: 'board.saved',
+      details: { version: 2 },
+    });
+    await expect(event.update({ action: 'board.deleted' })).rejects.toThrow(/append-only/);
+    await expect(AuditEvent.update({ details: {} }, { where: { id: event.id } })).rejects.toThrow(/append-only/);
+    await expect(event.destroy()).rejects.toThrow(/append-only/);
+    await expect(AuditEvent.destroy({ where: { id: event.id } })).rejects.toThrow(/append-only/);
+    const stored = await AuditEvent.findByPk(event.id);
+    expect(stored?.action).toBe('board.saved');
+    expect(stored?.details).toEqual({ version: 2 });
   });
 });

@@ -1,0 +1,75 @@
+import type { AuditEntry } from '@/lib/dal/audit';
+
+const STATUS_WORDS: Record<string, string> = {
+  draft: 'draft',
+  'in-review': 'in review',
+  issued: 'issued',
+  verified: 'verified',
+};
+
+const LABEL_WORDS: Record<string, string> = {
+  matches: 'matches',
+  wrong: 'wrong',
+  missing: 'missing',
+};
+
+const text = (value: unknown) => (typeof value === 'string' || typeof value === 'number' ? String(value) : '');
+
+const statusWord = (value: unknown) => STATUS_WORDS[text(value)] ?? text(value);
+
+/** "way 7" when the way still has a printed reference, else "a way". */
+function wayRef(entry: Pick<AuditEntry, 'wayLabel'>): string {
+  return entry.wayLabel ? `way ${entry.wayLabel}` : 'a way';
+}
+
+/** What an audit event did, in a few plain words, after the name of who did it. */
+export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' | 'wayLabel'>): string {
+  const d = entry.details ?? {};
+  switch (entry.action) {
+    case 'board.created':
+      return 'created the board';
+    case 'board.renamed': {
+      const parts = [
+        d.name !== undefined ? `renamed the board “${text(d.name)}”` : '',
+        d.location !== undefined ? `set its location to “${text(d.location)}”` : '',
+      ].filter(Boolean);
+      return parts.join(' and ') || 'renamed the board';
+    }
+    case 'board.deleted':
+      return 'deleted the board';
+    case 'board.saved':
+      return d.newRevision !== undefined
+        ? `saved version ${text(d.version)}, starting revision ${text(d.newRevision)} as a draft`
+        : `saved version ${text(d.version)}`;
+    case 'way.added':
+      return `added ${wayRef(entry)}`;
+    case 'way.removed':
+      return 'removed a way';
+    case 'way.moved':
+      return `moved ${wayRef(entry)}`;
+    case 'way.changed':
+      return `changed the device or circuit of ${wayRef(entry)}`;
+    case 'board.status':
+      return `moved the board from ${statusWord(d.from)} to ${statusWord(d.to)}`;
+    case 'board.comment':
+      return d.wayId ? `commented on ${wayRef(entry)}` : 'commented on the board';
+    case 'label.checked':
+      return `checked the label of ${wayRef(entry)}: ${LABEL_WORDS[text(d.status)] ?? text(d.status)}`;
+    case 'review.approved':
+      return `approved the board and issued revision ${text(d.revision)}`;
+    case 'review.returned':
+      return `returned revision ${text(d.revision)} for changes`;
+    case 'board.verified':
+      return `found every label matching; revision ${text(d.revision)} is verified`;
+    case 'board.unverified':
+      return `found a label problem; revision ${text(d.revision)} is no longer verified`;
+    case 'attachment.added':
+      return d.wayId ? `added a photo of ${wayRef(entry)}` : 'added a photo of the board';
+    case 'attachment.deleted':
+      return 'removed a photo';
+    case 'schedule.emailed':
+      return `e-mailed the schedule (revision ${text(d.revision)}) to ${text(d.to)}`;
+    default:
+      return entry.action;
+  }
+}

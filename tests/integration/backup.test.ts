@@ -1,0 +1,144 @@
+/**
+ * Backup and restore: scripts/backup.sh dumps the test database, scripts/restore.sh loads it
+ * into a scratch database, and the boards, their ways, sites and audit trail come back exactly.
+ */
+import { execFile } from 'node:child_process';
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { promisify } from 'node:util';
+
+import pg from 'pg';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import * as boardRoute from '@/app/api/boards/[boardId]/route';
+import { saveBodyOf } from '@/app/api/route-table';
+import type { BoardDto } from '@/lib/boards/types';
+
+import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
+
+const ROOT = path.resolve(import.meta.dirname, '../..');
+const SOURCE_URL = process.env.DATABASE_URL!;
+const SCRATCH = `bw_restore_${crypto.randomUUID().slice(0, 8)}`;
+const scratchUrl = () => {
+  const url = new URL(SOURCE_URL);
+  url.pathname = `/${SCRATCH}`;
+  return url.href;
+};
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'bw-backup-'));
+const dumpFile = path.join(dir, 'boardwright.dump');
+
+/** Runs one of the project's scripts against the test database. */
+function script(name: string, args: string[]) {
+  return promisify(execFile)('bash', [`scripts/${name}`, ...args], {
+    cwd: ROOT,
+    env: { ...process.env, DATABASE_URL: SOURCE_URL },
+    encoding: 'utf8',
+    timeout: 120_000,
+  });
+}
+
+/** Rows of one organisation, from a database, in a stable order. */
+async function rowsOf(url: string, organisationId: string) {
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  try {
+    const q = async (sql: string) => (await client.query(sql, [organisationId])).rows;
+    return {
+      organisation: await q('select * from organisations where id = $1'),
+      users: await q('select * from users where organisation_id = $1 order by id'),
+      sites: await q('select * from sites where organisation_id = $1 order by id'),
+      boards: await q('select * from boards where organisation_id = $1 order by id'),
+      ways: await q(
+        'select w.* from ways w join boards b on b.id = w.board_id where b.organisation_id = $1 order by w.id',
+      ),
+      audit: await q('select * from audit_events where organisation_id = $1 order by id'),
+    };
+  } finally {
+    await client.end();
+  }
+}
+
+let organisationId: string;
+let before: Awaited<ReturnType<typeof rowsOf>>;
+
+beforeAll(async () => {
+  // Two boards, one of them saved with changes so the audit trail has entries
+  const { org, users } = await makeOrganisation('Backup');
+  organisationId = org.id;
+  await makeBoard(org.id, 'flat');
+  const { board } = await makeBoard(org.id, 'workshop');
+  signInAs(users.designer);
+  const opened: BoardDto = (await (await boardRoute.GET(jsonRequest('GET'), ctx({ boardId: board.id }))).json()).board;
+  const body = saveBodyOf(opened);
+  body.settings.location = 'Plant room, east wall';
+  body.ways = body.ways.slice(0, -1);
+  expect((await boardRoute.PUT(jsonRequest('PUT', body), ctx({ boardId: board.id }))).status).toBe(200);
+  before = await rowsOf(SOURCE_URL, organisationId);
+});
+
+afterAll(async () => {
+  const admin = new pg.Client({ connectionString: SOURCE_URL.replace(/\/[^/?]+(\?|$)/, '/postgres$1') });
+  await admin.connect();
+  await admin.query(`drop database if exists "${SCRATCH}" with (force)`);
+  await admin.end();
+  fs.rmSync(dir, { recursive: true, force: true });
+});
+
+describe('backup and restore', () => {
+  it('round trip: the boards, ways, sites and audit trail come back exactly', async () => {
+    expect(before.boards).toHaveLength(2);
+    expect(before.ways.length).toBeGreaterThan(10);
+    expect(before.audit.length).toBeGreaterThan(0);
+
+    const backup = await script('backup.sh', [dumpFile]);
+    expect(backup.stdout).toMatch(/Backed up database \w+ to .*boardwright\.dump/);
+    expect(fs.statSync(dumpFile).size).toBeGreaterThan(10_000);
+    // pg_dump's custom format starts with PGDMP
+    expect(fs.readFileSync(dumpFile).subarray(0, 5).toString()).toBe('PGDMP');
+
+    const restore = await script('restore.sh', [dumpFile, SCRATCH]);
+    expect(restore.stdout).toContain(`Created database ${SCRATCH}`);
+    expect(await rowsOf(scratchUrl(), organisationId)).toEqual(before);
+  });
+
+  it('the restored database keeps its rules: the audit trail still refuses changes', async () => {
+    const client = new pg.Client({ connectionString: scratchUrl() });
+    await client.connect();
+    try {
+      await expect(client.query("update audit_events set action = 'x'")).rejects.toThrow(/append-only/);
+      await expect(client.query('delete from audit_events')).rejects.toThrow(/append-only/);
+      const { rows } = await client.query('select count(*)::int as n from schema_migrations');
+      expect(rows[0].n).toBeGreaterThanOrEqual(2);
+    } finally {
+      await client.end();
+    }
+  });
+
+  it('restoring over a database with tables needs --yes, then replaces its contents', async () => {
+    // Damage the scratch copy
+    const client = new pg.Client({ connectionString: scratchUrl() });
+    await client.connect();
+    await client.query('delete from ways where board_id = $1', [before.boards[0].id]);
+    await client.query("update boards set name = 'Damaged' where organisation_id = $1", [organisationId]);
+    await client.end();
+
+    await expect(script('restore.sh', [dumpFile, SCRATCH])).rejects.toMatchObject({
+      stderr: expect.stringContaining('add --yes to replace them'),
+    });
+    await script('restore.sh', [dumpFile, SCRATCH, '--yes']);
+    expect(await rowsOf(scratchUrl(), organisationId)).toEqual(before);
+  });
+
+  it('refuses a file that is not a backup, and a bad database name', async () => {
+    const junk = path.join(dir, 'not-a-backup.dump');
+    fs.writeFileSync(junk, 'hello');
+    await expect(script('restore.sh', [junk, SCRATCH])).rejects.toMatchObject({
+      stderr: expect.stringContaining('Not a pg_dump custom-format file'),
+    });
+    await expect(script('restore.sh', [dumpFile, 'x"; drop database y; --'])).rejects.toMatchObject({
+      stderr: expect.stringContaining('letters, digits and _ only'),
+    });
+  });
+});
