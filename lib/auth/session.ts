@@ -17,12 +17,41 @@ export type Actor = {
 };
 
 /**
- * Reads the session and re-reads the member from the database, so that a role change
- * or a deactivation takes effect on the next request, not when the token expires.
+ * Members read in the last few seconds, by id. A role change or a deactivation reaches
+ * every instance within ACTOR_CACHE_MS (default 5 s), and at once on the instance that made
+ * it; meanwhile a burst of API calls costs one lookup instead of one each.
+ */
+const recent = new Map<string, { actor: Actor | null; until: number }>();
+
+function cacheMs(): number {
+  const ms = Number(process.env.ACTOR_CACHE_MS ?? 5_000);
+  return Number.isFinite(ms) && ms >= 0 ? ms : 5_000;
+}
+
+/** Forgets a member's cached record (after a role change or deactivation). */
+export function forgetActor(userId: string): void {
+  recent.delete(userId);
+}
+
+/**
+ * Reads the session and the member's current record, so that a role change or a
+ * deactivation takes effect within seconds, not when the token expires.
  */
 export async function getActor(): Promise<Actor | null> {
   const id = await sessionUserId();
   if (!id) return null;
+  const hit = recent.get(id);
+  if (hit && hit.until > Date.now()) return hit.actor;
+  const actor = await loadActor(id);
+  const ttl = cacheMs();
+  if (ttl > 0) {
+    if (recent.size > 10_000) recent.clear();
+    recent.set(id, { actor, until: Date.now() + ttl });
+  }
+  return actor;
+}
+
+async function loadActor(id: string): Promise<Actor | null> {
   db();
   const user = await User.findByPk(id, {
     attributes: ['id', 'organisationId', 'role', 'name', 'email', 'active'],

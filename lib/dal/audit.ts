@@ -50,6 +50,25 @@ export async function audit(
   );
 }
 
+/** Appends several events of one board in a single insert (a save records one per way touched). */
+export async function auditMany(
+  actor: Actor,
+  events: { action: AuditAction; details: Record<string, unknown> }[],
+  opts: { boardId?: string | null; transaction?: Transaction } = {},
+): Promise<void> {
+  if (!events.length) return;
+  await AuditEvent.bulkCreate(
+    events.map((e) => ({
+      organisationId: actor.organisationId,
+      boardId: opts.boardId ?? null,
+      userId: actor.userId,
+      action: e.action,
+      details: e.details,
+    })),
+    { transaction: opts.transaction },
+  );
+}
+
 export type AuditEntry = {
   id: string;
   action: string;
