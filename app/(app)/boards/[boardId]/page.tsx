@@ -1,12 +1,16 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 
+import { AuditTrail } from '@/features/audit/components/audit-trail';
 import { BoardEditor } from '@/features/board-editor/components/board-editor';
+import { RevisionDiff } from '@/features/review/components/revision-diff';
 import { can } from '@/lib/auth/permissions';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
 import { getBoard } from '@/lib/dal/boards';
 import { HttpError } from '@/lib/errors';
+
+import { LabelFindings } from './_components/label-findings';
 
 export const metadata: Metadata = { title: 'Board editor' };
 
@@ -31,5 +35,19 @@ export default async function BoardPage({ params }: Props) {
     size: can(actor.role, 'sizing.run'),
     submit: can(actor.role, 'boards.submit'),
   };
-  return <BoardEditor board={board} can={abilities} />;
+  return (
+    <div className="flex flex-col gap-6">
+      <BoardEditor board={board} can={abilities} />
+      <LabelFindings board={board} />
+      <div className="grid gap-6 lg:grid-cols-2">
+        <section aria-labelledby="revisions" className="rounded-card border border-line bg-paper-raised p-4">
+          <h2 id="revisions" className="mb-2 text-base font-semibold text-ink">
+            Revisions
+          </h2>
+          <RevisionDiff boardId={board.id} />
+        </section>
+        <AuditTrail boardId={board.id} className="rounded-card border border-line bg-paper-raised p-4" />
+      </div>
+    </div>
+  );
 }

@@ -7,7 +7,7 @@ import { getActor } from '@/lib/auth/session';
 import { getReview } from '@/lib/dal/review';
 import { HttpError } from '@/lib/errors';
 
-export const metadata = { title: 'Review · Boardwright' };
+export const metadata = { title: 'Review' };
 
 /** The inspector's review of one board. */
 export default async function ReviewPage({ params }: { params: Promise<{ boardId: string }> }) {

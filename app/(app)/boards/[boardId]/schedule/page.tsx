@@ -13,7 +13,7 @@ import { getActor } from '@/lib/auth/session';
 import { boardStage, getScheduleSource, listRevisions } from '@/lib/dal/review';
 import { HttpError } from '@/lib/errors';
 
-export const metadata = { title: 'Schedule · Boardwright' };
+export const metadata = { title: 'Schedule' };
 
 // The app's top bar is not part of the printed page.
 const PRINT_CSS = '@page { size: A4 landscape; margin: 10mm; } @media print { body > div > header { display: none; } main { padding: 0 !important; max-width: none !important; } }';

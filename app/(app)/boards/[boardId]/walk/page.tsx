@@ -9,7 +9,7 @@ import { getActor } from '@/lib/auth/session';
 import { getWalk } from '@/lib/dal/label-walk';
 import { HttpError } from '@/lib/errors';
 
-export const metadata = { title: 'Label walk · Boardwright' };
+export const metadata = { title: 'Label walk' };
 
 /** The label walk of one board, built for a phone. */
 export default async function WalkPage({ params }: { params: Promise<{ boardId: string }> }) {

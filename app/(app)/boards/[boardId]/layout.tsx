@@ -1,0 +1,40 @@
+import { notFound } from 'next/navigation';
+import { z } from 'zod';
+
+import { can } from '@/lib/auth/permissions';
+import { getActor } from '@/lib/auth/session';
+import { findBoard } from '@/lib/dal/boards';
+import { HttpError } from '@/lib/errors';
+
+import { BoardNav } from './_components/board-nav';
+
+type Props = { children: React.ReactNode; params: Promise<{ boardId: string }> };
+
+/** Every page of one board shares its name and the way between its four views. */
+export default async function BoardLayout({ children, params }: Props) {
+  const { boardId } = await params;
+  if (!z.uuid().safeParse(boardId).success) notFound();
+  const actor = await getActor();
+  if (!actor) notFound();
+  const board = await findBoard(actor, boardId).catch((err: unknown) => {
+    if (err instanceof HttpError && err.status === 404) notFound();
+    throw err;
+  });
+  const issued = board.status === 'issued' || board.status === 'verified';
+  const tabs = [
+    { href: `/boards/${boardId}`, label: 'Board', show: true },
+    { href: `/boards/${boardId}/review`, label: 'Review', show: can(actor.role, 'boards.review') },
+    {
+      href: `/boards/${boardId}/schedule`,
+      label: 'Schedule',
+      show: can(actor.role, 'schedule.print') && (actor.role !== 'installer' || issued || board.revision > 1),
+    },
+    { href: `/boards/${boardId}/walk`, label: 'Label walk', show: can(actor.role, 'walk.record') },
+  ].filter((t) => t.show);
+  return (
+    <div className="flex flex-col gap-4">
+      <BoardNav tabs={tabs} />
+      {children}
+    </div>
+  );
+}
