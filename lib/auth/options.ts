@@ -13,7 +13,19 @@ const credentialsSchema = z.object({
   password: z.string().min(1).max(200),
 });
 
-/** Sessions last a working day; a signed-in tab refreshes them as it is used. */
+/**
+ * The caller's address for the per-address sign-in limit: the last X-Forwarded-For entry,
+ * which is the one the nearest proxy appended (earlier entries are whatever the client sent).
+ * In production run behind one proxy that appends it; without a proxy the header is the
+ * client's own word, and only the per-account limit can be relied on.
+ */
+export function clientAddress(header: unknown): string {
+  const value = Array.isArray(header) ? header.join(',') : typeof header === 'string' ? header : '';
+  const last = value.split(',').map((s) => s.trim()).filter(Boolean).pop();
+  return last ? last.slice(0, 64) : 'unknown';
+}
+
+/** A session lasts a working day (12 h) from sign-in, enforced by the token itself. */
 export const SESSION_MAX_AGE_S = 12 * 60 * 60;
 
 /**
@@ -41,9 +53,7 @@ export const authOptions: NextAuthOptions = {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
-        const address = String(
-          (req?.headers?.['x-forwarded-for'] as string | undefined)?.split(',')[0] ?? 'local',
-        );
+        const address = clientAddress(req?.headers?.['x-forwarded-for']);
         await checkSignInAllowed(email, address);
         db();
         const user = await User.findOne({ where: { email } });

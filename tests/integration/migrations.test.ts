@@ -68,6 +68,7 @@ describe('migrations', () => {
       );
       await expect(client.query("update audit_events set action = 'x'")).rejects.toThrow(/append-only/);
       await expect(client.query('delete from audit_events')).rejects.toThrow(/append-only/);
+      await expect(client.query('truncate audit_events')).rejects.toThrow(/append-only/);
     } finally {
       await client.end();
     }

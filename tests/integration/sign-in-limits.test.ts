@@ -51,8 +51,9 @@ async function attempt(email: string, password: string, address: string): Promis
 }
 
 // Documentation addresses (RFC 3849), a fresh one per test so runs never share counters; the
-// limiter keys on the first address of X-Forwarded-For
-const newAddress = () => `2001:db8::${crypto.randomBytes(6).toString('hex').match(/.{4}/g)!.join(':')}, 10.0.0.7`;
+// limiter keys on the last address of X-Forwarded-For, the one the nearest proxy appended
+// (the first is whatever the client claimed)
+const newAddress = () => `10.0.0.7, 2001:db8::${crypto.randomBytes(6).toString('hex').match(/.{4}/g)!.join(':')}`;
 const PASSWORD = 'plug-and-socket-42';
 
 async function makeMember(organisationId: string) {
@@ -122,6 +123,18 @@ describe('failed sign-ins per network address', () => {
     );
     // …and signs in from anywhere else
     expect(await attempt(user.email, PASSWORD, newAddress())).toBe(user.id);
+  });
+
+  it('a client cannot dodge the limit by claiming a new address before the proxy’s entry', async () => {
+    const real = newAddress().split(', ')[1];
+    const probed = Array.from({ length: 10 }, () => `dodge-${crypto.randomUUID().slice(0, 8)}@example.test`);
+    for (let i = 0; i < FAILURES_PER_ADDRESS; i++) {
+      // Each attempt claims a different address; the proxy appends the same real one.
+      const claimed = `198.51.100.${i}, ${real}`;
+      expect(await attempt(probed[i % probed.length], 'guess-guess-1', claimed)).toBeNull();
+    }
+    const user = await makeMember(orgId);
+    expect(await attempt(user.email, PASSWORD, `203.0.113.77, ${real}`)).toMatch(/^locked: /);
   });
 
   it('a wrong password and an unknown account are refused alike (no hint which)', async () => {
