@@ -1,6 +1,7 @@
 # Shared settings for the project's scripts. Source it; every value can be overridden
 # from the environment (see README.md, "Running on more than one machine").
-ROOT=${ROOT:-$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)}
+# ROOT is always this checkout, even when another checkout's settings are in the environment.
+ROOT=$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)
 export NEXT_TELEMETRY_DISABLED=1
 export PGPORT=${PGPORT:-54329}
 export PGHOST_LOCAL=127.0.0.1
@@ -22,4 +23,4 @@ export S3_ACCESS_KEY_ID=${S3_ACCESS_KEY_ID:-S3RVER}
 export S3_SECRET_ACCESS_KEY=${S3_SECRET_ACCESS_KEY:-S3RVER}
 export AWS_REQUEST_CHECKSUM_CALCULATION=WHEN_REQUIRED
 export AWS_RESPONSE_CHECKSUM_VALIDATION=WHEN_REQUIRED
-export DATA_DIR=${DATA_DIR:-$ROOT/.data}
+export DATA_DIR=${BOARDWRIGHT_DATA_DIR:-$ROOT/.data}
