@@ -87,3 +87,17 @@ export const boardSaveSchema = z
     });
   });
 export type BoardSaveInput = z.infer<typeof boardSaveSchema>;
+
+/** Just the settings of a board row or DTO (for snapshots, sizing and saves). */
+export function settingsOf(board: BoardSettings): BoardSettings {
+  return {
+    name: board.name,
+    location: board.location,
+    phases: board.phases,
+    supply: board.supply,
+    incoming: board.incoming,
+    enclosureModules: board.enclosureModules,
+    rails: board.rails,
+    dwelling: board.dwelling,
+  };
+}

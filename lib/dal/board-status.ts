@@ -2,7 +2,7 @@ import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
 import { layoutWays } from '@/lib/boards/layout';
-import type { WayInput } from '@/lib/boards/schemas';
+import { settingsOf, type WayInput } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
@@ -70,16 +70,7 @@ export async function submitBoard(
     const ways = waysOf(rows);
 
     // Size the stored board exactly as the sizing route does
-    const settings = {
-      name: board.name,
-      location: board.location,
-      phases: board.phases,
-      supply: board.supply,
-      incoming: board.incoming,
-      enclosureModules: board.enclosureModules,
-      rails: board.rails,
-      dwelling: board.dwelling,
-    };
+    const settings = settingsOf(board);
     const parsed = boardInputSchema.safeParse(boardSizingInput(settings, ways));
     if (!parsed.success) {
       throw unprocessable('The stored board is not complete enough to size; open it in the editor and save it again.', {

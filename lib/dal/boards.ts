@@ -3,26 +3,13 @@ import 'server-only';
 import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import type { BoardCreateInput, BoardSaveInput, BoardSettings, WayInput } from '@/lib/boards/schemas';
+import { settingsOf, type BoardCreateInput, type BoardSaveInput, type WayInput } from '@/lib/boards/schemas';
 import type { BoardDto, BoardSummary, WayDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { audit, auditMany } from '@/lib/dal/audit';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, notFound } from '@/lib/errors';
 import { Board, Site, Way } from '@/models';
-
-function settingsOf(board: Board): BoardSettings {
-  return {
-    name: board.name,
-    location: board.location,
-    phases: board.phases,
-    supply: board.supply,
-    incoming: board.incoming,
-    enclosureModules: board.enclosureModules,
-    rails: board.rails,
-    dwelling: board.dwelling,
-  };
-}
 
 function wayDto(way: Way): WayDto {
   return {

@@ -12,7 +12,7 @@ import {
   type RevisionDiff,
   type SnapshotWay,
 } from '@/lib/boards/revision-diff';
-import type { BoardSettings } from '@/lib/boards/schemas';
+import { settingsOf, type BoardSettings } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
@@ -66,20 +66,6 @@ const STATUS_WORDS: Record<BoardStatus, string> = {
   issued: 'issued',
   verified: 'verified',
 };
-
-/** The settings part of a board row or DTO. */
-function settingsOf(board: BoardSettings): BoardSettings {
-  return {
-    name: board.name,
-    location: board.location,
-    phases: board.phases,
-    supply: board.supply,
-    incoming: board.incoming,
-    enclosureModules: board.enclosureModules,
-    rails: board.rails,
-    dwelling: board.dwelling,
-  };
-}
 
 function snapshotWay(way: SnapshotWay): SnapshotWay {
   return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
