@@ -9,6 +9,7 @@ import { Field, Input, Select } from '@/components/ui/field';
 import { cableRows, circuitSpecSchema, methodsFor, type CircuitSpec } from '@/lib/sizing';
 
 import { ARRANGEMENT_WORDS, CABLE_OPTIONS, METHOD_WORDS, USE_WORDS } from '../utils/circuit-options';
+import { forgetUnfinishedInput, useKeepUnfinishedInput, useUnfinishedInput } from '../hooks/use-unfinished-input';
 import { editorErrorMap } from '../utils/error-map';
 
 type CircuitFormInput = z.input<typeof circuitSpecSchema>;
@@ -33,10 +34,12 @@ const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefi
  * once; an invalid field shows its error and the draft keeps the last valid circuit.
  */
 export function CircuitForm({ wayId, circuit, boardPhases, readOnly, onValid }: CircuitFormProps) {
+  const keepKey = `circuit:${wayId}`;
+  const restored = useUnfinishedInput<CircuitFormInput>(keepKey, circuit);
   const form = useForm<CircuitFormInput, unknown, CircuitSpec>({
     resolver: zodResolver(circuitSpecSchema, { error: editorErrorMap }),
     mode: 'onChange',
-    defaultValues: circuit,
+    defaultValues: restored ?? circuit,
   });
   const { register, setValue, control, formState, reset } = form;
   const errors = formState.errors;
@@ -46,11 +49,15 @@ export function CircuitForm({ wayId, circuit, boardPhases, readOnly, onValid }: 
   useEffect(() => {
     if (!same(circuit, lastWritten.current)) {
       lastWritten.current = circuit;
+      forgetUnfinishedInput(keepKey);
       reset(circuit);
     }
   }, [circuit, reset]);
 
   // Every valid state of the fields goes into the draft
+  // Input that is not valid yet survives selecting another way and coming back
+  useKeepUnfinishedInput(keepKey, form, circuitSpecSchema, circuit, !!restored);
+
   const onValidRef = useRef(onValid);
   onValidRef.current = onValid;
   useEffect(() => {

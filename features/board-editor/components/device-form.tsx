@@ -10,6 +10,7 @@ import { deviceOnRailSchema, isProtectiveDevice, STANDARD_RATINGS_A, type Device
 
 import { BREAKING_KA } from '../utils/circuit-options';
 import { trayEntry, type TrayKind } from '../utils/device-catalogue';
+import { forgetUnfinishedInput, useKeepUnfinishedInput, useUnfinishedInput } from '../hooks/use-unfinished-input';
 import { editorErrorMap } from '../utils/error-map';
 
 type DeviceFormInput = z.input<typeof deviceOnRailSchema>;
@@ -31,10 +32,12 @@ const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefi
  * width stay as dropped: a different device is a new one from the tray.
  */
 export function DeviceForm({ wayId, device, readOnly, onValid }: DeviceFormProps) {
+  const keepKey = `device:${wayId}`;
+  const restored = useUnfinishedInput<DeviceFormInput>(keepKey, device);
   const form = useForm<DeviceFormInput, unknown, DeviceOnRail>({
     resolver: zodResolver(deviceOnRailSchema, { error: editorErrorMap }),
     mode: 'onChange',
-    defaultValues: device,
+    defaultValues: restored ?? device,
   });
   const { register, formState, reset } = form;
   const errors = formState.errors;
@@ -43,9 +46,13 @@ export function DeviceForm({ wayId, device, readOnly, onValid }: DeviceFormProps
   useEffect(() => {
     if (!same(device, lastWritten.current)) {
       lastWritten.current = device;
+      forgetUnfinishedInput(keepKey);
       reset(device);
     }
   }, [device, reset]);
+
+  // Input that is not valid yet survives selecting another way and coming back
+  useKeepUnfinishedInput(keepKey, form, deviceOnRailSchema, device, !!restored);
 
   const onValidRef = useRef(onValid);
   onValidRef.current = onValid;

@@ -62,6 +62,26 @@ describe('the way panel', () => {
     expect(store().past).toHaveLength(0);
   });
 
+  it('input that is not valid yet is still there after selecting another way and coming back', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    const length = screen.getByLabelText('Length (m)');
+    await user.clear(length);
+    await user.type(length, '-3');
+    expect(await screen.findByText('Use more than 0.')).toBeTruthy();
+
+    // Another way, then back: the typed value and its error are shown again
+    openWay('Smoke and heat alarms');
+    expect((screen.getByLabelText('Length (m)') as HTMLInputElement).value).toBe('24');
+    act(() => store().select(way.id));
+    expect((screen.getByLabelText('Length (m)') as HTMLInputElement).value).toBe('-3');
+    expect(await screen.findByText('Use more than 0.')).toBeTruthy();
+    // The draft still holds the last valid length
+    expect(circuitOf(way.id).lengthM).toBe(9);
+  });
+
   it('a valid change goes into the draft as one undo step', async () => {
     const user = userEvent.setup();
     store().load(demoBoard('flat'));
