@@ -13,6 +13,8 @@ import { clearStoredDraft } from './use-draft-persistence';
 
 /** Quiet time after the last change before the draft saves itself, ms. */
 export const AUTOSAVE_MS = 3000;
+/** First wait before a failed save is tried again; it doubles each time, up to a minute. */
+export const RETRY_FIRST_MS = 5000;
 
 /** The editor's view of a board from the API. */
 export function editorBoard(board: BoardDto): EditorBoard {
@@ -31,7 +33,7 @@ export function editorBoard(board: BoardDto): EditorBoard {
  * A save names the version the draft builds on; when someone else saved first the save store
  * goes to `conflict` and waits for the designer: `reloadTheirs()` drops this draft for the
  * stored board, `keepMine()` saves this draft on top of theirs. A failed save keeps the draft
- * (in memory and session storage) and says so. Only one save runs at a time; a save asked
+ * (in memory and session storage), says so and is tried again on its own. Only one save runs at a time; a save asked
  * for meanwhile waits for it, then saves whatever is newer.
  */
 export function useBoardSave(boardId: string, enabled: boolean) {
@@ -84,6 +86,25 @@ export function useBoardSave(boardId: string, enabled: boolean) {
       if (state.revision === previous.revision || !state.dirty) return;
       if (timer) clearTimeout(timer);
       timer = setTimeout(() => void save(), AUTOSAVE_MS);
+    });
+    return () => {
+      unsubscribe();
+      if (timer) clearTimeout(timer);
+    };
+  }, [enabled, save]);
+
+  // A failed save (server or network away) is tried again on its own, waiting longer each time
+  useEffect(() => {
+    if (!enabled) return;
+    let attempt = 0;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const unsubscribe = useSaveStore.subscribe((state, previous) => {
+      if (state.phase === previous.phase) return;
+      if (state.phase === 'saved') attempt = 0;
+      if (state.phase !== 'failed') return;
+      if (timer) clearTimeout(timer);
+      timer = setTimeout(() => void save(), Math.min(RETRY_FIRST_MS * 2 ** attempt, 60_000));
+      attempt += 1;
     });
     return () => {
       unsubscribe();

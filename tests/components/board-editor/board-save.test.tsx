@@ -103,6 +103,35 @@ describe('saving the draft', () => {
     expect(readStoredDraft(board.id)?.ways.find((w) => w.id === id)?.circuit?.lengthM).toBe(57);
   });
 
+  it('a failed save is tried again on its own, later each time, until it goes through', async () => {
+    vi.useFakeTimers();
+    try {
+      const fetch = mockFetch(
+        json({ error: 'The database is not reachable just now.' }, 503),
+        json({ error: 'The database is not reachable just now.' }, 503),
+        json(dto(board, 4)),
+      );
+      edit(61);
+      // The autosave, 3 s after the edit, fails
+      await act(async () => void (await vi.advanceTimersByTimeAsync(3_100)));
+      expect(fetch).toHaveBeenCalledTimes(1);
+      expect(useSaveStore.getState().phase).toBe('failed');
+      // It failed at 3.0 s: the first retry comes 5 s later (8.0 s), the second 10 s after that
+      await act(async () => void (await vi.advanceTimersByTimeAsync(4_800)));
+      expect(fetch).toHaveBeenCalledTimes(1);
+      await act(async () => void (await vi.advanceTimersByTimeAsync(200)));
+      expect(fetch).toHaveBeenCalledTimes(2);
+      await act(async () => void (await vi.advanceTimersByTimeAsync(9_800)));
+      expect(fetch).toHaveBeenCalledTimes(2);
+      await act(async () => void (await vi.advanceTimersByTimeAsync(300)));
+      expect(fetch).toHaveBeenCalledTimes(3);
+      expect(useSaveStore.getState().phase).toBe('saved');
+      expect(store().dirty).toBe(false);
+    } finally {
+      vi.useRealTimers();
+    }
+  });
+
   it('a board in review is not saved and says why', async () => {
     mockFetch(json({ error: 'The board is in review; it can be changed once the inspector returns it.' }, 409));
     edit(20);
