@@ -197,15 +197,11 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
       },
       { transaction },
     );
-    // Ways are replaced in place: removed ones go, the rest are written with their new places.
-    // Places are unique per board, so existing rows move out of the way first.
+    // Ways are replaced in place: removed ones go, the rest are written with their new places
+    // (places are unique per board, checked at commit, so the order of writing does not matter).
     if (diff.removed.length) {
       await Way.destroy({ where: { boardId, id: { [Op.in]: diff.removed } }, transaction });
     }
-    await Way.update(
-      { position: sequelize.literal('-1 - position') },
-      { where: { boardId }, transaction },
-    );
     // One upsert writes every way; a moved or changed way needs its label checked again.
     const previous = new Map(stored.map((w) => [w.id, w]));
     const touched = new Set([...diff.changed, ...diff.moved]);

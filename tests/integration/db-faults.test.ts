@@ -157,7 +157,7 @@ describe('PostgreSQL stopped mid-run', () => {
     changed.circuit = { ...changed.circuit!, lengthM: 77 };
 
     // Hold a lock on one of the kept ways, so the save stops after writing the board row and
-    // deleting the removed way, while it waits to renumber the ways
+    // deleting the removed way, while it waits to write the ways
     const holder = new pg.Client({ connectionString: FAULT.url });
     holder.on('error', () => undefined);
     await holder.connect();
@@ -174,7 +174,8 @@ describe('PostgreSQL stopped mid-run', () => {
     for (let i = 0; i < 100 && !blocked; i++) {
       const { rows } = await watcher.query(
         `select count(*)::int as n from pg_stat_activity
-          where wait_event_type = 'Lock' and query ilike 'UPDATE "ways"%' and datname = $1`,
+          where wait_event_type = 'Lock' and datname = $1
+            and (query ilike 'UPDATE "ways"%' or query ilike 'INSERT INTO "ways"%')`,
         [FAULT.db],
       );
       blocked = rows[0].n > 0;
