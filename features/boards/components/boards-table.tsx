@@ -9,11 +9,11 @@ import {
   type ColumnFiltersState,
   type SortingState,
 } from '@tanstack/react-table';
-import { Pencil, Trash2 } from 'lucide-react';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 
 import { Button } from '@/components/ui/button';
+import { RowActions } from '@/components/ui/row-actions';
 import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
 import { Select } from '@/components/ui/field';
 import { StatusBadge } from '@/components/ui/status-badge';
@@ -160,27 +160,12 @@ export function BoardsTable({
         enableSorting: false,
         meta: { align: 'right' },
         cell: ({ row }) => (
-          <div className="flex justify-end gap-1">
-            <Button
-              variant="quiet"
-              size="sm"
-              onClick={() => onRename(row.original)}
-              aria-label={`Rename ${row.original.name}`}
-            >
-              <Pencil aria-hidden className="h-4 w-4" />
-              Rename
-            </Button>
-            <Button
-              variant="quiet"
-              size="sm"
-              onClick={() => onDelete(row.original)}
-              aria-label={`Delete ${row.original.name}`}
-              className="hover:text-verdict-fail"
-            >
-              <Trash2 aria-hidden className="h-4 w-4" />
-              Delete
-            </Button>
-          </div>
+          <RowActions
+            name={row.original.name}
+            editLabel="Rename"
+            onEdit={() => onRename(row.original)}
+            onDelete={() => onDelete(row.original)}
+          />
         ),
       });
     }

@@ -8,11 +8,10 @@ import {
   type ColumnDef,
   type SortingState,
 } from '@tanstack/react-table';
-import { Pencil, Trash2 } from 'lucide-react';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 
-import { Button } from '@/components/ui/button';
+import { RowActions } from '@/components/ui/row-actions';
 import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
 import { When } from '@/components/ui/when';
 import type { SiteSummary } from '@/lib/dal/sites';
@@ -97,27 +96,12 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: Site
         enableSorting: false,
         meta: { align: 'right' },
         cell: ({ row }) => (
-          <div className="flex justify-end gap-1">
-            <Button
-              variant="quiet"
-              size="sm"
-              onClick={() => onRename(row.original)}
-              aria-label={`Edit ${row.original.name}`}
-            >
-              <Pencil aria-hidden className="h-4 w-4" />
-              Edit
-            </Button>
-            <Button
-              variant="quiet"
-              size="sm"
-              onClick={() => onDelete(row.original)}
-              aria-label={`Delete ${row.original.name}`}
-              className="hover:text-verdict-fail"
-            >
-              <Trash2 aria-hidden className="h-4 w-4" />
-              Delete
-            </Button>
-          </div>
+          <RowActions
+            name={row.original.name}
+            editLabel="Edit"
+            onEdit={() => onRename(row.original)}
+            onDelete={() => onDelete(row.original)}
+          />
         ),
       },
     ];
