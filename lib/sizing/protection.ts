@@ -74,18 +74,40 @@ export function maxZs(device: DeviceFacts, timeS: number, uoV: number): number |
 const FUSE_MIN_TIME_S = 0.01;
 
 /**
- * Fuse operating time, s, at fault current I: a straight line on log-log axes through the
- * 5 s and 0.4 s points derived from Tables 41.4 and 41.2 (an approximation of the
- * time-current curve — common practice when no manufacturer's curve is to hand). Null
- * below the 5 s current (too slow to model). Where only the 5 s point exists, 5 s.
+ * Slope of a gG fuse's time-current curve on log-log axes (t ∝ I^-n) where the tables give
+ * no 0.4 s point to fix it: n = 4 is typical of gG fuses between 0.1 s and 5 s (assumption,
+ * from memory of manufacturers' curves; check against the fuse's own data).
+ */
+export const FUSE_ASSUMED_SLOPE = 4;
+
+/**
+ * The straight line on log-log axes that models a fuse's time-current curve: through the 5 s
+ * point of Table 41.4 and the 0.4 s point of Table 41.2 when both exist, otherwise from the
+ * 5 s point with the assumed slope. Null when not even the 5 s point is tabulated.
+ */
+function fuseCurve(kind: FuseKind, inA: number): { i5: number; n: number } | null {
+  const i5 = fuseOperatingCurrent(kind, inA, '5');
+  if (i5 === null) return null;
+  const i04 = fuseOperatingCurrent(kind, inA, '0.4');
+  const n = i04 !== null && i04 > i5 ? Math.log(5 / 0.4) / Math.log(i04 / i5) : FUSE_ASSUMED_SLOPE;
+  return { i5, n };
+}
+
+/**
+ * Fuse operating time, s, at fault current I, on the modelled curve (an approximation of the
+ * time-current curve — common practice when no manufacturer's curve is to hand), never
+ * below 10 ms. Null below the 5 s current (too slow to model).
  */
 export function fuseOperatingTime(kind: FuseKind, inA: number, faultA: number): number | null {
-  const i5 = fuseOperatingCurrent(kind, inA, '5');
-  const i04 = fuseOperatingCurrent(kind, inA, '0.4');
-  if (i5 === null || faultA < i5) return null;
-  if (i04 === null) return 5;
-  const n = Math.log(5 / 0.4) / Math.log(i04 / i5);
-  return Math.max(FUSE_MIN_TIME_S, 0.4 * Math.pow(i04 / faultA, n));
+  const curve = fuseCurve(kind, inA);
+  if (curve === null || faultA < curve.i5) return null;
+  return Math.max(FUSE_MIN_TIME_S, 5 * Math.pow(curve.i5 / faultA, curve.n));
+}
+
+/** The current at which the modelled fuse curve reaches 10 ms; above it the fuse limits the energy. */
+function fuseCurrentAt10ms(kind: FuseKind, inA: number): number | null {
+  const curve = fuseCurve(kind, inA);
+  return curve === null ? null : curve.i5 * Math.pow(5 / FUSE_MIN_TIME_S, 1 / curve.n);
 }
 
 /** Energy let through, A²s, and how it was found. */
@@ -158,16 +180,11 @@ export function faultEnergy(args: {
     const t = fuseOperatingTime(kind, device.inA, farEndFaultA);
     if (t !== null) {
       let i2t = farEndFaultA * farEndFaultA * t;
-      const i04 = fuseOperatingCurrent(kind, device.inA, '0.4');
-      const i5 = fuseOperatingCurrent(kind, device.inA, '5');
       // Above the 10 ms current a current-limiting fuse lets through about its 10 ms energy.
-      if (t === FUSE_MIN_TIME_S && i04 !== null && i5 !== null) {
-        const n = Math.log(5 / 0.4) / Math.log(i04 / i5);
-        const iAt10ms = i04 * Math.pow(0.4 / FUSE_MIN_TIME_S, 1 / n);
-        i2t = iAt10ms * iAt10ms * FUSE_MIN_TIME_S;
-      }
+      const iAt10ms = fuseCurrentAt10ms(kind, device.inA);
+      if (t === FUSE_MIN_TIME_S && iAt10ms !== null) i2t = iAt10ms * iAt10ms * FUSE_MIN_TIME_S;
       return {
-        energy: { i2t, timeS: t, basis: 'fuse time from Tables 41.2/41.4 (log-log interpolation)' },
+        energy: { i2t, timeS: t, basis: 'fuse time from Tables 41.2/41.4 (log-log line; slope assumed where 41.2 has no value)' },
         faultA: farEndFaultA,
       };
     }

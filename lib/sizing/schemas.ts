@@ -40,7 +40,8 @@ const knownLoadSchema = z
   .object({
     kind: z.literal('known'),
     watts: z.number().min(0).max(2e6),
-    powerFactor: z.number().gt(0).max(1).default(1),
+    // Real loads run from about 0.3 upwards; below 0.05 the design current is not meaningful.
+    powerFactor: z.number().min(0.05, 'must be at least 0.05').max(1).default(1),
   })
   .strict();
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
-import { boardInputSchema, circuitInputSchema, circuitSpecSchema } from '@/lib/sizing';
+import { boardInputSchema, circuitInputSchema, circuitSpecSchema, sizeBoard } from '@/lib/sizing';
 
 import { FLAT_SUPPLY } from './helpers';
 
@@ -88,5 +88,45 @@ describe('board input schema', () => {
     expect(r.success).toBe(false);
     const paths = r.success ? [] : r.error.issues.map((i) => i.path.join('.'));
     expect(paths).toEqual(expect.arrayContaining(['ways.0.circuit', 'ways.1.id', 'ways.1.device.rcdMa']));
+  });
+});
+
+describe('power factor (a counterexample fast-check found)', () => {
+  const supply = { earthing: 'TN-S', uoV: 50, zeOhm: 0, pfcKa: 0, source: 'public' };
+  const circuit = (powerFactor: number) => ({
+    phases: 1,
+    use: 'lighting',
+    load: { kind: 'known', watts: 1, powerFactor },
+    lengthM: 5,
+    cable: 'te-70',
+    method: 'A',
+    ambientC: 30,
+    csaMm2: null,
+  });
+  const board = (powerFactor: number) => ({
+    supply,
+    phases: 1,
+    enclosureModules: 4,
+    incoming: { kind: 'main-switch', ratingA: 100 },
+    ways: [
+      {
+        id: 'w',
+        device: { kind: 'rcbo', poles: 1, modules: 1, curve: 'B', rcdMa: 30, ratingA: null },
+        circuit: circuit(powerFactor),
+      },
+    ],
+  });
+
+  it('a power factor next to zero is refused: its design current would be infinite', () => {
+    const parsed = boardInputSchema.safeParse(board(5e-324));
+    expect(parsed.success).toBe(false);
+    expect(parsed.error!.issues[0].path.join('.')).toBe('ways.0.circuit.load.powerFactor');
+  });
+
+  it('the smallest accepted power factor still gives a finite demand', () => {
+    const out = sizeBoard(boardInputSchema.parse(board(0.05)));
+    // Ib = 1 W / (50 V × 0.05) = 0.4 A
+    expect(out.ways[0].result!.ibA).toBeCloseTo(0.4, 9);
+    expect(Number.isFinite(out.summary.maxDemandA)).toBe(true);
   });
 });
