@@ -167,7 +167,12 @@ const wideCircuit = fc.record({
   phases: fc.constantFrom(1, 3, 2),
   use: fc.constantFrom(...CIRCUIT_USES),
   load: fc.oneof(
-    fc.record({ kind: fc.constant('known'), watts: anyNumber(-10, 2e6), powerFactor: anyNumber(0, 1) }),
+    fc.record({
+      kind: fc.constant('known'),
+      watts: anyNumber(-10, 2e6),
+      // Both sides of the schema's 0.05 floor, and plenty of ordinary values
+      powerFactor: fc.oneof(anyNumber(0, 1), fc.double({ min: 0.05, max: 1, noNaN: true })),
+    }),
     fc.record({
       kind: fc.constant('socket-arrangement'),
       arrangement: fc.constantFrom('ring-32', 'radial-32', 'radial-20'),
