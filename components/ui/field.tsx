@@ -47,3 +47,33 @@ export const Select = forwardRef<HTMLSelectElement, React.SelectHTMLAttributes<H
     return <select ref={ref} className={cn(inputClass, 'pr-8', className)} {...props} />;
   },
 );
+
+type TextFieldProps = React.InputHTMLAttributes<HTMLInputElement> & {
+  label: string;
+  error?: string;
+  hint?: string;
+};
+
+/**
+ * A labelled text input with its error or hint: the pairing every form repeats. Spread
+ * react-hook-form's `register(...)` into it; the ref reaches the input.
+ */
+export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function TextField(
+  { label, error, hint, className, autoComplete = 'off', ...input },
+  ref,
+) {
+  return (
+    <Field label={label} error={error} hint={hint} className={className}>
+      {(id, describedBy) => (
+        <Input
+          ref={ref}
+          id={id}
+          aria-describedby={describedBy}
+          aria-invalid={error ? true : undefined}
+          autoComplete={autoComplete}
+          {...input}
+        />
+      )}
+    </Field>
+  );
+});

@@ -8,7 +8,7 @@ import type { z } from 'zod';
 
 import { Button } from '@/components/ui/button';
 import { Dialog, DialogActions } from '@/components/ui/dialog';
-import { Field, Input } from '@/components/ui/field';
+import { TextField } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import { boardRenameSchema } from '@/lib/boards/schemas';
 import type { BoardSummary } from '@/lib/boards/types';
@@ -63,28 +63,8 @@ function RenameForm({ board, onClose }: { board: BoardSummary; onClose: () => vo
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-      <Field label="Board name" error={errors.name?.message}>
-        {(id, d) => (
-          <Input
-            id={id}
-            aria-describedby={d}
-            aria-invalid={errors.name ? true : undefined}
-            autoComplete="off"
-            {...register('name')}
-          />
-        )}
-      </Field>
-      <Field label="Location" hint="Optional" error={errors.location?.message}>
-        {(id, d) => (
-          <Input
-            id={id}
-            aria-describedby={d}
-            aria-invalid={errors.location ? true : undefined}
-            autoComplete="off"
-            {...register('location')}
-          />
-        )}
-      </Field>
+      <TextField label="Board name" error={errors.name?.message} {...register('name')} />
+      <TextField label="Location" hint="Optional" error={errors.location?.message} {...register('location')} />
       {formError ? <FormAlert>{formError}</FormAlert> : null}
       <DialogActions>
         <Button variant="secondary" onClick={onClose} disabled={isSubmitting}>

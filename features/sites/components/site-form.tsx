@@ -8,7 +8,7 @@ import type { z } from 'zod';
 
 import { Button } from '@/components/ui/button';
 import { Dialog, DialogActions } from '@/components/ui/dialog';
-import { Field, Input } from '@/components/ui/field';
+import { TextField } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import type { SiteSummary } from '@/lib/dal/sites';
 import { applyServerIssues } from '@/lib/forms/server-issues';
@@ -87,39 +87,9 @@ function SiteForm({
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-      <Field label="Site name" error={errors.name?.message}>
-        {(id, describedBy) => (
-          <Input
-            id={id}
-            aria-describedby={describedBy}
-            aria-invalid={errors.name ? true : undefined}
-            autoComplete="off"
-            {...register('name')}
-          />
-        )}
-      </Field>
-      <Field label="Client" hint="Optional" error={errors.client?.message}>
-        {(id, describedBy) => (
-          <Input
-            id={id}
-            aria-describedby={describedBy}
-            aria-invalid={errors.client ? true : undefined}
-            autoComplete="off"
-            {...register('client')}
-          />
-        )}
-      </Field>
-      <Field label="Address" hint="Optional" error={errors.address?.message}>
-        {(id, describedBy) => (
-          <Input
-            id={id}
-            aria-describedby={describedBy}
-            aria-invalid={errors.address ? true : undefined}
-            autoComplete="off"
-            {...register('address')}
-          />
-        )}
-      </Field>
+      <TextField label="Site name" error={errors.name?.message} {...register('name')} />
+      <TextField label="Client" hint="Optional" error={errors.client?.message} {...register('client')} />
+      <TextField label="Address" hint="Optional" error={errors.address?.message} {...register('address')} />
       {formError ? <FormAlert>{formError}</FormAlert> : null}
       <DialogActions>
         <Button variant="secondary" onClick={onClose} disabled={isSubmitting}>
