@@ -5,6 +5,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import type { BoardDto } from '@/lib/boards/types';
+import { boardDto } from '@/lib/dal/boards';
 import { AuditEvent, Board, Way } from '@/models';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -141,5 +142,75 @@ describe('saving a board from the editor', () => {
       const res = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened)), ctx({ boardId: board.id }));
       expect(res.status).toBe(403);
     }
+  });
+});
+
+describe('what a save writes and answers', () => {
+  it('the read is the board as its rows hold it, and a save answers what a reload shows', async () => {
+    signInAs(team.users.designer);
+    const { board, site } = await makeBoard(team.org.id, 'workshop');
+    // The one-query read against the model rows it replaces
+    const rows = await Way.findAll({ where: { boardId: board.id } });
+    const row = (await Board.findByPk(board.id))!;
+    expect(await load(board.id)).toEqual(boardDto(row, site.name, rows));
+
+    const opened = await load(board.id);
+    const ways = opened.ways.map((w) => ({ ...w }));
+    ways[3].circuit = ways[3].circuit ? { ...ways[3].circuit, lengthM: 33 } : ways[3].circuit;
+    const res = await boardRoute.PUT(
+      jsonRequest('PUT', { ...saveBody(opened, ways), settings: { ...saveBody(opened).settings, name: 'Renamed' } }),
+      ctx({ boardId: board.id }),
+    );
+    expect(res.status).toBe(200);
+    const answered = (await res.json()).board as BoardDto;
+    expect(answered).toEqual(await load(board.id));
+    expect(answered.name).toBe('Renamed');
+  });
+
+  it('a way left as it was keeps its label check; a moved or changed way must be checked again', async () => {
+    signInAs(team.users.designer);
+    const { board } = await makeBoard(team.org.id, 'flat');
+    await Way.update({ labelStatus: 'matches', labelNote: 'checked on site' }, { where: { boardId: board.id } });
+    const opened = await load(board.id);
+    const ways = opened.ways.map((w) => ({ ...w }));
+    const [kept, changed, moved] = ways.filter((w) => w.circuit);
+    changed.circuit = { ...changed.circuit!, lengthM: changed.circuit!.lengthM + 5 };
+    moved.position = 90;
+    // Key order of a device must not count as a change (jsonb keeps its own order)
+    kept.device = Object.fromEntries(Object.entries(kept.device).reverse()) as typeof kept.device;
+    const res = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened, ways)), ctx({ boardId: board.id }));
+    expect(res.status).toBe(200);
+    const after = await load(board.id);
+    const label = (id: string) => after.ways.find((w) => w.id === id)!;
+    expect(label(kept.id)).toMatchObject({ labelStatus: 'matches', labelNote: 'checked on site' });
+    expect(label(changed.id)).toMatchObject({ labelStatus: 'unchecked', labelNote: '' });
+    expect(label(moved.id)).toMatchObject({ labelStatus: 'unchecked', labelNote: '' });
+    // The audit trail names exactly the changed and the moved way
+    const events = await AuditEvent.findAll({ where: { boardId: board.id, action: ['way.changed', 'way.moved'] } });
+    expect(events.map((e) => `${e.action} ${(e.details as { wayId: string }).wayId}`).sort()).toEqual(
+      [`way.changed ${changed.id}`, `way.moved ${moved.id}`].sort(),
+    );
+  });
+
+  it("a new way that reuses another board's way id is refused, and neither board changes", async () => {
+    signInAs(team.users.designer);
+    const { board: mine } = await makeBoard(team.org.id, 'flat');
+    const other = await makeOrganisation('Other');
+    const { board: theirs } = await makeBoard(other.org.id, 'flat');
+    const theirWay = (await Way.findOne({ where: { boardId: theirs.id } }))!;
+    const theirsBefore = await Way.findByPk(theirWay.id, { raw: true });
+    const opened = await load(mine.id);
+    const stolen = { ...opened.ways[1], id: theirWay.id, position: 77 };
+    const res = await boardRoute.PUT(
+      jsonRequest('PUT', saveBody(opened, [...opened.ways, stolen])),
+      ctx({ boardId: mine.id }),
+    );
+    expect(res.status).toBe(409);
+    expect((await res.json()).error).toMatch(/reuses the id/);
+    expect(await Way.findByPk(theirWay.id, { raw: true })).toEqual(theirsBefore);
+    const after = await load(mine.id);
+    expect(after.version).toBe(opened.version);
+    expect(after.ways).toEqual(opened.ways);
+    expect(await AuditEvent.count({ where: { boardId: mine.id, action: 'board.saved' } })).toBe(0);
   });
 });
