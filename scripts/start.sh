@@ -26,7 +26,7 @@ if [ "${SKIP_BUILD:-0}" != 1 ] || [ ! -f .next/BUILD_ID ]; then
 fi
 
 echo
-echo "Boardwright is starting on $APP_URL (Ctrl-C stops it and the services)."
-setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT" &
+echo "Boardwright is starting on $APP_URL, one worker per core (Ctrl-C stops it and the services)."
+setsid node scripts/serve.mjs -H 127.0.0.1 -p "$APP_PORT" &
 APP_PID=$!
 wait "$APP_PID"

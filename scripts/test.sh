@@ -57,8 +57,9 @@ echo "== build"
 if node_modules/.bin/next build > "$RESULTS/build.log" 2>&1; then
   node scripts/first-load-js.mjs || true
   echo "== browser tests (chromium against the built app on $APP_URL)"
-  setsid node node_modules/next/dist/bin/next start -H 127.0.0.1 -p "$APP_PORT" > "$RESULTS/server.log" 2>&1 &
+  setsid node scripts/serve.mjs -H 127.0.0.1 -p "$APP_PORT" > "$RESULTS/server.log" 2>&1 &
   APP_PID=$!
+  export APP_PID
   for _ in $(seq 1 100); do
     curl -fsS -o /dev/null "$APP_URL/login" && break
     sleep 0.2

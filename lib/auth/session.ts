@@ -1,5 +1,7 @@
 import 'server-only';
 
+import cluster from 'node:cluster';
+
 import { ACTION_WORDS, can, type Action } from '@/lib/auth/permissions';
 import { sessionUserId } from '@/lib/auth/session-cookie';
 import { db } from '@/lib/db';
@@ -17,20 +19,37 @@ export type Actor = {
 };
 
 /**
- * Members read in the last few seconds, by id. A role change or a deactivation reaches
- * every instance within ACTOR_CACHE_MS (default 5 s), and at once on the instance that made
- * it; meanwhile a burst of API calls costs one lookup instead of one each.
+ * Members read in the last few seconds, by id. A role change or a deactivation reaches the
+ * other workers of this server at once (scripts/serve.mjs relays the message) and other
+ * servers within ACTOR_CACHE_MS (default 5 s); meanwhile a burst of API calls costs one
+ * lookup instead of one each. The map lives on globalThis: route handlers and pages are
+ * bundled apart, and a change made from one must clear the other's entry too.
  */
-const recent = new Map<string, { actor: Actor | null; until: number }>();
+type Recent = Map<string, { actor: Actor | null; until: number }>;
+const holder = globalThis as unknown as { boardwrightRecentActors?: Recent };
+const recent: Recent = (holder.boardwrightRecentActors ??= listenForForgets(new Map()));
+
+const FORGET = 'boardwright:broadcast';
+
+/** Clears entries that another worker of this server asks to forget. */
+function listenForForgets(map: Recent): Recent {
+  if (cluster.isWorker) {
+    process.on('message', (message: { type?: string; forgetActor?: unknown }) => {
+      if (message?.type === FORGET && typeof message.forgetActor === 'string') map.delete(message.forgetActor);
+    });
+  }
+  return map;
+}
 
 function cacheMs(): number {
   const ms = Number(process.env.ACTOR_CACHE_MS ?? 5_000);
   return Number.isFinite(ms) && ms >= 0 ? ms : 5_000;
 }
 
-/** Forgets a member's cached record (after a role change or deactivation). */
+/** Forgets a member's cached record (after a role change or deactivation), in every worker. */
 export function forgetActor(userId: string): void {
   recent.delete(userId);
+  if (cluster.isWorker) process.send?.({ type: FORGET, forgetActor: userId });
 }
 
 /**

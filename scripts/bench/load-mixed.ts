@@ -24,6 +24,9 @@ import { load, quantile } from './load';
 const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3300';
 const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const duration = Number(process.env.BENCH_SECONDS ?? 30);
+const warmup = Number(process.env.BENCH_WARMUP_SECONDS ?? 10);
+// scripts/serve.mjs runs this many server workers
+const workers = Number(process.env.WEB_CONCURRENCY) || os.availableParallelism();
 const BENCH_ORG = 'Load bench (not a customer)';
 const BENCH_EMAIL = 'load-bench-designer@bench.example.test';
 
@@ -43,7 +46,9 @@ async function setup(): Promise<{ password: string; boardIds: string[]; ways: nu
   // Last run's boards go (their ways with them); each connection gets a new workshop board
   await Board.destroy({ where: { organisationId: org.id } });
   const boardIds: string[] = [];
-  for (let i = 0; i < connections; i++) {
+  // Boards for the warm-up apart: a save still in flight when it ends must not move a board
+  // that the measured run has just read
+  for (let i = 0; i < connections * (warmup > 0 ? 2 : 1); i++) {
     const board = await Board.create({
       ...WORKSHOP_BOARD.settings,
       name: `Bench board ${String(i + 1).padStart(2, '0')}`,
@@ -136,29 +141,46 @@ async function main() {
       await new Promise((r) => setTimeout(r, 2_000));
     }
   }
-  const loadBefore = os.loadavg()[0];
   let next = 0;
-  const result = await load({
-    url: baseUrl,
-    connections,
-    duration,
-    headers: { cookie, 'content-type': 'application/json' },
-    // Placeholder; every client gets its own cycle on its own board in setupClient
-    requests: [{ method: 'GET', path: '/api/me' }],
-    setupClient: (client) => {
-      client.setRequests(cycleFor(boardIds[next++ % boardIds.length]));
-    },
-  });
+  const run = (seconds: number, boards: string[]) =>
+    load({
+      url: baseUrl,
+      connections,
+      duration: seconds,
+      headers: { cookie, 'content-type': 'application/json' },
+      // Placeholder; every client gets its own cycle on its own board in setupClient
+      requests: [{ method: 'GET', path: '/api/me' }],
+      setupClient: (client) => {
+        client.setRequests(cycleFor(boards[next++ % boards.length]));
+      },
+    });
+  // Warm-up at the same load, not counted: a fresh server loads each route's code and
+  // compiles its hot paths in the first seconds (p99 near 1 s in the first 3 s, measured)
+  let warm = { requests: 0, errors: 0 };
+  if (warmup > 0) {
+    const w = await run(warmup, boardIds.slice(connections));
+    warm = { requests: w.requests, errors: w.errors + w.non2xx };
+    for (const kind of Object.values(stats)) {
+      kind.times.length = 0;
+      kind.statuses.clear();
+    }
+  }
+  const loadBefore = os.loadavg()[0];
+  next = 0;
+  const result = await run(duration, boardIds.slice(0, connections));
   const conflicts = stats.save.statuses.get(409) ?? 0;
+  const warmLine = `warm-up: ${warm.requests} requests, errors and non-2xx ${warm.errors}`;
   const errors = result.errors + result.non2xx;
   console.log(
-    `load: ${connections} connections for ${duration} s against ${baseUrl} (production build, loopback); ` +
+    `load: ${connections} connections for ${duration} s after a ${warmup} s warm-up at the same load (not counted), ` +
+      `against ${baseUrl} (production build, ${workers} workers, loopback); ` +
       `one ${ways}-way bench board per connection, cycle read → size → save`,
   );
   console.log(
     `all: ${result.requests} requests, ${result.rps.toFixed(0)} req/s, p50 ${result.p50.toFixed(1)} ms, ` +
       `p95 ${result.p95.toFixed(1)} ms, p99 ${result.p99.toFixed(1)} ms, errors ${result.errors}, non-2xx ${result.non2xx}`,
   );
+  console.log(warmLine);
   console.log('per kind (timed from the request being built to its response):');
   console.log(line('GET /api/boards/:id', stats.read.times, stats.read.statuses));
   console.log(line('POST …/:id/sizing', stats.sizing.times, stats.sizing.statuses));
@@ -168,7 +190,7 @@ async function main() {
     `machine: ${os.cpus().length} cores, load average ${loadBefore.toFixed(2)} before, ${os.loadavg()[0].toFixed(2)} after ` +
       '(other work on the machine makes these figures noisy)',
   );
-  const met = errors === 0 && result.p99 < 250;
+  const met = errors === 0 && warm.errors === 0 && result.p99 < 250;
   console.log(`target (no errors, p99 < 250 ms): ${met ? 'met' : 'NOT met'}`);
 }
 
