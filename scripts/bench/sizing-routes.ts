@@ -1,9 +1,10 @@
 /**
  * The board sizing route under load against a trivial authenticated route on the same
- * production server: autocannon, 16 connections, 10 s each, on a 36-way board.
+ * production server: autocannon, 16 connections, 10 s each after a warm-up, on a 36-way board.
  * Needs a running server at APP_URL with the demo seeded (scripts/bench/sizing.sh does that).
  */
 import crypto from 'node:crypto';
+import os from 'node:os';
 
 import { db } from '@/lib/db';
 import { Board, Organisation, Site, Way } from '@/models';
@@ -14,6 +15,9 @@ import { describe, load } from './load';
 
 const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3200';
 const duration = Number(process.env.BENCH_SECONDS ?? 10);
+const warmup = Number(process.env.BENCH_WARMUP_SECONDS ?? 5);
+// scripts/serve.mjs runs this many server workers
+const workers = Number(process.env.WEB_CONCURRENCY) || os.availableParallelism();
 
 /** A 36-way three-phase board: the workshop's ways, repeated, under a bench-only name. */
 async function benchBoard(): Promise<string> {
@@ -44,14 +48,19 @@ async function main() {
   const ways = await Way.count({ where: { boardId } });
   await db().close();
 
-  const trivial = await load({ ...common, url: `${baseUrl}/api/me` });
-  const sizing = await load({
-    ...common,
-    url: `${baseUrl}/api/boards/${boardId}/sizing`,
-    method: 'POST',
-    body: '',
-  });
-  console.log(`board: ${ways} ways; 16 connections, ${duration} s each, ${baseUrl}`);
+  const trivialRun = (d: number) => load({ ...common, duration: d, url: `${baseUrl}/api/me` });
+  const sizingRun = (d: number) =>
+    load({ ...common, duration: d, url: `${baseUrl}/api/boards/${boardId}/sizing`, method: 'POST', body: '' });
+  // Warm-up of each route, not counted: a fresh server loads a route's code and compiles
+  // its hot paths in the first seconds
+  await trivialRun(warmup);
+  await sizingRun(warmup);
+  const trivial = await trivialRun(duration);
+  const sizing = await sizingRun(duration);
+  console.log(
+    `board: ${ways} ways; 16 connections, ${duration} s each after ${warmup} s of warm-up (not counted), ` +
+      `${baseUrl} (${workers} workers)`,
+  );
   console.log(describe('GET /api/me (trivial, signed in)', trivial));
   console.log(describe('POST /api/boards/:id/sizing', sizing));
   console.log(`ratio sizing / trivial: ${(sizing.rps / trivial.rps).toFixed(2)}`);
