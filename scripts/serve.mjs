@@ -21,8 +21,24 @@ if (cluster.isPrimary && workers > 1) {
       if (worker && worker !== from) worker.send(message);
     }
   });
+  // Until one worker has stayed up for 10 s, a worker that ends means the server cannot start
+  // (no build, a bad setting): after three of those, stop instead of starting workers
+  // forever. Once the server has run, a worker that ends is always replaced.
+  let started = false;
+  let failedStarts = 0;
+  cluster.on('fork', (worker) => {
+    setTimeout(() => {
+      if (!worker.isDead()) started = true;
+    }, 10_000).unref();
+  });
   cluster.on('exit', (worker, code, signal) => {
     if (stopping) return;
+    if (!started && ++failedStarts >= 3) {
+      console.error('[serve] three workers ended before the server had run for 10 s; stopping');
+      stop();
+      process.exitCode = 1;
+      return;
+    }
     console.error(`[serve] worker ${worker.process.pid} ended (${signal ?? code}); starting another`);
     cluster.fork();
   });

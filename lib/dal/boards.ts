@@ -271,7 +271,7 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
     ...diff.changed.map((wayId) => ({ action: 'way.changed' satisfies AuditAction, details: { wayId } })),
     {
       action: 'board.saved' satisfies AuditAction,
-      details: { version: stored.version + 1, ...(startsRevision ? { newRevision: stored.revision } : {}) },
+      details: { version: stored.version + 1, ...(startsRevision ? { newRevision: stored.revision + 1 } : {}) },
     },
   ];
   // Unchanged ways are not written at all; changed or moved ones lose their label check

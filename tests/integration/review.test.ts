@@ -12,7 +12,7 @@ import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import type { RevisionDiff } from '@/lib/boards/revision-diff';
 import type { BoardDto } from '@/lib/boards/types';
 import { dispatchDueMail } from '@/lib/mail/outbox';
-import { Board, BoardRevision, User } from '@/models';
+import { AuditEvent, Board, BoardRevision, User } from '@/models';
 
 import { caughtMail, ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
 
@@ -220,6 +220,9 @@ describe('revisions', () => {
     );
     expect(saved.status).toBe(200);
     expect((await saved.json()).board).toMatchObject({ status: 'draft', revision: 2 });
+    // The change history says which revision the save started
+    const started = await AuditEvent.findOne({ where: { boardId: board.id, action: 'board.saved' } });
+    expect(started?.details).toEqual({ version: opened.version + 1, newRevision: 2 });
 
     // What changed since revision 1, in the live draft
     const live = await revisionRoute.GET(
