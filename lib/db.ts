@@ -34,3 +34,28 @@ function connect(): Sequelize {
   globalForDb.boardwrightSequelize = sequelize;
   return sequelize;
 }
+
+type PooledClient = {
+  query: (q: { name: string; text: string; values: unknown[] }) => Promise<{ rows: unknown[] }>;
+};
+type Pool = {
+  getConnection: (options: { type: string }) => Promise<PooledClient>;
+  releaseConnection: (client: PooledClient) => void;
+};
+
+/**
+ * One named statement on a connection of Sequelize's pool, straight through pg: for the hot
+ * paths (the board read, the save), where Sequelize's query layers cost more than the
+ * statement itself. Named, the statement is parsed and planned once per connection. Errors are
+ * pg's own (`code`, `constraint`, `severity`), which lib/api/handler.ts maps as it maps
+ * Sequelize's.
+ */
+export async function namedQuery<R>(name: string, text: string, values: unknown[]): Promise<R[]> {
+  const pool = (db() as unknown as { connectionManager: Pool }).connectionManager;
+  const client = await pool.getConnection({ type: 'SELECT' });
+  try {
+    return (await client.query({ name, text, values })).rows as R[];
+  } finally {
+    pool.releaseConnection(client);
+  }
+}

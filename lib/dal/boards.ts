@@ -2,13 +2,13 @@ import 'server-only';
 
 import { isDeepStrictEqual } from 'node:util';
 
-import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { railOrder } from '@/lib/boards/layout';
 import { settingsOf, type BoardCreateInput, type BoardSaveInput, type WayInput } from '@/lib/boards/schemas';
 import type { BoardDto, BoardSummary, WayDto } from '@/lib/boards/types';
-import { db } from '@/lib/db';
+import { db, namedQuery } from '@/lib/db';
 import { audit, type AuditAction } from '@/lib/dal/audit';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, notFound } from '@/lib/errors';
@@ -116,10 +116,7 @@ FROM boards b JOIN sites s ON s.id = b.site_id
 WHERE b.id = $1 AND b.organisation_id = $2`;
 
 export async function getBoard(actor: Actor, boardId: string): Promise<BoardDto> {
-  const rows = await db().query<{ dto: string }>(BOARD_DTO_SQL, {
-    bind: [boardId, actor.organisationId],
-    type: QueryTypes.SELECT,
-  });
+  const rows = await namedQuery<{ dto: string }>('board-dto', BOARD_DTO_SQL, [boardId, actor.organisationId]);
   if (!rows.length) throw notFound('The board');
   return JSON.parse(rows[0].dto) as BoardDto;
 }
@@ -288,9 +285,7 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
   const { settings } = input;
   let rows: SavedRow[];
   try {
-    rows = await db().query<SavedRow>(SAVE_SQL, {
-      type: QueryTypes.SELECT,
-      bind: [
+    rows = await namedQuery<SavedRow>('board-save', SAVE_SQL, [
         boardId,
         actor.organisationId,
         input.version,
@@ -308,11 +303,10 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
         diff.removed,
         actor.userId,
         JSON.stringify(events),
-      ],
-    });
+    ]);
   } catch (err) {
     // A new way's id that some way already has (on this board or any other)
-    if ((err as { parent?: { code?: string; constraint?: string } }).parent?.constraint === 'ways_pkey') {
+    if ((err as { constraint?: string }).constraint === 'ways_pkey') {
       throw conflict('A new way reuses the id of an existing way; reload the board.');
     }
     throw err;
