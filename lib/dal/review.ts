@@ -88,11 +88,15 @@ async function organisationName(actor: Actor, transaction?: Transaction): Promis
 
 /** The live board as a snapshot (what would be frozen if it were issued now). */
 async function liveSnapshot(actor: Actor, board: Board, transaction?: Transaction): Promise<BoardSnapshot> {
-  const [site, ways, orgName] = await Promise.all([
-    Site.findByPk(board.siteId, { attributes: ['name'], transaction }),
-    Way.findAll({ where: { boardId: board.id }, order: [['rail', 'ASC'], ['position', 'ASC']], transaction }),
-    organisationName(actor, transaction),
-  ]);
+  // One after another: inside a transaction they share one connection, and pg refuses
+  // (from pg 9) a query sent while another is running on it
+  const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
+  const ways = await Way.findAll({
+    where: { boardId: board.id },
+    order: [['rail', 'ASC'], ['position', 'ASC']],
+    transaction,
+  });
+  const orgName = await organisationName(actor, transaction);
   return {
     settings: settingsOf(board),
     siteName: site?.name ?? '',
@@ -224,15 +228,14 @@ async function designerAddresses(board: Board, transaction: Transaction): Promis
 
 /** The comment list of one revision as plain text lines for an e-mail. */
 async function commentLines(board: Board, transaction: Transaction): Promise<string[]> {
-  const [comments, ways] = await Promise.all([
-    Comment.findAll({
-      where: { boardId: board.id, revision: board.revision },
-      include: [{ model: User, as: 'author', attributes: ['name'] }],
-      order: [['createdAt', 'ASC']],
-      transaction,
-    }),
-    Way.findAll({ where: { boardId: board.id }, transaction }),
-  ]);
+  // One after another: both run on the transaction's one connection
+  const comments = await Comment.findAll({
+    where: { boardId: board.id, revision: board.revision },
+    include: [{ model: User, as: 'author', attributes: ['name'] }],
+    order: [['createdAt', 'ASC']],
+    transaction,
+  });
+  const ways = await Way.findAll({ where: { boardId: board.id }, transaction });
   const refs = new Map(
     layoutWays(board.phases, ways as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
   );
