@@ -63,7 +63,10 @@ async function main() {
   );
   console.log(describe('GET /api/me (trivial, signed in)', trivial));
   console.log(describe('POST /api/boards/:id/sizing', sizing));
-  console.log(`ratio sizing / trivial: ${(sizing.rps / trivial.rps).toFixed(2)}`);
+  const ratio = sizing.rps / trivial.rps;
+  console.log(`ratio sizing / trivial: ${ratio.toFixed(2)}`);
+  const met = ratio >= 0.5 && sizing.p95 < 30 && sizing.errors + sizing.non2xx === 0;
+  console.log(`target (ratio ≥ 0.5, sizing p95 < 30 ms, no errors): ${met ? 'met' : 'NOT met'}`);
 }
 
 main().catch((err) => {
