@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# scripts/backup.sh [FILE] — a backup of the app database (DATABASE_URL, from scripts/env.sh) in
+# scripts/backup.sh [FILE] — a backup of the app database (DATABASE_OWNER_URL, else DATABASE_URL, from scripts/env.sh) in
 # pg_dump's custom format, to FILE or to .data/backups/<database>-<UTC time>.dump. The file is
 # written under a temporary name and checked with pg_restore --list before it takes its name.
 # Photos live in object storage (S3), not in the database: back the bucket up separately.
@@ -13,14 +13,15 @@ if [ -z "$PGBIN" ] || [ ! -x "$PGBIN/pg_dump" ]; then
   exit 1
 fi
 
-DB=${DATABASE_URL##*/}
+URL=${DATABASE_OWNER_URL:-$DATABASE_URL}
+DB=${URL##*/}
 DB=${DB%%\?*}
 OUT=${1:-$DATA_DIR/backups/$DB-$(date -u +%Y%m%dT%H%M%SZ).dump}
 mkdir -p "$(dirname "$OUT")"
 
-# Dump over TCP with the app's own credentials; owner and grants are left out so the file
-# restores under any role
-"$PGBIN/pg_dump" --format=custom --no-owner --no-privileges --file="$OUT.partial" --dbname="$DATABASE_URL"
+# Dump over TCP as the database's owner; owner and grants are left out so the file restores
+# under any role (scripts/restore.sh gives the app role its grants again)
+"$PGBIN/pg_dump" --format=custom --no-owner --no-privileges --file="$OUT.partial" --dbname="$URL"
 "$PGBIN/pg_restore" --list "$OUT.partial" >/dev/null
 mv "$OUT.partial" "$OUT"
 echo "Backed up database $DB to $OUT ($(du -h "$OUT" | cut -f1))"

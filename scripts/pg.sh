@@ -56,6 +56,10 @@ start() {
   if [ "$("${SUPER[@]}" -tAc "select 1 from pg_roles where rolname='boardwright'")" != 1 ]; then
     "${SUPER[@]}" -c "create role boardwright login createdb password 'boardwright'"
   fi
+  # The app's own role owns nothing (lib/db-roles.ts); migration 0005 gives it its grants
+  if [ "$("${SUPER[@]}" -tAc "select 1 from pg_roles where rolname='boardwright_app'")" != 1 ]; then
+    "${SUPER[@]}" -c "create role boardwright_app login password 'boardwright_app'"
+  fi
   createdb_ "$DB_NAME"
   echo "PostgreSQL up on 127.0.0.1:$PGPORT (data: $PGDATA)"
 }

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # scripts/restore.sh FILE [DATABASE] [--yes] — restores a backup made by scripts/backup.sh into
-# the app database (from DATABASE_URL) or into DATABASE on the same server, created if missing.
+# the app database (from DATABASE_OWNER_URL, else DATABASE_URL) or into DATABASE on the same server, created if missing.
 # The restore runs in one transaction: it lands whole or not at all. Replacing a database that
 # holds tables needs --yes (or typing its name at the prompt). Stop the app first.
 set -euo pipefail
@@ -18,7 +18,8 @@ for a in "$@"; do
 done
 [ "${#ARGS[@]}" -ge 1 ] && [ "${#ARGS[@]}" -le 2 ] || usage
 FILE=${ARGS[0]}
-APP_DB=${DATABASE_URL##*/}
+URL=${DATABASE_OWNER_URL:-$DATABASE_URL}
+APP_DB=${URL##*/}
 APP_DB=${APP_DB%%\?*}
 TARGET=${ARGS[1]:-$APP_DB}
 if ! [[ "$TARGET" =~ ^[A-Za-z0-9_]{1,63}$ ]]; then
@@ -34,10 +35,10 @@ fi
 [ -f "$FILE" ] || { echo "No such backup file: $FILE" >&2; exit 1; }
 "$PGBIN/pg_restore" --list "$FILE" >/dev/null 2>&1 || { echo "Not a pg_dump custom-format file: $FILE" >&2; exit 1; }
 
-# Same server and role as the app; the target database swapped in
-BASE=${DATABASE_URL%/*}
+# Same server, as the database's owner; the target database swapped in
+BASE=${URL%/*}
 QUERY=""
-[[ "$DATABASE_URL" == *\?* ]] && QUERY="?${DATABASE_URL#*\?}"
+[[ "$URL" == *\?* ]] && QUERY="?${URL#*\?}"
 ADMIN_URL="$BASE/postgres$QUERY"
 TARGET_URL="$BASE/$TARGET$QUERY"
 PSQL=("$PGBIN/psql" -X -q -v ON_ERROR_STOP=1)
@@ -63,3 +64,5 @@ fi
 "$PGBIN/pg_restore" --clean --if-exists --no-owner --no-privileges --single-transaction --exit-on-error \
   --dbname="$TARGET_URL" "$FILE"
 echo "Restored $FILE into database $TARGET"
+# The backup holds no grants: the app role gets its own again (lib/db-roles.ts)
+(cd "$ROOT" && DATABASE_OWNER_URL="$TARGET_URL" node_modules/.bin/tsx scripts/migrate.ts grants)

@@ -4,7 +4,7 @@
 # browser tests against the built app. Ends with one line: "N passed, N failed".
 set -uo pipefail
 # The suite sets its own addresses: nothing inherited from a demo shell may point it elsewhere.
-unset DATABASE_URL APP_URL NEXTAUTH_URL S3_ENDPOINT SMTP_HOST NEXT_DIST_DIR
+unset DATABASE_URL DATABASE_OWNER_URL APP_URL NEXTAUTH_URL S3_ENDPOINT SMTP_HOST NEXT_DIST_DIR
 export DB_NAME=boardwright_test APP_PORT=3100 SMTP_PORT=2535 S3_PORT=4579
 export MAIL_CATCHER_URL=http://127.0.0.1:2536 S3_BUCKET=boardwright-test
 source "$(dirname "$0")/env.sh"

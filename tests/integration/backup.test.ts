@@ -21,8 +21,10 @@ import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpe
 const ROOT = path.resolve(import.meta.dirname, '../..');
 const SOURCE_URL = process.env.DATABASE_URL!;
 const SCRATCH = `bw_restore_${crypto.randomUUID().slice(0, 8)}`;
-const scratchUrl = () => {
-  const url = new URL(SOURCE_URL);
+// The app's role and the owner's: the scripts back up and restore as the owner
+const OWNER_URL = process.env.DATABASE_OWNER_URL ?? SOURCE_URL;
+const scratchUrl = (of = SOURCE_URL) => {
+  const url = new URL(of);
   url.pathname = `/${SCRATCH}`;
   return url.href;
 };
@@ -79,7 +81,7 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  const admin = new pg.Client({ connectionString: SOURCE_URL.replace(/\/[^/?]+(\?|$)/, '/postgres$1') });
+  const admin = new pg.Client({ connectionString: OWNER_URL.replace(/\/[^/?]+(\?|$)/, '/postgres$1') });
   await admin.connect();
   await admin.query(`drop database if exists "${SCRATCH}" with (force)`);
   await admin.end();
@@ -104,15 +106,27 @@ describe('backup and restore', () => {
   });
 
   it('the restored database keeps its rules: the audit trail still refuses changes', async () => {
-    const client = new pg.Client({ connectionString: scratchUrl() });
-    await client.connect();
+    // Its triggers, even for the owner
+    const owner = new pg.Client({ connectionString: scratchUrl(OWNER_URL) });
+    await owner.connect();
     try {
-      await expect(client.query("update audit_events set action = 'x'")).rejects.toThrow(/append-only/);
-      await expect(client.query('delete from audit_events')).rejects.toThrow(/append-only/);
-      const { rows } = await client.query('select count(*)::int as n from schema_migrations');
+      await expect(owner.query("update audit_events set action = 'x'")).rejects.toThrow(/append-only/);
+      await expect(owner.query('delete from audit_events')).rejects.toThrow(/append-only/);
+      const { rows } = await owner.query('select count(*)::int as n from schema_migrations');
       expect(rows[0].n).toBeGreaterThanOrEqual(2);
     } finally {
-      await client.end();
+      await owner.end();
+    }
+    // And the app role's grants, given again by the restore: it reads and appends, no more
+    const app = new pg.Client({ connectionString: scratchUrl() });
+    await app.connect();
+    try {
+      expect((await app.query('select count(*)::int as n from boards')).rows[0].n).toBeGreaterThan(0);
+      await app.query("insert into audit_events (organisation_id, action) values (gen_random_uuid(), 'board.saved')");
+      await expect(app.query("update audit_events set action = 'x'")).rejects.toThrow(/permission denied/);
+      await expect(app.query('truncate audit_events')).rejects.toThrow(/permission denied/);
+    } finally {
+      await app.end();
     }
   });
 

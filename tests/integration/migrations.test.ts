@@ -7,7 +7,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { migrator } from '@/lib/migrator';
 
 // A database of its own, so that rolling back never touches the other tests' data.
-const base = new URL(process.env.DATABASE_URL!);
+// As the owner, as scripts/migrate.ts runs them
+const base = new URL(process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL!);
 const name = `${base.pathname.slice(1)}_migrations`;
 
 async function admin(sql: string) {
@@ -85,12 +86,37 @@ describe('the audit trail from the app', () => {
       action: 'board.saved',
       details: { version: 2 },
     });
-    await expect(event.update({ action: 'board.deleted' })).rejects.toThrow(/append-only/);
-    await expect(AuditEvent.update({ details: {} }, { where: { id: event.id } })).rejects.toThrow(/append-only/);
-    await expect(event.destroy()).rejects.toThrow(/append-only/);
-    await expect(AuditEvent.destroy({ where: { id: event.id } })).rejects.toThrow(/append-only/);
+    // The app's role has no UPDATE or DELETE on the table (migration 0005); the triggers
+    // would refuse them anyway
+    const refused = /permission denied for table audit_events|append-only/;
+    await expect(event.update({ action: 'board.deleted' })).rejects.toThrow(refused);
+    await expect(AuditEvent.update({ details: {} }, { where: { id: event.id } })).rejects.toThrow(refused);
+    await expect(event.destroy()).rejects.toThrow(refused);
+    await expect(AuditEvent.destroy({ where: { id: event.id } })).rejects.toThrow(refused);
     const stored = await AuditEvent.findByPk(event.id);
     expect(stored?.action).toBe('board.saved');
     expect(stored?.details).toEqual({ version: 2 });
+  });
+
+  it('the app connects as a role that owns nothing, so it cannot drop or disable the triggers', async () => {
+    const { db } = await import('@/lib/db');
+    const sequelize = db();
+    const [[who]] = (await sequelize.query(
+      `select current_user as me, (select tableowner from pg_tables where tablename = 'audit_events') as owner`,
+    )) as [{ me: string; owner: string }[], unknown];
+    expect(who.me).not.toBe(who.owner);
+    for (const sql of [
+      'alter table audit_events disable trigger audit_events_no_update',
+      'drop trigger audit_events_no_update on audit_events',
+      'truncate audit_events',
+      'delete from schema_migrations',
+    ]) {
+      await expect(sequelize.query(sql), sql).rejects.toThrow(/must be owner|permission denied/);
+    }
+    // What it needs it has: read, write, append to the trail
+    await sequelize.query(
+      "insert into audit_events (organisation_id, action) values (gen_random_uuid(), 'board.saved')",
+    );
+    expect((await sequelize.query('select count(*) from boards'))[0]).toHaveLength(1);
   });
 });
