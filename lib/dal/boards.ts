@@ -91,6 +91,15 @@ export async function findBoard(
   return board;
 }
 
+/** That the board is the caller's organisation's, or 404: one small named statement. */
+export async function requireBoard(actor: Actor, boardId: string): Promise<void> {
+  const rows = await namedQuery('board-owned', 'select 1 from boards where id = $1 and organisation_id = $2', [
+    boardId,
+    actor.organisationId,
+  ]);
+  if (!rows.length) throw notFound('The board');
+}
+
 /**
  * One board with its ways, in rail order, as the DTO itself: PostgreSQL builds the JSON in
  * one query, so Node parses one string instead of building rows (the board read was most

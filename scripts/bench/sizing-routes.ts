@@ -6,6 +6,8 @@
 import crypto from 'node:crypto';
 import os from 'node:os';
 
+import { saveBodyOf } from '@/app/api/route-table';
+import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { Board, Organisation, Site, Way } from '@/models';
 import { DEMO_ORG, demoUser, demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
@@ -67,6 +69,20 @@ async function main() {
   console.log(`ratio sizing / trivial: ${ratio.toFixed(2)}`);
   const met = ratio >= 0.5 && sizing.p95 < 30 && sizing.errors + sizing.non2xx === 0;
   console.log(`target (ratio ≥ 0.5, sizing p95 < 30 ms, no errors): ${met ? 'met' : 'NOT met'}`);
+
+  // For information: the editor's live path, the same board sent as an unsaved draft
+  const res = await fetch(`${baseUrl}/api/boards/${boardId}`, { headers: { cookie } });
+  const { settings, ways: draftWays } = saveBodyOf(((await res.json()) as { board: BoardDto }).board);
+  const draftRun = (d: number) =>
+    load({
+      ...common,
+      duration: d,
+      url: `${baseUrl}/api/boards/${boardId}/sizing`,
+      method: 'POST',
+      body: JSON.stringify({ draft: { settings, ways: draftWays } }),
+    });
+  await draftRun(warmup);
+  console.log(describe('… the same, draft in the body (editor)', await draftRun(duration)));
 }
 
 main().catch((err) => {

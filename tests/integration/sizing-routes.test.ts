@@ -89,6 +89,12 @@ describe('POST /api/boards/:boardId/sizing', () => {
     expect(
       (await boardSizingRoute.POST(empty(), ctx({ boardId: crypto.randomUUID() }))).status,
     ).toBe(404);
+    // A draft sent against their board, or a board that does not exist, is refused the same way
+    const draft = () =>
+      jsonRequest('POST', { draft: { settings: WORKSHOP_BOARD.settings, ways: demoWays(WORKSHOP_BOARD).slice(0, 2) } });
+    expect((await boardSizingRoute.POST(draft(), ctx({ boardId: theirBoardId }))).status).toBe(404);
+    expect((await boardSizingRoute.POST(draft(), ctx({ boardId: crypto.randomUUID() }))).status).toBe(404);
+    expect((await boardSizingRoute.POST(draft(), ctx({ boardId: ourBoardId }))).status).toBe(200);
   });
 
   it('sizes the stored board for designers and inspectors', async () => {

@@ -4,7 +4,7 @@ import { fieldIssues, parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
-import { findBoard, getBoard } from '@/lib/dal/boards';
+import { getBoard, requireBoard } from '@/lib/dal/boards';
 import { badRequest } from '@/lib/errors';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
@@ -29,7 +29,7 @@ export const POST = route<{ boardId: string }>(async (req, params) => {
   // Ownership, and the ways to size: the draft sent, or the stored board
   let input;
   if (body?.draft) {
-    await findBoard(actor, boardId);
+    await requireBoard(actor, boardId);
     input = boardSizingInput(body.draft.settings, body.draft.ways);
   } else {
     const board = await getBoard(actor, boardId);
