@@ -13,11 +13,10 @@ import Link from 'next/link';
 import { useMemo, useState } from 'react';
 
 import { Button } from '@/components/ui/button';
-import { RowActions } from '@/components/ui/row-actions';
 import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
 import { Select } from '@/components/ui/field';
 import { StatusBadge } from '@/components/ui/status-badge';
-import { When } from '@/components/ui/when';
+import { actionsColumn, lastChangeColumn, RowCount, textOrDash } from '@/components/ui/table-columns';
 import type { BoardSummary } from '@/lib/boards/types';
 
 import { BOARD_STAGES, stageOrder } from '../utils/board-stages';
@@ -110,12 +109,7 @@ export function BoardsTable({
         accessorKey: 'location',
         header: 'Location',
         sortingFn: byText,
-        cell: ({ getValue }) =>
-          getValue<string>() ? (
-            <span className="text-ink-soft">{getValue<string>()}</span>
-          ) : (
-            <span className="text-ink-faint">—</span>
-          ),
+        cell: textOrDash('text-ink-soft'),
       },
       {
         id: 'phases',
@@ -145,30 +139,9 @@ export function BoardsTable({
         sortDescFirst: true,
         meta: { align: 'right' },
       },
-      {
-        id: 'updatedAt',
-        accessorKey: 'updatedAt',
-        header: 'Last change',
-        sortDescFirst: true,
-        cell: ({ row }) => <When iso={row.original.updatedAt} />,
-      },
+      lastChangeColumn(),
     ];
-    if (canEdit) {
-      list.push({
-        id: 'actions',
-        header: () => <span className="sr-only">Actions</span>,
-        enableSorting: false,
-        meta: { align: 'right' },
-        cell: ({ row }) => (
-          <RowActions
-            name={row.original.name}
-            editLabel="Rename"
-            onEdit={() => onRename(row.original)}
-            onDelete={() => onDelete(row.original)}
-          />
-        ),
-      });
-    }
+    if (canEdit) list.push(actionsColumn('Rename', onRename, onDelete));
     return list;
   }, [canEdit, onRename, onDelete]);
 
@@ -242,11 +215,13 @@ export function BoardsTable({
           </Button>
         ) : null}
         {!loading ? (
-          <p className="ml-auto text-sm text-ink-soft" aria-live="polite">
-            {shown === boards.length
-              ? `${boards.length} ${boards.length === 1 ? 'board' : 'boards'}`
-              : `${shown} of ${boards.length} boards`}
-          </p>
+          <RowCount
+            shown={shown}
+            total={boards.length}
+            one="board"
+            many="boards"
+            className="ml-auto text-sm text-ink-soft"
+          />
         ) : null}
       </div>
       <DataTable

@@ -11,9 +11,8 @@ import {
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 
-import { RowActions } from '@/components/ui/row-actions';
 import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
-import { When } from '@/components/ui/when';
+import { actionsColumn, lastChangeColumn, RowCount, textOrDash } from '@/components/ui/table-columns';
 import type { SiteSummary } from '@/lib/dal/sites';
 
 type SitesTableProps = {
@@ -57,7 +56,7 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: Site
         accessorKey: 'client',
         header: 'Client',
         sortingFn: byText,
-        cell: ({ getValue }) => getValue<string>() || <span className="text-ink-faint">—</span>,
+        cell: textOrDash(),
       },
       {
         id: 'address',
@@ -65,12 +64,7 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: Site
         header: 'Address',
         sortingFn: byText,
         meta: { className: 'max-w-[22rem]' },
-        cell: ({ getValue }) =>
-          getValue<string>() ? (
-            <span className="line-clamp-2 text-ink-soft">{getValue<string>()}</span>
-          ) : (
-            <span className="text-ink-faint">—</span>
-          ),
+        cell: textOrDash('line-clamp-2 text-ink-soft'),
       },
       {
         id: 'boards',
@@ -79,32 +73,10 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: Site
         sortDescFirst: true,
         meta: { align: 'right' },
       },
-      {
-        id: 'updatedAt',
-        accessorKey: 'updatedAt',
-        header: 'Last change',
-        sortDescFirst: true,
-        cell: ({ row }) => <When iso={row.original.updatedAt} />,
-      },
+      lastChangeColumn(),
     ];
     if (!canEdit) return base;
-    return [
-      ...base,
-      {
-        id: 'actions',
-        header: () => <span className="sr-only">Actions</span>,
-        enableSorting: false,
-        meta: { align: 'right' },
-        cell: ({ row }) => (
-          <RowActions
-            name={row.original.name}
-            editLabel="Edit"
-            onEdit={() => onRename(row.original)}
-            onDelete={() => onDelete(row.original)}
-          />
-        ),
-      },
-    ];
+    return [...base, actionsColumn('Edit', onRename, onDelete)];
   }, [canEdit, onRename, onDelete]);
 
   const table = useReactTable({
@@ -129,13 +101,7 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: Site
           value={search}
           onChange={setSearch}
         />
-        {!loading ? (
-          <p className="text-sm text-ink-soft" aria-live="polite">
-            {shown === sites.length
-              ? `${sites.length} ${sites.length === 1 ? 'site' : 'sites'}`
-              : `${shown} of ${sites.length} sites`}
-          </p>
-        ) : null}
+        {!loading ? <RowCount shown={shown} total={sites.length} one="site" many="sites" /> : null}
       </div>
       <DataTable
         table={table}
