@@ -1,10 +1,8 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
-import { useState } from 'react';
-import { useForm, type FieldPath } from 'react-hook-form';
+import type { FieldPath } from 'react-hook-form';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
@@ -12,8 +10,7 @@ import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { Field, Input, Select } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import { boardCreateSchema, type BoardCreateInput } from '@/lib/boards/schemas';
-import { applyServerIssues } from '@/lib/forms/server-issues';
-import { formErrorMap } from '@/lib/forms/zod-messages';
+import { useServerForm } from '@/lib/forms/use-server-form';
 
 import type { SiteOption } from '../api/boards-api';
 import { useCreateBoard } from '../api/use-board-mutations';
@@ -118,30 +115,24 @@ function BoardCreateForm({
 }) {
   const router = useRouter();
   const create = useCreateBoard();
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
-    handleSubmit,
-    setError,
+    formError,
+    onSubmit,
     formState: { errors, isSubmitting },
-  } = useForm<BoardCreateValues, unknown, BoardCreateInput>({
-    resolver: zodResolver(boardCreateSchema, { error: formErrorMap }),
+  } = useServerForm<BoardCreateValues, BoardCreateInput>({
+    schema: boardCreateSchema,
     defaultValues: newBoardDefaults(siteId ?? (sites.length === 1 ? sites[0].id : '')),
-  });
-  const num = { setValueAs: numberOrEmpty };
-
-  const onSubmit = handleSubmit(async (input) => {
-    setFormError(null);
-    try {
+    fields: FIELDS,
+    submit: async (input) => {
       // Create the board, then open it in the editor to arrange its ways
       const board = await create.mutateAsync(input);
       toast.success(`Created ${board.name}.`);
       onClose();
       router.push(`/boards/${board.id}`);
-    } catch (error) {
-      setFormError(applyServerIssues(error, setError, FIELDS));
-    }
+    },
   });
+  const num = { setValueAs: numberOrEmpty };
 
   // Wires one control to its label, its error and the form
   const bind =

@@ -1,8 +1,5 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 import type { z } from 'zod';
 
@@ -12,8 +9,7 @@ import { TextField } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import { boardRenameSchema } from '@/lib/boards/schemas';
 import type { BoardSummary } from '@/lib/boards/types';
-import { applyServerIssues } from '@/lib/forms/server-issues';
-import { formErrorMap } from '@/lib/forms/zod-messages';
+import { useServerForm } from '@/lib/forms/use-server-form';
 
 import { useRenameBoard } from '../api/use-board-mutations';
 
@@ -39,26 +35,20 @@ export function BoardRenameDialog({
 
 function RenameForm({ board, onClose }: { board: BoardSummary; onClose: () => void }) {
   const rename = useRenameBoard();
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
-    handleSubmit,
-    setError,
+    formError,
+    onSubmit,
     formState: { errors, isSubmitting },
-  } = useForm<RenameValues, unknown, RenameInput>({
-    resolver: zodResolver(renameFormSchema, { error: formErrorMap }),
+  } = useServerForm<RenameValues, RenameInput>({
+    schema: renameFormSchema,
     defaultValues: { name: board.name, location: board.location },
-  });
-
-  const onSubmit = handleSubmit(async (input) => {
-    setFormError(null);
-    try {
+    fields: ['name', 'location'],
+    submit: async (input) => {
       const saved = await rename.mutateAsync({ boardId: board.id, input });
       toast.success(`Saved ${saved.name}.`);
       onClose();
-    } catch (error) {
-      setFormError(applyServerIssues(error, setError, ['name', 'location']));
-    }
+    },
   });
 
   return (

@@ -1,18 +1,15 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { CircleCheck } from 'lucide-react';
 import Link from 'next/link';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 
 import { Button } from '@/components/ui/button';
 import { Field, Input } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import { ApiError } from '@/lib/api/client';
-import { applyServerIssues } from '@/lib/forms/server-issues';
-import { formErrorMap } from '@/lib/forms/zod-messages';
+import { useServerForm } from '@/lib/forms/use-server-form';
 import { passwordSchema } from '@/lib/members/schemas';
 
 import { acceptInvitation } from '../api/members-api';
@@ -30,30 +27,28 @@ type ChoosePassword = z.infer<typeof choosePasswordSchema>;
 export function AcceptInviteForm({ token, email }: { token: string; email: string }) {
   const [done, setDone] = useState(false);
   const [closed, setClosed] = useState<string | null>(null);
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
-    handleSubmit,
-    setError,
+    formError,
+    onSubmit,
     formState: { errors, isSubmitting },
-  } = useForm<ChoosePassword>({
-    resolver: zodResolver(choosePasswordSchema, { error: formErrorMap }),
+  } = useServerForm<ChoosePassword, ChoosePassword>({
+    schema: choosePasswordSchema,
     defaultValues: { password: '', confirm: '' },
-  });
-
-  const onSubmit = handleSubmit(async ({ password }) => {
-    setFormError(null);
-    try {
-      await acceptInvitation(token, password);
-      setDone(true);
-    } catch (error) {
-      // A used or expired link cannot be retried; say so plainly
-      if (error instanceof ApiError && (error.status === 410 || error.status === 409)) {
-        setClosed(error.message);
-        return;
+    fields: ['password'],
+    submit: async ({ password }) => {
+      try {
+        await acceptInvitation(token, password);
+        setDone(true);
+      } catch (error) {
+        // A used or expired link cannot be retried; say so plainly
+        if (error instanceof ApiError && (error.status === 410 || error.status === 409)) {
+          setClosed(error.message);
+          return;
+        }
+        throw error;
       }
-      setFormError(applyServerIssues(error, setError, ['password']));
-    }
+    },
   });
 
   if (done) {

@@ -1,17 +1,13 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
 import { UserPlus } from 'lucide-react';
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 import type { z } from 'zod';
 
 import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
-import { applyServerIssues } from '@/lib/forms/server-issues';
-import { formErrorMap } from '@/lib/forms/zod-messages';
+import { useServerForm } from '@/lib/forms/use-server-form';
 import { inviteInputSchema, type InviteInput } from '@/lib/members/schemas';
 
 import { useInviteMember } from '../api/use-members';
@@ -22,30 +18,23 @@ type InviteValues = z.input<typeof inviteInputSchema>;
 /** Invites someone by e-mail with a role; the e-mail carries a one-time link. */
 export function InviteForm() {
   const invite = useInviteMember();
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
-    handleSubmit,
-    setError,
-    reset,
     watch,
+    formError,
+    onSubmit,
     formState: { errors, isSubmitting },
-  } = useForm<InviteValues, unknown, InviteInput>({
-    resolver: zodResolver(inviteInputSchema, { error: formErrorMap }),
+  } = useServerForm<InviteValues, InviteInput>({
+    schema: inviteInputSchema,
     defaultValues: { email: '', name: '', role: 'designer' },
-  });
-  const role = watch('role');
-
-  const onSubmit = handleSubmit(async (input) => {
-    setFormError(null);
-    try {
+    fields: ['email', 'name', 'role'],
+    submit: async (input, form) => {
       await invite.mutateAsync(input);
       toast.success(`Invitation queued for ${input.email}.`);
-      reset({ email: '', name: '', role: input.role });
-    } catch (error) {
-      setFormError(applyServerIssues(error, setError, ['email', 'name', 'role']));
-    }
+      form.reset({ email: '', name: '', role: input.role });
+    },
   });
+  const role = watch('role');
 
   return (
     <form

@@ -1,8 +1,5 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
-import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 import type { z } from 'zod';
 
@@ -11,8 +8,7 @@ import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { TextField } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import type { SiteSummary } from '@/lib/dal/sites';
-import { applyServerIssues } from '@/lib/forms/server-issues';
-import { formErrorMap } from '@/lib/forms/zod-messages';
+import { useServerForm } from '@/lib/forms/use-server-form';
 import { siteInputSchema, type SiteInput } from '@/lib/sites/schemas';
 
 import { useCreateSite, useUpdateSite } from '../api/use-site-mutations';
@@ -54,24 +50,21 @@ function SiteForm({
 }) {
   const create = useCreateSite();
   const update = useUpdateSite();
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
-    handleSubmit,
-    setError,
+    formError,
+    onSubmit,
     formState: { errors, isSubmitting },
-  } = useForm<SiteFormValues, unknown, SiteInput>({
-    resolver: zodResolver(siteInputSchema, { error: formErrorMap }),
+  } = useServerForm<SiteFormValues, SiteInput>({
+    schema: siteInputSchema,
     defaultValues: {
       name: site?.name ?? '',
       client: site?.client ?? '',
       address: site?.address ?? '',
     },
-  });
-
-  const onSubmit = handleSubmit(async (input) => {
-    setFormError(null);
-    try {
+    // Field issues go beside their fields; anything else above the buttons
+    fields: FIELDS,
+    submit: async (input) => {
       // Send the whole form: a new site, or the edited one
       const saved = site
         ? await update.mutateAsync({ siteId: site.id, input })
@@ -79,10 +72,7 @@ function SiteForm({
       toast.success(site ? `Saved ${saved.name}.` : `Created ${saved.name}.`);
       onSaved?.(saved);
       onClose();
-    } catch (error) {
-      // Field issues go beside their fields; anything else above the buttons
-      setFormError(applyServerIssues(error, setError, FIELDS));
-    }
+    },
   });
 
   return (
