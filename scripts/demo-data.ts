@@ -313,7 +313,8 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
  * three-phase board each single-pole device given the phase of its position.
  */
 export function demoWays(demo: { settings: BoardSettings; ways: Way[] }): WayInput[] {
-  const ways = demo.ways.map((w, position) => ({ ...w, id: crypto.randomUUID(), rail: 0, position }));
+  // Copies, so that a caller changing a way never changes the demo itself
+  const ways = demo.ways.map((w, position) => ({ ...structuredClone(w), id: crypto.randomUUID(), rail: 0, position }));
   const places = new Map(layoutWays(demo.settings.phases, ways).map((p) => [p.id, p]));
   return ways.map((w) => {
     const phase = demo.settings.phases === 3 && w.device.poles < 3 && places.get(w.id)?.phases[0];

@@ -91,13 +91,25 @@ export async function findBoard(
   return board;
 }
 
-/** That the board is the caller's organisation's, or 404: one small named statement. */
-export async function requireBoard(actor: Actor, boardId: string): Promise<void> {
-  const rows = await namedQuery('board-owned', 'select 1 from boards where id = $1 and organisation_id = $2', [
-    boardId,
-    actor.organisationId,
-  ]);
+/** A timestamp column as the ISO text `Date.toISOString` gives (the DTO's form). */
+const isoSql = (column: string) => `to_char(${column} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
+
+/** What names one stored state of a board: its version and when it was last written. */
+export type BoardStamp = { version: number; updatedAt: string };
+
+/**
+ * That the board is the caller's organisation's, or 404, with its stamp: one small named
+ * statement. `updatedAt` is formatted as in the board DTO, so the two compare equal.
+ */
+export async function requireBoard(actor: Actor, boardId: string): Promise<BoardStamp> {
+  const rows = await namedQuery<BoardStamp>(
+    'board-stamp',
+    `select version, ${isoSql('updated_at')} as "updatedAt"
+     from boards where id = $1 and organisation_id = $2`,
+    [boardId, actor.organisationId],
+  );
   if (!rows.length) throw notFound('The board');
+  return rows[0];
 }
 
 /**
@@ -112,7 +124,7 @@ SELECT json_build_object(
   'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
   'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails,
   'dwelling', b.dwelling, 'status', b.status, 'version', b.version, 'revision', b.revision,
-  'updatedAt', to_char(b.updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"'),
+  'updatedAt', ${isoSql('b.updated_at')},
   'ways', COALESCE((
     SELECT json_agg(json_build_object(
       'id', w.id, 'rail', w.rail, 'position', w.position, 'device', w.device,
@@ -209,7 +221,7 @@ WITH b AS (
     version = version + 1, updated_at = now()
   WHERE id = $1 AND organisation_id = $2 AND version = $3 AND status = $13
   RETURNING version, revision, status,
-    to_char(updated_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') AS updated_at
+    ${isoSql('updated_at')} AS updated_at
 ),
 input AS (
   SELECT * FROM jsonb_to_recordset($14::jsonb)

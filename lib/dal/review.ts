@@ -2,7 +2,6 @@ import 'server-only';
 
 import { Op, type Transaction } from 'sequelize';
 
-import { fieldIssues } from '@/lib/api/handler';
 import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import { layoutWays } from '@/lib/boards/layout';
@@ -13,15 +12,15 @@ import {
   type SnapshotWay,
 } from '@/lib/boards/revision-diff';
 import { settingsOf, type BoardSettings } from '@/lib/boards/schemas';
-import { boardSizingInput } from '@/lib/boards/sizing-input';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
+import { sizeSnapshot, sizeStoredBoard } from '@/lib/dal/board-sizing';
 import { findBoard, getBoard } from '@/lib/dal/boards';
 import { env } from '@/lib/env';
 import { badRequest, conflict, forbidden, notFound, unprocessable, type FieldIssue } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
-import { boardInputSchema, sizeBoard, type BoardResult } from '@/lib/sizing';
+import type { BoardResult } from '@/lib/sizing';
 import {
   AuditEvent,
   Board,
@@ -69,16 +68,6 @@ const STATUS_WORDS: Record<BoardStatus, string> = {
 
 function snapshotWay(way: SnapshotWay): SnapshotWay {
   return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
-}
-
-/** Sizes a snapshot of a board; a board the engine refuses gets its issues instead. */
-export function sizeSnapshot(snapshot: Pick<BoardSnapshot, 'settings' | 'ways'>): {
-  sizing: BoardResult | null;
-  issues: FieldIssue[];
-} {
-  const checked = boardInputSchema.safeParse(boardSizingInput(snapshot.settings, snapshot.ways));
-  if (!checked.success) return { sizing: null, issues: fieldIssues(checked.error) };
-  return { sizing: sizeBoard(checked.data), issues: [] };
 }
 
 async function organisationName(actor: Actor, transaction?: Transaction): Promise<string> {
@@ -151,7 +140,7 @@ export async function getReview(actor: Actor, boardId: string): Promise<ReviewDa
     listComments(actor, boardId),
     listRevisions(actor, boardId),
   ]);
-  const { sizing, issues } = sizeSnapshot({ settings: board, ways: board.ways });
+  const { sizing, issues } = sizeStoredBoard(board);
   const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
   return {
     board,

@@ -14,12 +14,7 @@ cd "$ROOT"
 bash scripts/install.sh
 bash scripts/pg.sh start
 node_modules/.bin/tsx scripts/migrate.ts up
-DIST=${NEXT_DIST_DIR:-.next}
-if [ ! -f "$DIST/BUILD_ID" ]; then
-  # One build at a time on this machine: wait for any other to finish first
-  while pgrep -f "next build" >/dev/null; do echo "waiting for another next build to finish…"; sleep 5; done
-  node_modules/.bin/next build
-fi
+source scripts/bench/ensure-build.sh
 if curl -fsS -o /dev/null "$APP_URL/login" 2>/dev/null; then
   echo "Something already answers on $APP_URL; set BENCH_PORT to a free port." >&2
   exit 1

@@ -11,7 +11,7 @@ node_modules/.bin/tsx scripts/migrate.ts up
 node_modules/.bin/tsx scripts/seed.ts >/dev/null
 echo "== engine (one core)"
 node_modules/.bin/tsx scripts/bench/sizing-engine.ts
-[ -f .next/BUILD_ID ] || node_modules/.bin/next build
+source scripts/bench/ensure-build.sh
 setsid node scripts/serve.mjs -H 127.0.0.1 -p "$APP_PORT" > "$DATA_DIR/bench-server.log" 2>&1 &
 APP_PID=$!
 trap 'kill -- -$APP_PID 2>/dev/null || true' EXIT

@@ -2,9 +2,12 @@ import crypto from 'node:crypto';
 
 import { beforeAll, describe, expect, it } from 'vitest';
 
+import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import * as boardSizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as sizingRoute from '@/app/api/sizing/route';
+import type { BoardDto } from '@/lib/boards/types';
 import type { BoardResult, CircuitResult } from '@/lib/sizing';
+import { Board, Way } from '@/models';
 import { demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -134,5 +137,90 @@ describe('POST /api/boards/:boardId/sizing', () => {
     expect(paths).toEqual(
       expect.arrayContaining(['draft.settings.phases', 'draft.ways.1.device.modules']),
     );
+  });
+
+  describe('the stored board, sized once per stored state', () => {
+    const sizeStored = async (boardId: string) => {
+      const res = await boardSizingRoute.POST(jsonRequest('POST'), ctx({ boardId }));
+      expect(res.status).toBe(200);
+      expect(res.headers.get('content-type')).toMatch(/^application\/json/);
+      return (await res.json()) as BoardResult;
+    };
+    const sizeDraft = async (board: BoardDto) => {
+      const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = board;
+      const ways = board.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
+      const settings = { name, location, phases, supply, incoming, enclosureModules, rails, dwelling };
+      const res = await boardSizingRoute.POST(jsonRequest('POST', { draft: { settings, ways } }), ctx({ boardId: board.id }));
+      expect(res.status).toBe(200);
+      return (await res.json()) as BoardResult;
+    };
+    const load = async (boardId: string) =>
+      (await (await boardRoute.GET(jsonRequest('GET'), ctx({ boardId }))).json()).board as BoardDto;
+    const dropOf = (result: BoardResult, wayId: string) => result.ways.find((w) => w.id === wayId)?.result?.vdV;
+
+    it('answers the same as sizing the same ways as a draft, asked once or again', async () => {
+      signInAs(ours.users.designer);
+      const { board } = await makeBoard(ours.org.id, 'workshop');
+      const fresh = await sizeDraft(await load(board.id));
+      expect(await sizeStored(board.id)).toEqual(fresh);
+      expect(await sizeStored(board.id)).toEqual(fresh);
+    });
+
+    it('follows every save', async () => {
+      signInAs(ours.users.designer);
+      const { board } = await makeBoard(ours.org.id, 'workshop');
+      const before = await load(board.id);
+      const target = before.ways.find((w) => w.circuit)!;
+      const first = await sizeStored(board.id);
+      // Save the board with that circuit 7 m longer
+      const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = before;
+      const ways = before.ways.map(({ id, rail, position, device, circuit }) => ({
+        id, rail, position, device,
+        circuit: id === target.id ? { ...circuit!, lengthM: circuit!.lengthM + 7 } : circuit,
+      }));
+      const saved = await boardRoute.PUT(
+        jsonRequest('PUT', {
+          version: before.version,
+          settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
+          ways,
+        }),
+        ctx({ boardId: board.id }),
+      );
+      expect(saved.status).toBe(200);
+      const after = await sizeStored(board.id);
+      // A longer run drops more volts (mV/A/m × Ib × L), and the answer is the saved board's
+      expect(dropOf(after, target.id)).toBeGreaterThan(dropOf(first, target.id)!);
+      expect(after).toEqual(await sizeDraft(await load(board.id)));
+    });
+
+    it('sizes afresh a board that is back at a version number it had, with other ways (as after a restore)', async () => {
+      signInAs(ours.users.designer);
+      const { board } = await makeBoard(ours.org.id, 'workshop');
+      const before = await load(board.id);
+      const target = before.ways.find((w) => w.circuit)!;
+      const first = await sizeStored(board.id);
+      // Written behind the app's back: same version number, other circuit, later updated_at
+      await Way.update({ circuit: { ...target.circuit!, lengthM: 33 } }, { where: { id: target.id } });
+      await Board.update({ version: before.version, name: `${before.name} ` }, { where: { id: board.id } });
+      const now = await load(board.id);
+      expect(now.version).toBe(before.version);
+      const after = await sizeStored(board.id);
+      expect(dropOf(after, target.id)).not.toBe(dropOf(first, target.id));
+      expect(after).toEqual(await sizeDraft(now));
+    });
+
+    it('refuses a stored board the engine cannot size with 400 and field paths', async () => {
+      signInAs(ours.users.designer);
+      const { board } = await makeBoard(ours.org.id, 'workshop');
+      const before = await load(board.id);
+      const target = before.ways.find((w) => w.circuit)!;
+      // A circuit length no save accepts, written behind the app's back
+      await Way.update({ circuit: { ...target.circuit!, lengthM: -5 } }, { where: { id: target.id } });
+      await Board.update({ name: `${before.name} ` }, { where: { id: board.id } });
+      const res = await boardSizingRoute.POST(jsonRequest('POST'), ctx({ boardId: board.id }));
+      expect(res.status).toBe(400);
+      const paths = (await res.json()).issues.map((i: { path: string }) => i.path);
+      expect(paths.some((p: string) => p.endsWith('circuit.lengthM'))).toBe(true);
+    });
   });
 });

@@ -4,7 +4,8 @@ import { fieldIssues, parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
-import { getBoard, requireBoard } from '@/lib/dal/boards';
+import { storedBoardSizing } from '@/lib/dal/board-sizing';
+import { requireBoard } from '@/lib/dal/boards';
 import { badRequest } from '@/lib/errors';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
@@ -26,17 +27,16 @@ export const POST = route<{ boardId: string }>(async (req, params) => {
   const actor = await requireActor('sizing.run');
   // Body (optional draft)
   const body = await parseBody(req, bodySchema);
-  // Ownership, and the ways to size: the draft sent, or the stored board
-  let input;
-  if (body?.draft) {
-    await requireBoard(actor, boardId);
-    input = boardSizingInput(body.draft.settings, body.draft.ways);
-  } else {
-    const board = await getBoard(actor, boardId);
-    input = boardSizingInput(board, board.ways);
+  // The stored board: sized once per stored state (see `storedBoardSizing`)
+  if (!body?.draft) {
+    const stored = await storedBoardSizing(actor, boardId);
+    if (!stored.sizing) throw badRequest(stored.issues);
+    return new Response(stored.json, { headers: { 'content-type': 'application/json' } });
   }
-  // The board-level rules (duplicate ids, circuits on devices that feed none) as field issues
-  const checked = boardInputSchema.safeParse(input);
+  // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
+  // that feed none) as field issues
+  await requireBoard(actor, boardId);
+  const checked = boardInputSchema.safeParse(boardSizingInput(body.draft.settings, body.draft.ways));
   if (!checked.success) throw badRequest(fieldIssues(checked.error));
   return Response.json(sizeBoard(checked.data));
 });
