@@ -31,7 +31,7 @@ export const POST = route<{ boardId: string }>(async (req, params) => {
   if (!body?.draft) {
     const stored = await storedBoardSizing(actor, boardId);
     if (!stored.sizing) throw badRequest(stored.issues);
-    return new Response(stored.json, { headers: { 'content-type': 'application/json' } });
+    return new Response(stored.body, { headers: { 'content-type': 'application/json' } });
   }
   // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
   // that feed none) as field issues
