@@ -7,7 +7,7 @@ import type { Actor } from '@/lib/auth/session';
 import type { BoardSnapshot } from '@/lib/boards/revision-diff';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import type { BoardDto } from '@/lib/boards/types';
-import { getBoard, requireBoard, type BoardStamp } from '@/lib/dal/boards';
+import { getBoardUnless, type BoardStamp } from '@/lib/dal/boards';
 import type { FieldIssue } from '@/lib/errors';
 import { boardInputSchema, sizeBoard, type BoardResult } from '@/lib/sizing';
 
@@ -51,38 +51,39 @@ function deepFreeze<T>(value: T): T {
 }
 
 /**
- * Stored sizings by board state, in each server process. The result is a pure function of
- * the board's settings and ways, and every write of those (`saveBoard`, the review steps)
- * raises the board's version and `updated_at`, so the key names one stored state. The key
- * takes `updated_at` too, so that a database restored to an older version and edited again
- * cannot meet an entry of the same version number. Bounded by an estimate of the answer's
- * size (about 1.3 kB a way).
+ * The last stored state sized of each board, in each server process, with that state's stamp.
+ * The result is a pure function of the board's settings and ways, and every write of those
+ * (`saveBoard`, the review steps) raises the board's version and `updated_at`, so the stamp
+ * names one stored state. It takes `updated_at` too, so that a database restored to an older
+ * version and edited again cannot meet an entry of the same version number. Bounded by an
+ * estimate of the answer's size (about 1.3 kB a way). On globalThis: the route's bundle and
+ * the pages' share it.
  */
-const memo: LRUCache<string, StoredSizing> = ((globalThis as { __boardSizingMemo?: LRUCache<string, StoredSizing> })
-  .__boardSizingMemo ??= new LRUCache<string, StoredSizing>({
+type Kept = { stamp: BoardStamp; sized: StoredSizing };
+const memo: LRUCache<string, Kept> = ((globalThis as { __boardSizingMemo?: LRUCache<string, Kept> })
+  .__boardSizingMemo ??= new LRUCache<string, Kept>({
   maxSize: 32 * 1024 * 1024,
-  sizeCalculation: (entry) => 2048 + entry.wayCount * 1536,
+  sizeCalculation: (kept) => 2048 + kept.sized.wayCount * 1536,
 }));
 
-const memoKey = (boardId: string, stamp: BoardStamp) => `${boardId}@${stamp.version}@${stamp.updatedAt}`;
-
-/** The sizing of a board just read, from the memo when that state was sized before. */
+/** The sizing of a board just read: the kept one when it is of this very state. */
 export function sizeStoredBoard(board: BoardDto): StoredSizing {
-  const key = memoKey(board.id, board);
-  let entry = memo.get(key);
-  if (!entry) {
-    entry = new StoredSizing(sizeSnapshot({ settings: board, ways: board.ways }), board.ways.length);
-    memo.set(key, entry);
+  const kept = memo.get(board.id);
+  if (kept && kept.stamp.version === board.version && kept.stamp.updatedAt === board.updatedAt) {
+    return kept.sized;
   }
-  return entry;
+  const sized = new StoredSizing(sizeSnapshot({ settings: board, ways: board.ways }), board.ways.length);
+  memo.set(board.id, { stamp: { version: board.version, updatedAt: board.updatedAt }, sized });
+  return sized;
 }
 
 /**
- * The stored board's sizing, checked to be the caller's organisation's (404 otherwise).
- * One small statement reads the board's version; the board itself is read and sized only
- * when that state is not in the memo.
+ * The stored board's sizing, checked to be the caller's organisation's (404 otherwise), in
+ * one statement: it answers the board's stamp only when the kept sizing is still current,
+ * else the board, which is sized and kept.
  */
 export async function storedBoardSizing(actor: Actor, boardId: string): Promise<StoredSizing> {
-  const stamp = await requireBoard(actor, boardId);
-  return memo.get(memoKey(boardId, stamp)) ?? sizeStoredBoard(await getBoard(actor, boardId));
+  const kept = memo.get(boardId);
+  const { board } = await getBoardUnless(actor, boardId, kept?.stamp ?? null);
+  return board ? sizeStoredBoard(board) : kept!.sized;
 }

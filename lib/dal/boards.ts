@@ -97,44 +97,67 @@ const isoSql = (column: string) => `to_char(${column} AT TIME ZONE 'UTC', 'YYYY-
 /** What names one stored state of a board: its version and when it was last written. */
 export type BoardStamp = { version: number; updatedAt: string };
 
-/**
- * That the board is the caller's organisation's, or 404, with its stamp: one small named
- * statement. `updatedAt` is formatted as in the board DTO, so the two compare equal.
- */
-export async function requireBoard(actor: Actor, boardId: string): Promise<BoardStamp> {
-  const rows = await namedQuery<BoardStamp>(
-    'board-stamp',
-    `select version, ${isoSql('updated_at')} as "updatedAt"
-     from boards where id = $1 and organisation_id = $2`,
-    [boardId, actor.organisationId],
-  );
+/** That the board is the caller's organisation's, or 404: one small named statement. */
+export async function requireBoard(actor: Actor, boardId: string): Promise<void> {
+  const rows = await namedQuery('board-owned', 'select 1 from boards where id = $1 and organisation_id = $2', [
+    boardId,
+    actor.organisationId,
+  ]);
   if (!rows.length) throw notFound('The board');
-  return rows[0];
 }
 
 /**
  * One board with its ways, in rail order, as the DTO itself: PostgreSQL builds the JSON in
  * one query, so Node parses one string instead of building rows (the board read was most
  * of the sizing route's time). Keep the fields in step with `boardDto`; the integration
- * tests compare the two.
+ * tests compare the two. `b` is the alias of the boards row.
  */
-const BOARD_DTO_SQL = `
-SELECT json_build_object(
-  'id', b.id, 'siteId', b.site_id, 'siteName', s.name,
-  'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
-  'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails,
-  'dwelling', b.dwelling, 'status', b.status, 'version', b.version, 'revision', b.revision,
-  'updatedAt', ${isoSql('b.updated_at')},
+const boardDtoSql = (b: string) => `json_build_object(
+  'id', ${b}.id, 'siteId', ${b}.site_id, 'siteName', (SELECT s.name FROM sites s WHERE s.id = ${b}.site_id),
+  'name', ${b}.name, 'location', ${b}.location, 'phases', ${b}.phases, 'supply', ${b}.supply,
+  'incoming', ${b}.incoming, 'enclosureModules', ${b}.enclosure_modules, 'rails', ${b}.rails,
+  'dwelling', ${b}.dwelling, 'status', ${b}.status, 'version', ${b}.version, 'revision', ${b}.revision,
+  'updatedAt', ${isoSql(`${b}.updated_at`)},
   'ways', COALESCE((
     SELECT json_agg(json_build_object(
       'id', w.id, 'rail', w.rail, 'position', w.position, 'device', w.device,
       'circuit', w.circuit, 'labelStatus', w.label_status, 'labelNote', w.label_note
     ) ORDER BY w.rail, w.position)
-    FROM ways w WHERE w.board_id = b.id
+    FROM ways w WHERE w.board_id = ${b}.id
   ), '[]'::json)
-)::text AS dto
-FROM boards b JOIN sites s ON s.id = b.site_id
-WHERE b.id = $1 AND b.organisation_id = $2`;
+)::text`;
+
+const BOARD_DTO_SQL = `SELECT ${boardDtoSql('b')} AS dto FROM boards b WHERE b.id = $1 AND b.organisation_id = $2`;
+
+/**
+ * The board's stamp, and the board itself unless its stamp is still `known` ($3, $4): one
+ * statement either way, and only the boards row is touched when the stamp matches (the
+ * ways are read inside the CASE, which PostgreSQL evaluates only when it must).
+ */
+const BOARD_UNLESS_SQL = `
+SELECT b.version, ${isoSql('b.updated_at')} AS "updatedAt",
+  CASE WHEN b.version = $3 AND ${isoSql('b.updated_at')} = $4 THEN NULL ELSE ${boardDtoSql('b')} END AS dto
+FROM boards b WHERE b.id = $1 AND b.organisation_id = $2`;
+
+/**
+ * The caller's organisation's board (404 otherwise): its stamp, and the board DTO unless the
+ * stamp equals `known` (then `board` is null: what the caller kept is still current).
+ */
+export async function getBoardUnless(
+  actor: Actor,
+  boardId: string,
+  known: BoardStamp | null,
+): Promise<{ stamp: BoardStamp; board: BoardDto | null }> {
+  const rows = await namedQuery<BoardStamp & { dto: string | null }>('board-unless', BOARD_UNLESS_SQL, [
+    boardId,
+    actor.organisationId,
+    known?.version ?? -1,
+    known?.updatedAt ?? '',
+  ]);
+  if (!rows.length) throw notFound('The board');
+  const { version, updatedAt, dto } = rows[0];
+  return { stamp: { version, updatedAt }, board: dto === null ? null : (JSON.parse(dto) as BoardDto) };
+}
 
 export async function getBoard(actor: Actor, boardId: string): Promise<BoardDto> {
   const rows = await namedQuery<{ dto: string }>('board-dto', BOARD_DTO_SQL, [boardId, actor.organisationId]);

@@ -209,6 +209,19 @@ describe('POST /api/boards/:boardId/sizing', () => {
       expect(after).toEqual(await sizeDraft(now));
     });
 
+    it('keeps the answer while the board row is not written (so every write path must raise its version)', async () => {
+      signInAs(ours.users.designer);
+      const { board } = await makeBoard(ours.org.id, 'workshop');
+      const target = (await load(board.id)).ways.find((w) => w.circuit)!;
+      const first = await sizeStored(board.id);
+      // A way changed behind the app's back, the board row left alone: the kept answer stands
+      await Way.update({ circuit: { ...target.circuit!, lengthM: 44 } }, { where: { id: target.id } });
+      expect(await sizeStored(board.id)).toEqual(first);
+      // Once the board row is written (as every save does), the change is seen
+      await Board.update({ version: (await load(board.id)).version + 1 }, { where: { id: board.id } });
+      expect(dropOf(await sizeStored(board.id), target.id)).not.toBe(dropOf(first, target.id));
+    });
+
     it('refuses a stored board the engine cannot size with 400 and field paths', async () => {
       signInAs(ours.users.designer);
       const { board } = await makeBoard(ours.org.id, 'workshop');
