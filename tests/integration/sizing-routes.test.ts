@@ -3,6 +3,7 @@ import crypto from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
+import { saveBodyOf } from '@/app/api/route-table';
 import * as boardSizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as sizingRoute from '@/app/api/sizing/route';
 import type { BoardDto } from '@/lib/boards/types';
@@ -147,9 +148,7 @@ describe('POST /api/boards/:boardId/sizing', () => {
       return (await res.json()) as BoardResult;
     };
     const sizeDraft = async (board: BoardDto) => {
-      const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = board;
-      const ways = board.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
-      const settings = { name, location, phases, supply, incoming, enclosureModules, rails, dwelling };
+      const { settings, ways } = saveBodyOf(board);
       const res = await boardSizingRoute.POST(jsonRequest('POST', { draft: { settings, ways } }), ctx({ boardId: board.id }));
       expect(res.status).toBe(200);
       return (await res.json()) as BoardResult;
@@ -173,19 +172,10 @@ describe('POST /api/boards/:boardId/sizing', () => {
       const target = before.ways.find((w) => w.circuit)!;
       const first = await sizeStored(board.id);
       // Save the board with that circuit 7 m longer
-      const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = before;
-      const ways = before.ways.map(({ id, rail, position, device, circuit }) => ({
-        id, rail, position, device,
-        circuit: id === target.id ? { ...circuit!, lengthM: circuit!.lengthM + 7 } : circuit,
-      }));
-      const saved = await boardRoute.PUT(
-        jsonRequest('PUT', {
-          version: before.version,
-          settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
-          ways,
-        }),
-        ctx({ boardId: board.id }),
+      const ways = before.ways.map((w) =>
+        w.id === target.id ? { ...w, circuit: { ...w.circuit!, lengthM: w.circuit!.lengthM + 7 } } : w,
       );
+      const saved = await boardRoute.PUT(jsonRequest('PUT', saveBodyOf({ ...before, ways })), ctx({ boardId: board.id }));
       expect(saved.status).toBe(200);
       const after = await sizeStored(board.id);
       // A longer run drops more volts (mV/A/m × Ib × L), and the answer is the saved board's
