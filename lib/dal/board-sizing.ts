@@ -55,15 +55,16 @@ function deepFreeze<T>(value: T): T {
  * The result is a pure function of the board's settings and ways, and every write of those
  * (`saveBoard`, the review steps) raises the board's version and `updated_at`, so the stamp
  * names one stored state. It takes `updated_at` too, so that a database restored to an older
- * version and edited again cannot meet an entry of the same version number. Bounded by an
- * estimate of the answer's size (about 1.3 kB a way). On globalThis: the route's bundle and
- * the pages' share it.
+ * version and edited again cannot meet an entry of the same version number. Bounded to about
+ * 32 MB a process by an estimate of each entry's memory: about 3 kB a way, the result's
+ * objects and its JSON bytes (measured: 108 kB for 37 ways), so some 300 such boards. On
+ * globalThis: the route's bundle and the pages' share it.
  */
 type Kept = { stamp: BoardStamp; sized: StoredSizing };
 const memo: LRUCache<string, Kept> = ((globalThis as { __boardSizingMemo?: LRUCache<string, Kept> })
   .__boardSizingMemo ??= new LRUCache<string, Kept>({
   maxSize: 32 * 1024 * 1024,
-  sizeCalculation: (kept) => 2048 + kept.sized.wayCount * 1536,
+  sizeCalculation: (kept) => 4096 + kept.sized.wayCount * 3072,
 }));
 
 /** The sizing of a board just read: the kept one when it is of this very state. */
