@@ -107,41 +107,40 @@ export async function requireBoard(actor: Actor, boardId: string): Promise<void>
 }
 
 /**
- * One board with its ways, in rail order, as the DTO itself: PostgreSQL builds the JSON in
- * one query, so Node parses one string instead of building rows (the board read was most
- * of the sizing route's time). Keep the fields in step with `boardDto`; the integration
- * tests compare the two. `b` is the alias of the boards row.
+ * One board with its ways, in rail order, as the DTO itself: PostgreSQL builds the JSON, so
+ * Node parses one string instead of building rows (the board read was most of the sizing
+ * route's time). Keep the fields in step with `boardDto`; the integration tests compare the
+ * two. `b` is the boards row.
  */
-const boardDtoSql = (b: string) => `json_build_object(
-  'id', ${b}.id, 'siteId', ${b}.site_id, 'siteName', (SELECT s.name FROM sites s WHERE s.id = ${b}.site_id),
-  'name', ${b}.name, 'location', ${b}.location, 'phases', ${b}.phases, 'supply', ${b}.supply,
-  'incoming', ${b}.incoming, 'enclosureModules', ${b}.enclosure_modules, 'rails', ${b}.rails,
-  'dwelling', ${b}.dwelling, 'status', ${b}.status, 'version', ${b}.version, 'revision', ${b}.revision,
-  'updatedAt', ${isoSql(`${b}.updated_at`)},
+const BOARD_DTO_JSON = `json_build_object(
+  'id', b.id, 'siteId', b.site_id, 'siteName', (SELECT s.name FROM sites s WHERE s.id = b.site_id),
+  'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
+  'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails,
+  'dwelling', b.dwelling, 'status', b.status, 'version', b.version, 'revision', b.revision,
+  'updatedAt', ${isoSql('b.updated_at')},
   'ways', COALESCE((
     SELECT json_agg(json_build_object(
       'id', w.id, 'rail', w.rail, 'position', w.position, 'device', w.device,
       'circuit', w.circuit, 'labelStatus', w.label_status, 'labelNote', w.label_note
     ) ORDER BY w.rail, w.position)
-    FROM ways w WHERE w.board_id = ${b}.id
+    FROM ways w WHERE w.board_id = b.id
   ), '[]'::json)
 )::text`;
 
-const BOARD_DTO_SQL = `SELECT ${boardDtoSql('b')} AS dto FROM boards b WHERE b.id = $1 AND b.organisation_id = $2`;
-
 /**
- * The board's stamp, and the board itself unless its stamp is still `known` ($3, $4): one
- * statement either way, and only the boards row is touched when the stamp matches (the
- * ways are read inside the CASE, which PostgreSQL evaluates only when it must).
+ * The board's stamp, and the board itself unless its stamp is still `known` ($3, $4): only
+ * the boards row is touched when the stamp matches (the ways are read inside the CASE, which
+ * PostgreSQL evaluates only when it must).
  */
 const BOARD_UNLESS_SQL = `
 SELECT b.version, ${isoSql('b.updated_at')} AS "updatedAt",
-  CASE WHEN b.version = $3 AND ${isoSql('b.updated_at')} = $4 THEN NULL ELSE ${boardDtoSql('b')} END AS dto
+  CASE WHEN b.version = $3 AND ${isoSql('b.updated_at')} = $4 THEN NULL ELSE ${BOARD_DTO_JSON} END AS dto
 FROM boards b WHERE b.id = $1 AND b.organisation_id = $2`;
 
 /**
- * The caller's organisation's board (404 otherwise): its stamp, and the board DTO unless the
- * stamp equals `known` (then `board` is null: what the caller kept is still current).
+ * The caller's organisation's board (404 otherwise), in one named statement: its stamp, and
+ * the board DTO unless the stamp equals `known` (then `board` is null: what the caller kept
+ * is still current).
  */
 export async function getBoardUnless(
   actor: Actor,
@@ -159,10 +158,9 @@ export async function getBoardUnless(
   return { stamp: { version, updatedAt }, board: dto === null ? null : (JSON.parse(dto) as BoardDto) };
 }
 
+/** The caller's organisation's board with its ways (404 otherwise). */
 export async function getBoard(actor: Actor, boardId: string): Promise<BoardDto> {
-  const rows = await namedQuery<{ dto: string }>('board-dto', BOARD_DTO_SQL, [boardId, actor.organisationId]);
-  if (!rows.length) throw notFound('The board');
-  return JSON.parse(rows[0].dto) as BoardDto;
+  return (await getBoardUnless(actor, boardId, null)).board!;
 }
 
 export async function createBoard(actor: Actor, input: BoardCreateInput): Promise<BoardDto> {
@@ -219,11 +217,6 @@ export function diffWays(before: WayInput[], after: WayInput[]) {
   return { added, removed, moved, changed };
 }
 
-/**
- * Saves a whole board in one transaction. The row is locked and the caller's version
- * must be the stored one: a stale save gets 409 with the stored board, and nothing is
- * written. Saving an issued or verified board starts the next draft revision.
- */
 /**
  * Writes a save in one statement, and only if the board is still at the version and status the
  * caller's read found (the UPDATE of the board row takes its lock, so concurrent saves queue on
@@ -285,8 +278,10 @@ type SavedRow = {
 
 /**
  * Saves the whole board at the version the editor opened, in two round trips: the board as
- * stored (one query), then one statement that writes it (SAVE_SQL). The answer is built from
- * what was written, without reading the board again.
+ * stored (one query), then one statement that writes it (SAVE_SQL). A stale save gets 409
+ * with the current version, and nothing is written; saving an issued or verified board starts
+ * the next draft revision. The answer is built from what was written, without reading the
+ * board again.
  */
 export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveInput): Promise<BoardDto> {
   const stored = await getBoard(actor, boardId);
@@ -330,23 +325,23 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
   let rows: SavedRow[];
   try {
     rows = await namedQuery<SavedRow>('board-save', SAVE_SQL, [
-        boardId,
-        actor.organisationId,
-        input.version,
-        settings.name,
-        settings.location,
-        settings.phases,
-        JSON.stringify(settings.supply),
-        JSON.stringify(settings.incoming),
-        settings.enclosureModules,
-        settings.rails,
-        settings.dwelling,
-        startsRevision,
-        stored.status,
-        JSON.stringify(writes),
-        diff.removed,
-        actor.userId,
-        JSON.stringify(events),
+      boardId,
+      actor.organisationId,
+      input.version,
+      settings.name,
+      settings.location,
+      settings.phases,
+      JSON.stringify(settings.supply),
+      JSON.stringify(settings.incoming),
+      settings.enclosureModules,
+      settings.rails,
+      settings.dwelling,
+      startsRevision,
+      stored.status,
+      JSON.stringify(writes),
+      diff.removed,
+      actor.userId,
+      JSON.stringify(events),
     ]);
   } catch (err) {
     // A new way's id that some way already has (on this board or any other)

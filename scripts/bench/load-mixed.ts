@@ -19,14 +19,12 @@ import { Board, Organisation, Site, User, Way } from '@/models';
 import { demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
 
 import { signInCookie } from './http-session';
-import { load, quantile } from './load';
+import { load, quantile, serverWorkers } from './load';
 
 const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3300';
 const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const duration = Number(process.env.BENCH_SECONDS ?? 30);
 const warmup = Number(process.env.BENCH_WARMUP_SECONDS ?? 10);
-// scripts/serve.mjs runs this many server workers
-const workers = Number(process.env.WEB_CONCURRENCY) || os.availableParallelism();
 const BENCH_ORG = 'Load bench (not a customer)';
 const BENCH_EMAIL = 'load-bench-designer@bench.example.test';
 
@@ -173,7 +171,7 @@ async function main() {
   const errors = result.errors + result.non2xx;
   console.log(
     `load: ${connections} connections for ${duration} s after a ${warmup} s warm-up at the same load (not counted), ` +
-      `against ${baseUrl} (production build, ${workers} workers, loopback); ` +
+      `against ${baseUrl} (production build, ${serverWorkers} workers, loopback); ` +
       `one ${ways}-way bench board per connection, cycle read → size → save`,
   );
   console.log(

@@ -4,7 +4,6 @@
  * Needs a running server at APP_URL with the demo seeded (scripts/bench/sizing.sh does that).
  */
 import crypto from 'node:crypto';
-import os from 'node:os';
 
 import { saveBodyOf } from '@/app/api/route-table';
 import type { BoardDto } from '@/lib/boards/types';
@@ -13,13 +12,11 @@ import { Board, Organisation, Site, Way } from '@/models';
 import { DEMO_ORG, demoUser, demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
 
 import { signInCookie } from './http-session';
-import { describe, load } from './load';
+import { describe, load, serverWorkers } from './load';
 
 const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3200';
 const duration = Number(process.env.BENCH_SECONDS ?? 10);
 const warmup = Number(process.env.BENCH_WARMUP_SECONDS ?? 5);
-// scripts/serve.mjs runs this many server workers
-const workers = Number(process.env.WEB_CONCURRENCY) || os.availableParallelism();
 
 /** A 36-way three-phase board: the workshop's ways, repeated, under a bench-only name. */
 async function benchBoard(): Promise<string> {
@@ -61,7 +58,7 @@ async function main() {
   const sizing = await sizingRun(duration);
   console.log(
     `board: ${ways} ways; 16 connections, ${duration} s each after ${warmup} s of warm-up (not counted), ` +
-      `${baseUrl} (${workers} workers)`,
+      `${baseUrl} (${serverWorkers} workers)`,
   );
   console.log(describe('GET /api/me (trivial, signed in)', trivial));
   console.log(describe('POST /api/boards/:id/sizing', sizing));

@@ -156,6 +156,14 @@ describe('POST /api/boards/:boardId/sizing', () => {
     const load = async (boardId: string) =>
       (await (await boardRoute.GET(jsonRequest('GET'), ctx({ boardId }))).json()).board as BoardDto;
     const dropOf = (result: BoardResult, wayId: string) => result.ways.find((w) => w.id === wayId)?.result?.vdV;
+    /** A new workshop board as a designer sees it, a way with a circuit, and its first stored sizing. */
+    const sizedWorkshop = async () => {
+      signInAs(ours.users.designer);
+      const { board } = await makeBoard(ours.org.id, 'workshop');
+      const before = await load(board.id);
+      const target = before.ways.find((w) => w.circuit)!;
+      return { board, before, target, first: await sizeStored(board.id) };
+    };
 
     it('answers the same as sizing the same ways as a draft, asked once or again', async () => {
       signInAs(ours.users.designer);
@@ -166,11 +174,7 @@ describe('POST /api/boards/:boardId/sizing', () => {
     });
 
     it('follows every save', async () => {
-      signInAs(ours.users.designer);
-      const { board } = await makeBoard(ours.org.id, 'workshop');
-      const before = await load(board.id);
-      const target = before.ways.find((w) => w.circuit)!;
-      const first = await sizeStored(board.id);
+      const { board, before, target, first } = await sizedWorkshop();
       // Save the board with that circuit 7 m longer
       const ways = before.ways.map((w) =>
         w.id === target.id ? { ...w, circuit: { ...w.circuit!, lengthM: w.circuit!.lengthM + 7 } } : w,
@@ -184,11 +188,7 @@ describe('POST /api/boards/:boardId/sizing', () => {
     });
 
     it('sizes afresh a board that is back at a version number it had, with other ways (as after a restore)', async () => {
-      signInAs(ours.users.designer);
-      const { board } = await makeBoard(ours.org.id, 'workshop');
-      const before = await load(board.id);
-      const target = before.ways.find((w) => w.circuit)!;
-      const first = await sizeStored(board.id);
+      const { board, before, target, first } = await sizedWorkshop();
       // Written behind the app's back: same version number, other circuit, later updated_at
       await Way.update({ circuit: { ...target.circuit!, lengthM: 33 } }, { where: { id: target.id } });
       await Board.update({ version: before.version, name: `${before.name} ` }, { where: { id: board.id } });
@@ -200,10 +200,7 @@ describe('POST /api/boards/:boardId/sizing', () => {
     });
 
     it('keeps the answer while the board row is not written (so every write path must raise its version)', async () => {
-      signInAs(ours.users.designer);
-      const { board } = await makeBoard(ours.org.id, 'workshop');
-      const target = (await load(board.id)).ways.find((w) => w.circuit)!;
-      const first = await sizeStored(board.id);
+      const { board, target, first } = await sizedWorkshop();
       // A way changed behind the app's back, the board row left alone: the kept answer stands
       await Way.update({ circuit: { ...target.circuit!, lengthM: 44 } }, { where: { id: target.id } });
       expect(await sizeStored(board.id)).toEqual(first);
