@@ -5,8 +5,15 @@
 set -uo pipefail
 # The suite sets its own addresses: nothing inherited from a demo shell may point it elsewhere.
 unset DATABASE_URL DATABASE_OWNER_URL APP_URL NEXTAUTH_URL S3_ENDPOINT SMTP_HOST NEXT_DIST_DIR
-export DB_NAME=boardwright_test APP_PORT=3100 SMTP_PORT=2535 S3_PORT=4579
-export MAIL_CATCHER_URL=http://127.0.0.1:2536 S3_BUCKET=boardwright-test
+# TEST_PORT_BASE moves the suite's ports (app, SMTP, catcher, S3, the faults test's PostgreSQL)
+# so that two checkouts can run their suites side by side; PGPORT moves the project cluster.
+b=${TEST_PORT_BASE:-}
+export DB_NAME=boardwright_test S3_BUCKET=boardwright-test
+export APP_PORT=${b:-3100}
+export SMTP_PORT=$([ -n "$b" ] && echo $((b + 1)) || echo 2535)
+export MAIL_CATCHER_URL=http://127.0.0.1:$([ -n "$b" ] && echo $((b + 2)) || echo 2536)
+export S3_PORT=$([ -n "$b" ] && echo $((b + 3)) || echo 4579)
+if [ -n "$b" ]; then export FAULT_PGPORT=$((b + 4)); fi
 source "$(dirname "$0")/env.sh"
 cd "$ROOT"
 set -e
