@@ -1,9 +1,8 @@
 import { CircleAlert, CircleCheck, CircleX } from 'lucide-react';
 
 import { cn } from '@/lib/cn';
+import { VERDICT_WORDS } from '@/lib/names';
 import type { Verdict } from '@/lib/sizing';
-
-import { VERDICT_WORDS } from './labels';
 
 const tone: Record<Verdict, string> = {
   passes: 'border-verdict-pass/40 bg-verdict-pass-bg text-verdict-pass',

@@ -3,6 +3,8 @@
  * revision and the live draft). Pure: the review page, the board page and the e-mails
  * all describe a change the same way.
  */
+import { deviceName } from '@/lib/names';
+
 import { layoutWays, railOrder } from './layout';
 import type { BoardSettings, WayInput } from './schemas';
 
@@ -84,32 +86,6 @@ const FIELD_LABELS: Record<string, string> = {
 // The phase a single-pole device sits on follows from its position; a move already says it.
 const IGNORED = new Set(['device.phase']);
 
-const DEVICE_WORDS: Record<string, string> = {
-  'main-switch': 'Main switch',
-  rcd: 'RCD',
-  mcb: 'MCB',
-  rcbo: 'RCBO',
-  'fuse-bs88-2': 'Fuse BS 88-2',
-  'fuse-bs88-3': 'Fuse BS 88-3',
-  'fuse-bs3036': 'Rewirable fuse BS 3036',
-  spd: 'SPD',
-  blank: 'Blank',
-};
-
-/** A short description of a rail device, e.g. "MCB B32" or "RCD 30 mA". */
-export function describeDevice(device: SnapshotWay['device'], chosenRatingA?: number | null): string {
-  const word = DEVICE_WORDS[device.kind] ?? device.kind;
-  const rating = device.ratingA ?? chosenRatingA ?? null;
-  const parts = [word];
-  if (device.kind === 'mcb' || device.kind === 'rcbo') {
-    parts.push(`${device.curve ?? ''}${rating ?? '?'}`);
-  } else if (rating) {
-    parts.push(`${rating} A`);
-  }
-  if ((device.kind === 'rcd' || device.kind === 'rcbo') && device.rcdMa) parts.push(`${device.rcdMa} mA`);
-  return parts.join(' ');
-}
-
 /** The words printed on a way's label (the label strip, the walk and the schedule use them). */
 export function labelTextOf(way: Pick<SnapshotWay, 'device' | 'circuit'>): string {
   if (way.circuit) return way.circuit.serves?.trim() || 'Circuit (not named)';
@@ -182,7 +158,7 @@ function mention(way: SnapshotWay, ref: string | null): WayMention {
     id: way.id,
     ref,
     serves: way.circuit?.serves?.trim() || (way.circuit ? '(not named)' : 'Spare'),
-    device: describeDevice(way.device),
+    device: deviceName(way.device),
   };
 }
 

@@ -4,7 +4,8 @@ import { Op } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { layoutWays, railOrder } from '@/lib/boards/layout';
-import { describeDevice, labelTextOf, type SnapshotWay } from '@/lib/boards/revision-diff';
+import { labelTextOf, type SnapshotWay } from '@/lib/boards/revision-diff';
+import { deviceName } from '@/lib/names';
 import { db } from '@/lib/db';
 import { listAttachments, type AttachmentDto } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
@@ -86,7 +87,7 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
       id: w.id,
       ref: refs.get(w.id) ?? null,
       labelText: labelTextOf(way),
-      device: describeDevice(way.device),
+      device: deviceName(way.device),
       rail: w.rail,
       status: w.labelStatus,
       note: w.labelNote,

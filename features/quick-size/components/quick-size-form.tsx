@@ -6,16 +6,11 @@ import { useForm, type FieldErrors, type UseFormRegister } from 'react-hook-form
 import type { z } from 'zod';
 
 import { CircuitResultView } from '@/components/sizing/circuit-result-view';
-import {
-  CABLE_LABELS,
-  DEVICE_KIND_LABELS,
-  METHOD_LABELS,
-  USE_LABELS,
-} from '@/components/sizing/labels';
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Field, Input, Select } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
+import { CABLE_NAMES, deviceKindName, METHOD_NAMES, USE_NAMES } from '@/lib/names';
 import {
   CABLE_KINDS,
   circuitInputSchema,
@@ -171,7 +166,7 @@ export function QuickSizeForm() {
                 <Select id={id} {...register('circuit.use')}>
                   {CIRCUIT_USES.map((u) => (
                     <option key={u} value={u}>
-                      {USE_LABELS[u]}
+                      {USE_NAMES[u]}
                     </option>
                   ))}
                 </Select>
@@ -233,7 +228,7 @@ export function QuickSizeForm() {
                 <Select id={id} {...register('circuit.cable')}>
                   {CABLE_KINDS.map((c) => (
                     <option key={c} value={c}>
-                      {CABLE_LABELS[c]}
+                      {CABLE_NAMES[c]}
                     </option>
                   ))}
                 </Select>
@@ -244,7 +239,7 @@ export function QuickSizeForm() {
                 <Select id={id} {...register('circuit.method')}>
                   {methods.map((m) => (
                     <option key={m} value={m}>
-                      {METHOD_LABELS[m]}
+                      {METHOD_NAMES[m]}
                     </option>
                   ))}
                 </Select>
@@ -302,7 +297,7 @@ export function QuickSizeForm() {
                 <Select id={id} {...register('circuit.device.kind')}>
                   {PROTECTIVE_DEVICE_KINDS.map((k) => (
                     <option key={k} value={k}>
-                      {DEVICE_KIND_LABELS[k]}
+                      {deviceKindName(k)}
                     </option>
                   ))}
                 </Select>

@@ -15,7 +15,7 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { PageHeader } from '@/components/ui/page-header';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { ApiError, errorMessage } from '@/lib/api/client';
-import { describeDevice } from '@/lib/boards/revision-diff';
+import { deviceName } from '@/lib/names';
 import type { CommentDto, ReviewData } from '@/lib/dal/review';
 import type { CircuitResult } from '@/lib/sizing';
 
@@ -256,7 +256,7 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                     <td className={way.circuit ? 'px-3 py-2' : 'px-3 py-2 text-ink-faint'}>
                       {way.circuit ? way.circuit.serves || '(not named)' : data.refs[way.id] ? 'Spare' : ''}
                     </td>
-                    <td className="px-3 py-2 text-ink-soft">{describeDevice(way.device, r?.inA)}</td>
+                    <td className="px-3 py-2 text-ink-soft">{deviceName(way.device, r?.inA)}</td>
                     <td className="px-3 py-2 text-right tabular-nums">{fmt(r?.ibA, 1)}</td>
                     <td className="px-3 py-2 text-right tabular-nums">{r?.csaMm2 ?? '—'}</td>
                     <td className="px-3 py-2 text-right tabular-nums">{fmt(r?.izA, 1)}</td>

@@ -3,7 +3,8 @@
  * in rail order, split into strips that fit across an A4 page. Pure.
  */
 import { layoutWays, railOrder } from '@/lib/boards/layout';
-import { describeDevice, labelTextOf } from '@/lib/boards/revision-diff';
+import { labelTextOf } from '@/lib/boards/revision-diff';
+import { deviceName } from '@/lib/names';
 import type { ScheduleSource } from '@/lib/dal/review';
 
 /** The common DIN-rail module pitch, mm (one 1-pole MCB is 17.5 mm wide: common practice, EN 60715 rail). */
@@ -63,7 +64,7 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
           wayId: way.id,
           ref: refs.get(way.id) ?? null,
           text: labelTextOf(way),
-          device: way.device.kind === 'blank' ? '' : describeDevice(way.device),
+          device: way.device.kind === 'blank' ? '' : deviceName(way.device),
           modules,
         });
         module += modules;

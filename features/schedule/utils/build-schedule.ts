@@ -4,7 +4,8 @@
  * view both draw what this returns, so they always say the same thing.
  */
 import { layoutWays, railOrder } from '@/lib/boards/layout';
-import { describeDevice, type SnapshotWay } from '@/lib/boards/revision-diff';
+import { type SnapshotWay } from '@/lib/boards/revision-diff';
+import { deviceName } from '@/lib/names';
 import type { ScheduleSource } from '@/lib/dal/review';
 import { SIZING_CAUTION, type CircuitResult, type Verdict } from '@/lib/sizing';
 import type { LabelStatus } from '@/models/way';
@@ -130,7 +131,7 @@ export function formatDate(iso: string): string {
 }
 
 function protectionText(way: SnapshotWay, result: CircuitResult | null): string {
-  const text = describeDevice(way.device, result?.inA);
+  const text = deviceName(way.device, result?.inA);
   const parts = [text];
   if (way.device.poles > 1 && way.device.kind !== 'blank') parts.push(`${way.device.poles}P`);
   if (way.device.breakingKa) parts.push(`${way.device.breakingKa} kA`);
