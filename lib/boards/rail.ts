@@ -7,7 +7,8 @@
  * L1 position (see layout.ts), so the phase positions skipped before it are drawn as an empty
  * gap and count against the rail's modules.
  */
-import { isOutgoing, layoutWays, railOrder, type LayoutWay, type Phase } from './layout';
+import { layoutWays, railOrder, type LayoutWay, type Phase } from './layout';
+import { rcdProtection } from './rcd-protection';
 
 /** A device or an empty gap on one rail, `start` and `modules` in module widths. */
 export type RailCell =
@@ -196,44 +197,34 @@ export function reflowWays<T extends LayoutWay>(
 /** The ways an RCD protects, and the run of the rail its bracket spans. */
 export type RcdGroup = {
   rcdId: string;
-  /** Outgoing protective devices that take their RCD protection from this RCD (RCBOs protect themselves). */
+  /** Ways (spare ways included) that take their RCD protection from this RCD; RCBOs protect themselves. */
   protectedIds: string[];
-  /** Every device from the RCD to the last one before the next RCD or main switch, the RCD included. */
+  /** Every device from the RCD to the last way it protects, the RCD included. */
   spanIds: string[];
 };
 
-const PROTECTIVE = new Set(['mcb', 'fuse-bs88-2', 'fuse-bs88-3', 'fuse-bs3036']);
-
 /**
- * Which ways each RCD protects: the ways after it, in rail order across rails, until the next
- * RCD or main switch, as on a split-load board (product.md, Board model).
+ * Which ways each RCD protects, by the one rule of `rcdProtection` (rcd-protection.ts): the
+ * ways after it, in rail order across rails, until the next RCD or main switch; an RCBO
+ * protects itself.
  */
 export function rcdGroups(ways: readonly LayoutWay[]): RcdGroup[] {
+  const protection = rcdProtection(ways);
+  const ordered = railOrder(ways);
   const groups: RcdGroup[] = [];
-  let current: RcdGroup | null = null;
-  for (const way of railOrder(ways)) {
-    const kind = way.device.kind;
-    if (kind === 'main-switch') {
-      current = null;
-      continue;
-    }
-    if (kind === 'rcd') {
-      current = { rcdId: way.id, protectedIds: [], spanIds: [way.id] };
-      groups.push(current);
-      continue;
-    }
-    if (!current) continue;
-    current.spanIds.push(way.id);
-    if (PROTECTIVE.has(kind)) current.protectedIds.push(way.id);
-  }
-  // A bracket ends at the last device that is an outgoing way, not at a trailing SPD
-  const byId = new Map(ways.map((w) => [w.id, w]));
-  for (const group of groups) {
-    while (group.spanIds.length > 1) {
-      const last = byId.get(group.spanIds[group.spanIds.length - 1]);
-      if (last && isOutgoing(last.device.kind)) break;
-      group.spanIds.pop();
-    }
-  }
+  ordered.forEach((way, i) => {
+    if (way.device.kind !== 'rcd') return;
+    const covered = (w: LayoutWay) => {
+      const p = protection.get(w.id);
+      return p?.by === 'rcd' && p.rcdId === way.id;
+    };
+    const protectedIds = ordered.filter(covered).map((w) => w.id);
+    // The bracket runs from the RCD to the last way it protects (an RCBO inside it is drawn under it)
+    let last = i;
+    ordered.forEach((w, j) => {
+      if (covered(w)) last = j;
+    });
+    groups.push({ rcdId: way.id, protectedIds, spanIds: ordered.slice(i, last + 1).map((w) => w.id) });
+  });
   return groups;
 }

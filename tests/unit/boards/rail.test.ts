@@ -154,9 +154,21 @@ describe('rcdGroups', () => {
     const blank = way('blank');
     const ways = row(ms, rcd1, a, b, rcd2, c, blank);
     expect(rcdGroups(ways)).toEqual([
-      // The RCBO has its own RCD: inside the bracket, but not protected by this RCD.
-      { rcdId: rcd1.id, protectedIds: [a.id], spanIds: [rcd1.id, a.id, b.id] },
-      { rcdId: rcd2.id, protectedIds: [c.id], spanIds: [rcd2.id, c.id, blank.id] },
+      // The RCBO after the last way the RCD protects has its own RCD: the bracket stops before it
+      { rcdId: rcd1.id, protectedIds: [a.id], spanIds: [rcd1.id, a.id] },
+      // A spare way sits under the RCD before it, as the engine counts it
+      { rcdId: rcd2.id, protectedIds: [c.id, blank.id], spanIds: [rcd2.id, c.id, blank.id] },
+    ]);
+  });
+
+  it('an RCBO between two ways an RCD protects is drawn under the bracket but protects itself', () => {
+    const rcd = way('rcd', 2);
+    const a = way('mcb');
+    const b = way('rcbo');
+    const c = way('mcb');
+    const spd = way('spd', 2);
+    expect(rcdGroups(row(rcd, a, b, c, spd))).toEqual([
+      { rcdId: rcd.id, protectedIds: [a.id, c.id], spanIds: [rcd.id, a.id, b.id, c.id] },
     ]);
   });
 
