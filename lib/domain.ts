@@ -5,7 +5,11 @@
 export const ROLES = ['admin', 'designer', 'inspector', 'installer'] as const;
 export type Role = (typeof ROLES)[number];
 
-export const BOARD_STATUSES = ['draft', 'in-review', 'issued', 'verified'] as const;
+/**
+ * A board's stages. `labels-matched`: issued, and an installer found every way's label on site
+ * matching the schedule (was `verified` before migration 0007; it is not an inspection).
+ */
+export const BOARD_STATUSES = ['draft', 'in-review', 'issued', 'labels-matched'] as const;
 export type BoardStatus = (typeof BOARD_STATUSES)[number];
 
 export const LABEL_STATUSES = ['unchecked', 'matches', 'wrong', 'missing'] as const;

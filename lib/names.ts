@@ -32,6 +32,14 @@ export const CABLE_SHORT_NAMES: Record<CableKind, string> = {
   'swa-xlpe-90': 'armoured thermosetting',
 };
 
+/** Cable kinds as a table cell names them, with the conductor temperature and its unit. */
+export const CABLE_CELL_NAMES: Record<CableKind, string> = {
+  'te-70': 'Flat twin and earth 70 °C',
+  'single-pvc-70': 'Single-core 70 °C',
+  'multi-pvc-70': 'Multicore 70 °C',
+  'swa-xlpe-90': 'Armoured XLPE 90 °C',
+};
+
 /** Short descriptions of the reference methods (BS 7671 Table 4A2). */
 export const METHOD_NAMES: Record<Method, string> = {
   A: 'A: in conduit in a thermally insulating wall',
@@ -114,18 +122,66 @@ export function wayName(number: string | number): string {
   return `way ${number}`;
 }
 
+/** "Way 3L2": a way named at the start of a line or a heading. */
+export function wayTitle(number: string | number): string {
+  return `Way ${number}`;
+}
+
+/**
+ * A text with every way id in it replaced by the way's name ("Way <id>: …" becomes
+ * "Way 3L2: …"), so that an id from a message never reaches a reader. `refs` maps way ids
+ * to printed way references (null for a device without one).
+ */
+export function nameWaysIn(text: string, refs: ReadonlyMap<string, string | null>): string {
+  let out = text;
+  for (const [id, ref] of refs) {
+    if (!out.includes(id)) continue;
+    out = out
+      .replaceAll(`Way ${id}`, ref ? wayTitle(ref) : 'A device')
+      .replaceAll(`way ${id}`, ref ? wayName(ref) : 'a device')
+      .replaceAll(id, ref ? wayName(ref) : 'a device');
+  }
+  return out;
+}
+
+/** The earthing arrangements as the schedule prints them. */
+export const EARTHING_NAMES: Record<string, string> = {
+  'TN-S': 'TN-S',
+  'TN-C-S': 'TN-C-S (PME)',
+  TT: 'TT',
+};
+
+/** What the mail outbox says of a message. */
+export const MAIL_STATUS_NAMES: Record<'queued' | 'sent' | 'failed', string> = {
+  queued: 'Queued (will retry)',
+  sent: 'Sent',
+  failed: 'Failed',
+};
+
+/**
+ * A board's stages. The last one says what happened: the board is issued and an installer
+ * found every way's label on site matching the schedule (it is not an inspection or a test).
+ */
 export const BOARD_STATUS_NAMES: Record<BoardStatus, string> = {
   draft: 'Draft',
   'in-review': 'In review',
   issued: 'Issued',
-  verified: 'Verified',
+  'labels-matched': 'Labels matched on site',
+};
+
+/** The stages inside a sentence: "this board is …". */
+export const BOARD_STATUS_PHRASES: Record<BoardStatus, string> = {
+  draft: 'a draft',
+  'in-review': 'in review',
+  issued: 'issued',
+  'labels-matched': 'issued, with every label matched on site',
 };
 
 export const LABEL_STATUS_NAMES: Record<LabelStatus, string> = {
   unchecked: 'Not checked',
   matches: 'Label matches',
-  wrong: 'Label wrong',
-  missing: 'Label missing',
+  wrong: 'Label is wrong',
+  missing: 'Label is missing',
 };
 
 export const ROLE_NAMES: Record<Role, string> = {

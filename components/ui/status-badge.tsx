@@ -1,18 +1,12 @@
 import { cn } from '@/lib/cn';
 import type { BoardStatus } from '@/lib/domain';
-
-const words: Record<BoardStatus, string> = {
-  draft: 'Draft',
-  'in-review': 'In review',
-  issued: 'Issued',
-  verified: 'Verified',
-};
+import { BOARD_STATUS_NAMES } from '@/lib/names';
 
 const tones: Record<BoardStatus, string> = {
   draft: 'border-line-strong bg-paper-sunk text-ink-soft',
   'in-review': 'border-copper/50 bg-copper-light text-copper-dark',
   issued: 'border-ink/30 bg-ink/5 text-ink',
-  verified: 'border-verdict-pass/40 bg-verdict-pass-bg text-verdict-pass',
+  'labels-matched': 'border-verdict-pass/40 bg-verdict-pass-bg text-verdict-pass',
 };
 
 /** A board's lifecycle stage, in words. */
@@ -24,7 +18,7 @@ export function StatusBadge({ status }: { status: BoardStatus }) {
         tones[status],
       )}
     >
-      {words[status]}
+      {BOARD_STATUS_NAMES[status]}
     </span>
   );
 }

@@ -26,6 +26,9 @@ export type AuditAction =
   | 'schedule.emailed'
   | 'review.approved'
   | 'review.returned'
+  | 'board.labels-matched'
+  | 'board.labels-unmatched'
+  /** Written before migration 0007; the trail keeps them as they were. */
   | 'board.verified'
   | 'board.unverified'
   | 'attachment.added'

@@ -11,6 +11,7 @@ import { boardDto, findBoard } from '@/lib/dal/boards';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { BOARD_STATUS_PHRASES } from '@/lib/names';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 import { Site, User, Way } from '@/models';
 
@@ -63,8 +64,8 @@ export async function submitBoard(
       });
     }
     if (board.status !== 'draft') {
-      const words = { 'in-review': 'already in review', issued: 'issued', verified: 'verified' } as const;
-      throw conflict(`Only a draft can be sent for review; this board is ${words[board.status as keyof typeof words] ?? board.status}.`);
+      const already = board.status === 'in-review' ? 'already ' : '';
+      throw conflict(`Only a draft can be sent for review; this board is ${already}${BOARD_STATUS_PHRASES[board.status]}.`);
     }
     const rows = await Way.findAll({ where: { boardId }, transaction });
     const ways = waysOf(rows);

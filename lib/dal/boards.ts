@@ -279,7 +279,7 @@ type SavedRow = {
 /**
  * Saves the whole board at the version the editor opened, in two round trips: the board as
  * stored (one query), then one statement that writes it (SAVE_SQL). A stale save gets 409
- * with the current version, and nothing is written; saving an issued or verified board starts
+ * with the current version, and nothing is written; saving an issued board (labels matched or not) starts
  * the next draft revision. The answer is built from what was written, without reading the
  * board again.
  */
@@ -299,7 +299,7 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
   const diff = diffWays(stored.ways, input.ways);
   const added = new Set(diff.added);
   const touched = new Set([...diff.changed, ...diff.moved]);
-  const startsRevision = stored.status === 'issued' || stored.status === 'verified';
+  const startsRevision = stored.status === 'issued' || stored.status === 'labels-matched';
   const events = [
     ...diff.added.map((wayId) => ({ action: 'way.added' satisfies AuditAction, details: { wayId } })),
     ...diff.removed.map((wayId) => ({ action: 'way.removed' satisfies AuditAction, details: { wayId } })),

@@ -59,7 +59,7 @@ export function walkProgress(statuses: LabelStatus[]): WalkProgress {
 }
 
 function assertWalkable(board: Board): void {
-  if (board.status !== 'issued' && board.status !== 'verified') {
+  if (board.status !== 'issued' && board.status !== 'labels-matched') {
     throw conflict('The label walk is for issued boards; this board has not been issued yet.');
   }
 }
@@ -111,7 +111,7 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
 
 /**
  * Records what the walker found at one way. When every way's label matches the board
- * becomes verified; a verified board with a label found wrong or missing goes back to issued.
+ * reaches the stage labels-matched; such a board with a label found wrong or missing goes back to issued.
  */
 export async function recordLabel(
   actor: Actor,
@@ -136,18 +136,18 @@ export async function recordLabel(
       { transaction },
     );
     await audit(actor, 'label.checked', { wayId, status: input.status }, { boardId, transaction });
-    // Verified when every label matches; back to issued otherwise
+    // Labels matched when every label matches; back to issued otherwise
     const statuses = (await Way.findAll({ where: { boardId }, attributes: ['labelStatus'], transaction })).map(
       (w) => w.labelStatus,
     );
     const progress = walkProgress(statuses);
     const allMatch = progress.total > 0 && progress.matches === progress.total;
     if (allMatch && board.status === 'issued') {
-      await board.update({ status: 'verified' }, { transaction });
-      await audit(actor, 'board.verified', { revision: board.revision }, { boardId, transaction });
-    } else if (!allMatch && board.status === 'verified') {
+      await board.update({ status: 'labels-matched' }, { transaction });
+      await audit(actor, 'board.labels-matched', { revision: board.revision }, { boardId, transaction });
+    } else if (!allMatch && board.status === 'labels-matched') {
       await board.update({ status: 'issued' }, { transaction });
-      await audit(actor, 'board.unverified', { revision: board.revision, wayId }, { boardId, transaction });
+      await audit(actor, 'board.labels-unmatched', { revision: board.revision, wayId }, { boardId, transaction });
     }
     return { boardStatus: board.status, progress };
   });

@@ -20,6 +20,7 @@ import { findBoard, getBoard } from '@/lib/dal/boards';
 import { env } from '@/lib/env';
 import { badRequest, conflict, forbidden, notFound, unprocessable, type FieldIssue } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { BOARD_STATUS_PHRASES } from '@/lib/names';
 import type { BoardResult } from '@/lib/sizing';
 import {
   AuditEvent,
@@ -59,12 +60,6 @@ export type ReviewData = {
   revisions: RevisionSummary[];
 };
 
-const STATUS_WORDS: Record<BoardStatus, string> = {
-  draft: 'a draft',
-  'in-review': 'in review',
-  issued: 'issued',
-  verified: 'verified',
-};
 
 function snapshotWay(way: SnapshotWay): SnapshotWay {
   return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
@@ -253,7 +248,7 @@ export async function approveBoard(
     // Lock the board and check its stage
     const board = await findBoard(actor, boardId, { transaction, lock: true });
     if (board.status !== 'in-review') {
-      throw conflict(`Only a board in review can be approved; this board is ${STATUS_WORDS[board.status]}.`);
+      throw conflict(`Only a board in review can be approved; this board is ${BOARD_STATUS_PHRASES[board.status]}.`);
     }
     // Freeze the board and size it
     const snapshot = await liveSnapshot(actor, board, transaction);
@@ -311,7 +306,7 @@ export async function returnBoard(
     // Lock the board and check its stage
     const board = await findBoard(actor, boardId, { transaction, lock: true });
     if (board.status !== 'in-review') {
-      throw conflict(`Only a board in review can be returned; this board is ${STATUS_WORDS[board.status]}.`);
+      throw conflict(`Only a board in review can be returned; this board is ${BOARD_STATUS_PHRASES[board.status]}.`);
     }
     // The closing comment, and at least one comment in all
     if (input.comment) {
@@ -415,8 +410,8 @@ export type ScheduleSource = {
 };
 
 /**
- * The board state to print. Without `revision`: the issued revision of an issued or
- * verified board, else the live draft. Installers print issued revisions only (a board
+ * The board state to print. Without `revision`: the issued revision of an issued board
+ * (labels matched or not), else the live draft. Installers print issued revisions only (a board
  * never issued is refused); the others may print the live draft too.
  */
 export async function getScheduleSource(
@@ -426,7 +421,7 @@ export async function getScheduleSource(
 ): Promise<ScheduleSource> {
   const board = await findBoard(actor, boardId);
   const draftsAllowed = actor.role !== 'installer';
-  const issuedNow = board.status === 'issued' || board.status === 'verified';
+  const issuedNow = board.status === 'issued' || board.status === 'labels-matched';
   let target = revision;
   if (target === undefined) {
     if (issuedNow || draftsAllowed) target = board.revision;

@@ -1,7 +1,7 @@
 /**
  * The review and the label walk in real Chromium against the built app: an inspector
  * issues a board on the review page, then an installer walks it on a phone-sized screen,
- * marks ways, adds a photo, reloads, resumes on another device and finishes: verified.
+ * marks ways, adds a photo, reloads, resumes on another device and finishes: labels matched on site.
  */
 import crypto from 'node:crypto';
 
@@ -58,7 +58,7 @@ describe('review and label walk', () => {
     }
   });
 
-  it('an installer walks it on a phone: marks ways, adds a photo, reloads, resumes elsewhere, finishes verified', async () => {
+  it('an installer walks it on a phone: marks ways, adds a photo, reloads, resumes elsewhere, finishes with labels matched on site', async () => {
     const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#9aa3ad' } })
       .jpeg()
       .toBuffer();
@@ -116,8 +116,8 @@ describe('review and label walk', () => {
         await page.getByRole('button', { name: 'Label matches' }).click();
         await page.getByText(`${n} of ${total} checked`).waitFor();
       }
-      await page.getByRole('status').filter({ hasText: 'the board is verified' }).first().waitFor();
-      expect((await Board.findByPk(boardId))!.status).toBe('verified');
+      await page.getByRole('status').filter({ hasText: 'labels matched on site' }).first().waitFor();
+      expect((await Board.findByPk(boardId))!.status).toBe('labels-matched');
     } finally {
       await second.close();
     }

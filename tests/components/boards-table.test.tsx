@@ -52,7 +52,7 @@ const boards: BoardSummary[] = [
     name: 'Yard lighting',
     location: 'Store',
     phases: 1,
-    status: 'verified',
+    status: 'labels-matched',
     revision: 3,
     wayCount: 2,
     updatedAt: '2025-01-10T10:00:00.000Z',
@@ -96,7 +96,7 @@ describe('BoardsTable', () => {
     expect(shownNames()).toEqual(['Flat consumer unit']);
     await user.selectOptions(stage, 'in-review');
     expect(shownNames()).toEqual(['Spray booth sub-board']);
-    await user.selectOptions(stage, 'verified');
+    await user.selectOptions(stage, 'labels-matched');
     expect(shownNames()).toEqual(['Yard lighting']);
     expect(screen.getByText('1 of 4 boards')).toBeTruthy();
     await user.selectOptions(stage, '');

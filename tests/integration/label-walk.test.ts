@@ -78,8 +78,8 @@ describe('the label walk', () => {
     expect(resumed.ways.find((w) => w.id === rest[0].id)?.checkedByName).toBe(team.users.installer.name);
 
     const done = await mark(board.id, last.id, { status: 'matches' });
-    expect((await done.json()).boardStatus).toBe('verified');
-    expect((await Board.findByPk(board.id))!.status).toBe('verified');
+    expect((await done.json()).boardStatus).toBe('labels-matched');
+    expect((await Board.findByPk(board.id))!.status).toBe('labels-matched');
 
     // A label found wrong later takes the board back to issued, and is shown to the designer
     const wrongWay = start.ways.find((w) => w.ref === '2')!;

@@ -58,6 +58,47 @@ describe('migrations', () => {
     expect((await umzug.executed()).map((m) => m.name)).toEqual(all);
   });
 
+  it('0007 renames the stage "verified" to "labels-matched" and back, keeping every board', async () => {
+    const url = new URL(base.href);
+    url.pathname = `/${name}`;
+    const client = new pg.Client({ connectionString: url.href });
+    await client.connect();
+    const umzug = migrator(sequelize!);
+    try {
+      // Back to before 0007, where boards are stored as `verified`
+      await umzug.down({ to: '0007-labels-matched-status.ts' });
+      const org = crypto.randomUUID();
+      const site = crypto.randomUUID();
+      await client.query('insert into organisations (id, name) values ($1, $2)', [org, 'Migration test']);
+      await client.query('insert into sites (id, organisation_id, name) values ($1, $2, $3)', [site, org, 'Site']);
+      const boards = ['verified', 'issued', 'draft'].map((status) => ({ id: crypto.randomUUID(), status }));
+      for (const b of boards) {
+        await client.query(
+          `insert into boards (id, organisation_id, site_id, name, phases, supply, incoming, enclosure_modules, status)
+           values ($1, $2, $3, $4, 1, '{}', '{}', 12, $5)`,
+          [b.id, org, site, `Board ${b.status}`, b.status],
+        );
+      }
+      const statuses = async () =>
+        (await client.query('select id, status from boards where organisation_id = $1', [org])).rows.map(
+          (r: { id: string; status: string }) => [r.id, r.status],
+        );
+      const byName = (list: string[]) => boards.map((b, i) => [b.id, list[i]]);
+
+      await umzug.up();
+      expect(await statuses()).toEqual(expect.arrayContaining(byName(['labels-matched', 'issued', 'draft'])));
+      expect(await statuses()).toHaveLength(3);
+      await expect(client.query(`select 'verified'::enum_boards_status`)).rejects.toThrow(/invalid input value/);
+
+      await umzug.down({ to: '0007-labels-matched-status.ts' });
+      expect(await statuses()).toEqual(expect.arrayContaining(byName(['verified', 'issued', 'draft'])));
+      await umzug.up();
+      await client.query('delete from organisations where id = $1', [org]);
+    } finally {
+      await client.end();
+    }
+  });
+
   it('the audit trail refuses updates and deletes', async () => {
     const url = new URL(base.href);
     url.pathname = `/${name}`;

@@ -1,21 +1,17 @@
 import type { AuditEntry } from '@/lib/dal/audit';
+import type { BoardStatus } from '@/lib/domain';
+import { BOARD_STATUS_NAMES, LABEL_STATUS_NAMES } from '@/lib/names';
 
-const STATUS_WORDS: Record<string, string> = {
-  draft: 'draft',
-  'in-review': 'in review',
-  issued: 'issued',
-  verified: 'verified',
-};
-
-const LABEL_WORDS: Record<string, string> = {
-  matches: 'matches',
-  wrong: 'wrong',
-  missing: 'missing',
-};
+// Stages stored in events written before migration 0007 keep their old code
+const OLD_STATUS: Record<string, BoardStatus> = { verified: 'labels-matched' };
 
 const text = (value: unknown) => (typeof value === 'string' || typeof value === 'number' ? String(value) : '');
 
-const statusWord = (value: unknown) => STATUS_WORDS[text(value)] ?? text(value);
+const statusWord = (value: unknown) => {
+  const code = OLD_STATUS[text(value)] ?? text(value);
+  return (BOARD_STATUS_NAMES as Record<string, string>)[code]?.toLowerCase() ?? 'another stage';
+};
+const labelWord = (value: unknown) => (LABEL_STATUS_NAMES as Record<string, string>)[text(value)]?.toLowerCase() ?? 'not recorded';
 
 /** "way 7" when the way still has a printed reference, else "a way". */
 function wayRef(entry: Pick<AuditEntry, 'wayLabel'>): string {
@@ -54,15 +50,17 @@ export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' 
     case 'board.comment':
       return d.wayId ? `commented on ${wayRef(entry)}` : 'commented on the board';
     case 'label.checked':
-      return `checked the label of ${wayRef(entry)}: ${LABEL_WORDS[text(d.status)] ?? text(d.status)}`;
+      return `checked the label of ${wayRef(entry)}: ${labelWord(d.status)}`;
     case 'review.approved':
       return `approved the board and issued revision ${text(d.revision)}`;
     case 'review.returned':
       return `returned revision ${text(d.revision)} for changes`;
     case 'board.verified':
-      return `found every label matching; revision ${text(d.revision)} is verified`;
+    case 'board.labels-matched':
+      return `found every label on site matching revision ${text(d.revision)}`;
     case 'board.unverified':
-      return `found a label problem; revision ${text(d.revision)} is no longer verified`;
+    case 'board.labels-unmatched':
+      return `found a label problem; revision ${text(d.revision)} no longer has every label matched`;
     case 'attachment.added':
       return d.wayId ? `added a photo of ${wayRef(entry)}` : 'added a photo of the board';
     case 'attachment.deleted':

@@ -89,7 +89,7 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
       ) : (
         <PageHeader
           title="Boards"
-          description="Every board of the organisation, from first draft to verified."
+          description="Every board of the organisation, from first draft to labels matched on site."
           actions={actions}
         />
       )}

@@ -1,12 +1,11 @@
-import type { BoardStatus } from '@/lib/domain';
+import { BOARD_STATUSES, type BoardStatus } from '@/lib/domain';
+import { BOARD_STATUS_NAMES } from '@/lib/names';
 
 /** The lifecycle stages in their order, with the words the filter shows. */
-export const BOARD_STAGES = [
-  { value: 'draft', label: 'Draft' },
-  { value: 'in-review', label: 'In review' },
-  { value: 'issued', label: 'Issued' },
-  { value: 'verified', label: 'Verified' },
-] as const satisfies readonly { value: BoardStatus; label: string }[];
+export const BOARD_STAGES: readonly { value: BoardStatus; label: string }[] = BOARD_STATUSES.map((value) => ({
+  value,
+  label: BOARD_STATUS_NAMES[value],
+}));
 
 const order = new Map<string, number>(BOARD_STAGES.map((s, i) => [s.value, i]));
 

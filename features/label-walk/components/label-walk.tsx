@@ -8,18 +8,14 @@ import { toast } from 'sonner';
 import { FormAlert } from '@/components/ui/form-alert';
 import { errorMessage } from '@/lib/api/client';
 import { cn } from '@/lib/cn';
+import { LABEL_STATUS_NAMES } from '@/lib/names';
 import type { WalkData } from '@/lib/dal/label-walk';
 import type { LabelStatus } from '@/models/way';
 
 import { fetchWalk, postLabel, uploadPhoto, walkKey } from '../api/walk-api';
 import { nextUnchecked, resumeAt } from '../utils/next-way';
 
-const STATUS_WORDS: Record<LabelStatus, string> = {
-  unchecked: 'Not checked yet',
-  matches: 'Label matches',
-  wrong: 'Label is wrong',
-  missing: 'Label is missing',
-};
+const STATUS_WORDS = LABEL_STATUS_NAMES;
 
 const STATUS_TONES: Record<LabelStatus, string> = {
   unchecked: 'border-line-strong bg-paper-sunk text-ink-soft',
@@ -50,7 +46,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
     onSuccess: async (result) => {
       // staleTime 0: the cached walk is out of date the moment a result is saved
       const fresh = await queryClient.fetchQuery({ queryKey: walkKey(boardId), queryFn: () => fetchWalk(boardId), staleTime: 0 });
-      if (result.boardStatus === 'verified') toast.success('Every label matches: the board is verified.');
+      if (result.boardStatus === 'labels-matched') toast.success('Every label matches the schedule: labels matched on site.');
       else toast.success(`Saved way ${way.ref ?? way.labelText}.`);
       setIndex(nextUnchecked(fresh.ways.map((w) => w.status), index));
     },
@@ -100,9 +96,9 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
         </p>
       </header>
 
-      {data.status === 'verified' ? (
+      {data.status === 'labels-matched' ? (
         <p role="status" className="flex items-center gap-2 rounded-md border border-verdict-pass/40 bg-verdict-pass-bg px-3 py-2 text-sm font-medium text-verdict-pass">
-          <CircleCheck aria-hidden className="h-5 w-5" /> Every label matches: the board is verified.
+          <CircleCheck aria-hidden className="h-5 w-5" /> Every label matches the schedule: labels matched on site.
         </p>
       ) : null}
 

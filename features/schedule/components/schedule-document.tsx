@@ -85,6 +85,8 @@ const styles = StyleSheet.create({
   },
   noticeTitle: { fontWeight: 700, fontSize: 7.5 },
   noteLine: { fontSize: 6.5, color: TONES.fails, marginBottom: 1 },
+  designValues: { height: PAGE.designValuesHeight - 2, marginBottom: 2, fontSize: 6.5, color: SOFT },
+  noticesNote: { fontSize: 6.5, color: SOFT, marginTop: 1 },
   footer: {
     position: 'absolute',
     left: PAGE.marginX,
@@ -186,6 +188,7 @@ function Summary({ data }: { data: ScheduleData }) {
             <Text>{n.text}</Text>
           </View>
         ))}
+        <Text style={styles.noticesNote}>{data.noticesNote}</Text>
       </View>
     </View>
   );
@@ -213,6 +216,7 @@ export function ScheduleDocument({ data, qrDataUrl, pages }: { data: ScheduleDat
               Draft, revision {data.revision}: not issued. Do not build or label a board from this print.
             </Text>
           ) : null}
+          <Text style={styles.designValues}>{data.designValuesNote}</Text>
           {page.items.length ? (
             <View style={styles.headRow}>
               {columns.map((col) => (

@@ -36,7 +36,8 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
           Draft, revision {data.revision}: not issued. Do not build or label a board from this print.
         </p>
       ) : null}
-      <div className="mt-3 overflow-x-auto">
+      <p className="mt-2 text-xs text-ink-soft">{data.designValuesNote}</p>
+      <div className="mt-1 overflow-x-auto">
         <table className="w-full border-collapse text-left">
           <thead className="bg-ink text-white">
             <tr>
@@ -97,6 +98,7 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
               </li>
             ))}
           </ul>
+          <p className="mt-1.5 text-xs text-ink-soft">{data.noticesNote}</p>
         </section>
       </div>
       {data.designNotes.length ? (

@@ -3,9 +3,20 @@
  * totals and notices of the printed board schedule. Pure: the PDF and the browser print
  * view both draw what this returns, so they always say the same thing.
  */
+import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays, railOrder } from '@/lib/boards/layout';
+import { rcdProtection, type RcdProtector } from '@/lib/boards/rcd-protection';
 import { type SnapshotWay } from '@/lib/boards/revision-diff';
-import { deviceName } from '@/lib/names';
+import {
+  BOARD_STATUS_NAMES,
+  CABLE_CELL_NAMES,
+  deviceName,
+  EARTHING_NAMES,
+  LABEL_STATUS_NAMES,
+  nameWaysIn,
+  VERDICT_WORDS,
+  wayTitle,
+} from '@/lib/names';
 import type { ScheduleSource } from '@/lib/dal/review';
 import { SIZING_CAUTION, type CircuitResult, type Verdict } from '@/lib/sizing';
 import type { LabelStatus } from '@/models/way';
@@ -35,7 +46,9 @@ export type ScheduleColumn = {
 
 /**
  * Boardwright's own columns, in the order a designer reasons about a way: what it is and
- * feeds, its protection, its load, the cable, then the checks and the verdict.
+ * feeds, its protection, its load, the cable, then the checks and the verdict. R1+R2 and Zs
+ * are the design's calculated values, never readings: their headings say so, and every sheet
+ * carries `DESIGN_VALUES_NOTE`.
  */
 export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { key: 'way', heading: 'Way', width: 40, align: 'left' },
@@ -47,8 +60,8 @@ export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { key: 'run', heading: 'Run m', width: 32, align: 'right' },
   { key: 'iz', heading: 'Iz A', width: 34, align: 'right' },
   { key: 'vd', heading: 'Volt drop % (limit)', width: 52, align: 'right' },
-  { key: 'r1r2', heading: 'R1+R2 Ω', width: 40, align: 'right' },
-  { key: 'zs', heading: 'Zs Ω (max)', width: 54, align: 'right' },
+  { key: 'r1r2', heading: 'Design R1+R2 Ω', width: 40, align: 'right' },
+  { key: 'zs', heading: 'Design Zs Ω (limit)', width: 54, align: 'right' },
   { key: 'result', heading: 'Design check', width: 58, align: 'left' },
   { key: 'label', heading: 'Label on site', width: 70, align: 'left' },
 ];
@@ -67,6 +80,14 @@ export type ScheduleFact = { label: string; value: string };
 
 export type ScheduleNotice = { title: string; text: string };
 
+/** The line every sheet prints under the table: the values are the design's, not readings. */
+export const DESIGN_VALUES_NOTE =
+  'Design R1+R2 and Zs are calculated from this design (cable, length and the tables), not measured: they are not test results. Record readings from testing on the installation certificate.';
+
+/** The notices' own reminder that they stand in for nothing BS 7671 asks for at the board. */
+export const NOTICES_NOTE =
+  'These notices are a reminder only: they do not replace the notices and labels BS 7671 requires at the board (Section 514), which must be fitted there.';
+
 export type ScheduleData = {
   organisationName: string;
   boardName: string;
@@ -82,38 +103,17 @@ export type ScheduleData = {
   groups: ScheduleGroup[];
   totals: ScheduleFact[];
   notices: ScheduleNotice[];
+  noticesNote: string;
   designNotes: string[];
+  designValuesNote: string;
   caution: string;
   fileName: string;
 };
 
-const CABLE_WORDS: Record<string, string> = {
-  'te-70': 'Flat T&E 70°',
-  'single-pvc-70': 'Singles 70°',
-  'multi-pvc-70': 'Multicore 70°',
-  'swa-xlpe-90': 'SWA XLPE 90°',
-};
-
-const VERDICT_WORDS: Record<Verdict, string> = {
-  passes: '✓ Passes',
-  'near-limit': '! Near limit',
-  fails: '✗ Fails',
-};
-
-const LABEL_WORDS: Record<LabelStatus, string> = {
-  unchecked: 'Not checked',
-  matches: '✓ Matches',
-  wrong: '✗ Wrong',
-  missing: '✗ Missing',
-};
-
-const STATUS_WORDS = { draft: 'Draft', 'in-review': 'In review', issued: 'Issued', verified: 'Verified' };
-
-const EARTHING_NOTES: Record<string, string> = {
-  'TN-S': 'TN-S',
-  'TN-C-S': 'TN-C-S (PME)',
-  TT: 'TT',
-};
+// The mark printed before a verdict or a label result, so that it reads without colour
+const VERDICT_MARKS: Record<Verdict, string> = { passes: '✓', 'near-limit': '!', fails: '✗' };
+const LABEL_MARKS: Record<LabelStatus, string> = { unchecked: '', matches: '✓', wrong: '✗', missing: '✗' };
+const marked = (mark: string, words: string) => (mark ? `${mark} ${words}` : words);
 
 /** A number with fixed decimals, or a dash when there is none. */
 export function num(value: number | null | undefined, decimals: number): string {
@@ -144,7 +144,7 @@ function emptyCells(): Record<ColumnKey, string> {
 
 function labelCell(label: { status: LabelStatus; note: string } | undefined): string {
   if (!label) return '—';
-  const word = LABEL_WORDS[label.status];
+  const word = marked(LABEL_MARKS[label.status], LABEL_STATUS_NAMES[label.status]);
   return label.note && label.status !== 'unchecked' ? `${word}: ${label.note}` : word;
 }
 
@@ -167,7 +167,7 @@ function rowFor(
     return { wayId: way.id, cells, verdict: null, spare: way.device.kind !== 'spd', label: label?.status ?? null };
   }
   cells.serves = c.serves?.trim() || '(not named)';
-  cells.cable = `${CABLE_WORDS[c.cable] ?? c.cable}, ref ${c.method}`;
+  cells.cable = `${CABLE_CELL_NAMES[c.cable] ?? 'Cable'}, method ${c.method}`;
   cells.run = num(c.lengthM, 0);
   if (result) {
     cells.ib = num(result.ibA, 1);
@@ -176,28 +176,38 @@ function rowFor(
     cells.vd = result.vdPct === null ? '—' : `${num(result.vdPct, 2)} (${result.vdLimitPct})`;
     cells.r1r2 = num(result.r1r2Ohm, 3);
     cells.zs = result.zsOhm === null ? '—' : `${num(result.zsOhm, 2)} (${num(result.zsMaxOhm, 2)})`;
-    cells.result = VERDICT_WORDS[result.verdict];
+    cells.result = marked(VERDICT_MARKS[result.verdict], VERDICT_WORDS[result.verdict]);
   }
   return { wayId: way.id, cells, verdict: result?.verdict ?? null, spare: false, label: label?.status ?? null };
 }
 
-function groupHeading(way: SnapshotWay): string {
-  const d = way.device;
-  if (d.kind === 'main-switch') {
-    return `Main switch ${d.ratingA ?? ''} A, ${d.poles}-pole: the ways below have no RCD upstream (RCBOs carry their own)`.replace(' ,', ',');
+/**
+ * The heading of a run of ways with the same RCD protection (rcd-protection.ts): the RCD on
+ * the rail, the incoming RCD, the ways' own RCBOs, or none after a main switch.
+ */
+function groupHeading(
+  protector: RcdProtector,
+  rcd: SnapshotWay | undefined,
+  mainSwitch: SnapshotWay | null,
+  incoming: ScheduleSource['snapshot']['settings']['incoming'],
+): string {
+  if (protector?.by === 'rcd' && rcd) {
+    const d = rcd.device;
+    return `${deviceName(d)}${d.rcdType ? `, type ${d.rcdType}` : ''}: RCD protection for the ways below`;
   }
-  return `RCD ${d.ratingA ? `${d.ratingA} A, ` : ''}${d.rcdMa ?? 30} mA${d.rcdType ? `, type ${d.rcdType}` : ''}: protects the ways below`;
+  if (protector?.by === 'incoming') {
+    return `Incoming ${deviceName({ kind: 'rcd', ratingA: incoming.ratingA })}: RCD protection for the ways below`;
+  }
+  if (protector?.by === 'own') return 'RCBOs: each way below has its own RCD protection';
+  if (mainSwitch) {
+    return `${deviceName(mainSwitch.device)}, ${mainSwitch.device.poles}-pole: the ways below have no RCD protection`;
+  }
+  return 'Ways fed straight from the incoming device, without RCD protection';
 }
 
 function incomingText(incoming: ScheduleSource['snapshot']['settings']['incoming']): string {
-  const words: Record<string, string> = {
-    'main-switch': 'Main switch',
-    mcb: 'Circuit-breaker',
-    'fuse-bs88-2': 'Fuse BS 88-2',
-    rcd: 'RCD',
-  };
   const busbar = incoming.busbarRatingA ? ` · busbar ${incoming.busbarRatingA} A` : '';
-  return `${words[incoming.kind] ?? incoming.kind} ${incoming.ratingA} A${busbar}`;
+  return `${deviceName({ kind: incoming.kind, ratingA: incoming.ratingA })}${busbar}`;
 }
 
 /** The notices the board calls for, in the spirit of BS 7671 Section 514 (our own words). */
@@ -255,33 +265,41 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
   const labels = source.labels ?? {};
   const walked = Object.values(labels).some((l) => l.status !== 'unchecked');
 
-  // Rows in rail order; a main switch or an RCD starts a new group
-  const groups: ScheduleGroup[] = [
-    {
-      heading:
-        settings.incoming.kind === 'rcd'
-          ? `Incoming RCD ${settings.incoming.ratingA} A: protects the ways below`
-          : 'Ways fed straight from the incoming device',
-      rows: [],
-    },
-  ];
+  // Rows in rail order, grouped by what gives them RCD protection (the one rule of
+  // rcd-protection.ts, the engine's too); a main switch or an RCD ends a group, an SPD stays in it
+  const protection = rcdProtection(ordered, settings.incoming.kind === 'rcd');
+  const byId = new Map(ordered.map((w) => [w.id, w]));
+  const groups: ScheduleGroup[] = [];
+  let mainSwitch: SnapshotWay | null = null;
+  let groupKey: string | null = null;
   for (const way of ordered) {
+    if (way.device.kind === 'main-switch') mainSwitch = way;
     if (way.device.kind === 'main-switch' || way.device.kind === 'rcd') {
-      groups.push({ heading: groupHeading(way), rows: [] });
+      groupKey = null;
       continue;
+    }
+    const protector = protection.get(way.id) ?? null;
+    const key: string =
+      way.device.kind === 'spd' && groupKey !== null
+        ? groupKey
+        : protector?.by === 'rcd'
+          ? `rcd:${protector.rcdId}`
+          : protector
+            ? protector.by
+            : `none:${mainSwitch?.id ?? ''}`;
+    if (key !== groupKey) {
+      const rcd = protector?.by === 'rcd' ? byId.get(protector.rcdId) : undefined;
+      groups.push({ heading: groupHeading(protector, rcd, mainSwitch, settings.incoming), rows: [] });
+      groupKey = key;
     }
     const row = rowFor(way, refs.get(way.id) ?? null, results.get(way.id) ?? null, walked ? labels[way.id] : undefined);
     groups[groups.length - 1].rows.push(row);
   }
   const filled = groups.filter((g) => g.rows.length);
 
-  // Totals from the board's sizing
+  // Totals: the ways counted by way number (counts.ts, as the boards list and the editor), then the sizing's
   const s = source.sizing?.summary;
-  const rows = filled.flatMap((g) => g.rows);
-  const spares = rows.filter((r) => r.spare).length;
-  const totals: ScheduleFact[] = [
-    { label: 'Ways', value: `${rows.length - spares} in use, ${spares} spare` },
-  ];
+  const totals: ScheduleFact[] = [{ label: 'Ways', value: countWords(countWays(settings.phases, ordered)) }];
   if (s) {
     totals.push(
       { label: 'Connected load', value: `${num(s.connectedLoadW / 1000, 2)} kW` },
@@ -299,7 +317,12 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
         value: `${s.counts.passes} pass, ${s.counts.nearLimit} near limit, ${s.counts.fails} fail`,
       },
       { label: 'Modules', value: `${s.modulesUsed} of ${s.enclosureModules} used` },
-      { label: 'Incoming device', value: s.incomingCheck.message },
+      {
+        label: 'Incoming device',
+        value: `${deviceName({ kind: settings.incoming.kind, ratingA: settings.incoming.ratingA })}, ${
+          s.incomingCheck.ok ? 'not less than' : 'less than'
+        } the maximum demand of ${num(s.maxDemandA, 1)} A`,
+      },
     );
   }
   if (walked) {
@@ -317,11 +340,12 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
     const r = results.get(way.id);
     if (!r) continue;
     for (const c of r.checks.filter((x) => !x.ok)) {
-      designNotes.push(`Way ${refs.get(way.id) ?? '?'}: ${c.message} (${c.reference})`);
+      const ref = refs.get(way.id);
+      designNotes.push(`${ref ? wayTitle(ref) : deviceName(way.device)}: ${nameWaysIn(c.message, refs)} (${c.reference})`);
     }
   }
-  for (const c of s?.checks.filter((x) => !x.ok) ?? []) designNotes.push(`Board: ${c.message} (${c.reference})`);
-  for (const issue of source.sizingIssues) designNotes.push(`Not sized: ${issue.path}: ${issue.message}`);
+  for (const c of s?.checks.filter((x) => !x.ok) ?? []) designNotes.push(`Board: ${nameWaysIn(c.message, refs)} (${c.reference})`);
+  for (const issue of source.sizingIssues) designNotes.push(`Not sized: ${nameWaysIn(issue.message, refs)}`);
 
   const columns = SCHEDULE_COLUMNS.filter((c) => c.key !== 'label' || walked);
   const issued = source.issued
@@ -336,9 +360,9 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
     boardUrl: source.boardUrl,
     revision: source.revision,
     draft: !source.frozen,
-    statusWord: source.frozen ? STATUS_WORDS[source.status] : `${STATUS_WORDS[source.status]} (not issued)`,
+    statusWord: source.frozen ? BOARD_STATUS_NAMES[source.status] : `${BOARD_STATUS_NAMES[source.status]} (not issued)`,
     supply: [
-      { label: 'Earthing', value: EARTHING_NOTES[settings.supply.earthing] ?? settings.supply.earthing },
+      { label: 'Earthing', value: EARTHING_NAMES[settings.supply.earthing] ?? settings.supply.earthing },
       { label: 'Uo', value: `${settings.supply.uoV} V` },
       { label: 'Ze', value: `${settings.supply.zeOhm} Ω` },
       { label: 'PFC', value: `${settings.supply.pfcKa} kA` },
@@ -350,7 +374,7 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
     ],
     document: [
       { label: 'Revision', value: String(source.revision) },
-      { label: 'Status', value: source.frozen ? STATUS_WORDS[source.status] : `${STATUS_WORDS[source.status]} (not issued)` },
+      { label: 'Status', value: source.frozen ? BOARD_STATUS_NAMES[source.status] : `${BOARD_STATUS_NAMES[source.status]} (not issued)` },
       { label: 'Issued', value: issued },
       { label: 'Printed', value: formatDate(now.toISOString()) },
       { label: 'Enclosure', value: `${settings.enclosureModules} modules, ${settings.rails} rail${settings.rails > 1 ? 's' : ''}` },
@@ -359,7 +383,9 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
     groups: filled,
     totals,
     notices: noticesFor(source),
+    noticesNote: NOTICES_NOTE,
     designNotes,
+    designValuesNote: DESIGN_VALUES_NOTE,
     caution: SIZING_CAUTION,
     fileName: `schedule-${slug}-rev${source.revision}${source.frozen ? '' : '-draft'}.pdf`,
   };

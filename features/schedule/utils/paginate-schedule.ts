@@ -16,6 +16,8 @@ export const PAGE = {
   marginBottom: 46,
   headerHeight: 84,
   draftBannerHeight: 16,
+  /** The line saying the values are the design's, not readings, under the header of every page. */
+  designValuesHeight: 12,
   headRowHeight: 24,
   groupHeight: 16,
   fontSize: 7,
@@ -93,14 +95,16 @@ export function summaryHeight(data: ScheduleData, measure: TextMeasure): number 
   const title = 14;
   const totals = title + data.totals.reduce((h, t) => h + countLines(t.value, 170, measure, 7, true) * 9, 0);
   const notices =
-    title + data.notices.reduce((h, n) => h + 9 + countLines(n.text, TABLE_WIDTH - 310, measure) * 9 + 4, 0);
+    title +
+    data.notices.reduce((h, n) => h + 9 + countLines(n.text, TABLE_WIDTH - 310, measure) * 9 + 4, 0) +
+    countLines(data.noticesNote, TABLE_WIDTH - 310, measure, 6.5) * 9;
   return Math.max(totals, notices) + 10;
 }
 
 /** The schedule's pages: rows in order, group headings repeated, then totals, notices and notes. */
 export function paginateSchedule(data: ScheduleData, measure: TextMeasure = roughMeasure): SchedulePage[] {
   const columns = scaledColumns(data.columns);
-  const top = (data.draft ? PAGE.draftBannerHeight : 0) + PAGE.headRowHeight;
+  const top = (data.draft ? PAGE.draftBannerHeight : 0) + PAGE.designValuesHeight + PAGE.headRowHeight;
   const pages: SchedulePage[] = [];
   let page: SchedulePage = { items: [], summary: false, notes: [] };
   let used = top;

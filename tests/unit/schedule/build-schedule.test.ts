@@ -64,7 +64,7 @@ describe('the schedule’s content', () => {
     );
     expect(data.groups.map((g) => [g.heading.split(':')[0], g.rows.map((r) => r.cells.way)])).toEqual([
       ['Main switch 63 A, 2-pole', ['1']],
-      ['RCD 40 A, 30 mA, type A', ['2', '3']],
+      ['RCD 40 A 30 mA, type A', ['2', '3']],
     ]);
     expect(data.groups[1].rows[1]).toMatchObject({ spare: true, cells: { serves: 'Spare (blank)' } });
     expect(data.notices.map((n) => n.title)).toEqual(['Test the RCDs', 'Periodic inspection', 'TT earthing']);
@@ -79,7 +79,7 @@ describe('the schedule’s content', () => {
     expect(plain.columns.map((c) => c.key)).not.toContain('label');
     const walked = buildSchedule(source(ways, { labels: { x: { status: 'missing', note: 'No label at all' } } }));
     expect(walked.columns.map((c) => c.heading)).toEqual(SCHEDULE_COLUMNS.map((c) => c.heading));
-    expect(walked.groups[0].rows[0].cells.label).toBe('✗ Missing: No label at all');
+    expect(walked.groups[0].rows[0].cells.label).toBe('✗ Label is missing: No label at all');
   });
 
   it('a draft says it is not issued, in its status and in a notice', () => {
@@ -88,5 +88,65 @@ describe('the schedule’s content', () => {
     expect(data.document).toContainEqual({ label: 'Issued', value: 'Not issued' });
     expect(data.notices.map((n) => n.title)).toContain('Not issued');
     expect(data.fileName).toBe('schedule-garage-board-rev4-draft.pdf');
+  });
+
+  it('one rule for RCD protection: a spare way after an RCD’s ways is under it, an RCBO after them protects itself, an MCB after the RCBO is the RCD’s again', () => {
+    const rcbo = { ...mcb, kind: 'rcbo' as const, rcdMa: 30, rcdType: 'A' as const };
+    const src = source([
+      { id: 'm', device: { kind: 'main-switch', poles: 2, modules: 2, ratingA: 63 }, circuit: null },
+      { id: 'r', device: { kind: 'rcd', poles: 2, modules: 2, ratingA: 40, rcdMa: 30, rcdType: 'A' }, circuit: null },
+      { id: 'a', device: mcb, circuit: circuit('Lights') },
+      { id: 's', device: { kind: 'blank', poles: 1, modules: 1 }, circuit: null },
+      { id: 'o', device: rcbo, circuit: circuit('Shower') },
+      { id: 'b', device: mcb, circuit: circuit('Loft lights') },
+    ]);
+    const data = buildSchedule(src);
+    expect(data.groups.map((g) => [g.heading, g.rows.map((r) => r.cells.way)])).toEqual([
+      ['RCD 40 A 30 mA, type A: RCD protection for the ways below', ['1', '2']],
+      ['RCBOs: each way below has its own RCD protection', ['3']],
+      ['RCD 40 A 30 mA, type A: RCD protection for the ways below', ['4']],
+    ]);
+    // The engine says the same of every way
+    const by = new Map(data.groups.flatMap((g) => g.rows.map((r) => [r.wayId, g.heading.startsWith('RCD') ? 'r' : r.wayId])));
+    const engine = src.sizing!.ways.filter((w) => by.has(w.id));
+    expect(engine).toHaveLength(4);
+    for (const w of engine) expect(by.get(w.id)).toBe(w.protectedBy);
+  });
+
+  it('counts ways by way number, not devices: the main switch and the RCD are not ways', () => {
+    const data = buildSchedule(
+      source([
+        { id: 'm', device: { kind: 'main-switch', poles: 2, modules: 2, ratingA: 63 }, circuit: null },
+        { id: 'r', device: { kind: 'rcd', poles: 2, modules: 2, ratingA: 40, rcdMa: 30, rcdType: 'A' }, circuit: null },
+        { id: 'a', device: mcb, circuit: circuit('Lights') },
+        { id: 's', device: { kind: 'blank', poles: 1, modules: 1 }, circuit: null },
+      ]),
+    );
+    expect(data.totals[0]).toEqual({ label: 'Ways', value: '2 ways: 1 circuit, 1 spare' });
+  });
+
+  it('marks R1+R2 and Zs as design values, names cables with their temperature, and says the notices do not replace those BS 7671 requires', () => {
+    const data = buildSchedule(source([{ id: 'x', device: mcb, circuit: circuit('Lights') }]));
+    const heading = (key: string) => data.columns.find((c) => c.key === key)!.heading;
+    expect(heading('r1r2')).toMatch(/^Design R1\+R2/);
+    expect(heading('zs')).toMatch(/^Design Zs/);
+    expect(data.designValuesNote).toMatch(/calculated from this design.*not measured.*not test results/);
+    expect(data.noticesNote).toMatch(/do not replace the notices and labels BS 7671 requires at the board/);
+    expect(data.groups[0].rows[0].cells.cable).toBe('Flat twin and earth 70 °C, method C');
+    expect(data.supply).toContainEqual({ label: 'Incoming', value: 'Main switch 63 A' });
+    expect(data.totals).toContainEqual({ label: 'Incoming device', value: expect.stringMatching(/^Main switch 63 A, not less than the maximum demand of \d/) });
+  });
+
+  it('names a way by its number in a design note, never by its id', () => {
+    const id = '3f2c8a4e-1b7d-4c55-9e0a-6d1f2b3c4d5e';
+    const threePhaseOnOnePole = { ...circuit('Saw'), phases: 3 as const };
+    const src = source([{ id, device: mcb, circuit: circuit('Lights') }]);
+    const settings = { ...src.snapshot.settings, phases: 3 as const };
+    const ways = [{ id, rail: 0, position: 0, device: mcb, circuit: threePhaseOnOnePole }];
+    const sizing = sizeBoard(boardInputSchema.parse(boardSizingInput(settings, ways)));
+    const data = buildSchedule({ ...src, snapshot: { ...src.snapshot, settings, ways }, sizing });
+    expect(data.designNotes.length).toBeGreaterThan(0);
+    expect(data.designNotes.join('\n')).not.toContain(id);
+    expect(data.designNotes.some((n) => /\b[Ww]ay 1L1\b/.test(n))).toBe(true);
   });
 });

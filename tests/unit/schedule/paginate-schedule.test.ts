@@ -42,7 +42,9 @@ function schedule(groups: number[], serves?: (n: number) => string): ScheduleDat
     })),
     totals: [{ label: 'Ways', value: '1' }],
     notices: [{ title: 'Test the RCDs', text: 'Press the button.' }],
+    noticesNote: 'A reminder only.',
     designNotes: [],
+    designValuesNote: 'Design values.',
     caution: 'Caution',
     fileName: 'x.pdf',
   };

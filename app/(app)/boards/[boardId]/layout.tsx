@@ -20,7 +20,7 @@ export default async function BoardLayout({ children, params }: Props) {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   });
-  const issued = board.status === 'issued' || board.status === 'verified';
+  const issued = board.status === 'issued' || board.status === 'labels-matched';
   const tabs = [
     { href: `/boards/${boardId}`, label: 'Board', show: true },
     { href: `/boards/${boardId}/review`, label: 'Review', show: can(actor.role, 'boards.review') },

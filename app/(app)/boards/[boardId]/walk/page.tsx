@@ -21,7 +21,7 @@ export default async function WalkPage({ params }: { params: Promise<{ boardId: 
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   });
-  if (walk.status !== 'issued' && walk.status !== 'verified') {
+  if (walk.status !== 'issued' && walk.status !== 'labels-matched') {
     return (
       <EmptyState
         title="The label walk opens once the board is issued"

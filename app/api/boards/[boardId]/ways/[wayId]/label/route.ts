@@ -9,7 +9,7 @@ const paramsSchema = z.object({ boardId: z.uuid(), wayId: z.uuid() });
 
 /**
  * POST /api/boards/:boardId/ways/:wayId/label {status, note?}: what the walker found at
- * one way. Saved at once; the board becomes verified when every label matches.
+ * one way. Saved at once; the board's stage becomes labels-matched when every label matches.
  */
 export const POST = route<{ boardId: string; wayId: string }>(async (req, params) => {
   // Params, then session and role
