@@ -1,6 +1,7 @@
 import type { BoardStatus } from '@/lib/domain';
 import type { LabelStatus } from '@/lib/domain';
 
+import type { WayCounts } from './counts';
 import type { BoardSettings, WayInput } from './schemas';
 
 /** A way as the API hands it to the client. */
@@ -27,6 +28,8 @@ export type BoardSummary = {
   phases: 1 | 3;
   status: BoardStatus;
   revision: number;
+  /** Ways by way number (counts.ts), the same as `counts.ways`. */
   wayCount: number;
+  counts: WayCounts;
   updatedAt: string;
 };

@@ -2,9 +2,10 @@ import 'server-only';
 
 import { isDeepStrictEqual } from 'node:util';
 
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
+import { countWays, type CountedWay } from '@/lib/boards/counts';
 import { railOrder } from '@/lib/boards/layout';
 import { settingsOf, type BoardCreateInput, type BoardSaveInput, type WayInput } from '@/lib/boards/schemas';
 import type { BoardDto, BoardSummary, WayDto } from '@/lib/boards/types';
@@ -56,23 +57,34 @@ export async function listBoards(actor: Actor, opts: { siteId?: string } = {}): 
     include: [{ model: Site, as: 'site', attributes: ['name'] }],
     order: [['updatedAt', 'DESC']],
   });
-  const counts = (await Way.count({
+  // Ways counted by way number, as the editor and the schedule count them (counts.ts)
+  const ways = await Way.findAll({
     where: { boardId: { [Op.in]: boards.map((b) => b.id) } },
-    group: ['boardId'],
-  })) as unknown as { boardId: string; count: number }[];
-  const byBoard = new Map(counts.map((c) => [c.boardId, Number(c.count)]));
-  return boards.map((b) => ({
-    id: b.id,
-    siteId: b.siteId,
-    siteName: (b as Board & { site?: Site }).site?.name ?? '',
-    name: b.name,
-    location: b.location,
-    phases: b.phases,
-    status: b.status,
-    revision: b.revision,
-    wayCount: byBoard.get(b.id) ?? 0,
-    updatedAt: b.updatedAt.toISOString(),
-  }));
+    attributes: ['boardId', 'id', 'rail', 'position', 'device', [literal('circuit is not null'), 'circuit']],
+    raw: true,
+  });
+  const byBoard = new Map<string, CountedWay[]>();
+  for (const w of ways as unknown as (CountedWay & { boardId: string })[]) {
+    const list = byBoard.get(w.boardId) ?? [];
+    list.push(w);
+    byBoard.set(w.boardId, list);
+  }
+  return boards.map((b) => {
+    const counts = countWays(b.phases, byBoard.get(b.id) ?? []);
+    return {
+      id: b.id,
+      siteId: b.siteId,
+      siteName: (b as Board & { site?: Site }).site?.name ?? '',
+      name: b.name,
+      location: b.location,
+      phases: b.phases,
+      status: b.status,
+      revision: b.revision,
+      wayCount: counts.ways,
+      counts,
+      updatedAt: b.updatedAt.toISOString(),
+    };
+  });
 }
 
 /** The board row of the caller's organisation, or 404 (never another organisation's). */

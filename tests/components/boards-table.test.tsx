@@ -19,6 +19,7 @@ const boards: BoardSummary[] = [
     status: 'issued',
     revision: 2,
     wayCount: 12,
+    counts: { ways: 12, circuits: 30, spare: 6, positions: 36 },
     updatedAt: '2025-03-02T10:00:00.000Z',
   },
   {
@@ -31,6 +32,7 @@ const boards: BoardSummary[] = [
     status: 'draft',
     revision: 1,
     wayCount: 8,
+    counts: { ways: 8, circuits: 7, spare: 1, positions: null },
     updatedAt: '2025-03-04T10:00:00.000Z',
   },
   {
@@ -43,6 +45,7 @@ const boards: BoardSummary[] = [
     status: 'in-review',
     revision: 1,
     wayCount: 4,
+    counts: { ways: 4, circuits: 3, spare: 1, positions: null },
     updatedAt: '2025-02-01T10:00:00.000Z',
   },
   {
@@ -55,6 +58,7 @@ const boards: BoardSummary[] = [
     status: 'labels-matched',
     revision: 3,
     wayCount: 2,
+    counts: { ways: 2, circuits: 1, spare: 1, positions: null },
     updatedAt: '2025-01-10T10:00:00.000Z',
   },
 ];
@@ -86,6 +90,18 @@ describe('BoardsTable', () => {
     const row = screen.getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
     expect(within(row).getByText('Three-phase')).toBeTruthy();
     expect(within(row).getByText('Issued')).toBeTruthy();
+  });
+
+  it('gives the true counts in the words of the editor and the schedule, and names the last stage for what it means', () => {
+    renderTable();
+    const workshop = screen.getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
+    expect(within(workshop).getByText('12 ways (36 single-pole positions): 30 circuits, 6 positions spare')).toBeTruthy();
+    const flat = screen.getByRole('link', { name: 'Flat consumer unit' }).closest('tr')!;
+    expect(within(flat).getByText('8 ways: 7 circuits, 1 spare')).toBeTruthy();
+    const yard = screen.getByRole('link', { name: 'Yard lighting' }).closest('tr')!;
+    expect(within(yard).getByText('Labels matched on site')).toBeTruthy();
+    expect(screen.getByRole('option', { name: 'Labels matched on site' })).toBeTruthy();
+    expect(document.body.textContent).not.toMatch(/verified/i);
   });
 
   it('filters by stage', async () => {

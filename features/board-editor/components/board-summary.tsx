@@ -2,6 +2,7 @@
 
 import { CircleCheck, CircleX, TriangleAlert } from 'lucide-react';
 
+import { countWays, countWords } from '@/lib/boards/counts';
 import { cn } from '@/lib/cn';
 
 import { useBoardDraftStore } from '../stores/board-draft-store';
@@ -39,6 +40,8 @@ export function BoardSummary() {
   const result = useSizingStore((s) => s.result);
   const error = useSizingStore((s) => s.error);
   const selectMany = useBoardDraftStore((s) => s.selectMany);
+  const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
+  const ways = useBoardDraftStore((s) => s.ways);
   if (!result) {
     return (
       <section aria-label="Board summary" className="rounded-card border border-line bg-paper-raised p-3 text-sm text-ink-soft">
@@ -51,7 +54,7 @@ export function BoardSummary() {
     result.ways.filter((w) => w.result?.verdict === verdict).map((w) => w.id);
   const failing = ids('fails');
   const near = ids('near-limit');
-  const phases = s.phaseCurrentsA;
+  const phaseCurrents = s.phaseCurrentsA;
   return (
     <section aria-label="Board summary" className="rounded-card border border-line bg-paper-raised p-3">
       <div className="mb-2 flex items-baseline justify-between">
@@ -63,11 +66,11 @@ export function BoardSummary() {
           <span className="text-lg font-semibold tabular-nums">{fmt(s.maxDemandA, 1)} A</span>
           <span className="block text-xs text-ink-soft">connected {fmt(s.connectedLoadW / 1000, 1)} kW, after diversity</span>
         </Stat>
-        <Stat title={phases ? 'Per phase' : 'Supply'}>
-          {phases ? (
+        <Stat title={phaseCurrents ? 'Per phase' : 'Supply'}>
+          {phaseCurrents ? (
             <>
               <span className="block tabular-nums">
-                L1 {fmt(phases.L1, 1)} · L2 {fmt(phases.L2, 1)} · L3 {fmt(phases.L3, 1)} A
+                L1 {fmt(phaseCurrents.L1, 1)} · L2 {fmt(phaseCurrents.L2, 1)} · L3 {fmt(phaseCurrents.L3, 1)} A
               </span>
               <span className="block text-xs text-ink-soft">imbalance {fmt(s.imbalancePct, 0)} %</span>
             </>
@@ -103,7 +106,10 @@ export function BoardSummary() {
         <span className="inline-flex items-center gap-1.5 rounded-md border border-verdict-pass/40 bg-verdict-pass-bg px-2.5 py-1 font-medium text-verdict-pass">
           <CircleCheck aria-hidden className="h-4 w-4" /> {s.counts.passes} pass
         </span>
-        <span className="text-ink-soft">· {s.counts.spare} spare</span>
+        {/* The ways counted by way number, in the words of the boards list and the schedule */}
+        <span className="text-ink-soft" data-testid="way-counts">
+          · {countWords(countWays(phases, ways))}
+        </span>
       </div>
       {s.checks.some((c) => !c.ok && !['incoming', 'busbar', 'modules'].includes(c.code)) ? (
         <ul className="mt-2 space-y-1 text-xs">

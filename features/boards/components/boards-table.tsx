@@ -17,6 +17,7 @@ import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
 import { Select } from '@/components/ui/field';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { actionsColumn, lastChangeColumn, RowCount, textOrDash } from '@/components/ui/table-columns';
+import { countWords } from '@/lib/boards/counts';
 import type { BoardSummary } from '@/lib/boards/types';
 
 import { BOARD_STAGES, stageOrder } from '../utils/board-stages';
@@ -122,7 +123,8 @@ export function BoardsTable({
         accessorKey: 'wayCount',
         header: 'Ways',
         sortDescFirst: true,
-        meta: { align: 'right' },
+        // The same words as the editor's summary and the schedule (counts.ts)
+        cell: ({ row }) => countWords(row.original.counts),
       },
       {
         id: 'status',

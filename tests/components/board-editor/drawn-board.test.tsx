@@ -73,7 +73,24 @@ describe('the drawn board', () => {
     expect(screen.getByText('3 free modules')).toBeTruthy();
     expect(screen.getByText('15 of 18 modules used')).toBeTruthy();
     expect(screen.getByText('RCD 30 mA · 1, 2, 3, 4')).toBeTruthy();
-    expect(screen.getByText('RCD 30 mA · 5, 6, 7, 8')).toBeTruthy();
+    // The spare way 9 sits under the second RCD, as the engine and the schedule count it
+    expect(screen.getByText('RCD 30 mA · 5, 6, 7, 8, 9')).toBeTruthy();
+  });
+
+  it('an RCBO added after the spare way is not under the RCD bracket: it protects itself (one rule with the schedule)', () => {
+    store().load(demoBoard('flat'));
+    act(() => {
+      store().addDevice(
+        '00000000-0000-4000-8000-0000000000aa',
+        deviceFromChoice('rcbo', { poles: 1, curve: 'B', ratingA: 16, rcdMa: 30 }),
+        0,
+        store().ways.length,
+      );
+    });
+    const { container } = renderBoard();
+    expect(drawnLabels(container).at(-1)).toBe('10');
+    expect(screen.getByText('RCD 30 mA · 5, 6, 7, 8, 9')).toBeTruthy();
+    expect(screen.queryByText(/RCD 30 mA · .*10/)).toBeNull();
   });
 
   it('shows each way’s verdict as icon, colour and word, from the sizing of this draft', () => {
