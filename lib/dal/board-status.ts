@@ -1,6 +1,7 @@
 import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
+import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
 import { settingsOf, type WayInput } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
@@ -11,7 +12,7 @@ import { boardDto, findBoard } from '@/lib/dal/boards';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
-import { BOARD_STATUS_PHRASES } from '@/lib/names';
+import { BOARD_STATUS_PHRASES, nameWaysIn } from '@/lib/names';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 import { Site, User, Way } from '@/models';
 
@@ -90,11 +91,11 @@ export async function submitBoard(
         wayId: w.id,
         label: labels.get(w.id) ?? null,
         serves: byId.get(w.id)?.circuit?.serves ?? '',
-        problems: (w.result?.checks ?? []).filter((c) => !c.ok).map((c) => c.message),
+        problems: (w.result?.checks ?? []).filter((c) => !c.ok).map((c) => nameWaysIn(c.message, labels)),
       }));
     const boardChecks: FailingBoardCheck[] = sized.summary.checks
       .filter((c) => !c.ok)
-      .map(({ code, message, reference }) => ({ code, message, reference }));
+      .map(({ code, message, reference }) => ({ code, message: nameWaysIn(message, labels), reference }));
     if (failing.length) {
       const n = failing.length;
       throw unprocessable(
@@ -115,7 +116,7 @@ export async function submitBoard(
       transaction,
     });
     const link = new URL(`/boards/${board.id}`, env().APP_URL).href;
-    const outgoing = ways.filter((w) => w.circuit).length;
+    const counts = countWords(countWays(board.phases, ways));
     for (const inspector of inspectors) {
       await enqueueMail(
         {
@@ -126,7 +127,7 @@ export async function submitBoard(
             `Hello ${inspector.name},`,
             '',
             `${actor.name} has sent the board "${board.name}" at ${site?.name ?? 'the site'} for review.`,
-            `Revision ${board.revision}, ${ways.length} devices on the rail, ${outgoing} circuits; no way fails.`,
+            `Revision ${board.revision}: ${counts}; no way fails.`,
             ...(boardChecks.length
               ? ['', 'Board-level checks to look at:', ...boardChecks.map((c) => `- ${c.message} (${c.reference})`)]
               : []),

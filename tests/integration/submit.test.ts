@@ -93,6 +93,12 @@ describe('sending a board for review', () => {
     expect(mail.subject).toContain('Workshop DB1');
     expect(mail.text).toContain(`/boards/${board.id}`);
     expect(mail.text).toContain(team.users.designer.name);
+    // The ways counted by way number, in the words of the boards list and the schedule
+    expect(mail.text).toContain('8 ways (24 single-pole positions): 15 circuits, 3 positions spare');
+    // No code or id outside the links
+    const words = mail.text.split('\n').filter((line: string) => !/https?:\/\//.test(line)).join('\n');
+    expect(words).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/i);
+    expect(words).not.toMatch(/main-switch|fuse-bs|ring-32|radial-|te-70|swa-xlpe|verified/);
     // Nobody but the inspectors is written to
     const queued = await OutgoingMail.findAll({ where: { organisationId: team.org.id } });
     const forThisBoard = queued.filter((m) => m.textBody.includes(board.id));
