@@ -92,6 +92,24 @@ export function deviceKindName(kind: string): string {
   return (DEVICE_KIND_NAMES as Record<string, string>)[kind] ?? 'Device';
 }
 
+/** The device kinds inside a sentence ("the main switch needs …"). */
+const DEVICE_KIND_PHRASES: Record<DeviceKindName, string> = {
+  'main-switch': 'main switch',
+  rcd: 'RCD',
+  mcb: 'MCB',
+  rcbo: 'RCBO',
+  'fuse-bs88-2': 'BS 88-2 fuse carrier',
+  'fuse-bs88-3': 'BS 88-3 fuse carrier',
+  'fuse-bs3036': 'BS 3036 fuse carrier',
+  spd: 'surge protective device',
+  blank: 'blank',
+};
+
+/** A device kind inside a sentence; an unknown code is never shown as it is. */
+export function deviceKindPhrase(kind: string): string {
+  return (DEVICE_KIND_PHRASES as Record<string, string>)[kind] ?? 'device';
+}
+
 /** What `deviceName` needs of a device. */
 export interface NamedDevice {
   kind: string;

@@ -8,6 +8,8 @@
  * gap and count against the rail's modules.
  */
 import { layoutWays, railOrder, type LayoutWay, type Phase } from './layout';
+import { deviceKindPhrase } from '@/lib/names';
+
 import { rcdProtection } from './rcd-protection';
 
 /** A device or an empty gap on one rail, `start` and `modules` in module widths. */
@@ -89,21 +91,9 @@ export function drawRails(
 /** Board facts that decide whether a device fits. */
 export type RailBoard = { phases: 1 | 3; enclosureModules: number; rails: number };
 
-const KIND_WORDS: Record<string, string> = {
-  'main-switch': 'main switch',
-  rcd: 'RCD',
-  mcb: 'MCB',
-  rcbo: 'RCBO',
-  'fuse-bs88-2': 'BS 88-2 fuse carrier',
-  'fuse-bs88-3': 'BS 88-3 fuse carrier',
-  'fuse-bs3036': 'BS 3036 fuse carrier',
-  spd: 'surge protective device',
-  blank: 'blank',
-};
-
-/** The device's kind in words, as the editor says it. */
+/** The device's kind in words, as the editor says it (lib/names.ts). */
 export function kindWords(kind: string): string {
-  return KIND_WORDS[kind] ?? kind;
+  return deviceKindPhrase(kind);
 }
 
 /**

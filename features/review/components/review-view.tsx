@@ -24,13 +24,6 @@ import { commentInputSchema, type CommentInput } from '../types/schemas';
 import { RevisionDiff } from './revision-diff';
 import { VerdictBadge } from './verdict-badge';
 
-const INCOMING_WORDS: Record<string, string> = {
-  'main-switch': 'Main switch',
-  mcb: 'Circuit-breaker',
-  'fuse-bs88-2': 'Fuse BS 88-2',
-  rcd: 'RCD',
-};
-
 const fmt = (v: number | null | undefined, d: number) => (v === null || v === undefined ? '—' : v.toFixed(d));
 
 function CommentThread({ comments }: { comments: CommentDto[] }) {
@@ -202,7 +195,7 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
         <div>
           <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Incoming</h2>
           <p>
-            {INCOMING_WORDS[board.incoming.kind] ?? board.incoming.kind} {board.incoming.ratingA} A
+            {deviceName({ kind: board.incoming.kind, ratingA: board.incoming.ratingA })}
             {board.incoming.busbarRatingA ? `, busbar ${board.incoming.busbarRatingA} A` : ''}
           </p>
           <p>{sizing?.summary.incomingCheck.message}</p>

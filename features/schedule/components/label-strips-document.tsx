@@ -1,6 +1,6 @@
 import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 
-import { MODULE_PITCH_MM, type LabelSheet } from '../utils/build-labels';
+import { JOIN_MARK_MM, MODULE_PITCH_MM, type LabelSheet } from '../utils/build-labels';
 import { PRINT_FONT } from '../utils/fonts';
 
 /** Points per millimetre (72 pt to the inch). */
@@ -10,7 +10,7 @@ const MM = 72 / 25.4;
 const LABEL_HEIGHT_MM = 14;
 
 const styles = StyleSheet.create({
-  page: { fontFamily: PRINT_FONT, color: '#1f2a37', padding: 12 * MM, fontSize: 7 },
+  page: { fontFamily: PRINT_FONT, color: '#1f2a37', padding: 10 * MM, fontSize: 7 },
   title: { fontSize: 11, fontWeight: 700 },
   meta: { fontSize: 7.5, color: '#4b5563', marginTop: 2 },
   scale: { flexDirection: 'row', alignItems: 'center', marginTop: 5, marginBottom: 6 },
@@ -30,6 +30,17 @@ const styles = StyleSheet.create({
   text: { fontSize: 5.6, textAlign: 'center' },
   device: { fontSize: 4.8, textAlign: 'center', color: '#4b5563' },
   draft: { color: '#b3261e', fontWeight: 700, fontSize: 8, marginTop: 3 },
+  join: {
+    width: JOIN_MARK_MM * MM,
+    height: LABEL_HEIGHT_MM * MM,
+    backgroundColor: '#f3e2d3',
+    justifyContent: 'center',
+    alignItems: 'center',
+  },
+  joinBefore: { borderRightWidth: 1.2, borderRightColor: '#b5652b' },
+  joinAfter: { borderLeftWidth: 1.2, borderLeftColor: '#b5652b' },
+  joinText: { fontSize: 6, fontWeight: 700, color: '#8f4c1c' },
+  joinGap: { width: JOIN_MARK_MM * MM },
 });
 
 /** Way labels drawn to the module pitch, strip by strip in rail order, with cut lines. */
@@ -41,6 +52,10 @@ export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
         <Text style={styles.meta}>
           {sheet.siteName} · revision {sheet.revision} · {MODULE_PITCH_MM} mm per module · cut along the dashed lines
         </Text>
+        <Text style={styles.meta}>
+          Each rail is one strip. A rail too long for the page is printed in pieces that meet at a marked join: cut
+          off the shaded join marks along the solid line and butt the two ends together, J1 to J1.
+        </Text>
         {sheet.draft ? <Text style={styles.draft}>Draft, not issued: do not fit these labels.</Text> : null}
         <View style={styles.scale}>
           <View style={styles.scaleBar} />
@@ -49,10 +64,21 @@ export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
         {sheet.rails.map((rail) => (
           <View key={rail.rail}>
             <Text style={styles.railTitle}>
-              Rail {rail.rail + 1} ({rail.modules} modules)
+              Rail {rail.rail + 1} ({rail.modules} modules
+              {rail.strips.length > 1
+                ? `: one strip in ${rail.strips.length} pieces, joined at ${rail.strips.flatMap((x) => (x.joinAfter ? [x.joinAfter] : [])).join(', ')}`
+                : ''}
+              )
             </Text>
             {rail.strips.map((strip) => (
               <View key={strip.firstModule} style={styles.strip} wrap={false}>
+                {strip.joinBefore ? (
+                  <View style={[styles.join, styles.joinBefore]}>
+                    <Text style={styles.joinText}>{strip.joinBefore}</Text>
+                  </View>
+                ) : (
+                  <View style={styles.joinGap} />
+                )}
                 {strip.cells.map((cell) => (
                   <View key={cell.wayId} style={[styles.cell, { width: cell.modules * MODULE_PITCH_MM * MM }]}>
                     <Text style={styles.ref}>{cell.ref ?? ' '}</Text>
@@ -60,6 +86,11 @@ export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
                     <Text style={styles.device}>{cell.device}</Text>
                   </View>
                 ))}
+                {strip.joinAfter ? (
+                  <View style={[styles.join, styles.joinAfter]}>
+                    <Text style={styles.joinText}>{strip.joinAfter}</Text>
+                  </View>
+                ) : null}
               </View>
             ))}
           </View>

@@ -11,6 +11,7 @@ import { Button } from '@/components/ui/button';
 import { Field, Input, Select } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import { errorMessage } from '@/lib/api/client';
+import { MAIL_STATUS_NAMES } from '@/lib/names';
 
 import { fetchScheduleMails, postScheduleEmail, scheduleMailsKey } from '../api/schedule-api';
 import { scheduleEmailSchema, type ScheduleEmailInput } from '../types/schemas';
@@ -22,7 +23,7 @@ type Props = {
   choices: { revision: number; label: string }[];
 };
 
-const STATUS_WORDS = { queued: 'Queued (will retry)', sent: 'Sent', failed: 'Failed' } as const;
+const STATUS_WORDS = MAIL_STATUS_NAMES;
 
 /** Print, download, label strips, revision choice and e-mailing, above the schedule; hidden in print. */
 export function ScheduleToolbar({ boardId, revision, choices }: Props) {

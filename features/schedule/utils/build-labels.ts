@@ -1,6 +1,8 @@
 /**
- * The label strips of a board: one label per device on the rail, as wide as the device,
- * in rail order, split into strips that fit across an A4 page. Pure.
+ * The label strips of a board: one label per device on the rail, as wide as the device, in
+ * rail order. Each rail is one continuous strip; a rail longer than an A4 page is wide is
+ * printed in pieces that meet at a marked join (J1, J2, …), between two devices, so that the
+ * pieces are butted together into the one strip. Pure.
  */
 import { layoutWays, railOrder } from '@/lib/boards/layout';
 import { labelTextOf } from '@/lib/boards/revision-diff';
@@ -10,11 +12,14 @@ import type { ScheduleSource } from '@/lib/dal/review';
 /** The common DIN-rail module pitch, mm (one 1-pole MCB is 17.5 mm wide: common practice, EN 60715 rail). */
 export const MODULE_PITCH_MM = 17.5;
 
-/** Printable width across an A4 landscape page with 12 mm margins, mm. */
-export const STRIP_WIDTH_MM = 297 - 2 * 12;
+/** Printable width across an A4 landscape page with 10 mm margins, mm. */
+export const STRIP_WIDTH_MM = 297 - 2 * 10;
 
-/** Modules that fit on one printed strip. */
-export const MODULES_PER_STRIP = Math.floor(STRIP_WIDTH_MM / MODULE_PITCH_MM);
+/** Width of a join mark at either end of a piece of a strip, mm (outside the labels: it is cut off). */
+export const JOIN_MARK_MM = 6;
+
+/** Modules that fit on one printed piece of a strip, with room for a join mark at each end. */
+export const MODULES_PER_STRIP = Math.floor((STRIP_WIDTH_MM - 2 * JOIN_MARK_MM) / MODULE_PITCH_MM);
 
 export type LabelCell = {
   wayId: string;
@@ -24,7 +29,17 @@ export type LabelCell = {
   modules: number;
 };
 
-export type LabelStrip = { firstModule: number; lastModule: number; cells: LabelCell[] };
+/**
+ * One piece of a rail's strip. `joinBefore` names the join its left end meets (null at the
+ * rail's first module), `joinAfter` the join its right end meets (null at the rail's end).
+ */
+export type LabelStrip = {
+  firstModule: number;
+  lastModule: number;
+  cells: LabelCell[];
+  joinBefore: string | null;
+  joinAfter: string | null;
+};
 
 export type LabelSheet = {
   boardName: string;
@@ -41,6 +56,8 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
   const ordered = railOrder(ways);
   const refs = new Map(layoutWays(settings.phases, ordered).map((p) => [p.id, p.label]));
   const rails = [...new Set(ordered.map((w) => w.rail))].sort((a, b) => a - b);
+  // Joins are numbered across the whole sheet, so that no two pieces of different rails match
+  let joins = 0;
   const slug = settings.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'board';
   return {
     boardName: settings.name,
@@ -55,9 +72,11 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
       for (const way of ordered.filter((w) => w.rail === rail)) {
         const modules = Math.max(1, way.device.modules);
         const used: number = current ? current.lastModule - current.firstModule + 1 : 0;
-        // A device never straddles two strips: start a new one when it would not fit
+        // A device never straddles two pieces: the strip is joined before it when it would not fit
         if (!current || used + modules > MODULES_PER_STRIP) {
-          current = { firstModule: module + 1, lastModule: module, cells: [] };
+          const join: string | null = current ? `J${++joins}` : null;
+          if (current) current.joinAfter = join;
+          current = { firstModule: module + 1, lastModule: module, cells: [], joinBefore: join, joinAfter: null };
           strips.push(current);
         }
         current.cells.push({

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { buildLabelSheet, MODULE_PITCH_MM, MODULES_PER_STRIP } from '@/features/schedule/utils/build-labels';
 import type { SnapshotWay } from '@/lib/boards/revision-diff';
 import type { ScheduleSource } from '@/lib/dal/review';
+import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
 const device = (modules: 1 | 2 | 3 | 4, kind: SnapshotWay['device']['kind'] = 'mcb'): SnapshotWay['device'] =>
   kind === 'mcb'
@@ -40,12 +41,12 @@ function source(ways: SnapshotWay[], phases: 1 | 3 = 1): ScheduleSource {
 }
 
 describe('label strips', () => {
-  it('fit 15 modules of 17.5 mm across A4 landscape with 12 mm margins (273 mm / 17.5 mm = 15.6)', () => {
+  it('fit 15 modules of 17.5 mm across A4 landscape with 10 mm margins and a 6 mm join mark at each end ((277 − 12) mm / 17.5 mm = 15.1)', () => {
     expect(MODULE_PITCH_MM).toBe(17.5);
     expect(MODULES_PER_STRIP).toBe(15);
   });
 
-  it('keep rail order, give each label its device’s modules and never split a device across strips', () => {
+  it('keep rail order, give each label its device’s modules and split a rail only at a marked join, never inside a device', () => {
     const ways: SnapshotWay[] = [
       { id: 'main', rail: 0, position: 0, device: device(2, 'main-switch'), circuit: null },
       ...Array.from({ length: 14 }, (_, i) => ({ id: `m${i}`, rail: 0, position: i + 1, device: device(1), circuit: null })),
@@ -63,8 +64,28 @@ describe('label strips', () => {
       ['last', 3],
     ]);
     expect([first.firstModule, first.lastModule, second.firstModule, second.lastModule]).toEqual([1, 15, 16, 19]);
+    // One strip in two pieces: the first ends and the second starts at the same marked join
+    expect([first.joinBefore, first.joinAfter, second.joinBefore, second.joinAfter]).toEqual([null, 'J1', 'J1', null]);
+    // A rail that fits is one piece, without joins
+    expect(sheet.rails[1].strips).toHaveLength(1);
+    expect(sheet.rails[1].strips[0]).toMatchObject({ joinBefore: null, joinAfter: null });
     expect(first.cells[0]).toMatchObject({ ref: null, text: 'Main switch' });
     expect(first.cells[1]).toMatchObject({ ref: '1', text: 'Spare' });
     expect(sheet.rails[1].strips[0].cells[0]).toMatchObject({ text: 'Spare', device: '' });
+  });
+
+  it('the demo flat’s 18-module rail is one strip: no way wraps onto a row of its own without a join', () => {
+    const flat = demoWays(FLAT_BOARD).map((w) => ({ ...w, circuit: w.circuit }));
+    const sheet = buildLabelSheet(source(flat));
+    expect(sheet.rails).toHaveLength(1);
+    const pieces = sheet.rails[0].strips;
+    // Every piece but the last ends at a join that the next piece starts at
+    pieces.forEach((piece, i) => {
+      expect(piece.joinAfter).toBe(i < pieces.length - 1 ? `J${i + 1}` : null);
+      expect(piece.joinBefore).toBe(i > 0 ? `J${i}` : null);
+    });
+    // The pieces together hold every device once, in rail order, and reach the rail's end
+    expect(pieces.flatMap((p) => p.cells.map((c) => c.wayId))).toEqual(flat.map((w) => w.id));
+    expect(pieces.at(-1)!.lastModule).toBe(sheet.rails[0].modules);
   });
 });
