@@ -91,8 +91,8 @@ describe('the label walk', () => {
     // …and on the schedule
     const text = await scheduleText(board.id);
     expect(text).toContain('Label on site');
-    expect(text).toContain('✗ Wrong: Reads "Kitchen" on the label');
-    expect(text).toContain('✓ Matches');
+    expect(text).toContain('✗ Label is wrong: Reads "Kitchen" on the label');
+    expect(text).toContain('✓ Label matches');
     expect(text).toMatch(/Label walk \d+ match, 1 wrong, 0 missing, 0 not checked/);
   });
 

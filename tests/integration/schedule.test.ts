@@ -9,7 +9,7 @@ import * as approveRoute from '@/app/api/boards/[boardId]/review/approve/route';
 import * as labelsRoute from '@/app/api/boards/[boardId]/labels/route';
 import * as scheduleRoute from '@/app/api/boards/[boardId]/schedule/route';
 import * as emailRoute from '@/app/api/boards/[boardId]/schedule/email/route';
-import { SCHEDULE_COLUMNS } from '@/features/schedule/utils/build-schedule';
+import { DESIGN_VALUES_NOTE, NOTICES_NOTE, SCHEDULE_COLUMNS } from '@/features/schedule/utils/build-schedule';
 import { layoutWays } from '@/lib/boards/layout';
 import type { WayInput } from '@/lib/boards/schemas';
 import { SIZING_CAUTION } from '@/lib/sizing';
@@ -129,7 +129,7 @@ describe('the schedule PDF', () => {
       // The way reference and what it serves sit on one row of the table
       expect(text).toMatch(new RegExp(`${place.label} ${serves.replace(/[()]/g, '\\$&')}`));
     }
-    for (const col of SCHEDULE_COLUMNS.filter((c) => c.key !== 'label')) expect(text).toContain(col.heading);
+    for (const col of SCHEDULE_COLUMNS.filter((c) => c.key !== 'label')) expect(text).toContain(col.heading.replace(/\s+/g, ' '));
     expect(text).toContain(SIZING_CAUTION);
     expect(text).toContain('Revision 1');
     expect(text).toContain('Not issued');
@@ -139,7 +139,7 @@ describe('the schedule PDF', () => {
   it('groups ways under the RCD that protects them', async () => {
     signInAs(ours.users.designer);
     const { text } = await pdfText(new Uint8Array(await (await get(scheduleRoute, flat.board.id)).arrayBuffer()));
-    const heading = 'RCD 63 A, 30 mA, type A: protects the ways below';
+    const heading = 'RCD 63 A 30 mA, type A: RCD protection for the ways below';
     const first = text.indexOf(heading);
     const second = text.indexOf(heading, first + 1);
     expect(first).toBeGreaterThan(-1);
@@ -157,6 +157,52 @@ describe('the schedule PDF', () => {
       if (rcds === 1) expect(at).toBeLessThan(second);
     }
     expect(rcds).toBe(2);
+  });
+
+  it('speaks the trade: no internal code or id, design values marked on every page, and counts equal to the way numbers printed', async () => {
+    signInAs(ours.users.designer);
+    for (const [name, board, phases] of [
+      ['flat', flat.board, 1],
+      ['workshop', workshop.board, 3],
+    ] as const) {
+      const { text, pages } = await pdfText(new Uint8Array(await (await get(scheduleRoute, board.id)).arrayBuffer()), `${name}-trade.pdf`);
+      // No id, no code of the app's vocabularies (lower-case codes; "RCBO" and "MCB" are trade words)
+      expect(text).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/i);
+      expect(text).not.toMatch(
+        /main-switch|fuse-bs|ring-32|radial-(20|32)|te-70|single-pvc|multi-pvc|swa-xlpe|in-review|labels-matched|near-limit|socket-arrangement|unchecked|mcb|rcbo|rcd|verified/,
+      );
+      // Temperatures carry their unit
+      expect(text).not.toMatch(/\d°(?! ?C)/);
+      // R1+R2 and Zs are headed as design values, and every page says they are not test results
+      expect(text).toContain('Design R1+R2 Ω');
+      expect(text).toContain('Design Zs Ω');
+      for (const page of pages) expect(page).toContain(DESIGN_VALUES_NOTE);
+      expect(text).toContain(NOTICES_NOTE);
+      // The counts: way numbers printed as rows, against the totals
+      const ways = await Way.findAll({ where: { boardId: board.id } });
+      const places = layoutWays(phases, ways as unknown as WayInput[]).filter((p) => p.label);
+      for (const place of places) {
+        const serves = (ways.find((w) => w.id === place.id)!.circuit?.serves as string | undefined) ?? 'Spare (blank)';
+        expect(text).toMatch(new RegExp(`${place.label} ${serves.replace(/[()]/g, '\\$&')}`));
+      }
+      const highest = Math.max(...places.map((p) => p.wayNumber!));
+      const circuits = ways.filter((w) => w.circuit && places.some((p) => p.id === w.id)).length;
+      const total = /Ways (\d+) ways(?: \((\d+) single-pole positions\))?: (\d+) circuits?, (\d+) (?:positions )?spare/.exec(text);
+      expect(total, `the totals of the ${name}`).not.toBeNull();
+      const [, waysN, positionsN, circuitsN, spareN] = total!;
+      expect(Number(waysN)).toBe(highest);
+      expect(Number(circuitsN)).toBe(circuits);
+      if (phases === 3) {
+        expect(Number(positionsN)).toBe(highest * 3);
+        const taken = places.filter((p) => ways.find((w) => w.id === p.id)!.circuit).reduce((n, p) => n + p.phases.length, 0);
+        expect(Number(spareN)).toBe(highest * 3 - taken);
+      } else {
+        expect(positionsN).toBeUndefined();
+        expect(Number(spareN)).toBe(highest - circuits);
+      }
+      // No phase position beyond the highest way is printed
+      if (phases === 3) expect(text).not.toMatch(new RegExp(`\\b${highest + 1}L[123]`));
+    }
   });
 
   it('names three-phase ways per phase and carries the 400 V notice', async () => {
@@ -253,6 +299,8 @@ describe('label strips', () => {
     expect(res.headers.get('content-type')).toBe('application/pdf');
     const { text } = await pdfText(new Uint8Array(await res.arrayBuffer()), 'workshop-labels.pdf');
     expect(text).toContain('17.5 mm per module');
+    // The workshop's rail (28 modules of devices) is one strip in two pieces that meet at a marked join
+    expect(text).toMatch(/Rail 1 \(28 modules: one strip in 2 pieces, joined at J1\)/);
     const order = ['Main switch', 'Panel saw', 'Dust extractor', 'Spindle moulder', 'Lighting: machine shop', 'Fire alarm panel'];
     const at = order.map((t) => text.indexOf(t));
     expect(at.every((i) => i > -1)).toBe(true);

@@ -61,7 +61,8 @@ export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { key: 'iz', heading: 'Iz A', width: 34, align: 'right' },
   { key: 'vd', heading: 'Volt drop % (limit)', width: 52, align: 'right' },
   { key: 'r1r2', heading: 'Design R1+R2 Ω', width: 40, align: 'right' },
-  { key: 'zs', heading: 'Design Zs Ω (limit)', width: 54, align: 'right' },
+  // The line break keeps "(limit)" whole in the narrow PDF heading (a web page shows a space)
+  { key: 'zs', heading: 'Design Zs Ω\n(limit)', width: 54, align: 'right' },
   { key: 'result', heading: 'Design check', width: 58, align: 'left' },
   { key: 'label', heading: 'Label on site', width: 70, align: 'left' },
 ];
@@ -272,6 +273,7 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
   const groups: ScheduleGroup[] = [];
   let mainSwitch: SnapshotWay | null = null;
   let groupKey: string | null = null;
+  const seen = new Set<string>();
   for (const way of ordered) {
     if (way.device.kind === 'main-switch') mainSwitch = way;
     if (way.device.kind === 'main-switch' || way.device.kind === 'rcd') {
@@ -289,7 +291,11 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
             : `none:${mainSwitch?.id ?? ''}`;
     if (key !== groupKey) {
       const rcd = protector?.by === 'rcd' ? byId.get(protector.rcdId) : undefined;
-      groups.push({ heading: groupHeading(protector, rcd, mainSwitch, settings.incoming), rows: [] });
+      const heading = groupHeading(protector, rcd, mainSwitch, settings.incoming);
+      // A run that resumes after an RCBO says so, rather than restating its device as if it were another
+      const again = key !== 'own' && seen.has(key);
+      groups.push({ heading: again ? `${heading.split(':')[0]} (continued)` : heading, rows: [] });
+      seen.add(key);
       groupKey = key;
     }
     const row = rowFor(way, refs.get(way.id) ?? null, results.get(way.id) ?? null, walked ? labels[way.id] : undefined);

@@ -104,7 +104,7 @@ describe('the schedule’s content', () => {
     expect(data.groups.map((g) => [g.heading, g.rows.map((r) => r.cells.way)])).toEqual([
       ['RCD 40 A 30 mA, type A: RCD protection for the ways below', ['1', '2']],
       ['RCBOs: each way below has its own RCD protection', ['3']],
-      ['RCD 40 A 30 mA, type A: RCD protection for the ways below', ['4']],
+      ['RCD 40 A 30 mA, type A (continued)', ['4']],
     ]);
     // The engine says the same of every way
     const by = new Map(data.groups.flatMap((g) => g.rows.map((r) => [r.wayId, g.heading.startsWith('RCD') ? 'r' : r.wayId])));
