@@ -20,7 +20,7 @@ import { findBoard, getBoard } from '@/lib/dal/boards';
 import { env } from '@/lib/env';
 import { badRequest, conflict, forbidden, notFound, unprocessable, type FieldIssue } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
-import { BOARD_STATUS_PHRASES } from '@/lib/names';
+import { BOARD_STATUS_PHRASES, wayTitle } from '@/lib/names';
 import type { BoardResult } from '@/lib/sizing';
 import {
   AuditEvent,
@@ -224,7 +224,8 @@ async function commentLines(board: Board, transaction: Transaction): Promise<str
     layoutWays(board.phases, ways as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
   );
   return comments.map((c) => {
-    const where = c.wayId ? `Way ${refs.get(c.wayId) ?? '(removed)'}` : 'Board';
+    const ref = c.wayId ? refs.get(c.wayId) : null;
+    const where = c.wayId ? (ref ? wayTitle(ref) : 'A way since removed') : 'Board';
     const who = (c as Comment & { author?: User }).author?.name ?? 'A former member';
     return `- ${where} (${who}): ${c.body}`;
   });

@@ -7,7 +7,10 @@ const TONES = { passes: 'text-verdict-pass', 'near-limit': 'text-verdict-near', 
 /** The board schedule as a web page, from the same data as the PDF; prints on A4 landscape. */
 export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataUrl: string }) {
   return (
-    <article className="rounded-card border border-line bg-paper-raised p-5 text-[13px] print:border-0 print:p-0 print:text-[9px]">
+    <article
+      data-print-root
+      className="rounded-card border border-line bg-paper-raised p-5 text-[13px] print:border-0 print:p-0 print:text-[9px]"
+    >
       <header className="flex flex-wrap gap-6 border-b-2 border-ink pb-3">
         <div className="min-w-56 flex-1">
           <p className="text-xs uppercase tracking-wide text-ink-soft">{data.organisationName}</p>

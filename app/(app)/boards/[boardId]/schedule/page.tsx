@@ -15,8 +15,19 @@ import { HttpError } from '@/lib/errors';
 
 export const metadata = { title: 'Schedule' };
 
-// The app's top bar is not part of the printed page.
-const PRINT_CSS = '@page { size: A4 landscape; margin: 10mm; } @media print { body > div > header { display: none; } main { padding: 0 !important; max-width: none !important; } }';
+// Printing this page prints the schedule alone: everything that neither holds the sheet nor lies
+// inside it (the app's bar, the board's tabs, the toolbar, toasts) is left out, the boxes around
+// the sheet lose their padding, and the sheet's shading (the table header, the group bands) prints.
+const PRINT_CSS = `
+@page { size: A4 landscape; margin: 10mm; }
+@media print {
+  body :not(:has([data-print-root])):not([data-print-root]):not([data-print-root] *) { display: none !important; }
+  body :has([data-print-root]) {
+    margin: 0 !important; padding: 0 !important; gap: 0 !important; max-width: none !important;
+    border: 0 !important; box-shadow: none !important; background: none !important;
+  }
+  [data-print-root], [data-print-root] * { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+}`;
 
 /** The board schedule in the browser, printable; the same data as the PDF. */
 export default async function SchedulePage({
