@@ -39,7 +39,7 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
           Draft, revision {data.revision}: not issued. Do not build or label a board from this print.
         </p>
       ) : null}
-      <p className="mt-2 text-xs text-ink-soft">{data.designValuesNote}</p>
+      <p className="mt-2 text-xs text-ink-soft print:text-[8px]">{data.designValuesNote}</p>
       <div className="mt-1 overflow-x-auto">
         <table className="w-full border-collapse text-left">
           <thead className="bg-ink text-white">
@@ -101,7 +101,7 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
               </li>
             ))}
           </ul>
-          <p className="mt-1.5 text-xs text-ink-soft">{data.noticesNote}</p>
+          <p className="mt-1.5 text-xs text-ink-soft print:text-[8px]">{data.noticesNote}</p>
         </section>
       </div>
       {data.designNotes.length ? (
@@ -114,7 +114,7 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
           </ul>
         </section>
       ) : null}
-      <p role="note" className="mt-4 border-t border-line pt-2 text-xs">
+      <p role="note" className="mt-4 border-t border-line pt-2 text-xs print:text-[8px]">
         <strong>Caution.</strong> {data.caution}
       </p>
     </article>
