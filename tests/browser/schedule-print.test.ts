@@ -10,6 +10,7 @@ import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
 
 import { DESIGN_VALUES_NOTE } from '@/features/schedule/utils/build-schedule';
+import { countWays, countWords } from '@/lib/boards/counts';
 import { SIZING_CAUTION } from '@/lib/sizing';
 
 import { APP_URL, boardIdByName, openBrowser, signIn } from './helpers';
@@ -40,7 +41,13 @@ describe('the schedule page, printed from the browser', () => {
       expect(words).toContain('Design R1+R2 Ω');
       expect(words).toContain('Design Zs Ω (limit)');
       expect(words).toContain(DESIGN_VALUES_NOTE);
-      expect(words).toContain('9 ways: 8 circuits, 1 spare');
+      // The counts are the way numbers printed (the demo flat: ways 1–9, the spare included)
+      const board = (await (await page.request.get(`${APP_URL}/api/boards/${boardId}`)).json()).board;
+      const counts = countWays(board.phases, board.ways);
+      expect(words).toContain(countWords(counts));
+      const printed = (await sheet.locator('tbody td:first-child').allInnerTexts()).map(Number);
+      expect(Math.max(...printed)).toBe(counts.ways);
+      expect(printed).toEqual(Array.from({ length: counts.ways }, (_, i) => i + 1));
       expect(words).toMatch(/do not replace the notices and labels BS 7671 requires at the board/);
       expect(words).toContain(SIZING_CAUTION);
       expect(words).not.toMatch(UUID);
