@@ -54,7 +54,7 @@ export type LabelSheet = {
 export function buildLabelSheet(source: ScheduleSource): LabelSheet {
   const { settings, ways } = source.snapshot;
   const ordered = railOrder(ways);
-  const refs = new Map(layoutWays(settings.phases, ordered).map((p) => [p.id, p.label]));
+  const places = new Map(layoutWays(settings.phases, ordered).map((p) => [p.id, p]));
   const rails = [...new Set(ordered.map((w) => w.rail))].sort((a, b) => a - b);
   // Joins are numbered across the whole sheet, so that no two pieces of different rails match
   let joins = 0;
@@ -69,24 +69,35 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
       const strips: LabelStrip[] = [];
       let current: LabelStrip | null = null;
       let module = 0;
-      for (const way of ordered.filter((w) => w.rail === rail)) {
-        const modules = Math.max(1, way.device.modules);
+      // The strip's cells in rail order; phase positions a three-pole way leaves empty before it
+      // (layout.ts) are an empty cell of their width, so that every label lines up with its device
+      const cells: LabelCell[] = ordered
+        .filter((w) => w.rail === rail)
+        .flatMap((way) => {
+          const skipped = places.get(way.id)?.skippedBefore ?? 0;
+          const gap: LabelCell[] = skipped ? [{ wayId: `${way.id}:gap`, ref: null, text: '', device: '', modules: skipped }] : [];
+          return [
+            ...gap,
+            {
+              wayId: way.id,
+              ref: places.get(way.id)?.label ?? null,
+              text: labelTextOf(way),
+              device: way.device.kind === 'blank' ? '' : deviceName(way.device),
+              modules: Math.max(1, way.device.modules),
+            },
+          ];
+        });
+      for (const cell of cells) {
         const used: number = current ? current.lastModule - current.firstModule + 1 : 0;
         // A device never straddles two pieces: the strip is joined before it when it would not fit
-        if (!current || used + modules > MODULES_PER_STRIP) {
+        if (!current || used + cell.modules > MODULES_PER_STRIP) {
           const join: string | null = current ? `J${++joins}` : null;
           if (current) current.joinAfter = join;
           current = { firstModule: module + 1, lastModule: module, cells: [], joinBefore: join, joinAfter: null };
           strips.push(current);
         }
-        current.cells.push({
-          wayId: way.id,
-          ref: refs.get(way.id) ?? null,
-          text: labelTextOf(way),
-          device: way.device.kind === 'blank' ? '' : deviceName(way.device),
-          modules,
-        });
-        module += modules;
+        current.cells.push(cell);
+        module += cell.modules;
         current.lastModule = module;
       }
       return { rail, modules: module, strips };

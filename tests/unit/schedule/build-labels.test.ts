@@ -88,4 +88,23 @@ describe('label strips', () => {
     expect(pieces.flatMap((p) => p.cells.map((c) => c.wayId))).toEqual(flat.map((w) => w.id));
     expect(pieces.at(-1)!.lastModule).toBe(sheet.rails[0].modules);
   });
+
+  it('on a three-phase board, the phase positions left empty before a three-pole way are an empty label of their width', () => {
+    const ways: SnapshotWay[] = [
+      { id: 'main', rail: 0, position: 0, device: device(4, 'main-switch'), circuit: null },
+      { id: 'one', rail: 0, position: 1, device: device(1), circuit: null },
+      { id: 'three', rail: 0, position: 2, device: device(3), circuit: null },
+    ];
+    const sheet = buildLabelSheet(source(ways, 3));
+    const cells = sheet.rails[0].strips.flatMap((p) => p.cells);
+    expect(cells.map((c) => [c.ref, c.modules])).toEqual([
+      [null, 4],
+      ['1L1', 1],
+      [null, 2],
+      ['2L1–L3', 3],
+    ]);
+    expect(cells[2]).toMatchObject({ text: '', device: '' });
+    // The strip is as long as the rail is drawn: 4 + 1 + 2 + 3 modules
+    expect(sheet.rails[0].modules).toBe(10);
+  });
 });
