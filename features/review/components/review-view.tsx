@@ -9,6 +9,7 @@ import { Fragment, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 
+import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { FormAlert } from '@/components/ui/form-alert';
@@ -22,7 +23,6 @@ import type { CircuitResult } from '@/lib/sizing';
 import { postApprove, postComment, postReturn } from '../api/review-api';
 import { commentInputSchema, type CommentInput } from '../types/schemas';
 import { RevisionDiff } from './revision-diff';
-import { VerdictBadge } from './verdict-badge';
 
 const INCOMING_WORDS: Record<string, string> = {
   'main-switch': 'Main switch',
@@ -264,7 +264,7 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                     <td className="px-3 py-2 text-right tabular-nums">
                       {r ? `${fmt(r.zsOhm, 2)} (${fmt(r.zsMaxOhm, 2)})` : '—'}
                     </td>
-                    <td className="px-3 py-2">{way.circuit ? <VerdictBadge verdict={r?.verdict ?? null} /> : null}</td>
+                    <td className="px-3 py-2">{way.circuit ? r?.verdict ? <VerdictBadge verdict={r.verdict} /> : <span className="text-xs text-ink-soft">Not sized</span> : null}</td>
                     <td className="px-3 py-2">
                       <button
                         type="button"
