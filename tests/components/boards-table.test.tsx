@@ -72,6 +72,19 @@ function renderTable(props: Partial<React.ComponentProps<typeof BoardsTable>> = 
 }
 
 describe('BoardsTable', () => {
+  it('draws each board as a card for a phone, with its stage beside its name', () => {
+    renderTable();
+    const cards = within(screen.getByRole('list', { name: 'Boards' })).getAllByRole('listitem');
+    expect(cards).toHaveLength(4);
+    const workshop = cards.find((c) => within(c).queryByRole('link', { name: 'Workshop DB1' }))!;
+    expect(within(workshop).getByText('Issued')).toBeTruthy();
+    expect(within(workshop).getByText('Three-phase')).toBeTruthy();
+    expect(within(workshop).getByRole('button', { name: /rename workshop db1/i })).toBeTruthy();
+    // The list is the phone's; the table the wider screens' (Tailwind's md breakpoint)
+    expect(screen.getByTestId('row-cards').className).toContain('md:hidden');
+    expect(screen.getByRole('table').parentElement!.className).toContain('hidden md:block');
+  });
+
   it('lists the newest change first, with links to the editor and the site', () => {
     renderTable();
     expect(shownNames()).toEqual([
@@ -80,10 +93,10 @@ describe('BoardsTable', () => {
       'Spray booth sub-board',
       'Yard lighting',
     ]);
-    expect(screen.getByRole('link', { name: 'Workshop DB1' }).getAttribute('href')).toBe(
+    expect(within(screen.getByRole('table')).getByRole('link', { name: 'Workshop DB1' }).getAttribute('href')).toBe(
       '/boards/aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa',
     );
-    const row = screen.getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
+    const row = within(screen.getByRole('table')).getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
     expect(within(row).getByText('Three-phase')).toBeTruthy();
     expect(within(row).getByText('Issued')).toBeTruthy();
   });
@@ -111,7 +124,7 @@ describe('BoardsTable', () => {
     await user.type(screen.getByRole('searchbox', { name: /search boards/i }), 'store');
     expect(shownNames()).toEqual(['Yard lighting']);
     await user.selectOptions(screen.getByRole('combobox', { name: 'Stage' }), 'draft');
-    expect(screen.getByText('No board matches these filters.')).toBeTruthy();
+    expect(within(screen.getByRole('table')).getByText('No board matches these filters.')).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Clear filters' }));
     expect(shownNames()).toHaveLength(4);
   });

@@ -15,6 +15,7 @@ import { Caution } from '@/components/ui/caution';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PageHeader } from '@/components/ui/page-header';
 import { StatusBadge } from '@/components/ui/status-badge';
+import { When } from '@/components/ui/when';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import { deviceName } from '@/lib/names';
 import type { CommentDto, ReviewData } from '@/lib/dal/review';
@@ -40,7 +41,7 @@ function CommentThread({ comments }: { comments: CommentDto[] }) {
       {comments.map((c) => (
         <li key={c.id} className="rounded-md border border-line bg-paper px-3 py-2 text-sm">
           <div className="text-xs text-ink-soft">
-            {c.authorName} · revision {c.revision} · {new Date(c.createdAt).toLocaleString('en-GB')}
+            {c.authorName} · revision {c.revision} · <When iso={c.createdAt} />
           </div>
           <p className="whitespace-pre-wrap text-ink">{c.body}</p>
         </li>
