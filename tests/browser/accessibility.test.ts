@@ -7,7 +7,7 @@
 import crypto from 'node:crypto';
 import { createRequire } from 'node:module';
 
-import type { Page } from 'playwright-core';
+import type { ConsoleMessage, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { db } from '@/lib/db';
@@ -107,12 +107,48 @@ const SCREENS: Screen[] = [
     },
   },
   {
+    name: 'editor, a way picked (way panel)',
+    role: 'designer',
+    path: ({ workshop }) => `/boards/${workshop}`,
+    ready: async (page) => {
+      await page.locator('[data-verdict]').first().waitFor();
+      await page.locator('[data-way-label="4L1"]').click();
+      await page.getByRole('region', { name: 'Sizing result' }).waitFor();
+    },
+  },
+  {
+    name: 'editor (inspector, read only)',
+    role: 'inspector',
+    path: ({ workshop }) => `/boards/${workshop}`,
+    ready: async (page) => {
+      await page.locator('[data-verdict]').first().waitFor();
+    },
+  },
+  {
+    name: 'editor (installer, read only)',
+    role: 'installer',
+    path: ({ workshop }) => `/boards/${workshop}`,
+    ready: async (page) => {
+      await page.getByTestId('drawn-board').waitFor();
+    },
+  },
+  {
+    name: 'editor (phone)',
+    role: 'designer',
+    phone: true,
+    path: ({ workshop }) => `/boards/${workshop}`,
+    ready: async (page) => {
+      await page.locator('[data-verdict]').first().waitFor();
+    },
+  },
+  {
     name: 'review',
     role: 'inspector',
     path: () => `/boards/${inReviewId}/review`,
     ready: heading(/^Review: /),
   },
   { name: 'schedule', role: 'inspector', path: () => `/boards/${issuedId}/schedule`, ready: heading(/Schedule/) },
+  { name: 'schedule (installer)', role: 'installer', path: () => `/boards/${issuedId}/schedule`, ready: heading(/Schedule/) },
   {
     name: 'label walk (phone)',
     role: 'installer',
@@ -142,15 +178,32 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
     }
   });
 
+  // One signed-in browser per role and size, shared by the screens that use it
+  const browsers = new Map<string, Awaited<ReturnType<typeof openBrowser>>>();
+  async function browserFor(screen: Screen) {
+    const key = `${screen.role ?? 'signed out'}${screen.phone ? ' phone' : ''}`;
+    let browser = browsers.get(key);
+    if (!browser) {
+      browser = await openBrowser({ phone: screen.phone });
+      if (screen.role) await signIn(browser.page, screen.role);
+      browsers.set(key, browser);
+    }
+    return browser.page;
+  }
+  afterAll(async () => {
+    for (const browser of browsers.values()) await browser.close();
+  });
+
   it.each(SCREENS)('$name has no violations', async (screen) => {
-    const { page, close } = await openBrowser({ phone: screen.phone });
+    const page = await browserFor(screen);
     const errors: string[] = [];
-    page.on('console', (m) => {
+    const onConsole = (m: ConsoleMessage) => {
       if (m.type() === 'error') errors.push(m.text());
-    });
-    page.on('pageerror', (e) => errors.push(String(e)));
+    };
+    const onError = (e: Error) => errors.push(String(e));
+    page.on('console', onConsole);
+    page.on('pageerror', onError);
     try {
-      if (screen.role) await signIn(page, screen.role);
       await page.goto(`${APP_URL}${screen.path(ids)}`);
       await screen.ready(page);
       await page.waitForLoadState('networkidle');
@@ -159,7 +212,8 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       expect(report.join('\n')).toBe('');
       expect(errors).toEqual([]);
     } finally {
-      await close();
+      page.off('console', onConsole);
+      page.off('pageerror', onError);
     }
   });
 });

@@ -98,9 +98,11 @@ export const DeviceCell = memo(function DeviceCell({
         !readOnly && 'cursor-grab active:cursor-grabbing',
       )}
     >
-      <span className="h-4 truncate text-center font-mono text-[10px] leading-4 font-semibold text-ink">
-        {label ?? ''}
-      </span>
+      {/* Drawn by CSS like the device's face: the cell's name carries the reference in words */}
+      <span
+        data-text={label ?? ''}
+        className="h-4 truncate text-center font-mono text-[10px] leading-4 font-semibold text-ink before:content-[attr(data-text)]"
+      />
       <div className="h-[100px]">
         <DeviceFace device={device} />
       </div>

@@ -28,7 +28,7 @@ type RailLegendProps = {
 export function RailLegend({ railName, entries, results, pending, showVerdicts, selection, onSelect }: RailLegendProps) {
   if (!entries.length) return null;
   return (
-    <ol aria-label={`Ways on ${railName}`} className="mt-2 grid gap-x-4 gap-y-0.5 border-t border-ink/15 pt-2 sm:grid-cols-2 2xl:grid-cols-3">
+    <ol aria-label={`Ways on ${railName}`} className="mt-2 gap-x-4 border-t border-ink/15 pt-2 sm:columns-2 2xl:columns-3">
       {entries.map(({ way, label }) => {
         const verdict = showVerdicts ? results.get(way.id)?.result?.verdict : undefined;
         const spare = (isProtectiveDevice(way.device.kind) && !way.circuit) || way.device.kind === 'blank';
@@ -38,7 +38,8 @@ export function RailLegend({ railName, entries, results, pending, showVerdicts, 
             data-legend-way={way.id}
             onClick={() => onSelect(way.id)}
             className={cn(
-              'flex cursor-pointer items-start gap-2 rounded-md px-1.5 py-1 text-xs leading-snug hover:bg-white/60',
+              // Read down each column, then across; an entry never splits between columns
+              'mb-0.5 flex cursor-pointer break-inside-avoid items-start gap-2 rounded-md px-1.5 py-1 text-xs leading-snug hover:bg-white/60',
               selection.includes(way.id) && 'bg-copper-light ring-1 ring-copper',
             )}
           >
