@@ -205,13 +205,13 @@ function RowCards<T>({ table, caption, loading, noMatch }: Pick<DataTableProps<T
                 ))}
               </p>
             ) : null}
-            <dl className="mt-2 grid grid-cols-2 gap-x-4 gap-y-1 text-sm">
+            <dl className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm">
               {place('field').map((c) => {
                 const header = c.column.columnDef.header;
                 return (
-                  <div key={c.id} className="flex min-w-0 items-baseline justify-between gap-2 border-b border-line/60 py-0.5">
+                  <div key={c.id} className="flex items-baseline gap-1.5">
                     <dt className="text-xs text-ink-soft">{typeof header === 'string' ? header : c.column.id}</dt>
-                    <dd className="text-right text-ink tabular-nums">{render(c)}</dd>
+                    <dd className="text-ink tabular-nums">{render(c)}</dd>
                   </div>
                 );
               })}
