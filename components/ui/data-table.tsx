@@ -2,6 +2,7 @@
 
 import { flexRender, type Row, type RowData, type Table } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
+import { Fragment } from 'react';
 
 import { cn } from '@/lib/cn';
 
@@ -11,6 +12,11 @@ declare module '@tanstack/react-table' {
     align?: 'left' | 'right';
     /** Classes for both the header and the cells of the column. */
     className?: string;
+    /**
+     * Where the column goes on a phone's card (`phoneCards`): the card's title, its badge
+     * (top right), a line under the title, its actions, or a named field (the default).
+     */
+    card?: 'title' | 'badge' | 'sub' | 'field' | 'actions';
   }
 }
 
@@ -22,6 +28,8 @@ type DataTableProps<T> = {
   skeletonRows?: number;
   /** Shown in place of the rows when the filters leave none. */
   noMatch?: React.ReactNode;
+  /** Below the `md` width, each row is drawn as a card (the columns' `meta.card`) instead of a wide table. */
+  phoneCards?: boolean;
 };
 
 const sortWords = { asc: 'ascending', desc: 'descending' } as const;
@@ -46,116 +54,177 @@ export function DataTable<T>({
   loading,
   skeletonRows = 5,
   noMatch = 'Nothing matches these filters.',
+  phoneCards,
 }: DataTableProps<T>) {
   const columns = table.getVisibleLeafColumns();
   const rows = table.getRowModel().rows;
   return (
-    <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
-      <table className="w-full border-collapse text-sm" aria-busy={loading || undefined}>
-        <caption className="sr-only">{caption}</caption>
-        <thead className="bg-paper-sunk/60">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id} className="border-b border-line">
-              {group.headers.map((header) => {
-                const { column } = header;
-                const meta = column.columnDef.meta;
-                const sorted = column.getIsSorted();
-                const label = header.isPlaceholder
-                  ? null
-                  : flexRender(column.columnDef.header, header.getContext());
-                return (
-                  <th
-                    key={header.id}
-                    scope="col"
-                    aria-sort={
-                      column.getCanSort() ? (sorted ? sortWords[sorted] : 'none') : undefined
-                    }
-                    className={cn(
-                      'h-11 px-4 text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase',
-                      meta?.align === 'right' ? 'text-right' : 'text-left',
-                      meta?.className,
-                    )}
+    <>
+      {phoneCards ? <RowCards table={table} caption={caption} loading={loading} noMatch={noMatch} /> : null}
+      <div className={cn('overflow-x-auto rounded-card border border-line bg-paper-raised', phoneCards && 'hidden md:block')}>
+        <table className="w-full border-collapse text-sm" aria-busy={loading || undefined}>
+          <caption className="sr-only">{caption}</caption>
+          <thead className="bg-paper-sunk/60">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id} className="border-b border-line">
+                {group.headers.map((header) => {
+                  const { column } = header;
+                  const meta = column.columnDef.meta;
+                  const sorted = column.getIsSorted();
+                  const label = header.isPlaceholder
+                    ? null
+                    : flexRender(column.columnDef.header, header.getContext());
+                  return (
+                    <th
+                      key={header.id}
+                      scope="col"
+                      aria-sort={
+                        column.getCanSort() ? (sorted ? sortWords[sorted] : 'none') : undefined
+                      }
+                      className={cn(
+                        'h-11 px-4 text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase',
+                        meta?.align === 'right' ? 'text-right' : 'text-left',
+                        meta?.className,
+                      )}
+                    >
+                      {column.getCanSort() ? (
+                        <button
+                          type="button"
+                          onClick={column.getToggleSortingHandler()}
+                          className={cn(
+                            'inline-flex items-center gap-1 rounded uppercase hover:text-ink',
+                            sorted && 'text-ink',
+                            meta?.align === 'right' && 'flex-row-reverse',
+                          )}
+                        >
+                          {label}
+                          {sorted === 'asc' ? (
+                            <ArrowUp aria-hidden className="h-3.5 w-3.5" />
+                          ) : sorted === 'desc' ? (
+                            <ArrowDown aria-hidden className="h-3.5 w-3.5" />
+                          ) : (
+                            <ArrowUpDown aria-hidden className="h-3.5 w-3.5 opacity-40" />
+                          )}
+                        </button>
+                      ) : (
+                        label
+                      )}
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {loading
+              ? Array.from({ length: skeletonRows }, (_, i) => (
+                  <tr
+                    key={`skeleton-${i}`}
+                    data-testid="skeleton-row"
+                    className="border-b border-line last:border-0"
                   >
-                    {column.getCanSort() ? (
-                      <button
-                        type="button"
-                        onClick={column.getToggleSortingHandler()}
-                        className={cn(
-                          'inline-flex items-center gap-1 rounded uppercase hover:text-ink',
-                          sorted && 'text-ink',
-                          meta?.align === 'right' && 'flex-row-reverse',
-                        )}
-                      >
-                        {label}
-                        {sorted === 'asc' ? (
-                          <ArrowUp aria-hidden className="h-3.5 w-3.5" />
-                        ) : sorted === 'desc' ? (
-                          <ArrowDown aria-hidden className="h-3.5 w-3.5" />
-                        ) : (
-                          <ArrowUpDown aria-hidden className="h-3.5 w-3.5 opacity-40" />
-                        )}
-                      </button>
-                    ) : (
-                      label
-                    )}
-                  </th>
+                    {columns.map((column) => (
+                      <td key={column.id} className="h-14 px-4">
+                        <span
+                          aria-hidden
+                          className="block h-3 animate-pulse rounded bg-paper-sunk"
+                          style={{ width: `${40 + ((i * 7 + column.id.length * 11) % 50)}%` }}
+                        />
+                      </td>
+                    ))}
+                  </tr>
+                ))
+              : rows.map((row) => (
+                  <tr
+                    key={row.id}
+                    className="border-b border-line transition-colors last:border-0 hover:bg-paper/70"
+                  >
+                    {row.getVisibleCells().map((cell) => {
+                      const meta = cell.column.columnDef.meta;
+                      return (
+                        <td
+                          key={cell.id}
+                          className={cn(
+                            'h-14 px-4 align-middle text-ink',
+                            meta?.align === 'right' ? 'text-right tabular-nums' : 'text-left',
+                            meta?.className,
+                          )}
+                        >
+                          {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                        </td>
+                      );
+                    })}
+                  </tr>
+                ))}
+            {!loading && rows.length === 0 ? (
+              <tr>
+                <td colSpan={columns.length} className="px-4 py-10 text-center text-sm text-ink-soft">
+                  {noMatch}
+                </td>
+              </tr>
+            ) : null}
+          </tbody>
+        </table>
+        {loading ? <span className="sr-only">Loading…</span> : null}
+      </div>
+    </>
+  );
+}
+
+/** The rows as cards for a phone: title and badge on top, a line under them, named fields, then actions. */
+function RowCards<T>({ table, caption, loading, noMatch }: Pick<DataTableProps<T>, 'table' | 'caption' | 'loading' | 'noMatch'>) {
+  const rows = table.getRowModel().rows;
+  if (loading) return <p className="text-sm text-ink-soft md:hidden">Loading…</p>;
+  if (rows.length === 0) {
+    return <p className="rounded-card border border-line bg-paper-raised px-4 py-8 text-center text-sm text-ink-soft md:hidden">{noMatch}</p>;
+  }
+  return (
+    <ul aria-label={caption} data-testid="row-cards" className="flex flex-col gap-2 md:hidden">
+      {rows.map((row) => {
+        const cells = row.getVisibleCells();
+        const place = (where: string) => cells.filter((c) => (c.column.columnDef.meta?.card ?? 'field') === where);
+        const render = (c: (typeof cells)[number]) => flexRender(c.column.columnDef.cell, c.getContext());
+        const subs = place('sub');
+        return (
+          <li key={row.id} className="rounded-card border border-line bg-paper-raised p-3">
+            <div className="flex items-start justify-between gap-3">
+              <div className="min-w-0 text-base font-medium break-words">{place('title').map((c) => <Fragment key={c.id}>{render(c)}</Fragment>)}</div>
+              {place('badge').map((c) => (
+                <div key={c.id} className="shrink-0">
+                  {render(c)}
+                </div>
+              ))}
+            </div>
+            {subs.length ? (
+              <p className="mt-0.5 text-sm text-ink-soft">
+                {subs.map((c, i) => (
+                  <Fragment key={c.id}>
+                    {i > 0 ? ' · ' : null}
+                    {render(c)}
+                  </Fragment>
+                ))}
+              </p>
+            ) : null}
+            <dl className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm">
+              {place('field').map((c) => {
+                const header = c.column.columnDef.header;
+                return (
+                  <div key={c.id} className="flex items-baseline gap-1.5">
+                    <dt className="text-xs text-ink-soft">{typeof header === 'string' ? header : c.column.id}</dt>
+                    <dd className="text-ink tabular-nums">{render(c)}</dd>
+                  </div>
                 );
               })}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {loading
-            ? Array.from({ length: skeletonRows }, (_, i) => (
-                <tr
-                  key={`skeleton-${i}`}
-                  data-testid="skeleton-row"
-                  className="border-b border-line last:border-0"
-                >
-                  {columns.map((column) => (
-                    <td key={column.id} className="h-14 px-4">
-                      <span
-                        aria-hidden
-                        className="block h-3 animate-pulse rounded bg-paper-sunk"
-                        style={{ width: `${40 + ((i * 7 + column.id.length * 11) % 50)}%` }}
-                      />
-                    </td>
-                  ))}
-                </tr>
-              ))
-            : rows.map((row) => (
-                <tr
-                  key={row.id}
-                  className="border-b border-line transition-colors last:border-0 hover:bg-paper/70"
-                >
-                  {row.getVisibleCells().map((cell) => {
-                    const meta = cell.column.columnDef.meta;
-                    return (
-                      <td
-                        key={cell.id}
-                        className={cn(
-                          'h-14 px-4 align-middle text-ink',
-                          meta?.align === 'right' ? 'text-right tabular-nums' : 'text-left',
-                          meta?.className,
-                        )}
-                      >
-                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                      </td>
-                    );
-                  })}
-                </tr>
-              ))}
-          {!loading && rows.length === 0 ? (
-            <tr>
-              <td colSpan={columns.length} className="px-4 py-10 text-center text-sm text-ink-soft">
-                {noMatch}
-              </td>
-            </tr>
-          ) : null}
-        </tbody>
-      </table>
-      {loading ? <span className="sr-only">Loading…</span> : null}
-    </div>
+            </dl>
+            {place('actions').map((c) => (
+              <div key={c.id} className="mt-2 flex justify-end">
+                {render(c)}
+              </div>
+            ))}
+          </li>
+        );
+      })}
+    </ul>
   );
 }
 

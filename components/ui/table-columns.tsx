@@ -35,7 +35,7 @@ export function actionsColumn<T extends { name: string }>(
     id: 'actions',
     header: () => <span className="sr-only">Actions</span>,
     enableSorting: false,
-    meta: { align: 'right' },
+    meta: { align: 'right', card: 'actions' },
     cell: ({ row }) => (
       <RowActions
         name={row.original.name}

@@ -109,7 +109,12 @@ describe('the board editor', () => {
     await expect.poll(() => cellOf(page, added).getAttribute('aria-label')).toMatch(
       /^Way 10, MCB C20, serves Garden office heater, (passes|is near its limit|fails)$/,
     );
-    await expect(cellOf(page, added).locator('[data-verdict]').textContent()).resolves.toMatch(/Passes|Near limit|Fails/);
+    const verdict = await cellOf(page, added).locator('[data-verdict]').getAttribute('data-verdict');
+    expect(verdict).toMatch(/^(passes|near-limit|fails)$/);
+    // In words, level, in the rail's legend under way 10
+    const entry = page.locator(`[data-legend-way="${added}"]`);
+    await expect(entry.textContent()).resolves.toMatch(/^Way 10MCB C20: Garden office heater(Passes|Near limit|Fails)$/);
+    await expect(entry.locator('[data-verdict]').getAttribute('data-verdict')).resolves.toBe(verdict);
     await expect(panel.getByRole('region', { name: 'Sizing result' }).textContent()).resolves.toContain('Design current Ib');
 
     // A reload before saving loses nothing: the draft is kept in the tab
@@ -295,6 +300,57 @@ describe('the board editor', () => {
       expect((await stored(page, boardId)).ways[0].circuit?.lengthM).toBe(20);
     } finally {
       await page.request.delete(`${APP_URL}/api/boards/${boardId}`);
+    }
+  });
+
+  it('every way of the three-phase board is readable, level and whole, at desktop and tablet widths', async () => {
+    const { page } = browser;
+    const workshopId = await boardIdByName(page, 'Workshop DB1');
+    const workshop = await stored(page, workshopId);
+    try {
+      for (const width of [1440, 1024, 768]) {
+        await page.setViewportSize({ width, height: 900 });
+        await openEditor(page, workshopId);
+        const cells = page.locator('[data-way-id]');
+        const count = await cells.count();
+        expect(count).toBe(workshop.ways.length);
+        for (let i = 0; i < count; i += 1) {
+          const cell = cells.nth(i);
+          const id = (await cell.getAttribute('data-way-id'))!;
+          const label = (await cell.getAttribute('data-way-label'))!;
+          const serves = workshop.ways.find((w) => w.id === id)?.circuit?.serves;
+          const entry = page.locator(`[data-legend-way="${id}"]`);
+          // The legend entry: on screen, not cut, level, with the reference, description and verdict in words
+          const box = (await entry.boundingBox())!;
+          expect(box.x).toBeGreaterThanOrEqual(0);
+          expect(box.x + box.width).toBeLessThanOrEqual(width);
+          const clipped = await entry.evaluate((el) =>
+            Array.from(el.querySelectorAll<HTMLElement>('*')).some(
+              (e) =>
+                !e.classList.contains('sr-only') &&
+                (e.scrollWidth > e.clientWidth + 1 || getComputedStyle(e).writingMode !== 'horizontal-tb'),
+            ),
+          );
+          expect(clipped).toBe(false);
+          const text = (await entry.textContent())!;
+          if (label) expect(text.startsWith(`Way ${label}`)).toBe(true);
+          if (serves) expect(text).toContain(serves);
+          if (serves) expect(text).toMatch(/(Passes|Near limit|Fails)$/);
+        }
+        // Hover and focus show the way in full beside the device
+        const saw = cells.filter({ has: page.locator('[data-way-tip]') }).nth(3);
+        await saw.hover();
+        await expect(saw.locator('[data-way-tip]').isVisible()).resolves.toBe(true);
+        await expect(saw.locator('[data-way-tip]').textContent()).resolves.toBe(await saw.getAttribute('aria-label'));
+        await page.mouse.move(0, 0);
+        await expect(saw.locator('[data-way-tip]').isVisible()).resolves.toBe(false);
+        await saw.focus();
+        await page.keyboard.press('Shift+Tab');
+        await page.keyboard.press('Tab');
+        await expect(saw.locator('[data-way-tip]').isVisible()).resolves.toBe(true);
+      }
+    } finally {
+      await page.setViewportSize({ width: 1440, height: 900 });
     }
   });
 

@@ -72,11 +72,14 @@ describe('review and label walk', () => {
       // The first device on the rail is the main switch
       await expect.poll(() => page.getByRole('heading', { level: 2 }).textContent()).toBe('Main switch 100 A');
 
-      // Three ways match
+      // Three ways match; each save says so in a toast, and a new toast replaces the last
       for (let n = 1; n <= 3; n += 1) {
         await page.getByRole('button', { name: 'Label matches' }).click();
         await page.getByText(`${n} of ${total} checked`).waitFor();
+        expect(await page.locator('[data-sonner-toast]').count()).toBeLessThanOrEqual(1);
       }
+      await page.locator('[data-sonner-toast]').first().waitFor();
+      expect(await page.locator('[data-sonner-toast]:not([data-removed="true"])').count()).toBe(1);
       // The fourth way: a photo of it, then reload: the walk resumes there with the photo
       const fourth = await page.getByRole('heading', { level: 2 }).textContent();
       await page.locator('input[type="file"]').setInputFiles({ name: 'way.jpg', mimeType: 'image/jpeg', buffer: photo });
@@ -95,6 +98,15 @@ describe('review and label walk', () => {
       await page.getByRole('button', { name: 'Label is wrong' }).click();
       await page.getByText(`4 of ${total} checked`).waitFor();
       await page.getByText('1 wrong').waitFor();
+
+      // The summary at any time: what matched, what did not (with the note), the photo
+      await page.getByRole('button', { name: 'Finish and see the summary' }).click();
+      const summary = page.getByRole('region', { name: 'Walk summary' });
+      await expect(summary.locator('[data-summary="matches"] dd').textContent()).resolves.toBe('3');
+      await expect(summary.locator('[data-summary="wrong"] dd').textContent()).resolves.toBe('1');
+      await expect(summary.locator('[data-summary="unchecked"] dd').textContent()).resolves.toBe(String(total - 4));
+      await expect(summary.locator('[data-summary="photos"] dd').textContent()).resolves.toBe('1');
+      await expect(summary.getByRole('button', { name: /Label says Cooker/ }).textContent()).resolves.toContain('Label wrong');
     } finally {
       await first.close();
     }
@@ -107,7 +119,7 @@ describe('review and label walk', () => {
       await page.goto(`${APP_URL}/boards/${boardId}/walk`);
       await page.getByText(`4 of ${total} checked`).waitFor();
       const goTo = page.getByRole('combobox', { name: 'Go to way' });
-      const wrong = await goTo.locator('option', { hasText: 'Label is wrong' }).getAttribute('value');
+      const wrong = await goTo.locator('option', { hasText: 'Label wrong' }).getAttribute('value');
       await goTo.selectOption(wrong!);
       await page.getByLabel('Note').fill('Relabelled on site');
       await page.getByRole('button', { name: 'Label matches' }).click();
@@ -118,6 +130,16 @@ describe('review and label walk', () => {
       }
       await page.getByRole('status').filter({ hasText: 'labels matched on site' }).first().waitFor();
       expect((await Board.findByPk(boardId))!.status).toBe('labels-matched');
+      // The last way leads to the walk's summary: all matched, none wrong or missing, one photo
+      await page.getByRole('heading', { name: 'Walk summary' }).waitFor();
+      const summary = page.getByRole('region', { name: 'Walk summary' });
+      await expect(summary.locator('[data-summary="matches"] dd').textContent()).resolves.toBe(String(total));
+      await expect(summary.locator('[data-summary="wrong"] dd').textContent()).resolves.toBe('0');
+      await expect(summary.locator('[data-summary="missing"] dd').textContent()).resolves.toBe('0');
+      await expect(summary.locator('[data-summary="photos"] dd').textContent()).resolves.toBe('1');
+      await expect(summary.getByText('None: every label checked matches the schedule.').count()).resolves.toBe(1);
+      await summary.getByRole('img', { name: /^Photo of way/ }).waitFor();
+      expect(await page.locator('[data-sonner-toast]:not([data-removed="true"])').count()).toBeLessThanOrEqual(1);
     } finally {
       await second.close();
     }

@@ -76,6 +76,19 @@ function renderTable(props: Partial<React.ComponentProps<typeof BoardsTable>> = 
 }
 
 describe('BoardsTable', () => {
+  it('draws each board as a card for a phone, with its stage beside its name', () => {
+    renderTable();
+    const cards = within(screen.getByRole('list', { name: 'Boards' })).getAllByRole('listitem');
+    expect(cards).toHaveLength(4);
+    const workshop = cards.find((c) => within(c).queryByRole('link', { name: 'Workshop DB1' }))!;
+    expect(within(workshop).getByText('Issued')).toBeTruthy();
+    expect(within(workshop).getByText('Three-phase')).toBeTruthy();
+    expect(within(workshop).getByRole('button', { name: /rename workshop db1/i })).toBeTruthy();
+    // The list is the phone's; the table the wider screens' (Tailwind's md breakpoint)
+    expect(screen.getByTestId('row-cards').className).toContain('md:hidden');
+    expect(screen.getByRole('table').parentElement!.className).toContain('hidden md:block');
+  });
+
   it('lists the newest change first, with links to the editor and the site', () => {
     renderTable();
     expect(shownNames()).toEqual([
@@ -84,21 +97,22 @@ describe('BoardsTable', () => {
       'Spray booth sub-board',
       'Yard lighting',
     ]);
-    expect(screen.getByRole('link', { name: 'Workshop DB1' }).getAttribute('href')).toBe(
+    expect(within(screen.getByRole('table')).getByRole('link', { name: 'Workshop DB1' }).getAttribute('href')).toBe(
       '/boards/aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa',
     );
-    const row = screen.getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
+    const row = within(screen.getByRole('table')).getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
     expect(within(row).getByText('Three-phase')).toBeTruthy();
     expect(within(row).getByText('Issued')).toBeTruthy();
   });
 
   it('gives the true counts in the words of the editor and the schedule, and names the last stage for what it means', () => {
     renderTable();
-    const workshop = screen.getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
+    const table = within(screen.getByRole('table'));
+    const workshop = table.getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
     expect(within(workshop).getByText('12 ways (36 single-pole positions): 30 circuits, 6 positions spare')).toBeTruthy();
-    const flat = screen.getByRole('link', { name: 'Flat consumer unit' }).closest('tr')!;
+    const flat = table.getByRole('link', { name: 'Flat consumer unit' }).closest('tr')!;
     expect(within(flat).getByText('8 ways: 7 circuits, 1 spare')).toBeTruthy();
-    const yard = screen.getByRole('link', { name: 'Yard lighting' }).closest('tr')!;
+    const yard = table.getByRole('link', { name: 'Yard lighting' }).closest('tr')!;
     expect(within(yard).getByText('Labels matched on site')).toBeTruthy();
     expect(screen.getByRole('option', { name: 'Labels matched on site' })).toBeTruthy();
     expect(document.body.textContent).not.toMatch(/verified/i);
@@ -127,7 +141,7 @@ describe('BoardsTable', () => {
     await user.type(screen.getByRole('searchbox', { name: /search boards/i }), 'store');
     expect(shownNames()).toEqual(['Yard lighting']);
     await user.selectOptions(screen.getByRole('combobox', { name: 'Stage' }), 'draft');
-    expect(screen.getByText('No board matches these filters.')).toBeTruthy();
+    expect(within(screen.getByRole('table')).getByText('No board matches these filters.')).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Clear filters' }));
     expect(shownNames()).toHaveLength(4);
   });

@@ -49,6 +49,8 @@ describe('MailboxView', () => {
     expect(within(row).getByText('Waiting')).toBeTruthy();
     expect(within(row).getByText('3')).toBeTruthy();
     expect(within(row).getByText('connect ECONNREFUSED 127.0.0.1:2525')).toBeTruthy();
+    // Queued with its date and time, in the app's one format
+    expect(row.querySelector('time')?.textContent).toMatch(/^1 Mar 2025, \d{2}:\d{2}$/);
     expect(screen.getByText('Board schedule: Workshop DB1')).toBeTruthy();
     expect(screen.getByText(/workshop-db1\.pdf/)).toBeTruthy();
     expect(screen.getByText(/1 item\(s\) were not in the expected shape/)).toBeTruthy();

@@ -5,6 +5,7 @@ import { History } from 'lucide-react';
 
 import { Button } from '@/components/ui/button';
 import { ErrorState } from '@/components/ui/error-state';
+import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
 import { cn } from '@/lib/cn';
 
@@ -15,8 +16,6 @@ type AuditTrailProps = {
   boardId: string;
   className?: string;
 };
-
-const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 
 /**
  * A board's change history, newest first: who did what and when (ways added, moved, changed
@@ -54,9 +53,7 @@ export function AuditTrail({ boardId, className }: AuditTrailProps) {
         <ol className="divide-y divide-line rounded-card border border-line bg-paper-raised">
           {entries.map((entry) => (
             <li key={entry.id} className="flex flex-col gap-0.5 px-4 py-2 text-sm sm:flex-row sm:gap-3">
-              <time dateTime={entry.createdAt} className="shrink-0 tabular-nums text-ink-faint sm:w-44">
-                {when.format(new Date(entry.createdAt))}
-              </time>
+              <When iso={entry.createdAt} className="shrink-0 tabular-nums text-ink-faint sm:w-44" />
               <span className="text-ink">
                 <span className="font-medium">{entry.userName ?? 'A former member'}</span>{' '}
                 {describeAuditEntry(entry)}

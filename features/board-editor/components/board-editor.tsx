@@ -33,7 +33,7 @@ import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
 import { useSizingStore } from '../stores/sizing-store';
 import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS, type ActiveData } from '../utils/announcements';
-import { deviceWords, TRAY, type TrayChoice, type TrayKind } from '../utils/device-catalogue';
+import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
 import { dropTarget, type OverData } from '../utils/drop-target';
 import { newWayId } from '../utils/ids';
 import { BinZone } from './bin-zone';
@@ -111,10 +111,9 @@ export function BoardEditor({ board, can }: BoardEditorProps) {
     return () => window.removeEventListener('beforeunload', onBeforeUnload);
   }, []);
 
-  // Tray choices and the kind whose choices are shown
-  const [choices, setChoices] = useState<Record<TrayKind, TrayChoice>>(
-    () => Object.fromEntries(TRAY.map((e) => [e.kind, e.initial])) as Record<TrayKind, TrayChoice>,
-  );
+  // Tray choices, kept per number of phases so that the tray's defaults follow the board's
+  // supply when it changes, and the kind whose choices are shown
+  const [choicesByPhases, setChoicesByPhases] = useState(() => ({ 1: initialChoices(1), 3: initialChoices(3) }));
   const [activeKind, setActiveKind] = useState<TrayKind>('mcb');
 
   // Drag state: what is being dragged and whether it would fit where it is
@@ -277,11 +276,13 @@ export function BoardEditor({ board, can }: BoardEditorProps) {
         <div className="min-w-0 space-y-3">
           {!readOnly ? (
             <DeviceTray
-              choices={choices}
+              choices={choicesByPhases[phases]}
               active={activeKind}
               boardPhases={phases}
               onActivate={setActiveKind}
-              onChoose={(kind, choice) => setChoices((c) => ({ ...c, [kind]: choice }))}
+              onChoose={(kind, choice) =>
+                setChoicesByPhases((c) => ({ ...c, [phases]: { ...c[phases], [kind]: choice } }))
+              }
               onAdd={addAnywhere}
             />
           ) : null}

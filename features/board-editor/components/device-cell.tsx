@@ -5,13 +5,13 @@ import { CSS } from '@dnd-kit/utilities';
 import { CircleDashed } from 'lucide-react';
 import { memo } from 'react';
 
+import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { cn } from '@/lib/cn';
 import { isProtectiveDevice, type WayResult } from '@/lib/sizing';
 
 import type { EditorWay } from '../types/draft';
 import { describeWay } from '../utils/describe';
 import { DeviceFace } from './device-face';
-import { VerdictMark } from './verdict-mark';
 
 type DeviceCellProps = {
   way: EditorWay;
@@ -29,8 +29,9 @@ type DeviceCellProps = {
 };
 
 /**
- * One device on the rail at its module width: way reference, the device's face, what it
- * serves and its verdict. Drag it (pointer or keyboard) to move it; click or Enter selects it
+ * One device on the rail at its module width: way reference, the device's face and its
+ * verdict as icon and colour (what it serves and the verdict in words are in the rail's
+ * legend, keyed by way reference, and in full on hover and focus). Drag it (pointer or keyboard) to move it; click or Enter selects it
  * for the way panel; Delete removes it (undoable).
  */
 export const DeviceCell = memo(function DeviceCell({
@@ -52,9 +53,9 @@ export const DeviceCell = memo(function DeviceCell({
     disabled: readOnly,
   });
   const { device, circuit } = way;
-  const narrow = device.modules === 1;
   const verdict = result?.result?.verdict;
   const spare = isProtectiveDevice(device.kind) && !circuit;
+  const description = describeWay(way, label, showVerdict ? result : null);
 
   return (
     <div
@@ -64,7 +65,7 @@ export const DeviceCell = memo(function DeviceCell({
       // Selectable even when it may not be moved (read-only), so never announced as disabled
       aria-disabled={undefined}
       aria-roledescription="device on the rail"
-      aria-label={describeWay(way, label, showVerdict ? result : null)}
+      aria-label={description}
       aria-pressed={selected}
       data-way-id={way.id}
       data-way-label={label ?? ''}
@@ -90,43 +91,40 @@ export const DeviceCell = memo(function DeviceCell({
         transition,
       }}
       className={cn(
-        'relative z-10 flex min-w-0 cursor-pointer flex-col items-stretch gap-1 rounded-sm px-[1px] pt-0.5 pb-1 outline-none select-none',
+        'group relative z-10 flex min-w-0 cursor-pointer flex-col items-stretch gap-1 rounded-sm px-[1px] pt-0.5 pb-1 outline-none select-none',
         'focus-visible:ring-2 focus-visible:ring-copper focus-visible:ring-offset-1',
         selected && 'bg-copper-light ring-2 ring-copper',
         isDragging && 'opacity-40',
         !readOnly && 'cursor-grab active:cursor-grabbing',
       )}
     >
-      <span className="h-4 truncate text-center font-mono text-[10px] leading-4 font-semibold text-ink">
-        {label ?? ''}
-      </span>
+      {/* Drawn by CSS like the device's face: the cell's name carries the reference in words */}
+      <span
+        data-text={label ?? ''}
+        className="h-4 truncate text-center font-mono text-[10px] leading-4 font-semibold text-ink before:content-[attr(data-text)]"
+      />
       <div className="h-[100px]">
         <DeviceFace device={device} />
       </div>
-      <div
-        className={cn(
-          'h-[84px] overflow-hidden text-[10px] leading-tight text-ink-soft',
-          narrow ? 'mx-auto [writing-mode:vertical-rl] rotate-180 whitespace-nowrap' : 'px-0.5 text-center break-words',
-        )}
-        title={circuit?.serves || undefined}
-      >
-        {circuit?.serves ?? ''}
-      </div>
-      <div className="flex h-[70px] items-start justify-center">
+      <div className="flex h-6 items-center justify-center">
         {showVerdict && verdict ? (
-          <VerdictMark verdict={verdict} vertical={narrow} pending={pending} />
+          <VerdictBadge verdict={verdict} iconOnly pending={pending} />
         ) : spare || device.kind === 'blank' ? (
-          <span
-            className={cn(
-              'inline-flex items-center gap-1 rounded border border-dashed border-line-strong bg-paper px-0.5 py-1 text-[10px] text-ink-soft',
-              narrow && 'flex-col',
-            )}
-          >
-            <CircleDashed aria-hidden className="h-3 w-3" />
-            <span className={cn(narrow && '[writing-mode:vertical-rl] rotate-180')}>Spare</span>
+          <span data-spare className="inline-flex rounded-full border border-dashed border-line-strong bg-paper p-0.5 text-ink-soft">
+            <CircleDashed aria-hidden className="h-3.5 w-3.5" />
           </span>
         ) : null}
       </div>
+      {/* The whole way in words on hover and focus; the same words are the cell's name */}
+      {isDragging ? null : (
+        <span
+          aria-hidden
+          data-way-tip
+          className="pointer-events-none absolute top-full left-1/2 z-30 mt-1 hidden w-max max-w-56 -translate-x-1/2 rounded-md bg-ink px-2 py-1 text-left text-xs leading-snug font-medium text-paper shadow-lg group-hover:block group-focus-visible:block"
+        >
+          {description}
+        </span>
+      )}
     </div>
   );
 });

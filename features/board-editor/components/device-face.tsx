@@ -26,6 +26,15 @@ const NARROW: Record<string, string> = {
 };
 
 /**
+ * What is printed on the device's front, drawn by CSS: the drawing is a picture (aria-hidden),
+ * and its words are not text of the device on the rail, whose name says it all (so the
+ * name's words and its visible text agree, WCAG 2.5.3).
+ */
+function Printed({ text, className }: { text: string; className?: string }) {
+  return <span data-text={text} className={cn('before:content-[attr(data-text)]', className)} />;
+}
+
+/**
  * The front of a device as drawn on the rail: its rating, its kind and a switch lever (or a
  * fuse cartridge, a surge mark, or nothing for a blank). Fills the width it is given.
  */
@@ -42,7 +51,7 @@ export function DeviceFace({ device, className }: { device: DeviceOnRail; classN
         className,
       )}
     >
-      <span className="text-[11px] leading-tight font-bold tracking-tight whitespace-nowrap">{rating}</span>
+      <Printed text={rating} className="text-[11px] leading-tight font-bold tracking-tight whitespace-nowrap" />
       {lever ? (
         <span
           className={cn(
@@ -59,18 +68,18 @@ export function DeviceFace({ device, className }: { device: DeviceOnRail; classN
       )}
       <span className="flex flex-col items-center gap-0.5">
         {device.kind === 'rcd' || device.kind === 'rcbo' ? (
-          <span className="text-[9px] leading-none font-semibold whitespace-nowrap">
-            {device.rcdMa ?? '?'}
-            <span className="sr-only"> mA</span>
-            <span aria-hidden>{device.modules > 1 ? ' mA' : ''}</span>
-          </span>
+          <Printed
+            text={`${device.rcdMa ?? '?'}${device.modules > 1 ? ' mA' : ''}`}
+            className="text-[9px] leading-none font-semibold whitespace-nowrap"
+          />
         ) : null}
         {device.kind === 'rcd' ? (
-          <span className="flex h-3 w-3 items-center justify-center rounded-full bg-copper text-[7px] font-bold text-white">T</span>
+          <Printed text="T" className="flex h-3 w-3 items-center justify-center rounded-full bg-copper text-[7px] font-bold text-white" />
         ) : null}
-        <span className="text-[8px] leading-none font-semibold tracking-wide whitespace-nowrap uppercase opacity-80">
-          {device.modules > 1 ? kindName(device.kind) : (NARROW[device.kind] ?? kindName(device.kind))}
-        </span>
+        <Printed
+          text={device.modules > 1 ? kindName(device.kind) : (NARROW[device.kind] ?? kindName(device.kind))}
+          className="text-[8px] leading-none font-semibold tracking-wide whitespace-nowrap uppercase opacity-80"
+        />
       </span>
     </div>
   );

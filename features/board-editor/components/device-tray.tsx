@@ -11,8 +11,8 @@ import type { DeviceOnRail } from '@/lib/sizing';
 import {
   deviceFromChoice,
   deviceWords,
-  TRAY,
   trayEntry,
+  trayFor,
   type TrayChoice,
   type TrayKind,
 } from '../utils/device-catalogue';
@@ -118,7 +118,7 @@ function Choice<T extends string | number>({
  * "Add to the board" to put it at the first place it fits.
  */
 export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose, onAdd }: DeviceTrayProps) {
-  const entry = trayEntry(active);
+  const entry = trayEntry(active, boardPhases);
   const choice = choices[active];
   const set = (patch: Partial<TrayChoice>) => onChoose(active, { ...choice, ...patch });
   const activeDevice = deviceFromChoice(active, choice);
@@ -130,7 +130,7 @@ export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose,
         <p className="text-xs text-ink-faint">Pick a device, set it up, then drag it onto a rail.</p>
       </div>
       <div className="flex flex-wrap gap-1.5">
-        {TRAY.map((e) => (
+        {trayFor(boardPhases).map((e) => (
           <TrayChip
             key={e.kind}
             kind={e.kind}

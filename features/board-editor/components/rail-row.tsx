@@ -9,6 +9,7 @@ import type { WayResult } from '@/lib/sizing';
 
 import type { EditorWay } from '../types/draft';
 import { DeviceCell } from './device-cell';
+import { RailLegend } from './rail-legend';
 
 /** Widest a module is drawn, px: a short rail does not stretch across the page. */
 const MAX_MODULE_PX = 58;
@@ -46,7 +47,7 @@ function FreeModules({ rail, start, modules, readOnly, refusal }: { rail: number
         !isOver && 'border-line-strong/70 bg-white/30',
       )}
     >
-      <span className={cn(modules === 1 && '[writing-mode:vertical-rl] rotate-180')}>
+      <span className="px-0.5 leading-tight break-words">
         {isOver && refusal
           ? 'Does not fit'
           : full
@@ -119,7 +120,7 @@ export function RailRow({
           ))}
         </div>
         <SortableContext id={`rail-${drawing.rail}`} items={ids} strategy={horizontalListSortingStrategy}>
-          <div className="relative grid min-h-[290px] rounded-sm" style={grid}>
+          <div className="relative grid min-h-[150px] rounded-sm" style={grid}>
             {/* The rail itself, with a tick at each module */}
             <div
               aria-hidden
@@ -166,6 +167,15 @@ export function RailRow({
           <FreeModules rail={drawing.rail} start={0} modules={0} readOnly={readOnly} refusal={dropRefusal} />
         ) : null}
       </div>
+      <RailLegend
+        railName={railCount > 1 ? `rail ${drawing.rail + 1}` : 'the rail'}
+        entries={devices.map((c) => ({ way: wayById.get(c.id)!, label: c.label }))}
+        results={results}
+        pending={pending}
+        showVerdicts={showVerdicts}
+        selection={selection}
+        onSelect={onSelect}
+      />
     </div>
   );
 }

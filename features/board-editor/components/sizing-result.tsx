@@ -1,11 +1,11 @@
 import { CircleCheck, CircleX } from 'lucide-react';
 
+import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { Caution } from '@/components/ui/caution';
 import { cn } from '@/lib/cn';
 import type { CircuitResult } from '@/lib/sizing';
 
 import { fmt, withUnit } from '../utils/format';
-import { VerdictMark } from './verdict-mark';
 
 function Row({ name, value, note }: { name: React.ReactNode; value: React.ReactNode; note?: React.ReactNode }) {
   return (
@@ -30,7 +30,7 @@ export function SizingResult({ result, stale }: { result: CircuitResult; stale?:
     <section aria-label="Sizing result" className={cn('space-y-3', stale && 'opacity-70')} aria-busy={stale || undefined}>
       <div className="flex items-center justify-between gap-2">
         <h3 className="text-sm font-semibold text-ink">Sizing</h3>
-        <VerdictMark verdict={result.verdict} pending={stale} className="text-xs" />
+        <VerdictBadge verdict={result.verdict} pending={stale} />
       </div>
       <p className="text-xs text-ink-soft">
         {failed ? `${failed} of ${result.checks.length} checks fail.` : `All ${result.checks.length} checks pass.`}

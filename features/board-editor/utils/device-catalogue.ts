@@ -104,9 +104,36 @@ export const TRAY: readonly TrayEntry[] = [
   { kind: 'blank', name: 'Blank', purpose: 'Covers a spare module', poles: [1], initial: { poles: 1 } },
 ];
 
-/** The tray entry of a kind. */
-export function trayEntry(kind: TrayKind): TrayEntry {
-  return TRAY.find((e) => e.kind === kind)!;
+/**
+ * On a three-phase board the tray offers what such a board takes first: four- and
+ * three-pole main switches (TP&N, TP), four-pole RCDs and SPDs, three-pole MCBs and BS 88-2
+ * fuse carriers, each still offered single- or double-pole after them (common practice).
+ */
+const THREE_PHASE_POLES: Partial<Record<TrayKind, readonly (1 | 2 | 3 | 4)[]>> = {
+  'main-switch': [4, 3],
+  rcd: [4, 2],
+  mcb: [3, 1],
+  'fuse-bs88-2': [3, 1],
+  spd: [4, 2],
+};
+
+/** The tray for a board of one or three phases: its entries with the board's poles first. */
+export function trayFor(phases: 1 | 3): readonly TrayEntry[] {
+  if (phases === 1) return TRAY;
+  return TRAY.map((e) => {
+    const poles = THREE_PHASE_POLES[e.kind];
+    return poles ? { ...e, poles, initial: { ...e.initial, poles: poles[0] } } : e;
+  });
+}
+
+/** Each kind's first choice in the tray of a board of one or three phases. */
+export function initialChoices(phases: 1 | 3): Record<TrayKind, TrayChoice> {
+  return Object.fromEntries(trayFor(phases).map((e) => [e.kind, e.initial])) as Record<TrayKind, TrayChoice>;
+}
+
+/** The tray entry of a kind (for a board of `phases`, single-phase unless given). */
+export function trayEntry(kind: TrayKind, phases: 1 | 3 = 1): TrayEntry {
+  return trayFor(phases).find((e) => e.kind === kind)!;
 }
 
 /** The device a tray choice puts on the rail: modules equal its poles (1–4 modules). */

@@ -80,6 +80,7 @@ export function BoardsTable({
         accessorKey: 'name',
         header: 'Board',
         sortingFn: byText,
+        meta: { card: 'title' },
         cell: ({ row }) => (
           <Link
             href={`/boards/${row.original.id}`}
@@ -96,6 +97,7 @@ export function BoardsTable({
         sortingFn: byText,
         // Filters on the site's id; sorts and shows its name
         filterFn: (row, _id, value: string) => row.original.siteId === value,
+        meta: { card: 'sub' },
         cell: ({ row }) => (
           <Link
             href={`/sites/${row.original.siteId}`}
@@ -110,6 +112,7 @@ export function BoardsTable({
         accessorKey: 'location',
         header: 'Location',
         sortingFn: byText,
+        meta: { card: 'sub' },
         cell: textOrDash('text-ink-soft'),
       },
       {
@@ -132,6 +135,7 @@ export function BoardsTable({
         header: 'Stage',
         sortingFn: (a, b) => stageOrder(a.original.status) - stageOrder(b.original.status),
         filterFn: (row, _id, value: string) => row.original.status === value,
+        meta: { card: 'badge' },
         cell: ({ row }) => <StatusBadge status={row.original.status} />,
       },
       {
@@ -230,6 +234,7 @@ export function BoardsTable({
         table={table}
         caption="Boards"
         loading={loading}
+        phoneCards
         noMatch="No board matches these filters."
       />
     </div>

@@ -1,30 +1,28 @@
 'use client';
 
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { Camera, ChevronLeft, ChevronRight, CircleCheck, CircleHelp, CircleX, TriangleAlert } from 'lucide-react';
+import { Camera, ChevronLeft, ChevronRight, ClipboardList } from 'lucide-react';
+import Link from 'next/link';
 import { useId, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
 import { FormAlert } from '@/components/ui/form-alert';
+import { LABEL_STATE_LOOKS, LabelStateBadge } from '@/components/ui/label-state-badge';
+import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
-import { cn } from '@/lib/cn';
-import { LABEL_STATUS_NAMES } from '@/lib/names';
 import type { WalkData } from '@/lib/dal/label-walk';
+import { LABEL_STATUS_NAMES } from '@/lib/names';
 import type { LabelStatus } from '@/models/way';
 
 import { fetchWalk, postLabel, uploadPhoto, walkKey } from '../api/walk-api';
 import { nextUnchecked, resumeAt } from '../utils/next-way';
+import { WalkSummary } from './walk-summary';
 
-const STATUS_WORDS = LABEL_STATUS_NAMES;
-
-const STATUS_TONES: Record<LabelStatus, string> = {
-  unchecked: 'border-line-strong bg-paper-sunk text-ink-soft',
-  matches: 'border-verdict-pass/40 bg-verdict-pass-bg text-verdict-pass',
-  wrong: 'border-verdict-near/40 bg-verdict-near-bg text-verdict-near',
-  missing: 'border-verdict-fail/40 bg-verdict-fail-bg text-verdict-fail',
-};
-
-const STATUS_ICONS = { unchecked: CircleHelp, matches: CircleCheck, wrong: TriangleAlert, missing: CircleX };
+// Every toast of the walk shares one id, so a new one replaces the last instead of stacking
+const TOAST_ID = 'label-walk';
+const MatchesIcon = LABEL_STATE_LOOKS.matches.icon;
+const WrongIcon = LABEL_STATE_LOOKS.wrong.icon;
+const MissingIcon = LABEL_STATE_LOOKS.missing.icon;
 
 /** The installer's label walk, for a phone: one way at a time, saved after each one. */
 export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord: boolean }) {
@@ -36,6 +34,10 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
   const walk = useQuery({ queryKey: walkKey(boardId), queryFn: () => fetchWalk(boardId), initialData: initial });
   const data = walk.data;
   const [index, setIndex] = useState(() => resumeAt(initial.ways.map((w) => w.status)));
+  // A walk with every way checked opens on its summary; the last way checked leads there too
+  const [summary, setSummary] = useState(
+    () => initial.progress.total > 0 && initial.progress.checked === initial.progress.total,
+  );
   const way = data.ways[Math.min(index, data.ways.length - 1)];
   const [notes, setNotes] = useState<Record<string, string>>({});
   const note = notes[way?.id ?? ''] ?? way?.note ?? '';
@@ -46,16 +48,19 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
     onSuccess: async (result) => {
       // staleTime 0: the cached walk is out of date the moment a result is saved
       const fresh = await queryClient.fetchQuery({ queryKey: walkKey(boardId), queryFn: () => fetchWalk(boardId), staleTime: 0 });
-      if (result.boardStatus === 'labels-matched') toast.success('Every label matches the schedule: labels matched on site.');
-      else toast.success(`Saved way ${way.ref ?? way.labelText}.`);
-      setIndex(nextUnchecked(fresh.ways.map((w) => w.status), index));
+      toast.success(
+        result.boardStatus === 'labels-matched' ? 'Every label matches the schedule: labels matched on site.' : `Saved way ${way.ref ?? way.labelText}.`,
+        { id: TOAST_ID },
+      );
+      if (fresh.progress.checked === fresh.progress.total) setSummary(true);
+      else setIndex(nextUnchecked(fresh.ways.map((w) => w.status), index));
     },
   });
   const photo = useMutation({
     mutationFn: (file: File) => uploadPhoto(boardId, file, way.id),
     onSuccess: async () => {
       await queryClient.invalidateQueries({ queryKey: walkKey(boardId) });
-      toast.success('Photo added.');
+      toast.success('Photo added.', { id: TOAST_ID });
     },
     onSettled: () => {
       if (fileInput.current) fileInput.current.value = '';
@@ -64,11 +69,11 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
 
   if (!way) return <p className="text-sm text-ink-soft">This board has no devices on its rail.</p>;
   const { progress } = data;
-  const Icon = STATUS_ICONS[way.status];
   const pct = progress.total ? Math.round((progress.checked / progress.total) * 100) : 0;
   const go = (i: number) => {
     record.reset();
     photo.reset();
+    setSummary(false);
     setIndex(Math.max(0, Math.min(data.ways.length - 1, i)));
   };
 
@@ -98,10 +103,13 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
 
       {data.status === 'labels-matched' ? (
         <p role="status" className="flex items-center gap-2 rounded-md border border-verdict-pass/40 bg-verdict-pass-bg px-3 py-2 text-sm font-medium text-verdict-pass">
-          <CircleCheck aria-hidden className="h-5 w-5" /> Every label matches the schedule: labels matched on site.
+          <MatchesIcon aria-hidden className="h-5 w-5" /> Every label matches the schedule: labels matched on site.
         </p>
       ) : null}
 
+      {summary ? (
+        <WalkSummary data={data} onGoTo={(id) => go(data.ways.findIndex((w) => w.id === id))} />
+      ) : (
       <section aria-labelledby="way-heading" className="space-y-3 rounded-card border border-line bg-paper-raised p-4">
         <div className="flex items-start justify-between gap-3">
           <div>
@@ -112,10 +120,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
               {way.ref ? `Way ${way.ref}` : way.device}
             </h2>
           </div>
-          <span className={cn('inline-flex items-center gap-1 rounded-full border px-2 py-1 text-xs font-medium', STATUS_TONES[way.status])}>
-            <Icon aria-hidden className="h-4 w-4" />
-            {STATUS_WORDS[way.status]}
-          </span>
+          <LabelStateBadge status={way.status} />
         </div>
         <div>
           <p className="text-xs text-ink-soft">The label should read</p>
@@ -124,7 +129,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
         </div>
         {way.checkedByName && way.checkedAt ? (
           <p className="text-xs text-ink-soft">
-            Checked by {way.checkedByName}, {new Date(way.checkedAt).toLocaleString('en-GB')}
+            Checked by {way.checkedByName}, <When iso={way.checkedAt} />
           </p>
         ) : null}
 
@@ -151,16 +156,16 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
                 onClick={() => record.mutate('matches')}
                 className="flex h-16 items-center justify-center gap-2 rounded-lg bg-verdict-pass text-lg font-semibold text-white disabled:opacity-60"
               >
-                <CircleCheck aria-hidden className="h-6 w-6" /> Label matches
+                <MatchesIcon aria-hidden className="h-6 w-6" /> Label matches
               </button>
               <div className="grid grid-cols-2 gap-2">
                 <button
                   type="button"
                   disabled={record.isPending}
                   onClick={() => record.mutate('wrong')}
-                  className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-near bg-verdict-near-bg px-2 text-sm font-semibold text-verdict-near disabled:opacity-60"
+                  className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
                 >
-                  <TriangleAlert aria-hidden className="h-5 w-5" /> Label is wrong
+                  <WrongIcon aria-hidden className="h-5 w-5" /> Label is wrong
                 </button>
                 <button
                   type="button"
@@ -168,7 +173,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
                   onClick={() => record.mutate('missing')}
                   className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
                 >
-                  <CircleX aria-hidden className="h-5 w-5" /> Label is missing
+                  <MissingIcon aria-hidden className="h-5 w-5" /> Label is missing
                 </button>
               </div>
             </div>
@@ -221,38 +226,55 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
           ) : null}
         </div>
       </section>
+      )}
 
       <nav aria-label="Ways" className="space-y-2">
         <select
           aria-label="Go to way"
-          value={way.id}
+          value={summary ? '' : way.id}
           onChange={(e) => go(data.ways.findIndex((w) => w.id === e.target.value))}
           className="h-12 w-full rounded-lg border border-line-strong bg-paper-raised px-2 text-base"
         >
+          {summary ? <option value="">Summary</option> : null}
           {data.ways.map((w) => (
             <option key={w.id} value={w.id}>
-              {w.ref ? `Way ${w.ref}` : w.device} · {STATUS_WORDS[w.status]}
+              {w.ref ? `Way ${w.ref}` : w.device} · {LABEL_STATUS_NAMES[w.status]}
             </option>
           ))}
         </select>
         <div className="grid grid-cols-2 gap-2">
           <button
             type="button"
-            onClick={() => go(index - 1)}
-            disabled={index === 0}
+            onClick={() => go(summary ? data.ways.length - 1 : index - 1)}
+            disabled={!summary && index === 0}
             className="flex h-12 items-center justify-center gap-1 rounded-lg border border-line-strong bg-paper-raised font-medium disabled:opacity-40"
           >
             <ChevronLeft aria-hidden className="h-5 w-5" /> Previous
           </button>
           <button
             type="button"
-            onClick={() => go(index + 1)}
-            disabled={index >= data.ways.length - 1}
+            onClick={() => (index >= data.ways.length - 1 ? setSummary(true) : go(index + 1))}
+            disabled={summary}
             className="flex h-12 items-center justify-center gap-1 rounded-lg border border-line-strong bg-paper-raised font-medium disabled:opacity-40"
           >
-            Next <ChevronRight aria-hidden className="h-5 w-5" />
+            {index >= data.ways.length - 1 && !summary ? 'Summary' : 'Next'} <ChevronRight aria-hidden className="h-5 w-5" />
           </button>
         </div>
+        {summary ? null : (
+          <button
+            type="button"
+            onClick={() => setSummary(true)}
+            className="flex h-12 w-full items-center justify-center gap-2 rounded-lg border border-line-strong bg-paper-raised font-medium"
+          >
+            <ClipboardList aria-hidden className="h-5 w-5" /> Finish and see the summary
+          </button>
+        )}
+        <Link
+          href={`/boards/${boardId}`}
+          className="block py-2 text-center text-sm font-medium text-copper-dark underline-offset-4 hover:underline"
+        >
+          Back to {data.name}
+        </Link>
       </nav>
     </div>
   );

@@ -9,11 +9,13 @@ import { Fragment, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 
+import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { FormAlert } from '@/components/ui/form-alert';
 import { PageHeader } from '@/components/ui/page-header';
 import { StatusBadge } from '@/components/ui/status-badge';
+import { When } from '@/components/ui/when';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import { deviceName } from '@/lib/names';
 import type { CommentDto, ReviewData } from '@/lib/dal/review';
@@ -22,7 +24,6 @@ import type { CircuitResult } from '@/lib/sizing';
 import { postApprove, postComment, postReturn } from '../api/review-api';
 import { commentInputSchema, type CommentInput } from '../types/schemas';
 import { RevisionDiff } from './revision-diff';
-import { VerdictBadge } from './verdict-badge';
 
 const fmt = (v: number | null | undefined, d: number) => (v === null || v === undefined ? '—' : v.toFixed(d));
 
@@ -33,7 +34,7 @@ function CommentThread({ comments }: { comments: CommentDto[] }) {
       {comments.map((c) => (
         <li key={c.id} className="rounded-md border border-line bg-paper px-3 py-2 text-sm">
           <div className="text-xs text-ink-soft">
-            {c.authorName} · revision {c.revision} · {new Date(c.createdAt).toLocaleString('en-GB')}
+            {c.authorName} · revision {c.revision} · <When iso={c.createdAt} />
           </div>
           <p className="whitespace-pre-wrap text-ink">{c.body}</p>
         </li>
@@ -257,7 +258,7 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                     <td className="px-3 py-2 text-right tabular-nums">
                       {r ? `${fmt(r.zsOhm, 2)} (${fmt(r.zsMaxOhm, 2)})` : '—'}
                     </td>
-                    <td className="px-3 py-2">{way.circuit ? <VerdictBadge verdict={r?.verdict ?? null} /> : null}</td>
+                    <td className="px-3 py-2">{way.circuit ? r?.verdict ? <VerdictBadge verdict={r.verdict} /> : <span className="text-xs text-ink-soft">Not sized</span> : null}</td>
                     <td className="px-3 py-2">
                       <button
                         type="button"

@@ -103,13 +103,18 @@ describe('the drawn board', () => {
     act(() => useSizingStore.getState().apply(store().revision, result));
     const { container } = renderBoard();
     const cell = container.querySelector(`[data-way-id="${cooker.id}"]`)!;
+    // On the device: icon and colour (one module has no room for the word)
     const mark = cell.querySelector('[data-verdict]')!;
     expect(mark.getAttribute('data-verdict')).toBe('fails');
-    expect(mark.textContent).toBe('Fails');
     expect(mark.querySelector('svg')).toBeTruthy();
     expect(mark.className).toContain('text-verdict-fail');
     expect(cell.getAttribute('aria-label')).toMatch(/serves Cooker: oven and hob, fails$/);
-    const passing = container.querySelectorAll('[data-verdict="passes"]');
+    // In the legend under the rail: the same icon and colour, with the word
+    const entry = container.querySelector(`[data-legend-way="${cooker.id}"] [data-verdict]`)!;
+    expect(entry.textContent).toBe('Fails');
+    expect(entry.querySelector('svg')?.outerHTML).toBe(mark.querySelector('svg')?.outerHTML);
+    expect(entry.className).toContain('text-verdict-fail');
+    const passing = container.querySelectorAll('[data-way-id] [data-verdict="passes"]');
     expect(passing.length).toBe(result.summary.counts.passes);
   });
 
@@ -117,7 +122,9 @@ describe('the drawn board', () => {
     const user = userEvent.setup();
     store().load(demoBoard('flat'));
     const { container } = renderBoard(false);
-    expect(screen.getAllByText('Spare')).toHaveLength(1);
+    // The blank: a dashed mark on the rail, "spare" in the legend
+    expect(container.querySelectorAll('[data-way-id] [data-spare]')).toHaveLength(1);
+    expect(screen.getByRole('list', { name: 'Ways on the rail' }).textContent).toContain('9Blank: spare');
     const [, , second, third] = container.querySelectorAll<HTMLElement>('[data-way-id]');
     // A plain click (the test's context starts a drag on pointer-down, so no pointer here)
     fireEvent.click(second);
@@ -126,5 +133,28 @@ describe('the drawn board', () => {
     await user.keyboard('{Enter}');
     expect(store().selection).toEqual([third.dataset.wayId]);
     expect(third.getAttribute('aria-pressed')).toBe('true');
+  });
+
+  it('every way’s reference, description and verdict are written level in the legend, nothing is turned', () => {
+    store().load(demoBoard('workshop'));
+    const result = sizeBoard(boardInputSchema.parse(boardSizingInput(store().settings!, store().ways)));
+    act(() => useSizingStore.getState().apply(store().revision, result));
+    const { container } = renderBoard();
+    const cells = Array.from(container.querySelectorAll<HTMLElement>('[data-way-id]'));
+    expect(cells.length).toBe(store().ways.length);
+    for (const cell of cells) {
+      const way = store().ways.find((w) => w.id === cell.dataset.wayId)!;
+      const entry = container.querySelector<HTMLElement>(`[data-legend-way="${way.id}"]`)!;
+      // Keyed by the way reference drawn on the device, with the device and the whole description
+      if (cell.dataset.wayLabel) expect(entry.textContent).toContain(cell.dataset.wayLabel);
+      if (way.circuit?.serves) expect(entry.textContent).toContain(way.circuit.serves);
+      const verdict = result.ways.find((w) => w.id === way.id)?.result?.verdict;
+      if (verdict) expect(entry.querySelector('[data-verdict]')?.getAttribute('data-verdict')).toBe(verdict);
+      // The full words on hover and focus, the same as the device's name
+      expect(cell.querySelector('[data-way-tip]')?.textContent).toBe(cell.getAttribute('aria-label'));
+      expect(cell.querySelector('[data-way-tip]')?.className).toMatch(/group-hover:block.*group-focus-visible:block/);
+    }
+    // No text on the drawn board is written sideways
+    expect(container.innerHTML).not.toMatch(/writing-mode|rotate-/);
   });
 });

@@ -1,0 +1,61 @@
+'use client';
+
+import { VerdictBadge } from '@/components/sizing/verdict-badge';
+import { cn } from '@/lib/cn';
+import { isProtectiveDevice, type WayResult } from '@/lib/sizing';
+
+import type { EditorWay } from '../types/draft';
+import { deviceWords } from '../utils/device-catalogue';
+
+type RailLegendProps = {
+  /** "the rail" or "rail 2", for the list's name. */
+  railName: string;
+  /** The devices on the rail in rail order, with their way references. */
+  entries: { way: EditorWay; label: string | null }[];
+  results: Map<string, WayResult>;
+  pending: boolean;
+  showVerdicts: boolean;
+  selection: string[];
+  onSelect: (id: string) => void;
+};
+
+/**
+ * The rail's legend, under the drawing: every device on the rail by its way reference, with
+ * the device, what it serves and its verdict in words, read without turning the head however
+ * narrow the device is drawn. A click picks the way, as a click on the rail does (the rail's
+ * devices are the keyboard's way to pick one, so the legend adds no tab stops).
+ */
+export function RailLegend({ railName, entries, results, pending, showVerdicts, selection, onSelect }: RailLegendProps) {
+  if (!entries.length) return null;
+  return (
+    <ol aria-label={`Ways on ${railName}`} className="mt-2 gap-x-4 border-t border-ink/15 pt-2 sm:columns-2 2xl:columns-3">
+      {entries.map(({ way, label }) => {
+        const verdict = showVerdicts ? results.get(way.id)?.result?.verdict : undefined;
+        const spare = (isProtectiveDevice(way.device.kind) && !way.circuit) || way.device.kind === 'blank';
+        return (
+          <li
+            key={way.id}
+            data-legend-way={way.id}
+            onClick={() => onSelect(way.id)}
+            className={cn(
+              // Read down each column, then across; an entry never splits between columns
+              'mb-0.5 flex cursor-pointer break-inside-avoid items-start gap-2 rounded-md px-1.5 py-1 text-xs leading-snug hover:bg-white/60',
+              selection.includes(way.id) && 'bg-copper-light ring-1 ring-copper',
+            )}
+          >
+            <span className="w-14 shrink-0 font-mono font-semibold text-ink">
+              {label ? <span className="sr-only">Way </span> : null}
+              {label ?? '–'}
+            </span>
+            <span className="min-w-0 flex-1 break-words">
+              <span className="font-medium text-ink">{deviceWords(way.device)}</span>
+              {way.circuit?.serves ? <span className="text-ink-soft">: {way.circuit.serves}</span> : null}
+              {spare ? <span className="text-ink-soft">: spare</span> : null}
+            </span>
+            {verdict ? <VerdictBadge verdict={verdict} pending={pending} className="px-1.5 py-0.5" /> : null}
+          </li>
+        );
+      })}
+    </ol>
+  );
+}
