@@ -29,4 +29,6 @@ export type BoardSummary = {
   revision: number;
   wayCount: number;
   updatedAt: string;
+  /** When the board (or its site) was archived; null for a live board. */
+  archivedAt: string | null;
 };

@@ -20,6 +20,7 @@ const boards: BoardSummary[] = [
     revision: 2,
     wayCount: 12,
     updatedAt: '2025-03-02T10:00:00.000Z',
+    archivedAt: null,
   },
   {
     id: 'bbbbbbbb-bbbb-4bbb-8bbb-bbbbbbbbbbbb',
@@ -32,6 +33,7 @@ const boards: BoardSummary[] = [
     revision: 1,
     wayCount: 8,
     updatedAt: '2025-03-04T10:00:00.000Z',
+    archivedAt: null,
   },
   {
     id: 'cccccccc-cccc-4ccc-8ccc-cccccccccccc',
@@ -44,6 +46,7 @@ const boards: BoardSummary[] = [
     revision: 1,
     wayCount: 4,
     updatedAt: '2025-02-01T10:00:00.000Z',
+    archivedAt: null,
   },
   {
     id: 'dddddddd-dddd-4ddd-8ddd-dddddddddddd',
@@ -56,6 +59,7 @@ const boards: BoardSummary[] = [
     revision: 3,
     wayCount: 2,
     updatedAt: '2025-01-10T10:00:00.000Z',
+    archivedAt: null,
   },
 ];
 

@@ -13,6 +13,7 @@ const sites: SiteSummary[] = [
     address: '4 Mill Lane, Hexford',
     boardCount: 1,
     updatedAt: '2025-03-02T10:00:00.000Z',
+    archived: null,
   },
   {
     id: '22222222-2222-4222-8222-222222222222',
@@ -21,6 +22,7 @@ const sites: SiteSummary[] = [
     address: '4a Mill Lane, Hexford',
     boardCount: 3,
     updatedAt: '2025-01-15T10:00:00.000Z',
+    archived: null,
   },
   {
     id: '33333333-3333-4333-8333-333333333333',
@@ -29,6 +31,7 @@ const sites: SiteSummary[] = [
     address: 'Towpath, Hexford',
     boardCount: 0,
     updatedAt: '2025-02-20T10:00:00.000Z',
+    archived: null,
   },
 ];
 
