@@ -416,7 +416,13 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
       throw conflict('The board is in review; it can be changed once the inspector returns it.');
     }
   };
-  refuse(stored);
+  try {
+    refuse(stored);
+  } catch (err) {
+    // An archive also moves the version on: say that it is archived, not that someone saved
+    await assertNotArchived(await findBoard(actor, boardId));
+    throw err;
+  }
   const diff = diffWays(stored.ways, input.ways);
   const added = new Set(diff.added);
   const touched = new Set([...diff.changed, ...diff.moved]);
@@ -473,8 +479,8 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
   }
   if (!rows.length) {
     // The board changed, was archived or went between the read and the write: say why
-    refuse(await getBoard(actor, boardId));
     await assertNotArchived(await findBoard(actor, boardId));
+    refuse(await getBoard(actor, boardId));
     throw conflict('Someone else changed this board after you opened it.');
   }
   const [saved] = rows;
