@@ -31,4 +31,6 @@ export type BoardSummary = {
   updatedAt: string;
   /** When the board (or its site) was archived; null for a live board. */
   archivedAt: string | null;
+  /** Whether a revision of it was ever issued (then it is archived, never deleted). */
+  everIssued: boolean;
 };

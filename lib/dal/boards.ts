@@ -73,6 +73,11 @@ export async function listBoards(
     group: ['boardId'],
   })) as unknown as { boardId: string; count: number }[];
   const byBoard = new Map(counts.map((c) => [c.boardId, Number(c.count)]));
+  const issued = (await BoardRevision.count({
+    where: { boardId: { [Op.in]: boards.map((b) => b.id) } },
+    group: ['boardId'],
+  })) as unknown as { boardId: string; count: number }[];
+  const everIssuedIds = new Set(issued.map((c) => c.boardId));
   return boards.map((b) => ({
     id: b.id,
     siteId: b.siteId,
@@ -85,6 +90,7 @@ export async function listBoards(
     wayCount: byBoard.get(b.id) ?? 0,
     updatedAt: b.updatedAt.toISOString(),
     archivedAt: (b.archivedAt ?? (b as Board & { site?: Site }).site?.archivedAt)?.toISOString() ?? null,
+    everIssued: everIssuedIds.has(b.id),
   }));
 }
 

@@ -21,6 +21,7 @@ const boards: BoardSummary[] = [
     wayCount: 12,
     updatedAt: '2025-03-02T10:00:00.000Z',
     archivedAt: null,
+    everIssued: false,
   },
   {
     id: 'bbbbbbbb-bbbb-4bbb-8bbb-bbbbbbbbbbbb',
@@ -34,6 +35,7 @@ const boards: BoardSummary[] = [
     wayCount: 8,
     updatedAt: '2025-03-04T10:00:00.000Z',
     archivedAt: null,
+    everIssued: false,
   },
   {
     id: 'cccccccc-cccc-4ccc-8ccc-cccccccccccc',
@@ -47,6 +49,7 @@ const boards: BoardSummary[] = [
     wayCount: 4,
     updatedAt: '2025-02-01T10:00:00.000Z',
     archivedAt: null,
+    everIssued: false,
   },
   {
     id: 'dddddddd-dddd-4ddd-8ddd-dddddddddddd',
@@ -60,6 +63,7 @@ const boards: BoardSummary[] = [
     wayCount: 2,
     updatedAt: '2025-01-10T10:00:00.000Z',
     archivedAt: null,
+    everIssued: false,
   },
 ];
 

@@ -15,7 +15,7 @@ import { useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
 import { Select } from '@/components/ui/field';
-import { StatusBadge } from '@/components/ui/status-badge';
+import { ArchivedBadge, StatusBadge } from '@/components/ui/status-badge';
 import { actionsColumn, lastChangeColumn, RowCount, textOrDash } from '@/components/ui/table-columns';
 import type { BoardSummary } from '@/lib/boards/types';
 
@@ -29,6 +29,8 @@ type BoardsTableProps = {
   singleSite?: boolean;
   onRename: (board: BoardSummary) => void;
   onDelete: (board: BoardSummary) => void;
+  /** The word on a row's remove button ("Delete", "Archive", "Restore"), null for none (default "Delete"). */
+  removeLabelOf?: (board: BoardSummary) => string | null;
 };
 
 /** Searches a board's name, site and location. */
@@ -48,6 +50,7 @@ export function BoardsTable({
   singleSite,
   onRename,
   onDelete,
+  removeLabelOf,
 }: BoardsTableProps) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'updatedAt', desc: true }]);
   const [search, setSearch] = useState('');
@@ -130,7 +133,12 @@ export function BoardsTable({
         header: 'Stage',
         sortingFn: (a, b) => stageOrder(a.original.status) - stageOrder(b.original.status),
         filterFn: (row, _id, value: string) => row.original.status === value,
-        cell: ({ row }) => <StatusBadge status={row.original.status} />,
+        cell: ({ row }) => (
+          <span className="inline-flex flex-wrap items-center gap-1">
+            <StatusBadge status={row.original.status} />
+            {row.original.archivedAt ? <ArchivedBadge /> : null}
+          </span>
+        ),
       },
       {
         id: 'revision',
@@ -141,9 +149,9 @@ export function BoardsTable({
       },
       lastChangeColumn(),
     ];
-    if (canEdit) list.push(actionsColumn('Rename', onRename, onDelete));
+    if (canEdit) list.push(actionsColumn('Rename', onRename, onDelete, removeLabelOf));
     return list;
-  }, [canEdit, onRename, onDelete]);
+  }, [canEdit, onRename, onDelete, removeLabelOf]);
 
   const table = useReactTable({
     data: boards,
