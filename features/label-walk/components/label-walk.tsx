@@ -7,12 +7,14 @@ import { toast } from 'sonner';
 
 import { FormAlert } from '@/components/ui/form-alert';
 import { errorMessage } from '@/lib/api/client';
+import { labelChangeUnverifies } from '@/lib/boards/record-rules';
 import { cn } from '@/lib/cn';
 import type { WalkData } from '@/lib/dal/label-walk';
 import type { LabelStatus } from '@/models/way';
 
 import { fetchWalk, postLabel, uploadPhoto, walkKey } from '../api/walk-api';
 import { nextUnchecked, resumeAt } from '../utils/next-way';
+import { StateChangeDialog } from './state-change-dialog';
 
 const STATUS_WORDS: Record<LabelStatus, string> = {
   unchecked: 'Not checked yet',
@@ -46,7 +48,8 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
 
   // Save one result, reload the walk, and go on to the next way not yet checked
   const record = useMutation({
-    mutationFn: (status: Exclude<LabelStatus, 'unchecked'>) => postLabel(boardId, way.id, { status, note }),
+    mutationFn: ({ status, confirm }: { status: Exclude<LabelStatus, 'unchecked'>; confirm?: boolean }) =>
+      postLabel(boardId, way.id, { status, note, ...(confirm ? { confirmStateChange: true } : {}) }),
     onSuccess: async (result) => {
       // staleTime 0: the cached walk is out of date the moment a result is saved
       const fresh = await queryClient.fetchQuery({ queryKey: walkKey(boardId), queryFn: () => fetchWalk(boardId), staleTime: 0 });
@@ -55,6 +58,12 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
       setIndex(nextUnchecked(fresh.ways.map((w) => w.status), index));
     },
   });
+  // A check that would take a verified board back to issued asks first (lib/boards/record-rules.ts)
+  const [asking, setAsking] = useState<'wrong' | 'missing' | null>(null);
+  const choose = (status: Exclude<LabelStatus, 'unchecked'>) => {
+    if (status !== 'matches' && labelChangeUnverifies(data.status, status)) setAsking(status);
+    else record.mutate({ status });
+  };
   const photo = useMutation({
     mutationFn: (file: File) => uploadPhoto(boardId, file, way.id),
     onSuccess: async () => {
@@ -152,7 +161,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
               <button
                 type="button"
                 disabled={record.isPending}
-                onClick={() => record.mutate('matches')}
+                onClick={() => choose('matches')}
                 className="flex h-16 items-center justify-center gap-2 rounded-lg bg-verdict-pass text-lg font-semibold text-white disabled:opacity-60"
               >
                 <CircleCheck aria-hidden className="h-6 w-6" /> Label matches
@@ -161,7 +170,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
                 <button
                   type="button"
                   disabled={record.isPending}
-                  onClick={() => record.mutate('wrong')}
+                  onClick={() => choose('wrong')}
                   className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-near bg-verdict-near-bg px-2 text-sm font-semibold text-verdict-near disabled:opacity-60"
                 >
                   <TriangleAlert aria-hidden className="h-5 w-5" /> Label is wrong
@@ -169,7 +178,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
                 <button
                   type="button"
                   disabled={record.isPending}
-                  onClick={() => record.mutate('missing')}
+                  onClick={() => choose('missing')}
                   className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
                 >
                   <CircleX aria-hidden className="h-5 w-5" /> Label is missing
@@ -258,6 +267,16 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
           </button>
         </div>
       </nav>
+      <StateChangeDialog
+        status={asking}
+        wayName={way ? `way ${way.ref ?? way.labelText}` : 'this way'}
+        revision={data.revision}
+        onClose={() => setAsking(null)}
+        onConfirm={() => {
+          if (asking) record.mutate({ status: asking, confirm: true });
+          setAsking(null);
+        }}
+      />
     </div>
   );
 }
