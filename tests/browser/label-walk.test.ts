@@ -12,7 +12,7 @@ import { db } from '@/lib/db';
 import { Board, Organisation, Site, Way } from '@/models';
 import { DEMO_ORG, DEMO_SITE, FLAT_BOARD, demoWays } from '@/scripts/demo-data';
 
-import { APP_URL, openBrowser, signIn } from './helpers';
+import { APP_URL, demoUser, openBrowser, signIn } from './helpers';
 
 let boardId: string;
 let boardName: string;
@@ -51,6 +51,11 @@ describe('review and label walk', () => {
       await page.goto(`${APP_URL}/boards/${boardId}/review`);
       await expect.poll(() => page.getByRole('heading', { name: `Review: ${boardName}` }).count()).toBe(1);
       await page.getByRole('button', { name: 'Approve and issue' }).click();
+      // The confirmation asks for the issuer's name (tests/browser/records.test.ts covers it)
+      await page.getByLabel('Your full name').fill(demoUser('inspector').name);
+      const ticks = page.getByRole('checkbox', { name: /I issue the board as it is/ });
+      if (await ticks.count()) await ticks.check();
+      await page.getByRole('button', { name: 'Issue revision 1' }).click();
       await page.getByText('Issued as revision 1').waitFor();
       expect((await Board.findByPk(boardId))!.status).toBe('issued');
     } finally {
