@@ -123,6 +123,13 @@ describe('review and label walk', () => {
       }
       await page.getByRole('status').filter({ hasText: 'the board is verified' }).first().waitFor();
       expect((await Board.findByPk(boardId))!.status).toBe('verified');
+      // Every label confirmed: a label found missing now says the board's state will change, first
+      await page.getByRole('button', { name: 'Label is missing' }).click();
+      const ask = page.getByRole('dialog', { name: 'This changes the board’s state' });
+      await expect(ask.textContent()).resolves.toMatch(/verified.*back to issued/);
+      await ask.getByRole('button', { name: 'Keep it verified' }).click();
+      await expect.poll(() => ask.count()).toBe(0);
+      expect((await Board.findByPk(boardId))!.status).toBe('verified');
     } finally {
       await second.close();
     }
