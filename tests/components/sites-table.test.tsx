@@ -112,14 +112,14 @@ describe('SitesTable', () => {
     expect(screen.getByText(/no site matches/i)).toBeTruthy();
   });
 
-  it('links each site to its page and offers edit and delete only to editors', () => {
+  it('links each site to its page and offers edit and archive only to editors', () => {
     const { unmount } = renderTable(true);
     const link = screen.getByRole('link', { name: 'Canal boathouse' });
     expect(link.getAttribute('href')).toBe('/sites/33333333-3333-4333-8333-333333333333');
-    expect(screen.getAllByRole('button', { name: /^delete /i })).toHaveLength(3);
+    expect(screen.getAllByRole('button', { name: /^archive /i })).toHaveLength(3);
     unmount();
     renderTable(false);
-    expect(screen.queryByRole('button', { name: /^delete /i })).toBeNull();
+    expect(screen.queryByRole('button', { name: /^archive /i })).toBeNull();
     expect(screen.queryByRole('button', { name: /^edit /i })).toBeNull();
   });
 
