@@ -128,7 +128,7 @@ describe('review and label walk', () => {
       const ask = page.getByRole('dialog', { name: 'This changes the board’s state' });
       await expect(ask.textContent()).resolves.toMatch(/verified.*back to issued/);
       await ask.getByRole('button', { name: 'Keep it verified' }).click();
-      await expect.poll(() => ask.count()).toBe(0);
+      await expect.poll(() => ask.count(), { timeout: 15_000 }).toBe(0);
       expect((await Board.findByPk(boardId))!.status).toBe('verified');
     } finally {
       await second.close();

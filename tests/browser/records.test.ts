@@ -16,6 +16,9 @@ import { DEMO_ORG, DEMO_SITE, FLAT_BOARD, demoWays } from '@/scripts/demo-data';
 
 import { APP_URL, demoUser, openBrowser, signIn } from './helpers';
 
+/** A loaded machine may take seconds to answer: polls wait up to 15 s. */
+const POLL = { timeout: 15_000, interval: 200 };
+
 let orgId: string;
 let siteId: string;
 
@@ -94,7 +97,7 @@ describe('kept records', () => {
       await expect(beside.textContent()).resolves.toContain(wayNote);
       // Marked answered, the notes go
       await notes.getByRole('button', { name: 'Mark all answered' }).click();
-      await expect.poll(() => page.getByRole('region', { name: 'Returned for changes' }).count()).toBe(0);
+      await expect.poll(() => page.getByRole('region', { name: 'Returned for changes' }).count(), POLL).toBe(0);
       expect(await Comment.count({ where: { boardId: board.id, answeredAt: null } })).toBe(0);
     } finally {
       await designer.close();
@@ -145,12 +148,12 @@ describe('kept records', () => {
       await page.goto(`${APP_URL}/boards`);
       await page.getByRole('button', { name: `Delete ${board.name}` }).click();
       await page.getByText(`Deleted ${board.name}.`).waitFor();
-      await expect.poll(async () => (await Board.findByPk(board.id))!.deletedAt).not.toBeNull();
-      await expect.poll(() => page.getByRole('link', { name: board.name }).count()).toBe(0);
+      await expect.poll(async () => (await Board.findByPk(board.id))!.deletedAt, POLL).not.toBeNull();
+      await expect.poll(() => page.getByRole('link', { name: board.name }).count(), POLL).toBe(0);
       await page.getByRole('button', { name: 'Undo' }).click();
       await page.getByText(`${board.name} is back.`).waitFor();
-      await expect.poll(async () => (await Board.findByPk(board.id))!.deletedAt).toBeNull();
-      await expect.poll(() => page.getByRole('link', { name: board.name }).count()).toBe(1);
+      await expect.poll(async () => (await Board.findByPk(board.id))!.deletedAt, POLL).toBeNull();
+      await expect.poll(() => page.getByRole('link', { name: board.name }).count(), POLL).toBe(1);
     } finally {
       await close();
     }
