@@ -187,6 +187,10 @@ async function findAttachment(actor: Actor, id: string): Promise<Attachment> {
   db();
   const row = await Attachment.findOne({ where: { id, organisationId: actor.organisationId } });
   if (!row) throw notFound('The photo');
+  // A deleted draft board's photos go with it (until an undo brings them back)
+  await findBoard(actor, row.boardId).catch(() => {
+    throw notFound('The photo');
+  });
   return row;
 }
 
