@@ -13,6 +13,9 @@ export class Attachment extends Model {
   declare fileName: string;
   declare uploadedById: string;
   declare createdAt: Date;
+  /** A photo removed from a board that was issued: hidden from the board, kept in storage. */
+  declare withdrawnAt: Date | null;
+  declare withdrawnById: string | null;
 
   static setup(sequelize: Sequelize): void {
     Attachment.init(
@@ -27,6 +30,8 @@ export class Attachment extends Model {
         sizeBytes: { type: DataTypes.INTEGER, allowNull: false },
         fileName: { type: DataTypes.STRING(200), allowNull: false, defaultValue: '' },
         uploadedById: { type: DataTypes.UUID, allowNull: false },
+        withdrawnAt: { type: DataTypes.DATE, allowNull: true },
+        withdrawnById: { type: DataTypes.UUID, allowNull: true },
       },
       { sequelize, tableName: 'attachments', underscored: true, updatedAt: false },
     );

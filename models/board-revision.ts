@@ -9,6 +9,8 @@ export class BoardRevision extends Model {
   declare sizing: Record<string, unknown>;
   declare issuedById: string;
   declare issuedAt: Date;
+  /** The issuer's name as they typed it to confirm the issue (null before declarations were asked). */
+  declare declaration: string | null;
 
   static setup(sequelize: Sequelize): void {
     BoardRevision.init(
@@ -20,6 +22,7 @@ export class BoardRevision extends Model {
         sizing: { type: DataTypes.JSONB, allowNull: false },
         issuedById: { type: DataTypes.UUID, allowNull: false },
         issuedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+        declaration: { type: DataTypes.STRING(160), allowNull: true },
       },
       { sequelize, tableName: 'board_revisions', underscored: true, timestamps: false },
     );

@@ -36,6 +36,14 @@ export class Board extends Model {
   /** The revision being drafted or last issued; issued revisions are frozen in board_revisions. */
   declare revision: number;
   declare createdById: string | null;
+  /** Archived boards leave the lists but stay readable; an admin may restore them. */
+  declare archivedAt: Date | null;
+  declare archivedById: string | null;
+  /** A never-issued board deleted by a designer: gone from every view, kept for undo. */
+  declare deletedAt: Date | null;
+  declare deletedById: string | null;
+  /** Who last changed the design (created or saved it): they may not issue it themselves. */
+  declare designChangedById: string | null;
   declare createdAt: Date;
   declare updatedAt: Date;
 
@@ -57,6 +65,11 @@ export class Board extends Model {
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         createdById: { type: DataTypes.UUID, allowNull: true },
+        archivedAt: { type: DataTypes.DATE, allowNull: true },
+        archivedById: { type: DataTypes.UUID, allowNull: true },
+        deletedAt: { type: DataTypes.DATE, allowNull: true },
+        deletedById: { type: DataTypes.UUID, allowNull: true },
+        designChangedById: { type: DataTypes.UUID, allowNull: true },
       },
       { sequelize, tableName: 'boards', underscored: true },
     );

@@ -9,6 +9,9 @@ export class Comment extends Model {
   declare authorId: string;
   declare body: string;
   declare createdAt: Date;
+  /** When the designer marked the comment answered (null while open). */
+  declare answeredAt: Date | null;
+  declare answeredById: string | null;
 
   static setup(sequelize: Sequelize): void {
     Comment.init(
@@ -19,6 +22,8 @@ export class Comment extends Model {
         revision: { type: DataTypes.INTEGER, allowNull: false },
         authorId: { type: DataTypes.UUID, allowNull: false },
         body: { type: DataTypes.TEXT, allowNull: false },
+        answeredAt: { type: DataTypes.DATE, allowNull: true },
+        answeredById: { type: DataTypes.UUID, allowNull: true },
       },
       { sequelize, tableName: 'comments', underscored: true, updatedAt: false },
     );

@@ -6,6 +6,9 @@ export class Site extends Model {
   declare name: string;
   declare address: string;
   declare client: string;
+  /** Archived sites (and their boards) leave the lists but stay readable; an admin may restore them. */
+  declare archivedAt: Date | null;
+  declare archivedById: string | null;
   declare createdAt: Date;
   declare updatedAt: Date;
 
@@ -17,6 +20,8 @@ export class Site extends Model {
         name: { type: DataTypes.STRING(160), allowNull: false },
         address: { type: DataTypes.STRING(300), allowNull: false, defaultValue: '' },
         client: { type: DataTypes.STRING(160), allowNull: false, defaultValue: '' },
+        archivedAt: { type: DataTypes.DATE, allowNull: true },
+        archivedById: { type: DataTypes.UUID, allowNull: true },
       },
       { sequelize, tableName: 'sites', underscored: true },
     );

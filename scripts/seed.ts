@@ -37,7 +37,13 @@ async function ensureUser(orgId: string, u: (typeof DEMO_USERS)[number]): Promis
 }
 
 async function createBoard(orgId: string, siteId: string, createdById: string, demo: DemoBoard) {
-  const board = await Board.create({ ...demo.settings, organisationId: orgId, siteId, createdById });
+  const board = await Board.create({
+    ...demo.settings,
+    organisationId: orgId,
+    siteId,
+    createdById,
+    designChangedById: createdById,
+  });
   await Way.bulkCreate(demoWays(demo).map((w) => ({ ...w, boardId: board.id })));
   return board;
 }

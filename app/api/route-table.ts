@@ -25,6 +25,10 @@ export type RouteFixture = {
   attachmentId: string;
   /** A small valid PNG, for uploads. */
   photoPng: Uint8Array;
+  /** The names of the members the tests sign in as (an issuer types their own). */
+  names: Record<Role, string>;
+  /** A reviewer's comment on the board, when the route's `needs` asks for one (else ''). */
+  commentId: string;
 };
 
 /** A file field of a multipart form. */
@@ -72,12 +76,18 @@ export type RouteSpec = {
   scope: RouteScope;
   /** The call changes or removes what it names, so each call needs fresh objects. */
   mutates: boolean;
-  /** The stage the fixture's board must be at for a valid call (default draft). */
-  stage?: 'draft' | 'in-review' | 'issued';
+  /**
+   * The stage the fixture's board must be at for a valid call (default draft): `archived` is
+   * archived by an admin, `deleted` deleted by a designer, `site-archived` its site archived.
+   */
+  stage?: 'draft' | 'in-review' | 'issued' | 'archived' | 'deleted' | 'site-archived';
   /** Extra objects the call names. */
-  needs?: readonly 'attachment'[];
-  /** A valid call against the fixture's objects (null: not callable in-process, with why). */
-  call: ((fx: RouteFixture) => RouteCall) | null;
+  needs?: readonly ('attachment' | 'comment')[];
+  /**
+   * A valid call against the fixture's objects, made by a member of role `as` (null: not
+   * callable in-process, with why).
+   */
+  call: ((fx: RouteFixture, as: Role) => RouteCall) | null;
   /** Why `call` is null. */
   notCalled?: string;
 };
@@ -190,10 +200,40 @@ export const ROUTES: readonly RouteSpec[] = [
   {
     method: 'DELETE',
     path: '/api/boards/[boardId]',
-    access: act('boards.edit'),
+    access: act('boards.discard'),
     body: 'none',
     scope: 'path',
     mutates: true,
+    call: (fx) => ({ params: byBoard(fx) }),
+  },
+  {
+    method: 'POST',
+    path: '/api/boards/[boardId]/archive',
+    access: act('records.archive'),
+    body: 'none',
+    scope: 'path',
+    mutates: true,
+    stage: 'issued',
+    call: (fx) => ({ params: byBoard(fx) }),
+  },
+  {
+    method: 'POST',
+    path: '/api/boards/[boardId]/restore',
+    access: act('records.archive'),
+    body: 'none',
+    scope: 'path',
+    mutates: true,
+    stage: 'archived',
+    call: (fx) => ({ params: byBoard(fx) }),
+  },
+  {
+    method: 'POST',
+    path: '/api/boards/[boardId]/undo-delete',
+    access: act('boards.discard'),
+    body: 'none',
+    scope: 'path',
+    mutates: true,
+    stage: 'deleted',
     call: (fx) => ({ params: byBoard(fx) }),
   },
   {
@@ -279,6 +319,16 @@ export const ROUTES: readonly RouteSpec[] = [
     }),
   },
   {
+    method: 'POST',
+    path: '/api/boards/[boardId]/comments/answered',
+    access: act('comments.answer'),
+    body: 'required',
+    scope: 'path',
+    mutates: true,
+    needs: ['comment'],
+    call: (fx) => ({ params: byBoard(fx), body: { commentIds: [fx.commentId] } }),
+  },
+  {
     method: 'GET',
     path: '/api/boards/[boardId]/labels',
     access: act('schedule.print'),
@@ -301,11 +351,14 @@ export const ROUTES: readonly RouteSpec[] = [
     method: 'POST',
     path: '/api/boards/[boardId]/review/approve',
     access: act('boards.review'),
-    body: 'optional',
+    body: 'required',
     scope: 'path',
     mutates: true,
     stage: 'in-review',
-    call: (fx) => ({ params: byBoard(fx), body: { acknowledgeFailures: true } }),
+    call: (fx, as) => ({
+      params: byBoard(fx),
+      body: { acknowledgeFailures: true, declaration: fx.names[as], revision: fx.board.revision },
+    }),
   },
   {
     method: 'POST',
@@ -479,6 +532,24 @@ export const ROUTES: readonly RouteSpec[] = [
   },
   {
     method: 'GET',
+    path: '/api/organisation',
+    access: act('organisation.manage'),
+    body: 'none',
+    scope: 'list',
+    mutates: false,
+    call: () => ({ params: {} }),
+  },
+  {
+    method: 'PATCH',
+    path: '/api/organisation',
+    access: act('organisation.manage'),
+    body: 'required',
+    scope: 'list',
+    mutates: true,
+    call: () => ({ params: {}, body: { allowSelfIssue: false } }),
+  },
+  {
+    method: 'GET',
     path: '/api/sites',
     access: act('boards.read'),
     body: 'none',
@@ -516,10 +587,20 @@ export const ROUTES: readonly RouteSpec[] = [
   {
     method: 'DELETE',
     path: '/api/sites/[siteId]',
-    access: act('boards.edit'),
+    access: act('boards.discard'),
     body: 'none',
     scope: 'path',
     mutates: true,
+    call: (fx) => ({ params: bySite(fx) }),
+  },
+  {
+    method: 'POST',
+    path: '/api/sites/[siteId]/restore',
+    access: act('records.archive'),
+    body: 'none',
+    scope: 'path',
+    mutates: true,
+    stage: 'site-archived',
     call: (fx) => ({ params: bySite(fx) }),
   },
   {

@@ -22,3 +22,12 @@ export function StatusBadge({ status }: { status: BoardStatus }) {
     </span>
   );
 }
+
+/** Marks an archived site or board: out of the lists, read-only, kept whole. */
+export function ArchivedBadge() {
+  return (
+    <span className="inline-flex items-center rounded-full border border-dashed border-ink/40 bg-paper-sunk px-2 py-0.5 text-xs font-medium text-ink-soft">
+      Archived
+    </span>
+  );
+}

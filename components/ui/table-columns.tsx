@@ -30,6 +30,8 @@ export function actionsColumn<T extends { name: string }>(
   editLabel: string,
   onEdit: (row: T) => void,
   onDelete: (row: T) => void,
+  /** The word on the second button for a row ("Delete", "Archive", "Restore"); null hides it. */
+  deleteLabelOf?: (row: T) => string | null,
 ): ColumnDef<T> {
   return {
     id: 'actions',
@@ -42,6 +44,7 @@ export function actionsColumn<T extends { name: string }>(
         editLabel={editLabel}
         onEdit={() => onEdit(row.original)}
         onDelete={() => onDelete(row.original)}
+        deleteLabel={deleteLabelOf ? deleteLabelOf(row.original) : undefined}
       />
     ),
   };

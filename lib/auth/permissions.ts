@@ -14,6 +14,14 @@ export const PERMISSIONS = {
   'schedule.print': ['admin', 'designer', 'inspector', 'installer'],
   'walk.record': ['admin', 'inspector', 'installer'],
   'mailbox.read': ['admin'],
+  // Archive sites and boards that were ever issued, and restore anything archived
+  'records.archive': ['admin'],
+  // Delete a board that was never issued (with undo), archive a site that holds none
+  'boards.discard': ['admin', 'designer'],
+  // Mark review comments answered
+  'comments.answer': ['admin', 'designer'],
+  // The organisation's settings (e.g. whether a designer may issue their own design)
+  'organisation.manage': ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof PERMISSIONS;
@@ -33,4 +41,8 @@ export const ACTION_WORDS: Record<Action, string> = {
   'schedule.print': 'print schedules',
   'walk.record': 'record label walks',
   'mailbox.read': 'read the development mailbox',
+  'records.archive': 'archive or restore issued records',
+  'boards.discard': 'delete draft boards',
+  'comments.answer': 'mark review comments answered',
+  'organisation.manage': 'change the organisation’s settings',
 };

@@ -32,4 +32,8 @@ export type BoardSummary = {
   wayCount: number;
   counts: WayCounts;
   updatedAt: string;
+  /** When the board (or its site) was archived; null for a live board. */
+  archivedAt: string | null;
+  /** Whether a revision of it was ever issued (then it is archived, never deleted). */
+  everIssued: boolean;
 };

@@ -7,7 +7,7 @@ import sharp from 'sharp';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { findBoard } from '@/lib/dal/boards';
+import { assertNotArchived, everIssued, findBoard } from '@/lib/dal/boards';
 import { badRequest, HttpError, notFound } from '@/lib/errors';
 import { deleteObjects, getObjectStream, putObject } from '@/lib/storage/s3';
 import { Attachment, User, Way } from '@/models';
@@ -26,6 +26,30 @@ export const PHOTO_TYPES: Record<string, string> = {
 
 /** Longest side of a thumbnail, px. */
 const THUMB_PX = 320;
+
+/**
+ * The photo as stored: decoded and encoded again in its own format, turned upright first
+ * (the orientation tag goes with the rest), so that none of the camera's metadata is kept:
+ * no EXIF (GPS position, device serial, times), XMP or IPTC. Only the colour profile stays.
+ * sharp writes no metadata unless asked to (https://sharp.pixelplumbing.com/api-output#keepmetadata).
+ */
+async function withoutMetadata(bytes: Uint8Array, contentType: string): Promise<Buffer> {
+  const animated = contentType === 'image/gif' || contentType === 'image/webp';
+  const image = sharp(bytes, { failOn: 'error', animated }).keepIccProfile();
+  const upright = animated ? image : image.rotate();
+  switch (contentType) {
+    case 'image/jpeg':
+      return upright.jpeg({ quality: 92, chromaSubsampling: '4:4:4' }).toBuffer();
+    case 'image/png':
+      return upright.png().toBuffer();
+    case 'image/webp':
+      return upright.webp({ quality: 92 }).toBuffer();
+    case 'image/gif':
+      return upright.gif().toBuffer();
+    default:
+      return upright.avif({ quality: 70 }).toBuffer();
+  }
+}
 
 export type AttachmentDto = {
   id: string;
@@ -97,8 +121,11 @@ export async function addAttachment(
   if (input.bytes.byteLength === 0) throw badRequest([{ path: 'file', message: 'The file is empty.' }]);
   if (input.bytes.byteLength > MAX_PHOTO_BYTES) throw tooLarge(input.bytes.byteLength);
   const contentType = await sniffImageType(input.bytes);
+  await assertNotArchived(board);
   let thumb: Buffer;
+  let original: Buffer;
   try {
+    original = await withoutMetadata(input.bytes, contentType);
     thumb = await sharp(input.bytes, { failOn: 'error' })
       .rotate()
       .resize(THUMB_PX, THUMB_PX, { fit: 'inside', withoutEnlargement: true })
@@ -112,7 +139,7 @@ export async function addAttachment(
   const prefix = `org/${board.organisationId}/boards/${boardId}/photos/${id}`;
   const storageKey = `${prefix}/original.${PHOTO_TYPES[contentType]}`;
   const thumbKey = `${prefix}/thumb.jpg`;
-  await putObject(storageKey, input.bytes, contentType);
+  await putObject(storageKey, original, contentType);
   await putObject(thumbKey, thumb, 'image/jpeg');
   try {
     const row = await db().transaction(async (transaction) => {
@@ -125,7 +152,7 @@ export async function addAttachment(
           storageKey,
           thumbKey,
           contentType,
-          sizeBytes: input.bytes.byteLength,
+          sizeBytes: original.byteLength,
           fileName: input.fileName.slice(0, 200),
           uploadedById: actor.userId,
         },
@@ -145,7 +172,7 @@ export async function addAttachment(
 export async function listAttachments(actor: Actor, boardId: string): Promise<AttachmentDto[]> {
   await findBoard(actor, boardId);
   const rows = await Attachment.findAll({
-    where: { boardId, organisationId: actor.organisationId },
+    where: { boardId, organisationId: actor.organisationId, withdrawnAt: null },
     order: [['createdAt', 'ASC']],
   });
   const people = await User.findAll({
@@ -160,6 +187,10 @@ async function findAttachment(actor: Actor, id: string): Promise<Attachment> {
   db();
   const row = await Attachment.findOne({ where: { id, organisationId: actor.organisationId } });
   if (!row) throw notFound('The photo');
+  // A deleted draft board's photos go with it (until an undo brings them back)
+  await findBoard(actor, row.boardId).catch(() => {
+    throw notFound('The photo');
+  });
   return row;
 }
 
@@ -181,12 +212,28 @@ export async function openAttachment(
   };
 }
 
-/** Removes a photo and its objects. */
-export async function deleteAttachment(actor: Actor, id: string): Promise<void> {
+/**
+ * Removes a photo from its board. The photo of a board that was ever issued is a record: it is
+ * withdrawn (no longer listed) and kept, row and objects; otherwise the photo and its objects
+ * are removed.
+ */
+export async function deleteAttachment(actor: Actor, id: string): Promise<{ effect: 'deleted' | 'withdrawn' }> {
   const row = await findAttachment(actor, id);
-  await db().transaction(async (transaction) => {
+  const effect = await db().transaction(async (transaction) => {
+    const board = await findBoard(actor, row.boardId, { transaction, lock: true });
+    await assertNotArchived(board, transaction);
+    if (row.withdrawnAt) throw notFound('The photo');
+    if (await everIssued(row.boardId, transaction)) {
+      await row.update({ withdrawnAt: new Date(), withdrawnById: actor.userId }, { transaction });
+      await audit(actor, 'attachment.withdrawn', { attachmentId: id, wayId: row.wayId }, { boardId: row.boardId, transaction });
+      return 'withdrawn' as const;
+    }
     await audit(actor, 'attachment.deleted', { attachmentId: id }, { boardId: row.boardId, transaction });
     await row.destroy({ transaction });
+    return 'deleted' as const;
   });
-  await deleteObjects([row.storageKey, row.thumbKey].filter((k): k is string => !!k)).catch(() => undefined);
+  if (effect === 'deleted') {
+    await deleteObjects([row.storageKey, row.thumbKey].filter((k): k is string => !!k)).catch(() => undefined);
+  }
+  return { effect };
 }

@@ -32,7 +32,15 @@ export type AuditAction =
   | 'board.verified'
   | 'board.unverified'
   | 'attachment.added'
-  | 'attachment.deleted';
+  | 'attachment.deleted'
+  | 'attachment.withdrawn'
+  | 'board.archived'
+  | 'board.restored'
+  | 'board.undeleted'
+  | 'site.archived'
+  | 'site.restored'
+  | 'comments.answered'
+  | 'organisation.changed';
 
 /** Appends one event to the audit trail, inside the caller's transaction when given. */
 export async function audit(

@@ -8,11 +8,11 @@ import { boardSizingInput } from '@/lib/boards/sizing-input';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { boardDto, findBoard } from '@/lib/dal/boards';
+import { boardDto, findWritableBoard } from '@/lib/dal/boards';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
-import { BOARD_STATUS_PHRASES, nameWaysIn } from '@/lib/names';
+import { nameWaysIn } from '@/lib/names';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 import { Site, User, Way } from '@/models';
 
@@ -57,16 +57,24 @@ export async function submitBoard(
 ): Promise<BoardDto> {
   const sequelize = db();
   const result = await sequelize.transaction(async (transaction) => {
-    // The board, locked, in the caller's organisation, at the version the caller saw
-    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    // The board, locked, in the caller's organisation, not archived; its stage first (a board
+    // already in review or issued says so, whatever version the caller held), then the version
+    const board = await findWritableBoard(actor, boardId, transaction);
+    if (board.status !== 'draft') {
+      const words = {
+        'in-review': 'already in review',
+        issued: `already issued (revision ${board.revision}); a change to it starts the next revision`,
+        'labels-matched': `already issued (revision ${board.revision}) and its labels matched on site; a change to it starts the next revision`,
+      } as const;
+      throw conflict(`Only a draft can be sent for review; this board is ${words[board.status as keyof typeof words] ?? board.status}.`, {
+        status: board.status,
+        revision: board.revision,
+      });
+    }
     if (expectedVersion !== undefined && board.version !== expectedVersion) {
       throw conflict('Someone else saved this board after you opened it.', {
         currentVersion: board.version,
       });
-    }
-    if (board.status !== 'draft') {
-      const already = board.status === 'in-review' ? 'already ' : '';
-      throw conflict(`Only a draft can be sent for review; this board is ${already}${BOARD_STATUS_PHRASES[board.status]}.`);
     }
     const rows = await Way.findAll({ where: { boardId }, transaction });
     const ways = waysOf(rows);

@@ -6,14 +6,15 @@ import { literal, Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, type CountedWay } from '@/lib/boards/counts';
+import { boardRemoval, mayRestore } from '@/lib/boards/record-rules';
 import { railOrder } from '@/lib/boards/layout';
 import { settingsOf, type BoardCreateInput, type BoardSaveInput, type WayInput } from '@/lib/boards/schemas';
 import type { BoardDto, BoardSummary, WayDto } from '@/lib/boards/types';
 import { db, namedQuery } from '@/lib/db';
 import { audit, type AuditAction } from '@/lib/dal/audit';
 import { findSite } from '@/lib/dal/sites';
-import { conflict, notFound } from '@/lib/errors';
-import { Board, Site, Way } from '@/models';
+import { conflict, forbidden, HttpError, notFound } from '@/lib/errors';
+import { Board, BoardRevision, Site, User, Way } from '@/models';
 
 function wayDto(way: Way): WayDto {
   return {
@@ -45,16 +46,27 @@ export function boardDto(board: Board, siteName: string, ways: Way[]): BoardDto 
   };
 }
 
-/** The organisation's boards, optionally of one site. */
-export async function listBoards(actor: Actor, opts: { siteId?: string } = {}): Promise<BoardSummary[]> {
+/**
+ * The organisation's boards, optionally of one site: the live ones, or with `archived` the
+ * archived ones (archived themselves or on an archived site). Deleted boards never show.
+ */
+export async function listBoards(
+  actor: Actor,
+  opts: { siteId?: string; archived?: boolean } = {},
+): Promise<BoardSummary[]> {
   db();
   if (opts.siteId) await findSite(actor, opts.siteId);
+  const archived = opts.archived
+    ? { [Op.or]: [{ archivedAt: { [Op.ne]: null } }, { '$site.archived_at$': { [Op.ne]: null } }] }
+    : { archivedAt: null, '$site.archived_at$': null };
   const boards = await Board.findAll({
     where: {
       organisationId: actor.organisationId,
+      deletedAt: null,
+      ...archived,
       ...(opts.siteId ? { siteId: opts.siteId } : {}),
     },
-    include: [{ model: Site, as: 'site', attributes: ['name'] }],
+    include: [{ model: Site, as: 'site', attributes: ['name', 'archivedAt'] }],
     order: [['updatedAt', 'DESC']],
   });
   // Ways counted by way number, as the editor and the schedule count them (counts.ts)
@@ -69,6 +81,11 @@ export async function listBoards(actor: Actor, opts: { siteId?: string } = {}): 
     list.push(w);
     byBoard.set(w.boardId, list);
   }
+  const issued = (await BoardRevision.count({
+    where: { boardId: { [Op.in]: boards.map((b) => b.id) } },
+    group: ['boardId'],
+  })) as unknown as { boardId: string; count: number }[];
+  const everIssuedIds = new Set(issued.map((c) => c.boardId));
   return boards.map((b) => {
     const counts = countWays(b.phases, byBoard.get(b.id) ?? []);
     return {
@@ -83,24 +100,76 @@ export async function listBoards(actor: Actor, opts: { siteId?: string } = {}): 
       wayCount: counts.ways,
       counts,
       updatedAt: b.updatedAt.toISOString(),
+      archivedAt: (b.archivedAt ?? (b as Board & { site?: Site }).site?.archivedAt)?.toISOString() ?? null,
+      everIssued: everIssuedIds.has(b.id),
     };
   });
 }
 
-/** The board row of the caller's organisation, or 404 (never another organisation's). */
+/**
+ * The board row of the caller's organisation, or 404 (never another organisation's, nor a
+ * deleted one unless `deleted` asks for it: undo needs it).
+ */
 export async function findBoard(
   actor: Actor,
   boardId: string,
-  opts: { transaction?: Transaction; lock?: boolean } = {},
+  opts: { transaction?: Transaction; lock?: boolean; deleted?: boolean } = {},
 ): Promise<Board> {
   db();
   const board = await Board.findOne({
-    where: { id: boardId, organisationId: actor.organisationId },
+    where: { id: boardId, organisationId: actor.organisationId, ...(opts.deleted ? {} : { deletedAt: null }) },
     transaction: opts.transaction,
     lock: opts.lock ? opts.transaction?.LOCK.UPDATE : undefined,
   });
   if (!board) throw notFound('The board');
   return board;
+}
+
+/** When and by whom a board was archived (itself, or through its site); null when it is not. */
+export type ArchiveState = { at: string; byName: string; through: 'board' | 'site' } | null;
+
+/** A board's archive state, for its pages (the "archived" banner) and for refusals. */
+export async function archiveStateOf(board: Board, transaction?: Transaction): Promise<ArchiveState> {
+  let at = board.archivedAt;
+  let by = board.archivedById;
+  let through: 'board' | 'site' = 'board';
+  if (!at) {
+    const site = await Site.findByPk(board.siteId, { attributes: ['archivedAt', 'archivedById'], transaction });
+    if (!site?.archivedAt) return null;
+    [at, by, through] = [site.archivedAt, site.archivedById, 'site'];
+  }
+  const who = by ? await User.findByPk(by, { attributes: ['name'], transaction }) : null;
+  return { at: at.toISOString(), byName: who?.name ?? 'A former member', through };
+}
+
+/** The archive state of one board of the caller's organisation (404 otherwise). */
+export async function getArchiveState(actor: Actor, boardId: string): Promise<ArchiveState> {
+  return archiveStateOf(await findBoard(actor, boardId));
+}
+
+/** 409 for any change to an archived board (or a board on an archived site): it is read-only. */
+export async function assertNotArchived(board: Board, transaction?: Transaction): Promise<void> {
+  const state = await archiveStateOf(board, transaction);
+  if (state) {
+    throw conflict(
+      state.through === 'site'
+        ? 'This board’s site is archived, so the board is read-only; an admin may restore the site.'
+        : 'This board is archived, so it is read-only; an admin may restore it.',
+      { archived: true },
+    );
+  }
+}
+
+/** The board, locked for a change, refusing an archived one (409). */
+export async function findWritableBoard(actor: Actor, boardId: string, transaction: Transaction): Promise<Board> {
+  const board = await findBoard(actor, boardId, { transaction, lock: true });
+  await assertNotArchived(board, transaction);
+  return board;
+}
+
+/** Whether the board has an issued revision (then it is kept for good). */
+export async function everIssued(boardId: string, transaction?: Transaction): Promise<boolean> {
+  return (await BoardRevision.count({ where: { boardId }, transaction })) > 0;
 }
 
 /** A timestamp column as the ISO text `Date.toISOString` gives (the DTO's form). */
@@ -111,7 +180,7 @@ export type BoardStamp = { version: number; updatedAt: string };
 
 /** That the board is the caller's organisation's, or 404: one small named statement. */
 export async function requireBoard(actor: Actor, boardId: string): Promise<void> {
-  const rows = await namedQuery('board-owned', 'select 1 from boards where id = $1 and organisation_id = $2', [
+  const rows = await namedQuery('board-owned', 'select 1 from boards where id = $1 and organisation_id = $2 and deleted_at is null', [
     boardId,
     actor.organisationId,
   ]);
@@ -147,7 +216,7 @@ const BOARD_DTO_JSON = `json_build_object(
 const BOARD_UNLESS_SQL = `
 SELECT b.version, ${isoSql('b.updated_at')} AS "updatedAt",
   CASE WHEN b.version = $3 AND ${isoSql('b.updated_at')} = $4 THEN NULL ELSE ${BOARD_DTO_JSON} END AS dto
-FROM boards b WHERE b.id = $1 AND b.organisation_id = $2`;
+FROM boards b WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`;
 
 /**
  * The caller's organisation's board (404 otherwise), in one named statement: its stamp, and
@@ -177,9 +246,10 @@ export async function getBoard(actor: Actor, boardId: string): Promise<BoardDto>
 
 export async function createBoard(actor: Actor, input: BoardCreateInput): Promise<BoardDto> {
   const site = await findSite(actor, input.siteId);
+  if (site.archivedAt) throw conflict('This site is archived; an admin may restore it before boards are added.');
   const board = await db().transaction(async (transaction) => {
     const created = await Board.create(
-      { ...input, organisationId: actor.organisationId, createdById: actor.userId },
+      { ...input, organisationId: actor.organisationId, createdById: actor.userId, designChangedById: actor.userId },
       { transaction },
     );
     await audit(actor, 'board.created', { name: input.name }, { boardId: created.id, transaction });
@@ -194,19 +264,74 @@ export async function renameBoard(
   input: { name?: string; location?: string },
 ): Promise<BoardDto> {
   await db().transaction(async (transaction) => {
-    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    const board = await findWritableBoard(actor, boardId, transaction);
     await board.update({ ...input, version: board.version + 1 }, { transaction });
     await audit(actor, 'board.renamed', input, { boardId, transaction });
   });
   return getBoard(actor, boardId);
 }
 
-export async function deleteBoard(actor: Actor, boardId: string): Promise<void> {
+/**
+ * Removes a board (lib/boards/record-rules.ts boardRemoval): a board never issued is deleted
+ * (hidden everywhere, its rows kept so that the delete can be undone); a board ever issued is
+ * archived, by an admin only. The version moves on, so an editor still open cannot save it.
+ */
+export async function removeBoard(actor: Actor, boardId: string): Promise<{ effect: 'deleted' | 'archived' }> {
+  return db().transaction(async (transaction) => {
+    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    const rule = boardRemoval(actor.role, {
+      everIssued: await everIssued(boardId, transaction),
+      archived: (await archiveStateOf(board, transaction)) !== null,
+    });
+    if (rule.refused) throw new HttpError(rule.status, rule.message);
+    const now = new Date();
+    if (rule.effect === 'delete') {
+      await board.update({ deletedAt: now, deletedById: actor.userId, version: board.version + 1 }, { transaction });
+      await audit(actor, 'board.deleted', { name: board.name }, { boardId, transaction });
+      return { effect: 'deleted' as const };
+    }
+    await board.update({ archivedAt: now, archivedById: actor.userId, version: board.version + 1 }, { transaction });
+    await audit(actor, 'board.archived', { name: board.name, revision: board.revision }, { boardId, transaction });
+    return { effect: 'archived' as const };
+  });
+}
+
+/** Archives a board (admins: records.archive), issued or not. */
+export async function archiveBoard(actor: Actor, boardId: string): Promise<void> {
+  if (!mayRestore(actor.role, 'archived')) throw forbidden('archive boards');
   await db().transaction(async (transaction) => {
     const board = await findBoard(actor, boardId, { transaction, lock: true });
-    await audit(actor, 'board.deleted', { name: board.name }, { boardId, transaction });
-    await board.destroy({ transaction });
+    if (board.archivedAt) throw conflict('This board is archived already.');
+    await board.update(
+      { archivedAt: new Date(), archivedById: actor.userId, version: board.version + 1 },
+      { transaction },
+    );
+    await audit(actor, 'board.archived', { name: board.name, revision: board.revision }, { boardId, transaction });
   });
+}
+
+/** Brings an archived board back into the lists (admins). */
+export async function restoreBoard(actor: Actor, boardId: string): Promise<BoardDto> {
+  if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived boards');
+  await db().transaction(async (transaction) => {
+    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    if (!board.archivedAt) throw conflict('This board is not archived.');
+    await board.update({ archivedAt: null, archivedById: null, version: board.version + 1 }, { transaction });
+    await audit(actor, 'board.restored', { name: board.name }, { boardId, transaction });
+  });
+  return getBoard(actor, boardId);
+}
+
+/** Undoes the delete of a draft board: it comes back as it was. */
+export async function undeleteBoard(actor: Actor, boardId: string): Promise<BoardDto> {
+  if (!mayRestore(actor.role, 'deleted')) throw forbidden('restore deleted boards');
+  await db().transaction(async (transaction) => {
+    const board = await findBoard(actor, boardId, { transaction, lock: true, deleted: true });
+    if (!board.deletedAt) throw conflict('This board is not deleted.');
+    await board.update({ deletedAt: null, deletedById: null, version: board.version + 1 }, { transaction });
+    await audit(actor, 'board.undeleted', { name: board.name }, { boardId, transaction });
+  });
+  return getBoard(actor, boardId);
 }
 
 /** What changed between the stored ways and the saved ones, for the audit trail. */
@@ -246,8 +371,10 @@ WITH b AS (
     enclosure_modules = $9, rails = $10, dwelling = $11,
     status = CASE WHEN $12 THEN 'draft' ELSE status END,
     revision = revision + CASE WHEN $12 THEN 1 ELSE 0 END,
-    version = version + 1, updated_at = now()
+    version = version + 1, updated_at = now(), design_changed_by_id = $16
   WHERE id = $1 AND organisation_id = $2 AND version = $3 AND status = $13
+    AND archived_at IS NULL AND deleted_at IS NULL
+    AND NOT EXISTS (SELECT 1 FROM sites s WHERE s.id = boards.site_id AND s.archived_at IS NOT NULL)
   RETURNING version, revision, status,
     ${isoSql('updated_at')} AS updated_at
 ),
@@ -307,7 +434,13 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
       throw conflict('The board is in review; it can be changed once the inspector returns it.');
     }
   };
-  refuse(stored);
+  try {
+    refuse(stored);
+  } catch (err) {
+    // An archive also moves the version on: say that it is archived, not that someone saved
+    await assertNotArchived(await findBoard(actor, boardId));
+    throw err;
+  }
   const diff = diffWays(stored.ways, input.ways);
   const added = new Set(diff.added);
   const touched = new Set([...diff.changed, ...diff.moved]);
@@ -363,7 +496,8 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
     throw err;
   }
   if (!rows.length) {
-    // The board changed (or went) between the read and the write: say why, as a first save would
+    // The board changed, was archived or went between the read and the write: say why
+    await assertNotArchived(await findBoard(actor, boardId));
     refuse(await getBoard(actor, boardId));
     throw conflict('Someone else changed this board after you opened it.');
   }

@@ -4,12 +4,13 @@ import { Op } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { layoutWays, railOrder } from '@/lib/boards/layout';
+import { labelChangeUnverifies, statusAfterLabels } from '@/lib/boards/record-rules';
 import { labelTextOf, type SnapshotWay } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
 import { db } from '@/lib/db';
 import { listAttachments, type AttachmentDto } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
-import { findBoard } from '@/lib/dal/boards';
+import { assertNotArchived, findBoard } from '@/lib/dal/boards';
 import { conflict, notFound } from '@/lib/errors';
 import { Board, Site, User, Way } from '@/models';
 import type { BoardStatus } from '@/models/board';
@@ -117,12 +118,20 @@ export async function recordLabel(
   actor: Actor,
   boardId: string,
   wayId: string,
-  input: { status: Exclude<LabelStatus, 'unchecked'>; note?: string },
+  input: { status: Exclude<LabelStatus, 'unchecked'>; note?: string; confirmStateChange?: boolean },
 ): Promise<{ boardStatus: BoardStatus; progress: WalkProgress }> {
   return db().transaction(async (transaction) => {
     // Lock the board so that saves and other walkers wait their turn
     const board = await findBoard(actor, boardId, { transaction, lock: true });
     assertWalkable(board);
+    await assertNotArchived(board, transaction);
+    // A board whose labels were all confirmed changes state only when the walker said so
+    if (labelChangeUnverifies(board.status, input.status) && !input.confirmStateChange) {
+      throw conflict(
+        `Every label on this board was confirmed. Recording this one as ${input.status} takes the board from labels matched on site back to issued; confirm to go on.`,
+        { needsConfirmation: true, from: 'labels-matched', to: 'issued' },
+      );
+    }
     const way = await Way.findOne({ where: { id: wayId, boardId }, transaction });
     if (!way) throw notFound('The way');
     // Record the result
@@ -135,17 +144,23 @@ export async function recordLabel(
       },
       { transaction },
     );
-    await audit(actor, 'label.checked', { wayId, status: input.status }, { boardId, transaction });
-    // Labels matched when every label matches; back to issued otherwise
+    // The audit trail keeps every check with its note (a later revision may remove the way)
+    await audit(
+      actor,
+      'label.checked',
+      { wayId, status: input.status, note: input.note?.trim() ?? '', revision: board.revision },
+      { boardId, transaction },
+    );
+    // Labels matched when every label matches; back to issued otherwise (lib/boards/record-rules.ts)
     const statuses = (await Way.findAll({ where: { boardId }, attributes: ['labelStatus'], transaction })).map(
       (w) => w.labelStatus,
     );
     const progress = walkProgress(statuses);
-    const allMatch = progress.total > 0 && progress.matches === progress.total;
-    if (allMatch && board.status === 'issued') {
+    const next = statusAfterLabels(board.status, statuses);
+    if (next === 'labels-matched' && board.status === 'issued') {
       await board.update({ status: 'labels-matched' }, { transaction });
       await audit(actor, 'board.labels-matched', { revision: board.revision }, { boardId, transaction });
-    } else if (!allMatch && board.status === 'labels-matched') {
+    } else if (next === 'issued' && board.status === 'labels-matched') {
       await board.update({ status: 'issued' }, { transaction });
       await audit(actor, 'board.labels-unmatched', { revision: board.revision, wayId }, { boardId, transaction });
     }

@@ -4,6 +4,7 @@ import { Op, type Transaction } from 'sequelize';
 
 import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
+import { issueRefusal, sameName, type Refusal } from '@/lib/boards/record-rules';
 import { layoutWays } from '@/lib/boards/layout';
 import {
   diffRevisions,
@@ -16,9 +17,9 @@ import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { sizeSnapshot, sizeStoredBoard } from '@/lib/dal/board-sizing';
-import { findBoard, getBoard } from '@/lib/dal/boards';
+import { assertNotArchived, findBoard, findWritableBoard, getBoard } from '@/lib/dal/boards';
 import { env } from '@/lib/env';
-import { badRequest, conflict, forbidden, notFound, unprocessable, type FieldIssue } from '@/lib/errors';
+import { badRequest, conflict, forbidden, HttpError, notFound, unprocessable, type FieldIssue } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { BOARD_STATUS_PHRASES, wayTitle } from '@/lib/names';
 import type { BoardResult } from '@/lib/sizing';
@@ -43,9 +44,29 @@ export type CommentDto = {
   body: string;
   authorName: string;
   createdAt: string;
+  /** When the designer marked it answered; null while open. */
+  answeredAt: string | null;
 };
 
-export type RevisionSummary = { revision: number; issuedAt: string; issuedByName: string };
+export type RevisionSummary = {
+  revision: number;
+  issuedAt: string;
+  issuedByName: string;
+  /** The issuer's typed name (null for revisions issued before declarations were asked). */
+  declaration: string | null;
+};
+
+/** What an issue would issue now, for the confirmation, and whether the caller may. */
+export type IssuePreview = {
+  /** The revision number the board would be issued as. */
+  revision: number;
+  /** Devices on the rail, and ways with a circuit. */
+  devices: number;
+  circuits: number;
+  verdicts: { passes: number; nearLimit: number; fails: number };
+  /** Why the caller may not issue it (separation of duties), or null. */
+  refusal: Refusal | null;
+};
 
 /** Everything the review page shows. */
 export type ReviewData = {
@@ -58,6 +79,7 @@ export type ReviewData = {
   refs: Record<string, string | null>;
   comments: CommentDto[];
   revisions: RevisionSummary[];
+  issue: IssuePreview;
 };
 
 
@@ -97,6 +119,7 @@ function commentDto(c: Comment & { author?: User }): CommentDto {
     body: c.body,
     authorName: c.author?.name ?? 'A former member',
     createdAt: c.createdAt.toISOString(),
+    answeredAt: c.answeredAt ? c.answeredAt.toISOString() : null,
   };
 }
 
@@ -116,7 +139,7 @@ export async function listRevisions(actor: Actor, boardId: string): Promise<Revi
   await findBoard(actor, boardId);
   const rows = await BoardRevision.findAll({
     where: { boardId },
-    attributes: ['revision', 'issuedAt', 'issuedById'],
+    attributes: ['revision', 'issuedAt', 'issuedById', 'declaration'],
     include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
     order: [['revision', 'DESC']],
   });
@@ -124,19 +147,45 @@ export async function listRevisions(actor: Actor, boardId: string): Promise<Revi
     revision: r.revision,
     issuedAt: r.issuedAt.toISOString(),
     issuedByName: (r as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member',
+    declaration: r.declaration,
   }));
+}
+
+/** The revision number a board in review would be issued as: its own, unless that one was issued. */
+async function nextRevision(board: Board, transaction?: Transaction): Promise<number> {
+  const last = ((await BoardRevision.max('revision', { where: { boardId: board.id }, transaction })) as number | null) ?? 0;
+  return Math.max(board.revision, last + 1);
+}
+
+/** Separation of duties for this issuer and board (lib/boards/record-rules.ts issueRefusal). */
+async function issueRefusalFor(actor: Actor, board: Board, transaction?: Transaction): Promise<Refusal | null> {
+  const org = await Organisation.findByPk(actor.organisationId, { attributes: ['allowSelfIssue'], transaction });
+  return issueRefusal({
+    issuerId: actor.userId,
+    designChangedById: board.designChangedById,
+    allowSelfIssue: org?.allowSelfIssue ?? false,
+  });
 }
 
 /** The review page's data: the board, its sizing, comments and issued revisions. */
 export async function getReview(actor: Actor, boardId: string): Promise<ReviewData> {
   const board = await getBoard(actor, boardId);
-  const [orgName, comments, revisions] = await Promise.all([
+  const [orgName, comments, revisions, row] = await Promise.all([
     organisationName(actor),
     listComments(actor, boardId),
     listRevisions(actor, boardId),
+    findBoard(actor, boardId),
   ]);
   const { sizing, issues } = sizeStoredBoard(board);
   const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  const counts = sizing?.summary.counts;
+  const issue: IssuePreview = {
+    revision: await nextRevision(row),
+    devices: board.ways.length,
+    circuits: board.ways.filter((w) => w.circuit).length,
+    verdicts: { passes: counts?.passes ?? 0, nearLimit: counts?.nearLimit ?? 0, fails: counts?.fails ?? 0 },
+    refusal: await issueRefusalFor(actor, row),
+  };
   return {
     board,
     organisationName: orgName,
@@ -145,6 +194,7 @@ export async function getReview(actor: Actor, boardId: string): Promise<ReviewDa
     refs,
     comments,
     revisions,
+    issue,
   };
 }
 
@@ -162,6 +212,7 @@ export async function addComment(
   if (!mayComment(actor)) throw forbidden('comment on boards');
   const created = await db().transaction(async (transaction) => {
     const board = await findBoard(actor, boardId, { transaction });
+    await assertNotArchived(board, transaction);
     const wayId = input.wayId ?? null;
     if (wayId) {
       const onBoard = await Way.count({ where: { id: wayId, boardId }, transaction });
@@ -235,21 +286,37 @@ function boardUrl(boardId: string): string {
   return new URL(`/boards/${boardId}`, env().APP_URL).href;
 }
 
+/** The designer's view of a returned board's review: the editor, opened at the review notes. */
+function returnedReviewUrl(boardId: string): string {
+  return new URL(`/boards/${boardId}#review-notes`, env().APP_URL).href;
+}
+
 /**
  * Approves a board in review: it becomes issued with the next revision number, and the
- * board and its sizing are frozen in a BoardRevision. A board with failing ways is issued
- * only when the reviewer says so. The designers are e-mailed.
+ * board and its sizing are frozen in a BoardRevision with the issuer's declaration (their
+ * name, typed). Someone other than the last person to change the design issues it, unless
+ * the organisation allows self-issue. A board with failing ways is issued only when the
+ * reviewer says so. The designers are e-mailed.
  */
 export async function approveBoard(
   actor: Actor,
   boardId: string,
-  input: { acknowledgeFailures?: boolean } = {},
+  input: { acknowledgeFailures?: boolean; declaration: string; revision?: number },
 ): Promise<{ revision: number; status: BoardStatus }> {
   return db().transaction(async (transaction) => {
     // Lock the board and check its stage
-    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    const board = await findWritableBoard(actor, boardId, transaction);
     if (board.status !== 'in-review') {
       throw conflict(`Only a board in review can be approved; this board is ${BOARD_STATUS_PHRASES[board.status]}.`);
+    }
+    // Separation of duties, then the declaration
+    const refusal = await issueRefusalFor(actor, board, transaction);
+    if (refusal) throw new HttpError(refusal.status, refusal.message);
+    if (!sameName(input.declaration, actor.name)) {
+      throw badRequest(
+        [{ path: 'declaration', message: `Type your own name (${actor.name}) to confirm that you issue this board.` }],
+        'The declaration does not match your name.',
+      );
     }
     // Freeze the board and size it
     const snapshot = await liveSnapshot(actor, board, transaction);
@@ -262,15 +329,32 @@ export async function approveBoard(
       );
     }
     // The next revision number: the draft's, unless that one was issued already
-    const last = ((await BoardRevision.max('revision', { where: { boardId }, transaction })) as number | null) ?? 0;
-    const revision = Math.max(board.revision, last + 1);
+    const revision = await nextRevision(board, transaction);
+    if (input.revision !== undefined && input.revision !== revision) {
+      throw conflict(`The board would now be issued as revision ${revision}, not ${input.revision}; look at it again.`);
+    }
     const issuedAt = new Date();
+    const declaration = input.declaration.trim();
     await BoardRevision.create(
-      { boardId, revision, snapshot, sizing, issuedById: actor.userId, issuedAt },
+      { boardId, revision, snapshot, sizing, issuedById: actor.userId, issuedAt, declaration },
       { transaction },
     );
     await board.update({ status: 'issued', revision, version: board.version + 1 }, { transaction });
-    await audit(actor, 'review.approved', { revision }, { boardId, transaction });
+    const { passes, nearLimit, fails } = sizing.summary.counts;
+    await audit(
+      actor,
+      'review.approved',
+      {
+        revision,
+        declaration,
+        devices: snapshot.ways.length,
+        circuits: snapshot.ways.filter((w) => w.circuit).length,
+        verdicts: { passes, nearLimit, fails },
+        acknowledgedFailures: fails > 0,
+        designChangedById: board.designChangedById,
+      },
+      { boardId, transaction },
+    );
     // Tell the designers
     const lines = await commentLines(board, transaction);
     for (const to of await designerAddresses(board, transaction)) {
@@ -281,6 +365,7 @@ export async function approveBoard(
           subject: `Issued: ${board.name}, revision ${revision}`,
           text: [
             `${actor.name} approved ${board.name} (${snapshot.siteName}). It is issued as revision ${revision}.`,
+            `Declared by ${declaration}.`,
             '',
             ...(lines.length ? ['Comments on this revision:', ...lines, ''] : []),
             `Board: ${boardUrl(boardId)}`,
@@ -305,7 +390,7 @@ export async function returnBoard(
 ): Promise<{ revision: number; status: BoardStatus }> {
   return db().transaction(async (transaction) => {
     // Lock the board and check its stage
-    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    const board = await findWritableBoard(actor, boardId, transaction);
     if (board.status !== 'in-review') {
       throw conflict(`Only a board in review can be returned; this board is ${BOARD_STATUS_PHRASES[board.status]}.`);
     }
@@ -337,7 +422,7 @@ export async function returnBoard(
             '',
             ...lines,
             '',
-            `Board: ${boardUrl(boardId)}`,
+            `Read the comments beside the ways they are about: ${returnedReviewUrl(boardId)}`,
           ].join('\n'),
         },
         transaction,
@@ -582,4 +667,71 @@ export async function boardStage(
 ): Promise<{ status: BoardStatus; revision: number; name: string }> {
   const board = await findBoard(actor, boardId);
   return { status: board.status, revision: board.revision, name: board.name };
+}
+
+/** A returned board's review as the designer reads it in the editor. */
+export type ReturnNotes = {
+  revision: number;
+  returnedByName: string;
+  returnedAt: string;
+  /** Comments on the whole board: the reason for the return, open ones only. */
+  reasons: CommentDto[];
+  /** Open comments on single ways, to show beside them. */
+  wayComments: CommentDto[];
+  /** How many comments of this return are answered already. */
+  answered: number;
+};
+
+/**
+ * The review of a board that was returned for its current revision and is a draft again: who
+ * returned it and when, and the comments of that revision still open (the designer marks
+ * them answered). Null when the board was not returned, or every comment is answered.
+ */
+export async function getReturnNotes(actor: Actor, boardId: string): Promise<ReturnNotes | null> {
+  const board = await findBoard(actor, boardId);
+  if (board.status !== 'draft') return null;
+  const returned = await AuditEvent.findOne({
+    where: { boardId, organisationId: actor.organisationId, action: 'review.returned' },
+    order: [['id', 'DESC']],
+  });
+  if (!returned || Number(returned.details.revision) !== board.revision) return null;
+  const comments = await Comment.findAll({
+    where: { boardId, revision: board.revision },
+    include: [{ model: User, as: 'author', attributes: ['name'] }],
+    order: [['createdAt', 'ASC']],
+  });
+  const open = comments.filter((c) => !c.answeredAt).map(commentDto);
+  if (!open.length) return null;
+  const who = returned.userId ? await User.findByPk(returned.userId, { attributes: ['name'] }) : null;
+  return {
+    revision: board.revision,
+    returnedByName: who?.name ?? 'A former member',
+    returnedAt: returned.createdAt.toISOString(),
+    reasons: open.filter((c) => !c.wayId),
+    wayComments: open.filter((c) => c.wayId),
+    answered: comments.length - open.length,
+  };
+}
+
+/** Marks comments of a board answered (the designer has dealt with them). */
+export async function answerComments(actor: Actor, boardId: string, commentIds: string[]): Promise<{ answered: number }> {
+  if (!can(actor.role, 'comments.answer')) throw forbidden('mark review comments answered');
+  return db().transaction(async (transaction) => {
+    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    await assertNotArchived(board, transaction);
+    const ids = [...new Set(commentIds)];
+    const found = await Comment.findAll({ where: { boardId, id: { [Op.in]: ids } }, transaction });
+    if (found.length !== ids.length) {
+      throw badRequest([{ path: 'commentIds', message: 'Some of those comments are not on this board.' }]);
+    }
+    const open = found.filter((c) => !c.answeredAt);
+    if (open.length) {
+      await Comment.update(
+        { answeredAt: new Date(), answeredById: actor.userId },
+        { where: { id: { [Op.in]: open.map((c) => c.id) } }, transaction },
+      );
+      await audit(actor, 'comments.answered', { commentIds: open.map((c) => c.id) }, { boardId, transaction });
+    }
+    return { answered: open.length };
+  });
 }

@@ -1,13 +1,14 @@
 import 'server-only';
 
-import type { WhereOptions } from 'sequelize';
+import { Op, type WhereOptions } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
+import { mayRestore, siteRemoval } from '@/lib/boards/record-rules';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { notFound } from '@/lib/errors';
+import { conflict, forbidden, HttpError, notFound } from '@/lib/errors';
 import type { SiteInput } from '@/lib/sites/schemas';
-import { Board, Site } from '@/models';
+import { Board, BoardRevision, Site, User } from '@/models';
 
 // The schema lives in lib/sites/schemas.ts so the browser form can share it.
 export { siteInputSchema, type SiteInput } from '@/lib/sites/schemas';
@@ -19,9 +20,11 @@ export type SiteSummary = {
   client: string;
   boardCount: number;
   updatedAt: string;
+  /** When the site was archived, and by whom; null for a live site. */
+  archived: { at: string; byName: string } | null;
 };
 
-function toSummary(site: Site, boardCount: number): SiteSummary {
+function toSummary(site: Site, boardCount: number, archivedByName = 'A former member'): SiteSummary {
   return {
     id: site.id,
     name: site.name,
@@ -29,22 +32,35 @@ function toSummary(site: Site, boardCount: number): SiteSummary {
     client: site.client,
     boardCount,
     updatedAt: site.updatedAt.toISOString(),
+    archived: site.archivedAt ? { at: site.archivedAt.toISOString(), byName: archivedByName } : null,
   };
 }
 
-/** The organisation's sites with their board counts. */
-export async function listSites(actor: Actor): Promise<SiteSummary[]> {
+/** The names of the people who archived these sites. */
+async function archiverNames(sites: Site[]): Promise<Map<string, string>> {
+  const ids = [...new Set(sites.map((s) => s.archivedById).filter((id): id is string => !!id))];
+  if (!ids.length) return new Map();
+  const people = await User.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'name'] });
+  return new Map(people.map((u) => [u.id, u.name]));
+}
+
+/** Live boards: neither deleted nor archived (what a site's board count counts). */
+const liveBoards = { deletedAt: null, archivedAt: null };
+
+/** The organisation's live sites (or, with `archived`, the archived ones) with their board counts. */
+export async function listSites(actor: Actor, opts: { archived?: boolean } = {}): Promise<SiteSummary[]> {
   db();
   const sites = await Site.findAll({
-    where: { organisationId: actor.organisationId },
+    where: { organisationId: actor.organisationId, archivedAt: opts.archived ? { [Op.ne]: null } : null },
     order: [['name', 'ASC']],
   });
   const counts = (await Board.count({
-    where: { organisationId: actor.organisationId },
+    where: { organisationId: actor.organisationId, deletedAt: null, ...(opts.archived ? {} : { archivedAt: null }) },
     group: ['siteId'],
   })) as unknown as { siteId: string; count: number }[];
   const bySite = new Map(counts.map((c) => [c.siteId, Number(c.count)]));
-  return sites.map((s) => toSummary(s, bySite.get(s.id) ?? 0));
+  const names = await archiverNames(sites);
+  return sites.map((s) => toSummary(s, bySite.get(s.id) ?? 0, names.get(s.archivedById ?? '')));
 }
 
 /** One site of the caller's organisation, or 404. */
@@ -58,8 +74,10 @@ export async function findSite(actor: Actor, siteId: string): Promise<Site> {
 
 export async function getSite(actor: Actor, siteId: string): Promise<SiteSummary> {
   const site = await findSite(actor, siteId);
-  const count = await Board.count({ where: { siteId: site.id } });
-  return toSummary(site, count);
+  const count = await Board.count({
+    where: { siteId: site.id, ...(site.archivedAt ? { deletedAt: null } : liveBoards) },
+  });
+  return toSummary(site, count, (await archiverNames([site])).get(site.archivedById ?? ''));
 }
 
 export async function createSite(actor: Actor, input: SiteInput): Promise<SiteSummary> {
@@ -80,6 +98,7 @@ export async function updateSite(
   input: Partial<SiteInput>,
 ): Promise<SiteSummary> {
   const site = await findSite(actor, siteId);
+  if (site.archivedAt) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
   await db().transaction(async (transaction) => {
     await site.update(input, { transaction });
     await audit(actor, 'site.renamed', { siteId, ...input }, { transaction });
@@ -87,11 +106,65 @@ export async function updateSite(
   return getSite(actor, siteId);
 }
 
-export async function deleteSite(actor: Actor, siteId: string): Promise<void> {
-  const site = await findSite(actor, siteId);
+/**
+ * Archives a site: it and its boards leave the lists and become read-only, nothing is
+ * removed (lib/boards/record-rules.ts siteRemoval: a site holding an issued board, admins
+ * only). The site row is locked, and so are its boards, so that no save lands half-way.
+ */
+export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSummary> {
+  await findSite(actor, siteId);
   await db().transaction(async (transaction) => {
-    await site.destroy({ transaction });
-    await audit(actor, 'site.deleted', { siteId, name: site.name }, { transaction });
+    const site = await Site.findOne({
+      where: { id: siteId, organisationId: actor.organisationId },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
+    if (!site) throw notFound('The site');
+    const boards = await Board.findAll({ where: { siteId }, transaction, lock: transaction.LOCK.UPDATE });
+    const issued = boards.length
+      ? await BoardRevision.count({ where: { boardId: { [Op.in]: boards.map((b) => b.id) } }, transaction })
+      : 0;
+    const rule = siteRemoval(actor.role, { holdsIssued: issued > 0, archived: !!site.archivedAt });
+    if (rule.refused) throw new HttpError(rule.status, rule.message);
+    await site.update({ archivedAt: new Date(), archivedById: actor.userId }, { transaction });
+    // Every board's version moves on: an editor still open cannot save into an archived site
+    if (boards.length) await Board.increment('version', { by: 1, where: { siteId }, transaction });
+    const live = boards.filter((b) => !b.deletedAt && !b.archivedAt);
+    await audit(
+      actor,
+      'site.archived',
+      { siteId, name: site.name, boards: live.map((b) => ({ id: b.id, name: b.name })) },
+      { transaction },
+    );
+    // Each board's own trail says so too
+    for (const b of live) {
+      await audit(actor, 'board.archived', { name: b.name, revision: b.revision, siteId, site: site.name }, {
+        boardId: b.id,
+        transaction,
+      });
+    }
   });
+  return getSite(actor, siteId);
+}
+
+/** Brings an archived site, and the boards it held, back into the lists (admins). */
+export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSummary> {
+  if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived sites');
+  await findSite(actor, siteId);
+  await db().transaction(async (transaction) => {
+    const site = await Site.findOne({
+      where: { id: siteId, organisationId: actor.organisationId },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
+    if (!site?.archivedAt) throw conflict('This site is not archived.');
+    await site.update({ archivedAt: null, archivedById: null }, { transaction });
+    await audit(actor, 'site.restored', { siteId, name: site.name }, { transaction });
+    const boards = await Board.findAll({ where: { siteId, deletedAt: null, archivedAt: null }, transaction });
+    for (const b of boards) {
+      await audit(actor, 'board.restored', { name: b.name, siteId, site: site.name }, { boardId: b.id, transaction });
+    }
+  });
+  return getSite(actor, siteId);
 }
 

@@ -286,6 +286,10 @@ describe('the board editor', () => {
 
       await openEditor(page, boardId);
       await page.getByRole('button', { name: 'Send for review' }).click();
+      // "Send for review" confirms first, saying what goes
+      const confirm = page.getByRole('dialog', { name: 'Send Editor review check for review?' });
+      await expect(confirm.textContent()).resolves.toMatch(/Revision 1: 1 device on the rail, 1 circuit/);
+      await confirm.getByRole('button', { name: 'Send for review' }).click();
       const refusal = page.getByRole('dialog', { name: 'Not sent for review' });
       await expect(refusal.textContent()).resolves.toMatch(/Way 1.*Workshop alarm sounder/);
       await refusal.getByRole('button', { name: 'Show them on the board' }).click();
@@ -293,6 +297,7 @@ describe('the board editor', () => {
       await page.getByRole('region', { name: 'Way panel' }).getByLabel('Length (m)').fill('20');
       await expect.poll(() => page.locator(`[data-way-id="${way.id}"] [data-verdict]`).getAttribute('data-verdict')).not.toBe('fails');
       await page.getByRole('button', { name: 'Send for review' }).click();
+      await page.getByRole('dialog', { name: /for review\?$/ }).getByRole('button', { name: 'Send for review' }).click();
       await expect.poll(() => page.getByText('In review', { exact: true }).count()).toBeGreaterThan(0);
       await expect(page.getByText(/In review: the board can be changed again/).count()).resolves.toBe(1);
       expect(await page.getByRole('region', { name: 'Device tray' }).count()).toBe(0);

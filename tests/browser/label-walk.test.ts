@@ -12,7 +12,7 @@ import { db } from '@/lib/db';
 import { Board, Organisation, Site, Way } from '@/models';
 import { DEMO_ORG, DEMO_SITE, FLAT_BOARD, demoWays } from '@/scripts/demo-data';
 
-import { APP_URL, openBrowser, signIn } from './helpers';
+import { APP_URL, demoUser, openBrowser, signIn } from './helpers';
 
 let boardId: string;
 let boardName: string;
@@ -51,6 +51,11 @@ describe('review and label walk', () => {
       await page.goto(`${APP_URL}/boards/${boardId}/review`);
       await expect.poll(() => page.getByRole('heading', { name: `Review: ${boardName}` }).count()).toBe(1);
       await page.getByRole('button', { name: 'Approve and issue' }).click();
+      // The confirmation asks for the issuer's name (tests/browser/records.test.ts covers it)
+      await page.getByLabel('Your full name').fill(demoUser('inspector').name);
+      const ticks = page.getByRole('checkbox', { name: /I issue the board as it is/ });
+      if (await ticks.count()) await ticks.check();
+      await page.getByRole('button', { name: 'Issue revision 1' }).click();
       await page.getByText('Issued as revision 1').waitFor();
       expect((await Board.findByPk(boardId))!.status).toBe('issued');
     } finally {
@@ -140,6 +145,14 @@ describe('review and label walk', () => {
       await expect(summary.getByText('None: every label checked matches the schedule.').count()).resolves.toBe(1);
       await summary.getByRole('img', { name: /^Photo of way/ }).waitFor();
       expect(await page.locator('[data-sonner-toast]:not([data-removed="true"])').count()).toBeLessThanOrEqual(1);
+      // Every label confirmed: back on a way, a label found missing says the board's state will change, first
+      await page.getByRole('button', { name: 'Previous' }).click();
+      await page.getByRole('button', { name: 'Label is missing' }).click();
+      const ask = page.getByRole('dialog', { name: 'This changes the board’s state' });
+      await expect(ask.textContent()).resolves.toMatch(/labels matched on site.*back to issued/);
+      await ask.getByRole('button', { name: 'Keep the labels matched' }).click();
+      await expect.poll(() => ask.count(), { timeout: 15_000 }).toBe(0);
+      expect((await Board.findByPk(boardId))!.status).toBe('labels-matched');
     } finally {
       await second.close();
     }

@@ -21,6 +21,8 @@ const boards: BoardSummary[] = [
     wayCount: 12,
     counts: { ways: 12, circuits: 30, spare: 6, positions: 36 },
     updatedAt: '2025-03-02T10:00:00.000Z',
+    archivedAt: null,
+    everIssued: false,
   },
   {
     id: 'bbbbbbbb-bbbb-4bbb-8bbb-bbbbbbbbbbbb',
@@ -34,6 +36,8 @@ const boards: BoardSummary[] = [
     wayCount: 8,
     counts: { ways: 8, circuits: 7, spare: 1, positions: null },
     updatedAt: '2025-03-04T10:00:00.000Z',
+    archivedAt: null,
+    everIssued: false,
   },
   {
     id: 'cccccccc-cccc-4ccc-8ccc-cccccccccccc',
@@ -47,6 +51,8 @@ const boards: BoardSummary[] = [
     wayCount: 4,
     counts: { ways: 4, circuits: 3, spare: 1, positions: null },
     updatedAt: '2025-02-01T10:00:00.000Z',
+    archivedAt: null,
+    everIssued: false,
   },
   {
     id: 'dddddddd-dddd-4ddd-8ddd-dddddddddddd',
@@ -60,6 +66,8 @@ const boards: BoardSummary[] = [
     wayCount: 2,
     counts: { ways: 2, circuits: 1, spare: 1, positions: null },
     updatedAt: '2025-01-10T10:00:00.000Z',
+    archivedAt: null,
+    everIssued: false,
   },
 ];
 

@@ -14,6 +14,7 @@ const saved: SiteSummary = {
   address: '4 Mill Lane, Hexford',
   boardCount: 0,
   updatedAt: '2025-03-02T10:00:00.000Z',
+  archived: null,
 };
 
 afterEach(() => {

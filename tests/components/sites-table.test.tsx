@@ -13,6 +13,7 @@ const sites: SiteSummary[] = [
     address: '4 Mill Lane, Hexford',
     boardCount: 1,
     updatedAt: '2025-03-02T10:00:00.000Z',
+    archived: null,
   },
   {
     id: '22222222-2222-4222-8222-222222222222',
@@ -21,6 +22,7 @@ const sites: SiteSummary[] = [
     address: '4a Mill Lane, Hexford',
     boardCount: 3,
     updatedAt: '2025-01-15T10:00:00.000Z',
+    archived: null,
   },
   {
     id: '33333333-3333-4333-8333-333333333333',
@@ -29,6 +31,7 @@ const sites: SiteSummary[] = [
     address: 'Towpath, Hexford',
     boardCount: 0,
     updatedAt: '2025-02-20T10:00:00.000Z',
+    archived: null,
   },
 ];
 
@@ -109,14 +112,14 @@ describe('SitesTable', () => {
     expect(screen.getByText(/no site matches/i)).toBeTruthy();
   });
 
-  it('links each site to its page and offers edit and delete only to editors', () => {
+  it('links each site to its page and offers edit and archive only to editors', () => {
     const { unmount } = renderTable(true);
     const link = screen.getByRole('link', { name: 'Canal boathouse' });
     expect(link.getAttribute('href')).toBe('/sites/33333333-3333-4333-8333-333333333333');
-    expect(screen.getAllByRole('button', { name: /^delete /i })).toHaveLength(3);
+    expect(screen.getAllByRole('button', { name: /^archive /i })).toHaveLength(3);
     unmount();
     renderTable(false);
-    expect(screen.queryByRole('button', { name: /^delete /i })).toBeNull();
+    expect(screen.queryByRole('button', { name: /^archive /i })).toBeNull();
     expect(screen.queryByRole('button', { name: /^edit /i })).toBeNull();
   });
 

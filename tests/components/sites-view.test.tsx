@@ -49,7 +49,7 @@ describe('SitesView', () => {
     await waitFor(() => expect(fetch).toHaveBeenCalledTimes(2));
   });
 
-  it('asks before deleting and sends DELETE for the chosen site', async () => {
+  it('asks before archiving and sends DELETE, which archives the chosen site', async () => {
     const user = userEvent.setup();
     const site = {
       id: '22222222-2222-4222-8222-222222222222',
@@ -61,15 +61,15 @@ describe('SitesView', () => {
     };
     const fetch = mockFetch(
       json({ sites: [site] }),
-      new Response(null, { status: 204 }),
+      json({ site: { ...site, archived: { at: '2025-02-01T10:00:00.000Z', byName: 'Tom Reyes' } } }),
       json({ sites: [] }),
     );
     renderWithQuery(<SitesView role="designer" />);
-    await user.click(await screen.findByRole('button', { name: 'Delete Flat above the workshop' }));
-    expect(screen.getByRole('dialog', { name: 'Delete this site?' }).textContent).toMatch(
-      /with its board and all their revisions/,
+    await user.click(await screen.findByRole('button', { name: 'Archive Flat above the workshop' }));
+    expect(screen.getByRole('dialog', { name: 'Archive this site?' }).textContent).toMatch(
+      /and its board leave the lists and become read-only\. Nothing is deleted/,
     );
-    await user.click(screen.getByRole('button', { name: 'Delete site' }));
+    await user.click(screen.getByRole('button', { name: 'Archive site' }));
     expect(await screen.findByText('No sites yet')).toBeTruthy();
     expect(fetch.mock.calls[1][0]).toBe(`/api/sites/${site.id}`);
     expect(fetch.mock.calls[1][1]?.method).toBe('DELETE');

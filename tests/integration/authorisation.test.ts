@@ -23,8 +23,9 @@ import {
 import type { Actor } from '@/lib/auth/session';
 import { addAttachment } from '@/lib/dal/attachments';
 import { submitBoard } from '@/lib/dal/board-status';
-import { getBoard } from '@/lib/dal/boards';
-import { approveBoard } from '@/lib/dal/review';
+import { archiveBoard, getBoard, removeBoard } from '@/lib/dal/boards';
+import { archiveSite } from '@/lib/dal/sites';
+import { addComment, approveBoard } from '@/lib/dal/review';
 import { db } from '@/lib/db';
 import { dispatchDueMail, enqueueMail } from '@/lib/mail/outbox';
 import { ROLES, type Role } from '@/lib/domain';
@@ -64,6 +65,9 @@ const actorOf = (org: Org, role: Role): Actor => {
   return { userId: u.id, organisationId: org.org.id, role, name: u.name, email: u.email };
 };
 
+/** The members' names by role, for calls where the caller types their own name. */
+const namesOf = (o: Org) => Object.fromEntries(ROLES.map((r) => [r, o.users[r].name])) as Record<Role, string>;
+
 /**
  * A fresh site and board (the demo flat) at the stage the route needs, a spare member, an
  * open invitation and, when asked, a photo, in an organisation.
@@ -91,19 +95,33 @@ async function makeFixture(org: Org, label: string, spec?: RouteSpec): Promise<R
   });
   // The board's stage, through the same steps as the app: submit, then approve
   const stage = spec?.stage ?? 'draft';
-  if (stage !== 'draft') await submitBoard(actorOf(org, 'designer'), board.id);
-  if (stage === 'issued') await approveBoard(actorOf(org, 'inspector'), board.id, { acknowledgeFailures: true });
+  const at = stage;
+  if (at === 'in-review' || at === 'issued') await submitBoard(actorOf(org, 'designer'), board.id);
+  if (at === 'issued') {
+    const inspector = actorOf(org, 'inspector');
+    await approveBoard(inspector, board.id, { acknowledgeFailures: true, declaration: inspector.name });
+  }
+  // The board as GET /api/boards/:id shows it, before an archive or delete hides or changes it
+  const dto = await getBoard(actorOf(org, 'admin'), board.id);
+  if (at === 'archived') await archiveBoard(actorOf(org, 'admin'), board.id);
+  if (at === 'deleted') await removeBoard(actorOf(org, 'designer'), board.id);
+  if (at === 'site-archived') await archiveSite(actorOf(org, 'admin'), site.id);
+  const comment = spec?.needs?.includes('comment')
+    ? await addComment(actorOf(org, 'inspector'), board.id, { wayId: null, body: 'Label the spare ways.' })
+    : null;
   const attachment = spec?.needs?.includes('attachment')
     ? await addAttachment(actorOf(org, 'installer'), board.id, { bytes: photoPng, fileName: `${tag}.png` })
     : null;
   return {
     organisationId: org.org.id,
     siteId: site.id,
-    board: await getBoard(actorOf(org, 'admin'), board.id),
+    board: dto,
     memberId: member.id,
     invitationToken: token,
     attachmentId: attachment?.id ?? '',
     photoPng,
+    names: namesOf(org),
+    commentId: comment?.id ?? '',
   };
 }
 
@@ -213,7 +231,7 @@ describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spe
     const fx = await fixture();
     signInAs(null);
     const before = await snapshot(ours.org.id);
-    const res = await invoke(spec, call(fx));
+    const res = await invoke(spec, call(fx, 'admin'));
     if (spec.access.kind === 'public') {
       expect(res.status).toBeGreaterThanOrEqual(200);
       expect(res.status).toBeLessThan(300);
@@ -228,7 +246,7 @@ describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spe
     const fx = await fixture();
     signInAs(ours.users[role]);
     const before = await snapshot(ours.org.id);
-    const res = await invoke(spec, call(fx));
+    const res = await invoke(spec, call(fx, role));
     if (rolesAllowed(spec).includes(role)) {
       expect(res.status, await res.clone().text()).toBeGreaterThanOrEqual(200);
       expect(res.status).toBeLessThan(300);
@@ -245,7 +263,7 @@ describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spe
       const role = rolesAllowed(spec).includes('admin') ? 'admin' : rolesAllowed(spec)[0];
       signInAs(ours.users[role]);
       const before = await snapshot(theirs.org.id);
-      const res = await invoke(spec, call(them));
+      const res = await invoke(spec, call(them, role));
       expect(res.status).toBe(404);
       const text = await res.text();
       for (const secret of await secretsOf(theirs, them)) expect(text).not.toContain(secret);
@@ -267,7 +285,7 @@ describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spe
       const fx = await fixture();
       const role = rolesAllowed(spec).includes('admin') ? 'admin' : rolesAllowed(spec)[0];
       signInAs(ours.users[role]);
-      const res = await invoke(spec, call(fx));
+      const res = await invoke(spec, call(fx, role));
       expect(res.status).toBeLessThan(300);
       const text = await res.text();
       for (const secret of await secretsOf(theirs, them)) expect(text).not.toContain(secret);

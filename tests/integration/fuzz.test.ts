@@ -23,10 +23,11 @@ import {
 } from '@/app/api/route-table';
 import type { Actor } from '@/lib/auth/session';
 import { submitBoard } from '@/lib/dal/board-status';
-import { getBoard } from '@/lib/dal/boards';
-import { approveBoard } from '@/lib/dal/review';
+import { archiveBoard, getBoard, removeBoard } from '@/lib/dal/boards';
+import { archiveSite } from '@/lib/dal/sites';
+import { addComment, approveBoard } from '@/lib/dal/review';
 import { db } from '@/lib/db';
-import type { Role } from '@/lib/domain';
+import { ROLES, type Role } from '@/lib/domain';
 import { Invitation, User } from '@/models';
 
 import { ctx, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -57,6 +58,9 @@ const actorOf = (role: Role): Actor => {
   return { userId: u.id, organisationId: team.org.id, role, name: u.name, email: u.email };
 };
 
+/** The members' names by role, for calls where the caller types their own name. */
+const namesOf = (o: Org) => Object.fromEntries(ROLES.map((r) => [r, o.users[r].name])) as Record<Role, string>;
+
 /** A board at the route's stage with a spare member and an open invitation. */
 async function makeFixture(spec: RouteSpec): Promise<RouteFixture> {
   const { site, board } = await makeBoard(team.org.id, 'flat');
@@ -77,16 +81,30 @@ async function makeFixture(spec: RouteSpec): Promise<RouteFixture> {
     expiresAt: new Date(Date.now() + 86_400_000),
     invitedById: team.users.admin.id,
   });
-  if (spec.stage && spec.stage !== 'draft') await submitBoard(actorOf('designer'), board.id);
-  if (spec.stage === 'issued') await approveBoard(actorOf('inspector'), board.id, { acknowledgeFailures: true });
+  const at = spec.stage ?? 'draft';
+  if (at === 'in-review' || at === 'issued') await submitBoard(actorOf('designer'), board.id);
+  if (at === 'issued') {
+    const inspector = actorOf('inspector');
+    await approveBoard(inspector, board.id, { acknowledgeFailures: true, declaration: inspector.name });
+  }
+  // The board as GET /api/boards/:id shows it, before an archive or delete hides or changes it
+  const dto = await getBoard(actorOf('admin'), board.id);
+  if (at === 'archived') await archiveBoard(actorOf('admin'), board.id);
+  if (at === 'deleted') await removeBoard(actorOf('designer'), board.id);
+  if (at === 'site-archived') await archiveSite(actorOf('admin'), site.id);
+  const comment = spec?.needs?.includes('comment')
+    ? await addComment(actorOf('inspector'), board.id, { wayId: null, body: 'Label the spare ways.' })
+    : null;
   return {
     organisationId: team.org.id,
     siteId: site.id,
-    board: await getBoard(actorOf('admin'), board.id),
+    board: dto,
     memberId: member.id,
     invitationToken: token,
     attachmentId: '',
     photoPng,
+    names: namesOf(team),
+    commentId: comment?.id ?? '',
   };
 }
 
@@ -272,10 +290,15 @@ async function expectRefusal(res: Response, allowed: number[], what: string) {
 }
 
 /** Signs in as a role the route allows (an admin when it may), or signs out for public routes. */
+/** The role the junk is sent as: an admin where allowed. */
+function roleFor(spec: RouteSpec): Role {
+  const roles = rolesAllowed(spec);
+  return roles.includes('admin') ? 'admin' : roles[0];
+}
+
 function signInFor(spec: RouteSpec) {
   if (spec.access.kind === 'public') return signInAs(null);
-  const roles = rolesAllowed(spec);
-  signInAs(team.users[roles.includes('admin') ? 'admin' : roles[0]]);
+  signInAs(team.users[roleFor(spec)]);
 }
 
 const withBody = ROUTES.filter((r) => r.call && r.body !== 'none');
@@ -304,7 +327,7 @@ describe('junk bodies', () => {
   it.each(withBody.map((r) => [routeName(r), r] as const))('%s refuses junk and keeps the data', async (_n, spec) => {
     const handler = await handlerOf(spec);
     const fx = await makeFixture(spec);
-    const valid = spec.call!(fx);
+    const valid = spec.call!(fx, roleFor(spec));
     signInFor(spec);
     const before = await snapshot();
     const send = async (body: string | FormData, json = true) => {
@@ -358,7 +381,7 @@ describe('junk ids', () => {
   it.each(withParams.map((r) => [routeName(r), r] as const))('%s answers 404 to a junk id', async (_n, spec) => {
     const handler = await handlerOf(spec);
     const fx = await makeFixture(spec);
-    const valid = spec.call!(fx);
+    const valid = spec.call!(fx, roleFor(spec));
     signInFor(spec);
     const before = await snapshot();
     for (const key of Object.keys(valid.params)) {

@@ -7,11 +7,17 @@ import { Board, Organisation, Site, User, Way } from '@/models';
 import type { Role } from '@/models/user';
 import { demoWays, FLAT_BOARD, WORKSHOP_BOARD } from '@/scripts/demo-data';
 
-const state = globalThis as unknown as { testSessionUserId?: string | null };
+const state = globalThis as unknown as { testSessionUserId?: string | null; testSessionName?: string };
 
 /** Makes the next route calls run as this user (null: signed out). */
-export function signInAs(user: { id: string } | null): void {
+export function signInAs(user: { id: string; name?: string } | null): void {
   state.testSessionUserId = user?.id ?? null;
+  state.testSessionName = user?.name ?? '';
+}
+
+/** The name of who is signed in, as an issuer types it in the declaration. */
+export function signedInName(): string {
+  return state.testSessionName ?? '';
 }
 
 /** A fresh organisation with one member of each role. */

@@ -23,7 +23,7 @@ async function issuedBoard() {
   const { board } = await makeBoard(team.org.id, 'flat');
   await board.update({ status: 'in-review' });
   signInAs(team.users.inspector);
-  expect((await approveRoute.POST(jsonRequest('POST', {}), ctx({ boardId: board.id }))).status).toBe(200);
+  expect((await approveRoute.POST(jsonRequest('POST', { declaration: team.users.inspector.name }), ctx({ boardId: board.id }))).status).toBe(200);
   return board;
 }
 
@@ -81,9 +81,18 @@ describe('the label walk', () => {
     expect((await done.json()).boardStatus).toBe('labels-matched');
     expect((await Board.findByPk(board.id))!.status).toBe('labels-matched');
 
-    // A label found wrong later takes the board back to issued, and is shown to the designer
+    // A label found wrong later takes the board back to issued, once the walker confirms
+    // that the board's state will change; and it is shown to the designer
     const wrongWay = start.ways.find((w) => w.ref === '2')!;
-    const wrong = await mark(board.id, wrongWay.id, { status: 'wrong', note: 'Reads "Kitchen" on the label' });
+    const asked = await mark(board.id, wrongWay.id, { status: 'wrong', note: 'Reads "Kitchen" on the label' });
+    expect(asked.status).toBe(409);
+    expect(await asked.json()).toMatchObject({ needsConfirmation: true, error: expect.stringMatching(/back to issued/) });
+    expect((await Board.findByPk(board.id))!.status).toBe('labels-matched');
+    const wrong = await mark(board.id, wrongWay.id, {
+      status: 'wrong',
+      note: 'Reads "Kitchen" on the label',
+      confirmStateChange: true,
+    });
     expect(await wrong.json()).toMatchObject({ boardStatus: 'issued', progress: { wrong: 1 } });
     signInAs(team.users.designer);
     const { problems } = await walk(board.id);

@@ -14,7 +14,7 @@ import type { BoardDto } from '@/lib/boards/types';
 import { dispatchDueMail } from '@/lib/mail/outbox';
 import { AuditEvent, Board, BoardRevision, User } from '@/models';
 
-import { caughtMail, ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
+import { caughtMail, ctx, jsonRequest, makeBoard, makeOrganisation, signedInName, signInAs } from './helpers';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
 let team: Org;
@@ -49,8 +49,12 @@ async function boardInReview() {
   return { board, designer };
 }
 
-const post = (route: typeof approveRoute | typeof returnRoute, boardId: string, body?: unknown) =>
-  route.POST(jsonRequest('POST', body), ctx({ boardId }));
+/** A review step; an approval carries the signed-in member's typed name unless the body says otherwise. */
+const post = (route: typeof approveRoute | typeof returnRoute, boardId: string, body?: object) =>
+  route.POST(
+    jsonRequest('POST', route === approveRoute ? { declaration: signedInName(), ...body } : body),
+    ctx({ boardId }),
+  );
 
 const comment = (boardId: string, body: unknown) =>
   commentsRoute.POST(jsonRequest('POST', body), ctx({ boardId }));

@@ -82,7 +82,7 @@ describe('roles (product.md permissions table)', () => {
     }
   });
 
-  it('designers create, rename and delete sites', async () => {
+  it('designers create, rename and archive sites', async () => {
     signInAs(ours.users.designer);
     const created = await sitesRoute.POST(jsonRequest('POST', { name: 'Barn conversion' }), ctx({}));
     expect(created.status).toBe(201);
@@ -93,7 +93,8 @@ describe('roles (product.md permissions table)', () => {
     );
     expect((await renamed.json()).site.name).toBe('Barn conversion, phase 2');
     const removed = await siteRoute.DELETE(jsonRequest('DELETE'), ctx({ siteId: site.id }));
-    expect(removed.status).toBe(204);
+    expect(removed.status).toBe(200);
+    expect((await removed.json()).site.archived).toMatchObject({ byName: ours.users.designer.name });
   });
 });
 

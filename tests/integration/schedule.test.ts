@@ -43,7 +43,10 @@ function get(route: typeof scheduleRoute | typeof labelsRoute, boardId: string, 
 async function issue(org: Org, boardId: string) {
   await Board.update({ status: 'in-review' }, { where: { id: boardId } });
   signInAs(org.users.inspector);
-  const res = await approveRoute.POST(jsonRequest('POST', { acknowledgeFailures: true }), ctx({ boardId }));
+  const res = await approveRoute.POST(
+    jsonRequest('POST', { acknowledgeFailures: true, declaration: org.users.inspector.name }),
+    ctx({ boardId }),
+  );
   expect(res.status).toBe(200);
   return (await res.json()) as { revision: number };
 }

@@ -3,8 +3,10 @@ import { redirect } from 'next/navigation';
 
 import { EmptyState } from '@/components/ui/empty-state';
 import { MembersView } from '@/features/members/components/members-view';
+import { SelfIssueSetting } from '@/features/organisation/components/self-issue-setting';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
+import { getOrganisationSettings } from '@/lib/dal/organisation';
 
 export const metadata: Metadata = { title: 'Members' };
 
@@ -20,5 +22,10 @@ export default async function MembersPage() {
       </EmptyState>
     );
   }
-  return <MembersView currentUserId={actor.userId} />;
+  return (
+    <>
+      <MembersView currentUserId={actor.userId} />
+      {can(actor.role, 'organisation.manage') ? <SelfIssueSetting initial={await getOrganisationSettings(actor)} /> : null}
+    </>
+  );
 }

@@ -6,12 +6,13 @@ import { boardCreateSchema } from '@/lib/boards/schemas';
 import { createBoard, listBoards } from '@/lib/dal/boards';
 import { notFound } from '@/lib/errors';
 
-/** GET /api/boards[?siteId=]: the organisation's boards. */
+/** GET /api/boards[?siteId=][&archived=1]: the organisation's live boards, or its archived ones. */
 export const GET = route(async (req) => {
   const actor = await requireActor('boards.read');
-  const siteId = new URL(req.url).searchParams.get('siteId') ?? undefined;
+  const query = new URL(req.url).searchParams;
+  const siteId = query.get('siteId') ?? undefined;
   if (siteId && !z.uuid().safeParse(siteId).success) throw notFound('The site');
-  return Response.json({ boards: await listBoards(actor, { siteId }) });
+  return Response.json({ boards: await listBoards(actor, { siteId, archived: query.get('archived') === '1' }) });
 });
 
 /** POST /api/boards: a new, empty board on one of the organisation's sites. */

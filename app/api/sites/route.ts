@@ -2,12 +2,13 @@ import { parseBody, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { createSite, listSites, siteInputSchema } from '@/lib/dal/sites';
 
-/** GET /api/sites: the organisation's sites. */
-export const GET = route(async () => {
+/** GET /api/sites[?archived=1]: the organisation's live sites, or its archived ones. */
+export const GET = route(async (req) => {
   // Session and role
   const actor = await requireActor('boards.read');
   // Read, scoped to the organisation
-  return Response.json({ sites: await listSites(actor) });
+  const archived = new URL(req.url).searchParams.get('archived') === '1';
+  return Response.json({ sites: await listSites(actor, { archived }) });
 });
 
 /** POST /api/sites: a new site. */

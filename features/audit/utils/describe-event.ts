@@ -32,7 +32,15 @@ export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' 
       return parts.join(' and ') || 'renamed the board';
     }
     case 'board.deleted':
-      return 'deleted the board';
+      return 'deleted the board (it was never issued)';
+    case 'board.undeleted':
+      return 'undid the delete of the board';
+    case 'board.archived':
+      return d.site !== undefined
+        ? `archived the site “${text(d.site)}” with this board in it`
+        : `archived the board at revision ${text(d.revision)}`;
+    case 'board.restored':
+      return d.site !== undefined ? `restored the site “${text(d.site)}” and this board with it` : 'restored the board from the archive';
     case 'board.saved':
       return d.newRevision !== undefined
         ? `saved version ${text(d.version)}, starting revision ${text(d.newRevision)} as a draft`
@@ -50,9 +58,24 @@ export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' 
     case 'board.comment':
       return d.wayId ? `commented on ${wayRef(entry)}` : 'commented on the board';
     case 'label.checked':
-      return `checked the label of ${wayRef(entry)}: ${labelWord(d.status)}`;
-    case 'review.approved':
-      return `approved the board and issued revision ${text(d.revision)}`;
+      return `checked the label of ${wayRef(entry)}: ${labelWord(d.status)}${
+        text(d.note) ? ` (“${text(d.note)}”)` : ''
+      }`;
+    case 'review.approved': {
+      const v = (d.verdicts ?? {}) as Record<string, unknown>;
+      const what =
+        d.devices !== undefined
+          ? ` (${text(d.devices)} devices, ${text(d.circuits)} circuits: ${text(v.passes)} pass, ${text(v.nearLimit)} near the limit, ${text(v.fails)} fail)`
+          : '';
+      const declared = d.declaration !== undefined ? `, declared as “${text(d.declaration)}”` : '';
+      return `approved the board and issued revision ${text(d.revision)}${what}${declared}`;
+    }
+    case 'comments.answered': {
+      const n = Array.isArray(d.commentIds) ? d.commentIds.length : 0;
+      return `marked ${n} review comment${n === 1 ? '' : 's'} answered`;
+    }
+    case 'attachment.withdrawn':
+      return 'withdrew a photo from the board (kept with the record)';
     case 'review.returned':
       return `returned revision ${text(d.revision)} for changes`;
     case 'board.verified':

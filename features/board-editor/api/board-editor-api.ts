@@ -87,3 +87,11 @@ export async function submitForReview(boardId: string, version: number): Promise
   if (status === 409) return { kind: 'conflict', message };
   throw failure(status, json);
 }
+
+/** POST /api/boards/:id/comments/answered: the designer has dealt with these review comments. */
+export function markCommentsAnswered(boardId: string, commentIds: string[]) {
+  return apiFetch<{ answered: number }>(`/api/boards/${encodeURIComponent(boardId)}/comments/answered`, {
+    method: 'POST',
+    body: { commentIds },
+  });
+}

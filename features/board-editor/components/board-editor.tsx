@@ -22,6 +22,7 @@ import { toast } from 'sonner';
 import { layoutWays } from '@/lib/boards/layout';
 import { drawRails, placementProblem, railCapacities } from '@/lib/boards/rail';
 import type { BoardDto } from '@/lib/boards/types';
+import type { ReturnNotes } from '@/lib/dal/review';
 import type { DeviceOnRail } from '@/lib/sizing';
 
 import { submitForReview, type RefusedWay } from '../api/board-editor-api';
@@ -44,12 +45,21 @@ import { DeviceTray } from './device-tray';
 import { DrawnBoard } from './drawn-board';
 import { EditorToolbar } from './editor-toolbar';
 import { ReviewRefusalDialog } from './review-refusal-dialog';
+import { ReviewNotes, SelectedWayComments } from './review-notes';
+import { SubmitConfirmDialog } from './submit-confirm-dialog';
 import { WayPanel } from './way-panel';
 
 /** What the signed-in member may do on this board (the server checks each again). */
 export type EditorAbilities = { edit: boolean; size: boolean; submit: boolean };
 
-type BoardEditorProps = { board: BoardDto; can: EditorAbilities };
+type BoardEditorProps = {
+  board: BoardDto;
+  can: EditorAbilities;
+  /** A returned board's open review comments, shown at the top and beside their ways. */
+  reviewNotes?: ReturnNotes | null;
+  /** Why the board is read-only whatever the role (e.g. it is archived). */
+  readOnlyBecause?: string | null;
+};
 
 // A pointer drag uses what is under the pointer (nothing: no target); the keyboard, the nearest zone.
 const collision: CollisionDetection = (args) => {
@@ -65,7 +75,7 @@ const collision: CollisionDetection = (args) => {
  * wired to the draft store; live sizing, saving with conflict handling, the kept draft and
  * undo shortcuts run in hooks beside it.
  */
-export function BoardEditor({ board, can }: BoardEditorProps) {
+export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = null }: BoardEditorProps) {
   const loadedId = useBoardDraftStore((s) => s.boardId);
   const status = useBoardDraftStore((s) => s.status);
   const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
@@ -204,6 +214,7 @@ export function BoardEditor({ board, can }: BoardEditorProps) {
 
   // Sending for review: save first, then ask the server
   const [submitting, setSubmitting] = useState(false);
+  const [confirmingSubmit, setConfirmingSubmit] = useState(false);
   const [refusal, setRefusal] = useState<{ message: string; failing: RefusedWay[] } | null>(null);
   const sendForReview = async () => {
     setSubmitting(true);
@@ -244,7 +255,9 @@ export function BoardEditor({ board, can }: BoardEditorProps) {
     );
   }
 
-  const readOnlyReason = !can.edit
+  const readOnlyReason = readOnlyBecause
+    ? readOnlyBecause
+    : !can.edit
     ? `Read only: your role may ${can.size ? 'look at the board and its sizing' : 'look at the board'}, not change it.`
     : status === 'in-review'
       ? 'In review: the board can be changed again once the inspector returns it.'
@@ -270,8 +283,9 @@ export function BoardEditor({ board, can }: BoardEditorProps) {
         readOnlyReason={readOnlyReason}
         submitting={submitting}
         onSave={() => void save()}
-        onSubmit={() => void sendForReview()}
+        onSubmit={() => setConfirmingSubmit(true)}
       />
+      {reviewNotes ? <ReviewNotes boardId={board.id} notes={reviewNotes} canAnswer={can.edit} /> : null}
       <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
         <div className="min-w-0 space-y-3">
           {!readOnly ? (
@@ -299,6 +313,7 @@ export function BoardEditor({ board, can }: BoardEditorProps) {
           {can.size ? <BoardSummary /> : null}
         </div>
         <div className="xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:self-start xl:overflow-y-auto">
+          {reviewNotes ? <SelectedWayComments notes={reviewNotes} /> : null}
           <WayPanel readOnly={readOnly} showSizing={can.size} onRemove={removeWithUndo} />
         </div>
       </div>
@@ -311,6 +326,15 @@ export function BoardEditor({ board, can }: BoardEditorProps) {
         onReloadTheirs={() => void reloadTheirs()}
         onKeepMine={() => void keepMine()}
         onClose={() => setConflictHidden(true)}
+      />
+      <SubmitConfirmDialog
+        open={confirmingSubmit}
+        revision={board.revision}
+        onClose={() => setConfirmingSubmit(false)}
+        onConfirm={() => {
+          setConfirmingSubmit(false);
+          void sendForReview();
+        }}
       />
       <ReviewRefusalDialog
         refusal={refusal}

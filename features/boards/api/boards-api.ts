@@ -11,14 +11,17 @@ export type BoardRename = { name?: string; location?: string };
 /** Cache keys for boards; everything under `['boards']` is refreshed after a board changes. */
 export const boardKeys = {
   all: ['boards'] as const,
-  list: (siteId?: string) => ['boards', 'list', siteId ?? 'all'] as const,
+  list: (siteId?: string, archived = false) => ['boards', 'list', siteId ?? 'all', archived ? 'archived' : 'live'] as const,
   // Kept under the sites prefix so a site change refreshes the choices too
   siteOptions: () => ['sites', 'options'] as const,
 };
 
-/** GET /api/boards[?siteId=] */
-export async function fetchBoards(siteId?: string): Promise<BoardSummary[]> {
-  const query = siteId ? `?siteId=${encodeURIComponent(siteId)}` : '';
+/** GET /api/boards[?siteId=][&archived=1] */
+export async function fetchBoards(siteId?: string, archived = false): Promise<BoardSummary[]> {
+  const params = new URLSearchParams();
+  if (siteId) params.set('siteId', siteId);
+  if (archived) params.set('archived', '1');
+  const query = params.size ? `?${params}` : '';
   const { boards } = await apiFetch<{ boards: BoardSummary[] }>(`/api/boards${query}`);
   return boards;
 }
@@ -51,7 +54,17 @@ export async function patchBoard(
   return board;
 }
 
-/** DELETE /api/boards/:boardId */
-export async function removeBoard(boardId: string): Promise<void> {
-  await apiFetch<void>(`/api/boards/${encodeURIComponent(boardId)}`, { method: 'DELETE' });
+/** DELETE /api/boards/:boardId: a never-issued board is deleted (undoable), an issued one archived (admins). */
+export function removeBoard(boardId: string): Promise<{ effect: 'deleted' | 'archived' }> {
+  return apiFetch<{ effect: 'deleted' | 'archived' }>(`/api/boards/${encodeURIComponent(boardId)}`, { method: 'DELETE' });
+}
+
+/** POST /api/boards/:boardId/undo-delete */
+export async function undoDeleteBoard(boardId: string): Promise<void> {
+  await apiFetch(`/api/boards/${encodeURIComponent(boardId)}/undo-delete`, { method: 'POST' });
+}
+
+/** POST /api/boards/:boardId/restore (admins) */
+export async function restoreBoard(boardId: string): Promise<void> {
+  await apiFetch(`/api/boards/${encodeURIComponent(boardId)}/restore`, { method: 'POST' });
 }

@@ -4,7 +4,15 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 
 import type { BoardCreateInput } from '@/lib/boards/schemas';
 
-import { boardKeys, patchBoard, postBoard, removeBoard, type BoardRename } from './boards-api';
+import {
+  boardKeys,
+  patchBoard,
+  postBoard,
+  removeBoard,
+  restoreBoard,
+  undoDeleteBoard,
+  type BoardRename,
+} from './boards-api';
 
 /** Refreshes board lists and the sites' board counts. */
 function useRefreshLists() {
@@ -35,11 +43,23 @@ export function useRenameBoard() {
   });
 }
 
-/** Deletes a board with its revisions. */
+/** Deletes a never-issued board (undoable), or archives an issued one (admins). */
 export function useDeleteBoard() {
   const refresh = useRefreshLists();
   return useMutation({
     mutationFn: (boardId: string) => removeBoard(boardId),
     onSuccess: () => refresh(),
   });
+}
+
+/** Undoes the delete of a draft board. */
+export function useUndoDeleteBoard() {
+  const refresh = useRefreshLists();
+  return useMutation({ mutationFn: (boardId: string) => undoDeleteBoard(boardId), onSuccess: () => refresh() });
+}
+
+/** Brings an archived board back (admins). */
+export function useRestoreBoard() {
+  const refresh = useRefreshLists();
+  return useMutation({ mutationFn: (boardId: string) => restoreBoard(boardId), onSuccess: () => refresh() });
 }

@@ -15,7 +15,7 @@ import { useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
 import { Select } from '@/components/ui/field';
-import { StatusBadge } from '@/components/ui/status-badge';
+import { ArchivedBadge, StatusBadge } from '@/components/ui/status-badge';
 import { actionsColumn, lastChangeColumn, RowCount, textOrDash } from '@/components/ui/table-columns';
 import { countWords } from '@/lib/boards/counts';
 import type { BoardSummary } from '@/lib/boards/types';
@@ -30,6 +30,8 @@ type BoardsTableProps = {
   singleSite?: boolean;
   onRename: (board: BoardSummary) => void;
   onDelete: (board: BoardSummary) => void;
+  /** The word on a row's remove button ("Delete", "Archive", "Restore"), null for none (default "Delete"). */
+  removeLabelOf?: (board: BoardSummary) => string | null;
 };
 
 /** Searches a board's name, site and location. */
@@ -49,6 +51,7 @@ export function BoardsTable({
   singleSite,
   onRename,
   onDelete,
+  removeLabelOf,
 }: BoardsTableProps) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'updatedAt', desc: true }]);
   const [search, setSearch] = useState('');
@@ -136,7 +139,12 @@ export function BoardsTable({
         sortingFn: (a, b) => stageOrder(a.original.status) - stageOrder(b.original.status),
         filterFn: (row, _id, value: string) => row.original.status === value,
         meta: { card: 'badge' },
-        cell: ({ row }) => <StatusBadge status={row.original.status} />,
+        cell: ({ row }) => (
+          <span className="inline-flex flex-wrap items-center gap-1">
+            <StatusBadge status={row.original.status} />
+            {row.original.archivedAt ? <ArchivedBadge /> : null}
+          </span>
+        ),
       },
       {
         id: 'revision',
@@ -147,9 +155,9 @@ export function BoardsTable({
       },
       lastChangeColumn(),
     ];
-    if (canEdit) list.push(actionsColumn('Rename', onRename, onDelete));
+    if (canEdit) list.push(actionsColumn('Rename', onRename, onDelete, removeLabelOf));
     return list;
-  }, [canEdit, onRename, onDelete]);
+  }, [canEdit, onRename, onDelete, removeLabelOf]);
 
   const table = useReactTable({
     data: boards,

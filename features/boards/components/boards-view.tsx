@@ -2,6 +2,7 @@
 
 import { LayoutGrid, Plus } from 'lucide-react';
 import { useCallback, useState } from 'react';
+import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -10,7 +11,9 @@ import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/permissions';
 import type { BoardSummary } from '@/lib/boards/types';
 import type { Role } from '@/lib/domain';
+import { errorMessage } from '@/lib/api/client';
 
+import { useDeleteBoard, useRestoreBoard, useUndoDeleteBoard } from '../api/use-board-mutations';
 import { useBoards, useSiteOptions } from '../api/use-boards';
 import { BoardCreateDialog } from './board-create-dialog';
 import { BoardRenameDialog } from './board-rename-dialog';
@@ -26,13 +29,53 @@ type BoardsViewProps = {
 /** The boards list with its loading, empty and error states, and the board dialogs. */
 export function BoardsView({ role, siteId }: BoardsViewProps) {
   const canEdit = can(role, 'boards.edit');
-  const boards = useBoards(siteId);
+  const canArchive = can(role, 'records.archive');
+  const [showArchived, setShowArchived] = useState(false);
+  const boards = useBoards(siteId, showArchived);
+  const remove = useDeleteBoard();
+  const undo = useUndoDeleteBoard();
+  const restore = useRestoreBoard();
   const [creating, setCreating] = useState(false);
   const siteOptions = useSiteOptions(canEdit && creating);
   const [renaming, setRenaming] = useState<BoardSummary | null>(null);
   const [deleting, setDeleting] = useState<BoardSummary | null>(null);
   const onRename = useCallback((board: BoardSummary) => setRenaming(board), []);
-  const onDelete = useCallback((board: BoardSummary) => setDeleting(board), []);
+  // Archived rows: restore (admins). Issued boards: archive with a confirmation (admins).
+  // Never-issued boards: delete at once, with undo in the toast.
+  const onDelete = useCallback(
+    (board: BoardSummary) => {
+      if (board.archivedAt) {
+        restore.mutate(board.id, {
+          onSuccess: () => toast.success(`Restored ${board.name}.`),
+          onError: (err) => toast.error(errorMessage(err)),
+        });
+      } else if (board.everIssued) {
+        setDeleting(board);
+      } else {
+        remove.mutate(board.id, {
+          onSuccess: () =>
+            toast.success(`Deleted ${board.name}.`, {
+              duration: 10_000,
+              action: {
+                label: 'Undo',
+                onClick: () =>
+                  undo.mutate(board.id, {
+                    onSuccess: () => toast.success(`${board.name} is back.`),
+                    onError: (err) => toast.error(errorMessage(err)),
+                  }),
+              },
+            }),
+          onError: (err) => toast.error(errorMessage(err)),
+        });
+      }
+    },
+    [remove, undo, restore],
+  );
+  const removeLabelOf = useCallback(
+    (board: BoardSummary) =>
+      board.archivedAt ? (canArchive ? 'Restore' : null) : board.everIssued ? (canArchive ? 'Archive' : null) : 'Delete',
+    [canArchive],
+  );
 
   const createButton = canEdit ? (
     <Button onClick={() => setCreating(true)}>
@@ -55,12 +98,14 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
     body = (
       <EmptyState
         icon={<LayoutGrid aria-hidden className="h-8 w-8" />}
-        title={siteId ? 'No boards on this site yet' : 'No boards yet'}
-        action={createButton}
+        title={showArchived ? 'No archived boards' : siteId ? 'No boards on this site yet' : 'No boards yet'}
+        action={showArchived ? null : createButton}
       >
-        {canEdit
-          ? 'Start a board with its supply and enclosure, then arrange its ways in the editor.'
-          : 'When a designer starts a board it appears here.'}
+        {showArchived
+          ? 'Archived boards, and the boards of archived sites, are listed here.'
+          : canEdit
+            ? 'Start a board with its supply and enclosure, then arrange its ways in the editor.'
+            : 'When a designer starts a board it appears here.'}
       </EmptyState>
     );
   } else {
@@ -72,11 +117,23 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
         singleSite={Boolean(siteId)}
         onRename={onRename}
         onDelete={onDelete}
+        removeLabelOf={removeLabelOf}
       />
     );
   }
 
-  const actions = boards.isSuccess && boards.data.length > 0 ? createButton : null;
+  const archivedToggle = (
+    <label className="inline-flex items-center gap-2 text-sm text-ink-soft">
+      <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} />
+      Show archived
+    </label>
+  );
+  const actions = (
+    <>
+      {archivedToggle}
+      {boards.isSuccess && boards.data.length > 0 && !showArchived ? createButton : null}
+    </>
+  );
   return (
     <section aria-labelledby={siteId ? 'site-boards-heading' : undefined}>
       {siteId ? (

@@ -9,7 +9,10 @@ import type { BoardSummary } from '@/lib/boards/types';
 
 import { useDeleteBoard } from '../api/use-board-mutations';
 
-/** Asks before deleting a board with its ways and revisions. */
+/**
+ * Asks before archiving a board that was issued (admins): it leaves the lists and becomes
+ * read-only, and everything is kept. (A never-issued board is deleted at once, with undo.)
+ */
 export function DeleteBoardDialog({
   board,
   onClose,
@@ -30,7 +33,7 @@ export function DeleteBoardDialog({
     setError(null);
     try {
       await remove.mutateAsync(board.id);
-      toast.success(`Deleted ${board.name}.`);
+      toast.success(`Archived ${board.name}. Find it under “Show archived”.`);
       close();
     } catch (err) {
       setError(errorMessage(err));
@@ -40,18 +43,19 @@ export function DeleteBoardDialog({
   return (
     <ConfirmDialog
       open={board !== null}
-      title="Delete this board?"
-      confirmLabel="Delete board"
+      title="Archive this board?"
+      confirmLabel="Archive board"
       pending={remove.isPending}
       error={error}
+      danger={false}
       onConfirm={confirm}
       onClose={close}
     >
       <p>
         <strong>{board?.name}</strong>
-        {board?.siteName ? ` on ${board.siteName}` : ''} will be deleted with its{' '}
-        {board?.wayCount === 1 ? 'way' : `${board?.wayCount ?? 0} ways`} and every revision,
-        including issued ones. This cannot be undone.
+        {board?.siteName ? ` on ${board.siteName}` : ''} has been issued, so it is kept: it leaves the lists and
+        becomes read-only, and its revisions, schedules, comments, label checks and photos stay readable. An admin can
+        restore it.
       </p>
     </ConfirmDialog>
   );

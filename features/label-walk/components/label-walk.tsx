@@ -10,12 +10,14 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { LABEL_STATE_LOOKS, LabelStateBadge } from '@/components/ui/label-state-badge';
 import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
+import { labelChangeUnverifies } from '@/lib/boards/record-rules';
 import type { WalkData } from '@/lib/dal/label-walk';
 import { LABEL_STATUS_NAMES } from '@/lib/names';
 import type { LabelStatus } from '@/models/way';
 
 import { fetchWalk, postLabel, uploadPhoto, walkKey } from '../api/walk-api';
 import { nextUnchecked, resumeAt } from '../utils/next-way';
+import { StateChangeDialog } from './state-change-dialog';
 import { WalkSummary } from './walk-summary';
 
 // Every toast of the walk shares one id, so a new one replaces the last instead of stacking
@@ -44,7 +46,8 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
 
   // Save one result, reload the walk, and go on to the next way not yet checked
   const record = useMutation({
-    mutationFn: (status: Exclude<LabelStatus, 'unchecked'>) => postLabel(boardId, way.id, { status, note }),
+    mutationFn: ({ status, confirm }: { status: Exclude<LabelStatus, 'unchecked'>; confirm?: boolean }) =>
+      postLabel(boardId, way.id, { status, note, ...(confirm ? { confirmStateChange: true } : {}) }),
     onSuccess: async (result) => {
       // staleTime 0: the cached walk is out of date the moment a result is saved
       const fresh = await queryClient.fetchQuery({ queryKey: walkKey(boardId), queryFn: () => fetchWalk(boardId), staleTime: 0 });
@@ -56,6 +59,12 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
       else setIndex(nextUnchecked(fresh.ways.map((w) => w.status), index));
     },
   });
+  // A check that would take a labels-matched board back to issued asks first (lib/boards/record-rules.ts)
+  const [asking, setAsking] = useState<'wrong' | 'missing' | null>(null);
+  const choose = (status: Exclude<LabelStatus, 'unchecked'>) => {
+    if (status !== 'matches' && labelChangeUnverifies(data.status, status)) setAsking(status);
+    else record.mutate({ status });
+  };
   const photo = useMutation({
     mutationFn: (file: File) => uploadPhoto(boardId, file, way.id),
     onSuccess: async () => {
@@ -153,7 +162,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
               <button
                 type="button"
                 disabled={record.isPending}
-                onClick={() => record.mutate('matches')}
+                onClick={() => choose('matches')}
                 className="flex h-16 items-center justify-center gap-2 rounded-lg bg-verdict-pass text-lg font-semibold text-white disabled:opacity-60"
               >
                 <MatchesIcon aria-hidden className="h-6 w-6" /> Label matches
@@ -162,7 +171,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
                 <button
                   type="button"
                   disabled={record.isPending}
-                  onClick={() => record.mutate('wrong')}
+                  onClick={() => choose('wrong')}
                   className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
                 >
                   <WrongIcon aria-hidden className="h-5 w-5" /> Label is wrong
@@ -170,7 +179,7 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
                 <button
                   type="button"
                   disabled={record.isPending}
-                  onClick={() => record.mutate('missing')}
+                  onClick={() => choose('missing')}
                   className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
                 >
                   <MissingIcon aria-hidden className="h-5 w-5" /> Label is missing
@@ -276,6 +285,16 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
           Back to {data.name}
         </Link>
       </nav>
+      <StateChangeDialog
+        status={asking}
+        wayName={way ? `way ${way.ref ?? way.labelText}` : 'this way'}
+        revision={data.revision}
+        onClose={() => setAsking(null)}
+        onConfirm={() => {
+          if (asking) record.mutate({ status: asking, confirm: true });
+          setAsking(null);
+        }}
+      />
     </div>
   );
 }

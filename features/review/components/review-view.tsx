@@ -21,8 +21,9 @@ import { deviceName } from '@/lib/names';
 import type { CommentDto, ReviewData } from '@/lib/dal/review';
 import type { CircuitResult } from '@/lib/sizing';
 
-import { postApprove, postComment, postReturn } from '../api/review-api';
+import { postComment, postReturn } from '../api/review-api';
 import { commentInputSchema, type CommentInput } from '../types/schemas';
+import { IssueDialog } from './issue-dialog';
 import { RevisionDiff } from './revision-diff';
 
 const fmt = (v: number | null | undefined, d: number) => (v === null || v === undefined ? '—' : v.toFixed(d));
@@ -101,18 +102,11 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
   const [open, setOpen] = useState<string | null>(null);
   const [returning, setReturning] = useState(false);
   const [closing, setClosing] = useState('');
-  const [acknowledge, setAcknowledge] = useState(false);
+  const [issuing, setIssuing] = useState(false);
   const results = new Map((sizing?.ways ?? []).map((w) => [w.id, w.result]));
   const fails = sizing?.summary.counts.fails ?? 0;
   const inReview = board.status === 'in-review';
 
-  const approve = useMutation({
-    mutationFn: () => postApprove(board.id, { acknowledgeFailures: acknowledge }),
-    onSuccess: (r) => {
-      toast.success(`Issued as revision ${r.revision}. The designer has been e-mailed.`);
-      router.refresh();
-    },
-  });
   const giveBack = useMutation({
     mutationFn: () => postReturn(board.id, { comment: closing.trim() || undefined }),
     onSuccess: () => {
@@ -145,8 +139,8 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                 <Button variant="secondary" onClick={() => setReturning((v) => !v)}>
                   Return to draft
                 </Button>
-                <Button onClick={() => approve.mutate()} disabled={approve.isPending || (fails > 0 && !acknowledge)}>
-                  {approve.isPending ? 'Issuing…' : 'Approve and issue'}
+                <Button onClick={() => setIssuing(true)} disabled={!!data.issue.refusal}>
+                  Approve and issue
                 </Button>
               </>
             ) : null}
@@ -160,12 +154,18 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
         </p>
       ) : null}
       {canReview && inReview && fails > 0 ? (
-        <label className="flex items-start gap-2 rounded-md border border-verdict-fail/30 bg-verdict-fail-bg px-3 py-2 text-sm text-ink">
-          <input type="checkbox" checked={acknowledge} onChange={(e) => setAcknowledge(e.target.checked)} className="mt-1" />
-          {fails} way(s) fail a check. Tick to issue the board as it is; otherwise return it to the designer.
-        </label>
+        <p className="rounded-md border border-verdict-fail/30 bg-verdict-fail-bg px-3 py-2 text-sm text-ink">
+          {fails} way(s) fail a check. Return the board to the designer, or issue it as it is (the confirmation asks).
+        </p>
       ) : null}
-      {approve.isError ? <FormAlert>{errorMessage(approve.error)}</FormAlert> : null}
+      {canReview && inReview && data.issue.refusal ? (
+        <p role="note" className="rounded-md border border-line bg-paper-raised px-3 py-2 text-sm text-ink">
+          {data.issue.refusal.message}
+        </p>
+      ) : null}
+      {canReview && inReview ? (
+        <IssueDialog open={issuing} onClose={() => setIssuing(false)} board={board} issue={data.issue} />
+      ) : null}
       {returning ? (
         <div className="space-y-2 rounded-card border border-line bg-paper-raised p-4">
           <label className="block text-sm font-medium text-ink">

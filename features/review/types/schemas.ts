@@ -9,12 +9,33 @@ export const commentInputSchema = z
   .strict();
 export type CommentInput = z.infer<typeof commentInputSchema>;
 
-/** Approving a board; failing ways need the reviewer's say-so. */
+/**
+ * Approving (issuing) a board: the issuer types their own name as a declaration; failing ways
+ * need their say-so; `revision` is the revision the confirmation showed (refused if it moved).
+ */
 export const approveInputSchema = z
-  .object({ acknowledgeFailures: z.boolean().optional() })
-  .strict()
-  .default({});
+  .object({
+    acknowledgeFailures: z.boolean().optional(),
+    declaration: z
+      .string('Type your name to confirm the issue.')
+      .trim()
+      .min(1, 'Type your name to confirm the issue.')
+      .max(160, 'A name has at most 160 characters.'),
+    revision: z.number().int('A revision is a whole number.').min(1).max(100000).optional(),
+  })
+  .strict();
 export type ApproveInput = z.infer<typeof approveInputSchema>;
+
+/** Marking review comments answered (the designer, in the editor). */
+export const answerCommentsSchema = z
+  .object({
+    commentIds: z
+      .array(z.uuid('Name comments by their id.'))
+      .min(1, 'Name at least one comment.')
+      .max(500, 'At most 500 comments at once.'),
+  })
+  .strict();
+export type AnswerCommentsInput = z.infer<typeof answerCommentsSchema>;
 
 /** Returning a board to draft, with a closing comment. */
 export const returnInputSchema = z

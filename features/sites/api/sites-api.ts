@@ -5,13 +5,13 @@ import type { SiteInput } from '@/lib/sites/schemas';
 /** Cache keys for sites; everything under `['sites']` is refreshed after a site changes. */
 export const siteKeys = {
   all: ['sites'] as const,
-  list: () => ['sites', 'list'] as const,
+  list: (archived = false) => ['sites', 'list', archived ? 'archived' : 'live'] as const,
   detail: (siteId: string) => ['sites', 'detail', siteId] as const,
 };
 
-/** GET /api/sites */
-export async function fetchSites(): Promise<SiteSummary[]> {
-  const { sites } = await apiFetch<{ sites: SiteSummary[] }>('/api/sites');
+/** GET /api/sites[?archived=1] */
+export async function fetchSites(archived = false): Promise<SiteSummary[]> {
+  const { sites } = await apiFetch<{ sites: SiteSummary[] }>(`/api/sites${archived ? '?archived=1' : ''}`);
   return sites;
 }
 
@@ -41,7 +41,15 @@ export async function patchSite(siteId: string, input: Partial<SiteInput>): Prom
   return site;
 }
 
-/** DELETE /api/sites/:siteId (the site and its boards) */
+/** DELETE /api/sites/:siteId: archives the site with its boards (nothing is deleted) */
 export async function removeSite(siteId: string): Promise<void> {
   await apiFetch<void>(`/api/sites/${encodeURIComponent(siteId)}`, { method: 'DELETE' });
+}
+
+/** POST /api/sites/:siteId/restore (admins) */
+export async function restoreSite(siteId: string): Promise<SiteSummary> {
+  const { site } = await apiFetch<{ site: SiteSummary }>(`/api/sites/${encodeURIComponent(siteId)}/restore`, {
+    method: 'POST',
+  });
+  return site;
 }

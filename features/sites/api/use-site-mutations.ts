@@ -4,7 +4,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 
 import type { SiteInput } from '@/lib/sites/schemas';
 
-import { patchSite, postSite, removeSite, siteKeys } from './sites-api';
+import { patchSite, postSite, removeSite, restoreSite, siteKeys } from './sites-api';
 
 /** Creates a site and refreshes every site list. */
 export function useCreateSite() {
@@ -42,7 +42,7 @@ export function useDeleteSite() {
     mutationFn: (siteId: string) => removeSite(siteId),
     onSuccess: (_data, siteId) => {
       queryClient.removeQueries({ queryKey: siteKeys.detail(siteId) });
-      // The deleted site's own page may still be open: refresh the lists, not its detail
+      // The archived site's own page may still be open: refresh the lists, not its detail
       return Promise.all([
         queryClient.invalidateQueries({
           queryKey: siteKeys.all,
@@ -52,5 +52,18 @@ export function useDeleteSite() {
         queryClient.invalidateQueries({ queryKey: ['boards'], refetchType: 'none' }),
       ]);
     },
+  });
+}
+
+/** Brings an archived site and its boards back into the lists (admins). */
+export function useRestoreSite() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (siteId: string) => restoreSite(siteId),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: siteKeys.all }),
+        queryClient.invalidateQueries({ queryKey: ['boards'] }),
+      ]),
   });
 }

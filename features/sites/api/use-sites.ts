@@ -6,9 +6,9 @@ import type { SiteSummary } from '@/lib/dal/sites';
 
 import { fetchSite, fetchSites, siteKeys } from './sites-api';
 
-/** The organisation's sites. */
-export function useSites() {
-  return useQuery({ queryKey: siteKeys.list(), queryFn: fetchSites });
+/** The organisation's live sites, or its archived ones. */
+export function useSites(archived = false) {
+  return useQuery({ queryKey: siteKeys.list(archived), queryFn: () => fetchSites(archived) });
 }
 
 /** One site, starting from what the server page already read when given. */

@@ -15,7 +15,7 @@ type DeleteSiteDialogProps = {
   onDeleted?: (site: SiteSummary) => void;
 };
 
-/** Asks before deleting a site, saying how many boards go with it. */
+/** Asks before archiving a site, saying how many boards go with it (nothing is deleted). */
 export function DeleteSiteDialog({ site, onClose, onDeleted }: DeleteSiteDialogProps) {
   const remove = useDeleteSite();
   const [error, setError] = useState<string | null>(null);
@@ -30,7 +30,7 @@ export function DeleteSiteDialog({ site, onClose, onDeleted }: DeleteSiteDialogP
     setError(null);
     try {
       await remove.mutateAsync(site.id);
-      toast.success(`Deleted ${site.name}.`);
+      toast.success(`Archived ${site.name}. An admin can restore it.`);
       onDeleted?.(site);
       close();
     } catch (err) {
@@ -42,20 +42,21 @@ export function DeleteSiteDialog({ site, onClose, onDeleted }: DeleteSiteDialogP
   return (
     <ConfirmDialog
       open={site !== null}
-      title="Delete this site?"
-      confirmLabel="Delete site"
+      title="Archive this site?"
+      confirmLabel="Archive site"
       pending={remove.isPending}
       error={error}
+      danger={false}
       onConfirm={confirm}
       onClose={close}
     >
       <p>
-        <strong>{site?.name}</strong> will be deleted
+        <strong>{site?.name}</strong>
         {boards === 0
-          ? '. It has no boards.'
-          : ` with its ${boards === 1 ? 'board' : `${boards} boards`} and all their revisions.`}
-        {' '}
-        This cannot be undone.
+          ? ' and its deleted drafts leave the lists.'
+          : ` and its ${boards === 1 ? 'board' : `${boards} boards`} leave the lists and become read-only.`}{' '}
+        Nothing is deleted: revisions, schedules, comments, label checks and photos stay readable, and an admin can
+        restore the site. A site holding an issued board can only be archived by an admin.
       </p>
     </ConfirmDialog>
   );

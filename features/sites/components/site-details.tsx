@@ -1,6 +1,7 @@
 'use client';
 
-import { ChevronRight, Pencil, Trash2 } from 'lucide-react';
+import { Archive, ChevronRight, Pencil } from 'lucide-react';
+import { toast } from 'sonner';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
@@ -8,11 +9,14 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
+import { ArchivedBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
+import { errorMessage } from '@/lib/api/client';
 import { can } from '@/lib/auth/permissions';
 import type { SiteSummary } from '@/lib/dal/sites';
 import type { Role } from '@/lib/domain';
 
+import { useRestoreSite } from '../api/use-site-mutations';
 import { useSite } from '../api/use-sites';
 import { DeleteSiteDialog } from './delete-site-dialog';
 import { SiteFormDialog } from './site-form';
@@ -41,8 +45,9 @@ export function SiteDetails({ site: initial, role }: SiteDetailsProps) {
           </Link>
         }
         title={site.name}
+        description={site.archived ? <SiteArchived site={site} canRestore={can(role, 'records.archive')} /> : undefined}
         actions={
-          canEdit ? (
+          canEdit && !site.archived ? (
             <>
               <Button variant="secondary" onClick={() => setEditing(true)}>
                 <Pencil aria-hidden className="h-4 w-4" />
@@ -53,8 +58,8 @@ export function SiteDetails({ site: initial, role }: SiteDetailsProps) {
                 onClick={() => setDeleting(true)}
                 className="hover:text-verdict-fail"
               >
-                <Trash2 aria-hidden className="h-4 w-4" />
-                Delete
+                <Archive aria-hidden className="h-4 w-4" />
+                Archive
               </Button>
             </>
           ) : null
@@ -99,5 +104,33 @@ function Detail({ term, children }: { term: string; children: React.ReactNode })
       <dt className="text-xs font-semibold tracking-wide text-ink-soft uppercase">{term}</dt>
       <dd className="mt-1 break-words text-ink">{children}</dd>
     </div>
+  );
+}
+
+/** An archived site's state, and the admin's way back. */
+function SiteArchived({ site, canRestore }: { site: SiteSummary; canRestore: boolean }) {
+  const restore = useRestoreSite();
+  return (
+    <span className="inline-flex flex-wrap items-center gap-2">
+      <ArchivedBadge />
+      <span>
+        Archived by {site.archived!.byName} on {new Date(site.archived!.at).toLocaleDateString('en-GB')}: read-only, kept whole.
+      </span>
+      {canRestore ? (
+        <Button
+          size="sm"
+          variant="secondary"
+          disabled={restore.isPending}
+          onClick={() =>
+            restore.mutate(site.id, {
+              onSuccess: () => toast.success(`Restored ${site.name} and its boards.`),
+              onError: (err) => toast.error(errorMessage(err)),
+            })
+          }
+        >
+          Restore
+        </Button>
+      ) : null}
+    </span>
   );
 }

@@ -21,6 +21,8 @@ type SitesTableProps = {
   canEdit: boolean;
   onRename: (site: SiteSummary) => void;
   onDelete: (site: SiteSummary) => void;
+  /** The word on a row's remove button (default "Archive"), null for none. */
+  removeLabelOf?: (site: SiteSummary) => string | null;
 };
 
 /** Searches a site's name, client and address. */
@@ -31,7 +33,7 @@ function matchesSearch(site: SiteSummary, query: string): boolean {
 }
 
 /** The organisation's sites: sortable by every column, searchable, editable by editors. */
-export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: SitesTableProps) {
+export function SitesTable({ sites, loading, canEdit, onRename, onDelete, removeLabelOf }: SitesTableProps) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'name', desc: false }]);
   const [search, setSearch] = useState('');
 
@@ -76,8 +78,8 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete }: Site
       lastChangeColumn(),
     ];
     if (!canEdit) return base;
-    return [...base, actionsColumn('Edit', onRename, onDelete)];
-  }, [canEdit, onRename, onDelete]);
+    return [...base, actionsColumn('Edit', onRename, onDelete, removeLabelOf ?? (() => 'Archive'))];
+  }, [canEdit, onRename, onDelete, removeLabelOf]);
 
   const table = useReactTable({
     data: sites,

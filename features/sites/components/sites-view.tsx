@@ -2,6 +2,7 @@
 
 import { Building2, Plus } from 'lucide-react';
 import { useCallback, useState } from 'react';
+import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -10,7 +11,9 @@ import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/permissions';
 import type { SiteSummary } from '@/lib/dal/sites';
 import type { Role } from '@/lib/domain';
+import { errorMessage } from '@/lib/api/client';
 
+import { useRestoreSite } from '../api/use-site-mutations';
 import { useSites } from '../api/use-sites';
 import { DeleteSiteDialog } from './delete-site-dialog';
 import { SiteFormDialog } from './site-form';
@@ -19,12 +22,28 @@ import { SitesTable } from './sites-table';
 /** The sites screen: the list with its loading, empty and error states, and the site dialogs. */
 export function SitesView({ role }: { role: Role }) {
   const canEdit = can(role, 'boards.edit');
-  const sites = useSites();
+  const canArchive = can(role, 'records.archive');
+  const [showArchived, setShowArchived] = useState(false);
+  const sites = useSites(showArchived);
+  const restore = useRestoreSite();
   const [creating, setCreating] = useState(false);
   const [editing, setEditing] = useState<SiteSummary | null>(null);
   const [deleting, setDeleting] = useState<SiteSummary | null>(null);
   const onRename = useCallback((site: SiteSummary) => setEditing(site), []);
-  const onDelete = useCallback((site: SiteSummary) => setDeleting(site), []);
+  const onDelete = useCallback(
+    (site: SiteSummary) => {
+      if (!site.archived) return setDeleting(site);
+      restore.mutate(site.id, {
+        onSuccess: () => toast.success(`Restored ${site.name} and its boards.`),
+        onError: (err) => toast.error(errorMessage(err)),
+      });
+    },
+    [restore],
+  );
+  const removeLabelOf = useCallback(
+    (site: SiteSummary) => (site.archived ? (canArchive ? 'Restore' : null) : 'Archive'),
+    [canArchive],
+  );
 
   const createButton = canEdit ? (
     <Button onClick={() => setCreating(true)}>
@@ -47,10 +66,12 @@ export function SitesView({ role }: { role: Role }) {
     body = (
       <EmptyState
         icon={<Building2 aria-hidden className="h-8 w-8" />}
-        title="No sites yet"
-        action={createButton}
+        title={showArchived ? 'No archived sites' : 'No sites yet'}
+        action={showArchived ? null : createButton}
       >
-        {canEdit
+        {showArchived
+          ? 'Archived sites are listed here; an admin can restore them.'
+          : canEdit
           ? 'A site is a building or installation; its boards live under it. Add the first one.'
           : 'When a designer adds a site it appears here.'}
       </EmptyState>
@@ -63,6 +84,7 @@ export function SitesView({ role }: { role: Role }) {
         canEdit={canEdit}
         onRename={onRename}
         onDelete={onDelete}
+        removeLabelOf={removeLabelOf}
       />
     );
   }
@@ -72,7 +94,15 @@ export function SitesView({ role }: { role: Role }) {
       <PageHeader
         title="Sites"
         description="Buildings and installations, each with its boards."
-        actions={sites.isSuccess && sites.data.length > 0 ? createButton : null}
+        actions={
+          <>
+            <label className="inline-flex items-center gap-2 text-sm text-ink-soft">
+              <input type="checkbox" checked={showArchived} onChange={(e) => setShowArchived(e.target.checked)} />
+              Show archived
+            </label>
+            {sites.isSuccess && sites.data.length > 0 && !showArchived ? createButton : null}
+          </>
+        }
       />
       {body}
       {canEdit ? (

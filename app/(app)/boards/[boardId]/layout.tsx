@@ -3,9 +3,10 @@ import { z } from 'zod';
 
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
-import { findBoard } from '@/lib/dal/boards';
+import { archiveStateOf, findBoard } from '@/lib/dal/boards';
 import { HttpError } from '@/lib/errors';
 
+import { ArchivedBanner } from './_components/archived-banner';
 import { BoardNav } from './_components/board-nav';
 
 type Props = { children: React.ReactNode; params: Promise<{ boardId: string }> };
@@ -23,7 +24,12 @@ export default async function BoardLayout({ children, params }: Props) {
   const issued = board.status === 'issued' || board.status === 'labels-matched';
   const tabs = [
     { href: `/boards/${boardId}`, label: 'Board', show: true },
-    { href: `/boards/${boardId}/review`, label: 'Review', show: can(actor.role, 'boards.review') },
+    // Reviewers review; designers read the review of their boards
+    {
+      href: `/boards/${boardId}/review`,
+      label: 'Review',
+      show: can(actor.role, 'boards.review') || can(actor.role, 'boards.edit'),
+    },
     {
       href: `/boards/${boardId}/schedule`,
       label: 'Schedule',
@@ -31,9 +37,13 @@ export default async function BoardLayout({ children, params }: Props) {
     },
     { href: `/boards/${boardId}/walk`, label: 'Label walk', show: can(actor.role, 'walk.record') },
   ].filter((t) => t.show);
+  const archived = await archiveStateOf(board);
   return (
     <div className="flex flex-col gap-4">
       <BoardNav tabs={tabs} />
+      {archived ? (
+        <ArchivedBanner boardId={boardId} siteId={board.siteId} state={archived} canRestore={can(actor.role, 'records.archive')} />
+      ) : null}
       {children}
     </div>
   );

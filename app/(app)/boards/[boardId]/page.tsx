@@ -7,7 +7,8 @@ import { RevisionDiff } from '@/features/review/components/revision-diff';
 import { can } from '@/lib/auth/permissions';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getBoard } from '@/lib/dal/boards';
+import { getArchiveState, getBoard } from '@/lib/dal/boards';
+import { getReturnNotes } from '@/lib/dal/review';
 import { HttpError } from '@/lib/errors';
 
 import { LabelFindings } from './_components/label-findings';
@@ -29,15 +30,25 @@ export default async function BoardPage({ params }: Props) {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   }
+  // An archived board is read-only for everyone; a returned one shows its review
+  const [archived, reviewNotes] = await Promise.all([
+    getArchiveState(actor, board.id),
+    getReturnNotes(actor, board.id),
+  ]);
   // What the role may do here; every route checks again on the server
   const abilities = {
-    edit: can(actor.role, 'boards.edit'),
+    edit: can(actor.role, 'boards.edit') && !archived,
     size: can(actor.role, 'sizing.run'),
-    submit: can(actor.role, 'boards.submit'),
+    submit: can(actor.role, 'boards.submit') && !archived,
   };
   return (
     <div className="flex flex-col gap-6">
-      <BoardEditor board={board} can={abilities} />
+      <BoardEditor
+        board={board}
+        can={abilities}
+        reviewNotes={archived ? null : reviewNotes}
+        readOnlyBecause={archived ? 'Archived: read only. An admin may restore it.' : null}
+      />
       <LabelFindings board={board} />
       <div className="grid gap-6 lg:grid-cols-2">
         <section aria-labelledby="revisions" className="rounded-card border border-line bg-paper-raised p-4">

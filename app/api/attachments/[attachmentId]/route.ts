@@ -16,10 +16,12 @@ export const GET = route<Params>(async (_req, params) => {
   return new Response(file.body, { headers: photoHeaders(file) });
 });
 
-/** DELETE /api/attachments/:id: removes a photo (those who may take them). */
+/**
+ * DELETE /api/attachments/:id: removes a photo (those who may take them); the photo of a board
+ * that was ever issued is withdrawn and kept.
+ */
 export const DELETE = route<Params>(async (_req, params) => {
   const { attachmentId } = parseParams(params, paramsSchema);
   const actor = await requireActor('walk.record');
-  await deleteAttachment(actor, attachmentId);
-  return new Response(null, { status: 204 });
+  return Response.json(await deleteAttachment(actor, attachmentId));
 });

@@ -1,7 +1,7 @@
 import { parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { boardRenameSchema, boardSaveSchema, idParamsSchema } from '@/lib/boards/schemas';
-import { deleteBoard, getBoard, renameBoard, saveBoard } from '@/lib/dal/boards';
+import { getBoard, removeBoard, renameBoard, saveBoard } from '@/lib/dal/boards';
 
 type Params = { boardId: string };
 
@@ -28,10 +28,12 @@ export const PATCH = route<Params>(async (req, params) => {
   return Response.json({ board: await renameBoard(actor, boardId, input) });
 });
 
-/** DELETE /api/boards/:boardId */
+/**
+ * DELETE /api/boards/:boardId: a board never issued is deleted (undo: POST …/undo-delete);
+ * a board ever issued is archived, by an admin only (lib/boards/record-rules.ts).
+ */
 export const DELETE = route<Params>(async (_req, params) => {
   const { boardId } = parseParams(params, idParamsSchema);
-  const actor = await requireActor('boards.edit');
-  await deleteBoard(actor, boardId);
-  return new Response(null, { status: 204 });
+  const actor = await requireActor('boards.discard');
+  return Response.json(await removeBoard(actor, boardId));
 });

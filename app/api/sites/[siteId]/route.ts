@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 import { parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
-import { deleteSite, getSite, siteInputSchema, updateSite } from '@/lib/dal/sites';
+import { archiveSite, getSite, siteInputSchema, updateSite } from '@/lib/dal/sites';
 
 const paramsSchema = z.object({ siteId: z.uuid() });
 
@@ -21,10 +21,12 @@ export const PATCH = route<{ siteId: string }>(async (req, params) => {
   return Response.json({ site: await updateSite(actor, siteId, input) });
 });
 
-/** DELETE /api/sites/:siteId: the site and its boards. */
+/**
+ * DELETE /api/sites/:siteId: archives the site (sites are never deleted); one holding an
+ * issued board only by an admin (lib/boards/record-rules.ts).
+ */
 export const DELETE = route<{ siteId: string }>(async (_req, params) => {
   const { siteId } = parseParams(params, paramsSchema);
-  const actor = await requireActor('boards.edit');
-  await deleteSite(actor, siteId);
-  return new Response(null, { status: 204 });
+  const actor = await requireActor('boards.discard');
+  return Response.json({ site: await archiveSite(actor, siteId) });
 });
