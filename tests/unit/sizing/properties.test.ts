@@ -208,7 +208,7 @@ const wideDevice = fc
 
 const wideSupply = fc.record({
   earthing: fc.constantFrom(...EARTHING_SYSTEMS),
-  uoV: anyNumber(50, 400),
+  uoV: anyNumber(90, 290),
   zeOhm: anyNumber(0, 2000),
   pfcKa: anyNumber(0, 200),
   source: fc.constantFrom('public', 'private'),
