@@ -151,13 +151,18 @@ export function breakerLetThrough(curve: Curve, inA: number, faultA: number): Fa
       : CLASS3_LET_THROUGH_A2S[`${curve}-${inA <= 16 ? 16 : 32}` as keyof typeof CLASS3_LET_THROUGH_A2S];
   if (table) {
     for (const [ip, i2t] of table) {
-      if (faultA <= ip && i2t < instantaneous) {
-        return { i2t, timeS: null, basis: `class 3 let-through limit at ${ip / 1000} kA (BS EN 60898-1 Annex ZA)` };
-      }
+      if (faultA <= ip && i2t < instantaneous) return { i2t, timeS: null, basis: LET_THROUGH_BASIS[ip] };
     }
   }
   return { i2t: instantaneous, timeS: 0.1, basis: 'I²t with t = 0.1 s (instantaneous trip)' };
 }
+
+/** How each let-through figure is described, by prospective current (built once). */
+const LET_THROUGH_BASIS: Record<number, string> = Object.fromEntries(
+  Object.values(CLASS3_LET_THROUGH_A2S)
+    .flat()
+    .map(([ip]) => [ip, `class 3 let-through limit at ${ip / 1000} kA (BS EN 60898-1 Annex ZA)`]),
+);
 
 /** Maximum tripping time of a general (non-delayed) RCD at IΔn, s (BS EN 61008/61009). */
 export const RCD_MAX_TIME_S = 0.3;

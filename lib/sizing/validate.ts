@@ -27,10 +27,13 @@ export class SizingInputError extends Error {
 }
 
 /**
- * Inputs this module parsed itself, deep-frozen so they cannot change afterwards: the
- * engine trusts these without parsing them again (the bench and the routes validate once).
+ * Marks an input this module parsed itself (a non-enumerable property, set before the input
+ * is deep-frozen so it cannot change afterwards): the engine trusts these without parsing
+ * them again. Spreading or copying an input does not copy the mark, so a changed copy is
+ * validated again. (A WeakSet lookup cost more than the rest of the check.)
  */
-const VALIDATED = new WeakSet<object>();
+const VALIDATED = Symbol('boardwright.sizing.validated');
+type Marked = { [VALIDATED]?: true };
 
 function deepFreeze<T>(value: T): T {
   if (value !== null && typeof value === 'object' && !Object.isFrozen(value)) {
@@ -47,9 +50,8 @@ function parseWith<T extends object>(schema: z.ZodType<T>, raw: unknown): T {
       parsed.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message })),
     );
   }
-  const value = deepFreeze(parsed.data);
-  VALIDATED.add(value);
-  return value;
+  Object.defineProperty(parsed.data, VALIDATED, { value: true, enumerable: false });
+  return deepFreeze(parsed.data);
 }
 
 /**
@@ -68,14 +70,10 @@ export function parseBoardInput(raw: unknown): BoardInput {
 
 /** The input itself if this module validated it, else the result of validating it (or a throw). */
 export function validCircuitInput(input: unknown): CircuitInput {
-  return typeof input === 'object' && input !== null && VALIDATED.has(input)
-    ? (input as CircuitInput)
-    : parseCircuitInput(input);
+  return (input as Marked | null)?.[VALIDATED] === true ? (input as CircuitInput) : parseCircuitInput(input);
 }
 
 /** As validCircuitInput, for a board. */
 export function validBoardInput(input: unknown): BoardInput {
-  return typeof input === 'object' && input !== null && VALIDATED.has(input)
-    ? (input as BoardInput)
-    : parseBoardInput(input);
+  return (input as Marked | null)?.[VALIDATED] === true ? (input as BoardInput) : parseBoardInput(input);
 }
