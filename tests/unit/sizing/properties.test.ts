@@ -268,8 +268,9 @@ describe('robustness', () => {
       }),
       { numRuns: 3000 },
     );
-    expect(accepted).toBeGreaterThan(100);
-    expect(refused).toBeGreaterThan(100);
+    // Both sides of the schema are reached (about 3 % of these wide inputs are valid)
+    expect(accepted).toBeGreaterThan(50);
+    expect(refused).toBeGreaterThan(1000);
   });
 
   it('sizeBoard never throws on any board that passes the schema', () => {
