@@ -5,7 +5,7 @@
  */
 import { layoutWays, railOrder } from '@/lib/boards/layout';
 import { type SnapshotWay } from '@/lib/boards/revision-diff';
-import { deviceName } from '@/lib/names';
+import { deviceName, loadTypeName } from '@/lib/names';
 import type { ScheduleSource } from '@/lib/dal/review';
 import { SIZING_CAUTION, type CircuitResult, type Verdict } from '@/lib/sizing';
 import type { LabelStatus } from '@/models/way';
@@ -13,6 +13,7 @@ import type { LabelStatus } from '@/models/way';
 export type ColumnKey =
   | 'way'
   | 'serves'
+  | 'load'
   | 'protection'
   | 'ib'
   | 'cable'
@@ -39,7 +40,8 @@ export type ScheduleColumn = {
  */
 export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { key: 'way', heading: 'Way', width: 40, align: 'left' },
-  { key: 'serves', heading: 'Serves', width: 150, align: 'left' },
+  { key: 'serves', heading: 'Serves', width: 96, align: 'left' },
+  { key: 'load', heading: 'Kind of load', width: 54, align: 'left' },
   { key: 'protection', heading: 'Protection', width: 92, align: 'left' },
   { key: 'ib', heading: 'Ib A', width: 34, align: 'right' },
   { key: 'cable', heading: 'Cable, method', width: 78, align: 'left' },
@@ -167,6 +169,7 @@ function rowFor(
     return { wayId: way.id, cells, verdict: null, spare: way.device.kind !== 'spd', label: label?.status ?? null };
   }
   cells.serves = c.serves?.trim() || '(not named)';
+  cells.load = loadTypeName(c);
   cells.cable = `${CABLE_WORDS[c.cable] ?? c.cable}, ref ${c.method}`;
   cells.run = num(c.lengthM, 0);
   if (result) {
