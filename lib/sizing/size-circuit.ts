@@ -152,6 +152,29 @@ class RowEvaluator implements SizeEvaluator {
   }
 }
 
+/** Rows with each size's rating min(It, It of method C × Ci), built once per column and Ci. */
+const INSULATED_ROWS = new Map<string, readonly CableRowData[]>();
+
+function insulatedRows(
+  cable: CircuitInput['circuit']['cable'],
+  method: string,
+  phases: 1 | 3,
+  tableRows: readonly CableRowData[],
+  ci: number,
+): readonly CableRowData[] {
+  const key = `${cable}|${method}|${phases}|${ci}`;
+  let rows = INSULATED_ROWS.get(key);
+  if (!rows) {
+    const methodC = cableRows(cable, 'C', phases);
+    rows = tableRows.map((r, i) => {
+      const itC = methodC && methodC[i]?.csaMm2 === r.csaMm2 ? methodC[i].itA : null;
+      return { ...r, itA: effectiveTabulated(r.itA, itC, ci) };
+    });
+    INSULATED_ROWS.set(key, rows);
+  }
+  return rows;
+}
+
 function teConstructionCpc(csaMm2: number): number | null {
   const i = (TWIN_AND_EARTH_4D5.sizesMm2 as readonly number[]).indexOf(csaMm2);
   return i < 0 ? null : TWIN_AND_EARTH_4D5.cpcMm2[i];
@@ -216,13 +239,7 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
   // the run is surrounded by insulation, each size's rating is min(It, It of method C × Ci).
   const tableRows = cableRows(c.cable, c.method, c.phases);
   let rows = tableRows;
-  if (tableRows && insulated) {
-    const methodC = cableRows(c.cable, 'C', c.phases);
-    rows = tableRows.map((r, i) => {
-      const itC = methodC && methodC[i]?.csaMm2 === r.csaMm2 ? methodC[i].itA : null;
-      return { ...r, itA: effectiveTabulated(r.itA, itC, factors.ci) };
-    });
-  }
+  if (tableRows && insulated) rows = insulatedRows(c.cable, c.method, c.phases, tableRows, factors.ci);
   const methodOk = methodsFor(c.cable).includes(c.method);
   const cableName = CABLE_SHORT_NAMES[c.cable];
   if (!methodOk) {

@@ -1,6 +1,7 @@
 import { DndContext } from '@dnd-kit/core';
 import { act, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+// @ts-expect-error -- its types are not reachable through the package's exports map
 import { computeAccessibleName } from 'dom-accessibility-api';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 
