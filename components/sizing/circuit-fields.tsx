@@ -145,8 +145,8 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
               }
             }}
           >
-            <option value="known">A known load (watts)</option>
-            <option value="socket-arrangement">A socket-outlet arrangement</option>
+            <option value="known">Known load (W)</option>
+            <option value="socket-arrangement">Socket-outlet arrangement</option>
           </Select>
         ),
         { label: L.loadGivenAs },

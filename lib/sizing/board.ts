@@ -314,7 +314,7 @@ export function sizeBoard(raw: BoardInput): BoardResult {
   const incomingCheck = check(
     'incoming',
     incomingOk,
-    `Incoming ${deviceName({ kind: inc.kind, ratingA: inc.ratingA, rcdMa: inc.rcdMa })} ${incomingOk ? '≥' : '<'} maximum demand ${maxDemandA.toFixed(1)} A.`,
+    `${deviceName({ kind: inc.kind, ratingA: inc.ratingA, rcdMa: inc.rcdMa })} (incoming) ${incomingOk ? '≥' : '<'} maximum demand ${maxDemandA.toFixed(1)} A.`,
     `${BS7671} 311.1, 433.1.1`,
   );
   const busbarCheck =

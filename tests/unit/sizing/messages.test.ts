@@ -227,6 +227,6 @@ describe('check messages name things in words', () => {
     );
     const poles = out.summary.checks.find((k) => k.code === 'poles')!;
     expect(poles.message).toBe('Way 2L1: a three-phase circuit needs a 3- or 4-pole device.');
-    expect(out.summary.incomingCheck.message).toMatch(/^Incoming BS 88-2 fuse 63 A ≥ maximum demand/);
+    expect(out.summary.incomingCheck.message).toMatch(/^BS 88-2 fuse 63 A \(incoming\) ≥ maximum demand/);
   });
 });
