@@ -8,11 +8,14 @@
  */
 import type { BoardStatus, LabelStatus, Role } from './domain';
 import type {
+  ArmouredCpc,
   CableKind,
   CircuitUse,
   Curve,
+  LoadType,
   Method,
   SocketArrangementKind,
+  SpecialLocation,
   Verdict,
 } from './sizing/types';
 
@@ -57,8 +60,84 @@ export const USE_NAMES: Record<CircuitUse, string> = {
   lighting: 'Lighting',
   sockets: 'Socket-outlets',
   fixed: 'Fixed equipment',
-  distribution: 'Distribution (sub-main)',
+  distribution: 'Distribution (feeds another board)',
 };
+
+/** The kind of load a way feeds (it sets the diversity allowance); shown on the schedule. */
+export const LOAD_TYPE_NAMES: Record<LoadType, string> = {
+  lighting: 'Lighting',
+  sockets: 'Socket-outlets',
+  cooker: 'Cooker',
+  shower: 'Electric shower',
+  'water-heater': 'Water heater',
+  'storage-heating': 'Storage heating',
+  'ev-charger': 'EV charger',
+  motor: 'Motor',
+  other: 'Other load',
+};
+
+/**
+ * The kind of load of a circuit as the schedule and review show it: the one chosen, else
+ * what its use makes it (the engine's rule: lighting, socket-outlets, other).
+ */
+export function loadTypeName(circuit: { loadType?: LoadType; use: CircuitUse }): string {
+  if (circuit.use === 'distribution') return USE_NAMES.distribution;
+  if (circuit.loadType) return LOAD_TYPE_NAMES[circuit.loadType];
+  return circuit.use === 'lighting' || circuit.use === 'sockets' ? LOAD_TYPE_NAMES[circuit.use] : LOAD_TYPE_NAMES.other;
+}
+
+/** Where a circuit goes, for the special-location rules of BS 7671 Part 7. */
+export const SPECIAL_LOCATION_NAMES: Record<SpecialLocation, string> = {
+  none: 'No special location',
+  'bath-shower': 'A room with a bath or shower',
+  outdoors: 'Outdoors',
+};
+
+/** What an armoured cable uses as its protective conductor. */
+export const ARMOURED_CPC_NAMES: Record<ArmouredCpc, string> = {
+  'spare-core': 'A spare core of the cable',
+  armour: 'The steel armour',
+};
+
+/** How grouped cables lie (BS 7671 Table 4C1). */
+export const GROUPING_NAMES = {
+  bunched: 'Bunched or enclosed',
+  'single-layer': 'Single layer on a wall or floor',
+} as const;
+
+/**
+ * One name per circuit field, used by the way panel and quick size alike (they share one
+ * circuit-fields component), so the two screens cannot drift apart.
+ */
+export const CIRCUIT_FIELD_LABELS = {
+  serves: 'Serves',
+  use: 'Use',
+  loadType: 'Kind of load',
+  phases: 'Phases',
+  loadGivenAs: 'Load given as',
+  watts: 'Load (W)',
+  powerFactor: 'Power factor',
+  arrangement: 'Socket arrangement',
+  floorAreaM2: 'Floor area (m²)',
+  assumedA: 'Assumed load (A)',
+  cable: 'Cable',
+  method: 'Reference method',
+  lengthM: 'Length (m)',
+  ambientC: 'Ambient (°C)',
+  circuits: 'Circuits grouped',
+  groupedHow: 'Grouped how',
+  spacingM: 'Clearance in the ground (m)',
+  inDucts: 'In ducts in the ground (not laid direct)',
+  insulationMm: 'Run in insulation (mm)',
+  csaMm2: 'Cable size',
+  armouredCpc: 'Armoured cable cpc',
+  specialLocation: 'Where it goes',
+  concealedInWall: 'Concealed in a wall less than 50 mm deep, without earthed protection',
+  buried: 'Buried in the ground',
+} as const;
+
+/** The words for a cable size the designer fixed (checked, never changed) and "choose it". */
+export const CABLE_SIZE_WORDS = { choose: 'Choose for me', fixed: (mm2: number) => `${mm2} mm² (fixed, checked)` } as const;
 
 export const VERDICT_WORDS: Record<Verdict, string> = {
   passes: 'Passes',

@@ -30,6 +30,8 @@ export class Board extends Model {
   declare enclosureModules: number;
   declare rails: number;
   declare dwelling: boolean;
+  /** Rated conditional short-circuit current of the assembly, kA (BS EN 61439-3), or null. */
+  declare conditionalRatingKa: number | null;
   declare status: BoardStatus;
   /** Bumped on every save; a save naming an older version is refused (optimistic locking). */
   declare version: number;
@@ -61,6 +63,7 @@ export class Board extends Model {
         enclosureModules: { type: DataTypes.SMALLINT, allowNull: false },
         rails: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: 1 },
         dwelling: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        conditionalRatingKa: { type: DataTypes.DOUBLE, allowNull: true },
         status: { type: DataTypes.ENUM(...BOARD_STATUSES), allowNull: false, defaultValue: 'draft' },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
         revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },

@@ -87,6 +87,8 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     enclosureModules: 18,
     rails: 1,
     dwelling: true,
+    // A consumer unit to BS EN 61439-3 (its maker's declaration; invented for the demo)
+    conditionalRatingKa: 16,
   },
   ways: [
     mainSwitch(2, 100),
@@ -94,6 +96,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 32, {
       serves: 'Sockets: kitchen and utility (ring)',
       use: 'sockets',
+      loadType: 'sockets',
       load: { kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 18 },
       lengthM: 34,
       cable: 'te-70',
@@ -103,6 +106,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 32, {
       serves: 'Sockets: living room and bedrooms (ring)',
       use: 'sockets',
+      loadType: 'sockets',
       load: { kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 52 },
       lengthM: 58,
       cable: 'te-70',
@@ -112,6 +116,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 6, {
       serves: 'Lighting: kitchen, living room, hall',
       use: 'lighting',
+      loadType: 'lighting',
       load: known(420, 0.9),
       lengthM: 26,
       cable: 'te-70',
@@ -121,6 +126,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 16, {
       serves: 'Immersion heater, airing cupboard',
       use: 'fixed',
+      loadType: 'water-heater',
       load: known(3000),
       lengthM: 9,
       cable: 'te-70',
@@ -131,6 +137,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 32, {
       serves: 'Cooker: oven and hob',
       use: 'fixed',
+      loadType: 'cooker',
       load: known(6900),
       lengthM: 11,
       cable: 'te-70',
@@ -140,6 +147,8 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 6, {
       serves: 'Towel rail and extract fan, bathroom',
       use: 'fixed',
+      loadType: 'other',
+      specialLocation: 'bath-shower',
       load: known(450, 0.95),
       lengthM: 12,
       cable: 'te-70',
@@ -148,6 +157,8 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 6, {
       serves: 'Lighting: bedrooms and bathroom',
       use: 'lighting',
+      loadType: 'lighting',
+      specialLocation: 'bath-shower',
       load: known(300, 0.9),
       lengthM: 22,
       cable: 'te-70',
@@ -156,6 +167,7 @@ export const FLAT_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 6, {
       serves: 'Smoke and heat alarms',
       use: 'fixed',
+      loadType: 'other',
       load: known(40),
       lengthM: 24,
       cable: 'te-70',
@@ -184,26 +196,27 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
       'mcb',
       'C',
       20,
-      { serves: 'Panel saw', use: 'fixed', load: known(7500, 0.85), lengthM: 18, ...swa },
+      { serves: 'Panel saw', use: 'fixed', loadType: 'motor', load: known(7500, 0.85), lengthM: 18, ...swa },
       3,
     ),
     breaker(
       'mcb',
       'C',
       16,
-      { serves: 'Dust extractor', use: 'fixed', load: known(5500, 0.85), lengthM: 26, ...swa },
+      { serves: 'Dust extractor', use: 'fixed', loadType: 'motor', load: known(5500, 0.85), lengthM: 26, ...swa },
       3,
     ),
     breaker(
       'mcb',
       'C',
       20,
-      { serves: 'Spindle moulder', use: 'fixed', load: known(7500, 0.85), lengthM: 14, ...swa },
+      { serves: 'Spindle moulder', use: 'fixed', loadType: 'motor', load: known(7500, 0.85), lengthM: 14, ...swa },
       3,
     ),
     breaker('rcbo', 'B', 10, {
       serves: 'Lighting: machine shop',
       use: 'lighting',
+      loadType: 'lighting',
       load: known(1400, 0.95),
       lengthM: 38,
       cable: 'single-pvc-70',
@@ -213,6 +226,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('rcbo', 'B', 6, {
       serves: 'Lighting: office, WC, store',
       use: 'lighting',
+      loadType: 'lighting',
       load: known(450, 0.95),
       lengthM: 24,
       cable: 'single-pvc-70',
@@ -222,6 +236,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('rcbo', 'B', 6, {
       serves: 'Emergency lighting',
       use: 'lighting',
+      loadType: 'lighting',
       load: known(120, 0.9),
       lengthM: 40,
       cable: 'single-pvc-70',
@@ -231,6 +246,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('rcbo', 'B', 20, {
       serves: 'Sockets: bench wall (radial)',
       use: 'sockets',
+      loadType: 'sockets',
       load: { kind: 'socket-arrangement', arrangement: 'radial-20', floorAreaM2: 40 },
       lengthM: 28,
       cable: 'single-pvc-70',
@@ -240,6 +256,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('rcbo', 'B', 32, {
       serves: 'Sockets: office and mess room (radial)',
       use: 'sockets',
+      loadType: 'sockets',
       load: { kind: 'socket-arrangement', arrangement: 'radial-32', floorAreaM2: 35 },
       lengthM: 22,
       cable: 'single-pvc-70',
@@ -249,6 +266,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('rcbo', 'B', 16, {
       serves: 'Water heater, mess room',
       use: 'fixed',
+      loadType: 'water-heater',
       load: known(3000),
       lengthM: 16,
       cable: 'multi-pvc-70',
@@ -257,6 +275,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'C', 16, {
       serves: 'Compressor',
       use: 'fixed',
+      loadType: 'motor',
       load: known(2200, 0.8),
       lengthM: 12,
       cable: 'multi-pvc-70',
@@ -265,6 +284,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'C', 16, {
       serves: 'Pillar drill and bench grinder',
       use: 'fixed',
+      loadType: 'motor',
       load: known(1500, 0.8),
       lengthM: 15,
       cable: 'multi-pvc-70',
@@ -273,6 +293,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'C', 20, {
       serves: 'Spray booth extract fan',
       use: 'fixed',
+      loadType: 'motor',
       load: known(1800, 0.85),
       lengthM: 20,
       cable: 'multi-pvc-70',
@@ -281,6 +302,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('rcbo', 'B', 16, {
       serves: 'Roller door motor',
       use: 'fixed',
+      loadType: 'motor',
       load: known(750, 0.8),
       lengthM: 10,
       cable: 'multi-pvc-70',
@@ -289,6 +311,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('rcbo', 'B', 20, {
       serves: 'Office heater',
       use: 'fixed',
+      loadType: 'other',
       load: known(3000),
       lengthM: 18,
       cable: 'multi-pvc-70',
@@ -297,6 +320,7 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
     breaker('mcb', 'B', 6, {
       serves: 'Fire alarm panel',
       use: 'fixed',
+      loadType: 'other',
       load: known(60),
       lengthM: 8,
       cable: 'multi-pvc-70',

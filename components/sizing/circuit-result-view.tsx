@@ -45,7 +45,7 @@ function Step({ n, title, children }: { n: number; title: string; children: Reac
  */
 export function CircuitResultView({ result, compact }: { result: CircuitResult; compact?: boolean }) {
   const f = result.factors;
-  const product = f.ca === null ? null : f.ca * f.cg * f.ci * f.cc;
+  const product = f.ca === null || f.cg === null ? null : f.ca * f.cg * f.ci * f.cc;
   return (
     <div className="flex flex-col gap-3" data-testid="circuit-result">
       <div className="flex items-center justify-between">

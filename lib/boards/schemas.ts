@@ -1,11 +1,12 @@
 import { z } from 'zod';
-import { circuitSpecSchema, deviceOnRailSchema } from '@/lib/sizing';
+import { circuitSpecSchema, deviceOnRailSchema, UO_MESSAGE } from '@/lib/sizing';
 
 /** The supply at the board's origin, as the designer records it. */
 export const boardSupplySchema = z
   .object({
     earthing: z.enum(['TN-S', 'TN-C-S', 'TT']),
-    uoV: z.number().min(100).max(300),
+    // Line-to-earth (230 V on a 230/400 V supply); the engine refuses anything outside 100–277 V
+    uoV: z.number().min(100, UO_MESSAGE).max(277, UO_MESSAGE),
     zeOhm: z.number().min(0).max(200),
     pfcKa: z.number().min(0).max(100),
     source: z.enum(['public', 'private']),
@@ -31,6 +32,11 @@ export const boardSettingsSchema = z
     enclosureModules: z.number().int().min(4).max(400),
     rails: z.number().int().min(1).max(12).default(1),
     dwelling: z.boolean().default(false),
+    /**
+     * Rated conditional short-circuit current of the assembly, kA, where the maker declares
+     * one (a consumer unit to BS EN 61439-3: 16 kA); null or absent when none is declared.
+     */
+    conditionalRatingKa: z.number().gt(0, 'must be above 0 kA').max(200).nullable().optional(),
   })
   .strict();
 export type BoardSettings = z.infer<typeof boardSettingsSchema>;
@@ -99,5 +105,6 @@ export function settingsOf(board: BoardSettings): BoardSettings {
     enclosureModules: board.enclosureModules,
     rails: board.rails,
     dwelling: board.dwelling,
+    conditionalRatingKa: board.conditionalRatingKa ?? null,
   };
 }

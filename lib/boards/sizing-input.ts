@@ -16,6 +16,7 @@ export function boardSizingInput(settings: BoardSettings, ways: readonly WayInpu
     enclosureModules: settings.enclosureModules,
     incoming: settings.incoming,
     dwelling: settings.dwelling,
+    conditionalRatingKa: settings.conditionalRatingKa ?? null,
     ways: ordered.map((way) => {
       const phase = places.get(way.id)?.phases;
       const onePhase = settings.phases === 3 && way.device.poles < 3 && phase?.length === 1;

@@ -197,7 +197,7 @@ const BOARD_DTO_JSON = `json_build_object(
   'id', b.id, 'siteId', b.site_id, 'siteName', (SELECT s.name FROM sites s WHERE s.id = b.site_id),
   'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
   'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails,
-  'dwelling', b.dwelling, 'status', b.status, 'version', b.version, 'revision', b.revision,
+  'dwelling', b.dwelling, 'conditionalRatingKa', b.conditional_rating_ka, 'status', b.status, 'version', b.version, 'revision', b.revision,
   'updatedAt', ${isoSql('b.updated_at')},
   'ways', COALESCE((
     SELECT json_agg(json_build_object(
@@ -368,7 +368,7 @@ const SAVE_SQL = `
 WITH b AS (
   UPDATE boards SET
     name = $4, location = $5, phases = $6, supply = $7::jsonb, incoming = $8::jsonb,
-    enclosure_modules = $9, rails = $10, dwelling = $11,
+    enclosure_modules = $9, rails = $10, dwelling = $11, conditional_rating_ka = $18,
     status = CASE WHEN $12 THEN 'draft' ELSE status END,
     revision = revision + CASE WHEN $12 THEN 1 ELSE 0 END,
     version = version + 1, updated_at = now(), design_changed_by_id = $16
@@ -487,6 +487,7 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
       diff.removed,
       actor.userId,
       JSON.stringify(events),
+      settings.conditionalRatingKa ?? null,
     ]);
   } catch (err) {
     // A new way's id that some way already has (on this board or any other)

@@ -1,6 +1,9 @@
+import { layoutWays } from '../boards/layout';
+import { deviceName, wayName } from '../names';
 import type { BoardInput, CircuitFields, CircuitSpec, DeviceOnRail } from './schemas';
-import { sizeCircuit } from './size-circuit';
-import type { Check, CircuitResult, ProtectiveDeviceKind } from './types';
+import { BS7671, sizeValidCircuit } from './size-circuit';
+import type { Check, CircuitResult, LoadType, ProtectiveDeviceKind } from './types';
+import { validBoardInput } from './validate';
 
 export type Phase = 'L1' | 'L2' | 'L3';
 
@@ -57,6 +60,7 @@ export function circuitForWay(
   device: DeviceOnRail,
   upstreamRcdMa: number | null,
   boardDwelling: boolean | undefined,
+  conditionalRatingKa: number | null = null,
 ): CircuitFields {
   const kind = device.kind as ProtectiveDeviceKind;
   return {
@@ -68,22 +72,47 @@ export function circuitForWay(
       ratingA: device.ratingA ?? null,
       breakingKa: device.breakingKa,
       rcdMa: kind === 'rcbo' ? (device.rcdMa ?? null) : upstreamRcdMa,
+      conditionalRatingKa,
     },
   };
 }
 
-type DiversityClass = 'lighting' | 'sockets' | 'cooker' | 'water-heater' | 'heating-power' | 'distribution';
+/** A diversity group: the kind of load, or distribution for a sub-main. */
+type DiversityClass = LoadType | 'distribution';
 
-/** Household load class of a circuit, from its use and (for fixed loads) its `serves` text. */
+/**
+ * The diversity group of a circuit: distribution circuits by their use; otherwise the kind of
+ * load chosen for the way. Where none was chosen it follows the use (lighting, sockets) and
+ * a fixed load counts as "other" (heating and power, the more cautious allowance). Never
+ * guessed from the way's free text.
+ */
 export function diversityClass(spec: CircuitSpec): DiversityClass {
+  if (spec.use === 'distribution') return 'distribution';
+  if (spec.loadType) return spec.loadType;
   if (spec.use === 'lighting') return 'lighting';
   if (spec.use === 'sockets') return 'sockets';
-  if (spec.use === 'distribution') return 'distribution';
-  const serves = spec.serves ?? '';
-  if (/cook|oven|hob/i.test(serves)) return 'cooker';
-  if (/shower|instantaneous|water heater/i.test(serves)) return 'water-heater';
-  return 'heating-power';
+  return 'other';
 }
+
+/** Kinds of load that take no diversity (100 %), with where that comes from. */
+const NO_DIVERSITY: Partial<Record<DiversityClass, { rule: string; source: string }>> = {
+  'ev-charger': {
+    rule: 'Electric vehicle chargers: 100 % (no diversity)',
+    source: 'BS 7671:2018+A2:2022 722.311 (from memory): no diversity for a charging point circuit',
+  },
+  'storage-heating': {
+    rule: 'Thermal storage space heating: 100 % (no diversity)',
+    source: 'Common practice: UK on-site guidance, household allowances for diversity',
+  },
+  'water-heater': {
+    rule: 'Thermostatically controlled water heaters: 100 % (no diversity)',
+    source: 'Common practice: UK on-site guidance, household allowances for diversity',
+  },
+  distribution: {
+    rule: 'Distribution circuits: 100 % (the board downstream applies its own diversity)',
+    source: 'Assumption',
+  },
+};
 
 interface Loaded {
   id: string;
@@ -93,13 +122,17 @@ interface Loaded {
 }
 
 /**
- * Diversified current of each circuit, A, and the rules used.
- * Dwellings: household allowances (common practice, UK on-site guidance): lighting 66 %;
- * sockets 100 % of the largest + 40 % of the rest; cooking 10 A + 30 % of the remainder
- * (no cooker-unit socket assumed); instantaneous water heaters 100 % + 100 % + 25 % of the
- * rest; heating and power 100 % up to 10 A + 50 % of the balance; distribution 100 %.
- * A group allowance is shared among its circuits in proportion to Ib.
- * Others: 100 % of the largest circuit + 75 % of the rest (assumption, common practice).
+ * Diversified current of each circuit, A, and the rules used, by the kind of load of each way.
+ * Both kinds of premises: EV chargers (BS 7671 722.311, from memory), storage heating and
+ * thermostatic water heaters take 100 %; distribution circuits 100 %.
+ * Dwellings (common practice, UK on-site guidance, household allowances): lighting 66 %;
+ * sockets 100 % of the largest + 40 % of the rest; cooking 10 A + 30 % of the remainder (no
+ * cooker-unit socket assumed); showers (instantaneous water heaters) 100 % + 100 % + 25 % of
+ * the rest; motors 100 % of the largest + 80 % of the second + 60 % of the rest (the guidance's
+ * allowance for small premises, from memory); other heating and power 100 % up to 10 A + 50 %
+ * of the balance. A group allowance is shared among its circuits in proportion to Ib.
+ * Non-dwellings: the rest at 100 % of the largest circuit + 75 % of the others (assumption,
+ * common practice).
  */
 export function applyDiversity(
   loads: Loaded[],
@@ -108,19 +141,12 @@ export function applyDiversity(
   const amps = new Map<string, number>();
   const rules: DiversityRule[] = [];
   const byIbDesc = (a: Loaded, b: Loaded) => b.ibA - a.ibA;
-  if (!dwelling) {
-    const sorted = [...loads].sort(byIbDesc);
-    sorted.forEach((l, i) => amps.set(l.id, l.ibA * (i === 0 ? 1 : 0.75)));
-    rules.push({
-      rule: '100 % of the largest circuit + 75 % of every other',
-      source: 'Assumption (common practice for a non-dwelling); replace with a load study where one exists',
-    });
-    return { amps, rules };
-  }
   const groups = new Map<DiversityClass, Loaded[]>();
+  const rest: Loaded[] = [];
   for (const l of loads) {
     const k = diversityClass(l.spec);
-    groups.set(k, [...(groups.get(k) ?? []), l]);
+    if (NO_DIVERSITY[k] || dwelling) groups.set(k, [...(groups.get(k) ?? []), l]);
+    else rest.push(l);
   }
   const src = 'Common practice: UK on-site guidance, household allowances for diversity';
   const share = (group: Loaded[], totalAllowed: number) => {
@@ -130,7 +156,11 @@ export function applyDiversity(
   for (const [k, group] of groups) {
     const total = group.reduce((s, l) => s + l.ibA, 0);
     const sorted = [...group].sort(byIbDesc);
-    if (k === 'lighting') {
+    const fixed = NO_DIVERSITY[k];
+    if (fixed) {
+      share(group, total);
+      rules.push(fixed);
+    } else if (k === 'lighting') {
       share(group, 0.66 * total);
       rules.push({ rule: 'Lighting: 66 % of the total demand', source: src });
     } else if (k === 'sockets') {
@@ -139,22 +169,28 @@ export function applyDiversity(
     } else if (k === 'cooker') {
       share(group, Math.min(total, 10 + 0.3 * Math.max(0, total - 10)));
       rules.push({ rule: 'Cooking: 10 A + 30 % of the remainder (no socket on the control unit assumed)', source: src });
-    } else if (k === 'water-heater') {
+    } else if (k === 'shower') {
       sorted.forEach((l, i) => amps.set(l.id, l.ibA * (i < 2 ? 1 : 0.25)));
-      rules.push({ rule: 'Instantaneous water heaters: 100 % of the largest + 100 % of the second + 25 % of the rest', source: src });
-    } else if (k === 'heating-power') {
-      share(group, Math.min(total, 10 + 0.5 * Math.max(0, total - 10)));
-      rules.push({ rule: 'Heating and power: 100 % up to 10 A + 50 % of the balance', source: src });
+      rules.push({ rule: 'Showers (instantaneous water heaters): 100 % of the largest + 100 % of the second + 25 % of the rest', source: src });
+    } else if (k === 'motor') {
+      sorted.forEach((l, i) => amps.set(l.id, l.ibA * (i === 0 ? 1 : i === 1 ? 0.8 : 0.6)));
+      rules.push({ rule: 'Motors: 100 % of the largest + 80 % of the second + 60 % of the rest', source: `${src} (small premises; from memory)` });
     } else {
-      share(group, total);
-      rules.push({ rule: 'Distribution circuits: 100 % (the board downstream applies its own diversity)', source: 'Assumption' });
+      share(group, Math.min(total, 10 + 0.5 * Math.max(0, total - 10)));
+      rules.push({ rule: 'Other heating and power: 100 % up to 10 A + 50 % of the balance', source: src });
     }
   }
-  if (loads.some((l) => diversityClass(l.spec) !== l.spec.use && l.spec.use === 'fixed')) {
-    rules.push({ rule: 'Fixed loads classed as cooking or water heating from their "serves" text', source: 'Assumption' });
+  if (rest.length > 0) {
+    [...rest].sort(byIbDesc).forEach((l, i) => amps.set(l.id, l.ibA * (i === 0 ? 1 : 0.75)));
+    rules.push({
+      rule: 'Other circuits: 100 % of the largest + 75 % of every other',
+      source: 'Assumption (common practice for a non-dwelling); replace with a load study where one exists',
+    });
   }
   return { amps, rules };
 }
+
+const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 const check = (code: string, ok: boolean, message: string, reference: string): Check => ({
   code,
@@ -167,10 +203,21 @@ const check = (code: string, ok: boolean, message: string, reference: string): C
  * Size every way of a board and summarise it: connected load, maximum demand after
  * diversity, phase currents and imbalance, incoming device and busbar against the demand,
  * modules used, verdict counts and which RCD protects which ways. An RCD protects the ways
- * after it until the next RCD or main switch; an RCBO protects its own way. `input` must
- * already have been validated with `boardInputSchema`. Never throws for validated input.
+ * after it until the next RCD or main switch; an RCBO protects its own way. The input is
+ * validated here (a SizingInputError names each bad field; see `parseBoardInput`). Messages
+ * name ways by their way number (lib/boards/layout.ts), never by id. Never throws for a
+ * valid input.
  */
-export function sizeBoard(input: BoardInput): BoardResult {
+export function sizeBoard(raw: BoardInput): BoardResult {
+  const input = validBoardInput(raw);
+  // Way numbers as the rail gives them (the ways are in rail order).
+  const labels = new Map(
+    layoutWays(
+      input.phases,
+      input.ways.map((w, position) => ({ id: w.id, rail: 0, position, device: w.device })),
+    ).map((p) => [p.id, p.label]),
+  );
+  const nameOf = (id: string) => wayName(labels.get(id) ?? '?');
   const ways: WayResult[] = [];
   const loads: Loaded[] = [];
   const rcdCoverage: Array<{ rcdId: string; wayIds: string[] }> = [];
@@ -211,9 +258,15 @@ export function sizeBoard(input: BoardInput): BoardResult {
       continue;
     }
     const spec = way.circuit;
-    const result = sizeCircuit({
+    const result = sizeValidCircuit({
       supply: input.supply,
-      circuit: circuitForWay(spec, d, d.kind === 'rcbo' ? null : (upstream?.ma ?? null), input.dwelling),
+      circuit: circuitForWay(
+        spec,
+        d,
+        d.kind === 'rcbo' ? null : (upstream?.ma ?? null),
+        input.dwelling,
+        input.conditionalRatingKa ?? null,
+      ),
     });
     ways.push({ id: way.id, result, protectedBy });
     if (result.verdict === 'passes') counts.passes += 1;
@@ -229,10 +282,15 @@ export function sizeBoard(input: BoardInput): BoardResult {
     if (input.phases === 3) {
       if (spec.phases === 3) phases = ['L1', 'L2', 'L3'];
       else if (d.phase) phases = [d.phase];
-      else notes.push(`Way ${way.id}: no phase set; counted on L1.`);
+      else notes.push(`${capitalise(nameOf(way.id))}: no phase set; counted on L1.`);
       if (spec.phases === 3 && d.poles < 3) {
         boardChecks.push(
-          check('poles', false, `Way ${way.id}: a three-phase circuit needs a 3- or 4-pole device.`, 'BS 7671:2018 530.3'),
+          check(
+            'poles',
+            false,
+            `${capitalise(nameOf(way.id))}: a three-phase circuit needs a 3- or 4-pole device.`,
+            `${BS7671} 530.3`,
+          ),
         );
       }
     }
@@ -256,8 +314,8 @@ export function sizeBoard(input: BoardInput): BoardResult {
   const incomingCheck = check(
     'incoming',
     incomingOk,
-    `Incoming ${inc.kind} ${inc.ratingA} A ${incomingOk ? '≥' : '<'} maximum demand ${maxDemandA.toFixed(1)} A.`,
-    'BS 7671:2018 311.1, 433.1.1',
+    `${deviceName({ kind: inc.kind, ratingA: inc.ratingA, rcdMa: inc.rcdMa })} (incoming) ${incomingOk ? '≥' : '<'} maximum demand ${maxDemandA.toFixed(1)} A.`,
+    `${BS7671} 311.1, 433.1.1`,
   );
   const busbarCheck =
     inc.busbarRatingA === undefined

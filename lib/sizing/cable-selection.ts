@@ -30,7 +30,7 @@ export interface SizeEvaluator {
  * current meets `requiredItA`; then the smallest at or above it whose voltage drop is within
  * its limit (else the largest); then the smallest at or above that which meets Zs and the
  * adiabatic check (else the largest, unless no size can help — `faultHopeless`). Each step
- * only moves up, so every rule that tightens with length, heat, grouping or insulation can
+ * only moves up (and never below `minCsaMm2`), so every rule that tightens with length, heat, grouping or insulation can
  * only give an equal or larger size. Returns the row index, or -1 if no size carries the current.
  */
 export function chooseCableSize(
@@ -38,10 +38,11 @@ export function chooseCableSize(
   requiredItA: number,
   evaluate: SizeEvaluator,
   faultHopeless: boolean,
+  minCsaMm2 = 0,
 ): number {
   let i0 = -1;
   for (let i = 0; i < rows.length; i++) {
-    if (rows[i].itA >= requiredItA) {
+    if (rows[i].itA >= requiredItA && rows[i].csaMm2 >= minCsaMm2) {
       i0 = i;
       break;
     }

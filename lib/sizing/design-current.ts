@@ -1,6 +1,7 @@
 import { STANDARD_RATINGS_A } from './tables/ratings';
 import { SOCKET_ARRANGEMENTS } from './tables/disconnection';
 import type { ProtectiveDeviceKind, SocketArrangementKind } from './types';
+import { lineVoltage } from './voltage-drop';
 
 export type Load =
   | { kind: 'known'; watts: number; powerFactor: number }
@@ -29,8 +30,8 @@ export function socketArrangementCurrent(
 
 /**
  * Design current Ib, A. Known load: P / (Uo·pf) single-phase, P / (√3·UL·pf) three-phase
- * with UL = √3·Uo (so P / (3·Uo·pf)). Socket arrangement: the assumed current or the
- * arrangement's default (see socketArrangementCurrent).
+ * with UL the nominal line voltage (400 V on a 230/400 V supply, see lineVoltage). Socket
+ * arrangement: the assumed current or the arrangement's default (see socketArrangementCurrent).
  */
 export function designCurrent(
   load: Load,
@@ -42,8 +43,7 @@ export function designCurrent(
     return load.assumedA ?? socketArrangementCurrent(load.arrangement, deviceKind);
   }
   if (phases === 3) {
-    const ulV = Math.sqrt(3) * uoV;
-    return load.watts / (Math.sqrt(3) * ulV * load.powerFactor);
+    return load.watts / (Math.sqrt(3) * lineVoltage(uoV) * load.powerFactor);
   }
   return load.watts / (uoV * load.powerFactor);
 }

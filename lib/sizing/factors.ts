@@ -1,5 +1,5 @@
 import { AMBIENT_CA, GROUND_CA_90 } from './tables/ambient';
-import { GROUPING_CG } from './tables/grouping';
+import { GROUND_GROUPING_CG, GROUPING_CG } from './tables/grouping';
 import { INSULATION_CI } from './tables/insulation';
 import type { Factors, Method, ProtectiveDeviceKind } from './types';
 
@@ -28,6 +28,20 @@ export function groupingFactor(circuits: number, arrangement: 'bunched' | 'singl
   return rows[rows.length - 1][1];
 }
 
+/**
+ * Grouping factor for method D from BS 7671 Table 4C2 (direct in the ground) or 4C3 (in
+ * ducts in the ground), at the column at or below the clearance; null beyond 6 circuits
+ * (the tables stop there).
+ */
+export function groundGroupingFactor(circuits: number, inDucts: boolean, spacingM: number): number | null {
+  if (circuits <= 1) return 1;
+  const t = inDucts ? GROUND_GROUPING_CG.ducts : GROUND_GROUPING_CG.direct;
+  let col = 0;
+  for (let i = 0; i < t.spacingsM.length; i++) if (spacingM >= t.spacingsM[i]) col = i;
+  for (const [n, cgs] of t.rows) if (circuits <= n) return cgs[col];
+  return null;
+}
+
 /** True for the twin-and-earth methods whose ratings already include thermal insulation. */
 export function isInsulationMethod(method: Method): boolean {
   return method === '100' || method === '101' || method === '102' || method === '103';
@@ -51,7 +65,10 @@ export function conductorFactor(deviceKind: ProtectiveDeviceKind, buried: boolea
   return (deviceKind === 'fuse-bs3036' ? 0.725 : 1) * (buried ? 0.9 : 1);
 }
 
-/** All four correction factors for one circuit (for method D, `ambientC` is the ground temperature). */
+/**
+ * All four correction factors for one circuit (for method D, `ambientC` is the ground
+ * temperature). `cg` is null for more circuits in the ground than Tables 4C2/4C3 cover.
+ */
 export function correctionFactors(args: {
   ambientC: number;
   maxTempC: 70 | 90;
@@ -61,21 +78,55 @@ export function correctionFactors(args: {
   method: Method;
   deviceKind: ProtectiveDeviceKind;
   buried: boolean;
-}): Factors {
+  inDucts?: boolean;
+  spacingM?: number;
+}): Omit<Factors, 'cg'> & { cg: number | null } {
   return {
     // Method D is rated at 20 °C ground temperature (Table 4B2); the others at 30 °C air.
     ca: args.method === 'D' ? groundFactor(args.ambientC) : ambientFactor(args.ambientC, args.maxTempC),
-    cg: groupingFactor(args.circuits, args.arrangement),
+    cg:
+      args.method === 'D'
+        ? groundGroupingFactor(args.circuits, args.inDucts ?? false, args.spacingM ?? 0)
+        : groupingFactor(args.circuits, args.arrangement),
     ci: insulationFactor(args.insulationMm, args.method),
     cc: conductorFactor(args.deviceKind, args.buried),
   };
 }
 
 /**
- * Tabulated current the cable must have: It ≥ In / (Ca·Cg·Ci·Cc), or 0.67·In / (…) for a
- * ring final circuit (BS 7671 433.1.204). Null when a factor is missing.
+ * The current the cable's capacity must reach, A: In, or for a ring final circuit on a 30 or
+ * 32 A device 20 A (BS 7671:2018+A2:2022 433.1.204: a 2.5 mm² thermoplastic or thermosetting
+ * ring is deemed to comply where Iz ≥ 20 A).
  */
-export function requiredTabulatedCurrent(inA: number, f: Factors, ring: boolean): number | null {
-  if (f.ca === null) return null;
-  return ((ring ? 0.67 : 1) * inA) / (f.ca * f.cg * f.ci * f.cc);
+export function requiredCapacity(inA: number, ring: boolean): number {
+  return ring && (inA === 30 || inA === 32) ? RING_IZ_A : inA;
+}
+
+/** Iz a ring final circuit on a 30/32 A device needs (433.1.204). */
+export const RING_IZ_A = 20;
+/** Smallest conductor of a ring final circuit under 433.1.204 (copper, non-MI cable). */
+export const RING_MIN_CSA_MM2 = 2.5;
+
+/**
+ * Tabulated current the cable must have, before thermal insulation: It ≥ need / (Ca·Cg·Cc)
+ * with `need` from requiredCapacity. Thermal insulation (Ci) is applied to the method C
+ * rating of each size instead (see effectiveTabulated). Null when a factor is missing.
+ */
+export function requiredTabulatedCurrent(
+  inA: number,
+  f: { ca: number | null; cg: number | null; cc: number },
+  ring: boolean,
+): number | null {
+  if (f.ca === null || f.cg === null) return null;
+  return requiredCapacity(inA, ring) / (f.ca * f.cg * f.cc);
+}
+
+/**
+ * A run's tabulated current where part of it is totally surrounded by thermal insulation:
+ * the lower of its method's rating and the method C rating × Ci (BS 7671:2018+A2:2022
+ * 523.9 and Table 52.2, whose factors apply to the clipped-direct rating).
+ */
+export function effectiveTabulated(itMethod: number, itMethodC: number | null, ci: number): number {
+  if (ci >= 1 || itMethodC === null) return itMethod;
+  return Math.min(itMethod, itMethodC * ci);
 }

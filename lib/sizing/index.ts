@@ -4,7 +4,13 @@
  * of BS 7671 (or local wiring rules) and manufacturers' data; local codes and licensed
  * practice take precedence.
  */
-export { sizeCircuit, NEAR_LIMIT_SHARE } from './size-circuit';
+export { sizeCircuit, BS7671, NEAR_LIMIT_SHARE } from './size-circuit';
+export {
+  parseBoardInput,
+  parseCircuitInput,
+  SizingInputError,
+  type SizingInputIssue,
+} from './validate';
 export { sizeBoard, applyDiversity, circuitForWay, diversityClass, isProtectiveDevice } from './board';
 export type { BoardResult, BoardSummary, DiversityRule, Phase, WayResult } from './board';
 export {
@@ -15,6 +21,7 @@ export {
   circuitSpecSchema,
   deviceOnRailSchema,
   supplySchema,
+  UO_MESSAGE,
   waySchema,
   RAIL_DEVICE_KINDS,
 } from './schemas';
@@ -36,14 +43,18 @@ export {
   conductorFactor,
   groundFactor,
   correctionFactors,
+  effectiveTabulated,
+  groundGroupingFactor,
   groupingFactor,
   insulationFactor,
+  requiredCapacity,
   requiredTabulatedCurrent,
 } from './factors';
-export { nominalVoltage, voltageDrop, voltageDropLimitPct } from './voltage-drop';
+export { lineVoltage, nominalVoltage, voltageDrop, voltageDropLimitPct } from './voltage-drop';
 export { conductorResistance20, loopImpedance, r1r2PerMetre } from './loop-impedance';
 export {
   additionalRcdReasons,
+  breakerDisconnectionCurrent,
   breakerLetThrough,
   breakerTripCurrent,
   faultEnergy,

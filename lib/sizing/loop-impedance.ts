@@ -19,7 +19,8 @@ export function r1r2PerMetre(csaMm2: number, cpcMm2: number, maxTempC: 70 | 90):
 
 /**
  * R1+R2 of the run and Zs = Ze + R1+R2, Ω. A ring divides the end-to-end loop by 4
- * (fault at the midpoint, common practice).
+ * (fault at the midpoint, common practice). `r2PerM` replaces the cpc's resistance per
+ * metre at its operating temperature, Ω/m, where the cpc is not a copper core (the armour).
  */
 export function loopImpedance(args: {
   csaMm2: number;
@@ -28,8 +29,15 @@ export function loopImpedance(args: {
   lengthM: number;
   ring: boolean;
   zeOhm: number;
+  r2PerM?: number;
 }): { r1r2Ohm: number; zsOhm: number } | null {
-  const perM = r1r2PerMetre(args.csaMm2, args.cpcMm2, args.maxTempC);
+  let perM: number | null;
+  if (args.r2PerM === undefined) {
+    perM = r1r2PerMetre(args.csaMm2, args.cpcMm2, args.maxTempC);
+  } else {
+    const r1 = conductorResistance20(args.csaMm2);
+    perM = r1 === null ? null : r1 * OPERATING_TEMPERATURE_FACTOR[args.maxTempC] + args.r2PerM;
+  }
   if (perM === null) return null;
   const r1r2Ohm = (perM * args.lengthM) / (args.ring ? 4 : 1);
   return { r1r2Ohm, zsOhm: args.zeOhm + r1r2Ohm };

@@ -45,6 +45,18 @@ export function breakerTripCurrent(curve: Curve, inA: number): number {
 }
 
 /**
+ * Current that disconnects a breaker within `timeS`: the instantaneous current 5/10/20·In
+ * for 0.4 s; for 5 s a Type D breaker needs only 10·In (BS 7671:2018+A2:2022 Table 41.3,
+ * 5 s column: D32 0.68 Ω), B and C are unchanged.
+ */
+export function breakerDisconnectionCurrent(curve: Curve, inA: number, timeS: number): number {
+  return (curve === 'D' && timeS >= 5 ? TYPE_D_5S_MULTIPLE : BREAKER_TRIP_MULTIPLE[curve]) * inA;
+}
+
+/** Type D breakers at 5 s: Ia = 10·In (Table 41.3). */
+const TYPE_D_5S_MULTIPLE = 10;
+
+/**
  * Fuse current for a disconnection time column ('0.4' or '5'), derived from the tabulated
  * max Zs: Ia = Cmin·230 / Zs(table). Null where the table has no value.
  */
@@ -62,7 +74,7 @@ export function fuseOperatingCurrent(kind: FuseKind, inA: number, column: '0.4' 
 export function maxZs(device: DeviceFacts, timeS: number, uoV: number): number | null {
   if (isBreaker(device.kind)) {
     if (!device.curve || timeS < 0.1) return null;
-    return (CMIN * uoV) / breakerTripCurrent(device.curve, device.inA);
+    return (CMIN * uoV) / breakerDisconnectionCurrent(device.curve, device.inA, timeS);
   }
   const column = timeS >= 5 ? '5' : timeS >= 0.4 ? '0.4' : null;
   if (column === null) return null;
@@ -124,79 +136,84 @@ function logInterp(x: number, x0: number, y0: number, x1: number, y1: number): n
 }
 
 /**
- * Energy let through by a breaker at fault current I above its instantaneous trip current.
- * B and C curves up to 32 A: the energy-limiting class 3 figures of BS EN 60898-1 Annex ZA
- * (from memory), interpolated on log-log axes between Ia (where the bound is Ia²·0.1 s) and
- * the tabulated prospective currents — an assumption; manufacturers' data is usually lower.
- * Others, or above 10 kA: I²·0.1 s (instantaneous trip within 0.1 s, common practice).
+ * Energy let through by a breaker at a fault current I at or above its instantaneous trip
+ * current. B and C curves up to 32 A: the energy-limiting class 3 limits of BS EN 60898-1
+ * Annex ZA (from memory) are upper bounds at the listed prospective currents, and a
+ * device's let-through never falls as the current rises, so at I the bound is the figure
+ * of the next listed current at or above I — capped by I²·0.1 s (the instantaneous trip
+ * is within 0.1 s). No interpolation. Others, or above 10 kA: I²·0.1 s (common practice).
  */
 export function breakerLetThrough(curve: Curve, inA: number, faultA: number): FaultEnergy {
-  const ia = breakerTripCurrent(curve, inA);
+  const instantaneous = faultA * faultA * 0.1;
   const table =
     curve === 'D' || inA > 32
       ? null
       : CLASS3_LET_THROUGH_A2S[`${curve}-${inA <= 16 ? 16 : 32}` as keyof typeof CLASS3_LET_THROUGH_A2S];
-  if (table && faultA <= table[table.length - 1][0]) {
-    let x0 = ia;
-    let y0 = ia * ia * 0.1;
-    for (const [x1, y1] of table) {
-      if (faultA <= x1) {
-        const i2t = Math.min(faultA * faultA * 0.1, logInterp(faultA, x0, y0, x1, y1));
-        return { i2t, timeS: null, basis: 'class 3 let-through (BS EN 60898-1 Annex ZA, from memory), interpolated' };
-      }
-      x0 = x1;
-      y0 = y1;
+  if (table) {
+    for (const [ip, i2t] of table) {
+      if (faultA <= ip && i2t < instantaneous) return { i2t, timeS: null, basis: LET_THROUGH_BASIS[ip] };
     }
   }
-  return { i2t: faultA * faultA * 0.1, timeS: 0.1, basis: 'I²t with t = 0.1 s (instantaneous trip, common practice)' };
+  return { i2t: instantaneous, timeS: 0.1, basis: 'I²t with t = 0.1 s (instantaneous trip)' };
 }
 
-/** Maximum tripping time of a general (non-delayed) RCD at IΔn, s (BS EN 61008/61009, from memory). */
+/** How each let-through figure is described, by prospective current (built once). */
+const LET_THROUGH_BASIS: Record<number, string> = Object.fromEntries(
+  Object.values(CLASS3_LET_THROUGH_A2S)
+    .flat()
+    .map(([ip]) => [ip, `class 3 let-through limit at ${ip / 1000} kA (BS EN 60898-1 Annex ZA)`]),
+);
+
+/** Maximum tripping time of a general (non-delayed) RCD at IΔn, s (BS EN 61008/61009). */
 export const RCD_MAX_TIME_S = 0.3;
 
 /**
- * Energy the cpc must withstand for an earth fault.
- * Fuses: at the far-end fault current (lowest current → longest time, the worst case for a
- * fuse), t from fuseOperatingTime; below 10 ms the energy is held at its 10 ms value.
- * Breakers: at the largest earth fault current on the circuit, at its origin, Uo/Ze (capped
- * at the PFC) — a breaker lets through more energy at a higher current.
- * If the overcurrent device gives no time and an RCD is present: t = 0.3 s at the origin
- * fault current (the largest on the circuit). Null when it cannot be found (the
- * disconnection check then fails too).
+ * Energy the cpc must withstand for an earth fault at the far end of the circuit (I = Uo/Zs,
+ * BS 7671:2018+A2:2022 543.1.3), with the device's operating time at that current:
+ * - Breakers: at or above the instantaneous current (5/10/20·In) the trip is within 0.1 s
+ *   (or the class 3 let-through bound, see breakerLetThrough). A Type D breaker on a 5 s
+ *   circuit between 10·In and 20·In may take up to 5 s (Table 41.3): t = 5 s.
+ * - Fuses: t from fuseOperatingTime; below 10 ms the energy is held at its 10 ms value.
+ * - Otherwise, with an RCD: t = 0.3 s (its maximum at IΔn; faster above it).
+ * Null when the time cannot be found (the disconnection check then fails too).
  */
 export function faultEnergy(args: {
   device: DeviceFacts;
   farEndFaultA: number | null;
-  originFaultA: number | null;
   rcdMa: number | null;
+  timeS: number;
 }): { energy: FaultEnergy; faultA: number } | null {
-  const { device, rcdMa, originFaultA, farEndFaultA } = args;
+  const { device, rcdMa, farEndFaultA } = args;
+  if (!usable(farEndFaultA)) return null;
+  const i = farEndFaultA;
   if (isBreaker(device.kind)) {
-    if (usable(originFaultA) && device.curve && originFaultA >= breakerTripCurrent(device.curve, device.inA)) {
-      return { energy: breakerLetThrough(device.curve, device.inA, originFaultA), faultA: originFaultA };
+    if (device.curve && i >= breakerTripCurrent(device.curve, device.inA)) {
+      return { energy: breakerLetThrough(device.curve, device.inA, i), faultA: i };
     }
-  } else if (usable(farEndFaultA)) {
+    if (device.curve === 'D' && args.timeS >= 5 && i >= breakerDisconnectionCurrent('D', device.inA, 5)) {
+      return {
+        energy: { i2t: i * i * 5, timeS: 5, basis: 'Type D between 10·In and 20·In: up to 5 s (Table 41.3)' },
+        faultA: i,
+      };
+    }
+  } else {
     const kind = device.kind as FuseKind;
-    const t = fuseOperatingTime(kind, device.inA, farEndFaultA);
+    const t = fuseOperatingTime(kind, device.inA, i);
     if (t !== null) {
-      let i2t = farEndFaultA * farEndFaultA * t;
+      let i2t = i * i * t;
       // Above the 10 ms current a current-limiting fuse lets through about its 10 ms energy.
       const iAt10ms = fuseCurrentAt10ms(kind, device.inA);
       if (t === FUSE_MIN_TIME_S && iAt10ms !== null) i2t = iAt10ms * iAt10ms * FUSE_MIN_TIME_S;
       return {
         energy: { i2t, timeS: t, basis: 'fuse time from Tables 41.2/41.4 (log-log line; slope assumed where 41.2 has no value)' },
-        faultA: farEndFaultA,
+        faultA: i,
       };
     }
   }
-  if (rcdMa !== null && usable(originFaultA)) {
+  if (rcdMa !== null) {
     return {
-      energy: {
-        i2t: originFaultA * originFaultA * RCD_MAX_TIME_S,
-        timeS: RCD_MAX_TIME_S,
-        basis: 'RCD operating time 0.3 s at the origin fault current',
-      },
-      faultA: originFaultA,
+      energy: { i2t: i * i * RCD_MAX_TIME_S, timeS: RCD_MAX_TIME_S, basis: 'RCD operating time 0.3 s' },
+      faultA: i,
     };
   }
   return null;
@@ -207,10 +224,15 @@ function usable(i: number | null): i is number {
   return i !== null && i > 0 && Number.isFinite(i);
 }
 
-/** Adiabatic k for the cable's cpc (BS 7671 Tables 54.2/54.3). */
-export function kFactor(cable: CableKind, cpcMm2: number): number {
-  if (cable === 'swa-xlpe-90') return K_VALUES.coreThermosetting90;
-  if (cable === 'single-pvc-70') return K_VALUES.separateThermoplastic70;
+/**
+ * Adiabatic k for the cable's cpc. Table 54.3 wherever the cpc is a core of the cable or
+ * bunched with the line conductors — which includes single-core cables in conduit or
+ * trunking (115 for 70 °C thermoplastic, 103 above 300 mm²; 143 for 90 °C thermosetting);
+ * Table 54.4 for steel armour (46 for a 90 °C thermosetting cable). Table 54.2 (143 for a
+ * separate, unbunched 70 °C cpc) is never assumed: the engine cannot know the cpc is apart.
+ */
+export function kFactor(cable: CableKind, cpcMm2: number, armour = false): number {
+  if (cable === 'swa-xlpe-90') return armour ? K_VALUES.steelArmourThermosetting90 : K_VALUES.coreThermosetting90;
   return cpcMm2 > 300 ? K_VALUES.coreThermoplastic70Over300 : K_VALUES.coreThermoplastic70;
 }
 
@@ -220,17 +242,21 @@ export function minimumCpc(i2t: number, k: number): number {
 }
 
 /**
- * Whether a 30 mA RCD is required for additional protection, and why: sockets up to 32 A
- * (411.3.3), cables concealed in a wall at less than 50 mm (522.6.202/203), lighting in
- * dwellings (411.3.4).
+ * Whether a 30 mA RCD is required for additional protection, and why: every circuit in a
+ * room containing a bath or shower (701.411.3.3), equipment used outdoors up to 32 A and
+ * sockets up to 32 A (411.3.3), cables concealed in a wall at less than 50 mm
+ * (522.6.202/203), lighting in dwellings (411.3.4).
  */
 export function additionalRcdReasons(args: {
   use: CircuitUse;
   inA: number;
   concealedInWall: boolean;
   dwelling: boolean;
+  specialLocation?: 'none' | 'bath-shower' | 'outdoors';
 }): string[] {
   const reasons: string[] = [];
+  if (args.specialLocation === 'bath-shower') reasons.push('every circuit of a room containing a bath or shower (701.411.3.3)');
+  if (args.specialLocation === 'outdoors' && args.inA <= 32) reasons.push('equipment used outdoors, rated up to 32 A (411.3.3)');
   if (args.use === 'sockets' && args.inA <= 32) reasons.push('socket-outlets rated up to 32 A (411.3.3)');
   if (args.concealedInWall) reasons.push('cable concealed in a wall at less than 50 mm (522.6.202)');
   if (args.use === 'lighting' && args.dwelling) reasons.push('lighting in a dwelling (411.3.4)');

@@ -1,15 +1,20 @@
 import { z } from 'zod';
 
+import { deviceKindName } from '../names';
+
 import { CONDUCTOR_SIZES_MM2 } from './tables/conductor-resistance';
 import { RCD_SENSITIVITIES_MA, STANDARD_RATINGS_A } from './tables/ratings';
 import {
+  ARMOURED_CPC_KINDS,
   CABLE_KINDS,
   CIRCUIT_USES,
   CURVES,
   EARTHING_SYSTEMS,
+  LOAD_TYPES,
   METHODS,
   PROTECTIVE_DEVICE_KINDS,
   SOCKET_ARRANGEMENT_KINDS,
+  SPECIAL_LOCATIONS,
 } from './types';
 
 const sizeList = CONDUCTOR_SIZES_MM2 as readonly number[];
@@ -24,11 +29,21 @@ const rcdMa = z
   .refine((v) => rcdList.includes(v), { message: `must be one of ${rcdList.join(', ')} mA` })
   .nullable();
 
+/** The message for a Uo outside 100–277 V. */
+export const UO_MESSAGE =
+  'Uo is the line-to-earth voltage (230 V on a 230/400 V supply): enter 100–277 V, not the line-to-line voltage';
+
 /** The supply at the board. */
 export const supplySchema = z
   .object({
     earthing: z.enum(EARTHING_SYSTEMS),
-    uoV: z.number().min(50).max(400).default(230),
+    // Uo is line-to-earth: 230 V on a 230/400 V supply. 400 V is the line voltage of a
+    // three-phase supply, which the engine derives; entering it would undersize by √3.
+    uoV: z
+      .number()
+      .min(100, UO_MESSAGE)
+      .max(277, UO_MESSAGE)
+      .default(230),
     zeOhm: z.number().min(0).max(2000),
     pfcKa: z.number().min(0).max(200),
     source: z.enum(['public', 'private']).default('public'),
@@ -62,6 +77,11 @@ export const circuitDeviceSchema = z
     ratingA: z.number().nullable(),
     breakingKa: z.number().gt(0).max(200).optional(),
     rcdMa: rcdMa.optional(),
+    /**
+     * Rated conditional short-circuit current of the assembly the device sits in, kA, where
+     * the board declares one (a consumer unit to BS EN 61439-3: 16 kA).
+     */
+    conditionalRatingKa: z.number().gt(0).max(200).nullable().optional(),
   })
   .strict()
   .superRefine((d, ctx) => {
@@ -70,7 +90,7 @@ export const circuitDeviceSchema = z
       ctx.addIssue({
         code: 'custom',
         path: ['ratingA'],
-        message: `must be null (choose) or a standard ${d.kind} rating: ${list.join(', ')} A`,
+        message: `must be null (choose) or a standard rating of ${deviceKindName(d.kind)}: ${list.join(', ')} A`,
       });
     }
     const breaker = d.kind === 'mcb' || d.kind === 'rcbo';
@@ -100,25 +120,43 @@ const circuitSpecShape = {
     .object({
       circuits: z.number().int().min(1).max(40),
       arrangement: z.enum(['bunched', 'single-layer']),
+      /**
+       * Method D only: clearance between the cables (or ducts) in the ground, m; 0 or absent
+       * = touching (Tables 4C2/4C3 take the column at or below it).
+       */
+      spacingM: z.number().min(0).max(10).optional(),
     })
     .strict()
-    .default({ circuits: 1, arrangement: 'bunched' }),
+    .default(() => ({ circuits: 1, arrangement: 'bunched' as const })),
   insulationMm: z.number().min(0).max(100000).default(0),
   csaMm2: conductorSize.nullable(),
   cpcMm2: conductorSize.nullable().optional(),
   concealedInWall: z.boolean().default(false),
   buried: z.boolean().optional(),
+  /** Method D only: in ducts in the ground (grouping from Table 4C3) rather than direct (4C2). */
+  inDucts: z.boolean().optional(),
+  /** The kind of load, for diversity on a board (absent: from `use`; "other" for fixed loads). */
+  loadType: z.enum(LOAD_TYPES).optional(),
+  /** Where the circuit goes: a room with a bath or shower (Section 701), outdoors, or neither. */
+  specialLocation: z.enum(SPECIAL_LOCATIONS).optional(),
+  /** Armoured cable only: its cpc is a spare core or the steel armour (absent: see design/sizing.md). */
+  armouredCpc: z.enum(ARMOURED_CPC_KINDS).optional(),
   /** Whether the circuit is in a dwelling (lighting RCD rule); lighting and sockets default to yes. */
   dwelling: z.boolean().optional(),
 };
 
 type SpecLike = {
+  cable: string;
+  armouredCpc?: string;
   phases: 1 | 3;
   use: string;
   load: { kind: string };
 };
 
 function refineSpec(c: SpecLike, ctx: z.RefinementCtx): void {
+  if (c.armouredCpc !== undefined && c.cable !== 'swa-xlpe-90') {
+    ctx.addIssue({ code: 'custom', path: ['armouredCpc'], message: 'only an armoured cable has an armour to use as its cpc' });
+  }
   if (c.load.kind === 'socket-arrangement') {
     if (c.use !== 'sockets') {
       ctx.addIssue({ code: 'custom', path: ['use'], message: 'a socket arrangement is a sockets circuit' });
@@ -180,7 +218,7 @@ export const deviceOnRailSchema = z
         ctx.addIssue({
           code: 'custom',
           path: ['ratingA'],
-          message: `must be null (choose) or a standard ${d.kind} rating: ${list.join(', ')} A`,
+          message: `must be null (choose) or a standard rating of ${deviceKindName(d.kind)}: ${list.join(', ')} A`,
         });
       }
     }
@@ -192,7 +230,7 @@ export const deviceOnRailSchema = z
       ctx.addIssue({ code: 'custom', path: ['curve'], message: 'only circuit-breakers have a curve' });
     }
     if ((d.kind === 'rcd' || d.kind === 'rcbo') && (d.rcdMa === undefined || d.rcdMa === null)) {
-      ctx.addIssue({ code: 'custom', path: ['rcdMa'], message: `an ${d.kind.toUpperCase()} needs its residual current (mA)` });
+      ctx.addIssue({ code: 'custom', path: ['rcdMa'], message: `an ${deviceKindName(d.kind)} needs its residual current (mA)` });
     }
   });
 export type DeviceOnRail = z.infer<typeof deviceOnRailSchema>;
@@ -223,6 +261,11 @@ export const boardInputSchema = z
       })
       .strict(),
     dwelling: z.boolean().optional(),
+    /**
+     * Rated conditional short-circuit current of the assembly, kA, where the board declares
+     * one (a consumer unit to BS EN 61439-3: 16 kA); the breaking-capacity check uses it.
+     */
+    conditionalRatingKa: z.number().gt(0).max(200).nullable().optional(),
     ways: z.array(waySchema).max(200),
   })
   .strict()
@@ -237,7 +280,7 @@ export const boardInputSchema = z
         ctx.addIssue({
           code: 'custom',
           path: ['ways', i, 'circuit'],
-          message: `a ${w.device.kind} does not feed a circuit; use null`,
+          message: `a ${deviceKindName(w.device.kind)} does not feed a circuit; use null`,
         });
       }
       if (w.circuit && w.circuit.phases === 3 && b.phases === 1) {

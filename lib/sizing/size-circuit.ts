@@ -1,6 +1,13 @@
 import { chooseCableSize, type SizeEvaluation, type SizeEvaluator } from './cable-selection';
 import { chooseRating, designCurrent } from './design-current';
-import { correctionFactors, requiredTabulatedCurrent } from './factors';
+import {
+  correctionFactors,
+  effectiveTabulated,
+  isInsulationMethod,
+  requiredCapacity,
+  requiredTabulatedCurrent,
+  RING_MIN_CSA_MM2,
+} from './factors';
 import { loopImpedance } from './loop-impedance';
 import {
   additionalRcdReasons,
@@ -11,13 +18,19 @@ import {
   minimumCpc,
   requiredDisconnectionTime,
 } from './protection';
-import type { CircuitInput } from './schemas';
+import { ARRANGEMENT_NAMES, CABLE_SHORT_NAMES, deviceKindName, deviceName } from '../names';
+import { type CircuitInput } from './schemas';
+import { ARMOUR_TEMPERATURE_FACTOR, ARMOURED_4E4, SWA_ARMOUR } from './tables/armoured-4e4';
 import { DEFAULT_BREAKING_KA } from './tables/breaking-capacity';
 import { CABLE_PROPERTIES, type CableRowData, cableRows, methodsFor } from './tables/cables';
 import { SOCKET_ARRANGEMENTS } from './tables/disconnection';
 import { TWIN_AND_EARTH_4D5 } from './tables/twin-and-earth-4d5';
 import type { Check, CircuitResult, Verdict } from './types';
+import { validCircuitInput } from './validate';
 import { nominalVoltage, voltageDrop, voltageDropLimitPct } from './voltage-drop';
+
+/** How every check cites the wiring regulations: one edition, written one way. */
+export const BS7671 = 'BS 7671:2018+A2:2022';
 
 /** Share of a limit at which a passing check counts as near its limit. */
 export const NEAR_LIMIT_SHARE = 0.9;
@@ -25,9 +38,22 @@ export const NEAR_LIMIT_SHARE = 0.9;
 /** Maximum touch voltage on a TT system, V (BS 7671 411.5.3: RA·IΔn ≤ 50 V). */
 const TT_TOUCH_VOLTAGE_V = 50;
 
-/** Format a number for a message (display only; results are never rounded). */
+const POW10 = [1, 10, 100, 1000, 10000];
+
+/**
+ * Format a number with `d` decimals for a message (display only; results are never rounded).
+ * As toFixed, by integer arithmetic: toFixed was a fifth of the engine's time.
+ */
 function fmt(x: number, d = 2): string {
-  return Number.isFinite(x) ? x.toFixed(d) : String(x);
+  if (!Number.isFinite(x) || Math.abs(x) >= 1e12) return Number.isFinite(x) ? x.toFixed(d) : String(x);
+  const p = POW10[d];
+  const n = Math.round(Math.abs(x) * p);
+  const whole = Math.floor(n / p);
+  const sign = x < 0 && n > 0 ? '-' : '';
+  if (d === 0) return sign + whole;
+  let frac = String(n - whole * p);
+  while (frac.length < d) frac = '0' + frac;
+  return sign + whole + '.' + frac;
 }
 
 /** Everything about a circuit that evaluating one cable size needs. */
@@ -40,27 +66,55 @@ interface EvalContext {
   vNominal: number;
   vdLimitPct: number;
   zsMaxOhm: number | null;
-  originFaultA: number | null;
   deviceFacts: DeviceFacts | null;
   rcdMa: number | null;
+  disconnectionTimeS: number;
+  /** The armoured cable's cpc, or null for other cables. */
+  armouredCpc: 'spare-core' | 'armour' | null;
+}
+
+/** Armour area, mm², and resistance at its operating temperature, Ω/m, of an armoured size. */
+function armourOf(csaMm2: number, phases: 1 | 3): { areaMm2: number; rPerM: number } | null {
+  const i = (ARMOURED_4E4.sizesMm2 as readonly number[]).indexOf(csaMm2);
+  if (i < 0) return null;
+  // Armour as the cpc: a two-core cable single-phase, a four-core cable three-phase.
+  const a = SWA_ARMOUR[phases === 3 ? 4 : 2];
+  return { areaMm2: a.areaMm2[i], rPerM: (a.r20MohmPerM[i] * ARMOUR_TEMPERATURE_FACTOR) / 1000 };
 }
 
 /** Evaluate one size: voltage drop, R1+R2, Zs, fault energy and the adiabatic minimum cpc. */
 function evaluateSize(ctx: EvalContext, csaMm2: number, row: CableRowData | null): SizeEvaluation {
   const { c, supply, maxTempC, ring, ibA, zsMaxOhm } = ctx;
   const uoV = supply.uoV;
-  const cpcMm2 =
-    c.cpcMm2 ??
-    row?.constructionCpcMm2 ??
-    (c.cable === 'te-70' ? (teConstructionCpc(csaMm2) ?? csaMm2) : csaMm2);
+  const armour = ctx.armouredCpc === 'armour' ? armourOf(csaMm2, c.phases) : null;
+  const cpcMm2 = armour
+    ? armour.areaMm2
+    : (c.cpcMm2 ??
+      row?.constructionCpcMm2 ??
+      (c.cable === 'te-70' ? (teConstructionCpc(csaMm2) ?? csaMm2) : csaMm2));
   const vdV = row ? voltageDrop(row.mvAm, ibA, c.lengthM, ring) : null;
   const vdPct = vdV === null ? null : (vdV / ctx.vNominal) * 100;
-  const loop = loopImpedance({ csaMm2, cpcMm2, maxTempC, lengthM: c.lengthM, ring, zeOhm: supply.zeOhm });
-  const farEndFaultA = loop && loop.zsOhm > 0 ? uoV / loop.zsOhm : null;
+  const loop =
+    ctx.armouredCpc === 'armour' && !armour
+      ? null
+      : loopImpedance({
+          csaMm2,
+          cpcMm2,
+          maxTempC,
+          lengthM: c.lengthM,
+          ring,
+          zeOhm: supply.zeOhm,
+          r2PerM: armour?.rPerM,
+        });
+  // The far-end earth fault current Uo/Zs, never above the prospective fault current at
+  // the board where one is given (it cannot exceed the current at the origin).
+  const uoOverZs = loop && loop.zsOhm > 0 ? uoV / loop.zsOhm : null;
+  const farEndFaultA =
+    uoOverZs !== null && supply.pfcKa > 0 ? Math.min(uoOverZs, supply.pfcKa * 1000) : uoOverZs;
   const fe = ctx.deviceFacts
-    ? faultEnergy({ device: ctx.deviceFacts, farEndFaultA, originFaultA: ctx.originFaultA, rcdMa: ctx.rcdMa })
+    ? faultEnergy({ device: ctx.deviceFacts, farEndFaultA, rcdMa: ctx.rcdMa, timeS: ctx.disconnectionTimeS })
     : null;
-  const cpcMinMm2 = fe ? minimumCpc(fe.energy.i2t, kFactor(c.cable, cpcMm2)) : null;
+  const cpcMinMm2 = fe ? minimumCpc(fe.energy.i2t, kFactor(c.cable, cpcMm2, armour !== null)) : null;
   return {
     row,
     csaMm2,
@@ -98,23 +152,52 @@ class RowEvaluator implements SizeEvaluator {
   }
 }
 
+/** Rows with each size's rating min(It, It of method C × Ci), built once per column and Ci. */
+const INSULATED_ROWS = new Map<string, readonly CableRowData[]>();
+
+function insulatedRows(
+  cable: CircuitInput['circuit']['cable'],
+  method: string,
+  phases: 1 | 3,
+  tableRows: readonly CableRowData[],
+  ci: number,
+): readonly CableRowData[] {
+  const key = `${cable}|${method}|${phases}|${ci}`;
+  let rows = INSULATED_ROWS.get(key);
+  if (!rows) {
+    const methodC = cableRows(cable, 'C', phases);
+    rows = tableRows.map((r, i) => {
+      const itC = methodC && methodC[i]?.csaMm2 === r.csaMm2 ? methodC[i].itA : null;
+      return { ...r, itA: effectiveTabulated(r.itA, itC, ci) };
+    });
+    INSULATED_ROWS.set(key, rows);
+  }
+  return rows;
+}
+
 function teConstructionCpc(csaMm2: number): number | null {
   const i = (TWIN_AND_EARTH_4D5.sizesMm2 as readonly number[]).indexOf(csaMm2);
   return i < 0 ? null : TWIN_AND_EARTH_4D5.cpcMm2[i];
 }
 
 /**
- * Size one circuit by the BS 7671 method of design/sizing.md. `input` must already have been
- * validated with `circuitInputSchema` (the routes parse; the engine does not re-parse, for
- * speed). Never throws for validated input: a combination the tables do not cover is a
- * failed check, and a number that cannot be computed is null.
+ * Size one circuit by the BS 7671 method of design/sizing.md. The input is validated here
+ * (see `validCircuitInput`: an input that came from `parseCircuitInput` is not parsed
+ * again); an input the schema refuses throws a SizingInputError naming each bad field.
+ * Never throws for a valid input: a combination the tables do not cover is a failed check,
+ * and a number that cannot be computed is null.
  *
  * Verdict: `fails` if any check fails; `near-limit` if all pass and at least one margin is at
  * or above 90 % of its limit — voltage drop ≥ 90 % of the limit, Zs ≥ 90 % of max Zs,
- * Ib ≥ 90 % of Iz (0.67·Ib for a ring; the cable runs close to its capacity), or the adiabatic minimum cpc ≥ 90 %
+ * Ib ≥ 90 % of Iz (Ib × 20/In for a ring on 30/32 A; the cable runs close to its capacity), or the adiabatic minimum cpc ≥ 90 %
  * of the cpc fitted; otherwise `passes`.
  */
 export function sizeCircuit(input: CircuitInput): CircuitResult {
+  return sizeValidCircuit(validCircuitInput(input));
+}
+
+/** Size a circuit already validated (sizeBoard's ways, after the board was validated). */
+export function sizeValidCircuit(input: CircuitInput): CircuitResult {
   const { supply, circuit: c } = input;
   const checks: Check[] = [];
   const notes: string[] = [];
@@ -143,27 +226,34 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
     method: c.method,
     deviceKind: dev.kind,
     buried,
+    inDucts: c.inDucts,
+    spacingM: c.grouping.spacingM,
   });
   const requiredItA = inA === null ? null : requiredTabulatedCurrent(inA, factors, ring);
-  if (c.insulationMm > 0 && factors.ci === 1) {
+  const insulated = c.insulationMm > 0 && !isInsulationMethod(c.method);
+  if (c.insulationMm > 0 && !insulated) {
     notes.push(`Method ${c.method} ratings already allow for thermal insulation: Ci not applied.`);
   }
 
-  // Step 4: the table column for this cable, method and number of phases.
-  const rows = cableRows(c.cable, c.method, c.phases);
+  // Step 4: the table column for this cable, method and number of phases; where part of
+  // the run is surrounded by insulation, each size's rating is min(It, It of method C × Ci).
+  const tableRows = cableRows(c.cable, c.method, c.phases);
+  let rows = tableRows;
+  if (tableRows && insulated) rows = insulatedRows(c.cable, c.method, c.phases, tableRows, factors.ci);
   const methodOk = methodsFor(c.cable).includes(c.method);
+  const cableName = CABLE_SHORT_NAMES[c.cable];
   if (!methodOk) {
     checks.push({
       code: 'method',
       ok: false,
-      message: `Method ${c.method} is not tabulated for ${props.label} cable; use one of ${methodsFor(c.cable).join(', ')}.`,
+      message: `Reference method ${c.method} is not tabulated for ${cableName} cable; use one of ${methodsFor(c.cable).join(', ')}.`,
       reference: props.table,
     });
   } else if (!rows) {
     checks.push({
       code: 'method',
       ok: false,
-      message: `${props.label} cable has no three-phase rating; use multicore or single-core cable.`,
+      message: `Flat twin and earth cable has no three-phase rating; use multicore or single-core cable.`,
       reference: props.table,
     });
   }
@@ -171,8 +261,8 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
     checks.push({
       code: 'buried',
       ok: false,
-      message: 'Only armoured cable (method D) is tabulated for burying in the ground.',
-      reference: 'BS 7671:2018 Table 4E4A, 522.8.10',
+      message: 'Only armoured cable (reference method D) is tabulated for burying in the ground.',
+      reference: 'BS 7671:2018+A2:2022 Table 4E4A, 522.8.10',
     });
   }
   if (factors.ca === null) {
@@ -180,7 +270,24 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
       code: 'ambient',
       ok: false,
       message: `An ambient of ${c.ambientC} °C is above the last row of Table ${c.method === 'D' ? '4B2 (ground)' : '4B1'} for ${maxTempC} °C cable.`,
-      reference: c.method === 'D' ? 'BS 7671:2018 Table 4B2' : 'BS 7671:2018 Table 4B1',
+      reference: c.method === 'D' ? 'BS 7671:2018+A2:2022 Table 4B2' : 'BS 7671:2018+A2:2022 Table 4B1',
+    });
+  }
+  if (factors.cg === null) {
+    checks.push({
+      code: 'grouping',
+      ok: false,
+      message: `Tables 4C2 and 4C3 give grouping factors for up to 6 circuits in the ground; ${c.grouping.circuits} need the cable maker's data or a rating study.`,
+      reference: 'BS 7671:2018+A2:2022 Tables 4C2, 4C3',
+    });
+  }
+  const ringTooSmall = ring && c.csaMm2 !== null && c.csaMm2 < RING_MIN_CSA_MM2;
+  if (ringTooSmall) {
+    checks.push({
+      code: 'ring-size',
+      ok: false,
+      message: `A ring final circuit needs conductors of at least ${RING_MIN_CSA_MM2} mm²; ${c.csaMm2} mm² is fixed.`,
+      reference: 'BS 7671:2018+A2:2022 433.1.204',
     });
   }
 
@@ -188,10 +295,11 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
   if (c.load.kind === 'socket-arrangement') {
     const arr = SOCKET_ARRANGEMENTS[c.load.arrangement];
     const areaOk = c.load.floorAreaM2 <= arr.maxFloorAreaM2;
+    const arrName = ARRANGEMENT_NAMES[c.load.arrangement];
     checks.push({
       code: 'floor-area',
       ok: areaOk,
-      message: `Floor area served ${fmt(c.load.floorAreaM2, 1)} m² ${areaOk ? '≤' : '>'} ${arr.maxFloorAreaM2} m² for a ${c.load.arrangement} arrangement.`,
+      message: `Floor area served ${fmt(c.load.floorAreaM2, 1)} m² ${areaOk ? '≤' : '>'} ${arr.maxFloorAreaM2} m² for a ${arrName}.`,
       reference: 'Common practice: UK on-site guidance, socket-outlet final circuits',
     });
     if (inA !== null) {
@@ -199,7 +307,7 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
       checks.push({
         code: 'arrangement-rating',
         ok: ratingOk,
-        message: `Device ${inA} A ${ratingOk ? 'within' : 'above'} the ${arr.nominalA} A of a ${c.load.arrangement} arrangement.`,
+        message: `Device ${inA} A ${ratingOk ? 'within' : 'above'} the ${arr.nominalA} A of a ${arrName}.`,
         reference: 'Common practice: UK on-site guidance, socket-outlet final circuits',
       });
     }
@@ -211,14 +319,14 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
       ? {
           code: 'design-current',
           ok: false,
-          message: `No standard ${dev.kind} rating carries Ib = ${fmt(ibA)} A.`,
-          reference: 'BS 7671:2018 433.1.1',
+          message: `No standard rating of ${deviceKindName(dev.kind)} carries Ib = ${fmt(ibA)} A.`,
+          reference: 'BS 7671:2018+A2:2022 433.1.1',
         }
       : {
           code: 'design-current',
           ok: ibA <= inA,
           message: `Ib ${fmt(ibA)} A ${ibA <= inA ? '≤' : '>'} In ${inA} A.`,
-          reference: 'BS 7671:2018 433.1.1',
+          reference: 'BS 7671:2018+A2:2022 433.1.1',
         },
   );
 
@@ -235,14 +343,10 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
       : maxZs(deviceFacts, disconnectionTimeS, uoV);
   const vdLimitPct = voltageDropLimitPct(c.use, supply.source);
   const vNominal = nominalVoltage(c.phases, uoV);
-  const originFaultA =
-    supply.zeOhm > 0
-      ? supply.pfcKa > 0
-        ? Math.min(uoV / supply.zeOhm, supply.pfcKa * 1000)
-        : uoV / supply.zeOhm
-      : supply.pfcKa > 0
-        ? supply.pfcKa * 1000
-        : null;
+  // Armoured cable: a spare core where the cable has one (3-core single-phase), else the
+  // armour (4-core three-phase); the designer can choose either.
+  const armouredCpc =
+    c.cable === 'swa-xlpe-90' ? (c.armouredCpc ?? (c.phases === 3 ? 'armour' : 'spare-core')) : null;
 
   const ctx: EvalContext = {
     c,
@@ -253,9 +357,10 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
     vNominal,
     vdLimitPct,
     zsMaxOhm,
-    originFaultA,
     deviceFacts,
     rcdMa,
+    disconnectionTimeS,
+    armouredCpc,
   };
 
   // Step 8: choose the cable size, or check the fixed one (never changed).
@@ -265,28 +370,30 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
     let row: CableRowData | null = null;
     if (rows) for (const r of rows) if (r.csaMm2 === c.csaMm2) row = r;
     if (rows && !row) {
-      capacityMessage = `${c.csaMm2} mm² is not in ${props.table} for method ${c.method}.`;
+      capacityMessage = `${c.csaMm2} mm² is not in ${props.table} for reference method ${c.method}.`;
     }
     chosen = evaluateSize(ctx, c.csaMm2, row);
   } else if (rows && requiredItA !== null) {
     const hopeless = zsMaxOhm === null || supply.zeOhm >= zsMaxOhm;
     const evaluator = new RowEvaluator(ctx, rows);
-    const idx = chooseCableSize(rows, requiredItA, evaluator, hopeless);
+    const idx = chooseCableSize(rows, requiredItA, evaluator, hopeless, ring ? RING_MIN_CSA_MM2 : 0);
     if (idx < 0) {
       const top = rows[rows.length - 1];
-      capacityMessage = `No size in ${props.table} (method ${c.method}) has It ≥ ${fmt(requiredItA)} A; the largest, ${top.csaMm2} mm², has ${top.itA} A.`;
+      capacityMessage = `No size in ${props.table} (reference method ${c.method}) has It ≥ ${fmt(requiredItA)} A; the largest, ${top.csaMm2} mm², has ${fmt(top.itA, 1)} A.`;
     } else {
       chosen = evaluator.at(idx);
     }
   }
   const row = chosen?.row ?? null;
+  // Ci is already inside each row's It (the method C rating × Ci where that is lower).
   const derating =
-    factors.ca === null ? null : factors.ca * factors.cg * factors.ci * factors.cc;
+    factors.ca === null || factors.cg === null ? null : factors.ca * factors.cg * factors.cc;
   const itA = row ? row.itA : null;
   const izA = itA !== null && derating !== null ? itA * derating : null;
 
-  // Step 9: In ≤ Iz (a ring: 0.67·In ≤ Iz).
-  const needA = inA === null ? null : ring ? 0.67 * inA : inA;
+  // Step 9: In ≤ Iz (a ring on a 30/32 A device: Iz ≥ 20 A, 433.1.204).
+  const needA = inA === null ? null : requiredCapacity(inA, ring);
+  const ringRule = ring && needA !== inA;
   if (capacityMessage || izA === null || needA === null) {
     checks.push({
       code: 'cable-capacity',
@@ -294,15 +401,20 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
       message:
         capacityMessage ??
         'The cable rating cannot be found for this combination (see the other checks).',
-      reference: `${props.table}; BS 7671:2018 433.1.1`,
+      reference: `${props.table}; ${BS7671} 433.1.1`,
     });
   } else {
     const ok = needA <= izA;
+    const itWords = insulated
+      ? `It ${fmt(itA ?? 0, 1)} A, the lower of method ${c.method} and method C × Ci ${fmt(factors.ci, 2)}`
+      : `It ${fmt(itA ?? 0, 1)} A`;
     checks.push({
       code: 'cable-capacity',
       ok,
-      message: `${ring ? '0.67·In' : 'In'} ${fmt(needA)} A ${ok ? '≤' : '>'} Iz ${fmt(izA)} A (It ${itA} A × ${fmt(derating ?? 0, 3)}).`,
-      reference: ring ? 'BS 7671:2018 433.1.204' : 'BS 7671:2018 433.1.1',
+      message: ringRule
+        ? `Ring on ${inA} A: Iz ${fmt(izA)} A ${ok ? '≥' : '<'} ${needA} A (${itWords} × ${fmt(derating ?? 0, 3)}).`
+        : `In ${fmt(needA)} A ${ok ? '≤' : '>'} Iz ${fmt(izA)} A (${itWords} × ${fmt(derating ?? 0, 3)}).`,
+      reference: ringRule ? 'BS 7671:2018+A2:2022 433.1.204' : 'BS 7671:2018+A2:2022 433.1.1',
     });
   }
 
@@ -312,14 +424,14 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
       code: 'voltage-drop',
       ok: chosen.vdOk,
       message: `Voltage drop ${fmt(chosen.vdV)} V = ${fmt(chosen.vdPct)} % ${chosen.vdOk ? '≤' : '>'} ${vdLimitPct} %${ring ? ' (ring, ÷4)' : ''}.`,
-      reference: 'BS 7671:2018 Appendix 4 Table 4Ab, 525',
+      reference: 'BS 7671:2018+A2:2022 Appendix 4 Table 4Ab, 525',
     });
   } else {
     checks.push({
       code: 'voltage-drop',
       ok: false,
       message: 'Voltage drop cannot be computed without a tabulated cable size.',
-      reference: 'BS 7671:2018 Appendix 4 Table 4Ab, 525',
+      reference: 'BS 7671:2018+A2:2022 Appendix 4 Table 4Ab, 525',
     });
   }
 
@@ -333,7 +445,7 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
         rcdMa !== null
           ? `RCD ${rcdMa} mA provides fault protection on the TT system.`
           : 'A TT system needs an RCD for fault protection; none is given.',
-      reference: 'BS 7671:2018 411.5.2',
+      reference: 'BS 7671:2018+A2:2022 411.5.2',
     });
     if (supply.zeOhm > 200) {
       notes.push('Earth electrode resistance above 200 Ω may not be stable (BS 7671 Table 41.5 note).');
@@ -347,9 +459,9 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
         zsMaxOhm === null
           ? tt
             ? 'No RCD, so no maximum earth fault loop impedance on TT.'
-            : `No tabulated max Zs for ${dev.kind}${dev.curve ?? ''} ${inA ?? '?'} A at ${disconnectionTimeS} s.`
+            : `No tabulated maximum Zs for a ${deviceName(dev, inA)} at ${disconnectionTimeS} s.`
           : 'Zs cannot be computed for this cable size.',
-      reference: tt ? 'BS 7671:2018 411.5.3' : 'BS 7671:2018 411.4.4, Tables 41.2–41.4',
+      reference: tt ? 'BS 7671:2018+A2:2022 411.5.3' : 'BS 7671:2018+A2:2022 411.4.4, Tables 41.2–41.4',
     });
   } else {
     const ok = zsOhm <= zsMaxOhm;
@@ -360,10 +472,10 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
         ? `RA·IΔn = ${fmt(zsOhm)} Ω × ${rcdMa} mA = ${fmt((zsOhm * (rcdMa ?? 0)) / 1000)} V ${ok ? '≤' : '>'} 50 V (RA taken as Zs = Ze + R1+R2; common practice takes RA ≈ Ze).`
         : `Zs ${fmt(zsOhm, 3)} Ω ${ok ? '≤' : '>'} max ${fmt(zsMaxOhm, 3)} Ω for ${disconnectionTimeS} s.`,
       reference: tt
-        ? 'BS 7671:2018 411.5.3'
+        ? 'BS 7671:2018+A2:2022 411.5.3'
         : dev.kind === 'mcb' || dev.kind === 'rcbo'
-          ? 'BS 7671:2018 411.4.4, Table 41.3 (0.95·Uo/Ia)'
-          : 'BS 7671:2018 411.4.4, Tables 41.2/41.4 (from memory)',
+          ? 'BS 7671:2018+A2:2022 411.4.4, Table 41.3 (0.95·Uo/Ia)'
+          : 'BS 7671:2018+A2:2022 411.4.4, Tables 41.2/41.4 (from memory)',
     });
   }
 
@@ -372,30 +484,38 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
   if (dev.breakingKa === undefined) {
     notes.push(`Breaking capacity not given: ${breakingKa} kA assumed (typical, from memory).`);
   }
-  const pfcOk = supply.pfcKa <= breakingKa;
+  const deviceOk = supply.pfcKa <= breakingKa;
+  const assemblyKa = dev.conditionalRatingKa ?? null;
+  const assemblyOk = !deviceOk && assemblyKa !== null && supply.pfcKa <= assemblyKa;
   checks.push({
     code: 'breaking-capacity',
-    ok: pfcOk,
-    message: `PFC ${fmt(supply.pfcKa)} kA ${pfcOk ? '≤' : '>'} breaking capacity ${breakingKa} kA.`,
-    reference: 'BS 7671:2018 434.5.1',
+    ok: deviceOk || assemblyOk,
+    message: deviceOk
+      ? `PFC ${fmt(supply.pfcKa)} kA ≤ breaking capacity ${breakingKa} kA.`
+      : assemblyKa === null
+        ? `PFC ${fmt(supply.pfcKa)} kA > breaking capacity ${breakingKa} kA.`
+        : `PFC ${fmt(supply.pfcKa)} kA > the device's ${breakingKa} kA, ${assemblyOk ? 'but ≤' : 'and >'} the ${assemblyKa} kA rated conditional short-circuit current the board declares for its assembly (BS EN 61439-3).`,
+    reference: assemblyKa === null ? 'BS 7671:2018+A2:2022 434.5.1' : 'BS 7671:2018+A2:2022 434.5.1, 536.4.201 (from memory)',
   });
 
   // Step 13: adiabatic check of the cpc.
   const cpcMinMm2 = chosen?.cpcMinMm2 ?? null;
   if (chosen && cpcMinMm2 !== null) {
     const ok = chosen.cpcMm2 >= cpcMinMm2;
+    const what = armouredCpc === 'armour' ? 'Armour' : 'cpc';
     checks.push({
       code: 'adiabatic',
       ok,
-      message: `cpc ${chosen.cpcMm2} mm² ${ok ? '≥' : '<'} ${fmt(cpcMinMm2, 3)} mm² (√(I²t)/k at ${fmt(chosen.energyFaultA ?? 0, 0)} A; ${chosen.energyBasis}).`,
-      reference: 'BS 7671:2018 543.1.3, Table 54.3',
+      message: `${what} ${chosen.cpcMm2} mm² ${ok ? '≥' : '<'} ${fmt(cpcMinMm2, 3)} mm² (√(I²t)/k at the far-end fault current ${fmt(chosen.energyFaultA ?? 0, 0)} A; ${chosen.energyBasis}).`,
+      reference:
+        armouredCpc === 'armour' ? 'BS 7671:2018+A2:2022 543.1.3, Table 54.4' : 'BS 7671:2018+A2:2022 543.1.3, Table 54.3',
     });
   } else {
     checks.push({
       code: 'adiabatic',
       ok: false,
-      message: 'The fault energy cannot be found: the device does not operate in a known time at this fault current.',
-      reference: 'BS 7671:2018 543.1.3',
+      message: 'The fault energy cannot be found: the device does not operate in a known time at the fault current at the far end.',
+      reference: 'BS 7671:2018+A2:2022 543.1.3',
     });
   }
 
@@ -406,6 +526,7 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
     inA: inA ?? ibA,
     concealedInWall: c.concealedInWall,
     dwelling,
+    specialLocation: c.specialLocation,
   });
   if (reasons.length > 0) {
     const ok = rcdMa !== null && rcdMa <= 30;
@@ -413,7 +534,10 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
       code: 'rcd-additional',
       ok,
       message: `${ok ? `RCD ${rcdMa} mA present` : 'A 30 mA RCD is required'} for ${reasons.join('; ')}.`,
-      reference: 'BS 7671:2018 411.3.3, 411.3.4, 522.6.202',
+      reference:
+        c.specialLocation === 'bath-shower'
+          ? 'BS 7671:2018+A2:2022 701.411.3.3, 411.3.3'
+          : 'BS 7671:2018+A2:2022 411.3.3, 411.3.4, 522.6.202',
     });
   }
 
@@ -425,8 +549,9 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
     const near: string[] = [];
     if (chosen.vdPct !== null && chosen.vdPct >= NEAR_LIMIT_SHARE * vdLimitPct) near.push('voltage drop');
     if (zsOhm !== null && zsMaxOhm !== null && zsOhm >= NEAR_LIMIT_SHARE * zsMaxOhm) near.push('Zs');
-    // A ring's cable carries about half the load each way: compare 0.67·Ib, as for In.
-    if (izA !== null && (ring ? 0.67 : 1) * ibA >= NEAR_LIMIT_SHARE * izA) near.push('Ib against Iz');
+    // A ring on 30/32 A: the cable's load is compared as the 20 A rule compares In (Ib × 20/In).
+    const cableLoadA = ringRule && inA !== null && needA !== null ? (ibA * needA) / inA : ibA;
+    if (izA !== null && cableLoadA >= NEAR_LIMIT_SHARE * izA) near.push('Ib against Iz');
     if (cpcMinMm2 !== null && cpcMinMm2 >= NEAR_LIMIT_SHARE * chosen.cpcMm2) near.push('adiabatic cpc');
     if (near.length > 0) {
       verdict = 'near-limit';
@@ -451,6 +576,7 @@ export function sizeCircuit(input: CircuitInput): CircuitResult {
     zsMaxOhm,
     faultCurrentA: chosen?.farEndFaultA ?? null,
     cpcMinMm2,
+    cpcKind: armouredCpc ?? 'core',
     disconnectionTimeS,
     adiabaticTimeS: chosen?.adiabaticTimeS ?? null,
     tableRow: row

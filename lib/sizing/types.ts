@@ -27,6 +27,32 @@ export type Curve = (typeof CURVES)[number];
 export const SOCKET_ARRANGEMENT_KINDS = ['ring-32', 'radial-32', 'radial-20'] as const;
 export type SocketArrangementKind = (typeof SOCKET_ARRANGEMENT_KINDS)[number];
 
+/**
+ * The kind of load a way feeds, chosen from a list (never guessed from the way's free text):
+ * it picks the diversity allowance on the board. `shower` is an instantaneous water heater;
+ * `water-heater` is a thermostatically controlled one (an immersion heater).
+ */
+export const LOAD_TYPES = [
+  'lighting',
+  'sockets',
+  'cooker',
+  'shower',
+  'water-heater',
+  'storage-heating',
+  'ev-charger',
+  'motor',
+  'other',
+] as const;
+export type LoadType = (typeof LOAD_TYPES)[number];
+
+/** Where a circuit goes, for the special-location rules of BS 7671 Part 7. */
+export const SPECIAL_LOCATIONS = ['none', 'bath-shower', 'outdoors'] as const;
+export type SpecialLocation = (typeof SPECIAL_LOCATIONS)[number];
+
+/** The protective conductor of an armoured cable: a spare core of the cable, or its steel armour. */
+export const ARMOURED_CPC_KINDS = ['spare-core', 'armour'] as const;
+export type ArmouredCpc = (typeof ARMOURED_CPC_KINDS)[number];
+
 /** One rule checked for a circuit. `reference` names the regulation or table behind it. */
 export interface Check {
   code: string;
@@ -50,9 +76,12 @@ export interface TableRow {
 export interface Factors {
   /** Ambient temperature, Table 4B1; null when the ambient is above the table. */
   ca: number | null;
-  /** Grouping, Table 4C1. */
-  cg: number;
-  /** Thermal insulation, Table 52.2 (1 for methods 100–103 and for 0 mm). */
+  /** Grouping, Table 4C1 (4C2 direct in the ground, 4C3 in ducts in the ground, for method D). */
+  cg: number | null;
+  /**
+   * Thermal insulation, Table 52.2 (1 for methods 100–103 and for 0 mm). It derates the
+   * method C rating: the run's tabulated current is min(It of its method, It of method C × Ci).
+   */
   ci: number;
   /** 0.725 for a BS 3036 fuse, 0.9 buried in the ground, their product for both, else 1. */
   cc: number;
@@ -82,6 +111,8 @@ export interface CircuitResult {
   cpcMinMm2: number | null;
   /** Maximum disconnection time required for this circuit, s (Table 41.1 / 411.3.2). */
   disconnectionTimeS: number;
+  /** What the cpc is: the cable's own core(s), a spare core, or the steel armour of an armoured cable. */
+  cpcKind: 'core' | 'spare-core' | 'armour';
   /** Time used in the adiabatic check, s (null when the energy came from a let-through figure or is unknown). */
   adiabaticTimeS: number | null;
   tableRow: TableRow | null;

@@ -1,9 +1,21 @@
 import { VOLTAGE_DROP_LIMITS_PCT } from './tables/disconnection';
 import type { CircuitUse } from './types';
 
-/** Voltage the drop is a percentage of: Uo single-phase, UL = √3·Uo three-phase. */
+/**
+ * Nominal line-to-line voltage UL for a line-to-earth Uo: the IEC 60038 pairs (120/208,
+ * 127/220, 220/380, 230/400, 240/415, 277/480 V), so a 230 V supply gives 400 V, not
+ * √3·230 = 398.4 V; any other Uo gives √3·Uo.
+ */
+export function lineVoltage(uoV: number): number {
+  const ul = NOMINAL_UL_V[uoV];
+  return ul === undefined ? Math.sqrt(3) * uoV : ul;
+}
+
+const NOMINAL_UL_V: Record<number, number> = { 120: 208, 127: 220, 220: 380, 230: 400, 240: 415, 277: 480 };
+
+/** Voltage the drop is a percentage of: Uo single-phase, UL (400 V on a 230/400 V supply) three-phase. */
 export function nominalVoltage(phases: 1 | 3, uoV: number): number {
-  return phases === 3 ? Math.sqrt(3) * uoV : uoV;
+  return phases === 3 ? lineVoltage(uoV) : uoV;
 }
 
 /**

@@ -131,7 +131,7 @@ export function DeviceForm({ wayId, device, readOnly, onValid }: DeviceFormProps
         ) : null}
         {kind === 'rcd' || kind === 'rcbo' ? (
           <>
-            <Field label="Trips at" error={errors.rcdMa?.message}>
+            <Field label="IΔn" hint="Rated residual operating current" error={errors.rcdMa?.message}>
               {(id, d) => (
                 <Select id={id} aria-describedby={d} aria-invalid={!!errors.rcdMa} {...register('rcdMa', numberOrNull)}>
                   {(kind === 'rcbo' ? [10, 30, 100, 300] : [30, 100, 300]).map((m) => (

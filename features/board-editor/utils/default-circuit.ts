@@ -11,6 +11,7 @@ export function startingCircuit(device: DeviceOnRail, boardPhases: 1 | 3): Circu
     serves: '',
     phases: three ? 3 : 1,
     use: 'fixed',
+    loadType: 'other',
     load: { kind: 'known', watts: 1000, powerFactor: 1 },
     lengthM: 10,
     cable: three ? 'swa-xlpe-90' : 'te-70',

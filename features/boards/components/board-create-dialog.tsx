@@ -36,6 +36,7 @@ const FIELDS: FieldPath<BoardCreateValues>[] = [
   'enclosureModules',
   'rails',
   'dwelling',
+  'conditionalRatingKa',
 ];
 
 type BoardCreateDialogProps = {
@@ -251,6 +252,15 @@ function BoardCreateForm({
         </Field>
         <Field label="Rails" error={errors.rails?.message}>
           {(id, d) => <Input {...whole} {...bind('rails', errors.rails, num)(id, d)} />}
+        </Field>
+        <Field
+          label="Conditional short-circuit rating (kA)"
+          hint="Optional: the assembly's rating its maker declares (a consumer unit to BS EN 61439-3: 16 kA)"
+          error={errors.conditionalRatingKa?.message}
+        >
+          {(id, d) => (
+            <Input {...decimal} {...bind('conditionalRatingKa', errors.conditionalRatingKa, num)(id, d)} />
+          )}
         </Field>
         <div className="flex items-end pb-2">
           <label className="flex items-center gap-2 text-sm text-ink">

@@ -5,24 +5,20 @@ import { useEffect } from 'react';
 import { useForm, type FieldErrors, type UseFormRegister } from 'react-hook-form';
 import type { z } from 'zod';
 
+import { CircuitFields } from '@/components/sizing/circuit-fields';
 import { CircuitResultView } from '@/components/sizing/circuit-result-view';
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
 import { Field, Input, Select } from '@/components/ui/field';
 import { ApiError } from '@/lib/api/client';
-import { CABLE_NAMES, deviceKindName, METHOD_NAMES, USE_NAMES } from '@/lib/names';
+import { deviceKindName } from '@/lib/names';
 import {
-  CABLE_KINDS,
   circuitInputSchema,
-  CIRCUIT_USES,
-  methodsFor,
   PROTECTIVE_DEVICE_KINDS,
   RCD_SENSITIVITIES_MA,
   STANDARD_RATINGS_A,
-  type CableKind,
   type CircuitInput,
 } from '@/lib/sizing';
-import { CONDUCTOR_SIZES_MM2 } from '@/lib/sizing/tables/conductor-resistance';
 
 import { useSizeCircuit } from '../api/use-size-circuit';
 
@@ -35,6 +31,7 @@ const defaults: FormIn = {
     serves: 'Water heater',
     phases: 1,
     use: 'fixed',
+    loadType: 'water-heater',
     load: { kind: 'known', watts: 3000, powerFactor: 1 },
     lengthM: 15,
     cable: 'te-70',
@@ -50,6 +47,9 @@ const defaults: FormIn = {
 };
 
 const num = { valueAsNumber: true } as const;
+const emptyIsUndefined = {
+  setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? undefined : Number(v)),
+} as const;
 /** Selects whose empty choice means "let the engine choose" (null). */
 const nullableNumber = {
   setValueAs: (v: unknown) =>
@@ -74,17 +74,8 @@ export function QuickSizeForm() {
   });
   const { register, handleSubmit, watch, setValue, setError, formState } = form;
   const errors = formState.errors;
-  const cable = watch('circuit.cable') as CableKind;
-  const loadKind = watch('circuit.load.kind');
   const deviceKind = watch('circuit.device.kind');
-  const methods = methodsFor(cable);
   const isBreaker = deviceKind === 'mcb' || deviceKind === 'rcbo';
-
-  // A method the new cable does not have is replaced by its first valid one.
-  useEffect(() => {
-    const method = form.getValues('circuit.method');
-    if (!methods.includes(method)) setValue('circuit.method', methods[0], { shouldValidate: true });
-  }, [cable, methods, form, setValue]);
 
   // Curve and residual current only apply to some devices.
   useEffect(() => {
@@ -94,19 +85,6 @@ export function QuickSizeForm() {
     }
     setValue('circuit.device.ratingA', null);
   }, [deviceKind, isBreaker, form, setValue]);
-
-  // Switching the load kind swaps in that kind's fields.
-  useEffect(() => {
-    const current = form.getValues('circuit.load');
-    if (current.kind === loadKind) return;
-    setValue(
-      'circuit.load',
-      loadKind === 'known'
-        ? { kind: 'known', watts: 3000, powerFactor: 1 }
-        : { kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 60 },
-    );
-    if (loadKind === 'socket-arrangement') setValue('circuit.use', 'sockets');
-  }, [loadKind, form, setValue]);
 
   const onSubmit = handleSubmit((input) =>
     sizing.mutate(input, {
@@ -156,137 +134,9 @@ export function QuickSizeForm() {
           </div>
         </Card>
 
-        <Card title="What it feeds">
+        <Card title="The circuit">
           <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
-            <Field label="Serves" className="col-span-2 sm:col-span-3" error={err(errors, 'circuit.serves')}>
-              {(id) => <Input id={id} {...register('circuit.serves')} />}
-            </Field>
-            <Field label="Use" error={err(errors, 'circuit.use')}>
-              {(id) => (
-                <Select id={id} {...register('circuit.use')}>
-                  {CIRCUIT_USES.map((u) => (
-                    <option key={u} value={u}>
-                      {USE_NAMES[u]}
-                    </option>
-                  ))}
-                </Select>
-              )}
-            </Field>
-            <Field label="Phases" error={err(errors, 'circuit.phases')}>
-              {(id) => (
-                <Select id={id} {...register('circuit.phases', { setValueAs: Number })}>
-                  <option value={1}>Single-phase</option>
-                  <option value={3}>Three-phase</option>
-                </Select>
-              )}
-            </Field>
-            <Field label="Load given as" error={err(errors, 'circuit.load.kind')}>
-              {(id) => (
-                <Select id={id} {...register('circuit.load.kind')}>
-                  <option value="known">Known load</option>
-                  <option value="socket-arrangement">Socket arrangement</option>
-                </Select>
-              )}
-            </Field>
-            {loadKind === 'known' ? (
-              <>
-                <NumberField label="Load (W)" path="circuit.load.watts" register={register} errors={errors} />
-                <NumberField
-                  label="Power factor"
-                  path="circuit.load.powerFactor"
-                  register={register}
-                  errors={errors}
-                  step="0.01"
-                />
-              </>
-            ) : (
-              <>
-                <Field label="Arrangement" error={err(errors, 'circuit.load.arrangement')}>
-                  {(id) => (
-                    <Select id={id} {...register('circuit.load.arrangement')}>
-                      <option value="ring-32">Ring, 32 A</option>
-                      <option value="radial-32">Radial, 32 A</option>
-                      <option value="radial-20">Radial, 20 A</option>
-                    </Select>
-                  )}
-                </Field>
-                <NumberField
-                  label="Floor area (m²)"
-                  path="circuit.load.floorAreaM2"
-                  register={register}
-                  errors={errors}
-                />
-              </>
-            )}
-          </div>
-        </Card>
-
-        <Card title="Cable and route">
-          <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
-            <Field label="Cable" className="col-span-2 sm:col-span-3" error={err(errors, 'circuit.cable')}>
-              {(id) => (
-                <Select id={id} {...register('circuit.cable')}>
-                  {CABLE_KINDS.map((c) => (
-                    <option key={c} value={c}>
-                      {CABLE_NAMES[c]}
-                    </option>
-                  ))}
-                </Select>
-              )}
-            </Field>
-            <Field label="Reference method" className="col-span-2 sm:col-span-3" error={err(errors, 'circuit.method')}>
-              {(id) => (
-                <Select id={id} {...register('circuit.method')}>
-                  {methods.map((m) => (
-                    <option key={m} value={m}>
-                      {METHOD_NAMES[m]}
-                    </option>
-                  ))}
-                </Select>
-              )}
-            </Field>
-            <NumberField label="Length (m)" path="circuit.lengthM" register={register} errors={errors} step="0.1" />
-            <NumberField label="Ambient (°C)" path="circuit.ambientC" register={register} errors={errors} />
-            <NumberField
-              label="Circuits grouped"
-              path="circuit.grouping.circuits"
-              register={register}
-              errors={errors}
-            />
-            <Field label="Grouped as" error={err(errors, 'circuit.grouping.arrangement')}>
-              {(id) => (
-                <Select id={id} {...register('circuit.grouping.arrangement')}>
-                  <option value="bunched">Bunched or enclosed</option>
-                  <option value="single-layer">Single layer on a wall</option>
-                </Select>
-              )}
-            </Field>
-            <NumberField
-              label="In insulation (mm)"
-              path="circuit.insulationMm"
-              register={register}
-              errors={errors}
-            />
-            <Field label="Cable size" error={err(errors, 'circuit.csaMm2')}>
-              {(id) => (
-                <Select id={id} {...register('circuit.csaMm2', nullableNumber)}>
-                  <option value="">Choose for me</option>
-                  {CONDUCTOR_SIZES_MM2.map((s) => (
-                    <option key={s} value={s}>
-                      {s} mm² (check it)
-                    </option>
-                  ))}
-                </Select>
-              )}
-            </Field>
-            <label className="col-span-2 flex items-center gap-2 text-sm sm:col-span-3">
-              <input type="checkbox" {...register('circuit.concealedInWall')} />
-              Concealed in a wall less than 50 mm deep, without earthed protection
-            </label>
-            <label className="col-span-2 flex items-center gap-2 text-sm sm:col-span-3">
-              <input type="checkbox" {...register('circuit.buried')} />
-              Buried in the ground
-            </label>
+            <CircuitFields form={form} prefix="circuit." fullRow="col-span-2 sm:col-span-3" />
           </div>
         </Card>
 
@@ -332,6 +182,15 @@ export function QuickSizeForm() {
               register={register}
               errors={errors}
               step="0.5"
+            />
+            <NumberField
+              label="Assembly's conditional rating (kA)"
+              hint="Empty unless the board declares one (a consumer unit to BS EN 61439-3: 16 kA)"
+              path="circuit.device.conditionalRatingKa"
+              register={register}
+              errors={errors}
+              step="0.5"
+              optional
             />
             <Field label="RCD protection" error={err(errors, 'circuit.device.rcdMa')}>
               {(id) => (
@@ -392,20 +251,25 @@ function Card({ title, children }: { title: string; children: React.ReactNode })
 
 function NumberField({
   label,
+  hint,
   path,
   register,
   errors,
   step = '1',
+  optional = false,
 }: {
   label: string;
+  hint?: string;
   path: string;
   register: UseFormRegister<FormIn>;
   errors: FieldErrors<FormIn>;
   step?: string;
+  /** An empty box means "not given" (undefined) rather than NaN. */
+  optional?: boolean;
 }) {
   const message = err(errors, path);
   return (
-    <Field label={label} error={message}>
+    <Field label={label} hint={hint} error={message}>
       {(id, describedBy) => (
         <Input
           id={id}
@@ -414,7 +278,7 @@ function NumberField({
           step={step}
           aria-invalid={!!message}
           aria-describedby={describedBy}
-          {...register(path as never, num)}
+          {...register(path as never, optional ? emptyIsUndefined : num)}
         />
       )}
     </Field>

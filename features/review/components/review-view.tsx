@@ -17,7 +17,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
 import { ApiError, errorMessage } from '@/lib/api/client';
-import { deviceName } from '@/lib/names';
+import { deviceName, loadTypeName } from '@/lib/names';
 import type { CommentDto, ReviewData } from '@/lib/dal/review';
 import type { CircuitResult } from '@/lib/sizing';
 
@@ -249,6 +249,9 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                     <td className="px-3 py-2 font-semibold">{data.refs[way.id] ?? '—'}</td>
                     <td className={way.circuit ? 'px-3 py-2' : 'px-3 py-2 text-ink-faint'}>
                       {way.circuit ? way.circuit.serves || '(not named)' : data.refs[way.id] ? 'Spare' : ''}
+                      {way.circuit ? (
+                        <span className="block text-xs text-ink-soft">{loadTypeName(way.circuit)}</span>
+                      ) : null}
                     </td>
                     <td className="px-3 py-2 text-ink-soft">{deviceName(way.device, r?.inA)}</td>
                     <td className="px-3 py-2 text-right tabular-nums">{fmt(r?.ibA, 1)}</td>

@@ -13,6 +13,7 @@ import {
   deviceName,
   EARTHING_NAMES,
   LABEL_STATUS_NAMES,
+  loadTypeName,
   nameWaysIn,
   VERDICT_WORDS,
   wayTitle,
@@ -24,6 +25,7 @@ import type { LabelStatus } from '@/models/way';
 export type ColumnKey =
   | 'way'
   | 'serves'
+  | 'load'
   | 'protection'
   | 'ib'
   | 'cable'
@@ -52,7 +54,8 @@ export type ScheduleColumn = {
  */
 export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { key: 'way', heading: 'Way', width: 40, align: 'left' },
-  { key: 'serves', heading: 'Serves', width: 150, align: 'left' },
+  { key: 'serves', heading: 'Serves', width: 96, align: 'left' },
+  { key: 'load', heading: 'Kind of load', width: 54, align: 'left' },
   { key: 'protection', heading: 'Protection', width: 92, align: 'left' },
   { key: 'ib', heading: 'Ib A', width: 34, align: 'right' },
   { key: 'cable', heading: 'Cable, method', width: 78, align: 'left' },
@@ -168,6 +171,7 @@ function rowFor(
     return { wayId: way.id, cells, verdict: null, spare: way.device.kind !== 'spd', label: label?.status ?? null };
   }
   cells.serves = c.serves?.trim() || '(not named)';
+  cells.load = loadTypeName(c);
   cells.cable = `${CABLE_CELL_NAMES[c.cable] ?? 'Cable'}, method ${c.method}`;
   cells.run = num(c.lengthM, 0);
   if (result) {

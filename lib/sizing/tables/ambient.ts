@@ -3,7 +3,8 @@
  * Source: BS 7671:2018+A2:2022 Table 4B1 (same values as IEC 60364-5-52 Table B.52.14 at
  * 30 °C and above). The 25 °C row (1.03 / 1.02) is the BS 7671 value for cables with
  * overload protection. Rows 25–60 °C (70 °C cable) and 25–70 °C (90 °C cable) are
- * confirmed; 75 and 80 °C for 90 °C cable are from memory (they agree with the formula).
+ * confirmed; 75 and 80 °C for 90 °C cable are from memory (they agree with the formula; the
+ * public table found for 90 °C flexible cords, 4F2A, reads 0.50 and 0.40 — a different table).
  * Between rows use the next higher tabulated temperature; below 25 °C the 25 °C row is
  * used (conservative). Above the last row the cable may not be used: no factor.
  */

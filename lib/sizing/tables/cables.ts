@@ -36,6 +36,17 @@ export function methodsFor(cable: CableKind): readonly Method[] {
   return METHODS_BY_CABLE[cable];
 }
 
+/**
+ * mV/A/m of each size: the single tabulated value up to 16 mm², and above it the impedance
+ * z = √(r² + x²) from the table's r and x (BS 7671 Appendix 4: the z column, never r alone,
+ * unless the load's power factor is used to combine r and x).
+ */
+function impedanceColumn(mv: readonly number[], rx: readonly (readonly [number, number])[] | undefined): number[] {
+  if (!rx) return [...mv];
+  const first = mv.length - rx.length;
+  return mv.map((v, i) => (i < first ? v : Math.hypot(rx[i - first][0], rx[i - first][1])));
+}
+
 function build(
   sizes: readonly number[],
   it: readonly number[],
@@ -62,9 +73,11 @@ const multiTables = [
   ['swa-xlpe-90', ARMOURED_4E4],
 ] as const;
 for (const [cable, t] of multiTables) {
+  const mv1 = impedanceColumn(t.mvAm1, 'rx1' in t ? t.rx1 : undefined);
+  const mv3 = impedanceColumn(t.mvAm3, 'rx3' in t ? t.rx3 : undefined);
   for (const [method, cols] of Object.entries(t.itA)) {
-    ROWS.set(`${cable}|${method}|1`, build(t.sizesMm2, cols[2], t.mvAm1, null));
-    ROWS.set(`${cable}|${method}|3`, build(t.sizesMm2, cols[3], t.mvAm3, null));
+    ROWS.set(`${cable}|${method}|1`, build(t.sizesMm2, cols[2], mv1, null));
+    ROWS.set(`${cable}|${method}|3`, build(t.sizesMm2, cols[3], mv3, null));
   }
 }
 

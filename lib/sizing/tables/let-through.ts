@@ -1,7 +1,8 @@
 /**
  * Energy-limiting class 3 let-through I²t limits, A²s, for type B and C circuit-breakers
  * up to 32 A, by prospective current, A. Source: BS EN 60898-1 Annex ZA (Table ZA.1) —
- * FROM MEMORY, verify against the standard. Each value is an upper bound on the energy
+ * FROM MEMORY, verify against the standard (searched for; no public copy of the figures
+ * found — a manufacturers' association guide to the standard was found but not its table). Each value is an upper bound on the energy
  * let through at (and below) the listed prospective current by a class 3 device.
  * Manufacturers' data for a given device is usually lower.
  */

@@ -6,9 +6,16 @@
  * BS 7671:2018+A2:2022 Table 41.3 (confirmed: B32 1.37 Ω, C20 1.09 Ω). Instantaneous
  * tripping is within 0.1 s, so the same limit serves 0.4 s and 5 s.
  *
+ * Type D at 5 s uses 10·In (Table 41.3: D32 0.68 Ω), see breakerDisconnectionCurrent; a
+ * public table of the 18th edition values agrees (D32 0.34 Ω at 0.4 s, 0.68 Ω at 5 s).
+ *
  * Fuses: FROM MEMORY — BS 7671:2018+A2:2022 Table 41.2 (0.4 s) and Table 41.4 (5 s), the
- * 18th edition values with Cmin = 0.95. Verify every cell against a printed copy before
- * relying on it. A rating missing from a column has no tabulated value (null).
+ * 18th edition values with Cmin = 0.95 (the BS 88-2 0.4 s cells equal the 2008 values × 0.95,
+ * e.g. 32 A 1.04 → 0.99 Ω). Checked against public sources: NOT confirmed — a calculator
+ * site's table gives different fuse values (e.g. BS 88 20 A 1.84 Ω) while mixing editions
+ * (its 32 A 1.04 Ω is the 2008 figure), and a question-and-answer page gives a BS 88-3 20 A
+ * figure without Cmin. Verify every cell against a printed copy before relying on it. A
+ * rating missing from a column has no tabulated value (null).
  */
 export const BREAKER_TRIP_MULTIPLE = { B: 5, C: 10, D: 20 } as const;
 

@@ -5,7 +5,8 @@
  * Confirmed against a public source: three- or four-core method C 4 mm² 32 A and
  * 10 mm² 57 A; three-phase mV/A/m 4 mm² 9.5 and 10 mm² 3.8.
  * From memory (verify against a printed copy): every other cell. For 25 mm² and above
- * the mV/A/m given is the impedance (z) value.
+ * the engine uses the impedance z = √(r² + x²) from the r and x below (from memory; the
+ * multicore reactance is small, so z differs from r by under 6 %).
  *
  * "2" = one two-core cable, single-phase; "3" = one three- or four-core cable, three-phase.
  * Methods: A (in conduit in an insulated wall), B (in conduit on a wall), C (clipped
@@ -32,6 +33,8 @@ export const MULTICORE_4D2 = {
       3: [14.5, 18.5, 25, 34, 43, 60, 80, 101, 126, 153, 196, 238],
     },
   },
-  mvAm1: [44, 29, 18, 11, 7.3, 4.4, 2.8, 1.75, 1.25, 0.94, 0.65, 0.5],
-  mvAm3: [38, 25, 15, 9.5, 6.4, 3.8, 2.4, 1.5, 1.1, 0.81, 0.57, 0.43],
+  mvAm1: [44, 29, 18, 11, 7.3, 4.4, 2.8, 1.75, 1.25, 0.93, 0.63, 0.46],
+  mvAm3: [38, 25, 15, 9.5, 6.4, 3.8, 2.4, 1.5, 1.1, 0.8, 0.55, 0.4],
+  rx1: [[1.75, 0.17], [1.25, 0.165], [0.93, 0.165], [0.63, 0.16], [0.46, 0.155]],
+  rx3: [[1.5, 0.145], [1.1, 0.145], [0.8, 0.14], [0.55, 0.14], [0.4, 0.135]],
 } as const;

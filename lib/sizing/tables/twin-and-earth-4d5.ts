@@ -5,7 +5,9 @@
  * Confirmed against a public source (see design/reference-data.md):
  *   1.0 mm² and 1.5 mm² rows (all methods and mV/A/m), 2.5 mm² method C (27 A) and
  *   mV/A/m (18), 4 mm² method 100 (27 A).
- * From memory (verify against a printed copy): every other cell of the 2.5–16 mm² rows.
+ * From memory (verify against a printed copy): every other cell of the 2.5–16 mm² rows. The
+ * 2.5 mm² row agrees with a public discussion of 433.1.204 (a ring needs Iz ≥ 20 A: met in
+ * methods A, 100 and 102, not in 101), which does not quote the cells themselves.
  *
  * Methods 100–103 are the UK insulated-joist and stud-wall methods (their values already
  * allow for the thermal insulation described in the method); A = enclosed in conduit in an

@@ -1,12 +1,15 @@
 import { DndContext } from '@dnd-kit/core';
 import { act, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
+// @ts-expect-error -- its types are not reachable through the package's exports map
+import { computeAccessibleName } from 'dom-accessibility-api';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
 
 import { WayPanel } from '@/features/board-editor/components/way-panel';
 import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-store';
 import { useSizingStore } from '@/features/board-editor/stores/sizing-store';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
+import { CIRCUIT_FIELD_LABELS } from '@/lib/names';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
 import { demoBoard } from './fixtures';
@@ -105,14 +108,14 @@ describe('the way panel', () => {
     const way = openWay('Immersion heater, airing cupboard');
     renderPanel();
     const methods = () =>
-      within(screen.getByLabelText('Installation method')).getAllByRole('option').map((o) => (o as HTMLOptionElement).value);
+      within(screen.getByLabelText('Reference method')).getAllByRole('option').map((o) => (o as HTMLOptionElement).value);
     expect(methods()).toEqual(['100', '101', '102', '103', 'A', 'C']);
 
     await user.selectOptions(screen.getByLabelText('Cable'), 'swa-xlpe-90');
     expect(methods()).toEqual(['C', 'D', 'E']);
     expect(circuitOf(way.id)).toMatchObject({ cable: 'swa-xlpe-90', method: 'C' });
 
-    await user.selectOptions(screen.getByLabelText('Installation method'), 'D');
+    await user.selectOptions(screen.getByLabelText('Reference method'), 'D');
     expect(circuitOf(way.id).method).toBe('D');
   });
 
@@ -122,7 +125,7 @@ describe('the way panel', () => {
     const way = openWay('Immersion heater, airing cupboard');
     renderPanel();
     await user.selectOptions(screen.getByLabelText('Use'), 'sockets');
-    await user.selectOptions(screen.getByLabelText('Load'), 'socket-arrangement');
+    await user.selectOptions(screen.getByLabelText('Load given as'), 'socket-arrangement');
     expect(circuitOf(way.id).load).toEqual({ kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 50 });
     await user.selectOptions(screen.getByLabelText('Cable size'), '4');
     expect(circuitOf(way.id).csaMm2).toBe(4);
@@ -190,5 +193,55 @@ describe('the way panel', () => {
     expect(screen.getByLabelText('Length (m)').matches(':disabled')).toBe(true);
     expect(screen.getByLabelText('Rating').matches(':disabled')).toBe(true);
     expect(screen.queryByRole('button', { name: /Remove/ })).toBeNull();
+  });
+});
+
+describe('the way panel speaks one language with quick size', () => {
+  it('every control is named by its visible label (WCAG 2.1 label in name)', () => {
+    store().load(demoBoard('flat'));
+    openWay('Cooker: oven and hob');
+    renderPanel();
+    const controls = [...document.querySelectorAll('input, select')] as (HTMLInputElement | HTMLSelectElement)[];
+    expect(controls.length).toBeGreaterThan(15);
+    for (const control of controls) {
+      const visible = [...(control.labels ?? [])].map((l) => l.textContent?.trim() ?? '').join(' ');
+      expect(visible, control.outerHTML).not.toBe('');
+      expect(computeAccessibleName(control), control.outerHTML).toContain(visible);
+    }
+  });
+
+  it('the circuit fields carry the shared names of lib/names.ts (the same component draws quick size)', () => {
+    store().load(demoBoard('flat'));
+    openWay('Towel rail and extract fan, bathroom');
+    renderPanel();
+    for (const label of ['Kind of load', 'Reference method', 'Circuits grouped', 'Where it goes', 'Load given as', 'Run in insulation (mm)']) {
+      expect(screen.getByLabelText(label)).toBeTruthy();
+    }
+    expect((screen.getByLabelText('Kind of load') as HTMLSelectElement).value).toBe('other');
+    expect((screen.getByLabelText('Where it goes') as HTMLSelectElement).value).toBe('bath-shower');
+    expect(screen.getByLabelText(CIRCUIT_FIELD_LABELS.concealedInWall)).toBeTruthy();
+    expect(screen.queryByText(/Buried in a wall/)).toBeNull();
+  });
+
+  it('choosing a kind of load and a special location goes into the draft', async () => {
+    const user = userEvent.setup();
+    store().load(demoBoard('flat'));
+    const way = openWay('Immersion heater, airing cupboard');
+    renderPanel();
+    await user.selectOptions(screen.getByLabelText('Kind of load'), 'shower');
+    expect(circuitOf(way.id).loadType).toBe('shower');
+    await user.selectOptions(screen.getByLabelText('Where it goes'), 'bath-shower');
+    expect(circuitOf(way.id).specialLocation).toBe('bath-shower');
+    await user.selectOptions(screen.getByLabelText('Where it goes'), '');
+    expect(circuitOf(way.id).specialLocation).toBeUndefined();
+  });
+
+  it('an RCD\u2019s residual current is labelled IΔn', () => {
+    store().load(demoBoard('flat'));
+    const rcd = store().ways.find((w) => w.device.kind === 'rcd')!;
+    act(() => store().select(rcd.id));
+    renderPanel();
+    expect(screen.getByLabelText('IΔn')).toBeTruthy();
+    expect(screen.queryByText('Trips at')).toBeNull();
   });
 });

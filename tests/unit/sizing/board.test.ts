@@ -35,7 +35,7 @@ describe('sizeBoard: the flat consumer unit (dwelling, single-phase)', () => {
       {
         id: 'shower',
         device: { kind: 'rcbo', poles: 1, modules: 1, curve: 'B', ratingA: 50, rcdMa: 30 },
-        circuit: { ...te, use: 'fixed', serves: 'Shower', lengthM: 12, load: { kind: 'known', watts: 9200, powerFactor: 1 } },
+        circuit: { ...te, use: 'fixed', serves: 'Shower', loadType: 'shower', lengthM: 12, load: { kind: 'known', watts: 9200, powerFactor: 1 } },
       },
     ],
   });
@@ -100,15 +100,16 @@ describe('sizeBoard: the workshop three-phase board (non-dwelling)', () => {
   const out = sizeBoard(input);
 
   it('puts three-phase loads on every phase and single-phase ways on their phase, with diversity', () => {
-    // Ib: saw 6900 / (3 · 230) = 10 A per phase; lighting 1150/230 = 5 A; heater 2300/230 = 10 A.
-    // Non-dwelling rule (assumption): largest circuit 100 %, rest 75 %. Sorting by Ib puts the saw
-    // (10 A, listed first) ahead of the heater (10 A): saw 10, heater 7.5, lighting 3.75.
-    // L1 = 10 + 3.75 = 13.75 A, L2 = 10 + 7.5 = 17.5 A, L3 = 10 A; mean 13.75; imbalance (17.5 − 13.75)/13.75 = 27.27 %.
-    expect(out.summary.phaseCurrentsA?.L1).toBeCloseTo(13.75, 6);
-    expect(out.summary.phaseCurrentsA?.L2).toBeCloseTo(17.5, 6);
-    expect(out.summary.phaseCurrentsA?.L3).toBeCloseTo(10, 6);
-    expect(out.summary.maxDemandA).toBeCloseTo(17.5, 6);
-    expect(out.summary.imbalancePct).toBeCloseTo(27.2727, 3);
+    // Ib: saw 6900 / (√3 · 400) = 9.9593 A per phase (UL = 400 V); lighting 1150/230 = 5 A;
+    // heater 2300/230 = 10 A. Non-dwelling rule (assumption): largest circuit 100 %, rest 75 %:
+    // heater 10, saw 7.4695, lighting 3.75.
+    // L1 = 7.4695 + 3.75 = 11.2195 A, L2 = 7.4695 + 10 = 17.4695 A, L3 = 7.4695 A;
+    // mean 12.0528; imbalance (17.4695 − 12.0528) / 12.0528 = 44.94 %.
+    expect(out.summary.phaseCurrentsA?.L1).toBeCloseTo(11.2195, 4);
+    expect(out.summary.phaseCurrentsA?.L2).toBeCloseTo(17.4695, 4);
+    expect(out.summary.phaseCurrentsA?.L3).toBeCloseTo(7.4695, 4);
+    expect(out.summary.maxDemandA).toBeCloseTo(17.4695, 4);
+    expect(out.summary.imbalancePct).toBeCloseTo(44.94, 1);
     expect(out.summary.diversityRules[0].source).toMatch(/Assumption/);
   });
 

@@ -1,0 +1,79 @@
+import type { z } from 'zod';
+
+import {
+  boardInputSchema,
+  circuitInputSchema,
+  type BoardInput,
+  type CircuitInput,
+} from './schemas';
+
+/** One field the engine refused: its path (dot-separated) and why. */
+export interface SizingInputIssue {
+  path: string;
+  message: string;
+}
+
+/**
+ * The engine was called with input its schema refuses (a negative length, a 400 V Uo, ...).
+ * The message names every bad field; `issues` lists them one by one.
+ */
+export class SizingInputError extends Error {
+  readonly issues: SizingInputIssue[];
+  constructor(issues: SizingInputIssue[]) {
+    super(`Invalid sizing input: ${issues.map((i) => `${i.path || '(input)'}: ${i.message}`).join('; ')}`);
+    this.name = 'SizingInputError';
+    this.issues = issues;
+  }
+}
+
+/**
+ * Marks an input this module parsed itself (a non-enumerable property, set before the input
+ * is deep-frozen so it cannot change afterwards): the engine trusts these without parsing
+ * them again. Spreading or copying an input does not copy the mark, so a changed copy is
+ * validated again. (A WeakSet lookup cost more than the rest of the check.)
+ */
+const VALIDATED = Symbol('boardwright.sizing.validated');
+type Marked = { [VALIDATED]?: true };
+
+function deepFreeze<T>(value: T): T {
+  if (value !== null && typeof value === 'object' && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const v of Object.values(value as Record<string, unknown>)) deepFreeze(v);
+  }
+  return value;
+}
+
+function parseWith<T extends object>(schema: z.ZodType<T>, raw: unknown): T {
+  const parsed = schema.safeParse(raw);
+  if (!parsed.success) {
+    throw new SizingInputError(
+      parsed.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: i.message })),
+    );
+  }
+  Object.defineProperty(parsed.data, VALIDATED, { value: true, enumerable: false });
+  return deepFreeze(parsed.data);
+}
+
+/**
+ * Validate one circuit's input with `circuitInputSchema` (defaults filled in). Throws a
+ * SizingInputError naming the bad fields. The result is frozen and known to the engine, so
+ * `sizeCircuit` does not parse it again.
+ */
+export function parseCircuitInput(raw: unknown): CircuitInput {
+  return parseWith(circuitInputSchema as z.ZodType<CircuitInput>, raw);
+}
+
+/** Validate a board's input with `boardInputSchema`; as parseCircuitInput. */
+export function parseBoardInput(raw: unknown): BoardInput {
+  return parseWith(boardInputSchema as z.ZodType<BoardInput>, raw);
+}
+
+/** The input itself if this module validated it, else the result of validating it (or a throw). */
+export function validCircuitInput(input: unknown): CircuitInput {
+  return (input as Marked | null)?.[VALIDATED] === true ? (input as CircuitInput) : parseCircuitInput(input);
+}
+
+/** As validCircuitInput, for a board. */
+export function validBoardInput(input: unknown): BoardInput {
+  return (input as Marked | null)?.[VALIDATED] === true ? (input as BoardInput) : parseBoardInput(input);
+}
