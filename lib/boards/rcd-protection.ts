@@ -1,9 +1,9 @@
 /**
  * Which ways an RCD protects: the one rule, used by the editor's RCD brackets, the schedule's
- * groups and (checked against it by a property test) the engine's `protectedBy`. Pure.
+ * groups and the engine's `protectedBy` (and the RCD sensitivity each circuit is sized with). Pure.
  *
  * An RCD protects the ways after it on the rail, across rails in rail order, until the next
- * RCD or main switch, as on a split-load board (product.md, Board model). A spare way (a
+ * RCD or main switch, as on a split-load board. A spare way (a
  * blank) sits under the RCD before it. An RCBO protects itself. Main switches, RCDs and SPDs
  * feed no way and are protected by nothing. An incoming RCD protects every way up to the first
  * RCD or main switch on the rail.

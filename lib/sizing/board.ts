@@ -1,4 +1,5 @@
 import { layoutWays } from '../boards/layout';
+import { INCOMING_RCD, protectedById, rcdProtection } from '../boards/rcd-protection';
 import { deviceName, wayName } from '../names';
 import type { BoardInput, CircuitFields, CircuitSpec, DeviceOnRail } from './schemas';
 import { BS7671, sizeValidCircuit } from './size-circuit';
@@ -202,8 +203,8 @@ const check = (code: string, ok: boolean, message: string, reference: string): C
 /**
  * Size every way of a board and summarise it: connected load, maximum demand after
  * diversity, phase currents and imbalance, incoming device and busbar against the demand,
- * modules used, verdict counts and which RCD protects which ways. An RCD protects the ways
- * after it until the next RCD or main switch; an RCBO protects its own way. The input is
+ * modules used, verdict counts and which RCD protects which ways (the one rule of
+ * lib/boards/rcd-protection.ts, which the editor and the schedule use too). The input is
  * validated here (a SizingInputError names each bad field; see `parseBoardInput`). Messages
  * name ways by their way number (lib/boards/layout.ts), never by id. Never throws for a
  * valid input.
@@ -220,38 +221,43 @@ export function sizeBoard(raw: BoardInput): BoardResult {
   const nameOf = (id: string) => wayName(labels.get(id) ?? '?');
   const ways: WayResult[] = [];
   const loads: Loaded[] = [];
-  const rcdCoverage: Array<{ rcdId: string; wayIds: string[] }> = [];
   const boardChecks: Check[] = [];
   const notes: string[] = [];
   const counts = { passes: 0, nearLimit: 0, fails: 0, spare: 0 };
   let connectedLoadW = 0;
   let modulesUsed = 0;
 
-  // Walk the rail in order, tracking the RCD that covers the current position.
-  let upstream: { id: string; ma: number } | null =
-    input.incoming.kind === 'rcd' ? { id: 'incoming', ma: input.incoming.rcdMa ?? 30 } : null;
-  if (upstream) rcdCoverage.push({ rcdId: upstream.id, wayIds: [] });
+  // Which RCD protects each way: the one rule the editor and the schedule use as well.
+  const protection = rcdProtection(
+    input.ways.map((w, position) => ({ id: w.id, rail: 0, position, device: w.device })),
+    input.incoming.kind === 'rcd',
+  );
+  const rcdMa = new Map<string, number>([[INCOMING_RCD, input.incoming.rcdMa ?? 30]]);
+  const coverage = new Map<string, string[]>();
+  if (input.incoming.kind === 'rcd') coverage.set(INCOMING_RCD, []);
+  for (const way of input.ways) {
+    if (way.device.kind !== 'rcd') continue;
+    rcdMa.set(way.id, way.device.rcdMa ?? 30);
+    coverage.set(way.id, []);
+  }
+  const rcdCoverage = [...coverage].map(([rcdId, wayIds]) => ({ rcdId, wayIds }));
+
   for (const way of input.ways) {
     const d = way.device;
     modulesUsed += d.modules;
-    if (d.kind === 'main-switch') upstream = null;
-    if (d.kind === 'rcd') {
-      upstream = { id: way.id, ma: d.rcdMa ?? 30 };
-      rcdCoverage.push({ rcdId: way.id, wayIds: [] });
-    }
+    const protectedBy = protectedById(way.id, protection.get(way.id) ?? null);
+    // An RCD's way (not an RCBO's own) lists the ways it covers
+    if (protectedBy !== null && protectedBy !== way.id) coverage.get(protectedBy)?.push(way.id);
     if (d.kind === 'blank') {
       // A blank is a spare way: it sits under the RCD before it, like any other way.
       counts.spare += 1;
-      if (upstream) rcdCoverage[rcdCoverage.length - 1].wayIds.push(way.id);
-      ways.push({ id: way.id, result: null, protectedBy: upstream?.id ?? null });
+      ways.push({ id: way.id, result: null, protectedBy });
       continue;
     }
     if (!isProtectiveDevice(d.kind)) {
       ways.push({ id: way.id, result: null, protectedBy: null });
       continue;
     }
-    const protectedBy = d.kind === 'rcbo' ? way.id : (upstream?.id ?? null);
-    if (d.kind !== 'rcbo' && upstream) rcdCoverage[rcdCoverage.length - 1].wayIds.push(way.id);
     if (!way.circuit) {
       counts.spare += 1;
       ways.push({ id: way.id, result: null, protectedBy });
@@ -263,7 +269,7 @@ export function sizeBoard(raw: BoardInput): BoardResult {
       circuit: circuitForWay(
         spec,
         d,
-        d.kind === 'rcbo' ? null : (upstream?.ma ?? null),
+        d.kind === 'rcbo' || protectedBy === null ? null : (rcdMa.get(protectedBy) ?? null),
         input.dwelling,
         input.conditionalRatingKa ?? null,
       ),

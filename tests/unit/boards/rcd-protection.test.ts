@@ -35,7 +35,7 @@ describe('rcdProtection: one rule for which ways an RCD protects', () => {
     expect(protectedById('w2', rcdProtection(ways.slice(2), true).get('w2')!)).toBe('incoming');
   });
 
-  it('property: it gives the same answer as the engine’s protectedBy for any order of the demo boards’ devices', () => {
+  it('property: the engine, sized on the ways flattened in rail order, gives the same protectedBy for any order of the demo boards’ devices', () => {
     for (const demo of [FLAT_BOARD, WORKSHOP_BOARD]) {
       const base = demoWays(demo);
       let compared = 0;
