@@ -12,7 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { db } from '@/lib/db';
 import { Board, Organisation, Site, Way } from '@/models';
-import { DEMO_ORG, DEMO_SITE, FLAT_BOARD, WORKSHOP_BOARD, demoWays } from '@/scripts/demo-data';
+import { DEMO_ORG, DEMO_SITE, FLAT_BOARD, WORKSHOP_BOARD, demoUser, demoWays } from '@/scripts/demo-data';
 
 import { APP_URL, boardIdByName, openBrowser, signIn, type Role } from './helpers';
 
@@ -64,9 +64,10 @@ beforeAll(async () => {
   try {
     await signIn(page, 'inspector');
     const res = await page.request.post(`${APP_URL}/api/boards/${issuedId}/review/approve`, {
-      data: { acknowledgeFailures: true },
+      // The issuer declares with their own name (separation of duties)
+      data: { acknowledgeFailures: true, declaration: demoUser('inspector').name },
     });
-    expect(res.status()).toBe(200);
+    expect(res.status(), await res.text()).toBe(200);
   } finally {
     await close();
   }

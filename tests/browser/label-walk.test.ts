@@ -111,7 +111,7 @@ describe('review and label walk', () => {
       await expect(summary.locator('[data-summary="wrong"] dd').textContent()).resolves.toBe('1');
       await expect(summary.locator('[data-summary="unchecked"] dd').textContent()).resolves.toBe(String(total - 4));
       await expect(summary.locator('[data-summary="photos"] dd').textContent()).resolves.toBe('1');
-      await expect(summary.getByRole('button', { name: /Label says Cooker/ }).textContent()).resolves.toContain('Label wrong');
+      await expect(summary.getByRole('button', { name: /Label says Cooker/ }).textContent()).resolves.toContain('Label is wrong');
     } finally {
       await first.close();
     }
@@ -124,7 +124,7 @@ describe('review and label walk', () => {
       await page.goto(`${APP_URL}/boards/${boardId}/walk`);
       await page.getByText(`4 of ${total} checked`).waitFor();
       const goTo = page.getByRole('combobox', { name: 'Go to way' });
-      const wrong = await goTo.locator('option', { hasText: 'Label wrong' }).getAttribute('value');
+      const wrong = await goTo.locator('option', { hasText: 'Label is wrong' }).getAttribute('value');
       await goTo.selectOption(wrong!);
       await page.getByLabel('Note').fill('Relabelled on site');
       await page.getByRole('button', { name: 'Label matches' }).click();
