@@ -5,6 +5,7 @@ import { Op, type Transaction } from 'sequelize';
 import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import { issueRefusal, sameName, type Refusal } from '@/lib/boards/record-rules';
+import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
 import {
   diffRevisions,
@@ -60,7 +61,9 @@ export type RevisionSummary = {
 export type IssuePreview = {
   /** The revision number the board would be issued as. */
   revision: number;
-  /** Devices on the rail, and ways with a circuit. */
+  /** The ways counted by way number, in the words of the boards list and the schedule. */
+  ways: string;
+  /** Devices on the rail, and ways with a circuit (recorded in the audit trail). */
   devices: number;
   circuits: number;
   verdicts: { passes: number; nearLimit: number; fails: number };
@@ -181,6 +184,7 @@ export async function getReview(actor: Actor, boardId: string): Promise<ReviewDa
   const counts = sizing?.summary.counts;
   const issue: IssuePreview = {
     revision: await nextRevision(row),
+    ways: countWords(countWays(board.phases, board.ways)),
     devices: board.ways.length,
     circuits: board.ways.filter((w) => w.circuit).length,
     verdicts: { passes: counts?.passes ?? 0, nearLimit: counts?.nearLimit ?? 0, fails: counts?.fails ?? 0 },

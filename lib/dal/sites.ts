@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { Op, type WhereOptions } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { mayRestore, siteRemoval } from '@/lib/boards/record-rules';
@@ -106,6 +106,15 @@ export async function updateSite(
   return getSite(actor, siteId);
 }
 
+/** The site row of the caller's organisation, locked for the rest of the transaction. */
+function lockedSite(actor: Actor, siteId: string, transaction: Transaction): Promise<Site | null> {
+  return Site.findOne({
+    where: { id: siteId, organisationId: actor.organisationId },
+    transaction,
+    lock: transaction.LOCK.UPDATE,
+  });
+}
+
 /**
  * Archives a site: it and its boards leave the lists and become read-only, nothing is
  * removed (lib/boards/record-rules.ts siteRemoval: a site holding an issued board, admins
@@ -114,11 +123,7 @@ export async function updateSite(
 export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSummary> {
   await findSite(actor, siteId);
   await db().transaction(async (transaction) => {
-    const site = await Site.findOne({
-      where: { id: siteId, organisationId: actor.organisationId },
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
+    const site = await lockedSite(actor, siteId, transaction);
     if (!site) throw notFound('The site');
     const boards = await Board.findAll({ where: { siteId }, transaction, lock: transaction.LOCK.UPDATE });
     const issued = boards.length
@@ -152,11 +157,7 @@ export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSum
   if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived sites');
   await findSite(actor, siteId);
   await db().transaction(async (transaction) => {
-    const site = await Site.findOne({
-      where: { id: siteId, organisationId: actor.organisationId },
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
+    const site = await lockedSite(actor, siteId, transaction);
     if (!site?.archivedAt) throw conflict('This site is not archived.');
     await site.update({ archivedAt: null, archivedById: null }, { transaction });
     await audit(actor, 'site.restored', { siteId, name: site.name }, { transaction });

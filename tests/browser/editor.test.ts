@@ -288,7 +288,7 @@ describe('the board editor', () => {
       await page.getByRole('button', { name: 'Send for review' }).click();
       // "Send for review" confirms first, saying what goes
       const confirm = page.getByRole('dialog', { name: 'Send Editor review check for review?' });
-      await expect(confirm.textContent()).resolves.toMatch(/Revision 1: 1 device on the rail, 1 circuit/);
+      await expect(confirm.textContent()).resolves.toMatch(/Revision 1: 1 way: 1 circuit, 0 spare/);
       await confirm.getByRole('button', { name: 'Send for review' }).click();
       const refusal = page.getByRole('dialog', { name: 'Not sent for review' });
       await expect(refusal.textContent()).resolves.toMatch(/Way 1.*Workshop alarm sounder/);

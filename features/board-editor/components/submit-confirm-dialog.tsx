@@ -2,6 +2,7 @@
 
 import { Button } from '@/components/ui/button';
 import { Dialog, DialogActions } from '@/components/ui/dialog';
+import { countWays, countWords } from '@/lib/boards/counts';
 
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSizingStore } from '../stores/sizing-store';
@@ -15,15 +16,15 @@ type Props = { open: boolean; revision: number; onClose: () => void; onConfirm: 
 export function SubmitConfirmDialog({ open, revision, onClose, onConfirm }: Props) {
   const name = useBoardDraftStore((s) => s.settings?.name ?? 'this board');
   const ways = useBoardDraftStore((s) => s.ways);
+  const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
   const dirty = useBoardDraftStore((s) => s.dirty);
   const counts = useSizingStore((s) => s.result?.summary.counts);
-  const circuits = ways.filter((w) => w.circuit).length;
   return (
     <Dialog open={open} onClose={onClose} title={`Send ${name} for review?`}>
       <div className="space-y-2 text-sm leading-relaxed text-ink">
         <p>
-          Revision {revision}: {ways.length} device{ways.length === 1 ? '' : 's'} on the rail, {circuits} circuit
-          {circuits === 1 ? '' : 's'}
+          {/* The ways counted by way number, in the words of the boards list and the schedule */}
+          Revision {revision}: {countWords(countWays(phases, ways))}
           {counts ? ` (${counts.passes} pass, ${counts.nearLimit} near the limit, ${counts.fails} fail)` : ''}.
         </p>
         {dirty ? <p>Your unsaved changes are saved first.</p> : null}

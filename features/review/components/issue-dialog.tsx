@@ -61,7 +61,7 @@ export function IssueDialog({ open, onClose, board, issue }: Props) {
         <dd className="font-medium text-ink">revision {issue.revision}</dd>
         <dt className="text-ink-soft">Ways</dt>
         <dd className="text-ink">
-          {plural(issue.devices, 'device')} on the rail, {plural(issue.circuits, 'circuit')}
+          {issue.ways}
         </dd>
         <dt className="text-ink-soft">Verdicts</dt>
         <dd className="text-ink">
