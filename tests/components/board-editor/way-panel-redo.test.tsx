@@ -20,7 +20,15 @@ function Editor() {
   useUndoShortcuts(true);
   return (
     <DndContext>
-      <EditorToolbar siteName="Hollin Lane" canEdit canSubmit={false} readOnlyReason={null} submitting={false} onSave={() => {}} onSubmit={() => {}} />
+      <EditorToolbar
+        siteName="Hollin Lane"
+        canEdit
+        canSubmit={false}
+        readOnlyReason={null}
+        submitting={false}
+        onSave={() => {}}
+        onSubmit={() => {}}
+      />
       <WayPanel readOnly={false} showSizing onRemove={() => {}} />
     </DndContext>
   );
@@ -41,7 +49,8 @@ function jsonbOrder<T>(value: T): T {
 
 function openImmersion() {
   const board = demoBoard('flat');
-  store().load({ ...board, ways: board.ways.map((w) => ({ ...w, device: jsonbOrder(w.device), circuit: jsonbOrder(w.circuit) })) });
+  const stored = board.ways.map((w) => ({ ...w, device: jsonbOrder(w.device), circuit: jsonbOrder(w.circuit) }));
+  store().load({ ...board, ways: stored });
   const way = store().ways.find((w) => w.circuit?.serves === 'Immersion heater, airing cupboard')!;
   act(() => store().select(way.id));
   render(<Editor />);

@@ -41,7 +41,7 @@ function source(ways: SnapshotWay[], phases: 1 | 3 = 1): ScheduleSource {
 }
 
 describe('label strips', () => {
-  it('each printed piece holds as many modules as fit across A4 landscape beside its two join marks, and no more', () => {
+  it('each printed piece holds as many modules as fit across A4 landscape with its two join marks', () => {
     // A rail far longer than a page: 40 one-module breakers
     const ways: SnapshotWay[] = Array.from({ length: 40 }, (_, i) => ({
       id: `m${i}`,
