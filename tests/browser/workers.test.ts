@@ -5,7 +5,7 @@
  * every worker (not after the member cache's few seconds), and a worker that dies is replaced
  * while the others keep answering.
  */
-import { execFileSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import crypto from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import http from 'node:http';
@@ -63,8 +63,10 @@ const PROMISED = PRIMARY > 0 ? promisedWorkers(serverEnv(PRIMARY)) : 0;
 const ONE_PROCESS = PROMISED === 1;
 
 function workers(): number[] {
-  const out = execFileSync('ps', ['--ppid', String(PRIMARY), '-o', 'pid='], { encoding: 'utf8' });
-  return out.split('\n').map((l) => Number(l.trim())).filter(Boolean);
+  // ps ends with status 1 when the process has no children (the server runs in one process)
+  const ps = spawnSync('ps', ['--ppid', String(PRIMARY), '-o', 'pid='], { encoding: 'utf8' });
+  if (ps.status !== 0 && ps.status !== 1) throw new Error(`ps failed: ${ps.stderr}`);
+  return ps.stdout.split('\n').map((l) => Number(l.trim())).filter(Boolean);
 }
 
 let member: User;
