@@ -56,7 +56,8 @@ start() {
   if [ "$("${SUPER[@]}" -tAc "select 1 from pg_roles where rolname='boardwright'")" != 1 ]; then
     "${SUPER[@]}" -c "create role boardwright login createdb password 'boardwright'"
   fi
-  # The app's own role owns nothing (lib/db-roles.ts); migration 0005 gives it its grants
+  # The app's own role owns nothing; scripts/migrate.ts gives it its grants after every
+  # migration (lib/db-roles.ts)
   if [ "$("${SUPER[@]}" -tAc "select 1 from pg_roles where rolname='boardwright_app'")" != 1 ]; then
     "${SUPER[@]}" -c "create role boardwright_app login password 'boardwright_app'"
   fi

@@ -1,7 +1,7 @@
 import type { Role } from '@/lib/domain';
 
 /**
- * What each role may do (product.md, Roles). Every route handler and server action
+ * What each role may do: this table is the one place that says it. Every route handler and server action
  * asks `can(role, action)` on the server; the UI only hides what the server refuses anyway.
  */
 export const PERMISSIONS = {

@@ -139,7 +139,10 @@ const circuitSpecShape = {
   loadType: z.enum(LOAD_TYPES).optional(),
   /** Where the circuit goes: a room with a bath or shower (Section 701), outdoors, or neither. */
   specialLocation: z.enum(SPECIAL_LOCATIONS).optional(),
-  /** Armoured cable only: its cpc is a spare core or the steel armour (absent: see design/sizing.md). */
+  /**
+   * Armoured cable only: its cpc is a spare core or the steel armour. Absent: a spare core where
+   * the cable has one (3-core, single-phase), else the armour (4-core, three-phase).
+   */
   armouredCpc: z.enum(ARMOURED_CPC_KINDS).optional(),
   /** Whether the circuit is in a dwelling (lighting RCD rule); lighting and sockets default to yes. */
   dwelling: z.boolean().optional(),

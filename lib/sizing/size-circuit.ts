@@ -181,7 +181,9 @@ function teConstructionCpc(csaMm2: number): number | null {
 }
 
 /**
- * Size one circuit by the BS 7671 method of design/sizing.md. The input is validated here
+ * Size one circuit by the BS 7671 design method: Ib, then In, the correction factors, It and Iz,
+ * the cable size, voltage drop, R1+R2 and Zs, disconnection, fault current and the cpc's
+ * adiabatic check, and additional (RCD) protection. The input is validated here
  * (see `validCircuitInput`: an input that came from `parseCircuitInput` is not parsed
  * again); an input the schema refuses throws a SizingInputError naming each bad field.
  * Never throws for a valid input: a combination the tables do not cover is a failed check,

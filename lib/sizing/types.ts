@@ -1,4 +1,8 @@
-/** Kinds of cable the engine sizes (see design/sizing.md). */
+/**
+ * Kinds of cable the engine sizes: flat twin and earth, 70 °C thermoplastic (BS 7671 Table 4D5);
+ * single-core 70 °C thermoplastic in conduit or trunking (4D1A/B); non-armoured multicore 70 °C
+ * thermoplastic (4D2A/B); armoured multicore, 90 °C thermosetting (4E4A/B).
+ */
 export const CABLE_KINDS = ['te-70', 'single-pvc-70', 'multi-pvc-70', 'swa-xlpe-90'] as const;
 export type CableKind = (typeof CABLE_KINDS)[number];
 

@@ -4,7 +4,7 @@ import { APP_URL, demoUser, openBrowser, signIn, type Role } from './helpers';
 
 type Browser = Awaited<ReturnType<typeof openBrowser>>;
 
-// What each role sees in the top bar (product.md, Roles).
+// What each role sees in the top bar: what the permissions table (lib/auth/permissions.ts) allows it.
 const expected: Record<Role, { sees: string[]; hidden: string[] }> = {
   admin: { sees: ['Boards', 'Sites', 'Quick size', 'Members', 'Outbox'], hidden: [] },
   designer: { sees: ['Boards', 'Sites', 'Quick size'], hidden: ['Members', 'Outbox'] },

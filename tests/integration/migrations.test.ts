@@ -127,7 +127,8 @@ describe('the audit trail from the app', () => {
       action: 'board.saved',
       details: { version: 2 },
     });
-    // The app's role has no UPDATE or DELETE on the table (migration 0005); the triggers
+    // The app's role has no UPDATE or DELETE on the table (lib/db-roles.ts, granted by
+    // scripts/migrate.ts after every migration); the triggers
     // would refuse them anyway
     const refused = /permission denied for table audit_events|append-only/;
     await expect(event.update({ action: 'board.deleted' })).rejects.toThrow(refused);

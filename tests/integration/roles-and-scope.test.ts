@@ -46,7 +46,7 @@ describe('signed out', () => {
   });
 });
 
-describe('roles (product.md permissions table)', () => {
+describe('roles (the permissions table, lib/auth/permissions.ts)', () => {
   it('inspectors and installers may not create sites or boards', async () => {
     for (const role of ['inspector', 'installer'] as const) {
       signInAs(ours.users[role]);

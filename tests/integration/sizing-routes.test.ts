@@ -46,7 +46,7 @@ beforeAll(async () => {
 });
 
 describe('POST /api/sizing', () => {
-  it('is 401 signed out and 403 for installers (product.md: installers do not size)', async () => {
+  it('is 401 signed out and 403 for installers (lib/auth/permissions.ts: installers do not size)', async () => {
     signInAs(null);
     expect((await sizingRoute.POST(jsonRequest('POST', circuitBody), ctx({}))).status).toBe(401);
     signInAs(ours.users.installer);

@@ -22,7 +22,15 @@ type CircuitFormProps = {
   onValid: (circuit: CircuitSpec, field: string) => void;
 };
 
-const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+/**
+ * A value in one canonical text: read through the schema, so the keys come in the schema's order
+ * and absent optional fields are dropped. A value loaded from the database (jsonb keeps its keys
+ * in its own order) and the same value read back from the fields compare equal.
+ */
+const canonical = (value: unknown) => {
+  const parsed = circuitSpecSchema.safeParse(value);
+  return JSON.stringify(parsed.success ? parsed.data : value);
+};
 const num = { valueAsNumber: true } as const;
 const numberOrNull = { setValueAs: (v: string) => (v === '' || v === null ? null : Number(v)) } as const;
 const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefined ? undefined : Number(v)) } as const;
@@ -42,12 +50,16 @@ export function CircuitForm({ wayId, circuit, boardPhases, readOnly, onValid }: 
   });
   const { formState, reset } = form;
   const errors = formState.errors;
-  const lastWritten = useRef<CircuitSpec>(circuit);
+  // The circuit the fields show, as canonical text: only a real change is written to the draft
+  const lastWritten = useRef(canonical(circuit));
 
   // A change from elsewhere (undo, redo, reload) resets the fields to it
   useEffect(() => {
-    if (!same(circuit, lastWritten.current)) {
-      lastWritten.current = circuit;
+    const text = canonical(circuit);
+    if (text !== lastWritten.current) {
+      // Resetting the fields fires the watch below with this same value: it must not be
+      // written back, as a write is a new edit and would empty the redo stack
+      lastWritten.current = text;
       forgetUnfinishedInput(keepKey);
       reset(circuit);
     }
@@ -62,8 +74,10 @@ export function CircuitForm({ wayId, circuit, boardPhases, readOnly, onValid }: 
   useEffect(() => {
     const subscription = form.watch((values, { name }) => {
       const parsed = circuitSpecSchema.safeParse(values);
-      if (!parsed.success || same(parsed.data, lastWritten.current)) return;
-      lastWritten.current = parsed.data;
+      if (!parsed.success) return;
+      const text = JSON.stringify(parsed.data);
+      if (text === lastWritten.current) return;
+      lastWritten.current = text;
       onValidRef.current(parsed.data, name ?? 'circuit');
     });
     return () => subscription.unsubscribe();

@@ -22,7 +22,15 @@ type DeviceFormProps = {
   onValid: (device: DeviceOnRail, field: string) => void;
 };
 
-const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+/**
+ * A value in one canonical text: read through the schema, so the keys come in the schema's order
+ * and absent optional fields are dropped. A value loaded from the database (jsonb keeps its keys
+ * in its own order) and the same value read back from the fields compare equal.
+ */
+const canonical = (value: unknown) => {
+  const parsed = deviceOnRailSchema.safeParse(value);
+  return JSON.stringify(parsed.success ? parsed.data : value);
+};
 const numberOrNull = { setValueAs: (v: string) => (v === '' || v === null ? null : Number(v)) } as const;
 const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefined ? undefined : Number(v)) } as const;
 
@@ -41,11 +49,15 @@ export function DeviceForm({ wayId, device, readOnly, onValid }: DeviceFormProps
   });
   const { register, formState, reset } = form;
   const errors = formState.errors;
-  const lastWritten = useRef(device);
+  // The device the fields show, as canonical text: only a real change is written to the draft
+  const lastWritten = useRef(canonical(device));
 
   useEffect(() => {
-    if (!same(device, lastWritten.current)) {
-      lastWritten.current = device;
+    const text = canonical(device);
+    if (text !== lastWritten.current) {
+      // Resetting the fields fires the watch below with this same value: it must not be
+      // written back, as a write is a new edit and would empty the redo stack
+      lastWritten.current = text;
       forgetUnfinishedInput(keepKey);
       reset(device);
     }
@@ -59,8 +71,10 @@ export function DeviceForm({ wayId, device, readOnly, onValid }: DeviceFormProps
   useEffect(() => {
     const subscription = form.watch((values, { name }) => {
       const parsed = deviceOnRailSchema.safeParse(values);
-      if (!parsed.success || same(parsed.data, lastWritten.current)) return;
-      lastWritten.current = parsed.data;
+      if (!parsed.success) return;
+      const text = JSON.stringify(parsed.data);
+      if (text === lastWritten.current) return;
+      lastWritten.current = text;
       onValidRef.current(parsed.data, name ?? 'device');
     });
     return () => subscription.unsubscribe();

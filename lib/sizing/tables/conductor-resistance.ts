@@ -1,7 +1,7 @@
 /**
  * Maximum d.c. resistance of plain copper conductors at 20 °C, class 1/2, in mΩ/m.
  * Source: IEC 60228 (BS EN 60228) Table 1/2.
- * Confirmed (design/reference-data.md): 1.0–35 mm². 50–300 mm²: CONFIRMED against a cable
+ * Confirmed against a public source: 1.0–35 mm². 50–300 mm²: CONFIRMED against a cable
  * maker's published BS 5467 datasheet (conductor resistance at 20 °C, Ω/km: 0.387, 0.268,
  * 0.193, 0.153, 0.124, 0.0991, 0.0754, 0.0601), which quotes BS EN 60228.
  */

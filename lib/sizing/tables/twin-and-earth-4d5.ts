@@ -2,7 +2,7 @@
  * Flat twin and earth cable, 70 °C thermoplastic (PVC) insulation, copper.
  * Source: BS 7671:2018+A2:2022 Table 4D5 (current-carrying capacity and voltage drop).
  *
- * Confirmed against a public source (see design/reference-data.md):
+ * Confirmed against a public source:
  *   1.0 mm² and 1.5 mm² rows (all methods and mV/A/m), 2.5 mm² method C (27 A) and
  *   mV/A/m (18), 4 mm² method 100 (27 A).
  * From memory (verify against a printed copy): every other cell of the 2.5–16 mm² rows. The

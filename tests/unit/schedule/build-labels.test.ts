@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
-import { buildLabelSheet, MODULE_PITCH_MM, MODULES_PER_STRIP } from '@/features/schedule/utils/build-labels';
+import { buildLabelSheet, JOIN_MARK_MM, MODULE_PITCH_MM } from '@/features/schedule/utils/build-labels';
 import type { SnapshotWay } from '@/lib/boards/revision-diff';
 import type { ScheduleSource } from '@/lib/dal/review';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
@@ -41,9 +41,36 @@ function source(ways: SnapshotWay[], phases: 1 | 3 = 1): ScheduleSource {
 }
 
 describe('label strips', () => {
-  it('fit 15 modules of 17.5 mm across A4 landscape with 10 mm margins and a 6 mm join mark at each end ((277 − 12) mm / 17.5 mm = 15.1)', () => {
-    expect(MODULE_PITCH_MM).toBe(17.5);
-    expect(MODULES_PER_STRIP).toBe(15);
+  it('each printed piece holds as many modules as fit across A4 landscape with its two join marks', () => {
+    // A rail far longer than a page: 40 one-module breakers
+    const ways: SnapshotWay[] = Array.from({ length: 40 }, (_, i) => ({
+      id: `m${i}`,
+      rail: 0,
+      position: i,
+      device: device(1),
+      circuit: null,
+    }));
+    const pieces = buildLabelSheet(source(ways)).rails[0].strips;
+    const widths = pieces.map((p) => p.lastModule - p.firstModule + 1);
+    expect(widths.reduce((a, b) => a + b, 0)).toBe(40);
+    const full = widths[0];
+    // Every piece but the last is full; the last holds what is left
+    expect(widths.slice(0, -1).every((w) => w === full)).toBe(true);
+    expect(widths.at(-1)).toBe(40 - full * (pieces.length - 1));
+    // The page: A4 is 297 mm long (ISO 216), less the label sheet's 10 mm margin each side
+    const printable = 297 - 2 * 10;
+    const drawn = (modules: number) => modules * MODULE_PITCH_MM + 2 * JOIN_MARK_MM;
+    expect(drawn(full)).toBeLessThanOrEqual(printable);
+    expect(drawn(full + 1)).toBeGreaterThan(printable);
+    // So the pitch the pieces were cut to lies between these bounds, and the common 17.5 mm
+    // module width (DIN 43880 built-in devices; from memory, common practice) is inside them
+    const pitchAtMost = (printable - 2 * JOIN_MARK_MM) / full;
+    const pitchAbove = (printable - 2 * JOIN_MARK_MM) / (full + 1);
+    expect(17.5).toBeLessThanOrEqual(pitchAtMost);
+    expect(17.5).toBeGreaterThan(pitchAbove);
+    // The PDF draws each label to MODULE_PITCH_MM a module: the pitch the pieces were cut to
+    expect(MODULE_PITCH_MM).toBeGreaterThan(pitchAbove);
+    expect(MODULE_PITCH_MM).toBeLessThanOrEqual(pitchAtMost);
   });
 
   it('keep rail order, give each label its device’s modules and split a rail only at a marked join, never inside a device', () => {
@@ -74,10 +101,12 @@ describe('label strips', () => {
     expect(sheet.rails[1].strips[0].cells[0]).toMatchObject({ text: 'Spare', device: '' });
   });
 
-  it('the demo flat’s 18-module rail is one strip: no way wraps onto a row of its own without a join', () => {
-    const flat = demoWays(FLAT_BOARD).map((w) => ({ ...w, circuit: w.circuit }));
+  it('the demo flat’s rail is one strip: no way wraps onto a row of its own without a join', () => {
+    const flat = demoWays(FLAT_BOARD);
     const sheet = buildLabelSheet(source(flat));
     expect(sheet.rails).toHaveLength(1);
+    // The rail's length is the sum of its devices' widths, counted here from the demo's devices
+    expect(sheet.rails[0].modules).toBe(flat.reduce((sum, w) => sum + w.device.modules, 0));
     const pieces = sheet.rails[0].strips;
     // Every piece but the last ends at a join that the next piece starts at
     pieces.forEach((piece, i) => {

@@ -64,7 +64,8 @@ describe('fuse max Zs tables (from memory) obey the physics of a time-current cu
 describe('ambient factor Ca against the published formula', () => {
   // Above 30 °C: Ca = √((θp − θa)/(θp − 30)) (IEC 60364-5-52 basis). At 25 °C, for cables with
   // overload protection: Ca = (1/1.45)·√((θo − θa)/(θp − 30)), θo = 30 + 1.45²·(θp − 30)
-  // (design/reference-data.md, "edition traps"). Printed to two decimals, so within 0.006.
+  // (BS 7671 Table 4B1; the IEC table's 1.06 and 1.04 at 25 °C are for cables without overload
+  // protection). Printed to two decimals, so within 0.006.
   for (const thetaP of [70, 90] as const) {
     it(`${thetaP} °C cable`, () => {
       for (const [t, ca] of AMBIENT_CA[thetaP]) {
@@ -147,7 +148,7 @@ describe('mV/A/m against 2·r20·1.20 (or ·1.28) from IEC 60228, sizes up to 16
   });
 });
 
-describe('R1+R2 per metre against the sums of IEC 60228 values (design/reference-data.md)', () => {
+describe('R1+R2 per metre against the sums of IEC 60228 values', () => {
   // Published R1+R2 at 20 °C, mΩ/m: 1.5/1.0 30.2, 2.5/1.5 19.51, 4/1.5 16.71, 6/2.5 10.49, 10/4 6.44, 16/6 4.23.
   const sums: Array<[number, number, number]> = [
     [1.5, 1, 30.2],
@@ -165,7 +166,7 @@ describe('R1+R2 per metre against the sums of IEC 60228 values (design/reference
 });
 
 describe('current ratings: confirmed cells and physical ordering', () => {
-  it('confirmed cells of Tables 4D5, 4D1A and 4D2A (design/reference-data.md)', () => {
+  it('confirmed cells of Tables 4D5, 4D1A and 4D2A (each table’s header says which cells)', () => {
     const te = (m: '100' | '101' | '102' | '103' | 'C' | 'A', s: number) =>
       cableRows('te-70', m, 1)?.find((r) => r.csaMm2 === s)?.itA;
     expect([te('100', 1), te('101', 1), te('102', 1), te('103', 1), te('C', 1), te('A', 1)]).toEqual([13, 10.5, 13, 8, 16, 11.5]);
