@@ -6,7 +6,7 @@
  * Pure and dependency-free (type imports only), so the engine, the server and client
  * components can all use it.
  */
-import type { BoardStatus, LabelStatus, Role } from './domain';
+import type { BoardStatus, LabelStatus } from './domain';
 import type {
   ArmouredCpc,
   CableKind,
@@ -153,7 +153,7 @@ export const ARRANGEMENT_NAMES: Record<SocketArrangementKind, string> = {
 };
 
 /** Every kind of device a way can hold, by its trade name. */
-export const DEVICE_KIND_NAMES = {
+const DEVICE_KIND_NAMES = {
   'main-switch': 'Main switch',
   rcd: 'RCD',
   mcb: 'MCB',
@@ -164,7 +164,6 @@ export const DEVICE_KIND_NAMES = {
   spd: 'SPD',
   blank: 'Blank',
 } as const;
-export type DeviceKindName = keyof typeof DEVICE_KIND_NAMES;
 
 /** The name of a device kind; an unknown code is never shown as it is. */
 export function deviceKindName(kind: string): string {
@@ -172,7 +171,7 @@ export function deviceKindName(kind: string): string {
 }
 
 /** The device kinds inside a sentence ("the main switch needs …"). */
-const DEVICE_KIND_PHRASES: Record<DeviceKindName, string> = {
+const DEVICE_KIND_PHRASES: Record<keyof typeof DEVICE_KIND_NAMES, string> = {
   'main-switch': 'main switch',
   rcd: 'RCD',
   mcb: 'MCB',
@@ -281,9 +280,7 @@ export const LABEL_STATUS_NAMES: Record<LabelStatus, string> = {
   missing: 'Label is missing',
 };
 
-export const ROLE_NAMES: Record<Role, string> = {
-  admin: 'Admin',
-  designer: 'Designer',
-  inspector: 'Inspector',
-  installer: 'Installer',
-};
+/** "1 way", "3 ways": a count with its noun, singular or plural. */
+export function plural(n: number, one: string, many = `${one}s`): string {
+  return `${n} ${n === 1 ? one : many}`;
+}

@@ -9,6 +9,8 @@
  * way number with its three single-pole positions (1L1, 1L2, 1L3), and a three-pole device
  * takes all three.
  */
+import { plural } from '@/lib/names';
+
 import { layoutWays, type LayoutWay } from './layout';
 
 export type CountedWay = LayoutWay & { circuit: unknown };
@@ -38,8 +40,6 @@ export function countWays(phases: 1 | 3, ways: readonly CountedWay[]): WayCounts
   const taken = feeding.reduce((n, p) => n + p.phases.length, 0);
   return { ways: highest, circuits: feeding.length, spare: positions - taken, positions };
 }
-
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 
 /**
  * The counts in words, the same on every screen and print: "9 ways: 8 circuits, 1 spare" or

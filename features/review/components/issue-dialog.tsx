@@ -11,6 +11,7 @@ import { FormAlert } from '@/components/ui/form-alert';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import type { BoardDto } from '@/lib/boards/types';
 import type { IssuePreview } from '@/lib/dal/review';
+import { plural } from '@/lib/names';
 
 import { postApprove } from '../api/review-api';
 
@@ -20,8 +21,6 @@ type Props = {
   board: Pick<BoardDto, 'id' | 'name' | 'siteName' | 'location'>;
   issue: IssuePreview;
 };
-
-const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
 /**
  * The confirmation before a board is issued: what is issued (board, revision, how many ways
