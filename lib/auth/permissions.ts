@@ -12,6 +12,8 @@ export const PERMISSIONS = {
   'boards.submit': ['admin', 'designer'],
   'boards.review': ['admin', 'inspector'],
   'schedule.print': ['admin', 'designer', 'inspector', 'installer'],
+  // Print a board's live draft (not yet issued); installers print issued revisions only
+  'schedule.print-draft': ['admin', 'designer', 'inspector'],
   'walk.record': ['admin', 'inspector', 'installer'],
   'mailbox.read': ['admin'],
   // Archive sites and boards that were ever issued, and restore anything archived
@@ -39,6 +41,7 @@ export const ACTION_WORDS: Record<Action, string> = {
   'boards.submit': 'send boards for review',
   'boards.review': 'review boards',
   'schedule.print': 'print schedules',
+  'schedule.print-draft': 'print boards not yet issued',
   'walk.record': 'record label walks',
   'mailbox.read': 'read the development mailbox',
   'records.archive': 'archive or restore issued records',

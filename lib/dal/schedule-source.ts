@@ -1,5 +1,6 @@
 import 'server-only';
 
+import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import type { BoardSnapshot } from '@/lib/boards/revision-diff';
 import { boardUrl, liveSnapshot } from '@/lib/dal/board-snapshot';
@@ -30,8 +31,9 @@ export type ScheduleSource = {
 
 /**
  * The board state to print. Without `revision`: the issued revision of an issued board
- * (labels matched or not), else the live draft. Installers print issued revisions only (a board
- * never issued is refused); the others may print the live draft too.
+ * (labels matched or not), else the live draft. Only roles that may print drafts
+ * ('schedule.print-draft': not installers) print the live draft; the others print issued
+ * revisions only (a board never issued is refused).
  */
 export async function getScheduleSource(
   actor: Actor,
@@ -39,7 +41,7 @@ export async function getScheduleSource(
   revision?: number,
 ): Promise<ScheduleSource> {
   const board = await findBoard(actor, boardId);
-  const draftsAllowed = actor.role !== 'installer';
+  const draftsAllowed = can(actor.role, 'schedule.print-draft');
   const issuedNow = board.status === 'issued' || board.status === 'labels-matched';
   let target = revision;
   if (target === undefined) {

@@ -33,7 +33,7 @@ export default async function BoardLayout({ children, params }: Props) {
     {
       href: `/boards/${boardId}/schedule`,
       label: 'Schedule',
-      show: can(actor.role, 'schedule.print') && (actor.role !== 'installer' || issued || board.revision > 1),
+      show: can(actor.role, 'schedule.print') && (can(actor.role, 'schedule.print-draft') || issued || board.revision > 1),
     },
     { href: `/boards/${boardId}/walk`, label: 'Label walk', show: can(actor.role, 'walk.record') },
   ].filter((t) => t.show);

@@ -53,7 +53,7 @@ export default async function SchedulePage({
     ]);
     const data = buildSchedule(source);
     const choices = [
-      ...(actor.role !== 'installer' && !revisions.some((r) => r.revision === stage.revision)
+      ...(can(actor.role, 'schedule.print-draft') && !revisions.some((r) => r.revision === stage.revision)
         ? [{ revision: stage.revision, label: `Revision ${stage.revision} (draft)` }]
         : []),
       ...revisions.map((r) => ({ revision: r.revision, label: `Revision ${r.revision} (issued)` })),
