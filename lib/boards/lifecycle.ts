@@ -166,6 +166,14 @@ export function labelsEvent(labels: readonly LabelStatus[]): LifecycleEvent {
   return labels.length > 0 && labels.every((l) => l === 'matches') ? 'labels-all-match' : 'label-not-matching';
 }
 
+/**
+ * The walk's event for one label check as if it decided the board's labels (every other way
+ * matching): what the walk asks the table before it records the check (refusal, confirmation).
+ */
+export function labelCheckEvent(next: LabelStatus): LifecycleEvent {
+  return next === 'matches' ? 'labels-all-match' : 'label-not-matching';
+}
+
 /** Whether a board in this status can be changed where it stands (not frozen, not waiting for review). */
 export function editableInPlace(status: BoardStatus): boolean {
   return status === 'draft';

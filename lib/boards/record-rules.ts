@@ -1,10 +1,12 @@
 /**
  * The rules that keep Boardwright's records: what removing a site or a board does, who may
- * issue a board, and when a label check changes a board's state. Pure functions over plain
+ * issue a board, and when the walk asks before a label check changes a board's state (the change
+ * itself is in lib/boards/lifecycle.ts). Pure functions over plain
  * facts, so the DAL (which gathers the facts under a lock) and the UI (which explains them
  * before the click) answer the same, and the unit tests cover them directly.
  */
 import { can } from '@/lib/auth/permissions';
+import { labelCheckEvent, transition } from '@/lib/boards/lifecycle';
 import type { BoardStatus, LabelStatus, Role } from '@/lib/domain';
 
 /** A rule's "no", with the words the caller shows. */
@@ -85,20 +87,10 @@ export function sameName(typed: string, name: string): boolean {
 }
 
 /**
- * The board status a label check leads to: every way matching makes an issued board
- * labels-matched; anything else makes a labels-matched board issued again. Same status: no change.
- */
-export function statusAfterLabels(status: BoardStatus, labels: readonly LabelStatus[]): BoardStatus {
-  const allMatch = labels.length > 0 && labels.every((l) => l === 'matches');
-  if (allMatch && status === 'issued') return 'labels-matched';
-  if (!allMatch && status === 'labels-matched') return 'issued';
-  return status;
-}
-
-/**
  * Whether recording `next` on one way would take a fully confirmed (labels-matched) board back to
- * issued: the label walk asks before it does.
+ * issued: the label walk asks before it does (lib/boards/lifecycle.ts decides).
  */
 export function labelChangeUnverifies(status: BoardStatus, next: LabelStatus): boolean {
-  return status === 'labels-matched' && next !== 'matches';
+  const out = transition(status, labelCheckEvent(next), { revision: 0 });
+  return !out.refused && out.needsConfirmation;
 }

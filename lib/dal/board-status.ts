@@ -5,16 +5,18 @@ import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
 import { settingsOf, type WayInput } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
+import { transition } from '@/lib/boards/lifecycle';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { boardDto, findWritableBoard } from '@/lib/dal/boards';
+import { queueNotices } from '@/lib/dal/notices';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
-import { enqueueMail } from '@/lib/mail/outbox';
+import type { ReviewRequestedFacts } from '@/lib/mail/templates';
 import { nameWaysIn } from '@/lib/names';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
-import { Site, User, Way } from '@/models';
+import { Site, Way } from '@/models';
 
 /** One way that stops a board going for review, as the refusal lists it. */
 export type FailingWay = {
@@ -60,17 +62,8 @@ export async function submitBoard(
     // The board, locked, in the caller's organisation, not archived; its stage first (a board
     // already in review or issued says so, whatever version the caller held), then the version
     const board = await findWritableBoard(actor, boardId, transaction);
-    if (board.status !== 'draft') {
-      const words = {
-        'in-review': 'already in review',
-        issued: `already issued (revision ${board.revision}); a change to it starts the next revision`,
-        'labels-matched': `already issued (revision ${board.revision}) and its labels matched on site; a change to it starts the next revision`,
-      } as const;
-      throw conflict(`Only a draft can be sent for review; this board is ${words[board.status as keyof typeof words] ?? board.status}.`, {
-        status: board.status,
-        revision: board.revision,
-      });
-    }
+    const step = transition(board.status, 'submit', { revision: board.revision });
+    if (step.refused) throw conflict(step.message, { status: board.status, revision: board.revision });
     if (expectedVersion !== undefined && board.version !== expectedVersion) {
       throw conflict('Someone else saved this board after you opened it.', {
         currentVersion: board.version,
@@ -113,41 +106,24 @@ export async function submitBoard(
     }
 
     // Status and version, then the audit trail
-    await board.update({ status: 'in-review', version: board.version + 1 }, { transaction });
-    await audit(actor, 'board.status', { from: 'draft', to: 'in-review', revision: board.revision }, { boardId, transaction });
+    await board.update({ status: step.to, version: board.version + 1 }, { transaction });
+    if (step.audit) {
+      await audit(actor, step.audit, { from: step.from, to: step.to, revision: board.revision }, { boardId, transaction });
+    }
 
     // The organisation's inspectors hear of it through the outbox (sent once committed)
     const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
-    const inspectors = await User.findAll({
-      where: { organisationId: actor.organisationId, role: 'inspector', active: true },
-      attributes: ['email', 'name'],
-      transaction,
-    });
-    const link = new URL(`/boards/${board.id}`, env().APP_URL).href;
-    const counts = countWords(countWays(board.phases, ways));
-    for (const inspector of inspectors) {
-      await enqueueMail(
-        {
-          organisationId: actor.organisationId,
-          to: inspector.email,
-          subject: `For review: ${board.name} (${site?.name ?? 'site'}), revision ${board.revision}`,
-          text: [
-            `Hello ${inspector.name},`,
-            '',
-            `${actor.name} has sent the board "${board.name}" at ${site?.name ?? 'the site'} for review.`,
-            `Revision ${board.revision}: ${counts}; no way fails.`,
-            ...(boardChecks.length
-              ? ['', 'Board-level checks to look at:', ...boardChecks.map((c) => `- ${c.message} (${c.reference})`)]
-              : []),
-            '',
-            `Open it: ${link}`,
-            '',
-            'Boardwright is a design aid: results must be checked by a competent person against the current edition of BS 7671 (or local wiring rules) and manufacturers’ data.',
-          ].join('\n'),
-        },
-        transaction,
-      );
-    }
+    const reviewRequested: ReviewRequestedFacts = {
+      appUrl: env().APP_URL,
+      boardId: board.id,
+      boardName: board.name,
+      siteName: site?.name ?? null,
+      revision: board.revision,
+      senderName: actor.name,
+      counts: countWords(countWays(board.phases, ways)),
+      boardChecks,
+    };
+    await queueNotices(step, board, { 'review-requested': reviewRequested }, transaction);
     return { board, siteName: site?.name ?? '', rows };
   });
   return boardDto(result.board, result.siteName, result.rows);

@@ -1,23 +1,21 @@
 import 'server-only';
 
-import { Op, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 
-import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
+import { transition } from '@/lib/boards/lifecycle';
 import { issueRefusal, sameName, type Refusal } from '@/lib/boards/record-rules';
-import { layoutWays } from '@/lib/boards/layout';
-import type { SnapshotWay } from '@/lib/boards/revision-diff';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { boardUrl, liveSnapshot } from '@/lib/dal/board-snapshot';
+import { liveSnapshot } from '@/lib/dal/board-snapshot';
 import { sizeSnapshot } from '@/lib/dal/board-sizing';
 import { findWritableBoard } from '@/lib/dal/boards';
+import { queueNotices, revisionComments } from '@/lib/dal/notices';
 import { nextRevision } from '@/lib/dal/revisions';
 import { env } from '@/lib/env';
 import { badRequest, conflict, HttpError, unprocessable } from '@/lib/errors';
-import { enqueueMail } from '@/lib/mail/outbox';
-import { BOARD_STATUS_PHRASES, wayTitle } from '@/lib/names';
-import { AuditEvent, Board, BoardRevision, Comment, Organisation, Site, User, Way } from '@/models';
+import type { IssuedFacts, ReturnedFacts } from '@/lib/mail/templates';
+import { Board, BoardRevision, Comment, Organisation, Site } from '@/models';
 import type { BoardStatus } from '@/models/board';
 
 /** What an issue would issue now, for the confirmation, and whether the caller may. */
@@ -45,65 +43,6 @@ export async function issueRefusalFor(actor: Actor, board: Board, transaction?: 
 }
 
 /**
- * Who gets the review e-mails: the designer who made the board and the last designer
- * (or admin) who changed or submitted it, if still active members; failing both, every
- * active designer of the organisation.
- */
-async function designerAddresses(board: Board, transaction: Transaction): Promise<string[]> {
-  const last = await AuditEvent.findOne({
-    where: {
-      boardId: board.id,
-      organisationId: board.organisationId,
-      action: { [Op.in]: ['board.saved', 'board.status'] },
-      userId: { [Op.ne]: null },
-    },
-    order: [['id', 'DESC']],
-    transaction,
-  });
-  const ids = [board.createdById, last?.userId].filter((id): id is string => !!id);
-  const people = ids.length
-    ? await User.findAll({
-        where: { id: { [Op.in]: ids }, organisationId: board.organisationId, active: true },
-        transaction,
-      })
-    : [];
-  const designers = people.filter((u) => can(u.role, 'boards.edit'));
-  const chosen = designers.length
-    ? designers
-    : await User.findAll({
-        where: { organisationId: board.organisationId, role: 'designer', active: true },
-        transaction,
-      });
-  return [...new Set(chosen.map((u) => u.email))];
-}
-
-/** The comment list of one revision as plain text lines for an e-mail. */
-async function commentLines(board: Board, transaction: Transaction): Promise<string[]> {
-  // One after another: both run on the transaction's one connection
-  const comments = await Comment.findAll({
-    where: { boardId: board.id, revision: board.revision },
-    include: [{ model: User, as: 'author', attributes: ['name'] }],
-    order: [['createdAt', 'ASC']],
-    transaction,
-  });
-  const ways = await Way.findAll({ where: { boardId: board.id }, transaction });
-  const refs = new Map(
-    layoutWays(board.phases, ways as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
-  );
-  return comments.map((c) => {
-    const ref = c.wayId ? refs.get(c.wayId) : null;
-    const where = c.wayId ? (ref ? wayTitle(ref) : 'A way since removed') : 'Board';
-    const who = (c as Comment & { author?: User }).author?.name ?? 'A former member';
-    return `- ${where} (${who}): ${c.body}`;
-  });
-}
-
-/** The designer's view of a returned board's review: the editor, opened at the review notes. */
-function returnedReviewUrl(boardId: string): string {
-  return new URL(`/boards/${boardId}#review-notes`, env().APP_URL).href;
-}
-
-/**
  * Approves a board in review: it becomes issued with the next revision number, and the
  * board and its sizing are frozen in a BoardRevision with the issuer's declaration (their
  * name, typed). Someone other than the last person to change the design issues it, unless
@@ -118,9 +57,8 @@ export async function approveBoard(
   return db().transaction(async (transaction) => {
     // Lock the board and check its stage
     const board = await findWritableBoard(actor, boardId, transaction);
-    if (board.status !== 'in-review') {
-      throw conflict(`Only a board in review can be approved; this board is ${BOARD_STATUS_PHRASES[board.status]}.`);
-    }
+    const step = transition(board.status, 'approve', { revision: board.revision });
+    if (step.refused) throw conflict(step.message);
     // Separation of duties, then the declaration
     const refusal = await issueRefusalFor(actor, board, transaction);
     if (refusal) throw new HttpError(refusal.status, refusal.message);
@@ -151,43 +89,37 @@ export async function approveBoard(
       { boardId, revision, snapshot, sizing, issuedById: actor.userId, issuedAt, declaration },
       { transaction },
     );
-    await board.update({ status: 'issued', revision, version: board.version + 1 }, { transaction });
+    await board.update({ status: step.to, revision, version: board.version + 1 }, { transaction });
     const { passes, nearLimit, fails } = sizing.summary.counts;
-    await audit(
-      actor,
-      'review.approved',
-      {
-        revision,
-        declaration,
-        devices: snapshot.ways.length,
-        circuits: snapshot.ways.filter((w) => w.circuit).length,
-        verdicts: { passes, nearLimit, fails },
-        acknowledgedFailures: fails > 0,
-        designChangedById: board.designChangedById,
-      },
-      { boardId, transaction },
-    );
-    // Tell the designers
-    const lines = await commentLines(board, transaction);
-    for (const to of await designerAddresses(board, transaction)) {
-      await enqueueMail(
+    if (step.audit) {
+      await audit(
+        actor,
+        step.audit,
         {
-          organisationId: board.organisationId,
-          to,
-          subject: `Issued: ${board.name}, revision ${revision}`,
-          text: [
-            `${actor.name} approved ${board.name} (${snapshot.siteName}). It is issued as revision ${revision}.`,
-            `Declared by ${declaration}.`,
-            '',
-            ...(lines.length ? ['Comments on this revision:', ...lines, ''] : []),
-            `Board: ${boardUrl(boardId)}`,
-            `Schedule: ${new URL(`/boards/${boardId}/schedule?revision=${revision}`, env().APP_URL).href}`,
-          ].join('\n'),
+          revision,
+          declaration,
+          devices: snapshot.ways.length,
+          circuits: snapshot.ways.filter((w) => w.circuit).length,
+          verdicts: { passes, nearLimit, fails },
+          acknowledgedFailures: fails > 0,
+          designChangedById: board.designChangedById,
         },
-        transaction,
+        { boardId, transaction },
       );
     }
-    return { revision, status: 'issued' as const };
+    // Tell the designers (the comments are gathered after the update, at the issued revision)
+    const issued: IssuedFacts = {
+      appUrl: env().APP_URL,
+      boardId,
+      boardName: board.name,
+      siteName: snapshot.siteName,
+      revision,
+      approverName: actor.name,
+      declaration,
+      comments: await revisionComments(board, transaction),
+    };
+    await queueNotices(step, board, { issued }, transaction);
+    return { revision, status: step.to };
   });
 }
 
@@ -203,9 +135,8 @@ export async function returnBoard(
   return db().transaction(async (transaction) => {
     // Lock the board and check its stage
     const board = await findWritableBoard(actor, boardId, transaction);
-    if (board.status !== 'in-review') {
-      throw conflict(`Only a board in review can be returned; this board is ${BOARD_STATUS_PHRASES[board.status]}.`);
-    }
+    const step = transition(board.status, 'return', { revision: board.revision });
+    if (step.refused) throw conflict(step.message);
     // The closing comment, and at least one comment in all
     if (input.comment) {
       const c = await Comment.create(
@@ -218,28 +149,22 @@ export async function returnBoard(
     if (!count) {
       throw badRequest([{ path: 'comment', message: 'Say what needs changing before returning the board.' }]);
     }
-    await board.update({ status: 'draft', version: board.version + 1 }, { transaction });
-    await audit(actor, 'review.returned', { revision: board.revision, comments: count }, { boardId, transaction });
-    // Tell the designers, with every comment of this revision
-    const lines = await commentLines(board, transaction);
-    const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
-    for (const to of await designerAddresses(board, transaction)) {
-      await enqueueMail(
-        {
-          organisationId: board.organisationId,
-          to,
-          subject: `Returned for changes: ${board.name}, revision ${board.revision}`,
-          text: [
-            `${actor.name} returned ${board.name} (${site?.name ?? ''}) to draft with these comments:`,
-            '',
-            ...lines,
-            '',
-            `Read the comments beside the ways they are about: ${returnedReviewUrl(boardId)}`,
-          ].join('\n'),
-        },
-        transaction,
-      );
+    await board.update({ status: step.to, version: board.version + 1 }, { transaction });
+    if (step.audit) {
+      await audit(actor, step.audit, { revision: board.revision, comments: count }, { boardId, transaction });
     }
-    return { revision: board.revision, status: 'draft' as const };
+    // Tell the designers, with every comment of this revision
+    const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
+    const returned: ReturnedFacts = {
+      appUrl: env().APP_URL,
+      boardId,
+      boardName: board.name,
+      siteName: site?.name ?? null,
+      revision: board.revision,
+      returnerName: actor.name,
+      comments: await revisionComments(board, transaction),
+    };
+    await queueNotices(step, board, { returned }, transaction);
+    return { revision: board.revision, status: step.to };
   });
 }

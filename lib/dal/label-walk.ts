@@ -4,7 +4,7 @@ import { Op } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { layoutWays, railOrder } from '@/lib/boards/layout';
-import { labelChangeUnverifies, statusAfterLabels } from '@/lib/boards/record-rules';
+import { labelCheckEvent, labelsEvent, transition } from '@/lib/boards/lifecycle';
 import { labelTextOf, type SnapshotWay } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
 import { db } from '@/lib/db';
@@ -12,7 +12,7 @@ import { listAttachments, type AttachmentDto } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
 import { assertNotArchived, findBoard } from '@/lib/dal/boards';
 import { conflict, notFound } from '@/lib/errors';
-import { Board, Site, User, Way } from '@/models';
+import { Site, User, Way } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { LabelStatus } from '@/models/way';
 
@@ -57,12 +57,6 @@ export function walkProgress(statuses: LabelStatus[]): WalkProgress {
     wrong: count('wrong'),
     missing: count('missing'),
   };
-}
-
-function assertWalkable(board: Board): void {
-  if (board.status !== 'issued' && board.status !== 'labels-matched') {
-    throw conflict('The label walk is for issued boards; this board has not been issued yet.');
-  }
 }
 
 /** The walk of a board: every device on the rail in rail order, with its result and photos. */
@@ -123,13 +117,16 @@ export async function recordLabel(
   return db().transaction(async (transaction) => {
     // Lock the board so that saves and other walkers wait their turn
     const board = await findBoard(actor, boardId, { transaction, lock: true });
-    assertWalkable(board);
+    // The walk is for issued boards (lib/boards/lifecycle.ts); this label alone would decide the
+    // board's labels when the others all match, so it asks the table as if it did
+    const ahead = transition(board.status, labelCheckEvent(input.status), { revision: board.revision });
+    if (ahead.refused) throw conflict(ahead.message);
     await assertNotArchived(board, transaction);
     // A board whose labels were all confirmed changes state only when the walker said so
-    if (labelChangeUnverifies(board.status, input.status) && !input.confirmStateChange) {
+    if (ahead.needsConfirmation && !input.confirmStateChange) {
       throw conflict(
         `Every label on this board was confirmed. Recording this one as ${input.status} takes the board from labels matched on site back to issued; confirm to go on.`,
-        { needsConfirmation: true, from: 'labels-matched', to: 'issued' },
+        { needsConfirmation: true, from: ahead.from, to: ahead.to },
       );
     }
     const way = await Way.findOne({ where: { id: wayId, boardId }, transaction });
@@ -151,18 +148,19 @@ export async function recordLabel(
       { wayId, status: input.status, note: input.note?.trim() ?? '', revision: board.revision },
       { boardId, transaction },
     );
-    // Labels matched when every label matches; back to issued otherwise (lib/boards/record-rules.ts)
+    // Labels matched when every label matches; back to issued otherwise (lib/boards/lifecycle.ts)
     const statuses = (await Way.findAll({ where: { boardId }, attributes: ['labelStatus'], transaction })).map(
       (w) => w.labelStatus,
     );
     const progress = walkProgress(statuses);
-    const next = statusAfterLabels(board.status, statuses);
-    if (next === 'labels-matched' && board.status === 'issued') {
-      await board.update({ status: 'labels-matched' }, { transaction });
-      await audit(actor, 'board.labels-matched', { revision: board.revision }, { boardId, transaction });
-    } else if (next === 'issued' && board.status === 'labels-matched') {
-      await board.update({ status: 'issued' }, { transaction });
-      await audit(actor, 'board.labels-unmatched', { revision: board.revision, wayId }, { boardId, transaction });
+    const step = transition(board.status, labelsEvent(statuses), { revision: board.revision });
+    if (!step.refused && step.to !== board.status) {
+      await board.update({ status: step.to }, { transaction });
+      if (step.audit) {
+        // The way that took the labels back is kept with the event
+        const details = step.audit === 'board.labels-unmatched' ? { revision: board.revision, wayId } : { revision: board.revision };
+        await audit(actor, step.audit, details, { boardId, transaction });
+      }
     }
     return { boardStatus: board.status, progress };
   });

@@ -8,6 +8,7 @@ import { audit } from '@/lib/dal/audit';
 import { findBoard } from '@/lib/dal/boards';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { scheduleMail } from '@/lib/mail/templates';
 import { AuditEvent, OutgoingMail, User } from '@/models';
 
 export type ScheduleMail = {
@@ -29,19 +30,21 @@ export async function emailSchedule(
   input: { to: string; message?: string; pdf: Uint8Array; fileName: string },
 ): Promise<{ id: string; status: 'queued' }> {
   await findBoard(actor, source.boardId);
-  const name = source.snapshot.settings.name;
+  const content = scheduleMail({
+    boardUrl: source.boardUrl,
+    boardName: source.snapshot.settings.name,
+    siteName: source.snapshot.siteName,
+    revision: source.revision,
+    frozen: source.frozen,
+    senderName: actor.name,
+    message: input.message,
+  });
   return db().transaction(async (transaction) => {
     const id = await enqueueMail(
       {
         organisationId: actor.organisationId,
         to: input.to,
-        subject: `Board schedule: ${name}, revision ${source.revision}${source.frozen ? '' : ' (draft)'}`,
-        text: [
-          `${actor.name} sent you the board schedule of ${name} (${source.snapshot.siteName}), revision ${source.revision}${source.frozen ? '' : ', not yet issued'}.`,
-          ...(input.message ? ['', input.message] : []),
-          '',
-          `The schedule is attached as a PDF. Board: ${source.boardUrl}`,
-        ].join('\n'),
+        ...content,
         attachments: [
           {
             filename: input.fileName,

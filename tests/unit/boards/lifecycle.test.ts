@@ -4,13 +4,13 @@ import { describe, expect, it } from 'vitest';
 import { describeAuditEntry } from '@/features/audit/utils/describe-event';
 import {
   editableInPlace,
+  labelCheckEvent,
   labelsEvent,
   LIFECYCLE_EVENTS,
   transition,
   type LifecycleEvent,
   type LifecycleStep,
 } from '@/lib/boards/lifecycle';
-import { statusAfterLabels } from '@/lib/boards/record-rules';
 import type { AuditAction } from '@/lib/dal/audit';
 import { BOARD_STATUSES, LABEL_STATUSES, type BoardStatus } from '@/lib/domain';
 
@@ -155,9 +155,22 @@ describe('the walk’s event', () => {
     expect(labelsEvent([])).toBe('label-not-matching');
     expect(labelsEvent(['matches', 'matches'])).toBe('labels-all-match');
     expect(labelsEvent(['matches', 'unchecked'])).toBe('label-not-matching');
+    expect(labelCheckEvent('matches')).toBe('labels-all-match');
+    expect(labelCheckEvent('wrong')).toBe('label-not-matching');
   });
 
-  it('leads an issued board where the label rule of lib/boards/record-rules.ts says', () => {
+  it('is refused before a board is issued, with the walk’s own words', () => {
+    for (const s of ['draft', 'in-review'] as const) {
+      for (const e of ['labels-all-match', 'label-not-matching'] as const) {
+        expect(transition(s, e, { revision: 1 })).toMatchObject({
+          refused: true,
+          message: 'The label walk is for issued boards; this board has not been issued yet.',
+        });
+      }
+    }
+  });
+
+  it('makes an issued board labels-matched when every way matches, and takes it back to issued otherwise', () => {
     fc.assert(
       fc.property(
         fc.constantFrom<BoardStatus>('issued', 'labels-matched'),
@@ -165,7 +178,8 @@ describe('the walk’s event', () => {
         (s, labels) => {
           const out = transition(s, labelsEvent(labels), { revision: 1 });
           expect(out.refused).toBe(false);
-          if (!out.refused) expect(out.to).toBe(statusAfterLabels(s, labels));
+          const allMatch = labels.length > 0 && labels.every((l) => l === 'matches');
+          if (!out.refused) expect(out.to).toBe(allMatch ? 'labels-matched' : 'issued');
         },
       ),
     );
