@@ -161,6 +161,16 @@ export function transition(status: BoardStatus, event: LifecycleEvent, ctx: Life
   return { refused: false, from: status, ...entry };
 }
 
+/** Whether the event may happen in this status (for screens deciding what to offer). */
+export function allows(status: BoardStatus, event: LifecycleEvent): boolean {
+  return typeof TABLE[status][event] !== 'function';
+}
+
+/** Whether the board stands issued: its revision is frozen (its labels matched on site or not). */
+export function isIssued(status: BoardStatus): boolean {
+  return status === 'issued' || status === 'labels-matched';
+}
+
 /** The walk's event after a label check: every way's label matching, or not (a board with no ways never matches). */
 export function labelsEvent(labels: readonly LabelStatus[]): LifecycleEvent {
   return labels.length > 0 && labels.every((l) => l === 'matches') ? 'labels-all-match' : 'label-not-matching';

@@ -2,6 +2,7 @@ import 'server-only';
 
 import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
+import { isIssued } from '@/lib/boards/lifecycle';
 import type { BoardSnapshot } from '@/lib/boards/revision-diff';
 import { boardUrl, liveSnapshot } from '@/lib/dal/board-snapshot';
 import { sizeSnapshot } from '@/lib/dal/board-sizing';
@@ -42,7 +43,7 @@ export async function getScheduleSource(
 ): Promise<ScheduleSource> {
   const board = await findBoard(actor, boardId);
   const draftsAllowed = can(actor.role, 'schedule.print-draft');
-  const issuedNow = board.status === 'issued' || board.status === 'labels-matched';
+  const issuedNow = isIssued(board.status);
   let target = revision;
   if (target === undefined) {
     if (issuedNow || draftsAllowed) target = board.revision;

@@ -17,6 +17,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
 import { ApiError, errorMessage } from '@/lib/api/client';
+import { allows } from '@/lib/boards/lifecycle';
 import { deviceName, loadTypeName } from '@/lib/names';
 import type { CommentDto } from '@/lib/dal/comments';
 import type { ReviewData } from '@/lib/dal/review-page';
@@ -106,7 +107,8 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
   const [issuing, setIssuing] = useState(false);
   const results = new Map((sizing?.ways ?? []).map((w) => [w.id, w.result]));
   const fails = sizing?.summary.counts.fails ?? 0;
-  const inReview = board.status === 'in-review';
+  // Approve and return are offered while the lifecycle allows them (in review)
+  const inReview = allows(board.status, 'approve');
 
   const giveBack = useMutation({
     mutationFn: () => postReturn(board.id, { comment: closing.trim() || undefined }),

@@ -3,7 +3,9 @@ import { describe, expect, it } from 'vitest';
 
 import { describeAuditEntry } from '@/features/audit/utils/describe-event';
 import {
+  allows,
   editableInPlace,
+  isIssued,
   labelCheckEvent,
   labelsEvent,
   LIFECYCLE_EVENTS,
@@ -35,6 +37,15 @@ describe('the lifecycle table', () => {
         }
       }),
     );
+  });
+
+  it('allows exactly the events it does not refuse', () => {
+    fc.assert(
+      fc.property(status, event, revision, (s, e, r) => {
+        expect(allows(s, e)).toBe(!transition(s, e, { revision: r }).refused);
+      }),
+    );
+    expect(BOARD_STATUSES.filter(isIssued)).toEqual(['issued', 'labels-matched']);
   });
 
   it('records every status change with an audit action that the audit screen describes in words', () => {
@@ -138,7 +149,8 @@ describe('the lifecycle table', () => {
           if (out.from === 'in-review' && out.to === 'issued') board.issued.add(board.revision);
           board.status = out.to;
           // Changeable (or waiting for review) only at a revision never issued; issued only at an issued one
-          if (editableInPlace(board.status) || board.status === 'in-review') {
+          if (editableInPlace(board.status)) expect(isIssued(board.status)).toBe(false);
+          if (!isIssued(board.status)) {
             expect(board.issued.has(board.revision)).toBe(false);
           } else {
             expect(board.issued.has(board.revision)).toBe(true);

@@ -3,6 +3,7 @@ import { z } from 'zod';
 
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
+import { isIssued } from '@/lib/boards/lifecycle';
 import { archiveStateOf, findBoard } from '@/lib/dal/boards';
 import { HttpError } from '@/lib/errors';
 
@@ -21,7 +22,7 @@ export default async function BoardLayout({ children, params }: Props) {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   });
-  const issued = board.status === 'issued' || board.status === 'labels-matched';
+  const issued = isIssued(board.status);
   const tabs = [
     { href: `/boards/${boardId}`, label: 'Board', show: true },
     // Reviewers review; designers read the review of their boards

@@ -6,6 +6,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { LabelWalk } from '@/features/label-walk/components/label-walk';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
+import { isIssued } from '@/lib/boards/lifecycle';
 import { getWalk } from '@/lib/dal/label-walk';
 import { HttpError } from '@/lib/errors';
 
@@ -21,7 +22,7 @@ export default async function WalkPage({ params }: { params: Promise<{ boardId: 
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   });
-  if (walk.status !== 'issued' && walk.status !== 'labels-matched') {
+  if (!isIssued(walk.status)) {
     return (
       <EmptyState
         title="The label walk opens once the board is issued"
