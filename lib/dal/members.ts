@@ -11,6 +11,7 @@ import { audit } from '@/lib/dal/audit';
 import { env } from '@/lib/env';
 import { conflict, HttpError, notFound } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
+import { invitationMail } from '@/lib/mail/templates';
 import type { AcceptInviteInput, InviteInput, MemberUpdate } from '@/lib/members/schemas';
 import { Invitation, Organisation, User } from '@/models';
 import type { Role } from '@/models/user';
@@ -89,24 +90,14 @@ export async function inviteMember(actor: Actor, input: InviteInput): Promise<{ 
       },
       { transaction },
     );
-    const link = `${env().APP_URL}/invite/${token}`;
-    await enqueueMail(
-      {
-        organisationId: actor.organisationId,
-        to: input.email,
-        subject: `You are invited to ${org?.name ?? 'a team'} on Boardwright`,
-        text: [
-          `Hello ${input.name},`,
-          '',
-          `${actor.name} has invited you to join ${org?.name ?? 'their team'} on Boardwright as ${input.role}.`,
-          'Choose your password here (the link works once and expires in 7 days):',
-          link,
-          '',
-          'If you were not expecting this, ignore this message.',
-        ].join('\n'),
-      },
-      transaction,
-    );
+    const content = invitationMail({
+      organisationName: org?.name ?? null,
+      inviteeName: input.name,
+      inviterName: actor.name,
+      role: input.role,
+      link: `${env().APP_URL}/invite/${token}`,
+    });
+    await enqueueMail({ organisationId: actor.organisationId, to: input.email, ...content }, transaction);
     await audit(actor, 'member.invited', { email: input.email, role: input.role }, { transaction });
     return { id: invitation.id };
   });

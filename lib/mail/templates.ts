@@ -1,9 +1,10 @@
 /**
- * The words of the e-mails a board's lifecycle sends, and of a schedule sent by e-mail. Plain
+ * The words of the e-mails a board's lifecycle sends, of a schedule sent by e-mail and of an invitation. Plain
  * functions from facts the DAL gathered (under the board's lock) to a subject and a text: no
  * database, no environment, so the unit tests read exactly what a person receives.
  */
 import type { LifecycleNotice } from '@/lib/boards/lifecycle';
+import type { Role } from '@/lib/domain';
 import { wayTitle } from '@/lib/names';
 
 export type MailContent = { subject: string; text: string };
@@ -166,6 +167,32 @@ export function scheduleMail(f: ScheduleMailFacts): MailContent {
       ...(f.message ? ['', f.message] : []),
       '',
       `The schedule is attached as a PDF. Board: ${f.boardUrl}`,
+    ].join('\n'),
+  };
+}
+
+export type InvitationFacts = {
+  /** Null when the organisation could not be read. */
+  organisationName: string | null;
+  inviteeName: string;
+  inviterName: string;
+  role: Role;
+  /** The one-time link that sets the password. */
+  link: string;
+};
+
+/** To a new member: the invitation with its one-time link. */
+export function invitationMail(f: InvitationFacts): MailContent {
+  return {
+    subject: `You are invited to ${f.organisationName ?? 'a team'} on Boardwright`,
+    text: [
+      `Hello ${f.inviteeName},`,
+      '',
+      `${f.inviterName} has invited you to join ${f.organisationName ?? 'their team'} on Boardwright as ${f.role}.`,
+      'Choose your password here (the link works once and expires in 7 days):',
+      f.link,
+      '',
+      'If you were not expecting this, ignore this message.',
     ].join('\n'),
   };
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 
 import {
   commentLine,
+  invitationMail,
   issuedMail,
   MAIL_CAUTION,
   renderNotice,
@@ -171,5 +172,33 @@ describe('a schedule sent by e-mail', () => {
       'Priya Okafor sent you the board schedule of Flat DB (Hollin Lane Joinery), revision 4, not yet issued.',
     );
     expect(mail.text.split('\n')).toHaveLength(3);
+  });
+});
+
+describe('an invitation', () => {
+  it('names the organisation, who invited, the role and the one-time link', () => {
+    const mail = invitationMail({
+      organisationName: 'Larchfield Electrical',
+      inviteeName: 'Dev Marsh',
+      inviterName: 'Priya Okafor',
+      role: 'installer',
+      link: 'https://boards.larchfield.example.test/invite/abc',
+    });
+    expect(mail.subject).toBe('You are invited to Larchfield Electrical on Boardwright');
+    expect(mail.text.split('\n')).toEqual([
+      'Hello Dev Marsh,',
+      '',
+      'Priya Okafor has invited you to join Larchfield Electrical on Boardwright as installer.',
+      'Choose your password here (the link works once and expires in 7 days):',
+      'https://boards.larchfield.example.test/invite/abc',
+      '',
+      'If you were not expecting this, ignore this message.',
+    ]);
+  });
+
+  it('still reads when the organisation is unknown', () => {
+    const mail = invitationMail({ organisationName: null, inviteeName: 'A', inviterName: 'B', role: 'designer', link: 'x' });
+    expect(mail.subject).toBe('You are invited to a team on Boardwright');
+    expect(mail.text).toContain('join their team on Boardwright');
   });
 });
