@@ -8,10 +8,10 @@ import { badRequest, HttpError, type FieldIssue } from '@/lib/errors';
 /** Largest JSON body any route accepts. */
 export const MAX_BODY_BYTES = 2 * 1024 * 1024;
 
-/** Turns zod issues into one `{ path, message }` per bad field. */
-export function fieldIssues(error: ZodError): FieldIssue[] {
+/** Turns zod issues into one `{ path, message }` per bad field (`root`: the issue about the whole). */
+export function fieldIssues(error: ZodError, root = '(body)'): FieldIssue[] {
   return error.issues.map((issue) => ({
-    path: issue.path.map(String).join('.') || '(body)',
+    path: issue.path.map(String).join('.') || root,
     message: issue.message,
   }));
 }
@@ -44,7 +44,7 @@ export function parseParams<S extends z.ZodType>(params: unknown, schema: S): z.
 /** Validates the query string (each name once); junk becomes a 400 naming each bad field. */
 export function parseQuery<S extends z.ZodType>(url: string, schema: S): z.infer<S> {
   const parsed = schema.safeParse(Object.fromEntries(new URL(url).searchParams));
-  if (!parsed.success) throw badRequest(fieldIssues(parsed.error));
+  if (!parsed.success) throw badRequest(fieldIssues(parsed.error, '(query)'));
   return parsed.data;
 }
 

@@ -9,6 +9,7 @@ import fc from 'fast-check';
 import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { z } from 'zod';
 
 import { db } from '@/lib/db';
 import type { Role } from '@/lib/domain';
@@ -32,7 +33,7 @@ const ONE_MB = 1024 * 1024;
 
 let team: Org;
 let photoPng: Uint8Array;
-const sent = { body: 0, ids: 0 };
+const sent = { body: 0, ids: 0, query: 0 };
 
 /** Every stored row of the organisation that a route could change. */
 async function snapshot(): Promise<unknown> {
@@ -240,8 +241,8 @@ beforeAll(async () => {
 
 afterAll(() => {
   console.log(
-    `fuzz: ${sent.body} junk bodies to ${withBody.length} routes, ` +
-      `${sent.ids} junk ids to ${withParams.length} routes: ${sent.body + sent.ids} junk requests`,
+    `fuzz: ${sent.body} junk bodies to ${withBody.length} routes, ${sent.ids} junk ids to ` +
+      `${withParams.length} routes, ${sent.query} junk queries: ${sent.body + sent.ids + sent.query} junk requests`,
   );
 });
 
@@ -325,6 +326,45 @@ describe('junk ids', () => {
           const body = valid.body === undefined ? undefined : JSON.stringify(valid.body);
           const res = await handler(rawRequest(route, body), ctx({ ...valid.params, [key]: id }));
           await expectRefusal(res, [404], `${key}=${id.slice(0, 60)}`);
+        }),
+        { numRuns: Math.ceil(RUNS_PER_ROUTE / 4) },
+      );
+    }
+    expect(await snapshot()).toEqual(before);
+  });
+});
+
+describe('junk queries', () => {
+  const withQuery = callable.filter((r) => r.declaration.query);
+
+  it('covers every route that declares a query', () => {
+    expect(withQuery.map((r) => r.name).sort()).toEqual([
+      'GET /api/boards/[boardId]/audit',
+      'GET /api/boards/[boardId]/revisions/[revision]',
+    ]);
+  });
+
+  it.each(withQuery.map((r) => [r.name, r] as const))('%s answers 400 naming the field', async (_n, route) => {
+    const schema = route.declaration.query as z.ZodObject;
+    const fx = await makeFixture(team, 'fuzz', photoPng, route.sample);
+    const valid = route.sample.call(fx, roleFor(route));
+    signInFor(route);
+    const before = await snapshot();
+    for (const [key, field] of Object.entries(schema.shape)) {
+      // Only values the field refuses: a valid cursor or revision is not junk
+      const junk = fc
+        .oneof(fc.string({ maxLength: 40 }), fc.constantFrom('NaN', '-1', '1e999', '0x10', ' ', 'x'.repeat(5_000)))
+        .filter((v) => !(field as z.ZodType).safeParse(v).success);
+      await fc.assert(
+        fc.asyncProperty(junk, async (value) => {
+          sent.query += 1;
+          const url = new URL(`http://127.0.0.1${route.path}`);
+          url.searchParams.set(key, value);
+          const res = await route.handler(new Request(url), ctx(valid.params));
+          const answer = res.clone();
+          await expectRefusal(res, [400], `${key}=${value.slice(0, 60)}`);
+          const { issues } = (await answer.json()) as { issues: { path: string }[] };
+          expect(issues.map((i) => i.path)).toContain(key);
         }),
         { numRuns: Math.ceil(RUNS_PER_ROUTE / 4) },
       );
