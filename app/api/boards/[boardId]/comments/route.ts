@@ -1,7 +1,7 @@
 import { commentInputSchema } from '@/features/review/types/schemas';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { addComment, listComments } from '@/lib/dal/review';
+import { addComment, listComments } from '@/lib/dal/comments';
 
 /** GET /api/boards/:boardId/comments: every comment on the board and its ways, oldest first. */
 export const GET = defineRoute({
@@ -15,7 +15,7 @@ export const POST = defineRoute({
   action: 'boards.read',
   narrowedTo: {
     roles: ['admin', 'designer', 'inspector'],
-    by: 'lib/dal/review.ts addComment: reviewers, and the designers answering them',
+    by: 'lib/dal/comments.ts addComment: reviewers, and the designers answering them',
   },
   params: idParamsSchema,
   body: commentInputSchema,

@@ -2,7 +2,7 @@ import { pdfHeaders, renderLabelStripsPdf } from '@/features/schedule/render-sch
 import { parsePrintQuery } from '@/features/schedule/utils/print-query';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getScheduleSource } from '@/lib/dal/review';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
 
 /**
  * GET /api/boards/:boardId/labels[?revision=N][&download=1]: printable way labels sized to

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getReview } from '@/lib/dal/review';
+import { getReview } from '@/lib/dal/review-page';
 
 /** GET /api/boards/:boardId/review: the board with every way's sizing, comments and revisions. */
 export const GET = defineRoute({

@@ -1,6 +1,6 @@
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { boardStage, listRevisions } from '@/lib/dal/review';
+import { boardStage, listRevisions } from '@/lib/dal/revisions';
 
 /** GET /api/boards/:boardId/revisions: the issued revisions, newest first, and the current stage. */
 export const GET = defineRoute({

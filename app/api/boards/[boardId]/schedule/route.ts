@@ -2,7 +2,7 @@ import { pdfHeaders, renderSchedulePdf } from '@/features/schedule/render-schedu
 import { parsePrintQuery } from '@/features/schedule/utils/print-query';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getScheduleSource } from '@/lib/dal/review';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
 
 /**
  * GET /api/boards/:boardId/schedule[?revision=N][&download=1]: the board schedule as a PDF,

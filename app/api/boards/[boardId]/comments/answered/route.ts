@@ -1,7 +1,7 @@
 import { answerCommentsSchema } from '@/features/review/types/schemas';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { answerComments } from '@/lib/dal/review';
+import { answerComments } from '@/lib/dal/comments';
 
 /** POST /api/boards/:boardId/comments/answered: the designer marks review comments answered. */
 export const POST = defineRoute({

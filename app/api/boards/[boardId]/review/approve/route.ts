@@ -1,7 +1,7 @@
 import { approveInputSchema } from '@/features/review/types/schemas';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { approveBoard } from '@/lib/dal/review';
+import { approveBoard } from '@/lib/dal/issue-and-return';
 
 /**
  * POST /api/boards/:boardId/review/approve: issue a board in review as the next revision,

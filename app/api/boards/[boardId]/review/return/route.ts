@@ -1,7 +1,7 @@
 import { returnInputSchema } from '@/features/review/types/schemas';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { returnBoard } from '@/lib/dal/review';
+import { returnBoard } from '@/lib/dal/issue-and-return';
 
 /** POST /api/boards/:boardId/review/return: back to draft with comments; the designers are e-mailed. */
 export const POST = defineRoute({

@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 import { revisionRefSchema } from '@/features/review/types/schemas';
 import { defineRoute } from '@/lib/api/handler';
-import { getRevision, getRevisionDiff } from '@/lib/dal/review';
+import { getRevision, getRevisionDiff } from '@/lib/dal/revisions';
 
 /**
  * GET /api/boards/:boardId/revisions/:revision — one issued revision (or `current`, the live

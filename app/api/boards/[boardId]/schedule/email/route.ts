@@ -2,7 +2,8 @@ import { renderSchedulePdf } from '@/features/schedule/render-schedule';
 import { scheduleEmailSchema } from '@/features/schedule/types/schemas';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { emailSchedule, getScheduleSource, listScheduleEmails } from '@/lib/dal/review';
+import { emailSchedule, listScheduleEmails } from '@/lib/dal/schedule-mail';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
 
 /**
  * POST /api/boards/:boardId/schedule/email {to, revision?, message?}: sends the schedule PDF
