@@ -1,17 +1,17 @@
 import { ZodError, type z } from 'zod';
 
+import type { Action } from '@/lib/auth/permissions';
+import { requireActor, type Actor } from '@/lib/auth/session';
+import type { Role } from '@/lib/domain';
 import { badRequest, HttpError, type FieldIssue } from '@/lib/errors';
-
-type RouteContext<P> = { params: Promise<P> };
-type Handler<P> = (req: Request, params: P) => Promise<Response>;
 
 /** Largest JSON body any route accepts. */
 export const MAX_BODY_BYTES = 2 * 1024 * 1024;
 
-/** Turns zod issues into one `{ path, message }` per bad field. */
-export function fieldIssues(error: ZodError): FieldIssue[] {
+/** Turns zod issues into one `{ path, message }` per bad field (`root`: the issue about the whole). */
+export function fieldIssues(error: ZodError, root = '(body)'): FieldIssue[] {
   return error.issues.map((issue) => ({
-    path: issue.path.map(String).join('.') || '(body)',
+    path: issue.path.map(String).join('.') || root,
     message: issue.message,
   }));
 }
@@ -38,6 +38,13 @@ export async function parseBody<S extends z.ZodType>(req: Request, schema: S): P
 export function parseParams<S extends z.ZodType>(params: unknown, schema: S): z.infer<S> {
   const parsed = schema.safeParse(params);
   if (!parsed.success) throw new HttpError(404, 'That item was not found.');
+  return parsed.data;
+}
+
+/** Validates the query string (each name once); junk becomes a 400 naming each bad field. */
+export function parseQuery<S extends z.ZodType>(url: string, schema: S): z.infer<S> {
+  const parsed = schema.safeParse(Object.fromEntries(new URL(url).searchParams));
+  if (!parsed.success) throw badRequest(fieldIssues(parsed.error, '(query)'));
   return parsed.data;
 }
 
@@ -103,19 +110,106 @@ function databaseTrouble(err: unknown): 'down' | 'busy' | null {
   return null;
 }
 
+/** Who may call a route: a permission of lib/auth/permissions.ts, any signed-in member, or anybody. */
+export type RouteAccess = Action | 'signed-in' | 'public';
+
 /**
- * Wraps a route handler: awaits its params and maps every failure to a status code
- * (401, 403, 404, 409, 400/422 with field issues, 503 when the database is away, 500).
+ * Where a route meets the organisation boundary:
+ * - `path`: the params name an object; another organisation's is 404 (the default with `params`);
+ * - `body`: the body names an object (a site for a new board); another organisation's is 404;
+ * - `list`: the answer lists or shows the caller's organisation only;
+ * - `none`: no organisation data (the caller's own identity, pure sizing, public routes).
  */
-export function route<P = Record<string, never>>(handler: Handler<P>) {
-  return async (req: Request, ctx: RouteContext<P>): Promise<Response> => {
+export type RouteScope = 'path' | 'body' | 'list' | 'none';
+
+/** What a route states about itself once: the wrapper enforces it, and the tests read it. */
+export type RouteDeclaration = {
+  /** The permission checked before anything else is read (after the params). */
+  action: RouteAccess;
+  /** Why a public route is public (required with `action: 'public'`). */
+  publicBecause?: string;
+  /** The DAL lets fewer roles through than `action` does, and where it says so. */
+  narrowedTo?: { roles: readonly Role[]; by: string };
+  /** The path params; junk is a 404. */
+  params?: z.ZodType;
+  /** The query string (each name once); junk is a 400 naming the field. */
+  query?: z.ZodType;
+  /** The JSON body (junk is a 400 naming each field), or a form the handler reads itself. */
+  body?: z.ZodType | 'multipart';
+  scope: RouteScope;
+};
+
+type Parsed<S> = S extends z.ZodType ? z.output<S> : undefined;
+
+/** What a declared route's handler gets: everything already checked and parsed. */
+export type RouteInput<A extends RouteAccess, P, Q, B> = {
+  req: Request;
+  /** Who calls (null on a public route). */
+  actor: A extends 'public' ? null : Actor;
+  params: Parsed<P>;
+  query: Parsed<Q>;
+  body: Parsed<B>;
+};
+
+/** A Next route handler that carries its declaration. */
+export type DeclaredRoute = ((req: Request, ctx: { params: Promise<unknown> }) => Promise<Response>) & {
+  declaration: RouteDeclaration;
+};
+
+/** Attaches a declaration to a handler made elsewhere (next-auth's own); checks it is complete. */
+export function declareRoute<F extends (...args: never[]) => Promise<Response>>(
+  handler: F,
+  declaration: RouteDeclaration,
+): F & { declaration: RouteDeclaration } {
+  if (declaration.action === 'public' && !declaration.publicBecause) {
+    throw new Error('A public route says why it is public (publicBecause).');
+  }
+  return Object.assign(handler, { declaration: Object.freeze({ ...declaration }) });
+}
+
+/**
+ * A route handler with its declaration: `action`, `params`, `query` and `body` are stated
+ * once, and the wrapper runs them in order (params → session and role → query → body), then
+ * the handler; every failure becomes its status code (see `errorResponse`). `scope` defaults
+ * to `path` when the route has params, and must be given otherwise.
+ */
+export function defineRoute<
+  const A extends RouteAccess,
+  P extends z.ZodType | undefined = undefined,
+  Q extends z.ZodType | undefined = undefined,
+  B extends z.ZodType | 'multipart' | undefined = undefined,
+>(
+  spec: Omit<RouteDeclaration, 'action' | 'params' | 'query' | 'body' | 'scope'> & {
+    action: A;
+    params?: P;
+    query?: Q;
+    body?: B;
+    scope?: RouteScope;
+    handler: (input: RouteInput<A, P, Q, B>) => Promise<Response>;
+  },
+): DeclaredRoute {
+  const { handler, ...declared } = spec;
+  const scope = declared.scope ?? (declared.params ? 'path' : undefined);
+  if (!scope) throw new Error('A route without params states its scope.');
+  const run = async (req: Request, ctx: { params: Promise<unknown> }): Promise<Response> => {
     try {
-      const params = ctx?.params ? await ctx.params : ({} as P);
-      return await handler(req, params);
+      // Params: a junk id is a 404 before anything else is read
+      const params = declared.params ? parseParams((await ctx?.params) ?? {}, declared.params) : undefined;
+      // Session and role
+      const actor =
+        declared.action === 'public'
+          ? null
+          : await requireActor(declared.action === 'signed-in' ? undefined : declared.action);
+      // Query and body
+      const query = declared.query ? parseQuery(req.url, declared.query) : undefined;
+      const body =
+        declared.body && declared.body !== 'multipart' ? await parseBody(req, declared.body) : undefined;
+      return await handler({ req, actor, params, query, body } as RouteInput<A, P, Q, B>);
     } catch (err) {
       return errorResponse(err);
     }
   };
+  return declareRoute(run, { ...declared, scope });
 }
 
 /** The JSON error answer for anything a handler or server action throws. */

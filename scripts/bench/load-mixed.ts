@@ -12,7 +12,7 @@ import os from 'node:os';
 import type autocannon from 'autocannon';
 import bcrypt from 'bcryptjs';
 
-import { saveBodyOf } from '@/app/api/route-table';
+import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { Board, Organisation, Site, User, Way } from '@/models';

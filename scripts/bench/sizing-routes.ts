@@ -5,7 +5,7 @@
  */
 import crypto from 'node:crypto';
 
-import { saveBodyOf } from '@/app/api/route-table';
+import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { Board, Organisation, Site, Way } from '@/models';

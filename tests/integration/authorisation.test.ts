@@ -1,130 +1,37 @@
 /**
- * Authorisation of every API route, generated from app/api/route-table.ts: signed out (401),
- * as each role (allowed, or 403 and nothing changed) and against another organisation's
- * objects (404 and none of their data). A route file or method missing from the table fails.
+ * Authorisation of every API route, generated from what each route declares (`defineRoute` in
+ * lib/api/handler.ts: its action and scope) with the sample calls of ./api-routes.ts: signed
+ * out (401), as each role (allowed, or 403 and nothing changed) and against another
+ * organisation's objects (404 and none of their data). A route method that declares nothing,
+ * or has no sample call, fails.
  */
-import crypto from 'node:crypto';
-import fs from 'node:fs';
-import path from 'node:path';
-
 import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
 import { beforeAll, describe, expect, it } from 'vitest';
 
+import { db } from '@/lib/db';
+import { ROLES, type Role } from '@/lib/domain';
+import { dispatchDueMail, enqueueMail } from '@/lib/mail/outbox';
+import { Board, OutgoingMail, Site } from '@/models';
+
 import {
-  HTTP_METHODS,
-  ROUTES,
+  apiRoutes,
+  bodyKind,
+  callableRoutes,
+  makeFixture,
   rolesAllowed,
-  routeName,
+  ROUTE_CALLS,
+  type CallableRoute,
   type RouteCall,
   type RouteFixture,
-  type RouteSpec,
-} from '@/app/api/route-table';
-import type { Actor } from '@/lib/auth/session';
-import { addAttachment } from '@/lib/dal/attachments';
-import { submitBoard } from '@/lib/dal/board-status';
-import { archiveBoard, getBoard, removeBoard } from '@/lib/dal/boards';
-import { archiveSite } from '@/lib/dal/sites';
-import { addComment } from '@/lib/dal/comments';
-import { approveBoard } from '@/lib/dal/issue-and-return';
-import { db } from '@/lib/db';
-import { dispatchDueMail, enqueueMail } from '@/lib/mail/outbox';
-import { ROLES, type Role } from '@/lib/domain';
-import { Board, Invitation, OutgoingMail, Site, User } from '@/models';
-
-import { ctx, makeBoard, makeOrganisation, signInAs } from './helpers';
+} from './api-routes';
+import { ctx, makeOrganisation, signInAs } from './helpers';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
-type Handler = (req: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
-const ROOT = path.resolve(import.meta.dirname, '../..');
-const API_DIR = path.join(ROOT, 'app/api');
-
-/** Every `route.ts` under app/api with the HTTP methods it exports. */
-async function scanRouteFiles(): Promise<{ path: string; method: string; handler: Handler }[]> {
-  const files = (fs.readdirSync(API_DIR, { recursive: true }) as string[])
-    .filter((f) => path.basename(f) === 'route.ts' || path.basename(f) === 'route.tsx')
-    .sort();
-  const found = [];
-  for (const file of files) {
-    const mod = (await import(/* @vite-ignore */ path.join(API_DIR, file))) as Record<string, unknown>;
-    const routePath = `/api/${path.dirname(file).split(path.sep).join('/')}`.replace(/\/\.$/, '');
-    for (const method of Object.keys(mod).filter((k) => (HTTP_METHODS as string[]).includes(k))) {
-      found.push({ path: routePath, method, handler: mod[method] as Handler });
-    }
-  }
-  return found;
-}
-
-const handlers = new Map<string, Handler>();
 let ours: Org;
 let theirs: Org;
 let photoPng: Uint8Array;
-
-const actorOf = (org: Org, role: Role): Actor => {
-  const u = org.users[role];
-  return { userId: u.id, organisationId: org.org.id, role, name: u.name, email: u.email };
-};
-
-/** The members' names by role, for calls where the caller types their own name. */
-const namesOf = (o: Org) => Object.fromEntries(ROLES.map((r) => [r, o.users[r].name])) as Record<Role, string>;
-
-/**
- * A fresh site and board (the demo flat) at the stage the route needs, a spare member, an
- * open invitation and, when asked, a photo, in an organisation.
- */
-async function makeFixture(org: Org, label: string, spec?: RouteSpec): Promise<RouteFixture> {
-  const tag = `${label}-${crypto.randomUUID().slice(0, 8)}`;
-  const { site, board } = await makeBoard(org.org.id, 'flat');
-  await site.update({ name: `${tag} site` });
-  await board.update({ name: `${tag} board` });
-  const member = await User.create({
-    organisationId: org.org.id,
-    email: `spare-${tag}@example.test`.toLowerCase(),
-    name: `${tag} spare member`,
-    role: 'installer',
-  });
-  const token = crypto.randomBytes(32).toString('base64url');
-  await Invitation.create({
-    organisationId: org.org.id,
-    email: `invitee-${tag}@example.test`.toLowerCase(),
-    name: `${tag} invitee`,
-    role: 'designer',
-    tokenHash: crypto.createHash('sha256').update(token).digest('hex'),
-    expiresAt: new Date(Date.now() + 86_400_000),
-    invitedById: org.users.admin.id,
-  });
-  // The board's stage, through the same steps as the app: submit, then approve
-  const stage = spec?.stage ?? 'draft';
-  const at = stage;
-  if (at === 'in-review' || at === 'issued') await submitBoard(actorOf(org, 'designer'), board.id);
-  if (at === 'issued') {
-    const inspector = actorOf(org, 'inspector');
-    await approveBoard(inspector, board.id, { acknowledgeFailures: true, declaration: inspector.name });
-  }
-  // The board as GET /api/boards/:id shows it, before an archive or delete hides or changes it
-  const dto = await getBoard(actorOf(org, 'admin'), board.id);
-  if (at === 'archived') await archiveBoard(actorOf(org, 'admin'), board.id);
-  if (at === 'deleted') await removeBoard(actorOf(org, 'designer'), board.id);
-  if (at === 'site-archived') await archiveSite(actorOf(org, 'admin'), site.id);
-  const comment = spec?.needs?.includes('comment')
-    ? await addComment(actorOf(org, 'inspector'), board.id, { wayId: null, body: 'Label the spare ways.' })
-    : null;
-  const attachment = spec?.needs?.includes('attachment')
-    ? await addAttachment(actorOf(org, 'installer'), board.id, { bytes: photoPng, fileName: `${tag}.png` })
-    : null;
-  return {
-    organisationId: org.org.id,
-    siteId: site.id,
-    board: dto,
-    memberId: member.id,
-    invitationToken: token,
-    attachmentId: attachment?.id ?? '',
-    photoPng,
-    names: namesOf(org),
-    commentId: comment?.id ?? '',
-  };
-}
 
 /** Every row of an organisation a route could change, in a stable order. */
 async function snapshot(organisationId: string): Promise<unknown> {
@@ -160,10 +67,8 @@ async function secretsOf(org: Org, fx: RouteFixture): Promise<string[]> {
 }
 
 /** Calls a route handler in-process the way Next would. */
-async function invoke(spec: RouteSpec, call: RouteCall): Promise<Response> {
-  const handler = handlers.get(routeName(spec));
-  if (!handler) throw new Error(`no handler for ${routeName(spec)}`);
-  const url = new URL(`http://127.0.0.1${spec.path}`);
+async function invoke(route: CallableRoute, call: RouteCall): Promise<Response> {
+  const url = new URL(`http://127.0.0.1${route.path}`);
   for (const [k, v] of Object.entries(call.query ?? {})) url.searchParams.set(k, v);
   let req: Request;
   if (call.form) {
@@ -172,21 +77,21 @@ async function invoke(spec: RouteSpec, call: RouteCall): Promise<Response> {
       if (typeof v === 'string') form.set(k, v);
       else form.set(k, new File([v.bytes as BlobPart], v.name, { type: v.type }));
     }
-    req = new Request(url, { method: spec.method, body: form });
+    req = new Request(url, { method: route.method, body: form });
   } else {
     req = new Request(url, {
-      method: spec.method,
+      method: route.method,
       headers: { 'content-type': 'application/json' },
       body: call.body === undefined ? undefined : JSON.stringify(call.body),
     });
   }
-  return handler(req, ctx(call.params));
+  return route.handler(req, ctx(call.params));
 }
 
-const callable = ROUTES.filter((r) => r.call);
+const routes = await apiRoutes();
+const callable = await callableRoutes();
 
 beforeAll(async () => {
-  for (const r of await scanRouteFiles()) handlers.set(`${r.method} ${r.path}`, r.handler);
   ours = await makeOrganisation('Ours');
   theirs = await makeOrganisation('Theirs');
   photoPng = new Uint8Array(
@@ -194,46 +99,74 @@ beforeAll(async () => {
   );
 });
 
-describe('the route table', () => {
-  it('lists every route file and exported method under app/api, and nothing else', async () => {
-    const files = (await scanRouteFiles()).map((r) => `${r.method} ${r.path}`).sort();
-    const listed = ROUTES.map(routeName).sort();
-    const missing = files.filter((f) => !listed.includes(f));
-    const stale = listed.filter((l) => !files.includes(l));
-    expect(missing, `route files/methods not in app/api/route-table.ts`).toEqual([]);
-    expect(stale, `route-table entries with no route file/method`).toEqual([]);
-    expect(new Set(listed).size).toBe(listed.length);
-    expect(files.length).toBeGreaterThanOrEqual(20);
+describe('the routes’ declarations', () => {
+  it('every route file and exported method under app/api declares itself', () => {
+    const undeclared = routes.filter((r) => !r.declaration).map((r) => r.name);
+    expect(undeclared, 'route methods not made with defineRoute (lib/api/handler.ts)').toEqual([]);
+    expect(routes.length).toBeGreaterThanOrEqual(20);
+  });
+
+  it('every route has a sample call in tests/integration/api-routes.ts, and no sample is stale', () => {
+    const names = routes.map((r) => r.name);
+    const missing = names.filter((n) => !ROUTE_CALLS[n]);
+    const stale = Object.keys(ROUTE_CALLS).filter((n) => !names.includes(n));
+    expect(missing, 'routes without a sample call').toEqual([]);
+    expect(stale, 'sample calls with no route file/method').toEqual([]);
   });
 
   it('gives every public route a reason and every uncalled route an explanation', () => {
-    for (const r of ROUTES) {
-      if (r.access.kind === 'public') expect(r.access.reason.length, routeName(r)).toBeGreaterThan(20);
-      if (!r.call) expect(r.notCalled, routeName(r)).toBeTruthy();
+    for (const r of routes) {
+      if (r.declaration?.action === 'public') {
+        expect(r.declaration.publicBecause?.length ?? 0, r.name).toBeGreaterThan(20);
+      }
+      if (!ROUTE_CALLS[r.name]?.call) expect(ROUTE_CALLS[r.name]?.notCalled, r.name).toBeTruthy();
     }
     // Only next-auth's own endpoints and the invitation acceptance are public
-    expect(ROUTES.filter((r) => r.access.kind === 'public').map(routeName).sort()).toEqual([
+    expect(routes.filter((r) => r.declaration?.action === 'public').map((r) => r.name).sort()).toEqual([
       'GET /api/auth/[...nextauth]',
       'POST /api/auth/[...nextauth]',
       'POST /api/invitations/accept',
     ]);
   });
+
+  it('params are declared exactly where the path names them, and every sample call fits the declaration', async () => {
+    const every = { mutates: false, needs: ['attachment', 'comment'] as const, call: null };
+    const fx = await makeFixture(ours, 'shape', photoPng, every);
+    for (const r of callable) {
+      const call = r.sample.call(fx, 'admin');
+      // Params named in the path are declared, and scope the route to the organisation
+      const hasParams = /\[\w+\]/.test(r.path);
+      expect(r.declaration.params !== undefined, `${r.name}: params`).toBe(hasParams);
+      expect(r.declaration.scope === 'path', `${r.name}: scope`).toBe(hasParams);
+      // A body is sent exactly when one is declared, in the declared form
+      const kind = bodyKind(r.declaration);
+      expect(call.form !== undefined, `${r.name}: form`).toBe(kind === 'multipart');
+      if (kind === 'none') expect(call.body, `${r.name}: body`).toBeUndefined();
+      if (kind === 'required') expect(call.body, `${r.name}: body`).toBeDefined();
+      const schema = r.declaration.body;
+      if (schema && schema !== 'multipart') {
+        const parsed = schema.safeParse(call.body);
+        expect(parsed.success, `${r.name}: ${JSON.stringify(parsed.error?.issues)}`).toBe(true);
+      }
+    }
+  });
 });
 
-describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spec) => {
-  const call = spec.call!;
+describe.each(callable.map((r) => [r.name, r] as const))('%s', (_name, route) => {
+  const { declaration, sample } = route;
+  const call = sample.call;
   let shared: RouteFixture | undefined;
   const fixture = async () =>
-    spec.mutates || !shared ? (shared = await makeFixture(ours, 'ours', spec)) : shared;
+    sample.mutates || !shared ? (shared = await makeFixture(ours, 'ours', photoPng, sample)) : shared;
 
   const signedOutTitle =
-    spec.access.kind === 'public' ? 'answers signed-out callers' : 'is 401 signed out, and changes nothing';
+    declaration.action === 'public' ? 'answers signed-out callers' : 'is 401 signed out, and changes nothing';
   it(signedOutTitle, async () => {
     const fx = await fixture();
     signInAs(null);
     const before = await snapshot(ours.org.id);
-    const res = await invoke(spec, call(fx, 'admin'));
-    if (spec.access.kind === 'public') {
+    const res = await invoke(route, call(fx, 'admin'));
+    if (declaration.action === 'public') {
       expect(res.status).toBeGreaterThanOrEqual(200);
       expect(res.status).toBeLessThan(300);
       return;
@@ -247,8 +180,8 @@ describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spe
     const fx = await fixture();
     signInAs(ours.users[role]);
     const before = await snapshot(ours.org.id);
-    const res = await invoke(spec, call(fx, role));
-    if (rolesAllowed(spec).includes(role)) {
+    const res = await invoke(route, call(fx, role));
+    if (rolesAllowed(declaration).includes(role)) {
       expect(res.status, await res.clone().text()).toBeGreaterThanOrEqual(200);
       expect(res.status).toBeLessThan(300);
     } else {
@@ -258,21 +191,21 @@ describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spe
     }
   });
 
-  if (spec.scope === 'path' || spec.scope === 'body') {
+  if (declaration.scope === 'path' || declaration.scope === 'body') {
     it('against another organisation’s objects: 404, none of their data, nothing changed', async () => {
-      const them = await makeFixture(theirs, 'theirs', spec);
-      const role = rolesAllowed(spec).includes('admin') ? 'admin' : rolesAllowed(spec)[0];
+      const them = await makeFixture(theirs, 'theirs', photoPng, sample);
+      const role = rolesAllowed(declaration).includes('admin') ? 'admin' : rolesAllowed(declaration)[0];
       signInAs(ours.users[role]);
       const before = await snapshot(theirs.org.id);
-      const res = await invoke(spec, call(them, role));
+      const res = await invoke(route, call(them, role));
       expect(res.status).toBe(404);
       const text = await res.text();
       for (const secret of await secretsOf(theirs, them)) expect(text).not.toContain(secret);
       expect(await snapshot(theirs.org.id)).toEqual(before);
     });
-  } else if (spec.scope === 'list') {
+  } else if (declaration.scope === 'list') {
     it('lists or returns only the caller’s organisation', async () => {
-      const them = await makeFixture(theirs, 'theirs', spec);
+      const them = await makeFixture(theirs, 'theirs', photoPng, sample);
       // Their organisation has mail too: queued, and delivered to the local mail catcher
       const mailId = await enqueueMail({
         organisationId: theirs.org.id,
@@ -284,9 +217,9 @@ describe.each(callable.map((r) => [routeName(r), r] as const))('%s', (_name, spe
         await dispatchDueMail();
       }
       const fx = await fixture();
-      const role = rolesAllowed(spec).includes('admin') ? 'admin' : rolesAllowed(spec)[0];
+      const role = rolesAllowed(declaration).includes('admin') ? 'admin' : rolesAllowed(declaration)[0];
       signInAs(ours.users[role]);
-      const res = await invoke(spec, call(fx, role));
+      const res = await invoke(route, call(fx, role));
       expect(res.status).toBeLessThan(300);
       const text = await res.text();
       for (const secret of await secretsOf(theirs, them)) expect(text).not.toContain(secret);

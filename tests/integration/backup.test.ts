@@ -13,7 +13,7 @@ import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
-import { saveBodyOf } from '@/app/api/route-table';
+import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';

@@ -10,7 +10,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 
 import * as auditRoute from '@/app/api/boards/[boardId]/audit/route';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
-import { saveBodyOf } from '@/app/api/route-table';
+import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
 import type { AuditPage } from '@/lib/dal/audit';
 import { AuditEvent, Way } from '@/models';

@@ -1,113 +1,39 @@
 /**
- * Generated junk to every API route that takes a body (from app/api/route-table.ts): wrong
- * types, huge and negative numbers, NaN and Infinity as strings, 1 MB strings, unknown fields,
- * malformed and empty JSON, and junk ids. The answer is always a 4xx naming the bad fields,
- * never a 500, and the organisation's stored rows are the same afterwards.
+ * Generated junk to every API route that declares a body or params (`defineRoute` in
+ * lib/api/handler.ts), derived from its sample call (./api-routes.ts): wrong types, huge and
+ * negative numbers, NaN and Infinity as strings, 1 MB strings, unknown fields, malformed and
+ * empty JSON, and junk ids. The answer is always a 4xx naming the bad fields, never a 500, and
+ * the organisation's stored rows are the same afterwards.
  */
-import crypto from 'node:crypto';
-import fs from 'node:fs';
-import path from 'node:path';
-
 import fc from 'fast-check';
 import { QueryTypes } from 'sequelize';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { z } from 'zod';
+
+import { db } from '@/lib/db';
+import type { Role } from '@/lib/domain';
 
 import {
-  HTTP_METHODS,
-  ROUTES,
+  bodyKind,
+  callableRoutes,
+  declaredRoutes,
+  makeFixture,
   rolesAllowed,
-  routeName,
-  type RouteFixture,
-  type RouteSpec,
-} from '@/app/api/route-table';
-import type { Actor } from '@/lib/auth/session';
-import { submitBoard } from '@/lib/dal/board-status';
-import { archiveBoard, getBoard, removeBoard } from '@/lib/dal/boards';
-import { archiveSite } from '@/lib/dal/sites';
-import { addComment } from '@/lib/dal/comments';
-import { approveBoard } from '@/lib/dal/issue-and-return';
-import { db } from '@/lib/db';
-import { ROLES, type Role } from '@/lib/domain';
-import { Invitation, User } from '@/models';
-
-import { ctx, makeBoard, makeOrganisation, signInAs } from './helpers';
+  type CallableRoute,
+} from './api-routes';
+import { ctx, makeOrganisation, signInAs } from './helpers';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
-type Handler = (req: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
 type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
 type Node = { path: (string | number)[]; value: Json };
 
 const RUNS_PER_ROUTE = Number(process.env.FUZZ_RUNS ?? 150);
 const ONE_MB = 1024 * 1024;
-const API_DIR = path.resolve(import.meta.dirname, '../../app/api');
 
 let team: Org;
 let photoPng: Uint8Array;
-const sent = { body: 0, ids: 0 };
-
-/** The handler of a route, imported from its file. */
-async function handlerOf(spec: RouteSpec): Promise<Handler> {
-  const file = path.join(API_DIR, spec.path.replace(/^\/api\//, ''), 'route.ts');
-  const mod = (await import(/* @vite-ignore */ file)) as Record<string, Handler>;
-  if (!HTTP_METHODS.includes(spec.method) || !mod[spec.method]) throw new Error(`no ${routeName(spec)}`);
-  return mod[spec.method];
-}
-
-const actorOf = (role: Role): Actor => {
-  const u = team.users[role];
-  return { userId: u.id, organisationId: team.org.id, role, name: u.name, email: u.email };
-};
-
-/** The members' names by role, for calls where the caller types their own name. */
-const namesOf = (o: Org) => Object.fromEntries(ROLES.map((r) => [r, o.users[r].name])) as Record<Role, string>;
-
-/** A board at the route's stage with a spare member and an open invitation. */
-async function makeFixture(spec: RouteSpec): Promise<RouteFixture> {
-  const { site, board } = await makeBoard(team.org.id, 'flat');
-  const tag = crypto.randomUUID().slice(0, 8);
-  const member = await User.create({
-    organisationId: team.org.id,
-    email: `spare-${tag}@example.test`,
-    name: 'Spare member',
-    role: 'installer',
-  });
-  const token = crypto.randomBytes(32).toString('base64url');
-  await Invitation.create({
-    organisationId: team.org.id,
-    email: `invitee-${tag}@example.test`,
-    name: 'Invitee',
-    role: 'designer',
-    tokenHash: crypto.createHash('sha256').update(token).digest('hex'),
-    expiresAt: new Date(Date.now() + 86_400_000),
-    invitedById: team.users.admin.id,
-  });
-  const at = spec.stage ?? 'draft';
-  if (at === 'in-review' || at === 'issued') await submitBoard(actorOf('designer'), board.id);
-  if (at === 'issued') {
-    const inspector = actorOf('inspector');
-    await approveBoard(inspector, board.id, { acknowledgeFailures: true, declaration: inspector.name });
-  }
-  // The board as GET /api/boards/:id shows it, before an archive or delete hides or changes it
-  const dto = await getBoard(actorOf('admin'), board.id);
-  if (at === 'archived') await archiveBoard(actorOf('admin'), board.id);
-  if (at === 'deleted') await removeBoard(actorOf('designer'), board.id);
-  if (at === 'site-archived') await archiveSite(actorOf('admin'), site.id);
-  const comment = spec?.needs?.includes('comment')
-    ? await addComment(actorOf('inspector'), board.id, { wayId: null, body: 'Label the spare ways.' })
-    : null;
-  return {
-    organisationId: team.org.id,
-    siteId: site.id,
-    board: dto,
-    memberId: member.id,
-    invitationToken: token,
-    attachmentId: '',
-    photoPng,
-    names: namesOf(team),
-    commentId: comment?.id ?? '',
-  };
-}
+const sent = { body: 0, ids: 0, query: 0 };
 
 /** Every stored row of the organisation that a route could change. */
 async function snapshot(): Promise<unknown> {
@@ -267,9 +193,9 @@ function junkBodies(valid: Json, optionalBody: boolean): fc.Arbitrary<{ kind: st
 }
 
 /** A raw request to a route with a text body. */
-function rawRequest(spec: RouteSpec, body: string | FormData | undefined, json = true): Request {
-  return new Request(`http://127.0.0.1${spec.path}`, {
-    method: spec.method,
+function rawRequest(route: CallableRoute, body: string | FormData | undefined, json = true): Request {
+  return new Request(`http://127.0.0.1${route.path}`, {
+    method: route.method,
     headers: json ? { 'content-type': 'application/json' } : undefined,
     body,
   });
@@ -290,20 +216,21 @@ async function expectRefusal(res: Response, allowed: number[], what: string) {
   }
 }
 
-/** Signs in as a role the route allows (an admin when it may), or signs out for public routes. */
 /** The role the junk is sent as: an admin where allowed. */
-function roleFor(spec: RouteSpec): Role {
-  const roles = rolesAllowed(spec);
+function roleFor(route: CallableRoute): Role {
+  const roles = rolesAllowed(route.declaration);
   return roles.includes('admin') ? 'admin' : roles[0];
 }
 
-function signInFor(spec: RouteSpec) {
-  if (spec.access.kind === 'public') return signInAs(null);
-  signInAs(team.users[roleFor(spec)]);
+/** Signs in as a role the route allows, or signs out for public routes. */
+function signInFor(route: CallableRoute) {
+  if (route.declaration.action === 'public') return signInAs(null);
+  signInAs(team.users[roleFor(route)]);
 }
 
-const withBody = ROUTES.filter((r) => r.call && r.body !== 'none');
-const withParams = ROUTES.filter((r) => r.call && /\[\w+\]/.test(r.path));
+const callable = await callableRoutes();
+const withBody = callable.filter((r) => bodyKind(r.declaration) !== 'none');
+const withParams = callable.filter((r) => r.declaration.params);
 
 beforeAll(async () => {
   team = await makeOrganisation('Fuzz');
@@ -314,29 +241,31 @@ beforeAll(async () => {
 
 afterAll(() => {
   console.log(
-    `fuzz: ${sent.body} junk bodies to ${withBody.length} routes, ` +
-      `${sent.ids} junk ids to ${withParams.length} routes: ${sent.body + sent.ids} junk requests`,
+    `fuzz: ${sent.body} junk bodies to ${withBody.length} routes, ${sent.ids} junk ids to ` +
+      `${withParams.length} routes, ${sent.query} junk queries: ${sent.body + sent.ids + sent.query} junk requests`,
   );
 });
 
 describe('junk bodies', () => {
-  it('covers every route that takes a body', () => {
+  it('covers every route that declares a body', async () => {
     expect(withBody.length).toBeGreaterThanOrEqual(15);
-    expect(ROUTES.filter((r) => r.body !== 'none' && !r.call).map(routeName)).toEqual([]);
+    const called = new Set(callable.map((r) => r.name));
+    const missed = (await declaredRoutes()).filter((r) => bodyKind(r.declaration) !== 'none' && !called.has(r.name));
+    expect(missed.map((r) => r.name)).toEqual([]);
   });
 
-  it.each(withBody.map((r) => [routeName(r), r] as const))('%s refuses junk and keeps the data', async (_n, spec) => {
-    const handler = await handlerOf(spec);
-    const fx = await makeFixture(spec);
-    const valid = spec.call!(fx, roleFor(spec));
-    signInFor(spec);
+  it.each(withBody.map((r) => [r.name, r] as const))('%s refuses junk and keeps the data', async (_n, route) => {
+    const { handler } = route;
+    const fx = await makeFixture(team, 'fuzz', photoPng, route.sample);
+    const valid = route.sample.call(fx, roleFor(route));
+    signInFor(route);
     const before = await snapshot();
     const send = async (body: string | FormData, json = true) => {
       sent.body += 1;
-      return handler(rawRequest(spec, body, json), ctx(valid.params));
+      return handler(rawRequest(route, body, json), ctx(valid.params));
     };
 
-    if (spec.body === 'multipart') {
+    if (bodyKind(route.declaration) === 'multipart') {
       // JSON instead of a form, a form without the file, and bytes that are no image
       await expectRefusal(await send(JSON.stringify({ file: 'x' })), [400], 'JSON instead of a form');
       await expectRefusal(await send('--x\r\nnot a form'), [400], 'not a form');
@@ -353,7 +282,7 @@ describe('junk bodies', () => {
       const body = valid.body as Json;
       // Generated junk
       await fc.assert(
-        fc.asyncProperty(junkBodies(body, spec.body === 'optional'), async ({ kind, text }) => {
+        fc.asyncProperty(junkBodies(body, bodyKind(route.declaration) === 'optional'), async ({ kind, text }) => {
           await expectRefusal(await send(text), [400, 413, 422], `${kind}: ${text.slice(0, 200)}`);
         }),
         { numRuns: RUNS_PER_ROUTE },
@@ -379,11 +308,11 @@ describe('junk ids', () => {
     fc.constantFrom('00000000-0000-0000-0000-00000000000g', '{}', '%00', 'x'.repeat(10_000)),
   );
 
-  it.each(withParams.map((r) => [routeName(r), r] as const))('%s answers 404 to a junk id', async (_n, spec) => {
-    const handler = await handlerOf(spec);
-    const fx = await makeFixture(spec);
-    const valid = spec.call!(fx, roleFor(spec));
-    signInFor(spec);
+  it.each(withParams.map((r) => [r.name, r] as const))('%s answers 404 to a junk id', async (_n, route) => {
+    const { handler } = route;
+    const fx = await makeFixture(team, 'fuzz', photoPng, route.sample);
+    const valid = route.sample.call(fx, roleFor(route));
+    signInFor(route);
     const before = await snapshot();
     for (const key of Object.keys(valid.params)) {
       // A revision param takes numbers and 'current': those are not junk there
@@ -395,8 +324,47 @@ describe('junk ids', () => {
         fc.asyncProperty(junk, async (id) => {
           sent.ids += 1;
           const body = valid.body === undefined ? undefined : JSON.stringify(valid.body);
-          const res = await handler(rawRequest(spec, body), ctx({ ...valid.params, [key]: id }));
+          const res = await handler(rawRequest(route, body), ctx({ ...valid.params, [key]: id }));
           await expectRefusal(res, [404], `${key}=${id.slice(0, 60)}`);
+        }),
+        { numRuns: Math.ceil(RUNS_PER_ROUTE / 4) },
+      );
+    }
+    expect(await snapshot()).toEqual(before);
+  });
+});
+
+describe('junk queries', () => {
+  const withQuery = callable.filter((r) => r.declaration.query);
+
+  it('covers every route that declares a query', () => {
+    expect(withQuery.map((r) => r.name).sort()).toEqual([
+      'GET /api/boards/[boardId]/audit',
+      'GET /api/boards/[boardId]/revisions/[revision]',
+    ]);
+  });
+
+  it.each(withQuery.map((r) => [r.name, r] as const))('%s answers 400 naming the field', async (_n, route) => {
+    const schema = route.declaration.query as z.ZodObject;
+    const fx = await makeFixture(team, 'fuzz', photoPng, route.sample);
+    const valid = route.sample.call(fx, roleFor(route));
+    signInFor(route);
+    const before = await snapshot();
+    for (const [key, field] of Object.entries(schema.shape)) {
+      // Only values the field refuses: a valid cursor or revision is not junk
+      const junk = fc
+        .oneof(fc.string({ maxLength: 40 }), fc.constantFrom('NaN', '-1', '1e999', '0x10', ' ', 'x'.repeat(5_000)))
+        .filter((v) => !(field as z.ZodType).safeParse(v).success);
+      await fc.assert(
+        fc.asyncProperty(junk, async (value) => {
+          sent.query += 1;
+          const url = new URL(`http://127.0.0.1${route.path}`);
+          url.searchParams.set(key, value);
+          const res = await route.handler(new Request(url), ctx(valid.params));
+          const answer = res.clone();
+          await expectRefusal(res, [400], `${key}=${value.slice(0, 60)}`);
+          const { issues } = (await answer.json()) as { issues: { path: string }[] };
+          expect(issues.map((i) => i.path)).toContain(key);
         }),
         { numRuns: Math.ceil(RUNS_PER_ROUTE / 4) },
       );

@@ -1,3 +1,8 @@
+/**
+ * Roles and the organisation boundary through the route handlers: every declared route (read
+ * from app/api by ./api-routes.ts) refuses signed-out and deactivated callers; then the roles
+ * of the permissions table and another organisation's objects on the main routes, by hand.
+ */
 import crypto from 'node:crypto';
 
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -9,6 +14,7 @@ import * as membersRoute from '@/app/api/members/route';
 import * as siteRoute from '@/app/api/sites/[siteId]/route';
 import * as sitesRoute from '@/app/api/sites/route';
 
+import { declaredRoutes } from './api-routes';
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
@@ -24,25 +30,42 @@ beforeAll(async () => {
   theirBoard = await makeBoard(theirs.org.id);
 });
 
-describe('signed out', () => {
-  it('every API route answers 401', async () => {
-    signInAs(null);
-    const id = ourBoard.board.id;
-    const answers = await Promise.all([
-      sitesRoute.GET(jsonRequest('GET'), ctx({})),
-      boardsRoute.GET(jsonRequest('GET'), ctx({})),
-      boardRoute.GET(jsonRequest('GET'), ctx({ boardId: id })),
-      membersRoute.GET(jsonRequest('GET'), ctx({})),
-    ]);
-    expect(answers.map((r) => r.status)).toEqual([401, 401, 401, 401]);
+/** The routes that need a session, each with ids that pass its params schema but name nothing. */
+const guarded = (await declaredRoutes())
+  .filter((r) => r.declaration.action !== 'public')
+  .map((r) => {
+    const keys = [...r.path.matchAll(/\[(\w+)\]/g)].map((m) => m[1]);
+    const params = Object.fromEntries(keys.map((k) => [k, k === 'revision' ? '1' : crypto.randomUUID()]));
+    return { ...r, params };
   });
 
-  it('a deactivated member is treated as signed out', async () => {
+/** Calls every guarded route as whoever is signed in, with no body; their status codes by route. */
+async function callEveryRoute(): Promise<Record<string, number>> {
+  const answers: Record<string, number> = {};
+  for (const r of guarded) {
+    const res = await r.handler(jsonRequest(r.method, undefined, `http://127.0.0.1${r.path}`), ctx(r.params));
+    answers[r.name] = res.status;
+  }
+  return answers;
+}
+
+describe('signed out', () => {
+  it('every API route but the public ones answers 401, before looking up its ids or reading its body', async () => {
+    expect(guarded.length).toBeGreaterThanOrEqual(40);
+    for (const r of guarded) {
+      if (r.declaration.params) expect(r.declaration.params.safeParse(r.params).success, r.name).toBe(true);
+    }
+    signInAs(null);
+    const answers = await callEveryRoute();
+    expect(answers).toEqual(Object.fromEntries(guarded.map((r) => [r.name, 401])));
+  });
+
+  it('a deactivated member is treated as signed out by every API route', async () => {
     const { users } = await makeOrganisation('Gone');
-    await users.designer.update({ active: false });
-    signInAs(users.designer);
-    const res = await boardsRoute.GET(jsonRequest('GET'), ctx({}));
-    expect(res.status).toBe(401);
+    await users.admin.update({ active: false });
+    signInAs(users.admin);
+    const answers = await callEveryRoute();
+    expect(answers).toEqual(Object.fromEntries(guarded.map((r) => [r.name, 401])));
   });
 });
 

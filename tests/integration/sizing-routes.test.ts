@@ -3,9 +3,9 @@ import crypto from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
-import { saveBodyOf } from '@/app/api/route-table';
 import * as boardSizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as sizingRoute from '@/app/api/sizing/route';
+import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
 import type { BoardResult, CircuitResult } from '@/lib/sizing';
 import { Board, Way } from '@/models';

@@ -1,8 +1,8 @@
-import { route } from '@/lib/api/handler';
-import { requireActor } from '@/lib/auth/session';
+import { defineRoute } from '@/lib/api/handler';
 
 /** GET /api/me: who is signed in (also the trivial route the benchmarks compare against). */
-export const GET = route(async () => {
-  const actor = await requireActor();
-  return Response.json({ user: actor });
+export const GET = defineRoute({
+  action: 'signed-in',
+  scope: 'none',
+  handler: async ({ actor }) => Response.json({ user: actor }),
 });

@@ -1,7 +1,6 @@
 import { pdfHeaders, renderSchedulePdf } from '@/features/schedule/render-schedule';
 import { parsePrintQuery } from '@/features/schedule/utils/print-query';
-import { parseParams, route } from '@/lib/api/handler';
-import { requireActor } from '@/lib/auth/session';
+import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
 import { getScheduleSource } from '@/lib/dal/schedule-source';
 
@@ -9,15 +8,16 @@ import { getScheduleSource } from '@/lib/dal/schedule-source';
  * GET /api/boards/:boardId/schedule[?revision=N][&download=1]: the board schedule as a PDF,
  * A4 landscape. Installers get issued revisions only.
  */
-export const GET = route<{ boardId: string }>(async (req, params) => {
-  // Params and query
-  const { boardId } = parseParams(params, idParamsSchema);
-  const query = parsePrintQuery(req.url);
-  // Session and role
-  const actor = await requireActor('schedule.print');
-  // The board state to print (ownership and the installers' rule in the DAL)
-  const source = await getScheduleSource(actor, boardId, query.revision);
-  // Render
-  const { pdf, fileName } = await renderSchedulePdf(source);
-  return new Response(pdf as BodyInit, { headers: pdfHeaders(fileName, query.download === '1') });
+export const GET = defineRoute({
+  action: 'schedule.print',
+  params: idParamsSchema,
+  handler: async ({ req, actor, params: { boardId } }) => {
+    // Query
+    const query = parsePrintQuery(req.url);
+    // The board state to print (ownership and the installers' rule in the DAL)
+    const source = await getScheduleSource(actor, boardId, query.revision);
+    // Render
+    const { pdf, fileName } = await renderSchedulePdf(source);
+    return new Response(pdf as BodyInit, { headers: pdfHeaders(fileName, query.download === '1') });
+  },
 });

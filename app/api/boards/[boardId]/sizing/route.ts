@@ -1,7 +1,6 @@
 import { z } from 'zod';
 
-import { fieldIssues, parseBody, parseParams, route } from '@/lib/api/handler';
-import { requireActor } from '@/lib/auth/session';
+import { defineRoute, fieldIssues } from '@/lib/api/handler';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import { storedBoardSizing } from '@/lib/dal/board-sizing';
@@ -21,22 +20,22 @@ const bodySchema = z
   .optional();
 
 /** POST /api/boards/:boardId/sizing: every way of the board sized, and the board summary. */
-export const POST = route<{ boardId: string }>(async (req, params) => {
-  // Params and session
-  const { boardId } = parseParams(params, idParamsSchema);
-  const actor = await requireActor('sizing.run');
-  // Body (optional draft)
-  const body = await parseBody(req, bodySchema);
-  // The stored board: sized once per stored state (see `storedBoardSizing`)
-  if (!body?.draft) {
-    const stored = await storedBoardSizing(actor, boardId);
-    if (!stored.sizing) throw badRequest(stored.issues);
-    return new Response(stored.body, { headers: { 'content-type': 'application/json' } });
-  }
-  // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
-  // that feed none) as field issues
-  await requireBoard(actor, boardId);
-  const checked = boardInputSchema.safeParse(boardSizingInput(body.draft.settings, body.draft.ways));
-  if (!checked.success) throw badRequest(fieldIssues(checked.error));
-  return Response.json(sizeBoard(checked.data));
+export const POST = defineRoute({
+  action: 'sizing.run',
+  params: idParamsSchema,
+  body: bodySchema,
+  handler: async ({ actor, params: { boardId }, body }) => {
+    // The stored board: sized once per stored state (see `storedBoardSizing`)
+    if (!body?.draft) {
+      const stored = await storedBoardSizing(actor, boardId);
+      if (!stored.sizing) throw badRequest(stored.issues);
+      return new Response(stored.body, { headers: { 'content-type': 'application/json' } });
+    }
+    // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
+    // that feed none) as field issues
+    await requireBoard(actor, boardId);
+    const checked = boardInputSchema.safeParse(boardSizingInput(body.draft.settings, body.draft.ways));
+    if (!checked.success) throw badRequest(fieldIssues(checked.error));
+    return Response.json(sizeBoard(checked.data));
+  },
 });

@@ -1,16 +1,12 @@
 import { z } from 'zod';
 
-import { parseParams, route } from '@/lib/api/handler';
-import { requireActor } from '@/lib/auth/session';
+import { defineRoute } from '@/lib/api/handler';
 import { restoreSite } from '@/lib/dal/sites';
 
-const paramsSchema = z.object({ siteId: z.uuid() });
-
 /** POST /api/sites/:siteId/restore: an archived site and its boards come back into the lists (admins). */
-export const POST = route<{ siteId: string }>(async (_req, params) => {
-  // Params, then session and role
-  const { siteId } = parseParams(params, paramsSchema);
-  const actor = await requireActor('records.archive');
+export const POST = defineRoute({
+  action: 'records.archive',
+  params: z.object({ siteId: z.uuid() }),
   // Restore (ownership and state checked in the DAL)
-  return Response.json({ site: await restoreSite(actor, siteId) });
+  handler: async ({ actor, params: { siteId } }) => Response.json({ site: await restoreSite(actor, siteId) }),
 });

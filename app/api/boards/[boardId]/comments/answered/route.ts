@@ -1,16 +1,14 @@
 import { answerCommentsSchema } from '@/features/review/types/schemas';
-import { parseBody, parseParams, route } from '@/lib/api/handler';
-import { requireActor } from '@/lib/auth/session';
+import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
 import { answerComments } from '@/lib/dal/comments';
 
 /** POST /api/boards/:boardId/comments/answered: the designer marks review comments answered. */
-export const POST = route<{ boardId: string }>(async (req, params) => {
-  // Params, then session and role
-  const { boardId } = parseParams(params, idParamsSchema);
-  const actor = await requireActor('comments.answer');
-  // Body
-  const { commentIds } = await parseBody(req, answerCommentsSchema);
+export const POST = defineRoute({
+  action: 'comments.answer',
+  params: idParamsSchema,
+  body: answerCommentsSchema,
   // Mark them (ownership checked in the DAL)
-  return Response.json(await answerComments(actor, boardId, commentIds));
+  handler: async ({ actor, params: { boardId }, body }) =>
+    Response.json(await answerComments(actor, boardId, body.commentIds)),
 });

@@ -1,34 +1,32 @@
 import { renderSchedulePdf } from '@/features/schedule/render-schedule';
 import { scheduleEmailSchema } from '@/features/schedule/types/schemas';
-import { parseBody, parseParams, route } from '@/lib/api/handler';
-import { requireActor } from '@/lib/auth/session';
+import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
 import { emailSchedule, listScheduleEmails } from '@/lib/dal/schedule-mail';
 import { getScheduleSource } from '@/lib/dal/schedule-source';
-
-type Params = { boardId: string };
 
 /**
  * POST /api/boards/:boardId/schedule/email {to, revision?, message?}: sends the schedule PDF
  * through the outbox (stored, then sent and retried). Anyone who may print it may send it.
  */
-export const POST = route<Params>(async (req, params) => {
-  // Params, then session and role
-  const { boardId } = parseParams(params, idParamsSchema);
-  const actor = await requireActor('schedule.print');
-  // Body
-  const input = await parseBody(req, scheduleEmailSchema);
-  // The board state (ownership and the installers' rule in the DAL), rendered
-  const source = await getScheduleSource(actor, boardId, input.revision);
-  const { pdf, fileName } = await renderSchedulePdf(source);
-  // Queue the message
-  const mail = await emailSchedule(actor, source, { to: input.to, message: input.message, pdf, fileName });
-  return Response.json({ mail: { ...mail, to: input.to, revision: source.revision } }, { status: 202 });
+export const POST = defineRoute({
+  action: 'schedule.print',
+  params: idParamsSchema,
+  body: scheduleEmailSchema,
+  handler: async ({ actor, params: { boardId }, body: input }) => {
+    // The board state (ownership and the installers' rule in the DAL), rendered
+    const source = await getScheduleSource(actor, boardId, input.revision);
+    const { pdf, fileName } = await renderSchedulePdf(source);
+    // Queue the message
+    const mail = await emailSchedule(actor, source, { to: input.to, message: input.message, pdf, fileName });
+    return Response.json({ mail: { ...mail, to: input.to, revision: source.revision } }, { status: 202 });
+  },
 });
 
 /** GET /api/boards/:boardId/schedule/email: the schedule e-mails sent for this board, with their status. */
-export const GET = route<Params>(async (_req, params) => {
-  const { boardId } = parseParams(params, idParamsSchema);
-  const actor = await requireActor('schedule.print');
-  return Response.json({ mails: await listScheduleEmails(actor, boardId) });
+export const GET = defineRoute({
+  action: 'schedule.print',
+  params: idParamsSchema,
+  handler: async ({ actor, params: { boardId } }) =>
+    Response.json({ mails: await listScheduleEmails(actor, boardId) }),
 });
