@@ -155,6 +155,7 @@ export function validateTree(input: SiteTreeInput): ValidTree {
     }
     if (!at || !chain.includes(at.id)) continue;
     const loop = chain.slice(chain.indexOf(at.id));
+    if (loop.length === 1) continue; // fed from its own way: said above
     const key = [...loop].sort().join('|');
     if (reported.has(key)) continue;
     reported.add(key);
