@@ -42,13 +42,13 @@ export function layoutSite(site: Pick<SiteResult, 'boards'>): DiagramLayout {
   let maxDepth = 0;
   for (const board of site.boards) {
     const parent = board.fedFrom ? placed.get(board.fedFrom.boardId) : undefined;
-    const x = margin + indent * board.depth + indent / 2;
+    const x = margin + indent * (board.depth + 1);
     const p: PlacedBoard = {
       board,
       x,
       y: y + feedHeight,
       stemX: parent ? parent.x + indent / 2 : margin + indent / 2,
-      stemTopY: parent ? parent.y + boxHeight : margin + originHeight - 8,
+      stemTopY: parent ? parent.y + boxHeight : margin + originHeight - 18,
     };
     placed.set(board.boardId, p);
     out.push(p);
@@ -56,7 +56,7 @@ export function layoutSite(site: Pick<SiteResult, 'boards'>): DiagramLayout {
     maxDepth = Math.max(maxDepth, board.depth);
   }
   return {
-    width: margin * 2 + indent * maxDepth + indent / 2 + boxWidth,
+    width: margin * 2 + indent * (maxDepth + 1) + boxWidth,
     height: y + margin,
     boards: out,
   };

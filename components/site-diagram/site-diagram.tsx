@@ -53,10 +53,12 @@ function DeviceSymbol({ kind, x, y }: { kind: string; x: number; y: number }) {
   if (kind === 'mcb' || kind === 'rcbo') {
     return (
       <g aria-hidden="true" className="stroke-ink" fill="none" strokeWidth={1.5}>
+        {/* The contact replaces the conductor: paper over the line behind it. */}
+        <rect x={x - 12} y={y + 4} width={16} height={18} className="fill-paper stroke-none" />
         <line x1={x} y1={y - 2} x2={x} y2={y + 4} />
-        <line x1={x - 3} y1={y + 1} x2={x + 3} y2={y + 7} />
-        <line x1={x + 3} y1={y + 1} x2={x - 3} y2={y + 7} />
-        <line x1={x} y1={y + 22} x2={x - 9} y2={y + 6} />
+        <line x1={x - 4} y1={y} x2={x + 4} y2={y + 8} />
+        <line x1={x + 4} y1={y} x2={x - 4} y2={y + 8} />
+        <line x1={x} y1={y + 22} x2={x - 10} y2={y + 5} />
         <line x1={x} y1={y + 22} x2={x} y2={y + 26} />
       </g>
     );
