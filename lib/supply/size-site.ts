@@ -317,8 +317,8 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
         text: `Zdb = Zdb of ${parent.name} ${f(parent.zdb.value)} Ω + R1+R2 of the sub-main ${f(wr.r1r2Ohm)} Ω = ${f(zdb)} Ω.`,
         steps: [
           armour
-            ? `R1+R2 = (r_L ${f(rL * 1000, 3)} mΩ/m × ${m} + armour ${f((rPE ?? 0) * 1000, 3)} mΩ/m × ${ARMOUR_TEMPERATURE_FACTOR}) × ${L} m = ${f(wr.r1r2Ohm)} Ω`
-            : `R1+R2 = (r_L ${f(rL * 1000, 3)} + r_PE ${f((rPE ?? 0) * 1000, 3)} mΩ/m) × ${L} m × ${m} = ${f(wr.r1r2Ohm)} Ω`,
+            ? `R1+R2 = (r_L ${f(rL * 1000, 3)} mΩ/m × ${m.toFixed(2)} + armour ${f((rPE ?? 0) * 1000, 3)} mΩ/m × ${ARMOUR_TEMPERATURE_FACTOR}) × ${L} m = ${f(wr.r1r2Ohm)} Ω`
+            : `R1+R2 = (r_L ${f(rL * 1000, 3)} + r_PE ${f((rPE ?? 0) * 1000, 3)} mΩ/m) × ${L} m × ${m.toFixed(2)} = ${f(wr.r1r2Ohm)} Ω`,
           `Zdb = ${f(parent.zdb.value)} + ${f(wr.r1r2Ohm)} = ${f(zdb)} Ω`,
         ],
         sources: [`${SRC_METHOD}, rule 1`, SRC_R20, SRC_M, ...(armour ? ['BS 5467 armour resistance (see the armoured cable table)'] : [])],
