@@ -334,10 +334,12 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
     const zCold = pCold.zColdOhm + (rL + (rPE ?? rL)) * L;
     const efA = Math.min(ipfUpA, uoV / zCold);
     const pfcA = Math.max(scA, efA);
+    // Never above the board above: physics says so; the cap only absorbs rounding of A ↔ kA.
+    const capKa = (a: number) => Math.min(parent.pfc!.value, a / 1000);
     const pfc: CarriedFaultCurrent = {
-      value: pfcA / 1000,
-      shortCircuitKa: scA / 1000,
-      earthFaultKa: efA / 1000,
+      value: capKa(pfcA),
+      shortCircuitKa: capKa(scA),
+      earthFaultKa: capKa(efA),
       working: {
         text: `Ipf = the larger of the ${three ? 'three-phase' : 'line–neutral'} short-circuit current ${f(scA / 1000, 2)} kA and the earth fault current ${f(efA / 1000, 2)} kA = ${f(pfcA / 1000, 2)} kA (cold conductors; resistance only, reactance neglected, common practice for small cable sizes).`,
         steps: [
@@ -370,7 +372,7 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
       earthing: origin.earthing,
       uoV,
       zeOhm: zdb,
-      pfcKa: pfcA / 1000,
+      pfcKa: pfc.value,
       source: origin.source,
       vdUsedPct: used,
     };
