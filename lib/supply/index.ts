@@ -5,6 +5,7 @@
  * Pure (no database). A design aid: see SIZING_CAUTION in lib/sizing.
  */
 export { sizeSite, worstVerdictOf } from './size-site';
+export { boardMaxDemand } from './max-demand';
 export { validateTree, wayLabels, SiteTreeError, type SiteTreeIssue } from './validate-tree';
 export {
   overcurrentSelectivity,

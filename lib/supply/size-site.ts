@@ -17,6 +17,7 @@ import { ARMOUR_TEMPERATURE_FACTOR, ARMOURED_4E4, SWA_ARMOUR } from '@/lib/sizin
 import { OPERATING_TEMPERATURE_FACTOR } from '@/lib/sizing/tables/conductor-resistance';
 import { CABLE_SHORT_NAMES, deviceName, wayName } from '@/lib/names';
 
+import { boardMaxDemand } from './max-demand';
 import { overcurrentSelectivity, rcdSelectivity, type OvercurrentDevice } from './selectivity';
 import type {
   CarriedFaultCurrent,
@@ -46,13 +47,19 @@ function subMainLoad(amps: number, phases: 1 | 3, uoV: number) {
 }
 
 /** The board with every feeding way's load set to the design current of the board it feeds. */
-function withSubMainLoads(board: BoardInput, currents: ReadonlyMap<string, number>, supply: SupplyInput): BoardInput {
+function withSubMainLoads(
+  board: BoardInput,
+  currents: ReadonlyMap<string, number>,
+  supply: SupplyInput,
+  parse = true,
+): BoardInput {
   const ways: WayInput[] = board.ways.map((w) => {
     const amps = currents.get(w.id);
     if (amps === undefined || !w.circuit) return w;
     return { ...w, circuit: { ...w.circuit, load: subMainLoad(amps, w.circuit.phases, supply.uoV) } };
   });
-  return parseBoardInput({ ...board, supply, ways });
+  // Unparsed only for the demand pass: the board was parsed and only known loads changed.
+  return parse ? parseBoardInput({ ...board, supply, ways }) : { ...board, supply, ways };
 }
 
 /** The worst verdict of a sized board: its ways and board checks, raised to near limit by advisory selectivity. */
@@ -155,7 +162,8 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
   const uoV = origin.uoV;
 
   // Bottom-up: each board's maximum demand (it depends only on the loads, not on the supply
-  // values carried down), and so each sub-main's design current.
+  // values carried down), and so each sub-main's design current; the engine's own design
+  // current and diversity, without sizing every circuit (see boardMaxDemand).
   const originSupply: SupplyInput = {
     earthing: origin.earthing,
     uoV,
@@ -168,8 +176,7 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
   for (const b of [...tree.order].reverse()) {
     if (b.feed.from !== 'way') continue;
     const parsed = tree.parsed.get(b.id)!;
-    const sized = sizeBoard(withSubMainLoads(parsed, subMainA.get(b.id) ?? new Map(), originSupply));
-    const maxDemandA = sized.summary.maxDemandA;
+    const maxDemandA = boardMaxDemand(withSubMainLoads(parsed, subMainA.get(b.id) ?? new Map(), originSupply, false));
     const amps = b.feed.designCurrentOverride?.amps ?? maxDemandA;
     demand.set(b.id, { maxDemandA, amps });
     const m = subMainA.get(b.feed.boardId) ?? new Map<string, number>();

@@ -2,7 +2,9 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 
 import { sizeBoard, type SupplyInput } from '@/lib/sizing';
-import { sizeSite, type SiteBoardInput, type SiteTreeInput } from '@/lib/supply';
+import { boardMaxDemand, sizeSite, type SiteBoardInput, type SiteTreeInput } from '@/lib/supply';
+
+import { threeLevel, twoLevel } from './fixtures';
 
 // Random trees of up to six boards, all single-phase or all three-phase, each board fed from the
 // origin or from a sub-main way of an earlier board, with random sub-main cables, lengths,
@@ -183,5 +185,27 @@ describe('supply tree: a case the properties found', () => {
     expect(b1.pfc!.value).toBeLessThanOrEqual(b0.pfc!.value);
     expect(b1.pfc!.shortCircuitKa).toBeLessThanOrEqual(b0.pfc!.value);
     expect(b1.pfc!.earthFaultKa).toBeLessThanOrEqual(b0.pfc!.value);
+  });
+});
+
+describe('boardMaxDemand', () => {
+  it('equals the maximum demand sizeBoard computes, for every board of random trees', () => {
+    fc.assert(
+      fc.property(treeArb, fc.boolean(), (tree, dwelling) => {
+        const site = sizeSite(tree);
+        for (const b of site.boards) {
+          if (!b.sizedInput) continue;
+          const input = { ...b.sizedInput, dwelling };
+          expect(boardMaxDemand(input)).toBe(sizeBoard(input).summary.maxDemandA);
+        }
+      }),
+      { numRuns: 40 },
+    );
+  }, 60_000);
+
+  it('equals it on the hand-worked boards, three-phase and with a phase set', () => {
+    for (const t of [twoLevel(), threeLevel()]) {
+      for (const b of sizeSite(t).boards) expect(boardMaxDemand(b.sizedInput!)).toBe(b.sizing!.summary.maxDemandA);
+    }
   });
 });
