@@ -36,7 +36,11 @@ function ways(boardIndex: number, subMainsTo: number[]): unknown[] {
   }
   while (n < 36) {
     if (n % 12 === 0) {
-      out.push({ id: `b${boardIndex}-rcd${n}`, device: { kind: 'rcd', poles: 2, modules: 2, ratingA: 63, rcdMa: 30 }, circuit: null });
+      out.push({
+        id: `b${boardIndex}-rcd${n}`,
+        device: { kind: 'rcd', poles: 2, modules: 2, ratingA: 63, rcdMa: 30 },
+        circuit: null,
+      });
     }
     out.push({
       id: `b${boardIndex}-w${n}`,
@@ -67,7 +71,12 @@ function site(zeOhm: number): SiteTreeInput {
       name: `Board ${i}`,
       siteId: 'bench',
       feed: p < 0 ? { from: 'origin' } : { from: 'way', boardId: `b${p}`, wayId: `b${p}-to-b${i}` },
-      board: { phases: 1, enclosureModules: 60, incoming: { kind: 'main-switch', ratingA: 100 }, ways: ways(i, children) },
+      board: {
+        phases: 1,
+        enclosureModules: 60,
+        incoming: { kind: 'main-switch', ratingA: 100 },
+        ways: ways(i, children),
+      },
     } as SiteBoardInput;
   });
   return { siteId: 'bench', origin: { earthing: 'TN-C-S', uoV: 230, zeOhm, pfcKa: 6, source: 'public' }, boards };

@@ -107,10 +107,7 @@ function BoardNode({
   const onKeyDown = (e: KeyboardEvent) => {
     if (!href && (e.key === 'Enter' || e.key === ' ')) open(e);
   };
-  const values = [
-    b.zdb ? `Zdb ${ohm(b.zdb.value)}` : null,
-    b.pfc ? `PFC ${ka(b.pfc.value)}` : null,
-  ].filter(Boolean);
+  const values = [b.zdb ? `Zdb ${ohm(b.zdb.value)}` : null, b.pfc ? `PFC ${ka(b.pfc.value)}` : null].filter(Boolean);
   const second = [
     b.vdUsed ? `Volt drop used ${pct(b.vdUsed.value)}` : null,
     b.sizing ? `Demand ${amps(b.sizing.summary.maxDemandA)}` : null,
@@ -147,7 +144,15 @@ function BoardNode({
         aria-label={boardSummaryWords(b)}
         className="cursor-pointer outline-none focus-visible:[&>rect]:stroke-copper focus-visible:[&>rect]:[stroke-width:3]"
       >
-        <rect x={x} y={y} width={w} height={h} rx={8} className="fill-paper-raised stroke-line-strong" strokeWidth={1.5} />
+        <rect
+          x={x}
+          y={y}
+          width={w}
+          height={h}
+          rx={8}
+          className="fill-paper-raised stroke-line-strong"
+          strokeWidth={1.5}
+        />
         <text x={x + 12} y={y + 22} className="fill-ink text-[14px] font-semibold underline">
           {b.name}
         </text>

@@ -50,11 +50,7 @@ const fmtA = (a: number) => `${Math.round(a)} A`;
  * - anything else (a fuse above a breaker, whose pre-arcing I²t is not held; a breaker above a
  *   fuse; a BS 3036 fuse): cannot be judged from the data held.
  */
-export function overcurrentSelectivity(
-  up: OvercurrentDevice,
-  down: OvercurrentDevice,
-  faultA: number,
-): Judgement {
+export function overcurrentSelectivity(up: OvercurrentDevice, down: OvercurrentDevice, faultA: number): Judgement {
   if (down.inA >= up.inA) {
     return {
       outcome: 'not-selective',
@@ -92,7 +88,10 @@ export function overcurrentSelectivity(
         text: throughout
           ? `Breaker above breaker: the fault current at the board, ${fmtA(faultA)}, is below the upper breaker's lowest instantaneous trip, ${m} × ${up.inA} A = ${fmtA(limitA)}, so the lower breaker clears every fault first.`
           : `Breaker above breaker: selective only up to the upper breaker's lowest instantaneous trip, ${m} × ${up.inA} A = ${fmtA(limitA)}; the fault current at the board is ${fmtA(faultA)}, so a fault above ${fmtA(limitA)} can trip both.`,
-        steps: [`Type ${up.curve}: instantaneous band from ${m} × In; ${m} × ${up.inA} A = ${limitA} A`, `Fault current at the board ${fmtA(faultA)}`],
+        steps: [
+          `Type ${up.curve}: instantaneous band from ${m} × In; ${m} × ${up.inA} A = ${limitA} A`,
+          `Fault current at the board ${fmtA(faultA)}`,
+        ],
         sources: ['BS EN 60898-1 instantaneous tripping bands (B 3–5, C 5–10, D 10–20 × In)', COMMON],
       },
     };
@@ -119,10 +118,7 @@ export function overcurrentSelectivity(
  * upper one is time-delayed (type S) and its IΔn is at least three times the lower one's
  * (common practice).
  */
-export function rcdSelectivity(
-  up: { rcdMa: number; timeDelayed: boolean },
-  down: { rcdMa: number },
-): Judgement {
+export function rcdSelectivity(up: { rcdMa: number; timeDelayed: boolean }, down: { rcdMa: number }): Judgement {
   const need = RCD_RATIO * down.rcdMa;
   const ok = up.timeDelayed && up.rcdMa >= need;
   const reasons: string[] = [];

@@ -246,7 +246,10 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
       earthFaultKa: efKa,
       working: {
         text: `Fed from the origin: the prospective fault current given for the supply, ${f(o.pfcKa, 2)} kA.`,
-        steps: [`Ipf = ${f(o.pfcKa, 2)} kA (origin)`, `Earth fault Uo / Ze = ${uoV} / ${f(o.zeOhm)} = ${f(uoV / Math.max(o.zeOhm, 1e-9) / 1000, 2)} kA, never above the origin's`],
+        steps: [
+          `Ipf = ${f(o.pfcKa, 2)} kA (origin)`,
+          `Earth fault Uo / Ze = ${uoV} / ${f(o.zeOhm)} = ${f(uoV / Math.max(o.zeOhm, 1e-9) / 1000, 2)} kA, never above the origin's`,
+        ],
         sources: [`${SRC_METHOD}, rule 2`],
       },
     };
@@ -328,7 +331,12 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
             : `R1+R2 = (r_L ${f(rL * 1000, 3)} + r_PE ${f((rPE ?? 0) * 1000, 3)} mΩ/m) × ${L} m × ${m.toFixed(2)} = ${f(wr.r1r2Ohm)} Ω`,
           `Zdb = ${f(parent.zdb.value)} + ${f(wr.r1r2Ohm)} = ${f(zdb)} Ω`,
         ],
-        sources: [`${SRC_METHOD}, rule 1`, SRC_R20, SRC_M, ...(armour ? ['BS 5467 armour resistance (see the armoured cable table)'] : [])],
+        sources: [
+          `${SRC_METHOD}, rule 1`,
+          SRC_R20,
+          SRC_M,
+          ...(armour ? ['BS 5467 armour resistance (see the armoured cable table)'] : []),
+        ],
       },
     };
 

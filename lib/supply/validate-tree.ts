@@ -71,7 +71,9 @@ export function validateTree(input: SiteTreeInput): ValidTree {
         const origin = issue.path.startsWith('supply');
         issues.push({
           path: origin ? issue.path.replace(/^supply/, 'origin') : `boards.${i}.board.${issue.path}`,
-          message: origin ? `the origin's ${issue.path.slice(7) || 'supply'}: ${issue.message}` : `${b.name}: ${issue.path}: ${issue.message}`,
+          message: origin
+            ? `the origin's ${issue.path.slice(7) || 'supply'}: ${issue.message}`
+            : `${b.name}: ${issue.path}: ${issue.message}`,
         });
       }
     }

@@ -12,7 +12,12 @@ const tree = threeLevel();
 // 27 more boards fed from the origin (copies of the finishing room board), 30 in all.
 const base = tree.boards[2];
 for (let i = 0; i < 27; i += 1) {
-  tree.boards.push({ ...base, id: `copy-${i}`, name: `Bay ${i + 1} board`, feed: { from: 'origin' } } as SiteBoardInput);
+  tree.boards.push({
+    ...base,
+    id: `copy-${i}`,
+    name: `Bay ${i + 1} board`,
+    feed: { from: 'origin' },
+  } as SiteBoardInput);
 }
 const site = sizeSite(tree);
 const host = document.getElementById('root')!;

@@ -25,7 +25,9 @@ await esbuild.build({
   minify: true,
   logLevel: 'warning',
 });
-const css = await postcss([tailwind()]).process(fs.readFileSync('app/globals.css', 'utf8'), { from: path.resolve('app/globals.css') });
+const css = await postcss([tailwind()]).process(fs.readFileSync('app/globals.css', 'utf8'), {
+  from: path.resolve('app/globals.css'),
+});
 fs.writeFileSync(path.join(out, 'style.css'), css.css);
 fs.writeFileSync(
   path.join(out, 'index.html'),
@@ -45,10 +47,16 @@ await page.goto(`file://${path.join(out, 'index.html')}`);
 await page.waitForFunction(() => window.ready === true);
 const times = await page.evaluate(() => window.bench(40));
 const warm = times.slice(5).sort((a, b) => a - b);
-console.log(`30 boards: first render ${times[0].toFixed(1)} ms; warm median ${warm[Math.floor(warm.length / 2)].toFixed(1)} ms, max ${warm[warm.length - 1].toFixed(1)} ms (${warm.length} renders)`);
+console.log(
+  `30 boards: first render ${times[0].toFixed(1)} ms; warm median ${warm[Math.floor(warm.length / 2)].toFixed(1)} ms, max ${warm[warm.length - 1].toFixed(1)} ms (${warm.length} renders)`,
+);
 const elements = await page.evaluate(() => document.querySelectorAll('#root svg *').length);
-const base = (await page.evaluate((count) => window.baseline(40, count), Math.round(elements / 2))).slice(5).sort((a, b) => a - b);
-console.log(`Baseline (${elements} plain SVG elements, same page): warm median ${base[Math.floor(base.length / 2)].toFixed(1)} ms`);
+const base = (await page.evaluate((count) => window.baseline(40, count), Math.round(elements / 2)))
+  .slice(5)
+  .sort((a, b) => a - b);
+console.log(
+  `Baseline (${elements} plain SVG elements, same page): warm median ${base[Math.floor(base.length / 2)].toFixed(1)} ms`,
+);
 await page.evaluate(() => window.bench(1));
 await page.screenshot({ path: path.join(out, 'desktop.png'), clip: { x: 0, y: 0, width: 1280, height: 900 } });
 await page.setViewportSize({ width: 390, height: 844 });

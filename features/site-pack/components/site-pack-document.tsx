@@ -12,7 +12,14 @@ const LINE = '#b9b2a3';
 const VERDICT_INK = { passes: '#2a7246', 'near-limit': '#8a5e00', fails: '#b3261e' } as const;
 
 const styles = StyleSheet.create({
-  page: { fontFamily: SITE_PACK_FONT, fontSize: 9, color: INK, paddingTop: 36, paddingBottom: 60, paddingHorizontal: 36 },
+  page: {
+    fontFamily: SITE_PACK_FONT,
+    fontSize: 9,
+    color: INK,
+    paddingTop: 36,
+    paddingBottom: 60,
+    paddingHorizontal: 36,
+  },
   title: { fontSize: 15, fontWeight: 700, marginBottom: 2 },
   subtitle: { fontSize: 9, color: SOFT, marginBottom: 10 },
   heading: { fontSize: 11, fontWeight: 700, marginTop: 10, marginBottom: 4 },
@@ -29,7 +36,9 @@ const styles = StyleSheet.create({
 const PAGE_DRAWING_HEIGHT = 660;
 
 /** Split the laid-out boards into pages of whole rows (a board and the sub-main above it). */
-export function diagramPages(boards: readonly PlacedBoard[]): Array<{ top: number; bottom: number; boards: PlacedBoard[] }> {
+export function diagramPages(
+  boards: readonly PlacedBoard[],
+): Array<{ top: number; bottom: number; boards: PlacedBoard[] }> {
   const pages: Array<{ top: number; bottom: number; boards: PlacedBoard[] }> = [];
   let current = { top: 0, bottom: DIAGRAM.margin + DIAGRAM.originHeight, boards: [] as PlacedBoard[] };
   for (const p of boards) {
@@ -51,8 +60,13 @@ const n = (x: number, d: number) => x.toFixed(d);
 function BoardDrawing({ p }: { p: PlacedBoard }) {
   const { board: b, x, y, stemX, stemTopY } = p;
   const { boxWidth: w, boxHeight: h, feedHeight } = DIAGRAM;
-  const values = [b.zdb ? `Zdb ${n(b.zdb.value, 3)} Ω` : null, b.pfc ? `PFC ${n(b.pfc.value, 2)} kA` : null].filter(Boolean).join(' · ');
-  const second = [b.vdUsed ? `Volt drop used ${n(b.vdUsed.value, 2)} %` : null, b.sizing ? `Demand ${n(b.sizing.summary.maxDemandA, 1)} A` : null]
+  const values = [b.zdb ? `Zdb ${n(b.zdb.value, 3)} Ω` : null, b.pfc ? `PFC ${n(b.pfc.value, 2)} kA` : null]
+    .filter(Boolean)
+    .join(' · ');
+  const second = [
+    b.vdUsed ? `Volt drop used ${n(b.vdUsed.value, 2)} %` : null,
+    b.sizing ? `Demand ${n(b.sizing.summary.maxDemandA, 1)} A` : null,
+  ]
     .filter(Boolean)
     .join(' · ');
   const kind = b.fedFrom?.device ?? '';
@@ -63,14 +77,43 @@ function BoardDrawing({ p }: { p: PlacedBoard }) {
         <G>
           {kind.includes('fuse') ? (
             // IEC 60617 fuse: a rectangle with the conductor through it.
-            <Rect x={stemX - 5} y={y - feedHeight + 8} width={10} height={22} stroke={INK} strokeWidth={1.2} fill="#ffffff" />
+            <Rect
+              x={stemX - 5}
+              y={y - feedHeight + 8}
+              width={10}
+              height={22}
+              stroke={INK}
+              strokeWidth={1.2}
+              fill="#ffffff"
+            />
           ) : kind.startsWith('MCB') || kind.startsWith('RCBO') ? (
             // IEC 60617 circuit-breaker: a make contact with a cross at its fixed end.
             <G>
               <Rect x={stemX - 12} y={y - feedHeight + 12} width={16} height={18} fill="#ffffff" />
-              <Line x1={stemX - 4} y1={y - feedHeight + 8} x2={stemX + 4} y2={y - feedHeight + 16} stroke={INK} strokeWidth={1.2} />
-              <Line x1={stemX + 4} y1={y - feedHeight + 8} x2={stemX - 4} y2={y - feedHeight + 16} stroke={INK} strokeWidth={1.2} />
-              <Line x1={stemX} y1={y - feedHeight + 30} x2={stemX - 10} y2={y - feedHeight + 13} stroke={INK} strokeWidth={1.2} />
+              <Line
+                x1={stemX - 4}
+                y1={y - feedHeight + 8}
+                x2={stemX + 4}
+                y2={y - feedHeight + 16}
+                stroke={INK}
+                strokeWidth={1.2}
+              />
+              <Line
+                x1={stemX + 4}
+                y1={y - feedHeight + 8}
+                x2={stemX - 4}
+                y2={y - feedHeight + 16}
+                stroke={INK}
+                strokeWidth={1.2}
+              />
+              <Line
+                x1={stemX}
+                y1={y - feedHeight + 30}
+                x2={stemX - 10}
+                y2={y - feedHeight + 13}
+                stroke={INK}
+                strokeWidth={1.2}
+              />
             </G>
           ) : null}
           <Text x={x} y={y - feedHeight + 18} style={{ fontFamily: SITE_PACK_FONT, fontSize: 10 }} fill={INK}>
@@ -91,7 +134,12 @@ function BoardDrawing({ p }: { p: PlacedBoard }) {
       <Text x={x + 10} y={y + 58} style={{ fontFamily: SITE_PACK_FONT, fontSize: 10 }} fill={SOFT}>
         {second}
       </Text>
-      <Text x={x + 10} y={y + 78} style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700 }} fill={b.worstVerdict ? VERDICT_INK[b.worstVerdict] : SOFT}>
+      <Text
+        x={x + 10}
+        y={y + 78}
+        style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700 }}
+        fill={b.worstVerdict ? VERDICT_INK[b.worstVerdict] : SOFT}
+      >
         {b.worstVerdict ? `Worst verdict: ${VERDICT_WORDS[b.worstVerdict]}` : 'Not sized'}
       </Text>
     </G>
@@ -118,13 +166,25 @@ function WorkingLines({ label, value, working }: { label: string; value: string;
 function BoardValues({ b }: { b: SiteBoardResult }) {
   return (
     <View style={styles.board}>
-      <Text style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700, marginBottom: 3 }}>{`${b.name}, fed from ${fedFromWords(b.fedFrom)}${b.phase ? ` (${b.phase})` : ''}`}</Text>
+      <Text
+        style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700, marginBottom: 3 }}
+      >{`${b.name}, fed from ${fedFromWords(b.fedFrom)}${b.phase ? ` (${b.phase})` : ''}`}</Text>
       {b.problem ? <Text>{b.problem}</Text> : null}
-      {b.zdb ? <WorkingLines label="Earth fault loop impedance" value={`${n(b.zdb.value, 3)} Ω`} working={b.zdb.working} /> : null}
-      {b.pfc ? <WorkingLines label="Prospective fault current" value={`${n(b.pfc.value, 2)} kA`} working={b.pfc.working} /> : null}
-      {b.vdUsed ? <WorkingLines label="Volt drop used above" value={`${n(b.vdUsed.value, 2)} %`} working={b.vdUsed.working} /> : null}
+      {b.zdb ? (
+        <WorkingLines label="Earth fault loop impedance" value={`${n(b.zdb.value, 3)} Ω`} working={b.zdb.working} />
+      ) : null}
+      {b.pfc ? (
+        <WorkingLines label="Prospective fault current" value={`${n(b.pfc.value, 2)} kA`} working={b.pfc.working} />
+      ) : null}
+      {b.vdUsed ? (
+        <WorkingLines label="Volt drop used above" value={`${n(b.vdUsed.value, 2)} %`} working={b.vdUsed.working} />
+      ) : null}
       {b.subMainCurrent ? (
-        <WorkingLines label="Sub-main design current" value={`${n(b.subMainCurrent.value, 1)} A`} working={b.subMainCurrent.working} />
+        <WorkingLines
+          label="Sub-main design current"
+          value={`${n(b.subMainCurrent.value, 1)} A`}
+          working={b.subMainCurrent.working}
+        />
       ) : null}
       {b.selectivity.map((s, i) => (
         <WorkingLines
@@ -142,7 +202,10 @@ function Footer({ caution, siteName }: { caution: string; siteName: string }) {
   return (
     <View style={styles.footer} fixed>
       <Text style={styles.caution}>{`Caution. ${caution}`}</Text>
-      <Text style={{ width: 150, textAlign: 'right' }} render={({ pageNumber, totalPages }) => `${siteName} · page ${pageNumber} of ${totalPages}`} />
+      <Text
+        style={{ width: 150, textAlign: 'right' }}
+        render={({ pageNumber, totalPages }) => `${siteName} · page ${pageNumber} of ${totalPages}`}
+      />
     </View>
   );
 }
@@ -174,7 +237,9 @@ export function SitePackDocument({
           {i === 0 ? (
             <View>
               <Text style={styles.title}>{`Site pack: ${siteName}`}</Text>
-              <Text style={styles.subtitle}>{`Single-line diagram, printed ${printedOn}. Origin: ${originWords}.`}</Text>
+              <Text
+                style={styles.subtitle}
+              >{`Single-line diagram, printed ${printedOn}. Origin: ${originWords}.`}</Text>
             </View>
           ) : (
             <Text style={styles.subtitle}>{`Single-line diagram of ${siteName}, continued`}</Text>
@@ -182,11 +247,30 @@ export function SitePackDocument({
           <Svg viewBox={`0 ${pg.top} ${layout.width} ${pg.bottom - pg.top + 4}`} style={{ width: '100%' }}>
             {i === 0 ? (
               <G>
-                <Rect x={DIAGRAM.margin} y={DIAGRAM.margin} width={DIAGRAM.boxWidth} height={DIAGRAM.originHeight - 18} rx={6} stroke={LINE} strokeWidth={1.2} fill="#efece4" />
-                <Text x={DIAGRAM.margin + 10} y={DIAGRAM.margin + 20} style={{ fontFamily: SITE_PACK_FONT, fontSize: 12, fontWeight: 700 }} fill={INK}>
+                <Rect
+                  x={DIAGRAM.margin}
+                  y={DIAGRAM.margin}
+                  width={DIAGRAM.boxWidth}
+                  height={DIAGRAM.originHeight - 18}
+                  rx={6}
+                  stroke={LINE}
+                  strokeWidth={1.2}
+                  fill="#efece4"
+                />
+                <Text
+                  x={DIAGRAM.margin + 10}
+                  y={DIAGRAM.margin + 20}
+                  style={{ fontFamily: SITE_PACK_FONT, fontSize: 12, fontWeight: 700 }}
+                  fill={INK}
+                >
                   Origin (supply intake)
                 </Text>
-                <Text x={DIAGRAM.margin + 10} y={DIAGRAM.margin + 38} style={{ fontFamily: SITE_PACK_FONT, fontSize: 9 }} fill={SOFT}>
+                <Text
+                  x={DIAGRAM.margin + 10}
+                  y={DIAGRAM.margin + 38}
+                  style={{ fontFamily: SITE_PACK_FONT, fontSize: 9 }}
+                  fill={SOFT}
+                >
                   {`${EARTHING_NAMES[o.earthing] ?? o.earthing}, Uo ${o.uoV} V, Ze ${n(o.zeOhm, 3)} Ω, PFC ${n(o.pfcKa, 2)} kA`}
                 </Text>
               </G>

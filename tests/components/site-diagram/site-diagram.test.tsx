@@ -42,7 +42,10 @@ describe('SiteDiagram', () => {
     const onOpen = vi.fn();
     render(<SiteDiagram site={sizeSite(twoLevel())} siteName="Hollin Lane Joinery" onOpenBoard={onOpen} />);
     const buttons = screen.getAllByRole('button');
-    expect(buttons.map((b) => b.getAttribute('aria-label')?.split(':')[0])).toEqual(['Workshop DB1', 'Finishing room board']);
+    expect(buttons.map((b) => b.getAttribute('aria-label')?.split(':')[0])).toEqual([
+      'Workshop DB1',
+      'Finishing room board',
+    ]);
     await user.click(buttons[1]);
     expect(onOpen).toHaveBeenLastCalledWith('fin');
     // In the tab order (jsdom's tabbing skips SVG elements, so focus them directly).

@@ -44,7 +44,12 @@ describe('renderSitePackPdf', () => {
   it('splits a tall diagram into pages of whole boards', () => {
     const t = threeLevel();
     for (let i = 0; i < 27; i += 1) {
-      t.boards.push({ ...t.boards[2], id: `c${i}`, name: `Bay ${i + 1} board`, feed: { from: 'origin' } } as SiteBoardInput);
+      t.boards.push({
+        ...t.boards[2],
+        id: `c${i}`,
+        name: `Bay ${i + 1} board`,
+        feed: { from: 'origin' },
+      } as SiteBoardInput);
     }
     const layout = layoutSite(sizeSite(t));
     const pages = diagramPages(layout.boards);

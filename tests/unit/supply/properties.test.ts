@@ -169,16 +169,48 @@ describe('supply tree: a case the properties found', () => {
     // fast-check found 0.6305344133302266 kA below 0.6305344133302265 kA: A and kA rounding.
     const way = (id: string, use: string, csaMm2: number | null, lengthM: number) => ({
       id,
-      device: { kind: 'mcb', poles: 1, modules: 1, curve: use === 'distribution' ? 'C' : 'B', ratingA: use === 'distribution' ? 40 : 16 },
-      circuit: { phases: 1, use, load: { kind: 'known', watts: 0, powerFactor: 1 }, lengthM, cable: 'te-70', method: 'C', ambientC: 30, csaMm2 },
+      device: {
+        kind: 'mcb',
+        poles: 1,
+        modules: 1,
+        curve: use === 'distribution' ? 'C' : 'B',
+        ratingA: use === 'distribution' ? 40 : 16,
+      },
+      circuit: {
+        phases: 1,
+        use,
+        load: { kind: 'known', watts: 0, powerFactor: 1 },
+        lengthM,
+        cable: 'te-70',
+        method: 'C',
+        ambientC: 30,
+        csaMm2,
+      },
     });
-    const board = (ways: unknown[]) => ({ phases: 1, enclosureModules: 60, incoming: { kind: 'main-switch', ratingA: 400 }, ways });
+    const board = (ways: unknown[]) => ({
+      phases: 1,
+      enclosureModules: 60,
+      incoming: { kind: 'main-switch', ratingA: 400 },
+      ways,
+    });
     const site = sizeSite({
       siteId: 'site',
       origin: { earthing: 'TN-S', zeOhm: 0.05, pfcKa: 0.6305344133302265, uoV: 230, source: 'public' },
       boards: [
-        { id: 'b0', name: 'Board 0', siteId: 'site', feed: { from: 'origin' }, board: board([way('b0-load', 'fixed', 2.5, 10), way('b0-to-b1', 'distribution', null, 1)]) },
-        { id: 'b1', name: 'Board 1', siteId: 'site', feed: { from: 'way', boardId: 'b0', wayId: 'b0-to-b1' }, board: board([way('b1-load', 'fixed', 2.5, 10)]) },
+        {
+          id: 'b0',
+          name: 'Board 0',
+          siteId: 'site',
+          feed: { from: 'origin' },
+          board: board([way('b0-load', 'fixed', 2.5, 10), way('b0-to-b1', 'distribution', null, 1)]),
+        },
+        {
+          id: 'b1',
+          name: 'Board 1',
+          siteId: 'site',
+          feed: { from: 'way', boardId: 'b0', wayId: 'b0-to-b1' },
+          board: board([way('b1-load', 'fixed', 2.5, 10)]),
+        },
       ],
     } as SiteTreeInput);
     const [b0, b1] = site.boards;

@@ -32,12 +32,36 @@ const distributionWay = (id: string) => ({
 describe('validateTree (through sizeSite)', () => {
   it('refuses boards that feed each other in a loop, naming them in order', () => {
     const t = twoLevel();
-    const a = { id: 'a', name: 'Store board', siteId: 'hollin-lane', feed: { from: 'way', boardId: 'b', wayId: 'b-sub' }, board: { phases: 1, enclosureModules: 6, incoming: { kind: 'main-switch', ratingA: 63 }, ways: [distributionWay('a-sub')] } };
-    const b = { id: 'b', name: 'Yard board', siteId: 'hollin-lane', feed: { from: 'way', boardId: 'a', wayId: 'a-sub' }, board: { phases: 1, enclosureModules: 6, incoming: { kind: 'main-switch', ratingA: 63 }, ways: [distributionWay('b-sub')] } };
+    const a = {
+      id: 'a',
+      name: 'Store board',
+      siteId: 'hollin-lane',
+      feed: { from: 'way', boardId: 'b', wayId: 'b-sub' },
+      board: {
+        phases: 1,
+        enclosureModules: 6,
+        incoming: { kind: 'main-switch', ratingA: 63 },
+        ways: [distributionWay('a-sub')],
+      },
+    };
+    const b = {
+      id: 'b',
+      name: 'Yard board',
+      siteId: 'hollin-lane',
+      feed: { from: 'way', boardId: 'a', wayId: 'a-sub' },
+      board: {
+        phases: 1,
+        enclosureModules: 6,
+        incoming: { kind: 'main-switch', ratingA: 63 },
+        ways: [distributionWay('b-sub')],
+      },
+    };
     t.boards.push(a as never, b as never);
     const issues = issuesOf(t);
     expect(issues).toHaveLength(1);
-    expect(issues[0]).toMatch(/boards cannot feed each other in a loop: (Store board feeds Yard board feeds Store board|Yard board feeds Store board feeds Yard board)/);
+    expect(issues[0]).toMatch(
+      /boards cannot feed each other in a loop: (Store board feeds Yard board feeds Store board|Yard board feeds Store board feeds Yard board)/,
+    );
   });
 
   it('refuses a board fed from one of its own ways', () => {
@@ -60,13 +84,17 @@ describe('validateTree (through sizeSite)', () => {
   it('refuses a board fed from a board the site does not have', () => {
     const t = twoLevel();
     t.boards[1].feed = { from: 'way', boardId: 'nowhere', wayId: 'w-sub' };
-    expect(issuesOf(t)).toEqual(['boards.1.feed.boardId: Finishing room board is fed from a board that is not on this site']);
+    expect(issuesOf(t)).toEqual([
+      'boards.1.feed.boardId: Finishing room board is fed from a board that is not on this site',
+    ]);
   });
 
   it('refuses a feeding way that is missing, not a sub-main, or already feeds a board', () => {
     const t = twoLevel();
     t.boards[1].feed = { from: 'way', boardId: 'db1', wayId: 'no-such-way' };
-    expect(issuesOf(t)).toEqual(['boards.1.feed.wayId: Finishing room board is fed from a way that Workshop DB1 does not have']);
+    expect(issuesOf(t)).toEqual([
+      'boards.1.feed.wayId: Finishing room board is fed from a way that Workshop DB1 does not have',
+    ]);
 
     const u = twoLevel();
     u.boards[1].feed = { from: 'way', boardId: 'db1', wayId: 'w-bench' };
@@ -88,7 +116,11 @@ describe('validateTree (through sizeSite)', () => {
       'boards.2.feed.wayId: Finishing room board is three-phase: it needs a three-phase sub-main, and way 2L3 of Machine shop board is single-phase',
     );
     const u = threeLevel();
-    u.boards[1].board = { ...u.boards[1].board, phases: 1, ways: [fixedWay('m-x', 100, 6, 5), distributionWay('m-fin')] } as never;
+    u.boards[1].board = {
+      ...u.boards[1].board,
+      phases: 1,
+      ways: [fixedWay('m-x', 100, 6, 5), distributionWay('m-fin')],
+    } as never;
     expect(issuesOf(u)[0]).toBe(
       'boards.1.feed.wayId: Machine shop board is single-phase: feed it from a single-phase way (one phase of Workshop DB1), not from the three-phase way 1L1–L3',
     );
@@ -98,7 +130,9 @@ describe('validateTree (through sizeSite)', () => {
     const t = twoLevel();
     (t.boards[1].board.ways[0].circuit as { lengthM: number }).lengthM = -3;
     const issues = issuesOf(t);
-    expect(issues.some((i) => i.startsWith('boards.1.board.ways.0.circuit.lengthM: Finishing room board: '))).toBe(true);
+    expect(issues.some((i) => i.startsWith('boards.1.board.ways.0.circuit.lengthM: Finishing room board: '))).toBe(
+      true,
+    );
     const u = twoLevel();
     u.origin.uoV = 400;
     expect(issuesOf(u).some((i) => i.startsWith('origin.uoV: ') && i.includes('line-to-earth'))).toBe(true);

@@ -60,7 +60,15 @@ describe('sizeCircuit with the voltage drop used above the board', () => {
 
   it('lighting: 3 % less what is used above', () => {
     const r = sizeCircuit(
-      circuit({ ...SUPPLY, vdUsedPct: 1 }, { ...heater(null), use: 'lighting', load: { kind: 'known', watts: 230, powerFactor: 1 }, device: { kind: 'mcb', curve: 'B', ratingA: 6 } }),
+      circuit(
+        { ...SUPPLY, vdUsedPct: 1 },
+        {
+          ...heater(null),
+          use: 'lighting',
+          load: { kind: 'known', watts: 230, powerFactor: 1 },
+          device: { kind: 'mcb', curve: 'B', ratingA: 6 },
+        },
+      ),
     );
     expect(r.vdLimitPct).toBeCloseTo(2, 12);
   });
