@@ -284,3 +284,34 @@ export const LABEL_STATUS_NAMES: Record<LabelStatus, string> = {
 export function plural(n: number, one: string, many = `${one}s`): string {
   return `${n} ${n === 1 ? one : many}`;
 }
+
+/** How a pair of protective devices (one above, one below a sub-main) discriminate on a fault. */
+export type SelectivityOutcome = 'selective' | 'selective-up-to' | 'not-selective' | 'cannot-judge';
+
+/** Selectivity outcomes in words ("selective up to" takes its current: see selectivityWords). */
+export const SELECTIVITY_WORDS: Record<SelectivityOutcome, string> = {
+  selective: 'Selective throughout',
+  'selective-up-to': 'Selective up to a stated current',
+  'not-selective': 'Not selective',
+  'cannot-judge': 'Cannot be judged from the data held',
+};
+
+/** A selectivity outcome as a reader sees it: "Selective up to 480 A" with its current. */
+export function selectivityWords(outcome: SelectivityOutcome, upToA?: number | null): string {
+  if (outcome === 'selective-up-to' && upToA !== undefined && upToA !== null) {
+    return `Selective up to ${Math.round(upToA)} A`;
+  }
+  return SELECTIVITY_WORDS[outcome];
+}
+
+/** What a board is fed from, in words: "the origin" or "Workshop DB1, way 3L2". */
+export function fedFromWords(feed: { boardName: string; wayLabel: string | null } | null): string {
+  if (!feed) return 'the origin (the supply intake)';
+  return feed.wayLabel ? `${feed.boardName}, ${wayName(feed.wayLabel)}` : `${feed.boardName}, a way with no number`;
+}
+
+/** The supply kinds of a site's origin. */
+export const SUPPLY_SOURCE_NAMES: Record<'public' | 'private', string> = {
+  public: 'Public supply',
+  private: 'Private supply',
+};

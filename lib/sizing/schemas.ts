@@ -47,6 +47,12 @@ export const supplySchema = z
     zeOhm: z.number().min(0).max(2000),
     pfcKa: z.number().min(0).max(200),
     source: z.enum(['public', 'private']).default('public'),
+    /**
+     * Voltage drop already used between the origin and this board by the sub-mains above it,
+     * % (absent: 0, a board fed from the origin). The final circuits' limit is the origin's
+     * limit less this (BS 7671 Appendix 4 Table 4Ab: the limits run from the origin).
+     */
+    vdUsedPct: z.number().min(0).max(100).optional(),
   })
   .strict();
 export type SupplyInput = z.infer<typeof supplySchema>;

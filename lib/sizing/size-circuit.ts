@@ -343,7 +343,10 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
         ? null
         : TT_TOUCH_VOLTAGE_V / (rcdMa / 1000)
       : maxZs(deviceFacts, disconnectionTimeS, uoV);
-  const vdLimitPct = voltageDropLimitPct(c.use, supply.source);
+  // The limit runs from the origin: a board fed by sub-mains has what they left of it.
+  const originVdLimitPct = voltageDropLimitPct(c.use, supply.source);
+  const vdUsedAbovePct = supply.vdUsedPct ?? 0;
+  const vdLimitPct = originVdLimitPct - vdUsedAbovePct;
   const vNominal = nominalVoltage(c.phases, uoV);
   // Armoured cable: a spare core where the cable has one (3-core single-phase), else the
   // armour (4-core three-phase); the designer can choose either.
@@ -425,7 +428,7 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
     checks.push({
       code: 'voltage-drop',
       ok: chosen.vdOk,
-      message: `Voltage drop ${fmt(chosen.vdV)} V = ${fmt(chosen.vdPct)} % ${chosen.vdOk ? '≤' : '>'} ${vdLimitPct} %${ring ? ' (ring, ÷4)' : ''}.`,
+      message: `Voltage drop ${fmt(chosen.vdV)} V = ${fmt(chosen.vdPct)} % ${chosen.vdOk ? '≤' : '>'} ${vdUsedAbovePct > 0 ? `${fmt(vdLimitPct)} % (${originVdLimitPct} % from the origin less ${fmt(vdUsedAbovePct)} % used by the sub-mains above)` : `${vdLimitPct} %`}${ring ? ' (ring, ÷4)' : ''}.`,
       reference: 'BS 7671:2018+A2:2022 Appendix 4 Table 4Ab, 525',
     });
   } else {

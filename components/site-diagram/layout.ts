@@ -1,0 +1,63 @@
+import type { SiteBoardResult, SiteResult } from '@/lib/supply';
+
+/** Sizes of the drawing, in viewBox units (the SVG scales to its container's width). */
+export const DIAGRAM = {
+  margin: 12,
+  indent: 36,
+  boxWidth: 330,
+  boxHeight: 92,
+  /** Space above a board for its sub-main's line, symbol and label. */
+  feedHeight: 46,
+  originHeight: 76,
+} as const;
+
+/** A board placed on the drawing. */
+export interface PlacedBoard {
+  board: SiteBoardResult;
+  x: number;
+  y: number;
+  /** Where the line feeding it starts (the parent's stem, or the origin's). */
+  stemX: number;
+  stemTopY: number;
+}
+
+/** The drawing's layout: origin at the top, each board below its parent, indented by depth. */
+export interface DiagramLayout {
+  width: number;
+  height: number;
+  boards: PlacedBoard[];
+}
+
+/**
+ * Lay the tree out as an indented column: every board on its own row, in tree order (a board
+ * straight after its parent's earlier children), indented one step per level. Each board's
+ * stem drops from the left of its parent's box. A column keeps the text the same size for a
+ * site of 3 or 30 boards and reads top to bottom on a phone.
+ */
+export function layoutSite(site: Pick<SiteResult, 'boards'>): DiagramLayout {
+  const { margin, indent, boxWidth, boxHeight, feedHeight, originHeight } = DIAGRAM;
+  const placed = new Map<string, PlacedBoard>();
+  const out: PlacedBoard[] = [];
+  let y = margin + originHeight;
+  let maxDepth = 0;
+  for (const board of site.boards) {
+    const parent = board.fedFrom ? placed.get(board.fedFrom.boardId) : undefined;
+    const x = margin + indent * (board.depth + 1);
+    const p: PlacedBoard = {
+      board,
+      x,
+      y: y + feedHeight,
+      stemX: parent ? parent.x + indent / 2 : margin + indent / 2,
+      stemTopY: parent ? parent.y + boxHeight : margin + originHeight - 18,
+    };
+    placed.set(board.boardId, p);
+    out.push(p);
+    y += feedHeight + boxHeight;
+    maxDepth = Math.max(maxDepth, board.depth);
+  }
+  return {
+    width: margin * 2 + indent * (maxDepth + 1) + boxWidth,
+    height: y + margin,
+    boards: out,
+  };
+}
