@@ -1,7 +1,7 @@
 import { apiFetch } from '@/lib/api/client';
 import type { RevisionDiff } from '@/lib/boards/revision-diff';
 import type { CommentDto, RevisionSummary } from '@/lib/dal/review';
-import type { BoardStatus } from '@/models/board';
+import type { BoardStatus } from '@/lib/domain';
 
 import type { ApproveInput, CommentInput, ReturnInput } from '../types/schemas';
 
