@@ -24,6 +24,11 @@ const zones = [
   { target: './lib', from: ['./app', './features', './components'], message: 'lib never imports app, features or components.' },
   { target: './components', from: ['./app', './features'], message: 'shared components never import app or features.' },
   { target: './features', from: './app', message: 'features never import app: compose features in app/.' },
+  {
+    target: './lib/sizing',
+    from: [...LIB_SERVICES, './lib/forms', './models'],
+    message: 'the sizing engine is pure: no data access, database, auth, mail, storage, forms or models.',
+  },
   ...features.map((name) => ({
     target: `./features/${name}`,
     from: './features',

@@ -41,6 +41,15 @@ describe('layers: app → features → components → lib → models', () => {
   });
 });
 
+describe('the sizing engine stays pure', () => {
+  it('may use lib/names.ts but not the data access layer', async () => {
+    const names = "import { DEVICE_NAMES } from '@/lib/names';\nexport const x = DEVICE_NAMES;\n";
+    expect(await rulesHit('lib/sizing/probe.ts', names)).toEqual([]);
+    const dal = "import { listSites } from '@/lib/dal/sites';\nexport const x = listSites;\n";
+    expect(await rulesHit('lib/sizing/probe.ts', dal)).toContain('import/no-restricted-paths');
+  });
+});
+
 describe('features never import each other', () => {
   it('another feature is refused, the same feature is not', async () => {
     const other = "import { BoardsTable } from '@/features/boards/components/boards-table';\nexport const x = BoardsTable;\n";
