@@ -1,8 +1,12 @@
 #!/usr/bin/env bash
 # The whole test suite from a fresh clone: install, chromium, PostgreSQL (a fresh test
-# database), the fakes on their own ports, unit + component + integration tests, build,
-# browser tests against the built app. Ends with one line: "N passed, N failed".
+# database), the fakes on their own ports, lint and format, unit + component + integration
+# tests, build, browser tests against the built app. Ends with one line: "N passed, N failed".
 set -uo pipefail
+# `bash scripts/test.sh lint [PATH…]` runs only the lint-and-format step (on PATHs, default all).
+LINT_ONLY=0
+if [ "${1:-}" = lint ]; then LINT_ONLY=1; shift; fi
+LINT_PATHS=("${@:-.}")
 # The suite sets its own addresses: nothing inherited from a demo shell may point it elsewhere.
 unset DATABASE_URL DATABASE_OWNER_URL APP_URL NEXTAUTH_URL S3_ENDPOINT SMTP_HOST NEXT_DIST_DIR
 # TEST_PORT_BASE moves the suite's ports (app, SMTP, catcher, S3, the faults test's PostgreSQL)
@@ -19,6 +23,23 @@ cd "$ROOT"
 set -e
 
 bash scripts/install.sh
+
+# Lint and format first: no services needed, about a minute of CPU. A failure fails the run,
+# after the tests have still run (their figures are worth having).
+lint_status=0
+echo "== lint (eslint) and format (prettier)"
+if ! node_modules/.bin/eslint --max-warnings 0 "${LINT_PATHS[@]}"; then
+  lint_status=1
+  echo "eslint found problems (npm run lint)" >&2
+fi
+if ! node_modules/.bin/prettier --check --log-level warn "${LINT_PATHS[@]}"; then
+  lint_status=1
+  echo "prettier would reformat the files above (npm run format)" >&2
+fi
+if [ "$LINT_ONLY" = 1 ]; then
+  [ "$lint_status" = 0 ] && echo "lint and format: clean"
+  exit "$lint_status"
+fi
 if [ ! -x /usr/bin/chromium ]; then
   if [ "$(id -u)" = 0 ]; then
     echo "Installing Debian's chromium for the browser tests…"
@@ -79,5 +100,6 @@ else
   status=1
 fi
 
+[ "$lint_status" = 0 ] || { echo "lint or format failed (see the top of this run)" >&2; status=1; }
 node scripts/count-results.mjs "$RESULTS"/fast.json "$RESULTS"/browser.json || status=1
 exit $status

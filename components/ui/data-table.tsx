@@ -7,7 +7,9 @@ import { Fragment } from 'react';
 import { cn } from '@/lib/cn';
 
 declare module '@tanstack/react-table' {
-  // Layout hints a column can carry to the shared table
+  // Layout hints a column can carry to the shared table. The type parameters must match the
+  // library's own declaration for the two to merge, though the hints use neither.
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars
   interface ColumnMeta<TData extends RowData, TValue> {
     align?: 'left' | 'right';
     /** Classes for both the header and the cells of the column. */

@@ -130,11 +130,6 @@ export interface FaultEnergy {
   basis: string;
 }
 
-function logInterp(x: number, x0: number, y0: number, x1: number, y1: number): number {
-  const f = Math.log(x / x0) / Math.log(x1 / x0);
-  return Math.exp(Math.log(y0) + f * (Math.log(y1) - Math.log(y0)));
-}
-
 /**
  * Energy let through by a breaker at a fault current I at or above its instantaneous trip
  * current. B and C curves up to 32 A: the energy-limiting class 3 limits of BS EN 60898-1

@@ -1,7 +1,7 @@
 import { apiFetch } from '@/lib/api/client';
 import type { AttachmentDto } from '@/lib/dal/attachments';
 import type { WalkData, WalkProgress } from '@/lib/dal/label-walk';
-import type { BoardStatus } from '@/models/board';
+import type { BoardStatus } from '@/lib/domain';
 
 import type { LabelInput } from '../types/schemas';
 

@@ -12,8 +12,8 @@ import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
 import { labelChangeUnverifies } from '@/lib/boards/record-rules';
 import type { WalkData } from '@/lib/dal/label-walk';
+import type { LabelStatus } from '@/lib/domain';
 import { LABEL_STATUS_NAMES } from '@/lib/names';
-import type { LabelStatus } from '@/models/way';
 
 import { fetchWalk, postLabel, uploadPhoto, walkKey } from '../api/walk-api';
 import { nextUnchecked, resumeAt } from '../utils/next-way';

@@ -1,6 +1,6 @@
 import { LABEL_STATE_LOOKS, LabelStateBadge } from '@/components/ui/label-state-badge';
 import type { WalkData } from '@/lib/dal/label-walk';
-import type { LabelStatus } from '@/models/way';
+import type { LabelStatus } from '@/lib/domain';
 
 const COUNTED: { status: LabelStatus; words: string }[] = [
   { status: 'matches', words: 'Labels matching the schedule' },

@@ -1,4 +1,4 @@
-import type { LabelStatus } from '@/models/way';
+import type { LabelStatus } from '@/lib/domain';
 
 /**
  * Where the walk goes next: the first way not yet checked after `from` (wrapping round to

@@ -10,8 +10,7 @@ import { buildSchedule } from '@/features/schedule/utils/build-schedule';
 import { boardQrCode } from '@/features/schedule/utils/qr-code';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
-import { boardStage, listRevisions } from '@/lib/dal/revisions';
-import { getScheduleSource } from '@/lib/dal/schedule-source';
+import { boardStage, getScheduleSource, listRevisions } from '@/lib/dal/review';
 import { HttpError } from '@/lib/errors';
 
 export const metadata = { title: 'Schedule' };
@@ -45,37 +44,43 @@ export default async function SchedulePage({
   const query = printQuerySchema.safeParse(await searchParams);
   if (!query.success) notFound();
   if (!can(actor.role, 'schedule.print')) notFound();
-  try {
-    const [source, revisions, stage] = await Promise.all([
-      getScheduleSource(actor, boardId, query.data.revision),
-      listRevisions(actor, boardId),
-      boardStage(actor, boardId),
-    ]);
-    const data = buildSchedule(source);
-    const choices = [
-      ...(can(actor.role, 'schedule.print-draft') && !revisions.some((r) => r.revision === stage.revision)
-        ? [{ revision: stage.revision, label: `Revision ${stage.revision} (draft)` }]
-        : []),
-      ...revisions.map((r) => ({ revision: r.revision, label: `Revision ${r.revision} (issued)` })),
-    ];
-    return (
-      <div className="space-y-4">
-        <style>{PRINT_CSS}</style>
-        <div className="flex items-center justify-between print:hidden">
-          <Link href={`/boards/${boardId}`} className="text-sm text-ink-soft hover:text-ink">
-            ← {data.boardName}
-          </Link>
-          <h1 className="text-lg font-semibold">Schedule, revision {data.revision}</h1>
-        </div>
-        <ScheduleToolbar boardId={boardId} revision={data.revision} choices={choices} />
-        <ScheduleSheet data={data} qrDataUrl={await boardQrCode(data.boardUrl)} />
-      </div>
-    );
-  } catch (err) {
-    if (err instanceof HttpError && err.status === 404) notFound();
-    if (err instanceof HttpError && err.status === 403) {
-      return <EmptyState title="No issued schedule yet">{err.message} The schedule can be printed once the board is issued.</EmptyState>;
-    }
+  // Only the reads may answer 404 or 403. The page is drawn after them, never inside a try:
+  // React renders later, so a try around JSX catches nothing from it.
+  const loaded = await Promise.all([
+    getScheduleSource(actor, boardId, query.data.revision),
+    listRevisions(actor, boardId),
+    boardStage(actor, boardId),
+  ]).catch((err: unknown) => {
+    if (err instanceof HttpError && (err.status === 404 || err.status === 403)) return err;
     throw err;
+  });
+  if (loaded instanceof HttpError) {
+    if (loaded.status === 404) notFound();
+    return (
+      <EmptyState title="No issued schedule yet">
+        {loaded.message} The schedule can be printed once the board is issued.
+      </EmptyState>
+    );
   }
+  const [source, revisions, stage] = loaded;
+  const data = buildSchedule(source);
+  const choices = [
+    ...(can(actor.role, 'schedule.print-draft') && !revisions.some((r) => r.revision === stage.revision)
+      ? [{ revision: stage.revision, label: `Revision ${stage.revision} (draft)` }]
+      : []),
+    ...revisions.map((r) => ({ revision: r.revision, label: `Revision ${r.revision} (issued)` })),
+  ];
+  return (
+    <div className="space-y-4">
+      <style>{PRINT_CSS}</style>
+      <div className="flex items-center justify-between print:hidden">
+        <Link href={`/boards/${boardId}`} className="text-sm text-ink-soft hover:text-ink">
+          ← {data.boardName}
+        </Link>
+        <h1 className="text-lg font-semibold">Schedule, revision {data.revision}</h1>
+      </div>
+      <ScheduleToolbar boardId={boardId} revision={data.revision} choices={choices} />
+      <ScheduleSheet data={data} qrDataUrl={await boardQrCode(data.boardUrl)} />
+    </div>
+  );
 }
