@@ -5,6 +5,7 @@
  * method missing from it fails them. Not a route itself: Next only serves `route.ts` files.
  */
 import { PERMISSIONS, type Action } from '@/lib/auth/permissions';
+import { saveInputOf } from '@/lib/boards/schemas';
 import type { BoardDto } from '@/lib/boards/types';
 import { ROLES, type Role } from '@/lib/domain';
 
@@ -94,12 +95,7 @@ export type RouteSpec = {
 
 /** The body the board editor sends to save a board unchanged at its current version. */
 export function saveBodyOf(board: BoardDto) {
-  const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = board;
-  return {
-    version: board.version,
-    settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
-    ways: board.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit })),
-  };
+  return saveInputOf(board);
 }
 
 /** A small, valid quick-size input: a 32 A radial in 2.5 mm² twin and earth, 20 m. */

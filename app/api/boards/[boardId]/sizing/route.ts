@@ -4,8 +4,7 @@ import { fieldIssues, parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
-import { storedBoardSizing } from '@/lib/dal/board-sizing';
-import { requireBoard } from '@/lib/dal/boards';
+import { readStoredSizing, requireBoard } from '@/lib/dal/board-repository';
 import { badRequest } from '@/lib/errors';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
@@ -27,11 +26,11 @@ export const POST = route<{ boardId: string }>(async (req, params) => {
   const actor = await requireActor('sizing.run');
   // Body (optional draft)
   const body = await parseBody(req, bodySchema);
-  // The stored board: sized once per stored state (see `storedBoardSizing`)
+  // The stored board: its sizing is stored with it (see `readStoredSizing`)
   if (!body?.draft) {
-    const stored = await storedBoardSizing(actor, boardId);
-    if (!stored.sizing) throw badRequest(stored.issues);
-    return new Response(stored.body, { headers: { 'content-type': 'application/json' } });
+    const stored = await readStoredSizing(actor, boardId);
+    if (stored.json === null) throw badRequest(stored.issues);
+    return new Response(stored.json, { headers: { 'content-type': 'application/json' } });
   }
   // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
   // that feed none) as field issues
