@@ -1,7 +1,7 @@
 import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
 import { createElement, type ReactElement } from 'react';
 
-import type { ScheduleSource } from '@/lib/dal/review';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
 
 import { LabelStripsDocument } from './components/label-strips-document';
 import { ScheduleDocument } from './components/schedule-document';

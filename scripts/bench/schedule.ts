@@ -19,7 +19,7 @@ if (!process.execArgv.some((a) => a.startsWith('--conditions'))) {
 }
 
 type Pdfs = typeof import('@/features/schedule/render-schedule');
-type Source = import('@/lib/dal/review').ScheduleSource;
+type Source = import('@/lib/dal/schedule-source').ScheduleSource;
 
 /** A sized single-phase board of `ways` numbered ways on rails of 21 modules. */
 async function boardOf(ways: number): Promise<Source> {

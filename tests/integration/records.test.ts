@@ -33,7 +33,7 @@ import * as siteRestoreRoute from '@/app/api/sites/[siteId]/restore/route';
 import * as siteRoute from '@/app/api/sites/[siteId]/route';
 import * as sitesRoute from '@/app/api/sites/route';
 import type { BoardDto } from '@/lib/boards/types';
-import { getReturnNotes } from '@/lib/dal/review';
+import { getReturnNotes } from '@/lib/dal/return-notes';
 import { dispatchDueMail } from '@/lib/mail/outbox';
 import { getObjectBytes } from '@/lib/storage/s3';
 import { Attachment, AuditEvent, Board, BoardRevision, Comment, Site } from '@/models';

@@ -22,7 +22,7 @@ import { toast } from 'sonner';
 import { layoutWays } from '@/lib/boards/layout';
 import { drawRails, placementProblem, railCapacities } from '@/lib/boards/rail';
 import type { BoardDto } from '@/lib/boards/types';
-import type { ReturnNotes } from '@/lib/dal/review';
+import type { ReturnNotes } from '@/lib/dal/return-notes';
 import type { DeviceOnRail } from '@/lib/sizing';
 
 import { submitForReview, type RefusedWay } from '../api/board-editor-api';

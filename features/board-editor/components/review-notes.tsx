@@ -10,7 +10,8 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { errorMessage } from '@/lib/api/client';
 import { layoutWays } from '@/lib/boards/layout';
-import type { CommentDto, ReturnNotes } from '@/lib/dal/review';
+import type { CommentDto } from '@/lib/dal/comments';
+import type { ReturnNotes } from '@/lib/dal/return-notes';
 
 import { markCommentsAnswered } from '../api/board-editor-api';
 import { useBoardDraftStore } from '../stores/board-draft-store';

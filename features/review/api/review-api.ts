@@ -1,6 +1,7 @@
 import { apiFetch } from '@/lib/api/client';
 import type { RevisionDiff } from '@/lib/boards/revision-diff';
-import type { CommentDto, RevisionSummary } from '@/lib/dal/review';
+import type { CommentDto } from '@/lib/dal/comments';
+import type { RevisionSummary } from '@/lib/dal/revisions';
 import type { BoardStatus } from '@/models/board';
 
 import type { ApproveInput, CommentInput, ReturnInput } from '../types/schemas';

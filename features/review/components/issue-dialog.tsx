@@ -10,7 +10,7 @@ import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { FormAlert } from '@/components/ui/form-alert';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import type { BoardDto } from '@/lib/boards/types';
-import type { IssuePreview } from '@/lib/dal/review';
+import type { IssuePreview } from '@/lib/dal/issue-and-return';
 import { plural } from '@/lib/names';
 
 import { postApprove } from '../api/review-api';

@@ -18,7 +18,8 @@ import { StatusBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import { deviceName, loadTypeName } from '@/lib/names';
-import type { CommentDto, ReviewData } from '@/lib/dal/review';
+import type { CommentDto } from '@/lib/dal/comments';
+import type { ReviewData } from '@/lib/dal/review-page';
 import type { CircuitResult } from '@/lib/sizing';
 
 import { postComment, postReturn } from '../api/review-api';

@@ -1,5 +1,5 @@
 import { apiFetch } from '@/lib/api/client';
-import type { ScheduleMail } from '@/lib/dal/review';
+import type { ScheduleMail } from '@/lib/dal/schedule-mail';
 
 import type { ScheduleEmailInput } from '../types/schemas';
 

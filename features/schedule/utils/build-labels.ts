@@ -7,7 +7,7 @@
 import { layoutWays, railOrder } from '@/lib/boards/layout';
 import { labelTextOf } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
-import type { ScheduleSource } from '@/lib/dal/review';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
 
 /** The common DIN-rail module pitch, mm (one 1-pole MCB is 17.5 mm wide: common practice, EN 60715 rail). */
 export const MODULE_PITCH_MM = 17.5;

@@ -18,7 +18,7 @@ import {
   VERDICT_WORDS,
   wayTitle,
 } from '@/lib/names';
-import type { ScheduleSource } from '@/lib/dal/review';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { SIZING_CAUTION, type CircuitResult, type Verdict } from '@/lib/sizing';
 import type { LabelStatus } from '@/models/way';
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 
 import { buildLabelSheet, JOIN_MARK_MM, MODULE_PITCH_MM } from '@/features/schedule/utils/build-labels';
 import type { SnapshotWay } from '@/lib/boards/revision-diff';
-import type { ScheduleSource } from '@/lib/dal/review';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
 const device = (modules: 1 | 2 | 3 | 4, kind: SnapshotWay['device']['kind'] = 'mcb'): SnapshotWay['device'] =>

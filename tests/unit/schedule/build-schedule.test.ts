@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { buildSchedule, SCHEDULE_COLUMNS } from '@/features/schedule/utils/build-schedule';
 import type { SnapshotWay } from '@/lib/boards/revision-diff';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
-import type { ScheduleSource } from '@/lib/dal/review';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { boardInputSchema, SIZING_CAUTION, sizeBoard } from '@/lib/sizing';
 
 const circuit = (serves: string): NonNullable<SnapshotWay['circuit']> => ({

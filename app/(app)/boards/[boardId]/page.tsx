@@ -8,7 +8,7 @@ import { can } from '@/lib/auth/permissions';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
 import { getArchiveState, getBoard } from '@/lib/dal/boards';
-import { getReturnNotes } from '@/lib/dal/review';
+import { getReturnNotes } from '@/lib/dal/return-notes';
 import { HttpError } from '@/lib/errors';
 
 import { LabelFindings } from './_components/label-findings';

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { ReviewView } from '@/features/review/components/review-view';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
-import { getReview } from '@/lib/dal/review';
+import { getReview } from '@/lib/dal/review-page';
 import { HttpError } from '@/lib/errors';
 
 export const metadata = { title: 'Review' };

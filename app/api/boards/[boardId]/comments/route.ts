@@ -2,7 +2,7 @@ import { commentInputSchema } from '@/features/review/types/schemas';
 import { parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { addComment, listComments } from '@/lib/dal/review';
+import { addComment, listComments } from '@/lib/dal/comments';
 
 type Params = { boardId: string };
 

@@ -1,7 +1,7 @@
 import { parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getReview } from '@/lib/dal/review';
+import { getReview } from '@/lib/dal/review-page';
 
 /** GET /api/boards/:boardId/review: the board with every way's sizing, comments and revisions. */
 export const GET = route<{ boardId: string }>(async (_req, params) => {

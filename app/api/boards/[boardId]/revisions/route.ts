@@ -1,7 +1,7 @@
 import { parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { boardStage, listRevisions } from '@/lib/dal/review';
+import { boardStage, listRevisions } from '@/lib/dal/revisions';
 
 /** GET /api/boards/:boardId/revisions: the issued revisions, newest first, and the current stage. */
 export const GET = route<{ boardId: string }>(async (_req, params) => {

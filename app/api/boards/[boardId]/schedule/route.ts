@@ -3,7 +3,7 @@ import { parsePrintQuery } from '@/features/schedule/utils/print-query';
 import { parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getScheduleSource } from '@/lib/dal/review';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
 
 /**
  * GET /api/boards/:boardId/schedule[?revision=N][&download=1]: the board schedule as a PDF,

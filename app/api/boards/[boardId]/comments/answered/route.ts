@@ -2,7 +2,7 @@ import { answerCommentsSchema } from '@/features/review/types/schemas';
 import { parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { answerComments } from '@/lib/dal/review';
+import { answerComments } from '@/lib/dal/comments';
 
 /** POST /api/boards/:boardId/comments/answered: the designer marks review comments answered. */
 export const POST = route<{ boardId: string }>(async (req, params) => {

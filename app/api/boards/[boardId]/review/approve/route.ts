@@ -2,7 +2,7 @@ import { approveInputSchema } from '@/features/review/types/schemas';
 import { parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { approveBoard } from '@/lib/dal/review';
+import { approveBoard } from '@/lib/dal/issue-and-return';
 
 /**
  * POST /api/boards/:boardId/review/approve: issue a board in review as the next revision,

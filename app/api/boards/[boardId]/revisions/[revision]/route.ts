@@ -4,7 +4,7 @@ import { revisionRefSchema } from '@/features/review/types/schemas';
 import { fieldIssues, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { badRequest } from '@/lib/errors';
-import { getRevision, getRevisionDiff } from '@/lib/dal/review';
+import { getRevision, getRevisionDiff } from '@/lib/dal/revisions';
 
 const paramsSchema = z.object({ boardId: z.uuid(), revision: revisionRefSchema });
 

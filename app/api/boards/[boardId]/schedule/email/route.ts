@@ -3,7 +3,8 @@ import { scheduleEmailSchema } from '@/features/schedule/types/schemas';
 import { parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { emailSchedule, getScheduleSource, listScheduleEmails } from '@/lib/dal/review';
+import { emailSchedule, listScheduleEmails } from '@/lib/dal/schedule-mail';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
 
 type Params = { boardId: string };
 

@@ -1,0 +1,41 @@
+import 'server-only';
+
+import type { Transaction } from 'sequelize';
+
+import type { Actor } from '@/lib/auth/session';
+import type { BoardSnapshot, SnapshotWay } from '@/lib/boards/revision-diff';
+import { settingsOf } from '@/lib/boards/schemas';
+import { env } from '@/lib/env';
+import { Board, Organisation, Site, Way } from '@/models';
+
+export function snapshotWay(way: SnapshotWay): SnapshotWay {
+  return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
+}
+
+export async function organisationName(actor: Actor, transaction?: Transaction): Promise<string> {
+  const org = await Organisation.findByPk(actor.organisationId, { attributes: ['name'], transaction });
+  return org?.name ?? '';
+}
+
+/** The live board as a snapshot (what would be frozen if it were issued now). */
+export async function liveSnapshot(actor: Actor, board: Board, transaction?: Transaction): Promise<BoardSnapshot> {
+  // One after another: inside a transaction they share one connection, and pg refuses
+  // (from pg 9) a query sent while another is running on it
+  const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
+  const ways = await Way.findAll({
+    where: { boardId: board.id },
+    order: [['rail', 'ASC'], ['position', 'ASC']],
+    transaction,
+  });
+  const orgName = await organisationName(actor, transaction);
+  return {
+    settings: settingsOf(board),
+    siteName: site?.name ?? '',
+    organisationName: orgName,
+    ways: ways.map((w) => snapshotWay(w as unknown as SnapshotWay)),
+  };
+}
+
+export function boardUrl(boardId: string): string {
+  return new URL(`/boards/${boardId}`, env().APP_URL).href;
+}

@@ -1,0 +1,98 @@
+import 'server-only';
+
+import { Op } from 'sequelize';
+
+import { can } from '@/lib/auth/permissions';
+import type { Actor } from '@/lib/auth/session';
+import { db } from '@/lib/db';
+import { audit } from '@/lib/dal/audit';
+import { assertNotArchived, findBoard } from '@/lib/dal/boards';
+import { badRequest, forbidden } from '@/lib/errors';
+import { Comment, User, Way } from '@/models';
+
+export type CommentDto = {
+  id: string;
+  wayId: string | null;
+  revision: number;
+  body: string;
+  authorName: string;
+  createdAt: string;
+  /** When the designer marked it answered; null while open. */
+  answeredAt: string | null;
+};
+
+export function commentDto(c: Comment & { author?: User }): CommentDto {
+  return {
+    id: c.id,
+    wayId: c.wayId,
+    revision: c.revision,
+    body: c.body,
+    authorName: c.author?.name ?? 'A former member',
+    createdAt: c.createdAt.toISOString(),
+    answeredAt: c.answeredAt ? c.answeredAt.toISOString() : null,
+  };
+}
+
+/** Every comment on a board, oldest first. */
+export async function listComments(actor: Actor, boardId: string): Promise<CommentDto[]> {
+  await findBoard(actor, boardId);
+  const rows = await Comment.findAll({
+    where: { boardId },
+    include: [{ model: User, as: 'author', attributes: ['name'] }],
+    order: [['createdAt', 'ASC']],
+  });
+  return rows.map(commentDto);
+}
+
+/** Whoever may comment: the reviewers, and the designers answering them. */
+function mayComment(actor: Actor): boolean {
+  return can(actor.role, 'boards.review') || can(actor.role, 'boards.edit');
+}
+
+/** Adds a comment on the board (wayId null) or on one of its ways, for the board's current revision. */
+export async function addComment(
+  actor: Actor,
+  boardId: string,
+  input: { wayId?: string | null; body: string },
+): Promise<CommentDto> {
+  if (!mayComment(actor)) throw forbidden('comment on boards');
+  const created = await db().transaction(async (transaction) => {
+    const board = await findBoard(actor, boardId, { transaction });
+    await assertNotArchived(board, transaction);
+    const wayId = input.wayId ?? null;
+    if (wayId) {
+      const onBoard = await Way.count({ where: { id: wayId, boardId }, transaction });
+      if (!onBoard) throw badRequest([{ path: 'wayId', message: 'That way is not on this board.' }]);
+    }
+    const comment = await Comment.create(
+      { boardId, wayId, revision: board.revision, authorId: actor.userId, body: input.body },
+      { transaction },
+    );
+    await audit(actor, 'board.comment', { commentId: comment.id, wayId }, { boardId, transaction });
+    return comment;
+  });
+  return commentDto(Object.assign(created, { author: { name: actor.name } as User }));
+}
+
+/** Marks comments of a board answered (the designer has dealt with them). */
+export async function answerComments(actor: Actor, boardId: string, commentIds: string[]): Promise<{ answered: number }> {
+  if (!can(actor.role, 'comments.answer')) throw forbidden('mark review comments answered');
+  return db().transaction(async (transaction) => {
+    const board = await findBoard(actor, boardId, { transaction, lock: true });
+    await assertNotArchived(board, transaction);
+    const ids = [...new Set(commentIds)];
+    const found = await Comment.findAll({ where: { boardId, id: { [Op.in]: ids } }, transaction });
+    if (found.length !== ids.length) {
+      throw badRequest([{ path: 'commentIds', message: 'Some of those comments are not on this board.' }]);
+    }
+    const open = found.filter((c) => !c.answeredAt);
+    if (open.length) {
+      await Comment.update(
+        { answeredAt: new Date(), answeredById: actor.userId },
+        { where: { id: { [Op.in]: open.map((c) => c.id) } }, transaction },
+      );
+      await audit(actor, 'comments.answered', { commentIds: open.map((c) => c.id) }, { boardId, transaction });
+    }
+    return { answered: open.length };
+  });
+}

@@ -1,0 +1,50 @@
+import 'server-only';
+
+import type { Actor } from '@/lib/auth/session';
+import { commentDto, type CommentDto } from '@/lib/dal/comments';
+import { findBoard } from '@/lib/dal/boards';
+import { AuditEvent, Comment, User } from '@/models';
+
+/** A returned board's review as the designer reads it in the editor. */
+export type ReturnNotes = {
+  revision: number;
+  returnedByName: string;
+  returnedAt: string;
+  /** Comments on the whole board: the reason for the return, open ones only. */
+  reasons: CommentDto[];
+  /** Open comments on single ways, to show beside them. */
+  wayComments: CommentDto[];
+  /** How many comments of this return are answered already. */
+  answered: number;
+};
+
+/**
+ * The review of a board that was returned for its current revision and is a draft again: who
+ * returned it and when, and the comments of that revision still open (the designer marks
+ * them answered). Null when the board was not returned, or every comment is answered.
+ */
+export async function getReturnNotes(actor: Actor, boardId: string): Promise<ReturnNotes | null> {
+  const board = await findBoard(actor, boardId);
+  if (board.status !== 'draft') return null;
+  const returned = await AuditEvent.findOne({
+    where: { boardId, organisationId: actor.organisationId, action: 'review.returned' },
+    order: [['id', 'DESC']],
+  });
+  if (!returned || Number(returned.details.revision) !== board.revision) return null;
+  const comments = await Comment.findAll({
+    where: { boardId, revision: board.revision },
+    include: [{ model: User, as: 'author', attributes: ['name'] }],
+    order: [['createdAt', 'ASC']],
+  });
+  const open = comments.filter((c) => !c.answeredAt).map(commentDto);
+  if (!open.length) return null;
+  const who = returned.userId ? await User.findByPk(returned.userId, { attributes: ['name'] }) : null;
+  return {
+    revision: board.revision,
+    returnedByName: who?.name ?? 'A former member',
+    returnedAt: returned.createdAt.toISOString(),
+    reasons: open.filter((c) => !c.wayId),
+    wayComments: open.filter((c) => c.wayId),
+    answered: comments.length - open.length,
+  };
+}

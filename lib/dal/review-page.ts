@@ -1,0 +1,60 @@
+import 'server-only';
+
+import type { Actor } from '@/lib/auth/session';
+import { countWays, countWords } from '@/lib/boards/counts';
+import { layoutWays } from '@/lib/boards/layout';
+import type { BoardDto } from '@/lib/boards/types';
+import { organisationName } from '@/lib/dal/board-snapshot';
+import { sizeStoredBoard } from '@/lib/dal/board-sizing';
+import { findBoard, getBoard } from '@/lib/dal/boards';
+import { listComments, type CommentDto } from '@/lib/dal/comments';
+import { issueRefusalFor, type IssuePreview } from '@/lib/dal/issue-and-return';
+import { listRevisions, nextRevision, type RevisionSummary } from '@/lib/dal/revisions';
+import type { FieldIssue } from '@/lib/errors';
+import type { BoardResult } from '@/lib/sizing';
+
+/** Everything the review page shows. */
+export type ReviewData = {
+  board: BoardDto;
+  organisationName: string;
+  sizing: BoardResult | null;
+  /** Why the board could not be sized (empty when it could). */
+  sizingIssues: FieldIssue[];
+  /** Printed way reference per way id (null for devices without one). */
+  refs: Record<string, string | null>;
+  comments: CommentDto[];
+  revisions: RevisionSummary[];
+  issue: IssuePreview;
+};
+
+/** The review page's data: the board, its sizing, comments and issued revisions. */
+export async function getReview(actor: Actor, boardId: string): Promise<ReviewData> {
+  const board = await getBoard(actor, boardId);
+  const [orgName, comments, revisions, row] = await Promise.all([
+    organisationName(actor),
+    listComments(actor, boardId),
+    listRevisions(actor, boardId),
+    findBoard(actor, boardId),
+  ]);
+  const { sizing, issues } = sizeStoredBoard(board);
+  const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  const counts = sizing?.summary.counts;
+  const issue: IssuePreview = {
+    revision: await nextRevision(row),
+    ways: countWords(countWays(board.phases, board.ways)),
+    devices: board.ways.length,
+    circuits: board.ways.filter((w) => w.circuit).length,
+    verdicts: { passes: counts?.passes ?? 0, nearLimit: counts?.nearLimit ?? 0, fails: counts?.fails ?? 0 },
+    refusal: await issueRefusalFor(actor, row),
+  };
+  return {
+    board,
+    organisationName: orgName,
+    sizing,
+    sizingIssues: issues,
+    refs,
+    comments,
+    revisions,
+    issue,
+  };
+}

@@ -1,0 +1,99 @@
+import 'server-only';
+
+import type { Transaction } from 'sequelize';
+
+import type { Actor } from '@/lib/auth/session';
+import { diffRevisions, type BoardSnapshot, type RevisionDiff } from '@/lib/boards/revision-diff';
+import { liveSnapshot } from '@/lib/dal/board-snapshot';
+import { sizeSnapshot } from '@/lib/dal/board-sizing';
+import { findBoard } from '@/lib/dal/boards';
+import { notFound } from '@/lib/errors';
+import type { BoardResult } from '@/lib/sizing';
+import { Board, BoardRevision, User } from '@/models';
+import type { BoardStatus } from '@/models/board';
+
+export type RevisionSummary = {
+  revision: number;
+  issuedAt: string;
+  issuedByName: string;
+  /** The issuer's typed name (null for revisions issued before declarations were asked). */
+  declaration: string | null;
+};
+
+/** The issued revisions of a board, newest first. */
+export async function listRevisions(actor: Actor, boardId: string): Promise<RevisionSummary[]> {
+  await findBoard(actor, boardId);
+  const rows = await BoardRevision.findAll({
+    where: { boardId },
+    attributes: ['revision', 'issuedAt', 'issuedById', 'declaration'],
+    include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
+    order: [['revision', 'DESC']],
+  });
+  return rows.map((r) => ({
+    revision: r.revision,
+    issuedAt: r.issuedAt.toISOString(),
+    issuedByName: (r as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member',
+    declaration: r.declaration,
+  }));
+}
+
+/** The revision number a board in review would be issued as: its own, unless that one was issued. */
+export async function nextRevision(board: Board, transaction?: Transaction): Promise<number> {
+  const last = ((await BoardRevision.max('revision', { where: { boardId: board.id }, transaction })) as number | null) ?? 0;
+  return Math.max(board.revision, last + 1);
+}
+
+/** One state of a board: an issued revision, or the live board ('current'). */
+export type RevisionState = {
+  revision: number;
+  issued: { at: string; byName: string } | null;
+  snapshot: BoardSnapshot;
+  sizing: BoardResult | null;
+};
+
+/** An issued revision, or the live board when `revision` is 'current'. */
+export async function getRevision(
+  actor: Actor,
+  boardId: string,
+  revision: number | 'current',
+): Promise<RevisionState> {
+  const board = await findBoard(actor, boardId);
+  if (revision === 'current') {
+    const snapshot = await liveSnapshot(actor, board);
+    return { revision: board.revision, issued: null, snapshot, sizing: sizeSnapshot(snapshot).sizing };
+  }
+  const row = await BoardRevision.findOne({
+    where: { boardId, revision },
+    include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
+  });
+  if (!row) throw notFound(`Revision ${revision}`);
+  return {
+    revision: row.revision,
+    issued: {
+      at: row.issuedAt.toISOString(),
+      byName: (row as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member',
+    },
+    snapshot: row.snapshot as unknown as BoardSnapshot,
+    sizing: row.sizing as unknown as BoardResult,
+  };
+}
+
+/** The changes from one state of a board to another. */
+export async function getRevisionDiff(
+  actor: Actor,
+  boardId: string,
+  from: number | 'current',
+  to: number | 'current',
+): Promise<{ from: number; to: number; toIsLive: boolean; diff: RevisionDiff }> {
+  const [a, b] = await Promise.all([getRevision(actor, boardId, from), getRevision(actor, boardId, to)]);
+  return { from: a.revision, to: b.revision, toIsLive: to === 'current', diff: diffRevisions(a.snapshot, b.snapshot) };
+}
+
+/** The board's status and revision, for pages that only need those. */
+export async function boardStage(
+  actor: Actor,
+  boardId: string,
+): Promise<{ status: BoardStatus; revision: number; name: string }> {
+  const board = await findBoard(actor, boardId);
+  return { status: board.status, revision: board.revision, name: board.name };
+}

@@ -1,0 +1,100 @@
+import 'server-only';
+
+import { Op } from 'sequelize';
+
+import type { Actor } from '@/lib/auth/session';
+import { db } from '@/lib/db';
+import { audit } from '@/lib/dal/audit';
+import { findBoard } from '@/lib/dal/boards';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
+import { enqueueMail } from '@/lib/mail/outbox';
+import { AuditEvent, OutgoingMail, User } from '@/models';
+
+export type ScheduleMail = {
+  id: string;
+  to: string;
+  revision: number;
+  status: 'queued' | 'sent' | 'failed';
+  attempts: number;
+  lastError: string | null;
+  sentByName: string;
+  createdAt: string;
+  sentAt: string | null;
+};
+
+/** Queues the schedule PDF to an address through the outbox and records who sent it. */
+export async function emailSchedule(
+  actor: Actor,
+  source: Pick<ScheduleSource, 'boardId' | 'revision' | 'snapshot' | 'frozen' | 'boardUrl'>,
+  input: { to: string; message?: string; pdf: Uint8Array; fileName: string },
+): Promise<{ id: string; status: 'queued' }> {
+  await findBoard(actor, source.boardId);
+  const name = source.snapshot.settings.name;
+  return db().transaction(async (transaction) => {
+    const id = await enqueueMail(
+      {
+        organisationId: actor.organisationId,
+        to: input.to,
+        subject: `Board schedule: ${name}, revision ${source.revision}${source.frozen ? '' : ' (draft)'}`,
+        text: [
+          `${actor.name} sent you the board schedule of ${name} (${source.snapshot.siteName}), revision ${source.revision}${source.frozen ? '' : ', not yet issued'}.`,
+          ...(input.message ? ['', input.message] : []),
+          '',
+          `The schedule is attached as a PDF. Board: ${source.boardUrl}`,
+        ].join('\n'),
+        attachments: [
+          {
+            filename: input.fileName,
+            contentType: 'application/pdf',
+            contentBase64: Buffer.from(input.pdf).toString('base64'),
+          },
+        ],
+      },
+      transaction,
+    );
+    await audit(
+      actor,
+      'schedule.emailed',
+      { mailId: id, to: input.to, revision: source.revision },
+      { boardId: source.boardId, transaction },
+    );
+    return { id, status: 'queued' as const };
+  });
+}
+
+/** The schedule e-mails sent for a board, newest first, with their outbox status. */
+export async function listScheduleEmails(actor: Actor, boardId: string): Promise<ScheduleMail[]> {
+  await findBoard(actor, boardId);
+  const events = await AuditEvent.findAll({
+    where: { boardId, organisationId: actor.organisationId, action: 'schedule.emailed' },
+    order: [['id', 'DESC']],
+    limit: 50,
+  });
+  const ids = events.map((e) => String(e.details.mailId ?? '')).filter(Boolean);
+  const [mails, users] = await Promise.all([
+    OutgoingMail.findAll({ where: { id: { [Op.in]: ids }, organisationId: actor.organisationId } }),
+    User.findAll({
+      where: { id: { [Op.in]: events.map((e) => e.userId).filter((u): u is string => !!u) } },
+      attributes: ['id', 'name'],
+    }),
+  ]);
+  const mailById = new Map(mails.map((m) => [m.id, m]));
+  const nameById = new Map(users.map((u) => [u.id, u.name]));
+  return events.flatMap((e) => {
+    const mail = mailById.get(String(e.details.mailId));
+    if (!mail) return [];
+    return [
+      {
+        id: mail.id,
+        to: mail.toAddress,
+        revision: Number(e.details.revision),
+        status: mail.status,
+        attempts: mail.attempts,
+        lastError: mail.lastError,
+        sentByName: (e.userId && nameById.get(e.userId)) || 'A former member',
+        createdAt: mail.createdAt.toISOString(),
+        sentAt: mail.sentAt ? mail.sentAt.toISOString() : null,
+      },
+    ];
+  });
+}

@@ -1,0 +1,105 @@
+import 'server-only';
+
+import type { Actor } from '@/lib/auth/session';
+import type { BoardSnapshot } from '@/lib/boards/revision-diff';
+import { boardUrl, liveSnapshot } from '@/lib/dal/board-snapshot';
+import { sizeSnapshot } from '@/lib/dal/board-sizing';
+import { findBoard } from '@/lib/dal/boards';
+import { forbidden, notFound, type FieldIssue } from '@/lib/errors';
+import type { BoardResult } from '@/lib/sizing';
+import { BoardRevision, User, Way } from '@/models';
+import type { BoardStatus } from '@/models/board';
+import type { LabelStatus } from '@/models/way';
+
+/** What a printed schedule (or label strip) is made from. */
+export type ScheduleSource = {
+  boardId: string;
+  boardUrl: string;
+  snapshot: BoardSnapshot;
+  sizing: BoardResult | null;
+  sizingIssues: FieldIssue[];
+  revision: number;
+  status: BoardStatus;
+  /** True for an issued revision (frozen), false for the live draft. */
+  frozen: boolean;
+  issued: { at: string; byName: string } | null;
+  /** The label walk's results, when a walk applies to this revision. */
+  labels: Record<string, { status: LabelStatus; note: string }> | null;
+  updatedAt: string;
+};
+
+/**
+ * The board state to print. Without `revision`: the issued revision of an issued board
+ * (labels matched or not), else the live draft. Installers print issued revisions only (a board
+ * never issued is refused); the others may print the live draft too.
+ */
+export async function getScheduleSource(
+  actor: Actor,
+  boardId: string,
+  revision?: number,
+): Promise<ScheduleSource> {
+  const board = await findBoard(actor, boardId);
+  const draftsAllowed = actor.role !== 'installer';
+  const issuedNow = board.status === 'issued' || board.status === 'labels-matched';
+  let target = revision;
+  if (target === undefined) {
+    if (issuedNow || draftsAllowed) target = board.revision;
+    else {
+      target = ((await BoardRevision.max('revision', { where: { boardId } })) as number | null) ?? undefined;
+      if (target === undefined) throw forbidden('print a board that has not been issued');
+    }
+  }
+  const url = boardUrl(boardId);
+  const row = await BoardRevision.findOne({
+    where: { boardId, revision: target },
+    include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
+  });
+  if (row) {
+    const snapshot = row.snapshot as unknown as BoardSnapshot;
+    // The walk checks the board as built, which is the current issued revision
+    let labels: ScheduleSource['labels'] = null;
+    if (issuedNow && row.revision === board.revision) {
+      const ways = await Way.findAll({
+        where: { boardId },
+        attributes: ['id', 'labelStatus', 'labelNote'],
+      });
+      const inSnapshot = new Set(snapshot.ways.map((w) => w.id));
+      labels = Object.fromEntries(
+        ways.filter((w) => inSnapshot.has(w.id)).map((w) => [w.id, { status: w.labelStatus, note: w.labelNote }]),
+      );
+    }
+    return {
+      boardId,
+      boardUrl: url,
+      snapshot,
+      sizing: row.sizing as unknown as BoardResult,
+      sizingIssues: [],
+      revision: row.revision,
+      status: row.revision === board.revision ? board.status : 'issued',
+      frozen: true,
+      issued: {
+        at: row.issuedAt.toISOString(),
+        byName: (row as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member',
+      },
+      labels,
+      updatedAt: row.issuedAt.toISOString(),
+    };
+  }
+  if (target !== board.revision) throw notFound(`Revision ${target}`);
+  if (!draftsAllowed) throw forbidden('print a board that has not been issued');
+  const snapshot = await liveSnapshot(actor, board);
+  const { sizing, issues } = sizeSnapshot(snapshot);
+  return {
+    boardId,
+    boardUrl: url,
+    snapshot,
+    sizing,
+    sizingIssues: issues,
+    revision: board.revision,
+    status: board.status,
+    frozen: false,
+    issued: null,
+    labels: null,
+    updatedAt: board.updatedAt.toISOString(),
+  };
+}
