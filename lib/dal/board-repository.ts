@@ -91,9 +91,14 @@ export async function requireBoard(actor: Actor, boardId: string): Promise<void>
   if (!rows.length) throw notFound('The board');
 }
 
-/** A board's ways, design fields only, in no particular order. */
+/** A board's ways, design fields only, in rail order. */
 export async function readWays(boardId: string, transaction?: Transaction): Promise<WayInput[]> {
-  const rows = await Way.findAll({ where: { boardId }, attributes: ['id', 'rail', 'position', 'device', 'circuit'], transaction });
+  const rows = await Way.findAll({
+    where: { boardId },
+    attributes: ['id', 'rail', 'position', 'device', 'circuit'],
+    order: [['rail', 'ASC'], ['position', 'ASC']],
+    transaction,
+  });
   return rows.map(wayInputOf);
 }
 
@@ -192,4 +197,10 @@ export async function readStoredSizing(actor: Actor, boardId: string): Promise<S
   const [row] = rows;
   if (row.current) return { json: row.json, issues: row.issues ?? [] };
   return storeSizing(await readBoard(actor, boardId));
+}
+
+/** The stored sizing of the caller's organisation's board, as the engine's result. */
+export async function readSizedBoard(actor: Actor, boardId: string): Promise<SizedBoard> {
+  const { json, issues } = await readStoredSizing(actor, boardId);
+  return { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues };
 }

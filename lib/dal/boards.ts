@@ -6,6 +6,7 @@ import { literal, Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, type CountedWay } from '@/lib/boards/counts';
+import { transition } from '@/lib/boards/lifecycle';
 import { boardRemoval, mayRestore } from '@/lib/boards/record-rules';
 import {
   settingsOf,
@@ -262,22 +263,23 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
     return await changeBoard(actor, boardId, async (board, transaction) => {
       // An archive also moves the version on: say that it is archived, not that someone saved
       await assertNotArchived(board, transaction);
-      if (board.status === 'in-review') {
-        throw conflict('The board is in review; it can be changed once the inspector returns it.');
-      }
+      // The stage first (lib/boards/lifecycle.ts: a board in review is not saved), then the version
+      const step = transition(board.status, 'save', { revision: board.revision });
+      if (step.refused) throw conflict(step.message);
       if (board.version !== input.version) {
         throw conflict('Someone else saved this board after you opened it.', { currentVersion: board.version });
       }
       const diff = diffWays(await readWays(boardId, transaction), input.ways);
       const added = new Set(diff.added);
       const touched = new Set([...diff.changed, ...diff.moved]);
-      const startsRevision = board.status === 'issued' || board.status === 'labels-matched';
+      const { startsRevision } = step;
       const wayEvents = (action: AuditAction, ids: string[]) => ids.map((wayId) => ({ action, details: { wayId } }));
       return {
         set: {
           ...settingsOf(input.settings),
           designChangedById: actor.userId,
-          ...(startsRevision ? { status: 'draft' as const, revision: board.revision + 1 } : {}),
+          status: step.to,
+          ...(startsRevision ? { revision: board.revision + 1 } : {}),
         },
         ways: {
           remove: diff.removed,
@@ -290,7 +292,7 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
           ...wayEvents('way.moved', diff.moved),
           ...wayEvents('way.changed', diff.changed),
           {
-            action: 'board.saved',
+            action: step.audit ?? 'board.saved',
             details: { version: board.version + 1, ...(startsRevision ? { newRevision: board.revision + 1 } : {}) },
           },
         ],

@@ -6,9 +6,9 @@ import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import { issueRefusal, sameName, type Refusal } from '@/lib/boards/record-rules';
 import { layoutWays } from '@/lib/boards/layout';
-import type { SnapshotWay } from '@/lib/boards/revision-diff';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
+import { readWays } from '@/lib/dal/board-repository';
 import { boardUrl, liveSnapshot } from '@/lib/dal/board-snapshot';
 import { sizeSnapshot } from '@/lib/dal/board-sizing';
 import { findWritableBoard } from '@/lib/dal/boards';
@@ -17,7 +17,7 @@ import { env } from '@/lib/env';
 import { badRequest, conflict, HttpError, unprocessable } from '@/lib/errors';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { BOARD_STATUS_PHRASES, wayTitle } from '@/lib/names';
-import { AuditEvent, Board, BoardRevision, Comment, Organisation, Site, User, Way } from '@/models';
+import { AuditEvent, Board, BoardRevision, Comment, Organisation, Site, User } from '@/models';
 import type { BoardStatus } from '@/models/board';
 
 /** What an issue would issue now, for the confirmation, and whether the caller may. */
@@ -86,10 +86,8 @@ async function commentLines(board: Board, transaction: Transaction): Promise<str
     order: [['createdAt', 'ASC']],
     transaction,
   });
-  const ways = await Way.findAll({ where: { boardId: board.id }, transaction });
-  const refs = new Map(
-    layoutWays(board.phases, ways as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
-  );
+  const ways = await readWays(board.id, transaction);
+  const refs = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
   return comments.map((c) => {
     const ref = c.wayId ? refs.get(c.wayId) : null;
     const where = c.wayId ? (ref ? wayTitle(ref) : 'A way since removed') : 'Board';
