@@ -2,7 +2,6 @@ import 'server-only';
 
 import { QueryTypes, type Transaction } from 'sequelize';
 
-import { fieldIssues } from '@/lib/api/handler';
 import type { Actor } from '@/lib/auth/session';
 import {
   engineInputOf,
@@ -15,7 +14,7 @@ import {
 import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { notFound, type FieldIssue } from '@/lib/errors';
-import { boardInputSchema, sizeBoard, type BoardResult } from '@/lib/sizing';
+import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import { Board, Way } from '@/models';
 
 /**
@@ -160,9 +159,13 @@ export type SizedBoard = { sizing: BoardResult | null; issues: FieldIssue[] };
 
 /** Sizes a board's settings and ways; a board the engine refuses gets its issues instead. */
 export function sizeDesign(board: BoardSettings & { ways: readonly WayInput[] }): SizedBoard {
-  const checked = boardInputSchema.safeParse(engineInputOf(board, board.ways));
-  if (!checked.success) return { sizing: null, issues: fieldIssues(checked.error) };
-  return { sizing: sizeBoard(checked.data), issues: [] };
+  // Parsed once, and marked so that the engine does not parse it again
+  try {
+    return { sizing: sizeBoard(parseBoardInput(engineInputOf(board, board.ways))), issues: [] };
+  } catch (err) {
+    if (!(err instanceof SizingInputError)) throw err;
+    return { sizing: null, issues: err.issues.map(({ path, message }) => ({ path: path || '(body)', message })) };
+  }
 }
 
 /** A stored sizing: the engine's answer as JSON text (null when it refused), or its issues. */

@@ -1,12 +1,10 @@
 import { z } from 'zod';
 
-import { fieldIssues, parseBody, parseParams, route } from '@/lib/api/handler';
+import { parseBody, parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
-import { boardSizingInput } from '@/lib/boards/sizing-input';
-import { readStoredSizing, requireBoard } from '@/lib/dal/board-repository';
+import { readStoredSizing, requireBoard, sizeDesign } from '@/lib/dal/board-repository';
 import { badRequest } from '@/lib/errors';
-import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
 /** The body is optional: empty sizes the stored board; `draft` sizes unsaved edits. */
 const bodySchema = z
@@ -35,7 +33,7 @@ export const POST = route<{ boardId: string }>(async (req, params) => {
   // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
   // that feed none) as field issues
   await requireBoard(actor, boardId);
-  const checked = boardInputSchema.safeParse(boardSizingInput(body.draft.settings, body.draft.ways));
-  if (!checked.success) throw badRequest(fieldIssues(checked.error));
-  return Response.json(sizeBoard(checked.data));
+  const { sizing, issues } = sizeDesign({ ...body.draft.settings, ways: body.draft.ways });
+  if (!sizing) throw badRequest(issues);
+  return Response.json(sizing);
 });
