@@ -1,54 +1,15 @@
 import { DataTypes, Model, type Sequelize } from 'sequelize';
 
+import type { BoardRow } from '@/lib/boards/schemas';
 import { BOARD_STATUSES, type BoardStatus } from '@/lib/domain';
 
 export { BOARD_STATUSES, type BoardStatus };
 
-export type SupplyData = {
-  earthing: 'TN-S' | 'TN-C-S' | 'TT';
-  uoV: number;
-  zeOhm: number;
-  pfcKa: number;
-  source: 'public' | 'private';
-};
-
-export type IncomingDevice = {
-  kind: 'main-switch' | 'mcb' | 'fuse-bs88-2' | 'rcd';
-  ratingA: number;
-  busbarRatingA?: number;
-};
-
+/** A boards row: its attributes are typed by the board's schema module (`BoardRow`). */
+// eslint-disable-next-line @typescript-eslint/no-empty-object-type, @typescript-eslint/no-unsafe-declaration-merging
+export interface Board extends BoardRow {}
+// eslint-disable-next-line @typescript-eslint/no-unsafe-declaration-merging
 export class Board extends Model {
-  declare id: string;
-  declare organisationId: string;
-  declare siteId: string;
-  declare name: string;
-  declare location: string;
-  declare phases: 1 | 3;
-  declare supply: SupplyData;
-  declare incoming: IncomingDevice;
-  declare enclosureModules: number;
-  declare rails: number;
-  declare dwelling: boolean;
-  /** Rated conditional short-circuit current of the assembly, kA (BS EN 61439-3), or null. */
-  declare conditionalRatingKa: number | null;
-  declare status: BoardStatus;
-  /** Bumped on every save; a save naming an older version is refused (optimistic locking). */
-  declare version: number;
-  /** The revision being drafted or last issued; issued revisions are frozen in board_revisions. */
-  declare revision: number;
-  declare createdById: string | null;
-  /** Archived boards leave the lists but stay readable; an admin may restore them. */
-  declare archivedAt: Date | null;
-  declare archivedById: string | null;
-  /** A never-issued board deleted by a designer: gone from every view, kept for undo. */
-  declare deletedAt: Date | null;
-  declare deletedById: string | null;
-  /** Who last changed the design (created or saved it): they may not issue it themselves. */
-  declare designChangedById: string | null;
-  declare createdAt: Date;
-  declare updatedAt: Date;
-
   static setup(sequelize: Sequelize): void {
     Board.init(
       {

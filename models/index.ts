@@ -1,5 +1,7 @@
 import type { Sequelize } from 'sequelize';
 
+import { db } from '@/lib/db';
+
 import { Attachment } from './attachment';
 import { AuditEvent } from './audit-event';
 import { Board } from './board';
@@ -26,7 +28,11 @@ export {
   Way,
 };
 
-/** Registers every model and its associations on one connection. */
+/**
+ * Registers every model and its associations on one connection. Importing this module does it
+ * on the process's pool (Next bundles server code per layer, each with its own copy of the
+ * model classes: each copy registers itself when its bundle imports it).
+ */
 export function setupModels(sequelize: Sequelize): void {
   for (const model of [
     Organisation,
@@ -50,3 +56,5 @@ export function setupModels(sequelize: Sequelize): void {
   Comment.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
   BoardRevision.belongsTo(User, { foreignKey: 'issuedById', as: 'issuedBy' });
 }
+
+setupModels(db());

@@ -1,27 +1,15 @@
 import { DataTypes, Model, type Sequelize } from 'sequelize';
 
+import type { WayRow } from '@/lib/boards/schemas';
 import { LABEL_STATUSES, type LabelStatus } from '@/lib/domain';
 
 export { LABEL_STATUSES, type LabelStatus };
 
-/**
- * One device on the rail. `device` and `circuit` hold the engine's DeviceOnRail and
- * CircuitSpec shapes (lib/sizing), validated by the API before they are stored.
- */
+/** One device on the rail: its attributes are typed by the board's schema module (`WayRow`). */
+// eslint-disable-next-line @typescript-eslint/no-empty-object-type, @typescript-eslint/no-unsafe-declaration-merging
+export interface Way extends WayRow {}
+// eslint-disable-next-line @typescript-eslint/no-unsafe-declaration-merging
 export class Way extends Model {
-  declare id: string;
-  declare boardId: string;
-  declare rail: number;
-  declare position: number;
-  declare device: Record<string, unknown>;
-  declare circuit: Record<string, unknown> | null;
-  declare labelStatus: LabelStatus;
-  declare labelNote: string;
-  declare labelCheckedById: string | null;
-  declare labelCheckedAt: Date | null;
-  declare createdAt: Date;
-  declare updatedAt: Date;
-
   static setup(sequelize: Sequelize): void {
     Way.init(
       {

@@ -1,3 +1,4 @@
+import { saveInputOf } from '@/lib/boards/schemas';
 import type { BoardDto } from '@/lib/boards/types';
 
 /**
@@ -5,10 +6,5 @@ import type { BoardDto } from '@/lib/boards/types';
  * tests and benchmarks that save through `PUT /api/boards/:id`).
  */
 export function saveBodyOf(board: BoardDto) {
-  const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = board;
-  return {
-    version: board.version,
-    settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
-    ways: board.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit })),
-  };
+  return saveInputOf(board);
 }

@@ -1,17 +1,17 @@
+/**
+ * The one shape of a board. Everything else is derived from these schemas: the DTO the API
+ * answers, the save input (a plain subset of the DTO: its version, settings and the ways'
+ * design fields), the Sequelize models' attribute types (`models/board.ts`, `models/way.ts`)
+ * and the engine's input (`engineInputOf`). The supply is the engine's own schema, with the
+ * limits it checks (Uo 100–277 V line-to-earth).
+ */
 import { z } from 'zod';
-import { circuitSpecSchema, deviceOnRailSchema, UO_MESSAGE } from '@/lib/sizing';
 
-/** The supply at the board's origin, as the designer records it. */
-export const boardSupplySchema = z
-  .object({
-    earthing: z.enum(['TN-S', 'TN-C-S', 'TT']),
-    // Line-to-earth (230 V on a 230/400 V supply); the engine refuses anything outside 100–277 V
-    uoV: z.number().min(100, UO_MESSAGE).max(277, UO_MESSAGE),
-    zeOhm: z.number().min(0).max(200),
-    pfcKa: z.number().min(0).max(100),
-    source: z.enum(['public', 'private']),
-  })
-  .strict();
+import { BOARD_STATUSES, LABEL_STATUSES } from '@/lib/domain';
+import { circuitSpecSchema, deviceOnRailSchema, supplySchema, type BoardInput } from '@/lib/sizing';
+
+import type { WayCounts } from './counts';
+import { layoutWays, railOrder } from './layout';
 
 export const incomingDeviceSchema = z
   .object({
@@ -27,7 +27,7 @@ export const boardSettingsSchema = z
     name: z.string().trim().min(1, 'Give the board a name.').max(160),
     location: z.string().trim().max(200).default(''),
     phases: z.union([z.literal(1), z.literal(3)]),
-    supply: boardSupplySchema,
+    supply: supplySchema,
     incoming: incomingDeviceSchema,
     enclosureModules: z.number().int().min(4).max(400),
     rails: z.number().int().min(1).max(12).default(1),
@@ -93,6 +93,95 @@ export const boardSaveSchema = z
     });
   });
 export type BoardSaveInput = z.infer<typeof boardSaveSchema>;
+
+/** A way as the API hands it to the client: its design and its label check on site. */
+export const wayDtoSchema = wayInputSchema.extend({ labelStatus: z.enum(LABEL_STATUSES), labelNote: z.string() });
+export type WayDto = z.infer<typeof wayDtoSchema>;
+
+/** A board as the API hands it to the client: plain data, never a model instance. */
+export const boardDtoSchema = boardSettingsSchema.extend({
+  id: z.uuid(),
+  siteId: z.uuid(),
+  siteName: z.string(),
+  status: z.enum(BOARD_STATUSES),
+  version: z.number().int(),
+  revision: z.number().int(),
+  updatedAt: z.string(),
+  ways: z.array(wayDtoSchema),
+});
+export type BoardDto = z.infer<typeof boardDtoSchema>;
+
+/** The columns of a boards row (the model's attributes): the settings and the record's fields. */
+export type BoardRow = BoardSettings &
+  Pick<BoardDto, 'id' | 'siteId' | 'status' | 'version' | 'revision'> & {
+    organisationId: string;
+    conditionalRatingKa: number | null;
+    createdById: string | null;
+    archivedAt: Date | null;
+    archivedById: string | null;
+    deletedAt: Date | null;
+    deletedById: string | null;
+    designChangedById: string | null;
+    createdAt: Date;
+    updatedAt: Date;
+  };
+
+/** The columns of a ways row (the model's attributes). */
+export type WayRow = Omit<WayDto, 'device' | 'circuit'> & {
+  device: WayInput['device'];
+  circuit: WayInput['circuit'];
+  boardId: string;
+  labelCheckedById: string | null;
+  labelCheckedAt: Date | null;
+  createdAt: Date;
+  updatedAt: Date;
+};
+
+/** A board in the lists. */
+export type BoardSummary = Pick<
+  BoardDto,
+  'id' | 'siteId' | 'siteName' | 'name' | 'location' | 'phases' | 'status' | 'revision' | 'updatedAt'
+> & {
+  /** Ways by way number (counts.ts), the same as `counts.ways`. */
+  wayCount: number;
+  counts: WayCounts;
+  /** When the board (or its site) was archived; null for a live board. */
+  archivedAt: string | null;
+  /** Whether a revision of it was ever issued (then it is archived, never deleted). */
+  everIssued: boolean;
+};
+
+/** The design fields of a way (what a save writes). */
+export function wayInputOf(way: WayInput): WayInput {
+  return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
+}
+
+/** The save input of a board as read: its version, settings and the ways' design fields. */
+export function saveInputOf(board: BoardDto): BoardSaveInput {
+  return { version: board.version, settings: settingsOf(board), ways: board.ways.map(wayInputOf) };
+}
+
+/**
+ * The engine's board input from a board's settings and ways: ways in rail order, and on
+ * a three-phase board each single-pole device on the phase its position gives it.
+ */
+export function engineInputOf(settings: BoardSettings, ways: readonly WayInput[]): BoardInput {
+  const ordered = railOrder(ways);
+  const places = new Map(layoutWays(settings.phases, ordered).map((p) => [p.id, p]));
+  return {
+    supply: settings.supply,
+    phases: settings.phases,
+    enclosureModules: settings.enclosureModules,
+    incoming: settings.incoming,
+    dwelling: settings.dwelling,
+    conditionalRatingKa: settings.conditionalRatingKa ?? null,
+    ways: ordered.map((way) => {
+      const phase = places.get(way.id)?.phases;
+      const onePhase = settings.phases === 3 && way.device.poles < 3 && phase?.length === 1;
+      return { id: way.id, device: onePhase ? { ...way.device, phase: phase[0] } : way.device, circuit: way.circuit };
+    }),
+  };
+}
 
 /** Just the settings of a board row or DTO (for snapshots, sizing and saves). */
 export function settingsOf(board: BoardSettings): BoardSettings {

@@ -6,7 +6,8 @@ import type { Actor } from '@/lib/auth/session';
 import type { BoardSnapshot, SnapshotWay } from '@/lib/boards/revision-diff';
 import { settingsOf } from '@/lib/boards/schemas';
 import { env } from '@/lib/env';
-import { Board, Organisation, Site, Way } from '@/models';
+import { readWays } from '@/lib/dal/board-repository';
+import { Board, Organisation, Site } from '@/models';
 
 export function snapshotWay(way: SnapshotWay): SnapshotWay {
   return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
@@ -22,17 +23,13 @@ export async function liveSnapshot(actor: Actor, board: Board, transaction?: Tra
   // One after another: inside a transaction they share one connection, and pg refuses
   // (from pg 9) a query sent while another is running on it
   const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
-  const ways = await Way.findAll({
-    where: { boardId: board.id },
-    order: [['rail', 'ASC'], ['position', 'ASC']],
-    transaction,
-  });
+  const ways = await readWays(board.id, transaction);
   const orgName = await organisationName(actor, transaction);
   return {
     settings: settingsOf(board),
     siteName: site?.name ?? '',
     organisationName: orgName,
-    ways: ways.map((w) => snapshotWay(w as unknown as SnapshotWay)),
+    ways: ways.map(snapshotWay),
   };
 }
 

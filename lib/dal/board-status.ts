@@ -3,20 +3,21 @@ import 'server-only';
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
-import { settingsOf, type WayInput } from '@/lib/boards/schemas';
+import { settingsOf } from '@/lib/boards/schemas';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import { transition } from '@/lib/boards/lifecycle';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { boardDto, findWritableBoard } from '@/lib/dal/boards';
+import { readBoard, readWays } from '@/lib/dal/board-repository';
+import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices } from '@/lib/dal/notices';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import type { ReviewRequestedFacts } from '@/lib/mail/templates';
 import { nameWaysIn } from '@/lib/names';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
-import { Site, Way } from '@/models';
+import { Site } from '@/models';
 
 /** One way that stops a board going for review, as the refusal lists it. */
 export type FailingWay = {
@@ -30,16 +31,6 @@ export type FailingWay = {
 
 /** A board-level check that fails (incoming device, busbar, modules, poles). */
 export type FailingBoardCheck = { code: string; message: string; reference: string };
-
-function waysOf(rows: Way[]): WayInput[] {
-  return rows.map((w) => ({
-    id: w.id,
-    rail: w.rail,
-    position: w.position,
-    device: w.device as WayInput['device'],
-    circuit: w.circuit as WayInput['circuit'],
-  }));
-}
 
 /**
  * Sends a draft board for review: the stored board is sized again, and a board with a failing
@@ -58,7 +49,7 @@ export async function submitBoard(
   expectedVersion?: number,
 ): Promise<BoardDto> {
   const sequelize = db();
-  const result = await sequelize.transaction(async (transaction) => {
+  await sequelize.transaction(async (transaction) => {
     // The board, locked, in the caller's organisation, not archived; its stage first (a board
     // already in review or issued says so, whatever version the caller held), then the version
     const board = await findWritableBoard(actor, boardId, transaction);
@@ -69,8 +60,7 @@ export async function submitBoard(
         currentVersion: board.version,
       });
     }
-    const rows = await Way.findAll({ where: { boardId }, transaction });
-    const ways = waysOf(rows);
+    const ways = await readWays(boardId, transaction);
 
     // Size the stored board exactly as the sizing route does
     const settings = settingsOf(board);
@@ -124,7 +114,6 @@ export async function submitBoard(
       boardChecks,
     };
     await queueNotices(step, board, { 'review-requested': reviewRequested }, transaction);
-    return { board, siteName: site?.name ?? '', rows };
   });
-  return boardDto(result.board, result.siteName, result.rows);
+  return readBoard(actor, boardId);
 }

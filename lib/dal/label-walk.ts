@@ -10,6 +10,7 @@ import { deviceName } from '@/lib/names';
 import { db } from '@/lib/db';
 import { listAttachments, type AttachmentDto } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
+import { readBoard } from '@/lib/dal/board-repository';
 import { assertNotArchived, findBoard } from '@/lib/dal/boards';
 import { conflict, notFound } from '@/lib/errors';
 import { Site, User, Way } from '@/models';
@@ -171,12 +172,9 @@ export async function labelProblems(
   actor: Actor,
   boardId: string,
 ): Promise<{ wayId: string; ref: string | null; status: 'wrong' | 'missing'; note: string }[]> {
-  const board = await findBoard(actor, boardId);
-  const ways = await Way.findAll({ where: { boardId } });
-  const refs = new Map(
-    layoutWays(board.phases, ways as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
-  );
-  return railOrder(ways)
+  const board = await readBoard(actor, boardId);
+  const refs = new Map(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  return board.ways
     .filter((w) => w.labelStatus === 'wrong' || w.labelStatus === 'missing')
     .map((w) => ({
       wayId: w.id,

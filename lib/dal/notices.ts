@@ -5,10 +5,10 @@ import { Op, type Transaction } from 'sequelize';
 import { can } from '@/lib/auth/permissions';
 import type { LifecycleNotice, LifecycleStep } from '@/lib/boards/lifecycle';
 import { layoutWays } from '@/lib/boards/layout';
-import type { SnapshotWay } from '@/lib/boards/revision-diff';
+import { readWays } from '@/lib/dal/board-repository';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { renderNotice, type MailComment, type NoticeFacts } from '@/lib/mail/templates';
-import { AuditEvent, Board, Comment, User, Way } from '@/models';
+import { AuditEvent, Board, Comment, User } from '@/models';
 
 export type Recipient = { email: string; name: string };
 
@@ -74,8 +74,8 @@ export async function revisionComments(board: Board, transaction: Transaction): 
     order: [['createdAt', 'ASC']],
     transaction,
   });
-  const ways = await Way.findAll({ where: { boardId: board.id }, transaction });
-  const refs = new Map(layoutWays(board.phases, ways as unknown as SnapshotWay[]).map((p) => [p.id, p.label]));
+  const ways = await readWays(board.id, transaction);
+  const refs = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
   return comments.map((c) => ({
     wayId: c.wayId,
     wayRef: c.wayId ? (refs.get(c.wayId) ?? null) : null,

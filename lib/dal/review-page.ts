@@ -5,7 +5,7 @@ import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
 import type { BoardDto } from '@/lib/boards/types';
 import { organisationName } from '@/lib/dal/board-snapshot';
-import { sizeStoredBoard } from '@/lib/dal/board-sizing';
+import { readSizedBoard } from '@/lib/dal/board-repository';
 import { findBoard, getBoard } from '@/lib/dal/boards';
 import { listComments, type CommentDto } from '@/lib/dal/comments';
 import { issueRefusalFor, type IssuePreview } from '@/lib/dal/issue-and-return';
@@ -30,13 +30,13 @@ export type ReviewData = {
 /** The review page's data: the board, its sizing, comments and issued revisions. */
 export async function getReview(actor: Actor, boardId: string): Promise<ReviewData> {
   const board = await getBoard(actor, boardId);
-  const [orgName, comments, revisions, row] = await Promise.all([
+  const [orgName, comments, revisions, row, { sizing, issues }] = await Promise.all([
     organisationName(actor),
     listComments(actor, boardId),
     listRevisions(actor, boardId),
     findBoard(actor, boardId),
+    readSizedBoard(actor, boardId),
   ]);
-  const { sizing, issues } = sizeStoredBoard(board);
   const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
   const counts = sizing?.summary.counts;
   const issue: IssuePreview = {

@@ -5,11 +5,11 @@ import type { Actor } from '@/lib/auth/session';
 import { isIssued } from '@/lib/boards/lifecycle';
 import type { BoardSnapshot } from '@/lib/boards/revision-diff';
 import { boardUrl, liveSnapshot } from '@/lib/dal/board-snapshot';
-import { sizeSnapshot } from '@/lib/dal/board-sizing';
+import { readBoard, readSizedBoard } from '@/lib/dal/board-repository';
 import { findBoard } from '@/lib/dal/boards';
 import { forbidden, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
-import { BoardRevision, User, Way } from '@/models';
+import { BoardRevision, User } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { LabelStatus } from '@/models/way';
 
@@ -62,10 +62,7 @@ export async function getScheduleSource(
     // The walk checks the board as built, which is the current issued revision
     let labels: ScheduleSource['labels'] = null;
     if (issuedNow && row.revision === board.revision) {
-      const ways = await Way.findAll({
-        where: { boardId },
-        attributes: ['id', 'labelStatus', 'labelNote'],
-      });
+      const { ways } = await readBoard(actor, boardId);
       const inSnapshot = new Set(snapshot.ways.map((w) => w.id));
       labels = Object.fromEntries(
         ways.filter((w) => inSnapshot.has(w.id)).map((w) => [w.id, { status: w.labelStatus, note: w.labelNote }]),
@@ -90,8 +87,7 @@ export async function getScheduleSource(
   }
   if (target !== board.revision) throw notFound(`Revision ${target}`);
   if (!draftsAllowed) throw forbidden('print a board that has not been issued');
-  const snapshot = await liveSnapshot(actor, board);
-  const { sizing, issues } = sizeSnapshot(snapshot);
+  const [snapshot, { sizing, issues }] = await Promise.all([liveSnapshot(actor, board), readSizedBoard(actor, boardId)]);
   return {
     boardId,
     boardUrl: url,

@@ -49,7 +49,6 @@ const liveBoards = { deletedAt: null, archivedAt: null };
 
 /** The organisation's live sites (or, with `archived`, the archived ones) with their board counts. */
 export async function listSites(actor: Actor, opts: { archived?: boolean } = {}): Promise<SiteSummary[]> {
-  db();
   const sites = await Site.findAll({
     where: { organisationId: actor.organisationId, archivedAt: opts.archived ? { [Op.ne]: null } : null },
     order: [['name', 'ASC']],
@@ -65,7 +64,6 @@ export async function listSites(actor: Actor, opts: { archived?: boolean } = {})
 
 /** One site of the caller's organisation, or 404. */
 export async function findSite(actor: Actor, siteId: string): Promise<Site> {
-  db();
   const where: WhereOptions = { id: siteId, organisationId: actor.organisationId };
   const site = await Site.findOne({ where });
   if (!site) throw notFound('The site');

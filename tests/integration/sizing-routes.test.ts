@@ -1,5 +1,6 @@
 import crypto from 'node:crypto';
 
+import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
 
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
@@ -8,6 +9,7 @@ import * as sizingRoute from '@/app/api/sizing/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
 import type { BoardResult, CircuitResult } from '@/lib/sizing';
+import { db } from '@/lib/db';
 import { Board, Way } from '@/models';
 import { demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
 
@@ -140,7 +142,7 @@ describe('POST /api/boards/:boardId/sizing', () => {
     );
   });
 
-  describe('the stored board, sized once per stored state', () => {
+  describe('the stored board, its sizing stored with it', () => {
     const sizeStored = async (boardId: string) => {
       const res = await boardSizingRoute.POST(jsonRequest('POST'), ctx({ boardId }));
       expect(res.status).toBe(200);
@@ -187,26 +189,44 @@ describe('POST /api/boards/:boardId/sizing', () => {
       expect(after).toEqual(await sizeDraft(await load(board.id)));
     });
 
-    it('sizes afresh a board that is back at a version number it had, with other ways (as after a restore)', async () => {
+    it('follows a way written behind the app’s back: the database raises the board’s version', async () => {
       const { board, before, target, first } = await sizedWorkshop();
-      // Written behind the app's back: same version number, other circuit, later updated_at
       await Way.update({ circuit: { ...target.circuit!, lengthM: 33 } }, { where: { id: target.id } });
-      await Board.update({ version: before.version, name: `${before.name} ` }, { where: { id: board.id } });
       const now = await load(board.id);
-      expect(now.version).toBe(before.version);
+      expect(now.version).toBe(before.version + 1);
       const after = await sizeStored(board.id);
       expect(dropOf(after, target.id)).not.toBe(dropOf(first, target.id));
       expect(after).toEqual(await sizeDraft(now));
     });
 
-    it('keeps the answer while the board row is not written (so every write path must raise its version)', async () => {
-      const { board, target, first } = await sizedWorkshop();
-      // A way changed behind the app's back, the board row left alone: the kept answer stands
+    it('is read back as stored, not sized again, until the design changes', async () => {
+      const { board, target } = await sizedWorkshop();
+      const stored = () => db().query('SELECT version, sizing::text AS sizing FROM board_sizings WHERE board_id = $1', {
+        bind: [board.id],
+        type: QueryTypes.SELECT,
+      }) as Promise<{ version: number; sizing: string }[]>;
+      // What the route answers is the stored text itself: a marker put in its place comes back
+      await db().query(`UPDATE board_sizings SET sizing = '{"marker":"stored"}' WHERE board_id = $1`, { bind: [board.id] });
+      expect(await sizeStored(board.id)).toEqual({ marker: 'stored' });
+      // A label check is not a change of the design: the board keeps its version and its sizing
+      await Way.update({ labelStatus: 'matches' }, { where: { id: target.id } });
+      expect(await sizeStored(board.id)).toEqual({ marker: 'stored' });
+      // A change of a way's circuit raises the version: the marker is no longer current
       await Way.update({ circuit: { ...target.circuit!, lengthM: 44 } }, { where: { id: target.id } });
-      expect(await sizeStored(board.id)).toEqual(first);
-      // Once the board row is written (as every save does), the change is seen
-      await Board.update({ version: (await load(board.id)).version + 1 }, { where: { id: board.id } });
-      expect(dropOf(await sizeStored(board.id), target.id)).not.toBe(dropOf(first, target.id));
+      const resized = await sizeStored(board.id);
+      expect(resized).not.toEqual({ marker: 'stored' });
+      expect(dropOf(resized, target.id)).toBeGreaterThan(0);
+      // A save stores the new sizing in its own transaction, before anyone asks for it
+      const opened = await load(board.id);
+      const ways = opened.ways.map((w) =>
+        w.id === target.id ? { ...w, circuit: { ...w.circuit!, lengthM: 12 } } : w,
+      );
+      const saved = await boardRoute.PUT(jsonRequest('PUT', saveBodyOf({ ...opened, ways })), ctx({ boardId: board.id }));
+      expect(saved.status).toBe(200);
+      const [row] = await stored();
+      expect(row.version).toBe(opened.version + 1);
+      expect(JSON.parse(row.sizing)).toEqual(await sizeDraft(await load(board.id)));
+      expect(dropOf(JSON.parse(row.sizing), target.id)).toBeLessThan(dropOf(resized, target.id)!);
     });
 
     it('refuses a stored board the engine cannot size with 400 and field paths', async () => {

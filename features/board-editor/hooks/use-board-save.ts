@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useRef } from 'react';
 
 import { errorMessage } from '@/lib/api/client';
+import { saveInputOf } from '@/lib/boards/schemas';
 import type { BoardDto } from '@/lib/boards/types';
 
 import { fetchBoard, saveDraft } from '../api/board-editor-api';
@@ -18,14 +19,7 @@ export const RETRY_FIRST_MS = 5000;
 
 /** The editor's view of a board from the API. */
 export function editorBoard(board: BoardDto): EditorBoard {
-  const { id, version, status, name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = board;
-  return {
-    id,
-    version,
-    status,
-    settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
-    ways: board.ways.map(({ id: wayId, rail, position, device, circuit }) => ({ id: wayId, rail, position, device, circuit })),
-  };
+  return { id: board.id, status: board.status, ...saveInputOf(board) };
 }
 
 /**

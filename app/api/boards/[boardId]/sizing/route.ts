@@ -1,12 +1,9 @@
 import { z } from 'zod';
 
-import { defineRoute, fieldIssues } from '@/lib/api/handler';
+import { defineRoute } from '@/lib/api/handler';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
-import { boardSizingInput } from '@/lib/boards/sizing-input';
-import { storedBoardSizing } from '@/lib/dal/board-sizing';
-import { requireBoard } from '@/lib/dal/boards';
+import { readStoredSizing, requireBoard, sizeDesign } from '@/lib/dal/board-repository';
 import { badRequest } from '@/lib/errors';
-import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
 /** The body is optional: empty sizes the stored board; `draft` sizes unsaved edits. */
 const bodySchema = z
@@ -25,17 +22,17 @@ export const POST = defineRoute({
   params: idParamsSchema,
   body: bodySchema,
   handler: async ({ actor, params: { boardId }, body }) => {
-    // The stored board: sized once per stored state (see `storedBoardSizing`)
+    // The stored board: its sizing is stored with it (see `readStoredSizing`)
     if (!body?.draft) {
-      const stored = await storedBoardSizing(actor, boardId);
-      if (!stored.sizing) throw badRequest(stored.issues);
-      return new Response(stored.body, { headers: { 'content-type': 'application/json' } });
+      const stored = await readStoredSizing(actor, boardId);
+      if (stored.json === null) throw badRequest(stored.issues);
+      return new Response(stored.json, { headers: { 'content-type': 'application/json' } });
     }
     // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
     // that feed none) as field issues
     await requireBoard(actor, boardId);
-    const checked = boardInputSchema.safeParse(boardSizingInput(body.draft.settings, body.draft.ways));
-    if (!checked.success) throw badRequest(fieldIssues(checked.error));
-    return Response.json(sizeBoard(checked.data));
+    const { sizing, issues } = sizeDesign({ ...body.draft.settings, ways: body.draft.ways });
+    if (!sizing) throw badRequest(issues);
+    return Response.json(sizing);
   },
 });

@@ -1,0 +1,103 @@
+import crypto from 'node:crypto';
+
+import { beforeAll, describe, expect, it } from 'vitest';
+
+import * as boardRoute from '@/app/api/boards/[boardId]/route';
+import { saveBodyOf } from '@/app/api/route-table';
+import type { Actor } from '@/lib/auth/session';
+import { readBoard } from '@/lib/dal/board-repository';
+import { renameBoard } from '@/lib/dal/boards';
+import { db } from '@/lib/db';
+import { AuditEvent, Board, Way } from '@/models';
+
+import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
+
+type Org = Awaited<ReturnType<typeof makeOrganisation>>;
+let team: Org;
+let actor: Actor;
+
+beforeAll(async () => {
+  team = await makeOrganisation('Repository');
+  const { designer } = team.users;
+  actor = { userId: designer.id, organisationId: team.org.id, role: 'designer', name: designer.name, email: designer.email };
+});
+
+const stampOf = async (boardId: string) => {
+  const row = (await Board.findByPk(boardId, { attributes: ['version', 'updatedAt'] }))!;
+  return { version: row.version, updatedAt: row.updatedAt.getTime() };
+};
+const eventsOf = async (boardId: string) =>
+  (await AuditEvent.findAll({ where: { boardId }, order: [['id', 'ASC']] })).map((e) => e.action);
+
+describe('the board repository’s write', () => {
+  it('writes the change and its audit rows together, and the version moves on by one', async () => {
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const before = await readBoard(actor, board.id);
+    const after = await renameBoard(actor, board.id, { name: 'Flat board, renamed' });
+    expect(after.name).toBe('Flat board, renamed');
+    expect(after.version).toBe(before.version + 1);
+    const events = await AuditEvent.findAll({ where: { boardId: board.id, action: 'board.renamed' } });
+    expect(events.map((e) => [e.userId, e.details])).toEqual([[actor.userId, { name: 'Flat board, renamed' }]]);
+  });
+
+  it('a save writes one audit row per way touched and one for the board, in the same transaction', async () => {
+    signInAs(team.users.designer);
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const opened = await readBoard(actor, board.id);
+    const [first, second] = opened.ways.filter((w) => w.circuit);
+    const ways = opened.ways
+      .filter((w) => w.id !== first.id)
+      .map((w) => (w.id === second.id ? { ...w, circuit: { ...w.circuit!, lengthM: w.circuit!.lengthM + 2 } } : w));
+    const res = await boardRoute.PUT(jsonRequest('PUT', saveBodyOf({ ...opened, ways })), ctx({ boardId: board.id }));
+    expect(res.status).toBe(200);
+    expect(await eventsOf(board.id)).toEqual(['way.removed', 'way.changed', 'board.saved']);
+    expect((await readBoard(actor, board.id)).version).toBe(opened.version + 1);
+
+    // A save refused by the database (a new way reusing an existing way's id) writes no audit row either
+    const other = await makeBoard(team.org.id, 'flat');
+    const theirWay = (await Way.findOne({ where: { boardId: other.board.id } }))!;
+    const now = await readBoard(actor, board.id);
+    const stolen = { ...now.ways[0], id: theirWay.id, rail: 1, position: 0 };
+    const refused = await boardRoute.PUT(
+      jsonRequest('PUT', saveBodyOf({ ...now, rails: 2, ways: [...now.ways, stolen] })),
+      ctx({ boardId: board.id }),
+    );
+    expect(refused.status).toBe(409);
+    expect(await eventsOf(board.id)).toEqual(['way.removed', 'way.changed', 'board.saved']);
+    expect((await readBoard(actor, board.id)).version).toBe(now.version);
+  });
+});
+
+describe('the database raises a board’s version (migration 0008)', () => {
+  it('on a direct UPDATE of the board row, once per transaction', async () => {
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const before = await stampOf(board.id);
+    await db().query('UPDATE boards SET location = $2 WHERE id = $1', { bind: [board.id, 'Under the stairs'] });
+    const once = await stampOf(board.id);
+    expect(once.version).toBe(before.version + 1);
+    expect(once.updatedAt).toBeGreaterThan(before.updatedAt);
+    await db().transaction(async (transaction) => {
+      await db().query('UPDATE boards SET location = $2 WHERE id = $1', { bind: [board.id, 'Hall'], transaction });
+      await db().query('UPDATE boards SET name = $2 WHERE id = $1', { bind: [board.id, 'Hall board'], transaction });
+    });
+    expect((await stampOf(board.id)).version).toBe(once.version + 1);
+  });
+
+  it('on a write of a way’s place, device or circuit, but not of its label check', async () => {
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const way = (await Way.findOne({ where: { boardId: board.id, position: 1 } }))!;
+    const v0 = (await stampOf(board.id)).version;
+    await db().query(`UPDATE ways SET label_status = 'matches', label_note = 'ok' WHERE id = $1`, { bind: [way.id] });
+    expect((await stampOf(board.id)).version).toBe(v0);
+    await db().query('UPDATE ways SET position = 60 WHERE id = $1', { bind: [way.id] });
+    expect((await stampOf(board.id)).version).toBe(v0 + 1);
+    await db().query('DELETE FROM ways WHERE id = $1', { bind: [way.id] });
+    expect((await stampOf(board.id)).version).toBe(v0 + 2);
+    await db().query(
+      `INSERT INTO ways (id, board_id, rail, position, device, circuit, label_status, label_note, created_at, updated_at)
+       VALUES ($1, $2, 0, 61, $3::jsonb, null, 'unchecked', '', now(), now())`,
+      { bind: [crypto.randomUUID(), board.id, JSON.stringify({ kind: 'blank', poles: 1, modules: 1 })] },
+    );
+    expect((await stampOf(board.id)).version).toBe(v0 + 3);
+  });
+});
