@@ -156,7 +156,7 @@ describe('PostgreSQL stopped mid-run', () => {
     const changed = body.ways.find((w) => w.circuit)!;
     changed.circuit = { ...changed.circuit!, lengthM: 77 };
 
-    // Hold a lock on the changed way, so the save's statement stops after writing the board row
+    // Hold a lock on the changed way, so the save's transaction stops after writing the board row
     // and deleting the removed way, while it waits to update that way
     const holder = new pg.Client({ connectionString: FAULT.url });
     holder.on('error', () => undefined);
@@ -165,7 +165,7 @@ describe('PostgreSQL stopped mid-run', () => {
     await holder.query('select id from ways where id = $1 for update', [changed.id]);
 
     const pending = boardRoute.PUT(jsonRequest('PUT', body), ctx({ boardId }));
-    // Wait until the save's statement is blocked on the locked row (watched from a
+    // Wait until the save's update of the ways is blocked on the locked row (watched from a
     // connection outside any transaction: pg_stat_activity is a per-transaction snapshot)
     const watcher = new pg.Client({ connectionString: FAULT.url });
     watcher.on('error', () => undefined);
@@ -175,7 +175,7 @@ describe('PostgreSQL stopped mid-run', () => {
       const { rows } = await watcher.query(
         `select count(*)::int as n from pg_stat_activity
           where wait_event_type = 'Lock' and datname = $1
-            and query ilike '%update boards set%'`,
+            and query ilike '%update ways set%'`,
         [FAULT.db],
       );
       blocked = rows[0].n > 0;
