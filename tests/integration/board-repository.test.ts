@@ -3,7 +3,7 @@ import crypto from 'node:crypto';
 import { beforeAll, describe, expect, it } from 'vitest';
 
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
-import { saveBodyOf } from '@/app/api/route-table';
+import { saveBodyOf } from '@/lib/api/save-body';
 import type { Actor } from '@/lib/auth/session';
 import { readBoard } from '@/lib/dal/board-repository';
 import { renameBoard } from '@/lib/dal/boards';

@@ -10,7 +10,8 @@ import { buildSchedule } from '@/features/schedule/utils/build-schedule';
 import { boardQrCode } from '@/features/schedule/utils/qr-code';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
-import { boardStage, getScheduleSource, listRevisions } from '@/lib/dal/review';
+import { boardStage, listRevisions } from '@/lib/dal/revisions';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
 import { HttpError } from '@/lib/errors';
 
 export const metadata = { title: 'Schedule' };
