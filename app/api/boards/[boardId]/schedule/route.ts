@@ -1,4 +1,4 @@
-import { pdfHeaders, renderSchedulePdf } from '@/features/schedule/render-schedule';
+import { pdfResponse, printPdf } from '@/features/schedule/print/print-files';
 import { parsePrintQuery } from '@/features/schedule/utils/print-query';
 import { parseParams, route } from '@/lib/api/handler';
 import { requireActor } from '@/lib/auth/session';
@@ -17,7 +17,6 @@ export const GET = route<{ boardId: string }>(async (req, params) => {
   const actor = await requireActor('schedule.print');
   // The board state to print (ownership and the installers' rule in the DAL)
   const source = await getScheduleSource(actor, boardId, query.revision);
-  // Render
-  const { pdf, fileName } = await renderSchedulePdf(source);
-  return new Response(pdf as BodyInit, { headers: pdfHeaders(fileName, query.download === '1') });
+  // The stored file of an issued revision, else rendered in the print pool (and stored when issued)
+  return pdfResponse(await printPdf('schedule', source), query.download === '1');
 });
