@@ -105,6 +105,16 @@ describe('an issued revision', () => {
     expect(second.res.headers.get('content-length')).toBe(String(first.bytes.byteLength));
   });
 
+  it('is rendered once when several ask for it before it is stored', async () => {
+    const board = await issuedBoard();
+    signInAs(team.users.installer);
+    const before = renders.mock.calls.length;
+    const answers = await Promise.all([1, 2, 3].map(() => download(scheduleRoute, board.id)));
+    expect(renders.mock.calls.length).toBe(before + 1);
+    for (const a of answers) expect(Buffer.from(a.bytes).equals(Buffer.from(answers[0].bytes))).toBe(true);
+    expect((await download(scheduleRoute, board.id)).timing).toMatch(/^stored;/);
+  });
+
   it('gets a new schedule file when a label is checked on the walk, and keeps its label strips', async () => {
     const board = await issuedBoard();
     signInAs(team.users.installer);

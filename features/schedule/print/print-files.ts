@@ -1,14 +1,13 @@
 import 'server-only';
 
 import crypto from 'node:crypto';
-import fs from 'node:fs';
 
 import type { ScheduleSource } from '@/lib/dal/review';
 import { getObjectStream, putObject } from '@/lib/storage/s3';
 
 import { formatDate } from '../utils/build-schedule';
 import type { PrintJob, RenderedPdf } from './print-job';
-import { printWorkerFile, renderInPool } from './print-pool';
+import { renderInPool } from './print-pool';
 
 /**
  * A printed PDF ready to answer: the stored file's stream, or freshly rendered bytes, and how
@@ -46,12 +45,12 @@ export function storedKey(kind: PrintJob['kind'], source: ScheduleSource, now: D
 }
 
 /**
- * Renders off the request's event loop: in the print pool's worker threads. Only when no
- * worker file was built (`next dev`, a test that did not build one) and not in production,
- * the render runs in this process instead.
+ * Renders off the request's event loop: in the print pool's worker threads. Outside production
+ * (`next dev`, tests) only when PRINT_WORKER_FILE names a bundled worker, else in this process:
+ * a worker left in the build folder by an older build must never render for the code under test.
  */
 async function render(job: PrintJob): Promise<RenderedPdf> {
-  if (process.env.NODE_ENV !== 'production' && !fs.existsSync(printWorkerFile())) {
+  if (process.env.NODE_ENV !== 'production' && !process.env.PRINT_WORKER_FILE) {
     const { default: renderHere } = await import('./print-worker');
     return renderHere(job);
   }
@@ -64,16 +63,36 @@ async function render(job: PrintJob): Promise<RenderedPdf> {
  */
 export async function printPdf(kind: PrintJob['kind'], source: ScheduleSource, now = new Date()): Promise<PrintedPdf> {
   const fileName = fileNameOf(kind, source);
-  const key = source.frozen ? storedKey(kind, source, now) : null;
-  if (key) {
-    const found = await getObjectStream(key);
-    if (found) return { body: found.body, length: found.length, fileName, made: 'stored', renderMs: 0 };
+  const job = { kind, source, now: now.toISOString() };
+  if (!source.frozen) return rendered(await timed(job), fileName);
+  const key = storedKey(kind, source, now);
+  const found = await getObjectStream(key);
+  if (found) return { body: found.body, length: found.length, fileName, made: 'stored', renderMs: 0 };
+  // Requests for a file not yet stored wait for the one render of it under way in this process
+  let pending = storing.get(key);
+  if (!pending) {
+    pending = timed(job)
+      .then(async (out) => {
+        await putObject(key, out.pdf, 'application/pdf');
+        return out;
+      })
+      .finally(() => storing.delete(key));
+    storing.set(key, pending);
   }
+  return rendered(await pending, fileName);
+}
+
+/** Renders of issued files under way in this process, by storage key (removed when stored). */
+const storing = new Map<string, Promise<RenderedPdf & { renderMs: number }>>();
+
+async function timed(job: PrintJob): Promise<RenderedPdf & { renderMs: number }> {
   const started = performance.now();
-  const { pdf } = await render({ kind, source, now: now.toISOString() });
-  const renderMs = performance.now() - started;
-  if (key) await putObject(key, pdf, 'application/pdf');
-  return { body: pdf, length: pdf.byteLength, fileName, made: 'rendered', renderMs };
+  const out = await render(job);
+  return { ...out, renderMs: performance.now() - started };
+}
+
+function rendered(out: RenderedPdf & { renderMs: number }, fileName: string): PrintedPdf {
+  return { body: out.pdf, length: out.pdf.byteLength, fileName, made: 'rendered', renderMs: out.renderMs };
 }
 
 /** The PDF's bytes (for an e-mail attachment). */
