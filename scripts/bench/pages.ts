@@ -65,7 +65,8 @@ type Run = { name: string; url: string; cookie: string; connections?: number };
 async function settle(): Promise<void> {
   for (let i = 0; i < 120; i++) {
     const started = performance.now();
-    await fetch(`${baseUrl}/login`).then((r) => r.arrayBuffer());
+    const ok = await fetch(`${baseUrl}/login`).then((r) => r.arrayBuffer().then(() => true), () => false);
+    if (!ok) continue;
     if (performance.now() - started < 500) return;
   }
 }
