@@ -22,11 +22,13 @@ trap cleanup EXIT INT TERM
 node_modules/.bin/tsx scripts/migrate.ts up
 node_modules/.bin/tsx scripts/seed.ts
 if [ "${SKIP_BUILD:-0}" != 1 ] || [ ! -f .next/BUILD_ID ]; then
-  node_modules/.bin/next build
+  npm run --silent build
+elif [ ! -f .next/print-worker.mjs ]; then
+  node scripts/build-print-worker.mjs
 fi
 
 echo
-echo "Boardwright is starting on $APP_URL, one worker per core (Ctrl-C stops it and the services)."
-setsid node scripts/serve.mjs -H 127.0.0.1 -p "$APP_PORT" &
+echo "Boardwright is starting on $APP_URL (Ctrl-C stops it and the services)."
+setsid bash scripts/serve.sh -H 127.0.0.1 -p "$APP_PORT" &
 APP_PID=$!
 wait "$APP_PID"

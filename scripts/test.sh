@@ -82,10 +82,10 @@ node_modules/.bin/vitest run --project unit --project components --project integ
   --reporter=default --reporter=json --outputFile.json="$RESULTS/fast.json" || status=1
 
 echo "== build"
-if node_modules/.bin/next build > "$RESULTS/build.log" 2>&1; then
+if npm run --silent build > "$RESULTS/build.log" 2>&1; then
   node scripts/first-load-js.mjs || true
   echo "== browser tests (chromium against the built app on $APP_URL)"
-  setsid node scripts/serve.mjs -H 127.0.0.1 -p "$APP_PORT" > "$RESULTS/server.log" 2>&1 &
+  setsid bash scripts/serve.sh -H 127.0.0.1 -p "$APP_PORT" > "$RESULTS/server.log" 2>&1 &
   APP_PID=$!
   export APP_PID
   for _ in $(seq 1 100); do

@@ -11,7 +11,7 @@ import { printFontMeasure, registerPrintFonts } from './utils/fonts';
 import { paginateSchedule } from './utils/paginate-schedule';
 import { boardQrCode } from './utils/qr-code';
 
-export type RenderedPdf = { pdf: Uint8Array; fileName: string };
+import type { RenderedPdf } from './print/print-job';
 
 /** The board schedule PDF (A4 landscape) of a board state. */
 export async function renderSchedulePdf(source: ScheduleSource, now = new Date()): Promise<RenderedPdf> {
@@ -30,13 +30,4 @@ export async function renderLabelStripsPdf(source: ScheduleSource): Promise<Rend
   const element = createElement(LabelStripsDocument, { sheet }) as unknown as ReactElement<DocumentProps>;
   const buffer = await renderToBuffer(element);
   return { pdf: new Uint8Array(buffer), fileName: sheet.fileName };
-}
-
-/** Headers for a PDF answer: inline (view in the browser) or as a download. */
-export function pdfHeaders(fileName: string, download: boolean): HeadersInit {
-  return {
-    'Content-Type': 'application/pdf',
-    'Content-Disposition': `${download ? 'attachment' : 'inline'}; filename="${fileName}"`,
-    'Cache-Control': 'private, no-store',
-  };
 }

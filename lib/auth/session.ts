@@ -1,6 +1,6 @@
 import 'server-only';
 
-import cluster from 'node:cluster';
+import { cache } from 'react';
 
 import { ACTION_WORDS, can, type Action } from '@/lib/auth/permissions';
 import { sessionUserId } from '@/lib/auth/session-cookie';
@@ -19,58 +19,14 @@ export type Actor = {
 };
 
 /**
- * Members read in the last few seconds, by id. A role change or a deactivation reaches the
- * other workers of this server at once (scripts/serve.mjs relays the message) and other
- * servers within ACTOR_CACHE_MS (default 5 s); meanwhile a burst of API calls costs one
- * lookup instead of one each. The map lives on globalThis: route handlers and pages are
- * bundled apart, and a change made from one must clear the other's entry too.
+ * Reads the session and the member's current record, once per request: a role change or a
+ * deactivation takes effect on the member's next request, on every instance. React's `cache`
+ * shares the answer between the layout and the page of one page render; outside a render
+ * (a route handler, a test) each call reads the record again, which is still one read per request.
  */
-type Recent = Map<string, { actor: Actor | null; until: number }>;
-const holder = globalThis as unknown as { boardwrightRecentActors?: Recent };
-const recent: Recent = (holder.boardwrightRecentActors ??= listenForForgets(new Map()));
-
-const FORGET = 'boardwright:broadcast';
-
-/** Clears entries that another worker of this server asks to forget. */
-function listenForForgets(map: Recent): Recent {
-  if (cluster.isWorker) {
-    process.on('message', (message: { type?: string; forgetActor?: unknown }) => {
-      if (message?.type === FORGET && typeof message.forgetActor === 'string') map.delete(message.forgetActor);
-    });
-  }
-  return map;
-}
-
-function cacheMs(): number {
-  const ms = Number(process.env.ACTOR_CACHE_MS ?? 5_000);
-  return Number.isFinite(ms) && ms >= 0 ? ms : 5_000;
-}
-
-/** Forgets a member's cached record (after a role change or deactivation), in every worker. */
-export function forgetActor(userId: string): void {
-  recent.delete(userId);
-  if (cluster.isWorker) process.send?.({ type: FORGET, forgetActor: userId });
-}
-
-/**
- * Reads the session and the member's current record, so that a role change or a
- * deactivation takes effect within seconds, not when the token expires.
- */
-export async function getActor(): Promise<Actor | null> {
+export const getActor = cache(async (): Promise<Actor | null> => {
   const id = await sessionUserId();
   if (!id) return null;
-  const hit = recent.get(id);
-  if (hit && hit.until > Date.now()) return hit.actor;
-  const actor = await loadActor(id);
-  const ttl = cacheMs();
-  if (ttl > 0) {
-    if (recent.size > 10_000) recent.clear();
-    recent.set(id, { actor, until: Date.now() + ttl });
-  }
-  return actor;
-}
-
-async function loadActor(id: string): Promise<Actor | null> {
   db();
   const user = await User.findByPk(id, {
     attributes: ['id', 'organisationId', 'role', 'name', 'email', 'active'],
@@ -83,7 +39,7 @@ async function loadActor(id: string): Promise<Actor | null> {
     name: user.name,
     email: user.email,
   };
-}
+});
 
 /** The actor, or a 401 when signed out and a 403 when the role may not perform `action`. */
 export async function requireActor(action?: Action): Promise<Actor> {

@@ -8,10 +8,12 @@ export const FAILURES_PER_ADDRESS = 30;
 const WINDOW_S = 15 * 60;
 
 type Limiters = { account: RateLimiterPostgres; address: RateLimiterPostgres };
-const holder = globalThis as unknown as { boardwrightSignInLimiters?: Limiters };
+// Made on first use. The counts live in PostgreSQL (sign_in_limits), so every process and every
+// instance counts against the same limits; only these client objects are per process.
+let made: Limiters | undefined;
 
 function limiters(): Limiters {
-  if (holder.boardwrightSignInLimiters) return holder.boardwrightSignInLimiters;
+  if (made) return made;
   const common = {
     storeClient: db(),
     storeType: 'sequelize',
@@ -20,11 +22,11 @@ function limiters(): Limiters {
     clearExpiredByTimeout: false,
     duration: WINDOW_S,
   };
-  holder.boardwrightSignInLimiters = {
+  made = {
     account: new RateLimiterPostgres({ ...common, keyPrefix: 'acct', points: FAILURES_PER_ACCOUNT }),
     address: new RateLimiterPostgres({ ...common, keyPrefix: 'addr', points: FAILURES_PER_ADDRESS }),
   };
-  return holder.boardwrightSignInLimiters;
+  return made;
 }
 
 export class SignInLockedError extends Error {}

@@ -5,7 +5,7 @@ import crypto from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import { Op } from 'sequelize';
 
-import { forgetActor, type Actor } from '@/lib/auth/session';
+import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { env } from '@/lib/env';
@@ -152,7 +152,6 @@ export async function updateMember(actor: Actor, userId: string, input: MemberUp
     await user.update(input, { transaction });
     await audit(actor, 'member.changed', { userId, ...input }, { transaction });
   });
-  forgetActor(userId);
   return {
     id: user.id,
     name: user.name,

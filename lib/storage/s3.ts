@@ -10,18 +10,18 @@ import {
 
 import { env } from '@/lib/env';
 
-const holder = globalThis as unknown as { boardwrightS3?: S3Client };
+let client: S3Client | undefined;
 
 /**
- * The one S3 client of this process. Path-style addressing and checksums only when
+ * The S3 client (one per server bundle, made on first use). Path-style addressing and checksums only when
  * required: the local S3 fake stores the SDK's streaming checksum frames inside the
  * object otherwise (a 2 MB upload came back 55 bytes longer, its framing and a checksum line
  * stored inside it).
  */
 export function s3(): S3Client {
-  if (holder.boardwrightS3) return holder.boardwrightS3;
+  if (client) return client;
   const e = env();
-  holder.boardwrightS3 = new S3Client({
+  client = new S3Client({
     region: e.S3_REGION,
     endpoint: e.S3_ENDPOINT,
     forcePathStyle: true,
@@ -29,7 +29,7 @@ export function s3(): S3Client {
     requestChecksumCalculation: 'WHEN_REQUIRED',
     responseChecksumValidation: 'WHEN_REQUIRED',
   });
-  return holder.boardwrightS3;
+  return client;
 }
 
 /** Stores bytes under a key in the app's bucket. */

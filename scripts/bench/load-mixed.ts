@@ -19,7 +19,7 @@ import { Board, Organisation, Site, User, Way } from '@/models';
 import { demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
 
 import { signInCookie } from './http-session';
-import { load, quantile, serverWorkers } from './load';
+import { load, quantile } from './load';
 
 const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3300';
 const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
@@ -171,7 +171,7 @@ async function main() {
   const errors = result.errors + result.non2xx;
   console.log(
     `load: ${connections} connections for ${duration} s after a ${warmup} s warm-up at the same load (not counted), ` +
-      `against ${baseUrl} (production build, ${serverWorkers} workers, loopback); ` +
+      `against ${baseUrl} (production build, one next start process, loopback); ` +
       `one ${ways}-way bench board per connection, cycle read → size → save`,
   );
   console.log(

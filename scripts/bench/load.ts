@@ -2,12 +2,7 @@
  * autocannon with every response time recorded, so that p50/p95/p99 are exact rather than
  * autocannon's fixed percentile buckets.
  */
-import os from 'node:os';
-
 import autocannon from 'autocannon';
-
-/** How many server workers scripts/serve.mjs runs (its own rule: WEB_CONCURRENCY, else one per core). */
-export const serverWorkers = Number(process.env.WEB_CONCURRENCY) || os.availableParallelism();
 
 export type LoadResult = {
   requests: number;

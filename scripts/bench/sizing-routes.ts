@@ -12,7 +12,7 @@ import { Board, Organisation, Site, Way } from '@/models';
 import { DEMO_ORG, demoUser, demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
 
 import { signInCookie } from './http-session';
-import { describe, load, serverWorkers } from './load';
+import { describe, load } from './load';
 
 const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3200';
 const duration = Number(process.env.BENCH_SECONDS ?? 10);
@@ -58,7 +58,7 @@ async function main() {
   const sizing = await sizingRun(duration);
   console.log(
     `board: ${ways} ways; 16 connections, ${duration} s each after ${warmup} s of warm-up (not counted), ` +
-      `${baseUrl} (${serverWorkers} workers)`,
+      `${baseUrl} (one process)`,
   );
   console.log(describe('GET /api/me (trivial, signed in)', trivial));
   console.log(describe('POST /api/boards/:id/sizing', sizing));

@@ -12,7 +12,7 @@ node_modules/.bin/tsx scripts/seed.ts >/dev/null
 echo "== engine (one core)"
 node_modules/.bin/tsx scripts/bench/sizing-engine.ts
 source scripts/bench/ensure-build.sh
-setsid node scripts/serve.mjs -H 127.0.0.1 -p "$APP_PORT" > "$DATA_DIR/bench-server.log" 2>&1 &
+setsid bash scripts/serve.sh -H 127.0.0.1 -p "$APP_PORT" > "$DATA_DIR/bench-server.log" 2>&1 &
 APP_PID=$!
 trap 'kill -- -$APP_PID 2>/dev/null || true' EXIT
 for _ in $(seq 1 100); do curl -fsS -o /dev/null "$APP_URL/login" && break; sleep 0.2; done

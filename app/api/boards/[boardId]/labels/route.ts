@@ -1,4 +1,4 @@
-import { pdfHeaders, renderLabelStripsPdf } from '@/features/schedule/render-schedule';
+import { pdfResponse, printPdf } from '@/features/schedule/print/print-files';
 import { parsePrintQuery } from '@/features/schedule/utils/print-query';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
@@ -16,8 +16,7 @@ export const GET = defineRoute({
     const query = parsePrintQuery(req.url);
     // The board state (ownership and the installers' rule in the DAL)
     const source = await getScheduleSource(actor, boardId, query.revision);
-    // Render
-    const { pdf, fileName } = await renderLabelStripsPdf(source);
-    return new Response(pdf as BodyInit, { headers: pdfHeaders(fileName, query.download === '1') });
+    // The stored file of an issued revision, else rendered in the print pool (and stored when issued)
+    return pdfResponse(await printPdf('labels', source), query.download === '1');
   },
 });

@@ -1,4 +1,4 @@
-import { renderSchedulePdf } from '@/features/schedule/render-schedule';
+import { printPdfBytes } from '@/features/schedule/print/print-files';
 import { scheduleEmailSchema } from '@/features/schedule/types/schemas';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
@@ -14,9 +14,9 @@ export const POST = defineRoute({
   params: idParamsSchema,
   body: scheduleEmailSchema,
   handler: async ({ actor, params: { boardId }, body: input }) => {
-    // The board state (ownership and the installers' rule in the DAL), rendered
+    // The board state (ownership and the installers' rule in the DAL), its PDF stored or rendered
     const source = await getScheduleSource(actor, boardId, input.revision);
-    const { pdf, fileName } = await renderSchedulePdf(source);
+    const { pdf, fileName } = await printPdfBytes('schedule', source);
     // Queue the message
     const mail = await emailSchedule(actor, source, { to: input.to, message: input.message, pdf, fileName });
     return Response.json({ mail: { ...mail, to: input.to, revision: source.revision } }, { status: 202 });
