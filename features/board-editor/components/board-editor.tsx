@@ -26,15 +26,15 @@ import type { ReturnNotes } from '@/lib/dal/review';
 import type { DeviceOnRail } from '@/lib/sizing';
 
 import { submitForReview, type RefusedWay } from '../api/board-editor-api';
-import { editorBoard, useBoardSave } from '../hooks/use-board-save';
+import { useBoardSave } from '../hooks/use-board-save';
 import { clearStoredDraft, readStoredDraft, useDraftPersistence } from '../hooks/use-draft-persistence';
-import { useLiveSizing } from '../hooks/use-live-sizing';
+import { LiveSizing } from '../hooks/use-live-sizing';
 import { useUndoShortcuts } from '../hooks/use-undo-shortcuts';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
-import { useSizingStore } from '../stores/sizing-store';
 import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS, type ActiveData } from '../utils/announcements';
 import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
+import { editorBoard } from '../utils/board-shape';
 import { dropTarget, type OverData } from '../utils/drop-target';
 import { newWayId } from '../utils/ids';
 import { BinZone } from './bin-zone';
@@ -84,7 +84,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
 
   // Open the board, with the unsaved draft this tab kept (if any)
   useEffect(() => {
-    useSizingStore.getState().reset();
     useSaveStore.getState().reset();
     const opened = editorBoard(board);
     const kept = can.edit && board.status !== 'in-review' ? readStoredDraft(board.id) : null;
@@ -102,12 +101,10 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     }
     return () => {
       useBoardDraftStore.getState().reset();
-      useSizingStore.getState().reset();
       useSaveStore.getState().reset();
     };
   }, [board, can.edit]);
 
-  useLiveSizing(board.id, ready && can.size);
   useDraftPersistence(board.id, ready && !readOnly);
   useUndoShortcuts(ready && !readOnly);
   const { save, reloadTheirs, keepMine } = useBoardSave(board.id, ready && !readOnly);
@@ -264,6 +261,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
       : null;
 
   return (
+    <LiveSizing boardId={board.id} enabled={ready && can.size}>
     <DndContext
       sensors={sensors}
       collisionDetection={collision}
@@ -345,6 +343,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
         }}
       />
     </DndContext>
+    </LiveSizing>
   );
 }
 
