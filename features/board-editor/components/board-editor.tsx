@@ -262,87 +262,87 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
 
   return (
     <LiveSizing boardId={board.id} enabled={ready && can.size}>
-    <DndContext
-      sensors={sensors}
-      collisionDetection={collision}
-      onDragStart={onDragStart}
-      onDragOver={onDragOver}
-      onDragEnd={onDragEnd}
-      onDragCancel={() => {
-        setDragging(undefined);
-        setDropRefusal(null);
-      }}
-      accessibility={{ announcements, screenReaderInstructions: SCREEN_READER_INSTRUCTIONS }}
-    >
-      <EditorToolbar
-        siteName={board.siteName}
-        canEdit={!readOnly}
-        canSubmit={can.submit && status === 'draft'}
-        readOnlyReason={readOnlyReason}
-        submitting={submitting}
-        onSave={() => void save()}
-        onSubmit={() => setConfirmingSubmit(true)}
-      />
-      {reviewNotes ? <ReviewNotes boardId={board.id} notes={reviewNotes} canAnswer={can.edit} /> : null}
-      <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
-        <div className="min-w-0 space-y-3">
-          {!readOnly ? (
-            <DeviceTray
-              choices={choicesByPhases[phases]}
-              active={activeKind}
-              boardPhases={phases}
-              onActivate={setActiveKind}
-              onChoose={(kind, choice) =>
-                setChoicesByPhases((c) => ({ ...c, [phases]: { ...c[phases], [kind]: choice } }))
-              }
-              onAdd={addAnywhere}
-            />
-          ) : null}
-          <Notice />
-          <DrawnBoard readOnly={readOnly} showVerdicts={can.size} dropRefusal={dropRefusal} onRemove={removeWithUndo} />
-          {!readOnly ? (
-            <div className="flex items-center justify-between gap-3">
-              <p className="text-xs text-ink-faint">
-                Drag to move a way along or between rails. Keyboard: Tab to a device, Space to pick it up, arrows to move, Space to put it down.
-              </p>
-              <BinZone dragging={dragging?.from === 'rail'} />
-            </div>
-          ) : null}
-          {can.size ? <BoardSummary /> : null}
-        </div>
-        <div className="xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:self-start xl:overflow-y-auto">
-          {reviewNotes ? <SelectedWayComments notes={reviewNotes} /> : null}
-          <WayPanel readOnly={readOnly} showSizing={can.size} onRemove={removeWithUndo} />
-        </div>
-      </div>
-      <DragOverlay dropAnimation={null}>
-        {dragging ? <DragPreview data={dragging} refusal={dropRefusal} /> : null}
-      </DragOverlay>
-      <ConflictDialog
-        open={savePhase === 'conflict' && !conflictHidden}
-        message={saveMessage}
-        onReloadTheirs={() => void reloadTheirs()}
-        onKeepMine={() => void keepMine()}
-        onClose={() => setConflictHidden(true)}
-      />
-      <SubmitConfirmDialog
-        open={confirmingSubmit}
-        revision={board.revision}
-        onClose={() => setConfirmingSubmit(false)}
-        onConfirm={() => {
-          setConfirmingSubmit(false);
-          void sendForReview();
+      <DndContext
+        sensors={sensors}
+        collisionDetection={collision}
+        onDragStart={onDragStart}
+        onDragOver={onDragOver}
+        onDragEnd={onDragEnd}
+        onDragCancel={() => {
+          setDragging(undefined);
+          setDropRefusal(null);
         }}
-      />
-      <ReviewRefusalDialog
-        refusal={refusal}
-        onClose={() => setRefusal(null)}
-        onShowWays={(ids) => {
-          useBoardDraftStore.getState().selectMany(ids);
-          setRefusal(null);
-        }}
-      />
-    </DndContext>
+        accessibility={{ announcements, screenReaderInstructions: SCREEN_READER_INSTRUCTIONS }}
+      >
+        <EditorToolbar
+          siteName={board.siteName}
+          canEdit={!readOnly}
+          canSubmit={can.submit && status === 'draft'}
+          readOnlyReason={readOnlyReason}
+          submitting={submitting}
+          onSave={() => void save()}
+          onSubmit={() => setConfirmingSubmit(true)}
+        />
+        {reviewNotes ? <ReviewNotes boardId={board.id} notes={reviewNotes} canAnswer={can.edit} /> : null}
+        <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
+          <div className="min-w-0 space-y-3">
+            {!readOnly ? (
+              <DeviceTray
+                choices={choicesByPhases[phases]}
+                active={activeKind}
+                boardPhases={phases}
+                onActivate={setActiveKind}
+                onChoose={(kind, choice) =>
+                  setChoicesByPhases((c) => ({ ...c, [phases]: { ...c[phases], [kind]: choice } }))
+                }
+                onAdd={addAnywhere}
+              />
+            ) : null}
+            <Notice />
+            <DrawnBoard readOnly={readOnly} showVerdicts={can.size} dropRefusal={dropRefusal} onRemove={removeWithUndo} />
+            {!readOnly ? (
+              <div className="flex items-center justify-between gap-3">
+                <p className="text-xs text-ink-faint">
+                  Drag to move a way along or between rails. Keyboard: Tab to a device, Space to pick it up, arrows to move, Space to put it down.
+                </p>
+                <BinZone dragging={dragging?.from === 'rail'} />
+              </div>
+            ) : null}
+            {can.size ? <BoardSummary /> : null}
+          </div>
+          <div className="xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:self-start xl:overflow-y-auto">
+            {reviewNotes ? <SelectedWayComments notes={reviewNotes} /> : null}
+            <WayPanel readOnly={readOnly} showSizing={can.size} onRemove={removeWithUndo} />
+          </div>
+        </div>
+        <DragOverlay dropAnimation={null}>
+          {dragging ? <DragPreview data={dragging} refusal={dropRefusal} /> : null}
+        </DragOverlay>
+        <ConflictDialog
+          open={savePhase === 'conflict' && !conflictHidden}
+          message={saveMessage}
+          onReloadTheirs={() => void reloadTheirs()}
+          onKeepMine={() => void keepMine()}
+          onClose={() => setConflictHidden(true)}
+        />
+        <SubmitConfirmDialog
+          open={confirmingSubmit}
+          revision={board.revision}
+          onClose={() => setConfirmingSubmit(false)}
+          onConfirm={() => {
+            setConfirmingSubmit(false);
+            void sendForReview();
+          }}
+        />
+        <ReviewRefusalDialog
+          refusal={refusal}
+          onClose={() => setRefusal(null)}
+          onShowWays={(ids) => {
+            useBoardDraftStore.getState().selectMany(ids);
+            setRefusal(null);
+          }}
+        />
+      </DndContext>
     </LiveSizing>
   );
 }

@@ -1,7 +1,7 @@
 'use client';
 
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { createContext, useContext, useEffect, useMemo, useRef, useState } from 'react';
+import { keepPreviousData, queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { createContext, useContext, useEffect, useMemo, useState } from 'react';
 
 import { ApiError } from '@/lib/api/client';
 import type { BoardResult } from '@/lib/sizing';
@@ -42,33 +42,49 @@ function sizingQuery(boardId: string, editSeq: number, enabled: boolean) {
 
 /**
  * The edit sequence to size: at once after a quiet spell, else once changes have stopped
- * coming for `SIZING_DEBOUNCE_MS` (a burst of typing is sized once).
+ * coming for `SIZING_DEBOUNCE_MS` (a burst of typing is sized once). Decided as the store
+ * changes, not after a render, and the request goes out at that moment (`prefetchQuery`): the
+ * components showing the sizing attach to it as they render the change.
  */
-function useSettledEditSeq(editSeq: number): number {
-  const [settled, setSettled] = useState(editSeq);
-  const lastChange = useRef(-Infinity);
+function useSettledEditSeq(boardId: string, enabled: boolean): number {
+  const queryClient = useQueryClient();
+  const [settled, setSettled] = useState(() => useBoardDraftStore.getState().editSeq);
   useEffect(() => {
-    const now = performance.now();
-    const quiet = now - lastChange.current >= SIZING_DEBOUNCE_MS;
-    lastChange.current = now;
-    if (quiet) return setSettled(editSeq);
-    const timer = setTimeout(() => setSettled(editSeq), SIZING_DEBOUNCE_MS);
-    return () => clearTimeout(timer);
-  }, [editSeq]);
+    let lastChange = -Infinity;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const settle = (editSeq: number) => {
+      if (enabled) void queryClient.prefetchQuery(sizingQuery(boardId, editSeq, true));
+      setSettled(editSeq);
+    };
+    const unsubscribe = useBoardDraftStore.subscribe(({ editSeq }, previous) => {
+      if (editSeq === previous.editSeq) return;
+      const now = performance.now();
+      const quiet = now - lastChange >= SIZING_DEBOUNCE_MS;
+      lastChange = now;
+      clearTimeout(timer);
+      if (quiet) settle(editSeq);
+      else timer = setTimeout(() => settle(useBoardDraftStore.getState().editSeq), SIZING_DEBOUNCE_MS);
+    });
+    return () => {
+      unsubscribe();
+      clearTimeout(timer);
+    };
+  }, [boardId, enabled, queryClient]);
   return settled;
 }
 
-type LiveSizingState = {
-  boardId: string;
-  editSeq: number;
-  enabled: boolean;
+/** Which sizing the components show: the query's key. */
+type SizingKey = { boardId: string; editSeq: number; enabled: boolean };
+type SizingState = {
   /** The result shown is not for the draft as it is now (a sizing is on its way). */
   pending: boolean;
   /** Why the last sizing failed, in words. */
   error: string | null;
 };
 
-const LiveSizingContext = createContext<LiveSizingState>({ boardId: '', editSeq: 0, enabled: false, pending: false, error: null });
+// Two contexts: a component reading the sizing re-renders for a new key, not for pending
+const SizingKeyContext = createContext<SizingKey>({ boardId: '', editSeq: 0, enabled: false });
+const SizingStateContext = createContext<SizingState>({ pending: false, error: null });
 
 /**
  * Sizes the open draft after every change (`enabled`: the member may see sizing) and gives the
@@ -77,15 +93,17 @@ const LiveSizingContext = createContext<LiveSizingState>({ boardId: '', editSeq:
 export function LiveSizing({ boardId, enabled, children }: { boardId: string; enabled: boolean; children: React.ReactNode }) {
   const editSeq = useBoardDraftStore((s) => s.editSeq);
   const open = useBoardDraftStore((s) => s.boardId === boardId && s.settings !== null);
-  const settled = useSettledEditSeq(editSeq);
+  const settled = useSettledEditSeq(boardId, enabled && open);
   const query = useQuery(sizingQuery(boardId, settled, enabled && open));
   const pending = enabled && !query.isError && query.data?.editSeq !== editSeq;
   const error = query.error ? failureWords(query.error) : null;
-  const value = useMemo(
-    () => ({ boardId, editSeq: settled, enabled: enabled && open, pending, error }),
-    [boardId, settled, enabled, open, pending, error],
+  const key = useMemo(() => ({ boardId, editSeq: settled, enabled: enabled && open }), [boardId, settled, enabled, open]);
+  const state = useMemo(() => ({ pending, error }), [pending, error]);
+  return (
+    <SizingKeyContext.Provider value={key}>
+      <SizingStateContext.Provider value={state}>{children}</SizingStateContext.Provider>
+    </SizingKeyContext.Provider>
   );
-  return <LiveSizingContext.Provider value={value}>{children}</LiveSizingContext.Provider>;
 }
 
 function failureWords(err: Error): string {
@@ -94,16 +112,13 @@ function failureWords(err: Error): string {
 }
 
 /** Whether a sizing is on its way, and why the last one failed. */
-export function useSizingState(): Pick<LiveSizingState, 'pending' | 'error'> {
-  const { pending, error } = useContext(LiveSizingContext);
-  return { pending, error };
-}
+export const useSizingState = (): SizingState => useContext(SizingStateContext);
 
 /**
  * The part of the draft's last sizing that `select` picks (undefined before the first answer).
  * A component re-renders only when its part changes.
  */
 export function useDraftSizing<T>(select: (sizing: DraftSizing) => T): T | undefined {
-  const { boardId, editSeq, enabled } = useContext(LiveSizingContext);
+  const { boardId, editSeq, enabled } = useContext(SizingKeyContext);
   return useQuery({ ...sizingQuery(boardId, editSeq, enabled), select }).data;
 }
