@@ -65,7 +65,8 @@ beforeEach(() => {
   useSaveStore.getState().reset();
 });
 
-describe('redo after undoing a change made in the way panel', () => {
+// Typing through user-event in a full way panel takes seconds on a loaded machine
+describe('redo after undoing a change made in the way panel', { timeout: 30_000 }, () => {
   it('a length: undo, then redo by the button, by Ctrl+Shift+Z and by Ctrl+Y', async () => {
     const user = userEvent.setup();
     const way = openImmersion();
