@@ -1,12 +1,16 @@
 /** One bad field as the API reports it: a dotted path (`supply.uoV`) and a message. */
 export type ApiFieldIssue = { path: string; message: string };
 
-/** A failed API call: its HTTP status (0 when unreachable), message and field issues. */
+/**
+ * A failed API call: its HTTP status (0 when unreachable), message and field issues, and the
+ * whole error body for routes that say more (a save's stored version, a refusal's failing ways).
+ */
 export class ApiError extends Error {
   constructor(
     readonly status: number,
     message: string,
     readonly issues: ApiFieldIssue[] = [],
+    readonly body: unknown = undefined,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -83,7 +87,7 @@ export async function apiFetch<T>(
     typeof payload.error === 'string' && payload.error
       ? payload.error
       : (fallbackMessages[response.status] ?? 'Something went wrong on our side.');
-  throw new ApiError(response.status, message, isIssueList(payload.issues) ? payload.issues : []);
+  throw new ApiError(response.status, message, isIssueList(payload.issues) ? payload.issues : [], json);
 }
 
 /** The message to show for any thrown value. */

@@ -31,7 +31,7 @@ function summary(name: string, samples: number[]) {
   return `${name.padEnd(26)} n=${String(s.length).padStart(3)}  p50 ${percentile(s, 50).toFixed(1).padStart(6)} ms  p95 ${percentile(s, 95).toFixed(1).padStart(6)} ms  max ${s[s.length - 1].toFixed(1).padStart(6)} ms  mean ${mean.toFixed(1)} ms`;
 }
 
-/** Waits, in the page, until the way shows a sizing of the current draft revision newer than `before`. */
+/** Waits, in the page, until the way shows a sizing of the current edit sequence newer than `before`. */
 async function waitForVerdict(page: Page, wayId: string, before: number): Promise<number> {
   return page.evaluate(
     ({ wayId, before }) =>
@@ -41,8 +41,8 @@ async function waitForVerdict(page: Page, wayId: string, before: number): Promis
         const done = () => {
           const cell = document.querySelector<HTMLElement>(`[data-way-id="${wayId}"]`);
           const sized = Number(cell?.dataset.sizedFor ?? 0);
-          const revision = Number(board.dataset.draftRevision);
-          if (cell && sized > before && sized === revision && cell.querySelector('[data-verdict]')) {
+          const editSeq = Number(board.dataset.editSeq);
+          if (cell && sized > before && sized === editSeq && cell.querySelector('[data-verdict]')) {
             observer.disconnect();
             clearTimeout(timer);
             // The verdict is in the DOM; count the frame that paints it
@@ -110,7 +110,7 @@ async function main() {
     await page.getByRole('region', { name: 'Way panel' }).getByLabel('Length (m)').waitFor();
     const fieldSamples: number[] = [];
     for (let i = 0; i < CHANGES; i++) {
-      const before = Number(await page.locator('[data-testid="drawn-board"]').getAttribute('data-draft-revision'));
+      const before = Number(await page.locator('[data-testid="drawn-board"]').getAttribute('data-edit-seq'));
       await page.evaluate((value) => {
         const input = [...document.querySelectorAll<HTMLInputElement>('input')].find(
           (el) => el.labels?.[0]?.textContent === 'Length (m)',
@@ -146,7 +146,7 @@ async function main() {
         { id: moverId, step },
       ))!;
       const to = (await page.locator(`[data-way-id="${neighbour}"]`).boundingBox())!;
-      const before = Number(await page.locator('[data-testid="drawn-board"]').getAttribute('data-draft-revision'));
+      const before = Number(await page.locator('[data-testid="drawn-board"]').getAttribute('data-edit-seq'));
       await page.mouse.move(box.x + box.width / 2, box.y + 60);
       await page.mouse.down();
       await page.mouse.move(box.x + box.width / 2 + 8 * step, box.y + 60, { steps: 2 });

@@ -19,33 +19,8 @@ export function sizeDraft(boardId: string, draft: DraftSnapshot, signal?: AbortS
   });
 }
 
-// A call whose error bodies carry more than a message (the stored version, the failing ways).
-async function call(url: string, method: string, body: unknown): Promise<{ status: number; json: Record<string, unknown> }> {
-  let response: Response;
-  try {
-    response = await fetch(url, {
-      method,
-      credentials: 'same-origin',
-      headers: { Accept: 'application/json', 'Content-Type': 'application/json' },
-      body: JSON.stringify(body),
-    });
-  } catch {
-    throw new ApiError(0, 'Could not reach Boardwright. Your changes are kept in this browser; try again.');
-  }
-  let json: Record<string, unknown> = {};
-  try {
-    json = (await response.json()) as Record<string, unknown>;
-  } catch {
-    json = {};
-  }
-  return { status: response.status, json };
-}
-
-function failure(status: number, json: Record<string, unknown>): ApiError {
-  const message = typeof json.error === 'string' ? json.error : 'Something went wrong on our side.';
-  const issues = Array.isArray(json.issues) ? (json.issues as { path: string; message: string }[]) : [];
-  return new ApiError(status, message, issues);
-}
+/** A field of a refusal's body beyond its message (the stored version, the failing ways). */
+const bodyField = (err: ApiError, name: string): unknown => (err.body as Record<string, unknown> | undefined)?.[name];
 
 /** How a save ended: saved, someone else saved first (with their version), or refused. */
 export type SaveOutcome =
@@ -55,18 +30,17 @@ export type SaveOutcome =
 
 /** Saves the draft on top of `version`. Network and validation failures reject with ApiError. */
 export async function saveDraft(boardId: string, version: number, draft: DraftSnapshot): Promise<SaveOutcome> {
-  const { status, json } = await call(`/api/boards/${boardId}`, 'PUT', {
-    version,
-    settings: draft.settings,
-    ways: draft.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit })),
-  });
-  if (status === 200) return { kind: 'saved', board: json.board as BoardDto };
-  const message = typeof json.error === 'string' ? json.error : 'The board could not be saved.';
-  if (status === 409 && typeof json.currentVersion === 'number') {
-    return { kind: 'conflict', theirVersion: json.currentVersion, message };
+  try {
+    const body = { version, settings: draft.settings, ways: draft.ways };
+    const { board } = await apiFetch<{ board: BoardDto }>(`/api/boards/${boardId}`, { method: 'PUT', body });
+    return { kind: 'saved', board };
+  } catch (err) {
+    if (!(err instanceof ApiError)) throw err;
+    const theirVersion = bodyField(err, 'currentVersion');
+    if (err.status === 409 && typeof theirVersion === 'number') return { kind: 'conflict', theirVersion, message: err.message };
+    if (err.status === 409 || err.status === 403) return { kind: 'locked', message: err.message };
+    throw err;
   }
-  if (status === 409 || status === 403) return { kind: 'locked', message };
-  throw failure(status, json);
 }
 
 /** One failing way in a refusal to send for review. */
@@ -80,12 +54,15 @@ export type SubmitOutcome =
 
 /** Sends the stored board for review at `version`. */
 export async function submitForReview(boardId: string, version: number): Promise<SubmitOutcome> {
-  const { status, json } = await call(`/api/boards/${boardId}/submit`, 'POST', { version });
-  if (status === 200) return { kind: 'sent', board: json.board as BoardDto };
-  const message = typeof json.error === 'string' ? json.error : 'The board could not be sent.';
-  if (status === 422) return { kind: 'refused', message, failing: (json.failing as RefusedWay[]) ?? [] };
-  if (status === 409) return { kind: 'conflict', message };
-  throw failure(status, json);
+  try {
+    const { board } = await apiFetch<{ board: BoardDto }>(`/api/boards/${boardId}/submit`, { method: 'POST', body: { version } });
+    return { kind: 'sent', board };
+  } catch (err) {
+    if (!(err instanceof ApiError)) throw err;
+    if (err.status === 422) return { kind: 'refused', message: err.message, failing: (bodyField(err, 'failing') as RefusedWay[]) ?? [] };
+    if (err.status === 409) return { kind: 'conflict', message: err.message };
+    throw err;
+  }
 }
 
 /** POST /api/boards/:id/comments/answered: the designer has dealt with these review comments. */

@@ -26,15 +26,15 @@ import type { ReturnNotes } from '@/lib/dal/return-notes';
 import type { DeviceOnRail } from '@/lib/sizing';
 
 import { submitForReview, type RefusedWay } from '../api/board-editor-api';
-import { editorBoard, useBoardSave } from '../hooks/use-board-save';
+import { useBoardSave } from '../hooks/use-board-save';
 import { clearStoredDraft, readStoredDraft, useDraftPersistence } from '../hooks/use-draft-persistence';
-import { useLiveSizing } from '../hooks/use-live-sizing';
+import { LiveSizing } from '../hooks/use-live-sizing';
 import { useUndoShortcuts } from '../hooks/use-undo-shortcuts';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
-import { useSizingStore } from '../stores/sizing-store';
 import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS, type ActiveData } from '../utils/announcements';
 import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
+import { editorBoard } from '../utils/board-shape';
 import { dropTarget, type OverData } from '../utils/drop-target';
 import { newWayId } from '../utils/ids';
 import { BinZone } from './bin-zone';
@@ -84,7 +84,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
 
   // Open the board, with the unsaved draft this tab kept (if any)
   useEffect(() => {
-    useSizingStore.getState().reset();
     useSaveStore.getState().reset();
     const opened = editorBoard(board);
     const kept = can.edit && board.status !== 'in-review' ? readStoredDraft(board.id) : null;
@@ -102,12 +101,10 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     }
     return () => {
       useBoardDraftStore.getState().reset();
-      useSizingStore.getState().reset();
       useSaveStore.getState().reset();
     };
   }, [board, can.edit]);
 
-  useLiveSizing(board.id, ready && can.size);
   useDraftPersistence(board.id, ready && !readOnly);
   useUndoShortcuts(ready && !readOnly);
   const { save, reloadTheirs, keepMine } = useBoardSave(board.id, ready && !readOnly);
@@ -264,87 +261,89 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
       : null;
 
   return (
-    <DndContext
-      sensors={sensors}
-      collisionDetection={collision}
-      onDragStart={onDragStart}
-      onDragOver={onDragOver}
-      onDragEnd={onDragEnd}
-      onDragCancel={() => {
-        setDragging(undefined);
-        setDropRefusal(null);
-      }}
-      accessibility={{ announcements, screenReaderInstructions: SCREEN_READER_INSTRUCTIONS }}
-    >
-      <EditorToolbar
-        siteName={board.siteName}
-        canEdit={!readOnly}
-        canSubmit={can.submit && status === 'draft'}
-        readOnlyReason={readOnlyReason}
-        submitting={submitting}
-        onSave={() => void save()}
-        onSubmit={() => setConfirmingSubmit(true)}
-      />
-      {reviewNotes ? <ReviewNotes boardId={board.id} notes={reviewNotes} canAnswer={can.edit} /> : null}
-      <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
-        <div className="min-w-0 space-y-3">
-          {!readOnly ? (
-            <DeviceTray
-              choices={choicesByPhases[phases]}
-              active={activeKind}
-              boardPhases={phases}
-              onActivate={setActiveKind}
-              onChoose={(kind, choice) =>
-                setChoicesByPhases((c) => ({ ...c, [phases]: { ...c[phases], [kind]: choice } }))
-              }
-              onAdd={addAnywhere}
-            />
-          ) : null}
-          <Notice />
-          <DrawnBoard readOnly={readOnly} showVerdicts={can.size} dropRefusal={dropRefusal} onRemove={removeWithUndo} />
-          {!readOnly ? (
-            <div className="flex items-center justify-between gap-3">
-              <p className="text-xs text-ink-faint">
-                Drag to move a way along or between rails. Keyboard: Tab to a device, Space to pick it up, arrows to move, Space to put it down.
-              </p>
-              <BinZone dragging={dragging?.from === 'rail'} />
-            </div>
-          ) : null}
-          {can.size ? <BoardSummary /> : null}
-        </div>
-        <div className="xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:self-start xl:overflow-y-auto">
-          {reviewNotes ? <SelectedWayComments notes={reviewNotes} /> : null}
-          <WayPanel readOnly={readOnly} showSizing={can.size} onRemove={removeWithUndo} />
-        </div>
-      </div>
-      <DragOverlay dropAnimation={null}>
-        {dragging ? <DragPreview data={dragging} refusal={dropRefusal} /> : null}
-      </DragOverlay>
-      <ConflictDialog
-        open={savePhase === 'conflict' && !conflictHidden}
-        message={saveMessage}
-        onReloadTheirs={() => void reloadTheirs()}
-        onKeepMine={() => void keepMine()}
-        onClose={() => setConflictHidden(true)}
-      />
-      <SubmitConfirmDialog
-        open={confirmingSubmit}
-        revision={board.revision}
-        onClose={() => setConfirmingSubmit(false)}
-        onConfirm={() => {
-          setConfirmingSubmit(false);
-          void sendForReview();
+    <LiveSizing boardId={board.id} enabled={ready && can.size}>
+      <DndContext
+        sensors={sensors}
+        collisionDetection={collision}
+        onDragStart={onDragStart}
+        onDragOver={onDragOver}
+        onDragEnd={onDragEnd}
+        onDragCancel={() => {
+          setDragging(undefined);
+          setDropRefusal(null);
         }}
-      />
-      <ReviewRefusalDialog
-        refusal={refusal}
-        onClose={() => setRefusal(null)}
-        onShowWays={(ids) => {
-          useBoardDraftStore.getState().selectMany(ids);
-          setRefusal(null);
-        }}
-      />
-    </DndContext>
+        accessibility={{ announcements, screenReaderInstructions: SCREEN_READER_INSTRUCTIONS }}
+      >
+        <EditorToolbar
+          siteName={board.siteName}
+          canEdit={!readOnly}
+          canSubmit={can.submit && status === 'draft'}
+          readOnlyReason={readOnlyReason}
+          submitting={submitting}
+          onSave={() => void save()}
+          onSubmit={() => setConfirmingSubmit(true)}
+        />
+        {reviewNotes ? <ReviewNotes boardId={board.id} notes={reviewNotes} canAnswer={can.edit} /> : null}
+        <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
+          <div className="min-w-0 space-y-3">
+            {!readOnly ? (
+              <DeviceTray
+                choices={choicesByPhases[phases]}
+                active={activeKind}
+                boardPhases={phases}
+                onActivate={setActiveKind}
+                onChoose={(kind, choice) =>
+                  setChoicesByPhases((c) => ({ ...c, [phases]: { ...c[phases], [kind]: choice } }))
+                }
+                onAdd={addAnywhere}
+              />
+            ) : null}
+            <Notice />
+            <DrawnBoard readOnly={readOnly} showVerdicts={can.size} dropRefusal={dropRefusal} onRemove={removeWithUndo} />
+            {!readOnly ? (
+              <div className="flex items-center justify-between gap-3">
+                <p className="text-xs text-ink-faint">
+                  Drag to move a way along or between rails. Keyboard: Tab to a device, Space to pick it up, arrows to move, Space to put it down.
+                </p>
+                <BinZone dragging={dragging?.from === 'rail'} />
+              </div>
+            ) : null}
+            {can.size ? <BoardSummary /> : null}
+          </div>
+          <div className="xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:self-start xl:overflow-y-auto">
+            {reviewNotes ? <SelectedWayComments notes={reviewNotes} /> : null}
+            <WayPanel readOnly={readOnly} showSizing={can.size} onRemove={removeWithUndo} />
+          </div>
+        </div>
+        <DragOverlay dropAnimation={null}>
+          {dragging ? <DragPreview data={dragging} refusal={dropRefusal} /> : null}
+        </DragOverlay>
+        <ConflictDialog
+          open={savePhase === 'conflict' && !conflictHidden}
+          message={saveMessage}
+          onReloadTheirs={() => void reloadTheirs()}
+          onKeepMine={() => void keepMine()}
+          onClose={() => setConflictHidden(true)}
+        />
+        <SubmitConfirmDialog
+          open={confirmingSubmit}
+          revision={board.revision}
+          onClose={() => setConfirmingSubmit(false)}
+          onConfirm={() => {
+            setConfirmingSubmit(false);
+            void sendForReview();
+          }}
+        />
+        <ReviewRefusalDialog
+          refusal={refusal}
+          onClose={() => setRefusal(null)}
+          onShowWays={(ids) => {
+            useBoardDraftStore.getState().selectMany(ids);
+            setRefusal(null);
+          }}
+        />
+      </DndContext>
+    </LiveSizing>
   );
 }
 

@@ -5,8 +5,8 @@ import { CircleCheck, CircleX, TriangleAlert } from 'lucide-react';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { cn } from '@/lib/cn';
 
+import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
 import { useBoardDraftStore } from '../stores/board-draft-store';
-import { useSizingStore } from '../stores/sizing-store';
 import { fmt } from '../utils/format';
 
 function Stat({ title, children, className }: { title: string; children: React.ReactNode; className?: string }) {
@@ -37,8 +37,8 @@ function CheckLine({ ok, message }: { ok: boolean; message: string }) {
  * selects those ways on the board.
  */
 export function BoardSummary() {
-  const result = useSizingStore((s) => s.result);
-  const error = useSizingStore((s) => s.error);
+  const result = useDraftSizing((s) => s.result);
+  const { error } = useSizingState();
   const selectMany = useBoardDraftStore((s) => s.selectMany);
   const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
   const ways = useBoardDraftStore((s) => s.ways);

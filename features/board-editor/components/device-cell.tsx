@@ -7,25 +7,19 @@ import { memo } from 'react';
 
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { cn } from '@/lib/cn';
-import { isProtectiveDevice, type WayResult } from '@/lib/sizing';
+import { isProtectiveDevice } from '@/lib/sizing';
 
-import type { EditorWay } from '../types/draft';
+import { useBoardView } from '../hooks/use-board-view';
+import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
+import { useBoardDraftStore } from '../stores/board-draft-store';
 import { describeWay } from '../utils/describe';
 import { DeviceFace } from './device-face';
 
 type DeviceCellProps = {
-  way: EditorWay;
+  wayId: string;
   label: string | null;
+  /** The module the device starts at on its rail. */
   start: number;
-  result: WayResult | undefined;
-  /** The draft revision the shown result belongs to. */
-  sizedFor: number;
-  pending: boolean;
-  showVerdict: boolean;
-  selected: boolean;
-  readOnly: boolean;
-  onSelect: (id: string) => void;
-  onRemove: (id: string) => void;
 };
 
 /**
@@ -34,19 +28,14 @@ type DeviceCellProps = {
  * legend, keyed by way reference, and in full on hover and focus). Drag it (pointer or keyboard) to move it; click or Enter selects it
  * for the way panel; Delete removes it (undoable).
  */
-export const DeviceCell = memo(function DeviceCell({
-  way,
-  label,
-  start,
-  result,
-  sizedFor,
-  pending,
-  showVerdict,
-  selected,
-  readOnly,
-  onSelect,
-  onRemove,
-}: DeviceCellProps) {
+export const DeviceCell = memo(function DeviceCell({ wayId, label, start }: DeviceCellProps) {
+  const way = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId))!;
+  const selected = useBoardDraftStore((s) => s.selection.includes(wayId));
+  const { readOnly, showVerdicts: showVerdict, onRemove } = useBoardView();
+  const result = useDraftSizing((s) => s.result.ways.find((w) => w.id === wayId));
+  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
+  const { pending } = useSizingState();
+  const onSelect = useBoardDraftStore((s) => s.select);
   const { attributes, listeners, setNodeRef, transform, transition, isDragging } = useSortable({
     id: way.id,
     data: { from: 'rail', wayId: way.id, rail: way.rail },

@@ -1,84 +1,31 @@
 'use client';
 
-import { zodResolver } from '@hookform/resolvers/zod';
-import { useEffect, useRef } from 'react';
-import { useForm } from 'react-hook-form';
-import type { z } from 'zod';
-
 import { Field, Select } from '@/components/ui/field';
 import { deviceOnRailSchema, isProtectiveDevice, STANDARD_RATINGS_A, type DeviceOnRail } from '@/lib/sizing';
 
 import { BREAKING_KA } from '../utils/circuit-options';
 import { trayEntry, type TrayKind } from '../utils/device-catalogue';
-import { forgetUnfinishedInput, useKeepUnfinishedInput, useUnfinishedInput } from '../hooks/use-unfinished-input';
-import { editorErrorMap } from '../utils/error-map';
+import { useDraftForm } from '../hooks/use-draft-form';
+import { useBoardDraftStore } from '../stores/board-draft-store';
 
-type DeviceFormInput = z.input<typeof deviceOnRailSchema>;
+type DeviceFormProps = { wayId: string; readOnly: boolean };
 
-type DeviceFormProps = {
-  wayId: string;
-  device: DeviceOnRail;
-  readOnly: boolean;
-  onValid: (device: DeviceOnRail, field: string) => void;
-};
-
-/**
- * A value in one canonical text: read through the schema, so the keys come in the schema's order
- * and absent optional fields are dropped. A value loaded from the database (jsonb keeps its keys
- * in its own order) and the same value read back from the fields compare equal.
- */
-const canonical = (value: unknown) => {
-  const parsed = deviceOnRailSchema.safeParse(value);
-  return JSON.stringify(parsed.success ? parsed.data : value);
-};
 const numberOrNull = { setValueAs: (v: string) => (v === '' || v === null ? null : Number(v)) } as const;
 const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefined ? undefined : Number(v)) } as const;
 
 /**
- * The device of the selected way: rating (chosen by the sizing or fixed), curve, breaking
- * capacity and residual current, validated with the engine's deviceOnRailSchema. Its kind and
- * width stay as dropped: a different device is a new one from the tray.
+ * The device of the selected way, a view over the draft (`useDraftForm`): rating (chosen by
+ * the sizing or fixed), curve, breaking capacity and residual current, validated with the
+ * engine's deviceOnRailSchema. Its kind and width stay as dropped: a different device is a new
+ * one from the tray.
  */
-export function DeviceForm({ wayId, device, readOnly, onValid }: DeviceFormProps) {
-  const keepKey = `device:${wayId}`;
-  const restored = useUnfinishedInput<DeviceFormInput>(keepKey, device);
-  const form = useForm<DeviceFormInput, unknown, DeviceOnRail>({
-    resolver: zodResolver(deviceOnRailSchema, { error: editorErrorMap }),
-    mode: 'onChange',
-    defaultValues: restored ?? device,
-  });
-  const { register, formState, reset } = form;
+export function DeviceForm({ wayId, readOnly }: DeviceFormProps) {
+  const device = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId)?.device) as DeviceOnRail;
+  const form = useDraftForm(`device:${wayId}`, deviceOnRailSchema, device, (value, field) =>
+    useBoardDraftStore.getState().updateDevice(wayId, value, `device:${wayId}:${field}`),
+  );
+  const { register, formState } = form;
   const errors = formState.errors;
-  // The device the fields show, as canonical text: only a real change is written to the draft
-  const lastWritten = useRef(canonical(device));
-
-  useEffect(() => {
-    const text = canonical(device);
-    if (text !== lastWritten.current) {
-      // Resetting the fields fires the watch below with this same value: it must not be
-      // written back, as a write is a new edit and would empty the redo stack
-      lastWritten.current = text;
-      forgetUnfinishedInput(keepKey);
-      reset(device);
-    }
-  }, [device, reset]);
-
-  // Input that is not valid yet survives selecting another way and coming back
-  useKeepUnfinishedInput(keepKey, form, deviceOnRailSchema, device, !!restored);
-
-  const onValidRef = useRef(onValid);
-  onValidRef.current = onValid;
-  useEffect(() => {
-    const subscription = form.watch((values, { name }) => {
-      const parsed = deviceOnRailSchema.safeParse(values);
-      if (!parsed.success) return;
-      const text = JSON.stringify(parsed.data);
-      if (text === lastWritten.current) return;
-      lastWritten.current = text;
-      onValidRef.current(parsed.data, name ?? 'device');
-    });
-    return () => subscription.unsubscribe();
-  }, [form]);
 
   const kind = device.kind;
   const protective = isProtectiveDevice(kind);

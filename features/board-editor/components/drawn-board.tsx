@@ -1,12 +1,12 @@
 'use client';
 
-import { useCallback, useMemo } from 'react';
+import { useMemo } from 'react';
 
-import { layoutWays } from '@/lib/boards/layout';
-import { drawRails, railCapacities, rcdGroups } from '@/lib/boards/rail';
+import { drawRails, railCapacities } from '@/lib/boards/rail';
 
+import { useDraftSizing } from '../hooks/use-live-sizing';
+import { BoardViewContext } from '../hooks/use-board-view';
 import { useBoardDraftStore } from '../stores/board-draft-store';
-import { useSizingStore } from '../stores/sizing-store';
 import { RailRow } from './rail-row';
 
 type DrawnBoardProps = {
@@ -24,27 +24,21 @@ type DrawnBoardProps = {
 export function DrawnBoard({ readOnly, showVerdicts, dropRefusal = null, onRemove }: DrawnBoardProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const ways = useBoardDraftStore((s) => s.ways);
-  const selection = useBoardDraftStore((s) => s.selection);
-  const select = useBoardDraftStore((s) => s.select);
-  const removeWay = useBoardDraftStore((s) => s.removeWay);
-  const results = useSizingStore((s) => s.byId);
-  const sizedFor = useSizingStore((s) => s.forRevision);
-  const revision = useBoardDraftStore((s) => s.revision);
-  const pending = useSizingStore((s) => s.pendingRevision !== null);
-
+  const editSeq = useBoardDraftStore((s) => s.editSeq);
+  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
   const rails = useMemo(
-    () =>
-      settings ? drawRails(settings.phases, railCapacities(settings.enclosureModules, settings.rails), ways) : [],
+    () => (settings ? drawRails(settings.phases, railCapacities(settings.enclosureModules, settings.rails), ways) : []),
     [settings, ways],
   );
-  const labels = useMemo(
-    () => new Map(settings ? layoutWays(settings.phases, ways).map((p) => [p.id, p.label]) : []),
-    [settings, ways],
+  const view = useMemo(
+    () => ({
+      readOnly,
+      showVerdicts,
+      dropRefusal,
+      onRemove: onRemove ?? ((id: string) => useBoardDraftStore.getState().removeWay(id)),
+    }),
+    [readOnly, showVerdicts, dropRefusal, onRemove],
   );
-  const groups = useMemo(() => rcdGroups(ways), [ways]);
-  const wayById = useMemo(() => new Map(ways.map((w) => [w.id, w])), [ways]);
-  const onSelect = useCallback((id: string) => select(id), [select]);
-  const remove = useCallback((id: string) => (onRemove ? onRemove(id) : removeWay(id)), [onRemove, removeWay]);
 
   if (!settings) return null;
   const used = rails.reduce((n, r) => n + r.used, 0);
@@ -53,7 +47,7 @@ export function DrawnBoard({ readOnly, showVerdicts, dropRefusal = null, onRemov
       aria-label="Drawn board"
       data-testid="drawn-board"
       data-sized-for={sizedFor}
-      data-draft-revision={revision}
+      data-edit-seq={editSeq}
       className="rounded-[14px] border-[6px] border-ink/85 bg-[#e6e2d8] p-3 shadow-sm"
     >
       <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-2 text-xs text-ink-soft">
@@ -65,25 +59,11 @@ export function DrawnBoard({ readOnly, showVerdicts, dropRefusal = null, onRemov
           Enclosure {settings.enclosureModules} modules · {used} used · incoming {settings.incoming.ratingA} A
         </span>
       </div>
-      {rails.map((drawing) => (
-        <RailRow
-          key={drawing.rail}
-          drawing={drawing}
-          railCount={rails.length}
-          wayById={wayById}
-          groups={groups}
-          labels={labels}
-          results={results}
-          sizedFor={sizedFor}
-          pending={pending}
-          showVerdicts={showVerdicts}
-          selection={selection}
-          readOnly={readOnly}
-          dropRefusal={dropRefusal}
-          onSelect={onSelect}
-          onRemove={remove}
-        />
-      ))}
+      <BoardViewContext.Provider value={view}>
+        {rails.map((drawing) => (
+          <RailRow key={drawing.rail} drawing={drawing} railCount={rails.length} />
+        ))}
+      </BoardViewContext.Provider>
     </section>
   );
 }

@@ -2,21 +2,18 @@
 
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { cn } from '@/lib/cn';
-import { isProtectiveDevice, type WayResult } from '@/lib/sizing';
+import { isProtectiveDevice } from '@/lib/sizing';
 
-import type { EditorWay } from '../types/draft';
+import { useBoardView } from '../hooks/use-board-view';
+import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
+import { useBoardDraftStore } from '../stores/board-draft-store';
 import { deviceWords } from '../utils/device-catalogue';
 
 type RailLegendProps = {
   /** "the rail" or "rail 2", for the list's name. */
   railName: string;
   /** The devices on the rail in rail order, with their way references. */
-  entries: { way: EditorWay; label: string | null }[];
-  results: Map<string, WayResult>;
-  pending: boolean;
-  showVerdicts: boolean;
-  selection: string[];
-  onSelect: (id: string) => void;
+  entries: { id: string; label: string | null }[];
 };
 
 /**
@@ -25,12 +22,19 @@ type RailLegendProps = {
  * narrow the device is drawn. A click picks the way, as a click on the rail does (the rail's
  * devices are the keyboard's way to pick one, so the legend adds no tab stops).
  */
-export function RailLegend({ railName, entries, results, pending, showVerdicts, selection, onSelect }: RailLegendProps) {
+export function RailLegend({ railName, entries }: RailLegendProps) {
+  const ways = useBoardDraftStore((s) => s.ways);
+  const selection = useBoardDraftStore((s) => s.selection);
+  const onSelect = useBoardDraftStore((s) => s.select);
+  const { showVerdicts } = useBoardView();
+  const verdicts = useDraftSizing((s) => Object.fromEntries(s.result.ways.map((w) => [w.id, w.result?.verdict])));
+  const { pending } = useSizingState();
   if (!entries.length) return null;
   return (
     <ol aria-label={`Ways on ${railName}`} className="mt-2 gap-x-4 border-t border-ink/15 pt-2 sm:columns-2 2xl:columns-3">
-      {entries.map(({ way, label }) => {
-        const verdict = showVerdicts ? results.get(way.id)?.result?.verdict : undefined;
+      {entries.map(({ id, label }) => {
+        const way = ways.find((w) => w.id === id)!;
+        const verdict = showVerdicts ? verdicts?.[id] : undefined;
         const spare = (isProtectiveDevice(way.device.kind) && !way.circuit) || way.device.kind === 'blank';
         return (
           <li

@@ -3,35 +3,23 @@
 import { useDroppable } from '@dnd-kit/core';
 import { horizontalListSortingStrategy, SortableContext } from '@dnd-kit/sortable';
 
-import { cn } from '@/lib/cn';
-import type { RailDrawing, RcdGroup } from '@/lib/boards/rail';
-import type { WayResult } from '@/lib/sizing';
+import { useMemo } from 'react';
 
-import type { EditorWay } from '../types/draft';
+import { cn } from '@/lib/cn';
+import { rcdGroups, type RailDrawing } from '@/lib/boards/rail';
+
+import { useBoardView, useWayLabels } from '../hooks/use-board-view';
+import { useBoardDraftStore } from '../stores/board-draft-store';
 import { DeviceCell } from './device-cell';
 import { RailLegend } from './rail-legend';
 
 /** Widest a module is drawn, px: a short rail does not stretch across the page. */
 const MAX_MODULE_PX = 58;
 
-type RailRowProps = {
-  drawing: RailDrawing;
-  railCount: number;
-  wayById: Map<string, EditorWay>;
-  groups: RcdGroup[];
-  labels: Map<string, string | null>;
-  results: Map<string, WayResult>;
-  sizedFor: number;
-  pending: boolean;
-  showVerdicts: boolean;
-  selection: string[];
-  readOnly: boolean;
-  dropRefusal: string | null;
-  onSelect: (id: string) => void;
-  onRemove: (id: string) => void;
-};
+type RailRowProps = { drawing: RailDrawing; railCount: number };
 
-function FreeModules({ rail, start, modules, readOnly, refusal }: { rail: number; start: number; modules: number; readOnly: boolean; refusal: string | null }) {
+function FreeModules({ rail, start, modules }: { rail: number; start: number; modules: number }) {
+  const { readOnly, dropRefusal: refusal } = useBoardView();
   const { setNodeRef, isOver } = useDroppable({ id: `free:${rail}`, data: { to: 'free', rail }, disabled: readOnly });
   const full = modules <= 0;
   return (
@@ -59,22 +47,11 @@ function FreeModules({ rail, start, modules, readOnly, refusal }: { rail: number
 }
 
 /** One DIN rail drawn to scale: module grid, RCD brackets, devices, phase gaps and free modules. */
-export function RailRow({
-  drawing,
-  railCount,
-  wayById,
-  groups,
-  labels,
-  results,
-  sizedFor,
-  pending,
-  showVerdicts,
-  selection,
-  readOnly,
-  dropRefusal,
-  onSelect,
-  onRemove,
-}: RailRowProps) {
+export function RailRow({ drawing, railCount }: RailRowProps) {
+  const ways = useBoardDraftStore((s) => s.ways);
+  const labels = useWayLabels();
+  const { readOnly } = useBoardView();
+  const groups = useMemo(() => rcdGroups(ways), [ways]);
   const columns = Math.max(drawing.capacity, drawing.used);
   const grid = { gridTemplateColumns: `repeat(${columns}, minmax(0, 1fr))` };
   const devices = drawing.cells.flatMap((c) => (c.type === 'device' ? [c] : []));
@@ -87,7 +64,7 @@ export function RailRow({
     if (!here.length) return [];
     const from = Math.min(...here.map((c) => c.start));
     const to = Math.max(...here.map((c) => c.start + c.modules));
-    const rcd = wayById.get(g.rcdId);
+    const rcd = ways.find((w) => w.id === g.rcdId);
     const protectedLabels = g.protectedIds.map((id) => labels.get(id)).filter(Boolean);
     return [{ id: g.rcdId, from, to, rcd, protectedLabels }];
   });
@@ -142,40 +119,19 @@ export function RailRow({
                   <span className="sr-only">{cell.modules} phase positions left empty</span>
                 </div>
               ) : (
-                <DeviceCell
-                  key={cell.id}
-                  way={wayById.get(cell.id)!}
-                  label={cell.label}
-                  start={cell.start}
-                  result={results.get(cell.id)}
-                  sizedFor={sizedFor}
-                  pending={pending}
-                  showVerdict={showVerdicts}
-                  selected={selection.includes(cell.id)}
-                  readOnly={readOnly}
-                  onSelect={onSelect}
-                  onRemove={onRemove}
-                />
+                <DeviceCell key={cell.id} wayId={cell.id} label={cell.label} start={cell.start} />
               ),
             )}
             {drawing.free > 0 ? (
-              <FreeModules rail={drawing.rail} start={drawing.used} modules={drawing.free} readOnly={readOnly} refusal={dropRefusal} />
+              <FreeModules rail={drawing.rail} start={drawing.used} modules={drawing.free} />
             ) : null}
           </div>
         </SortableContext>
         {drawing.free <= 0 && !readOnly ? (
-          <FreeModules rail={drawing.rail} start={0} modules={0} readOnly={readOnly} refusal={dropRefusal} />
+          <FreeModules rail={drawing.rail} start={0} modules={0} />
         ) : null}
       </div>
-      <RailLegend
-        railName={railCount > 1 ? `rail ${drawing.rail + 1}` : 'the rail'}
-        entries={devices.map((c) => ({ way: wayById.get(c.id)!, label: c.label }))}
-        results={results}
-        pending={pending}
-        showVerdicts={showVerdicts}
-        selection={selection}
-        onSelect={onSelect}
-      />
+      <RailLegend railName={railCount > 1 ? `rail ${drawing.rail + 1}` : 'the rail'} entries={devices} />
     </div>
   );
 }

@@ -4,8 +4,8 @@ import { Button } from '@/components/ui/button';
 import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { countWays, countWords } from '@/lib/boards/counts';
 
+import { useDraftSizing } from '../hooks/use-live-sizing';
 import { useBoardDraftStore } from '../stores/board-draft-store';
-import { useSizingStore } from '../stores/sizing-store';
 
 type Props = { open: boolean; revision: number; onClose: () => void; onConfirm: () => void };
 
@@ -18,7 +18,7 @@ export function SubmitConfirmDialog({ open, revision, onClose, onConfirm }: Prop
   const ways = useBoardDraftStore((s) => s.ways);
   const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
   const dirty = useBoardDraftStore((s) => s.dirty);
-  const counts = useSizingStore((s) => s.result?.summary.counts);
+  const counts = useDraftSizing((s) => s.result.summary.counts);
   return (
     <Dialog open={open} onClose={onClose} title={`Send ${name} for review?`}>
       <div className="space-y-2 text-sm leading-relaxed text-ink">

@@ -1,16 +1,15 @@
 'use client';
 
 import { CircleDashed, Plus, Trash2 } from 'lucide-react';
-import { useCallback, useMemo } from 'react';
 
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
-import { layoutWays } from '@/lib/boards/layout';
 import { rcdGroups } from '@/lib/boards/rail';
-import { isProtectiveDevice, type CircuitSpec, type DeviceOnRail } from '@/lib/sizing';
+import { isProtectiveDevice } from '@/lib/sizing';
 
+import { useWayLabels } from '../hooks/use-board-view';
+import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
 import { useBoardDraftStore } from '../stores/board-draft-store';
-import { useSizingStore } from '../stores/sizing-store';
 import { startingCircuit } from '../utils/default-circuit';
 import { deviceWords } from '../utils/device-catalogue';
 import { CircuitForm } from './circuit-form';
@@ -31,27 +30,12 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const ways = useBoardDraftStore((s) => s.ways);
   const selection = useBoardDraftStore((s) => s.selection);
-  const select = useBoardDraftStore((s) => s.select);
-  const selectMany = useBoardDraftStore((s) => s.selectMany);
-  const updateCircuit = useBoardDraftStore((s) => s.updateCircuit);
-  const updateDevice = useBoardDraftStore((s) => s.updateDevice);
-  const wayResult = useSizingStore((s) => (selection[0] ? s.byId.get(selection[0]) : undefined));
-  const sizedFor = useSizingStore((s) => s.forRevision);
-  const pending = useSizingStore((s) => s.pendingRevision !== null);
-
-  const labels = useMemo(
-    () => new Map(settings ? layoutWays(settings.phases, ways).map((p) => [p.id, p.label]) : []),
-    [settings, ways],
-  );
+  const { select, selectMany, updateCircuit } = useBoardDraftStore.getState();
+  const labels = useWayLabels();
+  const wayResult = useDraftSizing((s) => s.result.ways.find((w) => w.id === selection[0]));
+  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
+  const { pending } = useSizingState();
   const way = ways.find((w) => w.id === selection[0]);
-  const onCircuit = useCallback(
-    (circuit: CircuitSpec, field: string) => way && updateCircuit(way.id, circuit, `circuit:${way.id}:${field}`),
-    [way, updateCircuit],
-  );
-  const onDevice = useCallback(
-    (device: DeviceOnRail, field: string) => way && updateDevice(way.id, device, `device:${way.id}:${field}`),
-    [way, updateDevice],
-  );
 
   if (!settings) return null;
   if (!way) {
@@ -123,7 +107,7 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
       <div className="space-y-5 px-4 py-4">
         <div>
           <h3 className="mb-2 text-xs font-semibold tracking-wide text-ink-soft uppercase">Device</h3>
-          <DeviceForm key={`d-${way.id}`} wayId={way.id} device={way.device} readOnly={readOnly} onValid={onDevice} />
+          <DeviceForm key={`d-${way.id}`} wayId={way.id} readOnly={readOnly} />
         </div>
 
         {protective ? (
@@ -137,14 +121,7 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
               ) : null}
             </div>
             {way.circuit ? (
-              <CircuitForm
-                key={`c-${way.id}`}
-                wayId={way.id}
-                circuit={way.circuit}
-                boardPhases={settings.phases}
-                readOnly={readOnly}
-                onValid={onCircuit}
-              />
+              <CircuitForm key={`c-${way.id}`} wayId={way.id} boardPhases={settings.phases} readOnly={readOnly} />
             ) : (
               <div className="rounded-md border border-dashed border-line-strong p-3 text-sm text-ink-soft">
                 A spare way: no circuit yet.

@@ -1,15 +1,14 @@
 'use client';
 
-import { useCallback, useEffect, useRef } from 'react';
+import { useMutation } from '@tanstack/react-query';
+import { useCallback, useEffect } from 'react';
 
-import { errorMessage } from '@/lib/api/client';
-import { saveInputOf } from '@/lib/boards/schemas';
-import type { BoardDto } from '@/lib/boards/types';
+import { ApiError, errorMessage } from '@/lib/api/client';
 
 import { fetchBoard, saveDraft } from '../api/board-editor-api';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
-import type { EditorBoard } from '../types/draft';
+import { editorBoard } from '../utils/board-shape';
 import { clearStoredDraft } from './use-draft-persistence';
 
 /** Quiet time after the last change before the draft saves itself, ms. */
@@ -17,88 +16,71 @@ export const AUTOSAVE_MS = 3000;
 /** First wait before a failed save is tried again; it doubles each time, up to a minute. */
 export const RETRY_FIRST_MS = 5000;
 
-/** The editor's view of a board from the API. */
-export function editorBoard(board: BoardDto): EditorBoard {
-  return { id: board.id, status: board.status, ...saveInputOf(board) };
+/** A failure that may pass on its own: the server not reached, or not able to answer just now. */
+const passing = (err: unknown) => err instanceof ApiError && (err.status === 0 || err.status === 408 || err.status === 429 || err.status >= 500);
+
+/**
+ * One attempt at saving the draft as it is now, at the version it builds on; `settle` hears
+ * whether it ended saved. It says how it went in the save store and throws what may be tried again.
+ */
+async function saveAttempt(boardId: string, settle: (saved: boolean) => void): Promise<void> {
+  const { settings, ways, baseVersion, dirty } = useBoardDraftStore.getState();
+  const { phase } = useSaveStore.getState();
+  if (!settings || !dirty || phase === 'conflict' || phase === 'locked') return settle(!dirty);
+  const snapshot = { settings, ways };
+  useSaveStore.getState().set({ phase: 'saving', message: null });
+  try {
+    const outcome = await saveDraft(boardId, baseVersion, snapshot);
+    if (outcome.kind === 'saved') {
+      useBoardDraftStore.getState().markSaved(outcome.board.version, snapshot, outcome.board.status);
+      if (!useBoardDraftStore.getState().dirty) clearStoredDraft(boardId);
+      useSaveStore.getState().set({ phase: 'saved', savedAt: Date.now(), message: null });
+    } else if (outcome.kind === 'conflict') {
+      useSaveStore.getState().set({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
+    } else {
+      useSaveStore.getState().set({ phase: 'locked', message: outcome.message });
+    }
+    settle(outcome.kind === 'saved' && !useBoardDraftStore.getState().dirty);
+  } catch (err) {
+    useSaveStore.getState().set({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
+    settle(false);
+    throw err;
+  }
 }
 
 /**
- * Saving the draft: `save()` on demand and on its own a few seconds after the last change.
- * A save names the version the draft builds on; when someone else saved first the save store
- * goes to `conflict` and waits for the designer: `reloadTheirs()` drops this draft for the
- * stored board, `keepMine()` saves this draft on top of theirs. A failed save keeps the draft
- * (in memory and session storage), says so and is tried again on its own. Only one save runs at a time; a save asked
- * for meanwhile waits for it, then saves whatever is newer.
+ * Saving the draft: `save()` on demand and on its own a few seconds after the last change, as
+ * a mutation. Saves of a board run one at a time in order (the mutation's scope), each saving
+ * the draft as it is when it runs. A save names the version the draft builds on; when someone
+ * else saved first the save store goes to `conflict` and waits for the designer:
+ * `reloadTheirs()` drops this draft for the stored board, `keepMine()` saves this draft on top
+ * of theirs. A save that fails because the server is out of reach keeps the draft (in memory
+ * and session storage), says so, and is tried again by the mutation's `retry`, waiting longer
+ * each time. `save()` answers after its first attempt: whether the draft is saved now.
  */
 export function useBoardSave(boardId: string, enabled: boolean) {
-  const inFlight = useRef<Promise<void> | null>(null);
+  const { mutate } = useMutation({
+    mutationKey: ['board-save', boardId],
+    scope: { id: `board-save:${boardId}` },
+    mutationFn: (settle: (saved: boolean) => void) => saveAttempt(boardId, settle),
+    retry: (_failures, err) => passing(err),
+    retryDelay: (failures) => Math.min(RETRY_FIRST_MS * 2 ** failures, 60_000),
+    networkMode: 'always',
+  });
 
-  const save = useCallback(async (): Promise<boolean> => {
-    if (!enabled) return false;
-    // One save at a time: wait for the one running, then save what is newer
-    while (inFlight.current) await inFlight.current;
-    const phase = useSaveStore.getState().phase;
-    if (phase === 'conflict' || phase === 'locked') return false;
-    const run = async () => {
-      const { settings, ways, baseVersion, dirty } = useBoardDraftStore.getState();
-      if (!settings || !dirty) return;
-      const snapshot = { settings, ways };
-      useSaveStore.getState().set({ phase: 'saving', message: null });
-      try {
-        const outcome = await saveDraft(boardId, baseVersion, snapshot);
-        if (outcome.kind === 'saved') {
-          useBoardDraftStore.getState().markSaved(outcome.board.version, snapshot, outcome.board.status);
-          if (!useBoardDraftStore.getState().dirty) clearStoredDraft(boardId);
-          useSaveStore.getState().set({ phase: 'saved', savedAt: Date.now(), message: null });
-        } else if (outcome.kind === 'conflict') {
-          useSaveStore.getState().set({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
-        } else {
-          useSaveStore.getState().set({ phase: 'locked', message: outcome.message });
-        }
-      } catch (err) {
-        useSaveStore.getState().set({
-          phase: 'failed',
-          message: `${errorMessage(err)} Your changes are kept in this browser.`,
-        });
-      }
-    };
-    const running = run();
-    inFlight.current = running;
-    try {
-      await running;
-    } finally {
-      inFlight.current = null;
-    }
-    return !useBoardDraftStore.getState().dirty && useSaveStore.getState().phase !== 'failed';
-  }, [boardId, enabled]);
+  const save = useCallback(
+    (): Promise<boolean> => (enabled ? new Promise<boolean>((settle) => mutate(settle)) : Promise.resolve(false)),
+    [enabled, mutate],
+  );
 
-  // Autosave a few seconds after the last change
+  // Autosave: a few seconds after the last change
   useEffect(() => {
     if (!enabled) return;
     let timer: ReturnType<typeof setTimeout> | undefined;
     const unsubscribe = useBoardDraftStore.subscribe((state, previous) => {
-      if (state.revision === previous.revision || !state.dirty) return;
+      if (state.editSeq === previous.editSeq || !state.dirty) return;
       if (timer) clearTimeout(timer);
       timer = setTimeout(() => void save(), AUTOSAVE_MS);
-    });
-    return () => {
-      unsubscribe();
-      if (timer) clearTimeout(timer);
-    };
-  }, [enabled, save]);
-
-  // A failed save (server or network away) is tried again on its own, waiting longer each time
-  useEffect(() => {
-    if (!enabled) return;
-    let attempt = 0;
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    const unsubscribe = useSaveStore.subscribe((state, previous) => {
-      if (state.phase === previous.phase) return;
-      if (state.phase === 'saved') attempt = 0;
-      if (state.phase !== 'failed') return;
-      if (timer) clearTimeout(timer);
-      timer = setTimeout(() => void save(), Math.min(RETRY_FIRST_MS * 2 ** attempt, 60_000));
-      attempt += 1;
     });
     return () => {
       unsubscribe();

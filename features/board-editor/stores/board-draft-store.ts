@@ -6,6 +6,7 @@ import type { CircuitSpec, DeviceOnRail } from '@/lib/sizing';
 import type { BoardStatus } from '@/models/board';
 
 import type { DraftSnapshot, EditorBoard, EditorWay, EditResult } from '../types/draft';
+import { sameValue } from '../utils/same-value';
 
 /** How many steps undo keeps (the issue asks for at least 50). */
 export const UNDO_LIMIT = 100;
@@ -20,8 +21,8 @@ type State = {
   status: BoardStatus;
   /** The stored version the draft builds on; a save names it. */
   baseVersion: number;
-  /** Goes up on every change to the draft (edit, undo, redo, load): live sizing keys on it. */
-  revision: number;
+  /** The edit sequence: goes up on every change to the draft (edit, undo, redo, load); live sizing keys on it. */
+  editSeq: number;
   /** The draft as last saved (or loaded); compared by reference for the dirty flag. */
   saved: DraftSnapshot | null;
   dirty: boolean;
@@ -31,6 +32,11 @@ type State = {
   lastKey: string | null;
   selection: string[];
   notice: EditorNotice | null;
+  /**
+   * What a way's form holds while it is not valid yet, by form and way (`circuit:<id>`), so
+   * that it survives selecting another way. Not part of the draft: no undo step, no save.
+   */
+  unfinished: Record<string, unknown>;
 };
 
 type Actions = {
@@ -56,6 +62,8 @@ type Actions = {
   /** Keep this draft but build on `version` (after a conflict: "keep mine"). */
   rebase: (version: number) => void;
   setStatus: (status: BoardStatus) => void;
+  /** Keeps (or, with null, drops) a form's input that is not valid yet. */
+  keepUnfinished: (key: string, values: unknown) => void;
   clearNotice: () => void;
   reset: () => void;
 };
@@ -68,7 +76,7 @@ const initial: State = {
   ways: [],
   status: 'draft',
   baseVersion: 0,
-  revision: 0,
+  editSeq: 0,
   saved: null,
   dirty: false,
   past: [],
@@ -76,12 +84,28 @@ const initial: State = {
   lastKey: null,
   selection: [],
   notice: null,
+  unfinished: {},
 };
 
 let noticeId = 0;
 
 const isSaved = (saved: DraftSnapshot | null, settings: BoardSettings | null, ways: EditorWay[]) =>
   !!saved && saved.settings === settings && saved.ways === ways;
+
+const without = (record: Record<string, unknown>, key: string) =>
+  key in record ? Object.fromEntries(Object.entries(record).filter(([k]) => k !== key)) : record;
+
+/** The kept input of the ways whose device or circuit `ways` changed is dropped: the change wins. */
+function keptFor(state: State, ways: EditorWay[]): Record<string, unknown> {
+  const before = new Map(state.ways.map((w) => [w.id, w]));
+  const after = new Map(ways.map((w) => [w.id, w]));
+  return Object.fromEntries(
+    Object.entries(state.unfinished).filter(([key]) => {
+      const [form, id] = key.split(':') as ['circuit' | 'device', string];
+      return before.get(id)?.[form] === after.get(id)?.[form];
+    }),
+  );
+}
 
 /** The part of the state a change sets: a new snapshot, one undo step (or merged), dirty. */
 function commit(state: State, next: Partial<DraftSnapshot>, key: string | null = null): Partial<State> {
@@ -96,7 +120,7 @@ function commit(state: State, next: Partial<DraftSnapshot>, key: string | null =
     past,
     future: [],
     lastKey: key,
-    revision: state.revision + 1,
+    editSeq: state.editSeq + 1,
     dirty: !isSaved(state.saved, settings, ways),
   };
 }
@@ -125,7 +149,7 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
       ways: current.ways,
       saved,
       dirty: !!draft,
-      revision: get().revision + 1,
+      editSeq: get().editSeq + 1,
     });
   },
 
@@ -170,9 +194,13 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
 
   updateCircuit: (id, circuit, key) => {
     const state = get();
+    const way = state.ways.find((w) => w.id === id);
+    if (!way) return;
+    const unfinished = without(state.unfinished, `circuit:${id}`);
+    // The same value again (a form showing an undo): no edit, so the redo stack stays
+    if (sameValue(way.circuit, circuit)) return set({ unfinished });
     const ways = state.ways.map((w) => (w.id === id ? { ...w, circuit } : w));
-    if (!state.ways.some((w) => w.id === id)) return;
-    set(commit(state, { ways }, key ?? null));
+    set({ ...commit(state, { ways }, key ?? null), unfinished });
   },
 
   updateDevice: (id, device, key) => {
@@ -184,8 +212,13 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
       set(refused(reason));
       return { ok: false, reason };
     }
+    const unfinished = without(state.unfinished, `device:${id}`);
+    if (sameValue(way.device, device)) {
+      set({ unfinished });
+      return { ok: true };
+    }
     const ways = state.ways.map((w) => (w.id === id ? { ...w, device } : w));
-    set(commit(state, { ways }, key ?? null));
+    set({ ...commit(state, { ways }, key ?? null), unfinished });
     return { ok: true };
   },
 
@@ -221,7 +254,8 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
       past: state.past.slice(0, -1),
       future: [present, ...state.future],
       lastKey: null,
-      revision: state.revision + 1,
+      editSeq: state.editSeq + 1,
+      unfinished: keptFor(state, previous.ways),
       dirty: !isSaved(state.saved, previous.settings, previous.ways),
       selection: state.selection.filter((id) => ids.has(id)),
     });
@@ -239,7 +273,8 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
       past: [...state.past, present].slice(-UNDO_LIMIT),
       future: state.future.slice(1),
       lastKey: null,
-      revision: state.revision + 1,
+      editSeq: state.editSeq + 1,
+      unfinished: keptFor(state, next.ways),
       dirty: !isSaved(state.saved, next.settings, next.ways),
       selection: state.selection.filter((id) => ids.has(id)),
     });
@@ -260,7 +295,10 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
   rebase: (version) => set({ baseVersion: version }),
   setStatus: (status) => set({ status }),
   clearNotice: () => set({ notice: null }),
-  reset: () => set({ ...initial }),
+  keepUnfinished: (key, values) =>
+    set((state) => ({ unfinished: values === null ? without(state.unfinished, key) : { ...state.unfinished, [key]: values } })),
+  // The edit sequence carries on: a sizing kept for an earlier opening never passes for this one
+  reset: () => set({ ...initial, editSeq: get().editSeq }),
 }));
 
 /** The open draft as a snapshot (for saving and sizing). */

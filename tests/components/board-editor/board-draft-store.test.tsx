@@ -79,6 +79,51 @@ describe('the board draft store', () => {
     expect(store().ways.find((w) => w.id === way.id)!.circuit!.lengthM).toBe(way.circuit!.lengthM);
   });
 
+  it('writing a value the draft already holds is no edit: no undo step, redo kept, edit sequence unmoved', () => {
+    store().load(demoBoard('flat'));
+    const way = store().ways.find((w) => w.circuit)!;
+    store().updateCircuit(way.id, { ...way.circuit!, lengthM: 44 });
+    store().undo();
+    const seq = store().editSeq;
+    // The same circuit with its keys in another order and an absent optional field as undefined
+    const reordered = Object.fromEntries(Object.entries(way.circuit!).reverse());
+    store().updateCircuit(way.id, { ...reordered, notAField: undefined } as never);
+    store().updateDevice(way.id, { ...way.device });
+    expect(store().future).toHaveLength(1);
+    expect(store().past).toHaveLength(0);
+    expect(store().editSeq).toBe(seq);
+    expect(store().dirty).toBe(false);
+    store().redo();
+    expect(store().ways.find((w) => w.id === way.id)!.circuit!.lengthM).toBe(44);
+  });
+
+  it('keeps a form’s unfinished input outside the draft; a valid value or an undo of that way drops it', () => {
+    store().load(demoBoard('flat'));
+    const [a, b] = store().ways.filter((w) => w.circuit);
+    store().keepUnfinished(`circuit:${a.id}`, { lengthM: '' });
+    store().keepUnfinished(`circuit:${b.id}`, { lengthM: '' });
+    expect(store().past).toHaveLength(0);
+    expect(store().dirty).toBe(false);
+    store().updateCircuit(a.id, { ...a.circuit!, lengthM: 13 });
+    expect(store().unfinished).toEqual({ [`circuit:${b.id}`]: { lengthM: '' } });
+    store().keepUnfinished(`circuit:${a.id}`, { lengthM: 'x' });
+    // Undo changes way a's circuit back: its unfinished input goes, way b's stays
+    store().undo();
+    expect(Object.keys(store().unfinished)).toEqual([`circuit:${b.id}`]);
+  });
+
+  it('the edit sequence goes up with every change and carries on over a reset', () => {
+    store().load(demoBoard('flat'));
+    const first = store().editSeq;
+    store().removeWay(store().ways[0].id);
+    expect(store().editSeq).toBe(first + 1);
+    store().undo();
+    expect(store().editSeq).toBe(first + 2);
+    store().reset();
+    store().load(demoBoard('flat'));
+    expect(store().editSeq).toBe(first + 3);
+  });
+
   it('adds a device that fits and selects it', () => {
     store().load(demoBoard('flat'));
     const newId = id();

@@ -1,4 +1,4 @@
-import { act, render } from '@testing-library/react';
+import { act } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 
 import { useBoardSave } from '@/features/board-editor/hooks/use-board-save';
@@ -7,7 +7,7 @@ import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-s
 import { useSaveStore } from '@/features/board-editor/stores/save-store';
 import type { EditorBoard } from '@/features/board-editor/types/draft';
 
-import { json, mockFetch, sentBody } from '../helpers';
+import { json, mockFetch, renderWithQuery, sentBody } from '../helpers';
 import { demoBoard } from './fixtures';
 
 const store = () => useBoardDraftStore.getState();
@@ -34,7 +34,7 @@ beforeEach(() => {
   window.sessionStorage.clear();
   board = demoBoard('flat', 3);
   store().load(board);
-  render(<Harness boardId={board.id} onApi={(a) => (api = a)} />);
+  renderWithQuery(<Harness boardId={board.id} onApi={(a) => (api = a)} />);
 });
 afterEach(() => vi.unstubAllGlobals());
 

@@ -1,26 +1,24 @@
-import { act, render, screen } from '@testing-library/react';
+import { screen } from '@testing-library/react';
 import { beforeEach, describe, expect, it } from 'vitest';
 
 import { BoardSummary } from '@/features/board-editor/components/board-summary';
 import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-store';
-import { useSizingStore } from '@/features/board-editor/stores/sizing-store';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
 import { demoBoard } from './fixtures';
+import { renderEditorPart } from './harness';
 
 const store = () => useBoardDraftStore.getState();
 
 beforeEach(() => {
   store().reset();
-  useSizingStore.getState().reset();
 });
 
 function sized(which: 'flat' | 'workshop') {
   store().load(demoBoard(which));
   const result = sizeBoard(boardInputSchema.parse(boardSizingInput(store().settings!, store().ways)));
-  act(() => useSizingStore.getState().apply(store().revision, result));
-  return render(<BoardSummary />);
+  return renderEditorPart(<BoardSummary />, result);
 }
 
 describe('the editor’s board summary counts ways as they are numbered', () => {

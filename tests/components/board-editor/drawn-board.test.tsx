@@ -1,29 +1,29 @@
 import { DndContext } from '@dnd-kit/core';
-import { act, fireEvent, render, screen } from '@testing-library/react';
+import { act, fireEvent, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeEach, describe, expect, it } from 'vitest';
 
 import { DrawnBoard } from '@/features/board-editor/components/drawn-board';
 import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-store';
-import { useSizingStore } from '@/features/board-editor/stores/sizing-store';
 import { deviceFromChoice } from '@/features/board-editor/utils/device-catalogue';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
-import { boardInputSchema, sizeBoard } from '@/lib/sizing';
+import { boardInputSchema, sizeBoard, type BoardResult } from '@/lib/sizing';
 
 import { demoBoard } from './fixtures';
+import { renderEditorPart } from './harness';
 
 const store = () => useBoardDraftStore.getState();
 
 beforeEach(() => {
   store().reset();
-  useSizingStore.getState().reset();
 });
 
-function renderBoard(showVerdicts = true) {
-  return render(
+function renderBoard(showVerdicts = true, sized?: BoardResult) {
+  return renderEditorPart(
     <DndContext>
       <DrawnBoard readOnly={false} showVerdicts={showVerdicts} />
     </DndContext>,
+    sized,
   );
 }
 
@@ -100,8 +100,7 @@ describe('the drawn board', () => {
     const cooker = store().ways.find((w) => w.circuit?.serves === 'Cooker: oven and hob')!;
     store().updateCircuit(cooker.id, { ...cooker.circuit!, load: { kind: 'known', watts: 10_000, powerFactor: 1 } });
     const result = sizeBoard(boardInputSchema.parse(boardSizingInput(store().settings!, store().ways)));
-    act(() => useSizingStore.getState().apply(store().revision, result));
-    const { container } = renderBoard();
+    const { container } = renderBoard(true, result);
     const cell = container.querySelector(`[data-way-id="${cooker.id}"]`)!;
     // On the device: icon and colour (one module has no room for the word)
     const mark = cell.querySelector('[data-verdict]')!;
@@ -138,8 +137,7 @@ describe('the drawn board', () => {
   it('every way’s reference, description and verdict are written level in the legend, nothing is turned', () => {
     store().load(demoBoard('workshop'));
     const result = sizeBoard(boardInputSchema.parse(boardSizingInput(store().settings!, store().ways)));
-    act(() => useSizingStore.getState().apply(store().revision, result));
-    const { container } = renderBoard();
+    const { container } = renderBoard(true, result);
     const cells = Array.from(container.querySelectorAll<HTMLElement>('[data-way-id]'));
     expect(cells.length).toBe(store().ways.length);
     for (const cell of cells) {

@@ -1,22 +1,36 @@
-import { act, render, waitFor } from '@testing-library/react';
+import { act, waitFor } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 
-import { useLiveSizing } from '@/features/board-editor/hooks/use-live-sizing';
+import { LiveSizing, useDraftSizing, useSizingState } from '@/features/board-editor/hooks/use-live-sizing';
 import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-store';
-import { useSizingStore } from '@/features/board-editor/stores/sizing-store';
 import type { BoardResult } from '@/lib/sizing';
 
+import { renderWithQuery } from '../helpers';
 import { demoBoard } from './fixtures';
 
 const store = () => useBoardDraftStore.getState();
 
 /** A made-up answer that names itself, so the test can tell which one is shown. */
-const answer = (tag: number) =>
-  ({ ways: [], summary: { maxDemandA: tag } }) as unknown as BoardResult;
+const answer = (tag: number) => ({ ways: [], summary: { maxDemandA: tag } }) as unknown as BoardResult;
 
-function Harness({ boardId }: { boardId: string }) {
-  useLiveSizing(boardId, true);
+/** What a component inside the live sizing reads: the answer shown, its edit sequence, pending and error. */
+let seen: { tag?: number; sizedFor?: number; pending: boolean; error: string | null };
+function Probe() {
+  const tag = useDraftSizing((s) => s.result.summary.maxDemandA);
+  const sizedFor = useDraftSizing((s) => s.editSeq);
+  seen = { tag, sizedFor, ...useSizingState() };
   return null;
+}
+
+function open() {
+  const board = demoBoard('flat');
+  store().load(board);
+  renderWithQuery(
+    <LiveSizing boardId={board.id} enabled>
+      <Probe />
+    </LiveSizing>,
+  );
+  return board;
 }
 
 type Pending = { url: string; body: { draft: { ways: unknown[] } }; signal: AbortSignal; resolve: (r: Response) => void };
@@ -24,7 +38,6 @@ type Pending = { url: string; body: { draft: { ways: unknown[] } }; signal: Abor
 let calls: Pending[];
 beforeEach(() => {
   store().reset();
-  useSizingStore.getState().reset();
   calls = [];
   vi.stubGlobal(
     'fetch',
@@ -43,42 +56,38 @@ const reply = (call: Pending, tag: number) =>
   act(async () => call.resolve(new Response(JSON.stringify(answer(tag)), { status: 200 })));
 
 describe('live sizing of the draft', () => {
-  it('sends the draft at once, aborts it when a newer change comes, and shows only the newer answer', async () => {
-    const board = demoBoard('flat');
-    store().load(board);
-    render(<Harness boardId={board.id} />);
+  it('sends the draft at once, sizes a burst of edits once, aborts what a newer edit makes worthless', async () => {
+    const board = open();
     // The first sizing goes without waiting
     await waitFor(() => expect(calls).toHaveLength(1));
     expect(calls[0].url).toBe(`/api/boards/${board.id}/sizing`);
     expect(calls[0].body.draft.ways).toHaveLength(board.ways.length);
+    await reply(calls[0], 1);
+    await waitFor(() => expect(seen).toMatchObject({ tag: 1, sizedFor: store().editSeq, pending: false }));
 
-    // Two quick edits: the request in flight is aborted; one request follows the burst
+    // A quick burst of edits: one request follows it, with the last edit; the shown answer stays meanwhile
     const way = store().ways.find((w) => w.circuit)!;
+    await new Promise((r) => setTimeout(r, 200));
     act(() => store().updateCircuit(way.id, { ...way.circuit!, lengthM: 20 }, 'len'));
-    expect(calls[0].signal.aborted).toBe(true);
+    await waitFor(() => expect(calls).toHaveLength(2));
     act(() => store().updateCircuit(way.id, { ...way.circuit!, lengthM: 21 }, 'len'));
-    expect(calls).toHaveLength(1);
-    await waitFor(() => expect(calls).toHaveLength(2), { timeout: 1000 });
-    const sent = calls[1].body.draft.ways as { id: string; circuit: { lengthM: number } }[];
-    expect(sent.find((w) => w.id === way.id)!.circuit.lengthM).toBe(21);
+    act(() => store().updateCircuit(way.id, { ...way.circuit!, lengthM: 22 }, 'len'));
+    expect(seen).toMatchObject({ tag: 1, pending: true });
+    await waitFor(() => expect(calls).toHaveLength(3), { timeout: 1000 });
+    // The request for the first edit of the burst was aborted once the newer one went
+    expect(calls[1].signal.aborted).toBe(true);
+    const sent = calls[2].body.draft.ways as { id: string; circuit: { lengthM: number } }[];
+    expect(sent.find((w) => w.id === way.id)!.circuit.lengthM).toBe(22);
 
-    await reply(calls[1], 2);
-    expect(useSizingStore.getState().forRevision).toBe(store().revision);
-    expect(useSizingStore.getState().result?.summary.maxDemandA).toBe(2);
-  });
-
-  it('an answer for an older revision never replaces a newer one', () => {
-    useSizingStore.getState().apply(5, answer(5));
-    useSizingStore.getState().apply(4, answer(4));
-    expect(useSizingStore.getState().result?.summary.maxDemandA).toBe(5);
-    useSizingStore.getState().fail(3, 'late failure');
-    expect(useSizingStore.getState().error).toBeNull();
+    // A late answer for the aborted request is never shown
+    await reply(calls[1], 99);
+    expect(seen.tag).toBe(1);
+    await reply(calls[2], 3);
+    await waitFor(() => expect(seen).toMatchObject({ tag: 3, sizedFor: store().editSeq, pending: false }));
   });
 
   it('a failed sizing is reported and the draft stays editable', async () => {
-    const board = demoBoard('flat');
-    store().load(board);
-    render(<Harness boardId={board.id} />);
+    open();
     await waitFor(() => expect(calls).toHaveLength(1));
     await act(async () =>
       calls[0].resolve(
@@ -87,7 +96,8 @@ describe('live sizing of the draft', () => {
         }),
       ),
     );
-    expect(useSizingStore.getState().error).toBe('Some fields are not valid. (ways.2.circuit: bad)');
+    await waitFor(() => expect(seen.error).toBe('Some fields are not valid. (ways.2.circuit: bad)'));
+    expect(seen.pending).toBe(false);
     act(() => store().removeWay(store().ways[2].id));
     expect(store().dirty).toBe(true);
   });

@@ -1,5 +1,5 @@
 import { DndContext } from '@dnd-kit/core';
-import { act, render, screen } from '@testing-library/react';
+import { act, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { beforeEach, describe, expect, it } from 'vitest';
 
@@ -8,9 +8,9 @@ import { WayPanel } from '@/features/board-editor/components/way-panel';
 import { useUndoShortcuts } from '@/features/board-editor/hooks/use-undo-shortcuts';
 import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-store';
 import { useSaveStore } from '@/features/board-editor/stores/save-store';
-import { useSizingStore } from '@/features/board-editor/stores/sizing-store';
 
 import { demoBoard } from './fixtures';
+import { renderEditorPart } from './harness';
 
 const store = () => useBoardDraftStore.getState();
 const wayOf = (id: string) => store().ways.find((w) => w.id === id)!;
@@ -53,7 +53,7 @@ function openImmersion() {
   store().load({ ...board, ways: stored });
   const way = store().ways.find((w) => w.circuit?.serves === 'Immersion heater, airing cupboard')!;
   act(() => store().select(way.id));
-  render(<Editor />);
+  renderEditorPart(<Editor />);
   return way;
 }
 
@@ -62,11 +62,11 @@ const redoButton = () => screen.getByRole('button', { name: 'Redo' }) as HTMLBut
 
 beforeEach(() => {
   store().reset();
-  useSizingStore.getState().reset();
   useSaveStore.getState().reset();
 });
 
-describe('redo after undoing a change made in the way panel', () => {
+// Typing through user-event in a full way panel takes seconds on a loaded machine
+describe('redo after undoing a change made in the way panel', { timeout: 30_000 }, () => {
   it('a length: undo, then redo by the button, by Ctrl+Shift+Z and by Ctrl+Y', async () => {
     const user = userEvent.setup();
     const way = openImmersion();

@@ -1,5 +1,5 @@
 import { DndContext } from '@dnd-kit/core';
-import { act, render, screen, within } from '@testing-library/react';
+import { act, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 // @ts-expect-error -- its types are not reachable through the package's exports map
 import { computeAccessibleName } from 'dom-accessibility-api';
@@ -7,12 +7,12 @@ import { beforeEach, describe, expect, it, vi } from 'vitest';
 
 import { WayPanel } from '@/features/board-editor/components/way-panel';
 import { useBoardDraftStore } from '@/features/board-editor/stores/board-draft-store';
-import { useSizingStore } from '@/features/board-editor/stores/sizing-store';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import { CIRCUIT_FIELD_LABELS } from '@/lib/names';
-import { boardInputSchema, sizeBoard } from '@/lib/sizing';
+import { boardInputSchema, sizeBoard, type BoardResult } from '@/lib/sizing';
 
 import { demoBoard } from './fixtures';
+import { renderEditorPart } from './harness';
 
 const store = () => useBoardDraftStore.getState();
 
@@ -26,15 +26,15 @@ const circuitOf = (id: string) => store().ways.find((w) => w.id === id)!.circuit
 
 beforeEach(() => {
   store().reset();
-  useSizingStore.getState().reset();
 });
 
-function renderPanel(readOnly = false) {
+function renderPanel(readOnly = false, sized?: BoardResult) {
   const onRemove = vi.fn();
-  render(
+  renderEditorPart(
     <DndContext>
       <WayPanel readOnly={readOnly} showSizing onRemove={onRemove} />
     </DndContext>,
+    sized,
   );
   return { onRemove };
 }
@@ -171,8 +171,7 @@ describe('the way panel', () => {
     store().load(board);
     const way = openWay('Cooker: oven and hob');
     const result = sizeBoard(boardInputSchema.parse(boardSizingInput(board.settings, board.ways)));
-    act(() => useSizingStore.getState().apply(store().revision, result));
-    renderPanel();
+    renderPanel(false, result);
     const section = screen.getByRole('region', { name: 'Sizing result' });
     const sized = result.ways.find((w) => w.id === way.id)!.result!;
     expect(within(section).getByText('Design current Ib').nextSibling?.textContent).toContain(`${sized.ibA.toFixed(2)} A`);

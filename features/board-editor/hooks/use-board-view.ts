@@ -1,0 +1,36 @@
+'use client';
+
+import { createContext, useContext, useMemo } from 'react';
+
+import { layoutWays } from '@/lib/boards/layout';
+
+import { useBoardDraftStore } from '../stores/board-draft-store';
+
+/** How the drawn board is shown, from the editor: its parts read it rather than taking props. */
+export type BoardView = {
+  readOnly: boolean;
+  showVerdicts: boolean;
+  /** Why the device being dragged would not fit where it is, if it would not. */
+  dropRefusal: string | null;
+  onRemove: (id: string) => void;
+};
+
+export const BoardViewContext = createContext<BoardView>({
+  readOnly: true,
+  showVerdicts: false,
+  dropRefusal: null,
+  onRemove: () => {},
+});
+
+/** The drawn board's settings, from the nearest `DrawnBoard`. */
+export const useBoardView = () => useContext(BoardViewContext);
+
+/** Each way's reference (null for devices without one), by way id, for the draft as it is. */
+export function useWayLabels(): Map<string, string | null> {
+  const settings = useBoardDraftStore((s) => s.settings);
+  const ways = useBoardDraftStore((s) => s.ways);
+  return useMemo(
+    () => new Map(settings ? layoutWays(settings.phases, ways).map((p) => [p.id, p.label]) : []),
+    [settings, ways],
+  );
+}

@@ -1,0 +1,124 @@
+'use client';
+
+import { keepPreviousData, queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { createContext, useContext, useEffect, useMemo, useState } from 'react';
+
+import { ApiError } from '@/lib/api/client';
+import type { BoardResult } from '@/lib/sizing';
+
+import { sizeDraft } from '../api/board-editor-api';
+import { useBoardDraftStore } from '../stores/board-draft-store';
+
+/** Quiet time after a change before the draft is sized again, when changes come quickly, ms. */
+export const SIZING_DEBOUNCE_MS = 150;
+
+/** The sizing of the draft at one edit sequence. */
+export type DraftSizing = { editSeq: number; result: BoardResult };
+
+/** The query key of the draft's sizing at an edit sequence. */
+export const sizingKey = (boardId: string, editSeq: number) => ['board-sizing', boardId, editSeq] as const;
+
+/**
+ * The draft's sizing as a query keyed by the edit sequence: `POST /api/boards/:id/sizing` with
+ * the draft as it is when the request goes. A newer key leaves the request in flight without
+ * observers, and the query's signal aborts it; until the newer answer comes the last one stays
+ * shown (`placeholderData`). An answer never goes stale: a change is a new key.
+ */
+function sizingQuery(boardId: string, editSeq: number, enabled: boolean) {
+  return queryOptions({
+    queryKey: sizingKey(boardId, editSeq),
+    queryFn: async ({ signal }): Promise<DraftSizing> => {
+      const { settings, ways, editSeq: current } = useBoardDraftStore.getState();
+      const result = await sizeDraft(boardId, { settings: settings!, ways }, signal);
+      return { editSeq: current, result };
+    },
+    enabled,
+    placeholderData: keepPreviousData,
+    staleTime: Infinity,
+    gcTime: 5_000,
+    retry: false,
+  });
+}
+
+/**
+ * The edit sequence to size: at once after a quiet spell, else once changes have stopped
+ * coming for `SIZING_DEBOUNCE_MS` (a burst of typing is sized once). Decided as the store
+ * changes, not after a render, and the request goes out at that moment (`prefetchQuery`): the
+ * components showing the sizing attach to it as they render the change.
+ */
+function useSettledEditSeq(boardId: string, enabled: boolean): number {
+  const queryClient = useQueryClient();
+  const [settled, setSettled] = useState(() => useBoardDraftStore.getState().editSeq);
+  useEffect(() => {
+    let lastChange = -Infinity;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const settle = (editSeq: number) => {
+      if (enabled) void queryClient.prefetchQuery(sizingQuery(boardId, editSeq, true));
+      setSettled(editSeq);
+    };
+    const unsubscribe = useBoardDraftStore.subscribe(({ editSeq }, previous) => {
+      if (editSeq === previous.editSeq) return;
+      const now = performance.now();
+      const quiet = now - lastChange >= SIZING_DEBOUNCE_MS;
+      lastChange = now;
+      clearTimeout(timer);
+      if (quiet) settle(editSeq);
+      else timer = setTimeout(() => settle(useBoardDraftStore.getState().editSeq), SIZING_DEBOUNCE_MS);
+    });
+    return () => {
+      unsubscribe();
+      clearTimeout(timer);
+    };
+  }, [boardId, enabled, queryClient]);
+  return settled;
+}
+
+/** Which sizing the components show: the query's key. */
+type SizingKey = { boardId: string; editSeq: number; enabled: boolean };
+type SizingState = {
+  /** The result shown is not for the draft as it is now (a sizing is on its way). */
+  pending: boolean;
+  /** Why the last sizing failed, in words. */
+  error: string | null;
+};
+
+// Two contexts: a component reading the sizing re-renders for a new key, not for pending
+const SizingKeyContext = createContext<SizingKey>({ boardId: '', editSeq: 0, enabled: false });
+const SizingStateContext = createContext<SizingState>({ pending: false, error: null });
+
+/**
+ * Sizes the open draft after every change (`enabled`: the member may see sizing) and gives the
+ * components inside it the answer through `useDraftSizing`. The draft stays editable all the while.
+ */
+export function LiveSizing({ boardId, enabled, children }: { boardId: string; enabled: boolean; children: React.ReactNode }) {
+  const editSeq = useBoardDraftStore((s) => s.editSeq);
+  const open = useBoardDraftStore((s) => s.boardId === boardId && s.settings !== null);
+  const settled = useSettledEditSeq(boardId, enabled && open);
+  const query = useQuery(sizingQuery(boardId, settled, enabled && open));
+  const pending = enabled && !query.isError && query.data?.editSeq !== editSeq;
+  const error = query.error ? failureWords(query.error) : null;
+  const key = useMemo(() => ({ boardId, editSeq: settled, enabled: enabled && open }), [boardId, settled, enabled, open]);
+  const state = useMemo(() => ({ pending, error }), [pending, error]);
+  return (
+    <SizingKeyContext.Provider value={key}>
+      <SizingStateContext.Provider value={state}>{children}</SizingStateContext.Provider>
+    </SizingKeyContext.Provider>
+  );
+}
+
+function failureWords(err: Error): string {
+  const detail = err instanceof ApiError && err.issues.length ? ` (${err.issues[0].path}: ${err.issues[0].message})` : '';
+  return `${err.message}${detail}`;
+}
+
+/** Whether a sizing is on its way, and why the last one failed. */
+export const useSizingState = (): SizingState => useContext(SizingStateContext);
+
+/**
+ * The part of the draft's last sizing that `select` picks (undefined before the first answer).
+ * A component re-renders only when its part changes.
+ */
+export function useDraftSizing<T>(select: (sizing: DraftSizing) => T): T | undefined {
+  const { boardId, editSeq, enabled } = useContext(SizingKeyContext);
+  return useQuery({ ...sizingQuery(boardId, editSeq, enabled), select }).data;
+}
