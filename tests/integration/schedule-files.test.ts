@@ -18,7 +18,7 @@ import * as scheduleRoute from '@/app/api/boards/[boardId]/schedule/route';
 import * as labelRoute from '@/app/api/boards/[boardId]/ways/[wayId]/label/route';
 import { storedKey } from '@/features/schedule/print/print-files';
 import * as pool from '@/features/schedule/print/print-pool';
-import { getScheduleSource } from '@/lib/dal/review';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
 import { getObjectBytes } from '@/lib/storage/s3';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';

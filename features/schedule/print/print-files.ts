@@ -2,7 +2,7 @@ import 'server-only';
 
 import crypto from 'node:crypto';
 
-import type { ScheduleSource } from '@/lib/dal/review';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { getObjectStream, putObject } from '@/lib/storage/s3';
 
 import { formatDate } from '../utils/build-schedule';

@@ -1,4 +1,4 @@
-import type { ScheduleSource } from '@/lib/dal/review';
+import type { ScheduleSource } from '@/lib/dal/schedule-source';
 
 /** One PDF to render: a board state as the route read it, and the moment printed on it. */
 export type PrintJob = { kind: 'schedule' | 'labels'; source: ScheduleSource; now: string };
