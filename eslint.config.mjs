@@ -20,8 +20,16 @@ const features = fs
 // storage, the route wrapper), which models never import.
 const LIB_SERVICES = ['./lib/dal', './lib/db.ts', './lib/auth', './lib/mail', './lib/storage', './lib/api'];
 const zones = [
-  { target: './models', from: ['./app', './features', './components', ...LIB_SERVICES], message: 'models are the lowest layer.' },
-  { target: './lib', from: ['./app', './features', './components'], message: 'lib never imports app, features or components.' },
+  {
+    target: './models',
+    from: ['./app', './features', './components', ...LIB_SERVICES],
+    message: 'models are the lowest layer.',
+  },
+  {
+    target: './lib',
+    from: ['./app', './features', './components'],
+    message: 'lib never imports app, features or components.',
+  },
   { target: './components', from: ['./app', './features'], message: 'shared components never import app or features.' },
   { target: './features', from: './app', message: 'features never import app: compose features in app/.' },
   {
@@ -33,7 +41,8 @@ const zones = [
     target: `./features/${name}`,
     from: './features',
     except: [`./${name}`],
-    message: 'features never import each other: compose them in app/, or move the shared part down to components/ or lib/.',
+    message:
+      'features never import each other: compose them in app/, or move the shared part down to components/ or lib/.',
   })),
 ];
 
@@ -56,7 +65,10 @@ export default defineConfig([
     rules: {
       'import/no-restricted-paths': ['error', { zones }],
       'boardwright/client-server-boundary': 'error',
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrorsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_', caughtErrorsIgnorePattern: '^_' },
+      ],
       '@typescript-eslint/no-unused-expressions': 'error',
       // A type-only import says so (`import type`, or `type` inline): the bundler drops it.
       '@typescript-eslint/consistent-type-imports': [

@@ -15,7 +15,8 @@ const EXTENSIONS = ['.ts', '.tsx', '.mts', '.js', '.mjs', '/index.ts', '/index.t
 function resolve(root, fromFile, specifier) {
   let base;
   if (specifier.startsWith('@/')) base = path.join(root, specifier.slice(2));
-  else if (specifier.startsWith('./') || specifier.startsWith('../')) base = path.resolve(path.dirname(fromFile), specifier);
+  else if (specifier.startsWith('./') || specifier.startsWith('../'))
+    base = path.resolve(path.dirname(fromFile), specifier);
   else return null;
   for (const candidate of [base, ...EXTENSIONS.map((e) => base + e)]) {
     try {

@@ -12,12 +12,9 @@ export class HttpError extends Error {
 export type FieldIssue = { path: string; message: string };
 
 export const unauthorized = () => new HttpError(401, 'Sign in to continue.');
-export const forbidden = (what = 'do this') =>
-  new HttpError(403, `Your role may not ${what}.`);
+export const forbidden = (what = 'do this') => new HttpError(403, `Your role may not ${what}.`);
 export const notFound = (what = 'That item') => new HttpError(404, `${what} was not found.`);
-export const conflict = (message: string, body: Record<string, unknown> = {}) =>
-  new HttpError(409, message, body);
+export const conflict = (message: string, body: Record<string, unknown> = {}) => new HttpError(409, message, body);
 export const badRequest = (issues: FieldIssue[], message = 'Some fields are not valid.') =>
   new HttpError(400, message, { issues });
-export const unprocessable = (message: string, body: Record<string, unknown> = {}) =>
-  new HttpError(422, message, body);
+export const unprocessable = (message: string, body: Record<string, unknown> = {}) => new HttpError(422, message, body);

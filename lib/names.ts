@@ -137,7 +137,10 @@ export const CIRCUIT_FIELD_LABELS = {
 } as const;
 
 /** The words for a cable size the designer fixed (checked, never changed) and "choose it". */
-export const CABLE_SIZE_WORDS = { choose: 'Choose for me', fixed: (mm2: number) => `${mm2} mm² (fixed, checked)` } as const;
+export const CABLE_SIZE_WORDS = {
+  choose: 'Choose for me',
+  fixed: (mm2: number) => `${mm2} mm² (fixed, checked)`,
+} as const;
 
 export const VERDICT_WORDS: Record<Verdict, string> = {
   passes: 'Passes',

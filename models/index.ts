@@ -1,5 +1,7 @@
 import type { Sequelize } from 'sequelize';
 
+// The models register on the process's one pool; lib/db.ts holds only that pool (it imports lib/env alone)
+// eslint-disable-next-line import/no-restricted-paths
 import { db } from '@/lib/db';
 
 import { Attachment } from './attachment';

@@ -103,9 +103,7 @@ const s3 = new S3rver({
 
 async function main() {
   await new Promise<void>((resolve) => smtp.listen(smtpPort, '127.0.0.1', resolve));
-  await new Promise<void>((resolve) =>
-    api.listen(Number(catcherUrl.port), catcherUrl.hostname, resolve),
-  );
+  await new Promise<void>((resolve) => api.listen(Number(catcherUrl.port), catcherUrl.hostname, resolve));
   await s3.run();
   console.log(
     `fakes up: SMTP 127.0.0.1:${smtpPort}, mailbox ${catcherUrl.href}messages, S3 127.0.0.1:${s3Port}/${bucket}`,

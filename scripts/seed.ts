@@ -66,7 +66,12 @@ async function main() {
   // The second organisation owns one board, so that isolation can be seen and tested.
   const otherSite = await Site.findOne({ where: { organisationId: other.id } });
   if (!otherSite) {
-    const s = await Site.create({ name: 'Mill Cottage', address: '2 Weir Road', client: 'Private', organisationId: other.id });
+    const s = await Site.create({
+      name: 'Mill Cottage',
+      address: '2 Weir Road',
+      client: 'Private',
+      organisationId: other.id,
+    });
     await createBoard(other.id, s.id, otherAdmin.id, FLAT_BOARD);
   }
 

@@ -7,11 +7,7 @@ import { SignInForm } from './_components/sign-in-form';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
-export default async function LoginPage({
-  searchParams,
-}: {
-  searchParams: Promise<{ callbackUrl?: string }>;
-}) {
+export default async function LoginPage({ searchParams }: { searchParams: Promise<{ callbackUrl?: string }> }) {
   if (await getActor()) redirect('/boards');
   const { callbackUrl } = await searchParams;
   const next = callbackUrl?.startsWith('/') && !callbackUrl.startsWith('//') ? callbackUrl : '/boards';
@@ -30,8 +26,7 @@ export default async function LoginPage({
           <SignInForm next={next} />
         </div>
         <p className="mt-6 text-xs leading-relaxed text-ink-faint">
-          New to the team? Your admin sends you an invitation by e-mail with a link to choose a
-          password.
+          New to the team? Your admin sends you an invitation by e-mail with a link to choose a password.
         </p>
       </div>
     </main>

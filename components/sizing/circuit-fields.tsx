@@ -40,9 +40,15 @@ type CircuitFieldsProps<T extends FieldValues> = {
 };
 
 const num = { valueAsNumber: true } as const;
-const numberOrNull = { setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v)) } as const;
-const numberOrUndefined = { setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? undefined : Number(v)) } as const;
-const optionalWord = { setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? undefined : v) } as const;
+const numberOrNull = {
+  setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v)),
+} as const;
+const numberOrUndefined = {
+  setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? undefined : Number(v)),
+} as const;
+const optionalWord = {
+  setValueAs: (v: unknown) => (v === '' || v === null || v === undefined ? undefined : v),
+} as const;
 
 function errorAt(errors: unknown, path: string): string | undefined {
   const node = path.split('.').reduce<unknown>((o, k) => (o as Record<string, unknown> | undefined)?.[k], errors);
@@ -54,7 +60,12 @@ function errorAt(errors: unknown, path: string): string | undefined {
  * the way panel and quick size both draw these, so the two screens ask the same questions in
  * the same words. Each control's accessible name is its visible label.
  */
-export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases = 3, fullRow }: CircuitFieldsProps<T>) {
+export function CircuitFields<T extends FieldValues>({
+  form,
+  prefix,
+  boardPhases = 3,
+  fullRow,
+}: CircuitFieldsProps<T>) {
   const { register, setValue, getValues, control, formState } = form;
   const p = (name: string) => `${prefix}${name}` as Path<T>;
   const err = (name: string) => errorAt(formState.errors, p(name));
@@ -68,7 +79,11 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
   const methods = methodsFor(cable);
   const sizes = useMemo(() => cableRows(cable, method, phases)?.map((r) => r.csaMm2) ?? [], [cable, method, phases]);
 
-  const field = (name: string, input: (id: string, d: string | undefined, invalid: boolean) => React.ReactNode, opts: { label: string; hint?: string; wide?: boolean }) => (
+  const field = (
+    name: string,
+    input: (id: string, d: string | undefined, invalid: boolean) => React.ReactNode,
+    opts: { label: string; hint?: string; wide?: boolean },
+  ) => (
     <Field label={opts.label} hint={opts.hint} error={err(name)} className={opts.wide ? fullRow : undefined}>
       {(id, d) => input(id, d, !!err(name))}
     </Field>
@@ -76,7 +91,19 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
 
   return (
     <>
-      {field('serves', (id, d, bad) => <Input id={id} aria-describedby={d} aria-invalid={bad} placeholder="e.g. Sockets: kitchen" {...register(p('serves'))} />, { label: L.serves, wide: true })}
+      {field(
+        'serves',
+        (id, d, bad) => (
+          <Input
+            id={id}
+            aria-describedby={d}
+            aria-invalid={bad}
+            placeholder="e.g. Sockets: kitchen"
+            {...register(p('serves'))}
+          />
+        ),
+        { label: L.serves, wide: true },
+      )}
       {field(
         'use',
         (id, d, bad) => (
@@ -153,8 +180,36 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
       )}
       {loadKind === 'known' ? (
         <>
-          {field('load.watts', (id, d, bad) => <Input id={id} type="number" step="any" inputMode="decimal" aria-describedby={d} aria-invalid={bad} {...register(p('load.watts'), num)} />, { label: L.watts })}
-          {field('load.powerFactor', (id, d, bad) => <Input id={id} type="number" step="0.01" inputMode="decimal" aria-describedby={d} aria-invalid={bad} {...register(p('load.powerFactor'), num)} />, { label: L.powerFactor })}
+          {field(
+            'load.watts',
+            (id, d, bad) => (
+              <Input
+                id={id}
+                type="number"
+                step="any"
+                inputMode="decimal"
+                aria-describedby={d}
+                aria-invalid={bad}
+                {...register(p('load.watts'), num)}
+              />
+            ),
+            { label: L.watts },
+          )}
+          {field(
+            'load.powerFactor',
+            (id, d, bad) => (
+              <Input
+                id={id}
+                type="number"
+                step="0.01"
+                inputMode="decimal"
+                aria-describedby={d}
+                aria-invalid={bad}
+                {...register(p('load.powerFactor'), num)}
+              />
+            ),
+            { label: L.powerFactor },
+          )}
         </>
       ) : (
         <>
@@ -171,8 +226,36 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
             ),
             { label: L.arrangement },
           )}
-          {field('load.floorAreaM2', (id, d, bad) => <Input id={id} type="number" step="any" inputMode="decimal" aria-describedby={d} aria-invalid={bad} {...register(p('load.floorAreaM2'), num)} />, { label: L.floorAreaM2 })}
-          {field('load.assumedA', (id, d, bad) => <Input id={id} type="number" step="any" inputMode="decimal" aria-describedby={d} aria-invalid={bad} {...register(p('load.assumedA'), numberOrUndefined)} />, { label: L.assumedA, hint: "Empty: the arrangement's rating" })}
+          {field(
+            'load.floorAreaM2',
+            (id, d, bad) => (
+              <Input
+                id={id}
+                type="number"
+                step="any"
+                inputMode="decimal"
+                aria-describedby={d}
+                aria-invalid={bad}
+                {...register(p('load.floorAreaM2'), num)}
+              />
+            ),
+            { label: L.floorAreaM2 },
+          )}
+          {field(
+            'load.assumedA',
+            (id, d, bad) => (
+              <Input
+                id={id}
+                type="number"
+                step="any"
+                inputMode="decimal"
+                aria-describedby={d}
+                aria-invalid={bad}
+                {...register(p('load.assumedA'), numberOrUndefined)}
+              />
+            ),
+            { label: L.assumedA, hint: "Empty: the arrangement's rating" },
+          )}
         </>
       )}
 
@@ -187,7 +270,8 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
               onChange: (e) => {
                 // Only the methods the cable's table has are offered; keep the method valid
                 const valid = methodsFor(e.target.value);
-                if (!valid.includes(getValues(p('method')) as Method)) set('method', valid.includes('C') ? 'C' : valid[0]);
+                if (!valid.includes(getValues(p('method')) as Method))
+                  set('method', valid.includes('C') ? 'C' : valid[0]);
                 if (e.target.value !== 'swa-xlpe-90') set('armouredCpc', undefined);
               },
             })}
@@ -219,7 +303,9 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
             'armouredCpc',
             (id, d, bad) => (
               <Select id={id} aria-describedby={d} aria-invalid={bad} {...register(p('armouredCpc'), optionalWord)}>
-                <option value="">{phases === 3 ? 'The armour (a four-core cable)' : 'A spare core (a three-core cable)'}</option>
+                <option value="">
+                  {phases === 3 ? 'The armour (a four-core cable)' : 'A spare core (a three-core cable)'}
+                </option>
                 {ARMOURED_CPC_KINDS.map((k) => (
                   <option key={k} value={k}>
                     {ARMOURED_CPC_NAMES[k]}
@@ -230,11 +316,67 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
             { label: L.armouredCpc, wide: true },
           )
         : null}
-      {field('lengthM', (id, d, bad) => <Input id={id} type="number" step="any" inputMode="decimal" aria-describedby={d} aria-invalid={bad} {...register(p('lengthM'), num)} />, { label: L.lengthM, hint: 'A ring: the whole loop' })}
-      {field('ambientC', (id, d, bad) => <Input id={id} type="number" step="any" inputMode="decimal" aria-describedby={d} aria-invalid={bad} {...register(p('ambientC'), num)} />, { label: L.ambientC, hint: method === 'D' ? 'Ground temperature' : undefined })}
-      {field('grouping.circuits', (id, d, bad) => <Input id={id} type="number" step="1" min={1} aria-describedby={d} aria-invalid={bad} {...register(p('grouping.circuits'), num)} />, { label: L.circuits })}
+      {field(
+        'lengthM',
+        (id, d, bad) => (
+          <Input
+            id={id}
+            type="number"
+            step="any"
+            inputMode="decimal"
+            aria-describedby={d}
+            aria-invalid={bad}
+            {...register(p('lengthM'), num)}
+          />
+        ),
+        { label: L.lengthM, hint: 'A ring: the whole loop' },
+      )}
+      {field(
+        'ambientC',
+        (id, d, bad) => (
+          <Input
+            id={id}
+            type="number"
+            step="any"
+            inputMode="decimal"
+            aria-describedby={d}
+            aria-invalid={bad}
+            {...register(p('ambientC'), num)}
+          />
+        ),
+        { label: L.ambientC, hint: method === 'D' ? 'Ground temperature' : undefined },
+      )}
+      {field(
+        'grouping.circuits',
+        (id, d, bad) => (
+          <Input
+            id={id}
+            type="number"
+            step="1"
+            min={1}
+            aria-describedby={d}
+            aria-invalid={bad}
+            {...register(p('grouping.circuits'), num)}
+          />
+        ),
+        { label: L.circuits },
+      )}
       {method === 'D'
-        ? field('grouping.spacingM', (id, d, bad) => <Input id={id} type="number" step="any" min={0} aria-describedby={d} aria-invalid={bad} {...register(p('grouping.spacingM'), numberOrUndefined)} />, { label: L.spacingM, hint: 'Empty or 0: touching' })
+        ? field(
+            'grouping.spacingM',
+            (id, d, bad) => (
+              <Input
+                id={id}
+                type="number"
+                step="any"
+                min={0}
+                aria-describedby={d}
+                aria-invalid={bad}
+                {...register(p('grouping.spacingM'), numberOrUndefined)}
+              />
+            ),
+            { label: L.spacingM, hint: 'Empty or 0: touching' },
+          )
         : field(
             'grouping.arrangement',
             (id, d, bad) => (
@@ -248,7 +390,21 @@ export function CircuitFields<T extends FieldValues>({ form, prefix, boardPhases
             ),
             { label: L.groupedHow },
           )}
-      {field('insulationMm', (id, d, bad) => <Input id={id} type="number" step="any" min={0} aria-describedby={d} aria-invalid={bad} {...register(p('insulationMm'), num)} />, { label: L.insulationMm, hint: 'Length wholly surrounded' })}
+      {field(
+        'insulationMm',
+        (id, d, bad) => (
+          <Input
+            id={id}
+            type="number"
+            step="any"
+            min={0}
+            aria-describedby={d}
+            aria-invalid={bad}
+            {...register(p('insulationMm'), num)}
+          />
+        ),
+        { label: L.insulationMm, hint: 'Length wholly surrounded' },
+      )}
       {field(
         'csaMm2',
         (id, d, bad) => (

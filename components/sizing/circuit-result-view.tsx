@@ -28,9 +28,7 @@ function Step({ n, title, children }: { n: number; title: string; children: Reac
   return (
     <section className="rounded-md border border-line bg-paper-raised p-3">
       <h4 className="mb-1 flex items-center gap-2 text-xs font-semibold tracking-wide text-ink-soft uppercase">
-        <span className="grid h-5 w-5 place-items-center rounded-full bg-ink text-[10px] text-paper">
-          {n}
-        </span>
+        <span className="grid h-5 w-5 place-items-center rounded-full bg-ink text-[10px] text-paper">{n}</span>
         {title}
       </h4>
       <dl>{children}</dl>

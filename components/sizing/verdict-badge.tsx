@@ -10,9 +10,21 @@ import type { Verdict } from '@/lib/sizing';
  * each in its own colour of the theme.
  */
 export const VERDICT_LOOKS: Record<Verdict, { icon: LucideIcon; tone: string; text: string }> = {
-  passes: { icon: CircleCheck, tone: 'border-verdict-pass/40 bg-verdict-pass-bg text-verdict-pass', text: 'text-verdict-pass' },
-  'near-limit': { icon: TriangleAlert, tone: 'border-verdict-near/40 bg-verdict-near-bg text-verdict-near', text: 'text-verdict-near' },
-  fails: { icon: CircleX, tone: 'border-verdict-fail/40 bg-verdict-fail-bg text-verdict-fail', text: 'text-verdict-fail' },
+  passes: {
+    icon: CircleCheck,
+    tone: 'border-verdict-pass/40 bg-verdict-pass-bg text-verdict-pass',
+    text: 'text-verdict-pass',
+  },
+  'near-limit': {
+    icon: TriangleAlert,
+    tone: 'border-verdict-near/40 bg-verdict-near-bg text-verdict-near',
+    text: 'text-verdict-near',
+  },
+  fails: {
+    icon: CircleX,
+    tone: 'border-verdict-fail/40 bg-verdict-fail-bg text-verdict-fail',
+    text: 'text-verdict-fail',
+  },
 };
 
 type VerdictBadgeProps = {

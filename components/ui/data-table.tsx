@@ -63,7 +63,12 @@ export function DataTable<T>({
   return (
     <>
       {phoneCards ? <RowCards table={table} caption={caption} loading={loading} noMatch={noMatch} /> : null}
-      <div className={cn('overflow-x-auto rounded-card border border-line bg-paper-raised', phoneCards && 'hidden md:block')}>
+      <div
+        className={cn(
+          'overflow-x-auto rounded-card border border-line bg-paper-raised',
+          phoneCards && 'hidden md:block',
+        )}
+      >
         <table className="w-full border-collapse text-sm" aria-busy={loading || undefined}>
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-paper-sunk/60">
@@ -73,16 +78,12 @@ export function DataTable<T>({
                   const { column } = header;
                   const meta = column.columnDef.meta;
                   const sorted = column.getIsSorted();
-                  const label = header.isPlaceholder
-                    ? null
-                    : flexRender(column.columnDef.header, header.getContext());
+                  const label = header.isPlaceholder ? null : flexRender(column.columnDef.header, header.getContext());
                   return (
                     <th
                       key={header.id}
                       scope="col"
-                      aria-sort={
-                        column.getCanSort() ? (sorted ? sortWords[sorted] : 'none') : undefined
-                      }
+                      aria-sort={column.getCanSort() ? (sorted ? sortWords[sorted] : 'none') : undefined}
                       className={cn(
                         'h-11 px-4 text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase',
                         meta?.align === 'right' ? 'text-right' : 'text-left',
@@ -120,11 +121,7 @@ export function DataTable<T>({
           <tbody>
             {loading
               ? Array.from({ length: skeletonRows }, (_, i) => (
-                  <tr
-                    key={`skeleton-${i}`}
-                    data-testid="skeleton-row"
-                    className="border-b border-line last:border-0"
-                  >
+                  <tr key={`skeleton-${i}`} data-testid="skeleton-row" className="border-b border-line last:border-0">
                     {columns.map((column) => (
                       <td key={column.id} className="h-14 px-4">
                         <span
@@ -137,10 +134,7 @@ export function DataTable<T>({
                   </tr>
                 ))
               : rows.map((row) => (
-                  <tr
-                    key={row.id}
-                    className="border-b border-line transition-colors last:border-0 hover:bg-paper/70"
-                  >
+                  <tr key={row.id} className="border-b border-line transition-colors last:border-0 hover:bg-paper/70">
                     {row.getVisibleCells().map((cell) => {
                       const meta = cell.column.columnDef.meta;
                       return (
@@ -174,11 +168,20 @@ export function DataTable<T>({
 }
 
 /** The rows as cards for a phone: title and badge on top, a line under them, named fields, then actions. */
-function RowCards<T>({ table, caption, loading, noMatch }: Pick<DataTableProps<T>, 'table' | 'caption' | 'loading' | 'noMatch'>) {
+function RowCards<T>({
+  table,
+  caption,
+  loading,
+  noMatch,
+}: Pick<DataTableProps<T>, 'table' | 'caption' | 'loading' | 'noMatch'>) {
   const rows = table.getRowModel().rows;
   if (loading) return <p className="text-sm text-ink-soft md:hidden">Loading…</p>;
   if (rows.length === 0) {
-    return <p className="rounded-card border border-line bg-paper-raised px-4 py-8 text-center text-sm text-ink-soft md:hidden">{noMatch}</p>;
+    return (
+      <p className="rounded-card border border-line bg-paper-raised px-4 py-8 text-center text-sm text-ink-soft md:hidden">
+        {noMatch}
+      </p>
+    );
   }
   return (
     <ul aria-label={caption} data-testid="row-cards" className="flex flex-col gap-2 md:hidden">
@@ -190,7 +193,11 @@ function RowCards<T>({ table, caption, loading, noMatch }: Pick<DataTableProps<T
         return (
           <li key={row.id} className="rounded-card border border-line bg-paper-raised p-3">
             <div className="flex items-start justify-between gap-3">
-              <div className="min-w-0 text-base font-medium break-words">{place('title').map((c) => <Fragment key={c.id}>{render(c)}</Fragment>)}</div>
+              <div className="min-w-0 text-base font-medium break-words">
+                {place('title').map((c) => (
+                  <Fragment key={c.id}>{render(c)}</Fragment>
+                ))}
+              </div>
               {place('badge').map((c) => (
                 <div key={c.id} className="shrink-0">
                   {render(c)}

@@ -45,8 +45,7 @@ export function Dialog({ open, onClose, title, description, wide, children }: Di
     const previous = document.activeElement as HTMLElement | null;
     const panel = panelRef.current;
     // Focus the first field (or the first control) inside the panel
-    const first =
-      panel?.querySelector<HTMLElement>(fields) ?? panel?.querySelector<HTMLElement>(focusable);
+    const first = panel?.querySelector<HTMLElement>(fields) ?? panel?.querySelector<HTMLElement>(focusable);
     (first ?? panel)?.focus();
     // Lock the page behind the panel
     const overflow = document.body.style.overflow;

@@ -36,17 +36,19 @@ export function Field({ label, error, hint, className, children }: FieldProps) {
   );
 }
 
-export const Input = forwardRef<HTMLInputElement, React.InputHTMLAttributes<HTMLInputElement>>(
-  function Input({ className, ...props }, ref) {
-    return <input ref={ref} className={cn(inputClass, className)} {...props} />;
-  },
-);
+export const Input = forwardRef<HTMLInputElement, React.InputHTMLAttributes<HTMLInputElement>>(function Input(
+  { className, ...props },
+  ref,
+) {
+  return <input ref={ref} className={cn(inputClass, className)} {...props} />;
+});
 
-export const Select = forwardRef<HTMLSelectElement, React.SelectHTMLAttributes<HTMLSelectElement>>(
-  function Select({ className, ...props }, ref) {
-    return <select ref={ref} className={cn(inputClass, 'pr-8', className)} {...props} />;
-  },
-);
+export const Select = forwardRef<HTMLSelectElement, React.SelectHTMLAttributes<HTMLSelectElement>>(function Select(
+  { className, ...props },
+  ref,
+) {
+  return <select ref={ref} className={cn(inputClass, 'pr-8', className)} {...props} />;
+});
 
 type TextFieldProps = React.InputHTMLAttributes<HTMLInputElement> & {
   label: string;

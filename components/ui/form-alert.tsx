@@ -3,13 +3,7 @@ import { CircleAlert } from 'lucide-react';
 import { cn } from '@/lib/cn';
 
 /** A form-level error (not tied to one field), read out when it appears. */
-export function FormAlert({
-  children,
-  className,
-}: {
-  children: React.ReactNode;
-  className?: string;
-}) {
+export function FormAlert({ children, className }: { children: React.ReactNode; className?: string }) {
   return (
     <p
       role="alert"

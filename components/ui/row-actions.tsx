@@ -29,7 +29,11 @@ export function RowActions({ name, editLabel, onEdit, onDelete, deleteLabel = 'D
           aria-label={`${deleteLabel} ${name}`}
           className="hover:text-verdict-fail"
         >
-          {deleteLabel === 'Delete' ? <Trash2 aria-hidden className="h-4 w-4" /> : <Archive aria-hidden className="h-4 w-4" />}
+          {deleteLabel === 'Delete' ? (
+            <Trash2 aria-hidden className="h-4 w-4" />
+          ) : (
+            <Archive aria-hidden className="h-4 w-4" />
+          )}
           {deleteLabel}
         </Button>
       )}

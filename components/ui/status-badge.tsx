@@ -12,12 +12,7 @@ const tones: Record<BoardStatus, string> = {
 /** A board's lifecycle stage, in words. */
 export function StatusBadge({ status }: { status: BoardStatus }) {
   return (
-    <span
-      className={cn(
-        'inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium',
-        tones[status],
-      )}
-    >
+    <span className={cn('inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-medium', tones[status])}>
       {BOARD_STATUS_NAMES[status]}
     </span>
   );

@@ -46,10 +46,7 @@ function isIssueList(value: unknown): value is ApiFieldIssue[] {
  * parsed JSON (or `undefined` for 204); rejects with an `ApiError` for any failure, including a
  * network one, so callers handle a single error type.
  */
-export async function apiFetch<T>(
-  url: string,
-  init: Omit<RequestInit, 'body'> & { body?: unknown } = {},
-): Promise<T> {
+export async function apiFetch<T>(url: string, init: Omit<RequestInit, 'body'> & { body?: unknown } = {}): Promise<T> {
   const { body, headers, ...rest } = init;
   const hasJsonBody = body !== undefined && !(body instanceof FormData) && typeof body !== 'string';
   let response: Response;

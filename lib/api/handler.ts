@@ -97,13 +97,9 @@ function databaseTrouble(err: unknown): 'down' | 'busy' | null {
   ].filter((c): c is string => !!c);
   if (codes.some((c) => BUSY_CODES.has(c))) return 'busy';
   if (
-    /^Sequelize(Connection\w*|HostNotReachable|HostNotFound|AccessDenied|InvalidConnection)Error$/.test(
-      e.name ?? '',
-    ) ||
+    /^Sequelize(Connection\w*|HostNotReachable|HostNotFound|AccessDenied|InvalidConnection)Error$/.test(e.name ?? '') ||
     codes.some((c) => DOWN_CODES.has(c)) ||
-    /Connection terminated|timeout exceeded when trying to connect|not queryable/i.test(
-      String(e.message ?? ''),
-    )
+    /Connection terminated|timeout exceeded when trying to connect|not queryable/i.test(String(e.message ?? ''))
   ) {
     return 'down';
   }
@@ -202,8 +198,7 @@ export function defineRoute<
           : await requireActor(declared.action === 'signed-in' ? undefined : declared.action);
       // Query and body
       const query = declared.query ? parseQuery(req.url, declared.query) : undefined;
-      const body =
-        declared.body && declared.body !== 'multipart' ? await parseBody(req, declared.body) : undefined;
+      const body = declared.body && declared.body !== 'multipart' ? await parseBody(req, declared.body) : undefined;
       return await handler({ req, actor, params, query, body } as RouteInput<A, P, Q, B>);
     } catch (err) {
       return errorResponse(err);
@@ -218,10 +213,7 @@ export function errorResponse(err: unknown): Response {
     return Response.json({ error: err.message, ...err.body }, { status: err.status });
   }
   if (err instanceof ZodError) {
-    return Response.json(
-      { error: 'Some fields are not valid.', issues: fieldIssues(err) },
-      { status: 400 },
-    );
+    return Response.json({ error: 'Some fields are not valid.', issues: fieldIssues(err) }, { status: 400 });
   }
   const trouble = databaseTrouble(err);
   if (trouble) {

@@ -21,7 +21,11 @@ const credentialsSchema = z.object({
  */
 export function clientAddress(header: unknown): string {
   const value = Array.isArray(header) ? header.join(',') : typeof header === 'string' ? header : '';
-  const last = value.split(',').map((s) => s.trim()).filter(Boolean).pop();
+  const last = value
+    .split(',')
+    .map((s) => s.trim())
+    .filter(Boolean)
+    .pop();
   return last ? last.slice(0, 64) : 'unknown';
 }
 
@@ -57,8 +61,7 @@ export const authOptions: NextAuthOptions = {
         await checkSignInAllowed(email, address);
         db();
         const user = await User.findOne({ where: { email } });
-        const ok =
-          !!user?.passwordHash && user.active && (await bcrypt.compare(password, user.passwordHash));
+        const ok = !!user?.passwordHash && user.active && (await bcrypt.compare(password, user.passwordHash));
         await recordSignInResult(email, address, ok);
         if (!ok || !user) return null;
         return {

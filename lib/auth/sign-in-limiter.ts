@@ -1,4 +1,4 @@
-import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
+import { RateLimiterPostgres, type RateLimiterRes } from 'rate-limiter-flexible';
 
 import { db } from '@/lib/db';
 
@@ -36,14 +36,11 @@ export async function checkSignInAllowed(email: string, address: string): Promis
   const { account, address: byAddress } = limiters();
   const [a, b] = await Promise.all([account.get(email), byAddress.get(address)]);
   const blocked = [a, b].filter(
-    (r): r is RateLimiterRes =>
-      !!r && r.consumedPoints >= (r === a ? FAILURES_PER_ACCOUNT : FAILURES_PER_ADDRESS),
+    (r): r is RateLimiterRes => !!r && r.consumedPoints >= (r === a ? FAILURES_PER_ACCOUNT : FAILURES_PER_ADDRESS),
   );
   if (blocked.length) {
     const minutes = Math.ceil(Math.max(...blocked.map((r) => r.msBeforeNext)) / 60_000);
-    throw new SignInLockedError(
-      `Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`,
-    );
+    throw new SignInLockedError(`Too many failed sign-ins. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}.`);
   }
 }
 

@@ -53,11 +53,7 @@ export function normalisePositions<T extends { rail: number; position: number }>
 }
 
 /** Every rail of a board, drawn from the left: devices, phase gaps and the free modules. */
-export function drawRails(
-  phases: 1 | 3,
-  capacities: readonly number[],
-  ways: readonly LayoutWay[],
-): RailDrawing[] {
+export function drawRails(phases: 1 | 3, capacities: readonly number[], ways: readonly LayoutWay[]): RailDrawing[] {
   const places = new Map(layoutWays(phases, ways).map((p) => [p.id, p]));
   const rails: RailDrawing[] = capacities.map((capacity, rail) => ({
     rail,
@@ -146,7 +142,10 @@ export function placementProblem(
     const needed = drawing.used - without.used;
     const free = Math.max(0, without.free);
     const skipped = needed - way.device.modules;
-    const extra = skipped > 0 ? ` (${way.device.modules} for the device and ${skipped} phase position${skipped === 1 ? '' : 's'} left empty so that it starts on L1)` : '';
+    const extra =
+      skipped > 0
+        ? ` (${way.device.modules} for the device and ${skipped} phase position${skipped === 1 ? '' : 's'} left empty so that it starts on L1)`
+        : '';
     return `Too few free modules on rail ${drawing.rail + 1}: the ${kind} needs ${needed}${extra} and ${free} ${free === 1 ? 'is' : 'are'} free.`;
   }
   return null;

@@ -11,11 +11,7 @@
 import { railOrder, type LayoutWay } from './layout';
 
 /** What gives a way its RCD protection. */
-export type RcdProtector =
-  | { by: 'rcd'; rcdId: string }
-  | { by: 'incoming' }
-  | { by: 'own' }
-  | null;
+export type RcdProtector = { by: 'rcd'; rcdId: string } | { by: 'incoming' } | { by: 'own' } | null;
 
 /** The engine's spelling of an incoming RCD in `protectedBy`. */
 export const INCOMING_RCD = 'incoming';

@@ -37,7 +37,10 @@ export function boardRemoval(role: Role, facts: { everIssued: boolean; archived:
 }
 
 /** Removing a site always archives it; one that holds an issued board only by an admin. */
-export function siteRemoval(role: Role, facts: { holdsIssued: boolean; archived: boolean }): { refused: false } | Refusal {
+export function siteRemoval(
+  role: Role,
+  facts: { holdsIssued: boolean; archived: boolean },
+): { refused: false } | Refusal {
   if (facts.archived) return { refused: true, status: 409, message: 'This site is archived already.' };
   if (can(role, 'records.archive')) return { refused: false };
   if (!can(role, 'boards.discard')) return { refused: true, status: 403, message: 'Your role may not archive sites.' };
@@ -76,13 +79,7 @@ export function issueRefusal(facts: {
 
 /** Names compared as people type them: case, spacing and accents aside. */
 export function sameName(typed: string, name: string): boolean {
-  const norm = (s: string) =>
-    s
-      .normalize('NFKD')
-      .replace(/\p{M}/gu, '')
-      .replace(/\s+/g, ' ')
-      .trim()
-      .toLowerCase();
+  const norm = (s: string) => s.normalize('NFKD').replace(/\p{M}/gu, '').replace(/\s+/g, ' ').trim().toLowerCase();
   return norm(typed).length > 0 && norm(typed) === norm(name);
 }
 

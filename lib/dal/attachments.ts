@@ -11,6 +11,7 @@ import { assertNotArchived, everIssued, findBoard } from '@/lib/dal/boards';
 import { badRequest, HttpError, notFound } from '@/lib/errors';
 import { deleteObjects, getObjectStream, putObject } from '@/lib/storage/s3';
 import { Attachment, User, Way } from '@/models';
+import type { AttachmentDto } from '@/lib/boards/walk-types';
 
 /** Largest photo accepted, bytes. */
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
@@ -50,18 +51,6 @@ async function withoutMetadata(bytes: Uint8Array, contentType: string): Promise<
       return upright.avif({ quality: 70 }).toBuffer();
   }
 }
-
-export type AttachmentDto = {
-  id: string;
-  wayId: string | null;
-  fileName: string;
-  contentType: string;
-  sizeBytes: number;
-  url: string;
-  thumbUrl: string;
-  uploadedByName: string;
-  createdAt: string;
-};
 
 function attachmentDto(a: Attachment, uploadedByName: string): AttachmentDto {
   return {
@@ -225,7 +214,12 @@ export async function deleteAttachment(actor: Actor, id: string): Promise<{ effe
     if (row.withdrawnAt) throw notFound('The photo');
     if (await everIssued(row.boardId, transaction)) {
       await row.update({ withdrawnAt: new Date(), withdrawnById: actor.userId }, { transaction });
-      await audit(actor, 'attachment.withdrawn', { attachmentId: id, wayId: row.wayId }, { boardId: row.boardId, transaction });
+      await audit(
+        actor,
+        'attachment.withdrawn',
+        { attachmentId: id, wayId: row.wayId },
+        { boardId: row.boardId, transaction },
+      );
       return 'withdrawn' as const;
     }
     await audit(actor, 'attachment.deleted', { attachmentId: id }, { boardId: row.boardId, transaction });

@@ -5,6 +5,7 @@ import { layoutWays } from '@/lib/boards/layout';
 import { db } from '@/lib/db';
 import { notFound } from '@/lib/errors';
 import { AuditEvent, Board, User, Way } from '@/models';
+import type { AuditPage } from '@/lib/audit-types';
 
 export type AuditAction =
   | 'board.created'
@@ -79,19 +80,6 @@ export async function auditMany(
     { transaction: opts.transaction },
   );
 }
-
-export type AuditEntry = {
-  id: string;
-  action: string;
-  details: Record<string, unknown>;
-  userName: string | null;
-  createdAt: string;
-  /** The way's printed reference now ("7", "3L2"), when the event names a way that still has one. */
-  wayLabel: string | null;
-};
-
-/** One page of a board's trail, newest first; `nextBefore` asks for the page after it. */
-export type AuditPage = { entries: AuditEntry[]; nextBefore: string | null };
 
 /** Most events one page holds. */
 export const AUDIT_PAGE_MAX = 200;

@@ -83,10 +83,10 @@ export async function findBoard(
 
 /** That the board is the caller's organisation's, or 404. */
 export async function requireBoard(actor: Actor, boardId: string): Promise<void> {
-  const rows = await select(
-    'SELECT 1 FROM boards WHERE id = $1 AND organisation_id = $2 AND deleted_at IS NULL',
-    [boardId, actor.organisationId],
-  );
+  const rows = await select('SELECT 1 FROM boards WHERE id = $1 AND organisation_id = $2 AND deleted_at IS NULL', [
+    boardId,
+    actor.organisationId,
+  ]);
   if (!rows.length) throw notFound('The board');
 }
 
@@ -95,7 +95,10 @@ export async function readWays(boardId: string, transaction?: Transaction): Prom
   const rows = await Way.findAll({
     where: { boardId },
     attributes: ['id', 'rail', 'position', 'device', 'circuit'],
-    order: [['rail', 'ASC'], ['position', 'ASC']],
+    order: [
+      ['rail', 'ASC'],
+      ['position', 'ASC'],
+    ],
     transaction,
   });
   return rows.map(wayInputOf);
@@ -115,7 +118,11 @@ export type BoardEvent = { action: AuditAction; details: Record<string, unknown>
 export async function writeBoard(
   actor: Actor,
   board: Board,
-  write: { set?: Partial<BoardRow>; ways?: { remove: string[]; insert: WayInput[]; update: WayInput[] }; events: BoardEvent[] },
+  write: {
+    set?: Partial<BoardRow>;
+    ways?: { remove: string[]; insert: WayInput[]; update: WayInput[] };
+    events: BoardEvent[];
+  },
   transaction: Transaction,
 ): Promise<BoardDto> {
   const boardId = board.id;
@@ -152,7 +159,14 @@ export async function writeBoard(
 }
 
 /** The settings the engine reads: a write of any other column keeps the stored sizing. */
-const ENGINE_SETTINGS = new Set(['supply', 'phases', 'enclosureModules', 'incoming', 'dwelling', 'conditionalRatingKa']);
+const ENGINE_SETTINGS = new Set([
+  'supply',
+  'phases',
+  'enclosureModules',
+  'incoming',
+  'dwelling',
+  'conditionalRatingKa',
+]);
 
 /** A board sized, or the reasons the engine refused it (then `sizing` is null). */
 export type SizedBoard = { sizing: BoardResult | null; issues: FieldIssue[] };

@@ -7,7 +7,7 @@ import type { BoardSnapshot, SnapshotWay } from '@/lib/boards/revision-diff';
 import { settingsOf } from '@/lib/boards/schemas';
 import { env } from '@/lib/env';
 import { readWays } from '@/lib/dal/board-repository';
-import { Board, Organisation, Site } from '@/models';
+import { type Board, Organisation, Site } from '@/models';
 
 export function snapshotWay(way: SnapshotWay): SnapshotWay {
   return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };

@@ -43,11 +43,7 @@ export type FailingBoardCheck = { code: string; message: string; reference: stri
  * through the outbox. `expectedVersion`, when given, must be the stored version (409 if not),
  * so what goes for review is what the designer saw.
  */
-export async function submitBoard(
-  actor: Actor,
-  boardId: string,
-  expectedVersion?: number,
-): Promise<BoardDto> {
+export async function submitBoard(actor: Actor, boardId: string, expectedVersion?: number): Promise<BoardDto> {
   const sequelize = db();
   await sequelize.transaction(async (transaction) => {
     // The board, locked, in the caller's organisation, not archived; its stage first (a board
@@ -68,7 +64,11 @@ export async function submitBoard(
     if (!parsed.success) {
       throw unprocessable('The stored board is not complete enough to size; open it in the editor and save it again.', {
         failing: [],
-        boardChecks: parsed.error.issues.map((i) => ({ code: 'input', message: i.message, reference: i.path.join('.') })),
+        boardChecks: parsed.error.issues.map((i) => ({
+          code: 'input',
+          message: i.message,
+          reference: i.path.join('.'),
+        })),
       });
     }
     const sized = sizeBoard(parsed.data);
@@ -98,7 +98,12 @@ export async function submitBoard(
     // Status and version, then the audit trail
     await board.update({ status: step.to, version: board.version + 1 }, { transaction });
     if (step.audit) {
-      await audit(actor, step.audit, { from: step.from, to: step.to, revision: board.revision }, { boardId, transaction });
+      await audit(
+        actor,
+        step.audit,
+        { from: step.from, to: step.to, revision: board.revision },
+        { boardId, transaction },
+      );
     }
 
     // The organisation's inspectors hear of it through the outbox (sent once committed)

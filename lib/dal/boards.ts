@@ -22,6 +22,7 @@ import { findBoard, readWays, writeBoard, type BoardEvent } from '@/lib/dal/boar
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
 import { Board, BoardRevision, Site, User, Way } from '@/models';
+import type { ArchiveState } from '@/lib/boards/review-types';
 
 export { findBoard, readBoard as getBoard, requireBoard } from '@/lib/dal/board-repository';
 
@@ -84,9 +85,6 @@ export async function listBoards(
   });
 }
 
-/** When and by whom a board was archived (itself, or through its site); null when it is not. */
-export type ArchiveState = { at: string; byName: string; through: 'board' | 'site' } | null;
-
 /** A board's archive state, for its pages (the "archived" banner) and for refusals. */
 export async function archiveStateOf(board: Board, transaction?: Transaction): Promise<ArchiveState> {
   let at = board.archivedAt;
@@ -139,7 +137,15 @@ export async function createBoard(actor: Actor, input: BoardCreateInput): Promis
       { ...input, organisationId: actor.organisationId, createdById: actor.userId, designChangedById: actor.userId },
       { transaction },
     );
-    return writeBoard(actor, created, { ways: { remove: [], insert: [], update: [] }, events: [{ action: 'board.created', details: { name: input.name } }] }, transaction);
+    return writeBoard(
+      actor,
+      created,
+      {
+        ways: { remove: [], insert: [], update: [] },
+        events: [{ action: 'board.created', details: { name: input.name } }],
+      },
+      transaction,
+    );
   });
 }
 
@@ -184,7 +190,10 @@ export async function removeBoard(actor: Actor, boardId: string): Promise<{ effe
     });
     if (rule.refused) throw new HttpError(rule.status, rule.message);
     if (rule.effect === 'delete') {
-      return { set: { deletedAt: new Date(), deletedById: actor.userId }, events: [{ action: 'board.deleted', details: { name: board.name } }] };
+      return {
+        set: { deletedAt: new Date(), deletedById: actor.userId },
+        events: [{ action: 'board.deleted', details: { name: board.name } }],
+      };
     }
     effect = 'archived';
     return archiving(actor, board);
@@ -211,7 +220,10 @@ export async function restoreBoard(actor: Actor, boardId: string): Promise<Board
   if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived boards');
   return changeBoard(actor, boardId, async (board) => {
     if (!board.archivedAt) throw conflict('This board is not archived.');
-    return { set: { archivedAt: null, archivedById: null }, events: [{ action: 'board.restored', details: { name: board.name } }] };
+    return {
+      set: { archivedAt: null, archivedById: null },
+      events: [{ action: 'board.restored', details: { name: board.name } }],
+    };
   });
 }
 
@@ -223,7 +235,10 @@ export async function undeleteBoard(actor: Actor, boardId: string): Promise<Boar
     boardId,
     async (board) => {
       if (!board.deletedAt) throw conflict('This board is not deleted.');
-      return { set: { deletedAt: null, deletedById: null }, events: [{ action: 'board.undeleted', details: { name: board.name } }] };
+      return {
+        set: { deletedAt: null, deletedById: null },
+        events: [{ action: 'board.undeleted', details: { name: board.name } }],
+      };
     },
     { deleted: true },
   );
@@ -301,7 +316,8 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
   } catch (err) {
     // A new way's id that some way already has (on this board or any other)
     const { parent } = err as { parent?: { constraint?: string } };
-    if (parent?.constraint === 'ways_pkey') throw conflict('A new way reuses the id of an existing way; reload the board.');
+    if (parent?.constraint === 'ways_pkey')
+      throw conflict('A new way reuses the id of an existing way; reload the board.');
     throw err;
   }
 }

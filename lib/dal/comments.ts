@@ -9,17 +9,7 @@ import { audit } from '@/lib/dal/audit';
 import { assertNotArchived, findBoard } from '@/lib/dal/boards';
 import { badRequest, forbidden } from '@/lib/errors';
 import { Comment, User, Way } from '@/models';
-
-export type CommentDto = {
-  id: string;
-  wayId: string | null;
-  revision: number;
-  body: string;
-  authorName: string;
-  createdAt: string;
-  /** When the designer marked it answered; null while open. */
-  answeredAt: string | null;
-};
+import type { CommentDto } from '@/lib/boards/review-types';
 
 export function commentDto(c: Comment & { author?: User }): CommentDto {
   return {
@@ -75,7 +65,11 @@ export async function addComment(
 }
 
 /** Marks comments of a board answered (the designer has dealt with them). */
-export async function answerComments(actor: Actor, boardId: string, commentIds: string[]): Promise<{ answered: number }> {
+export async function answerComments(
+  actor: Actor,
+  boardId: string,
+  commentIds: string[],
+): Promise<{ answered: number }> {
   if (!can(actor.role, 'comments.answer')) throw forbidden('mark review comments answered');
   return db().transaction(async (transaction) => {
     const board = await findBoard(actor, boardId, { transaction, lock: true });

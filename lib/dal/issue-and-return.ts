@@ -15,22 +15,8 @@ import { nextRevision } from '@/lib/dal/revisions';
 import { env } from '@/lib/env';
 import { badRequest, conflict, HttpError, unprocessable } from '@/lib/errors';
 import type { IssuedFacts, ReturnedFacts } from '@/lib/mail/templates';
-import { Board, BoardRevision, Comment, Organisation, Site } from '@/models';
+import { type Board, BoardRevision, Comment, Organisation, Site } from '@/models';
 import type { BoardStatus } from '@/models/board';
-
-/** What an issue would issue now, for the confirmation, and whether the caller may. */
-export type IssuePreview = {
-  /** The revision number the board would be issued as. */
-  revision: number;
-  /** The ways counted by way number, in the words of the boards list and the schedule. */
-  ways: string;
-  /** Devices on the rail, and ways with a circuit (recorded in the audit trail). */
-  devices: number;
-  circuits: number;
-  verdicts: { passes: number; nearLimit: number; fails: number };
-  /** Why the caller may not issue it (separation of duties), or null. */
-  refusal: Refusal | null;
-};
 
 /** Separation of duties for this issuer and board (lib/boards/record-rules.ts issueRefusal). */
 export async function issueRefusalFor(actor: Actor, board: Board, transaction?: Transaction): Promise<Refusal | null> {

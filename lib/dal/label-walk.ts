@@ -8,7 +8,7 @@ import { labelCheckEvent, labelsEvent, transition } from '@/lib/boards/lifecycle
 import { labelTextOf, type SnapshotWay } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
 import { db } from '@/lib/db';
-import { listAttachments, type AttachmentDto } from '@/lib/dal/attachments';
+import { listAttachments } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
 import { readBoard } from '@/lib/dal/board-repository';
 import { assertNotArchived, findBoard } from '@/lib/dal/boards';
@@ -16,37 +16,7 @@ import { conflict, notFound } from '@/lib/errors';
 import { Site, User, Way } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { LabelStatus } from '@/models/way';
-
-/** One way as the walk shows it: what its label should say and what was found. */
-export type WalkWay = {
-  id: string;
-  /** The printed way reference, null for a main switch, RCD or SPD. */
-  ref: string | null;
-  /** The words of the label on the strip. */
-  labelText: string;
-  device: string;
-  rail: number;
-  status: LabelStatus;
-  note: string;
-  checkedByName: string | null;
-  checkedAt: string | null;
-  photos: AttachmentDto[];
-};
-
-export type WalkProgress = { total: number; checked: number; matches: number; wrong: number; missing: number };
-
-export type WalkData = {
-  boardId: string;
-  name: string;
-  siteName: string;
-  location: string;
-  status: BoardStatus;
-  revision: number;
-  ways: WalkWay[];
-  progress: WalkProgress;
-  /** Photos of the whole board (not of one way). */
-  boardPhotos: AttachmentDto[];
-};
+import type { WalkProgress, WalkData } from '@/lib/boards/walk-types';
 
 /** Counts of a walk's results. */
 export function walkProgress(statuses: LabelStatus[]): WalkProgress {
@@ -69,9 +39,7 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
     listAttachments(actor, boardId),
   ]);
   const ordered = railOrder(ways);
-  const refs = new Map(
-    layoutWays(board.phases, ordered as unknown as SnapshotWay[]).map((p) => [p.id, p.label]),
-  );
+  const refs = new Map(layoutWays(board.phases, ordered as unknown as SnapshotWay[]).map((p) => [p.id, p.label]));
   const checkers = await User.findAll({
     where: { id: { [Op.in]: ordered.map((w) => w.labelCheckedById).filter((id): id is string => !!id) } },
     attributes: ['id', 'name'],
@@ -159,7 +127,8 @@ export async function recordLabel(
       await board.update({ status: step.to }, { transaction });
       if (step.audit) {
         // The way that took the labels back is kept with the event
-        const details = step.audit === 'board.labels-unmatched' ? { revision: board.revision, wayId } : { revision: board.revision };
+        const details =
+          step.audit === 'board.labels-unmatched' ? { revision: board.revision, wayId } : { revision: board.revision };
         await audit(actor, step.audit, details, { boardId, transaction });
       }
     }

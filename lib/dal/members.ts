@@ -14,20 +14,10 @@ import { enqueueMail } from '@/lib/mail/outbox';
 import { invitationMail } from '@/lib/mail/templates';
 import type { AcceptInviteInput, InviteInput, MemberUpdate } from '@/lib/members/schemas';
 import { Invitation, Organisation, User } from '@/models';
-import type { Role } from '@/models/user';
+import type { Member } from '@/lib/members/types';
 
 /** Invitations are valid for a week. */
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
-
-export type Member = {
-  id: string;
-  name: string;
-  email: string;
-  role: Role;
-  active: boolean;
-  pending: boolean;
-  createdAt: string;
-};
 
 const hashToken = (token: string) => crypto.createHash('sha256').update(token).digest('hex');
 

@@ -8,7 +8,7 @@ import { layoutWays } from '@/lib/boards/layout';
 import { readWays } from '@/lib/dal/board-repository';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { renderNotice, type MailComment, type NoticeFacts } from '@/lib/mail/templates';
-import { AuditEvent, Board, Comment, User } from '@/models';
+import { AuditEvent, type Board, Comment, User } from '@/models';
 
 export type Recipient = { email: string; name: string };
 

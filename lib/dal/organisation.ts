@@ -27,7 +27,12 @@ export async function updateOrganisationSettings(
     if (!org) throw notFound('The organisation');
     const before = org.allowSelfIssue;
     await org.update({ allowSelfIssue: input.allowSelfIssue }, { transaction });
-    await audit(actor, 'organisation.changed', { allowSelfIssue: { from: before, to: input.allowSelfIssue } }, { transaction });
+    await audit(
+      actor,
+      'organisation.changed',
+      { allowSelfIssue: { from: before, to: input.allowSelfIssue } },
+      { transaction },
+    );
   });
   return getOrganisationSettings(actor);
 }

@@ -1,22 +1,10 @@
 import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
-import { commentDto, type CommentDto } from '@/lib/dal/comments';
+import { commentDto } from '@/lib/dal/comments';
 import { findBoard } from '@/lib/dal/boards';
 import { AuditEvent, Comment, User } from '@/models';
-
-/** A returned board's review as the designer reads it in the editor. */
-export type ReturnNotes = {
-  revision: number;
-  returnedByName: string;
-  returnedAt: string;
-  /** Comments on the whole board: the reason for the return, open ones only. */
-  reasons: CommentDto[];
-  /** Open comments on single ways, to show beside them. */
-  wayComments: CommentDto[];
-  /** How many comments of this return are answered already. */
-  answered: number;
-};
+import type { ReturnNotes } from '@/lib/boards/review-types';
 
 /**
  * The review of a board that was returned for its current revision and is a draft again: who

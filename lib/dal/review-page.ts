@@ -3,29 +3,13 @@ import 'server-only';
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
-import type { BoardDto } from '@/lib/boards/types';
+import type { IssuePreview, ReviewData } from '@/lib/boards/review-types';
 import { organisationName } from '@/lib/dal/board-snapshot';
 import { readSizedBoard } from '@/lib/dal/board-repository';
 import { findBoard, getBoard } from '@/lib/dal/boards';
-import { listComments, type CommentDto } from '@/lib/dal/comments';
-import { issueRefusalFor, type IssuePreview } from '@/lib/dal/issue-and-return';
-import { listRevisions, nextRevision, type RevisionSummary } from '@/lib/dal/revisions';
-import type { FieldIssue } from '@/lib/errors';
-import type { BoardResult } from '@/lib/sizing';
-
-/** Everything the review page shows. */
-export type ReviewData = {
-  board: BoardDto;
-  organisationName: string;
-  sizing: BoardResult | null;
-  /** Why the board could not be sized (empty when it could). */
-  sizingIssues: FieldIssue[];
-  /** Printed way reference per way id (null for devices without one). */
-  refs: Record<string, string | null>;
-  comments: CommentDto[];
-  revisions: RevisionSummary[];
-  issue: IssuePreview;
-};
+import { listComments } from '@/lib/dal/comments';
+import { issueRefusalFor } from '@/lib/dal/issue-and-return';
+import { listRevisions, nextRevision } from '@/lib/dal/revisions';
 
 /** The review page's data: the board, its sizing, comments and issued revisions. */
 export async function getReview(actor: Actor, boardId: string): Promise<ReviewData> {

@@ -9,16 +9,9 @@ import { sizeSnapshot } from '@/lib/dal/board-sizing';
 import { findBoard } from '@/lib/dal/boards';
 import { notFound } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
-import { Board, BoardRevision, User } from '@/models';
+import { type Board, BoardRevision, User } from '@/models';
 import type { BoardStatus } from '@/models/board';
-
-export type RevisionSummary = {
-  revision: number;
-  issuedAt: string;
-  issuedByName: string;
-  /** The issuer's typed name (null for revisions issued before declarations were asked). */
-  declaration: string | null;
-};
+import type { RevisionSummary } from '@/lib/boards/review-types';
 
 /** The issued revisions of a board, newest first. */
 export async function listRevisions(actor: Actor, boardId: string): Promise<RevisionSummary[]> {
@@ -39,7 +32,8 @@ export async function listRevisions(actor: Actor, boardId: string): Promise<Revi
 
 /** The revision number a board in review would be issued as: its own, unless that one was issued. */
 export async function nextRevision(board: Board, transaction?: Transaction): Promise<number> {
-  const last = ((await BoardRevision.max('revision', { where: { boardId: board.id }, transaction })) as number | null) ?? 0;
+  const last =
+    ((await BoardRevision.max('revision', { where: { boardId: board.id }, transaction })) as number | null) ?? 0;
   return Math.max(board.revision, last + 1);
 }
 
@@ -52,11 +46,7 @@ export type RevisionState = {
 };
 
 /** An issued revision, or the live board when `revision` is 'current'. */
-export async function getRevision(
-  actor: Actor,
-  boardId: string,
-  revision: number | 'current',
-): Promise<RevisionState> {
+export async function getRevision(actor: Actor, boardId: string, revision: number | 'current'): Promise<RevisionState> {
   const board = await findBoard(actor, boardId);
   if (revision === 'current') {
     const snapshot = await liveSnapshot(actor, board);

@@ -10,18 +10,7 @@ import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { scheduleMail } from '@/lib/mail/templates';
 import { AuditEvent, OutgoingMail, User } from '@/models';
-
-export type ScheduleMail = {
-  id: string;
-  to: string;
-  revision: number;
-  status: 'queued' | 'sent' | 'failed';
-  attempts: number;
-  lastError: string | null;
-  sentByName: string;
-  createdAt: string;
-  sentAt: string | null;
-};
+import type { ScheduleMail } from '@/lib/boards/review-types';
 
 /** Queues the schedule PDF to an address through the outbox and records who sent it. */
 export async function emailSchedule(

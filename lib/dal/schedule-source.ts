@@ -36,11 +36,7 @@ export type ScheduleSource = {
  * ('schedule.print-draft': not installers) print the live draft; the others print issued
  * revisions only (a board never issued is refused).
  */
-export async function getScheduleSource(
-  actor: Actor,
-  boardId: string,
-  revision?: number,
-): Promise<ScheduleSource> {
+export async function getScheduleSource(actor: Actor, boardId: string, revision?: number): Promise<ScheduleSource> {
   const board = await findBoard(actor, boardId);
   const draftsAllowed = can(actor.role, 'schedule.print-draft');
   const issuedNow = isIssued(board.status);
@@ -87,7 +83,10 @@ export async function getScheduleSource(
   }
   if (target !== board.revision) throw notFound(`Revision ${target}`);
   if (!draftsAllowed) throw forbidden('print a board that has not been issued');
-  const [snapshot, { sizing, issues }] = await Promise.all([liveSnapshot(actor, board), readSizedBoard(actor, boardId)]);
+  const [snapshot, { sizing, issues }] = await Promise.all([
+    liveSnapshot(actor, board),
+    readSizedBoard(actor, boardId),
+  ]);
   return {
     boardId,
     boardUrl: url,

@@ -9,20 +9,10 @@ import { audit } from '@/lib/dal/audit';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/errors';
 import type { SiteInput } from '@/lib/sites/schemas';
 import { Board, BoardRevision, Site, User } from '@/models';
+import type { SiteSummary } from '@/lib/sites/types';
 
 // The schema lives in lib/sites/schemas.ts so the browser form can share it.
 export { siteInputSchema, type SiteInput } from '@/lib/sites/schemas';
-
-export type SiteSummary = {
-  id: string;
-  name: string;
-  address: string;
-  client: string;
-  boardCount: number;
-  updatedAt: string;
-  /** When the site was archived, and by whom; null for a live site. */
-  archived: { at: string; byName: string } | null;
-};
 
 function toSummary(site: Site, boardCount: number, archivedByName = 'A former member'): SiteSummary {
   return {
@@ -80,21 +70,14 @@ export async function getSite(actor: Actor, siteId: string): Promise<SiteSummary
 
 export async function createSite(actor: Actor, input: SiteInput): Promise<SiteSummary> {
   const site = await db().transaction(async (transaction) => {
-    const created = await Site.create(
-      { ...input, organisationId: actor.organisationId },
-      { transaction },
-    );
+    const created = await Site.create({ ...input, organisationId: actor.organisationId }, { transaction });
     await audit(actor, 'site.created', { siteId: created.id, name: input.name }, { transaction });
     return created;
   });
   return toSummary(site, 0);
 }
 
-export async function updateSite(
-  actor: Actor,
-  siteId: string,
-  input: Partial<SiteInput>,
-): Promise<SiteSummary> {
+export async function updateSite(actor: Actor, siteId: string, input: Partial<SiteInput>): Promise<SiteSummary> {
   const site = await findSite(actor, siteId);
   if (site.archivedAt) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
   await db().transaction(async (transaction) => {
@@ -141,10 +124,15 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
     );
     // Each board's own trail says so too
     for (const b of live) {
-      await audit(actor, 'board.archived', { name: b.name, revision: b.revision, siteId, site: site.name }, {
-        boardId: b.id,
-        transaction,
-      });
+      await audit(
+        actor,
+        'board.archived',
+        { name: b.name, revision: b.revision, siteId, site: site.name },
+        {
+          boardId: b.id,
+          transaction,
+        },
+      );
     }
   });
   return getSite(actor, siteId);
@@ -166,4 +154,3 @@ export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSum
   });
   return getSite(actor, siteId);
 }
-

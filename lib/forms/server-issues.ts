@@ -21,11 +21,7 @@ export function applyServerIssues<T extends FieldValues>(
   // Each issue goes onto its field, the first one taking the focus
   for (const issue of error.issues) {
     if (known.has(issue.path)) {
-      setError(
-        issue.path as FieldPath<T>,
-        { type: 'server', message: issue.message },
-        { shouldFocus: placed === 0 },
-      );
+      setError(issue.path as FieldPath<T>, { type: 'server', message: issue.message }, { shouldFocus: placed === 0 });
       placed += 1;
     } else {
       leftOver.push(issue.path === '(body)' ? issue.message : `${issue.path}: ${issue.message}`);

@@ -14,9 +14,7 @@ export const formErrorMap: z.core.$ZodErrorMap = (issue) => {
     case 'too_small':
       if (issue.origin === 'number') return `Use ${String(issue.minimum)} or more.`;
       if (issue.origin === 'string') {
-        return Number(issue.minimum) <= 1
-          ? 'Fill in this field.'
-          : `Use at least ${String(issue.minimum)} characters.`;
+        return Number(issue.minimum) <= 1 ? 'Fill in this field.' : `Use at least ${String(issue.minimum)} characters.`;
       }
       return undefined;
     case 'too_big':

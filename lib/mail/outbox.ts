@@ -93,7 +93,10 @@ export async function dispatchDueMail(limit = 20): Promise<{ sent: number; faile
             content: Buffer.from(a.contentBase64, 'base64'),
           })),
         });
-        await mail.update({ status: 'sent', sentAt: new Date(), attempts: mail.attempts + 1, lastError: null }, { transaction });
+        await mail.update(
+          { status: 'sent', sentAt: new Date(), attempts: mail.attempts + 1, lastError: null },
+          { transaction },
+        );
         sent += 1;
       } catch (err) {
         const attempts = mail.attempts + 1;

@@ -169,13 +169,22 @@ export function applyDiversity(
       rules.push({ rule: 'Socket circuits: 100 % of the largest + 40 % of every other', source: src });
     } else if (k === 'cooker') {
       share(group, Math.min(total, 10 + 0.3 * Math.max(0, total - 10)));
-      rules.push({ rule: 'Cooking: 10 A + 30 % of the remainder (no socket on the control unit assumed)', source: src });
+      rules.push({
+        rule: 'Cooking: 10 A + 30 % of the remainder (no socket on the control unit assumed)',
+        source: src,
+      });
     } else if (k === 'shower') {
       sorted.forEach((l, i) => amps.set(l.id, l.ibA * (i < 2 ? 1 : 0.25)));
-      rules.push({ rule: 'Showers (instantaneous water heaters): 100 % of the largest + 100 % of the second + 25 % of the rest', source: src });
+      rules.push({
+        rule: 'Showers (instantaneous water heaters): 100 % of the largest + 100 % of the second + 25 % of the rest',
+        source: src,
+      });
     } else if (k === 'motor') {
       sorted.forEach((l, i) => amps.set(l.id, l.ibA * (i === 0 ? 1 : i === 1 ? 0.8 : 0.6)));
-      rules.push({ rule: 'Motors: 100 % of the largest + 80 % of the second + 60 % of the rest', source: `${src} (small premises; from memory)` });
+      rules.push({
+        rule: 'Motors: 100 % of the largest + 80 % of the second + 60 % of the rest',
+        source: `${src} (small premises; from memory)`,
+      });
     } else {
       share(group, Math.min(total, 10 + 0.5 * Math.max(0, total - 10)));
       rules.push({ rule: 'Other heating and power: 100 % up to 10 A + 50 % of the balance', source: src });
@@ -280,8 +289,7 @@ export function sizeBoard(raw: BoardInput): BoardResult {
     else counts.fails += 1;
 
     // Connected load: known loads at their watts, socket arrangements at Ib·Uo.
-    connectedLoadW +=
-      spec.load.kind === 'known' ? spec.load.watts : result.ibA * input.supply.uoV;
+    connectedLoadW += spec.load.kind === 'known' ? spec.load.watts : result.ibA * input.supply.uoV;
 
     // Phases the circuit loads.
     let phases: Phase[] = ['L1'];

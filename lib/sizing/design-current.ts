@@ -17,10 +17,7 @@ export type Load =
  * device kind not above the arrangement's nominal rating (32 A, or 30 A for a BS 3036
  * fuse; 20 A). Taking Ib = In is conservative common practice (UK on-site guidance).
  */
-export function socketArrangementCurrent(
-  arrangement: SocketArrangementKind,
-  deviceKind: ProtectiveDeviceKind,
-): number {
+export function socketArrangementCurrent(arrangement: SocketArrangementKind, deviceKind: ProtectiveDeviceKind): number {
   const nominal = SOCKET_ARRANGEMENTS[arrangement].nominalA;
   const list = STANDARD_RATINGS_A[deviceKind];
   let best: number = list[0];
@@ -33,12 +30,7 @@ export function socketArrangementCurrent(
  * with UL the nominal line voltage (400 V on a 230/400 V supply, see lineVoltage). Socket
  * arrangement: the assumed current or the arrangement's default (see socketArrangementCurrent).
  */
-export function designCurrent(
-  load: Load,
-  phases: 1 | 3,
-  uoV: number,
-  deviceKind: ProtectiveDeviceKind,
-): number {
+export function designCurrent(load: Load, phases: 1 | 3, uoV: number, deviceKind: ProtectiveDeviceKind): number {
   if (load.kind === 'socket-arrangement') {
     return load.assumedA ?? socketArrangementCurrent(load.arrangement, deviceKind);
   }

@@ -5,12 +5,7 @@
  * practice take precedence.
  */
 export { sizeCircuit, BS7671, NEAR_LIMIT_SHARE } from './size-circuit';
-export {
-  parseBoardInput,
-  parseCircuitInput,
-  SizingInputError,
-  type SizingInputIssue,
-} from './validate';
+export { parseBoardInput, parseCircuitInput, SizingInputError, type SizingInputIssue } from './validate';
 export { sizeBoard, applyDiversity, circuitForWay, diversityClass, isProtectiveDevice } from './board';
 export type { BoardResult, BoardSummary, DiversityRule, Phase, WayResult } from './board';
 export {

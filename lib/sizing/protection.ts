@@ -1,8 +1,4 @@
-import {
-  DISTRIBUTION_TIMES_S,
-  FINAL_CIRCUIT_LIMITS_A,
-  FINAL_CIRCUIT_TIMES_S,
-} from './tables/disconnection';
+import { DISTRIBUTION_TIMES_S, FINAL_CIRCUIT_LIMITS_A, FINAL_CIRCUIT_TIMES_S } from './tables/disconnection';
 import { K_VALUES } from './tables/k-values';
 import { CLASS3_LET_THROUGH_A2S } from './tables/let-through';
 import { BREAKER_TRIP_MULTIPLE, CMIN, FUSE_MAX_ZS_OHM } from './tables/max-zs';
@@ -26,12 +22,7 @@ function isBreaker(kind: ProtectiveDeviceKind): boolean {
  * and up to 32 A otherwise take Table 41.1 (TN 0.4 s / TT 0.2 s at 230 V); distribution
  * circuits and larger final circuits 5 s (TN) / 1 s (TT).
  */
-export function requiredDisconnectionTime(
-  use: CircuitUse,
-  inA: number,
-  earthing: Earthing,
-  uoV: number,
-): number {
+export function requiredDisconnectionTime(use: CircuitUse, inA: number, earthing: Earthing, uoV: number): number {
   const tt = earthing === 'TT';
   const limit = use === 'sockets' ? FINAL_CIRCUIT_LIMITS_A.sockets : FINAL_CIRCUIT_LIMITS_A.other;
   if (use === 'distribution' || inA > limit) return tt ? DISTRIBUTION_TIMES_S.tt : DISTRIBUTION_TIMES_S.tn;
@@ -200,7 +191,11 @@ export function faultEnergy(args: {
       const iAt10ms = fuseCurrentAt10ms(kind, device.inA);
       if (t === FUSE_MIN_TIME_S && iAt10ms !== null) i2t = iAt10ms * iAt10ms * FUSE_MIN_TIME_S;
       return {
-        energy: { i2t, timeS: t, basis: 'fuse time from Tables 41.2/41.4 (log-log line; slope assumed where 41.2 has no value)' },
+        energy: {
+          i2t,
+          timeS: t,
+          basis: 'fuse time from Tables 41.2/41.4 (log-log line; slope assumed where 41.2 has no value)',
+        },
         faultA: i,
       };
     }
@@ -250,8 +245,10 @@ export function additionalRcdReasons(args: {
   specialLocation?: 'none' | 'bath-shower' | 'outdoors';
 }): string[] {
   const reasons: string[] = [];
-  if (args.specialLocation === 'bath-shower') reasons.push('every circuit of a room containing a bath or shower (701.411.3.3)');
-  if (args.specialLocation === 'outdoors' && args.inA <= 32) reasons.push('equipment used outdoors, rated up to 32 A (411.3.3)');
+  if (args.specialLocation === 'bath-shower')
+    reasons.push('every circuit of a room containing a bath or shower (701.411.3.3)');
+  if (args.specialLocation === 'outdoors' && args.inA <= 32)
+    reasons.push('equipment used outdoors, rated up to 32 A (411.3.3)');
   if (args.use === 'sockets' && args.inA <= 32) reasons.push('socket-outlets rated up to 32 A (411.3.3)');
   if (args.concealedInWall) reasons.push('cable concealed in a wall at less than 50 mm (522.6.202)');
   if (args.use === 'lighting' && args.dwelling) reasons.push('lighting in a dwelling (411.3.4)');

@@ -39,11 +39,7 @@ export const supplySchema = z
     earthing: z.enum(EARTHING_SYSTEMS),
     // Uo is line-to-earth: 230 V on a 230/400 V supply. 400 V is the line voltage of a
     // three-phase supply, which the engine derives; entering it would undersize by √3.
-    uoV: z
-      .number()
-      .min(100, UO_MESSAGE)
-      .max(277, UO_MESSAGE)
-      .default(230),
+    uoV: z.number().min(100, UO_MESSAGE).max(277, UO_MESSAGE).default(230),
     zeOhm: z.number().min(0).max(2000),
     pfcKa: z.number().min(0).max(200),
     source: z.enum(['public', 'private']).default('public'),
@@ -164,7 +160,11 @@ type SpecLike = {
 
 function refineSpec(c: SpecLike, ctx: z.RefinementCtx): void {
   if (c.armouredCpc !== undefined && c.cable !== 'swa-xlpe-90') {
-    ctx.addIssue({ code: 'custom', path: ['armouredCpc'], message: 'only an armoured cable has an armour to use as its cpc' });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['armouredCpc'],
+      message: 'only an armoured cable has an armour to use as its cpc',
+    });
   }
   if (c.load.kind === 'socket-arrangement') {
     if (c.use !== 'sockets') {
@@ -239,7 +239,11 @@ export const deviceOnRailSchema = z
       ctx.addIssue({ code: 'custom', path: ['curve'], message: 'only circuit-breakers have a curve' });
     }
     if ((d.kind === 'rcd' || d.kind === 'rcbo') && (d.rcdMa === undefined || d.rcdMa === null)) {
-      ctx.addIssue({ code: 'custom', path: ['rcdMa'], message: `an ${deviceKindName(d.kind)} needs its residual current (mA)` });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['rcdMa'],
+        message: `an ${deviceKindName(d.kind)} needs its residual current (mA)`,
+      });
     }
   });
 export type DeviceOnRail = z.infer<typeof deviceOnRailSchema>;

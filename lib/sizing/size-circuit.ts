@@ -89,9 +89,7 @@ function evaluateSize(ctx: EvalContext, csaMm2: number, row: CableRowData | null
   const armour = ctx.armouredCpc === 'armour' ? armourOf(csaMm2, c.phases) : null;
   const cpcMm2 = armour
     ? armour.areaMm2
-    : (c.cpcMm2 ??
-      row?.constructionCpcMm2 ??
-      (c.cable === 'te-70' ? (teConstructionCpc(csaMm2) ?? csaMm2) : csaMm2));
+    : (c.cpcMm2 ?? row?.constructionCpcMm2 ?? (c.cable === 'te-70' ? (teConstructionCpc(csaMm2) ?? csaMm2) : csaMm2));
   const vdV = row ? voltageDrop(row.mvAm, ibA, c.lengthM, ring) : null;
   const vdPct = vdV === null ? null : (vdV / ctx.vNominal) * 100;
   const loop =
@@ -109,8 +107,7 @@ function evaluateSize(ctx: EvalContext, csaMm2: number, row: CableRowData | null
   // The far-end earth fault current Uo/Zs, never above the prospective fault current at
   // the board where one is given (it cannot exceed the current at the origin).
   const uoOverZs = loop && loop.zsOhm > 0 ? uoV / loop.zsOhm : null;
-  const farEndFaultA =
-    uoOverZs !== null && supply.pfcKa > 0 ? Math.min(uoOverZs, supply.pfcKa * 1000) : uoOverZs;
+  const farEndFaultA = uoOverZs !== null && supply.pfcKa > 0 ? Math.min(uoOverZs, supply.pfcKa * 1000) : uoOverZs;
   const fe = ctx.deviceFacts
     ? faultEnergy({ device: ctx.deviceFacts, farEndFaultA, rcdMa: ctx.rcdMa, timeS: ctx.disconnectionTimeS })
     : null;
@@ -129,12 +126,7 @@ function evaluateSize(ctx: EvalContext, csaMm2: number, row: CableRowData | null
     energyBasis: fe?.energy.basis ?? null,
     energyFaultA: fe?.faultA ?? null,
     vdOk: vdPct !== null && vdPct <= ctx.vdLimitPct,
-    faultOk:
-      zsMaxOhm !== null &&
-      loop !== null &&
-      loop.zsOhm <= zsMaxOhm &&
-      cpcMinMm2 !== null &&
-      cpcMm2 >= cpcMinMm2,
+    faultOk: zsMaxOhm !== null && loop !== null && loop.zsOhm <= zsMaxOhm && cpcMinMm2 !== null && cpcMm2 >= cpcMinMm2,
   };
 }
 
@@ -334,8 +326,7 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
 
   // Step 7: disconnection time, max Zs and the limits that do not depend on cable size.
   const disconnectionTimeS = requiredDisconnectionTime(c.use, inA ?? ibA, supply.earthing, uoV);
-  const deviceFacts: DeviceFacts | null =
-    inA === null ? null : { kind: dev.kind, curve: dev.curve ?? null, inA };
+  const deviceFacts: DeviceFacts | null = inA === null ? null : { kind: dev.kind, curve: dev.curve ?? null, inA };
   const zsMaxOhm = !deviceFacts
     ? null
     : tt
@@ -350,8 +341,7 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
   const vNominal = nominalVoltage(c.phases, uoV);
   // Armoured cable: a spare core where the cable has one (3-core single-phase), else the
   // armour (4-core three-phase); the designer can choose either.
-  const armouredCpc =
-    c.cable === 'swa-xlpe-90' ? (c.armouredCpc ?? (c.phases === 3 ? 'armour' : 'spare-core')) : null;
+  const armouredCpc = c.cable === 'swa-xlpe-90' ? (c.armouredCpc ?? (c.phases === 3 ? 'armour' : 'spare-core')) : null;
 
   const ctx: EvalContext = {
     c,
@@ -391,8 +381,7 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
   }
   const row = chosen?.row ?? null;
   // Ci is already inside each row's It (the method C rating × Ci where that is lower).
-  const derating =
-    factors.ca === null || factors.cg === null ? null : factors.ca * factors.cg * factors.cc;
+  const derating = factors.ca === null || factors.cg === null ? null : factors.ca * factors.cg * factors.cc;
   const itA = row ? row.itA : null;
   const izA = itA !== null && derating !== null ? itA * derating : null;
 
@@ -403,9 +392,7 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
     checks.push({
       code: 'cable-capacity',
       ok: false,
-      message:
-        capacityMessage ??
-        'The cable rating cannot be found for this combination (see the other checks).',
+      message: capacityMessage ?? 'The cable rating cannot be found for this combination (see the other checks).',
       reference: `${props.table}; ${BS7671} 433.1.1`,
     });
   } else {
@@ -500,7 +487,8 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
       : assemblyKa === null
         ? `PFC ${fmt(supply.pfcKa)} kA > breaking capacity ${breakingKa} kA.`
         : `PFC ${fmt(supply.pfcKa)} kA > the device's ${breakingKa} kA, ${assemblyOk ? 'but ≤' : 'and >'} the ${assemblyKa} kA rated conditional short-circuit current the board declares for its assembly (BS EN 61439-3).`,
-    reference: assemblyKa === null ? 'BS 7671:2018+A2:2022 434.5.1' : 'BS 7671:2018+A2:2022 434.5.1, 536.4.201 (from memory)',
+    reference:
+      assemblyKa === null ? 'BS 7671:2018+A2:2022 434.5.1' : 'BS 7671:2018+A2:2022 434.5.1, 536.4.201 (from memory)',
   });
 
   // Step 13: adiabatic check of the cpc.
@@ -513,13 +501,16 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
       ok,
       message: `${what} ${chosen.cpcMm2} mm² ${ok ? '≥' : '<'} ${fmt(cpcMinMm2, 3)} mm² (√(I²t)/k at the far-end fault current ${fmt(chosen.energyFaultA ?? 0, 0)} A; ${chosen.energyBasis}).`,
       reference:
-        armouredCpc === 'armour' ? 'BS 7671:2018+A2:2022 543.1.3, Table 54.4' : 'BS 7671:2018+A2:2022 543.1.3, Table 54.3',
+        armouredCpc === 'armour'
+          ? 'BS 7671:2018+A2:2022 543.1.3, Table 54.4'
+          : 'BS 7671:2018+A2:2022 543.1.3, Table 54.3',
     });
   } else {
     checks.push({
       code: 'adiabatic',
       ok: false,
-      message: 'The fault energy cannot be found: the device does not operate in a known time at the fault current at the far end.',
+      message:
+        'The fault energy cannot be found: the device does not operate in a known time at the fault current at the far end.',
       reference: 'BS 7671:2018+A2:2022 543.1.3',
     });
   }
@@ -584,9 +575,7 @@ export function sizeValidCircuit(input: CircuitInput): CircuitResult {
     cpcKind: armouredCpc ?? 'core',
     disconnectionTimeS,
     adiabaticTimeS: chosen?.adiabaticTimeS ?? null,
-    tableRow: row
-      ? { table: props.table, method: c.method, csaMm2: row.csaMm2, itA: row.itA, mvAm: row.mvAm }
-      : null,
+    tableRow: row ? { table: props.table, method: c.method, csaMm2: row.csaMm2, itA: row.itA, mvAm: row.mvAm } : null,
     checks,
     verdict,
     notes,

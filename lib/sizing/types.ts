@@ -16,13 +16,7 @@ export type Earthing = (typeof EARTHING_SYSTEMS)[number];
 export const CIRCUIT_USES = ['lighting', 'sockets', 'fixed', 'distribution'] as const;
 export type CircuitUse = (typeof CIRCUIT_USES)[number];
 
-export const PROTECTIVE_DEVICE_KINDS = [
-  'mcb',
-  'rcbo',
-  'fuse-bs88-2',
-  'fuse-bs88-3',
-  'fuse-bs3036',
-] as const;
+export const PROTECTIVE_DEVICE_KINDS = ['mcb', 'rcbo', 'fuse-bs88-2', 'fuse-bs88-3', 'fuse-bs3036'] as const;
 export type ProtectiveDeviceKind = (typeof PROTECTIVE_DEVICE_KINDS)[number];
 
 export const CURVES = ['B', 'C', 'D'] as const;

@@ -1,11 +1,6 @@
 import type { z } from 'zod';
 
-import {
-  boardInputSchema,
-  circuitInputSchema,
-  type BoardInput,
-  type CircuitInput,
-} from './schemas';
+import { boardInputSchema, circuitInputSchema, type BoardInput, type CircuitInput } from './schemas';
 
 /** One field the engine refused: its path (dot-separated) and why. */
 export interface SizingInputIssue {

@@ -1,12 +1,6 @@
 import 'server-only';
 
-import {
-  DeleteObjectCommand,
-  GetObjectCommand,
-  NoSuchKey,
-  PutObjectCommand,
-  S3Client,
-} from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 
 import { env } from '@/lib/env';
 
@@ -72,7 +66,5 @@ export async function getObjectBytes(key: string): Promise<Uint8Array | null> {
 /** Removes objects; keys that do not exist are ignored. */
 export async function deleteObjects(keys: string[]): Promise<void> {
   // One call per key: the batch call needs a body checksum that not every S3 fake accepts.
-  await Promise.all(
-    keys.map((Key) => s3().send(new DeleteObjectCommand({ Bucket: env().S3_BUCKET, Key }))),
-  );
+  await Promise.all(keys.map((Key) => s3().send(new DeleteObjectCommand({ Bucket: env().S3_BUCKET, Key }))));
 }

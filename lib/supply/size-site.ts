@@ -21,7 +21,6 @@ import { boardMaxDemand } from './max-demand';
 import { overcurrentSelectivity, rcdSelectivity, type OvercurrentDevice } from './selectivity';
 import type {
   CarriedFaultCurrent,
-  FedFrom,
   SelectivityPair,
   SiteBoardInput,
   SiteBoardResult,

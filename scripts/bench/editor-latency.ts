@@ -81,7 +81,9 @@ async function main() {
     await page.getByLabel('Password').fill('designer-demo-2026');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL((u) => !u.pathname.startsWith('/login'));
-    const { boards } = (await (await page.request.get(`${APP_URL}/api/boards`)).json()) as { boards: { id: string; name: string }[] };
+    const { boards } = (await (await page.request.get(`${APP_URL}/api/boards`)).json()) as {
+      boards: { id: string; name: string }[];
+    };
     const boardId = boards.find((b) => b.name === 'Workshop DB1')?.id;
     if (!boardId) throw new Error('the demo board "Workshop DB1" is missing; run scripts/seed.ts');
     const original = (await (await page.request.get(`${APP_URL}/api/boards/${boardId}`)).json()).board;
@@ -100,8 +102,12 @@ async function main() {
     );
     const kb = (n: number) => `${(n / 1024).toFixed(1)} kB`;
     const ways = await page.locator('[data-way-id]').count();
-    console.log(`Editor route first load: ${js.length} scripts, ${kb(js.reduce((n, r) => n + r.encoded, 0))} as sent (compressed), ${kb(js.reduce((n, r) => n + r.body, 0))} uncompressed`);
-    console.log(`Board: Workshop DB1, ${ways} devices on the rail; ${CHANGES} changes of each kind, ${GAP_MS} ms apart\n`);
+    console.log(
+      `Editor route first load: ${js.length} scripts, ${kb(js.reduce((n, r) => n + r.encoded, 0))} as sent (compressed), ${kb(js.reduce((n, r) => n + r.body, 0))} uncompressed`,
+    );
+    console.log(
+      `Board: Workshop DB1, ${ways} devices on the rail; ${CHANGES} changes of each kind, ${GAP_MS} ms apart\n`,
+    );
 
     // 1. Field changes: the length of one circuit in the way panel
     const target = page.locator('[data-way-label="4L2"]');
@@ -111,15 +117,18 @@ async function main() {
     const fieldSamples: number[] = [];
     for (let i = 0; i < CHANGES; i++) {
       const before = Number(await page.locator('[data-testid="drawn-board"]').getAttribute('data-edit-seq'));
-      await page.evaluate((value) => {
-        const input = [...document.querySelectorAll<HTMLInputElement>('input')].find(
-          (el) => el.labels?.[0]?.textContent === 'Length (m)',
-        )!;
-        const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
-        (window as unknown as { benchT0: number }).benchT0 = performance.now();
-        setter.call(input, String(value));
-        input.dispatchEvent(new Event('input', { bubbles: true }));
-      }, 10 + (i % 30));
+      await page.evaluate(
+        (value) => {
+          const input = [...document.querySelectorAll<HTMLInputElement>('input')].find(
+            (el) => el.labels?.[0]?.textContent === 'Length (m)',
+          )!;
+          const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
+          (window as unknown as { benchT0: number }).benchT0 = performance.now();
+          setter.call(input, String(value));
+          input.dispatchEvent(new Event('input', { bubbles: true }));
+        },
+        10 + (i % 30),
+      );
       fieldSamples.push(await waitForVerdict(page, targetId, before));
       await page.waitForTimeout(GAP_MS);
     }
@@ -130,9 +139,13 @@ async function main() {
     const moverId = (await mover.getAttribute('data-way-id'))!;
     await page.evaluate(() => {
       // The clock starts when the pointer is let go, before the editor handles the drop
-      document.addEventListener('pointerup', () => ((window as unknown as { benchT0: number }).benchT0 = performance.now()), {
-        capture: true,
-      });
+      document.addEventListener(
+        'pointerup',
+        () => ((window as unknown as { benchT0: number }).benchT0 = performance.now()),
+        {
+          capture: true,
+        },
+      );
     });
     for (let i = 0; i < CHANGES; i++) {
       const cell = page.locator(`[data-way-id="${moverId}"]`);
@@ -159,7 +172,10 @@ async function main() {
     console.log(summary('field change → verdict', fieldSamples));
     console.log(summary('drop → verdict', dropSamples));
     console.log(summary('all changes', [...fieldSamples, ...dropSamples]));
-    const p95 = percentile([...fieldSamples, ...dropSamples].sort((a, b) => a - b), 95);
+    const p95 = percentile(
+      [...fieldSamples, ...dropSamples].sort((a, b) => a - b),
+      95,
+    );
     console.log(`\nTarget p95 < 150 ms: ${p95 < 150 ? 'met' : 'NOT met'} (${p95.toFixed(1)} ms)`);
 
     // Put the board back as it was (the editor autosaves the changes made here)
@@ -170,7 +186,13 @@ async function main() {
       data: {
         version: now.version,
         settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
-        ways: original.ways.map(({ id, rail, position, device, circuit }: Record<string, unknown>) => ({ id, rail, position, device, circuit })),
+        ways: original.ways.map(({ id, rail, position, device, circuit }: Record<string, unknown>) => ({
+          id,
+          rail,
+          position,
+          device,
+          circuit,
+        })),
       },
     });
     if (res.status() !== 200) console.error(`Could not put the board back: HTTP ${res.status()}`);

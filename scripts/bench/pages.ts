@@ -65,7 +65,10 @@ type Run = { name: string; url: string; cookie: string; connections?: number };
 async function settle(): Promise<void> {
   for (let i = 0; i < 120; i++) {
     const started = performance.now();
-    const ok = await fetch(`${baseUrl}/login`).then((r) => r.arrayBuffer().then(() => true), () => false);
+    const ok = await fetch(`${baseUrl}/login`).then(
+      (r) => r.arrayBuffer().then(() => true),
+      () => false,
+    );
     if (!ok) continue;
     if (performance.now() - started < 500) return;
   }
@@ -109,7 +112,12 @@ async function main() {
     { name: 'review page (inspector)', url: `/boards/${issued}/review`, cookie: cookies.inspector, target: 0.2 },
     { name: 'schedule page (inspector)', url: `/boards/${issued}/schedule`, cookie: cookies.inspector },
     { name: 'walk page (installer)', url: `/boards/${issued}/walk`, cookie: cookies.installer },
-    { name: 'schedule PDF, issued', url: `/api/boards/${issued}/schedule?download=1`, cookie: cookies.installer, target: 0.5 },
+    {
+      name: 'schedule PDF, issued',
+      url: `/api/boards/${issued}/schedule?download=1`,
+      cookie: cookies.installer,
+      target: 0.5,
+    },
     { name: 'schedule PDF, draft', url: `/api/boards/${draft}/schedule`, cookie: cookies.designer },
   ];
   const lines: string[] = [];
@@ -140,7 +148,12 @@ async function main() {
     url: `${baseUrl}/api/boards/${draft}/schedule`,
     timeout: TIMEOUT_S,
   };
-  const trivialOpts = { connections: CONNECTIONS, headers: { cookie: cookies.designer }, url: `${baseUrl}/api/me`, timeout: TIMEOUT_S };
+  const trivialOpts = {
+    connections: CONNECTIONS,
+    headers: { cookie: cookies.designer },
+    url: `${baseUrl}/api/me`,
+    timeout: TIMEOUT_S,
+  };
   const alone = await measure({ name: 'trivial again', url: '/api/me', cookie: cookies.designer });
   await settle();
   const printing = load({ ...printOpts, duration: duration + 2 * warmup });

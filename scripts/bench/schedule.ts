@@ -39,7 +39,15 @@ async function boardOf(ways: number): Promise<Source> {
       continue;
     }
     push({
-      device: { kind: n % 3 ? 'mcb' : 'rcbo', poles: 1, modules: 1, curve: 'B', ratingA: n % 4 ? 16 : 32, breakingKa: 6, ...(n % 3 ? {} : { rcdMa: 30 }) },
+      device: {
+        kind: n % 3 ? 'mcb' : 'rcbo',
+        poles: 1,
+        modules: 1,
+        curve: 'B',
+        ratingA: n % 4 ? 16 : 32,
+        breakingKa: 6,
+        ...(n % 3 ? {} : { rcdMa: 30 }),
+      },
       circuit: {
         serves: n % 4 ? `Workshop bench sockets, bay ${n}` : `Lighting, aisle ${n} and mezzanine`,
         phases: 1,
@@ -62,7 +70,10 @@ async function boardOf(ways: number): Promise<Source> {
     phases: 1,
     supply: { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.2, pfcKa: 6, source: 'public' },
     incoming: { kind: 'main-switch', ratingA: 400 },
-    enclosureModules: Math.min(400, list.reduce((m, w) => m + w.device.modules, 0)),
+    enclosureModules: Math.min(
+      400,
+      list.reduce((m, w) => m + w.device.modules, 0),
+    ),
     rails: Math.ceil(list.length / 21),
     dwelling: false,
   };
@@ -92,7 +103,12 @@ async function time(label: string, runs: number, render: () => Promise<{ pdf: Ui
   }
   ms.sort((a, b) => a - b);
   const median = ms[Math.floor(ms.length / 2)];
-  const verdict = target === undefined ? '' : median < target ? `  (target < ${target} ms: met)` : `  (target < ${target} ms: MISSED)`;
+  const verdict =
+    target === undefined
+      ? ''
+      : median < target
+        ? `  (target < ${target} ms: met)`
+        : `  (target < ${target} ms: MISSED)`;
   console.log(
     `${label.padEnd(28)} median ${median.toFixed(0).padStart(5)} ms  min ${ms[0].toFixed(0).padStart(5)} ms  max ${ms[ms.length - 1].toFixed(0).padStart(5)} ms  ${(bytes / 1024).toFixed(0)} KB${verdict}`,
   );

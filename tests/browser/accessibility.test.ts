@@ -149,7 +149,12 @@ const SCREENS: Screen[] = [
     ready: heading(/^Review: /),
   },
   { name: 'schedule', role: 'inspector', path: () => `/boards/${issuedId}/schedule`, ready: heading(/Schedule/) },
-  { name: 'schedule (installer)', role: 'installer', path: () => `/boards/${issuedId}/schedule`, ready: heading(/Schedule/) },
+  {
+    name: 'schedule (installer)',
+    role: 'installer',
+    path: () => `/boards/${issuedId}/schedule`,
+    ready: heading(/Schedule/),
+  },
   {
     name: 'label walk (phone)',
     role: 'installer',
@@ -159,7 +164,13 @@ const SCREENS: Screen[] = [
   },
   { name: 'label walk', role: 'installer', path: () => `/boards/${issuedId}/walk`, ready: heading(/^Label walk: /) },
   { name: 'quick size', role: 'designer', path: () => '/quick-size', ready: heading('Quick size') },
-  { name: 'quick size (phone)', role: 'designer', phone: true, path: () => '/quick-size', ready: heading('Quick size') },
+  {
+    name: 'quick size (phone)',
+    role: 'designer',
+    phone: true,
+    path: () => '/quick-size',
+    ready: heading('Quick size'),
+  },
   { name: 'members', role: 'admin', path: () => '/members', ready: heading('Members') },
   { name: 'outbox', role: 'admin', path: () => '/mailbox', ready: heading(/outbox/i) },
 ];
@@ -173,7 +184,10 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       await signIn(page, 'designer');
       const res = await page.request.get(`${APP_URL}/api/sites`);
       const { sites } = (await res.json()) as { sites: { id: string; name: string }[] };
-      ids = { workshop: await boardIdByName(page, WORKSHOP_BOARD.settings.name), site: sites.find((s) => s.name === DEMO_SITE.name)!.id };
+      ids = {
+        workshop: await boardIdByName(page, WORKSHOP_BOARD.settings.name),
+        site: sites.find((s) => s.name === DEMO_SITE.name)!.id,
+      };
     } finally {
       await close();
     }
@@ -209,7 +223,10 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       await screen.ready(page);
       await page.waitForLoadState('networkidle');
       // One line per element, so that a failure names every element and what is wrong with it
-      const report = (await axeViolations(page)).flatMap((v) => [`${v.rule} (${v.impact}): ${v.help}`, ...v.nodes.map((n) => `  ${n}`)]);
+      const report = (await axeViolations(page)).flatMap((v) => [
+        `${v.rule} (${v.impact}): ${v.help}`,
+        ...v.nodes.map((n) => `  ${n}`),
+      ]);
       expect(report.join('\n')).toBe('');
       expect(errors).toEqual([]);
     } finally {

@@ -16,7 +16,13 @@ type StoredBoard = {
   enclosureModules: number;
   rails: number;
   dwelling: boolean;
-  ways: { id: string; rail: number; position: number; device: unknown; circuit: { serves?: string; lengthM: number } | null }[];
+  ways: {
+    id: string;
+    rail: number;
+    position: number;
+    device: unknown;
+    circuit: { serves?: string; lengthM: number } | null;
+  }[];
 };
 
 async function stored(page: Page, boardId: string): Promise<StoredBoard> {
@@ -78,7 +84,9 @@ describe('the board editor', () => {
   it('an MCB dragged from the tray into the free modules is sized once its circuit is filled in, and is saved', async () => {
     const { page } = browser;
     await openEditor(page, flatId);
-    const before = new Set(await page.locator('[data-way-id]').evaluateAll((els) => els.map((e) => e.getAttribute('data-way-id'))));
+    const before = new Set(
+      await page.locator('[data-way-id]').evaluateAll((els) => els.map((e) => e.getAttribute('data-way-id'))),
+    );
 
     // Pick a C20 MCB in the tray and drag it onto the free modules
     await page.locator('[data-tray-kind="mcb"]').click();
@@ -106,16 +114,20 @@ describe('the board editor', () => {
     await panel.getByLabel('Length (m)').fill('24');
 
     // The verdict is drawn on the way, in words, and the full sizing is in the panel
-    await expect.poll(() => cellOf(page, added).getAttribute('aria-label')).toMatch(
-      /^Way 10, MCB C20, serves Garden office heater, (passes|is near its limit|fails)$/,
-    );
+    await expect
+      .poll(() => cellOf(page, added).getAttribute('aria-label'))
+      .toMatch(/^Way 10, MCB C20, serves Garden office heater, (passes|is near its limit|fails)$/);
     const verdict = await cellOf(page, added).locator('[data-verdict]').getAttribute('data-verdict');
     expect(verdict).toMatch(/^(passes|near-limit|fails)$/);
     // In words, level, in the rail's legend under way 10
     const entry = page.locator(`[data-legend-way="${added}"]`);
-    await expect(entry.textContent()).resolves.toMatch(/^Way 10MCB C20: Garden office heater(Passes|Near limit|Fails)$/);
+    await expect(entry.textContent()).resolves.toMatch(
+      /^Way 10MCB C20: Garden office heater(Passes|Near limit|Fails)$/,
+    );
     await expect(entry.locator('[data-verdict]').getAttribute('data-verdict')).resolves.toBe(verdict);
-    await expect(panel.getByRole('region', { name: 'Sizing result' }).textContent()).resolves.toContain('Design current Ib');
+    await expect(panel.getByRole('region', { name: 'Sizing result' }).textContent()).resolves.toContain(
+      'Design current Ib',
+    );
 
     // A reload before saving loses nothing: the draft is kept in the tab
     await page.reload();
@@ -129,7 +141,9 @@ describe('the board editor', () => {
     expect(way.circuit).toMatchObject({ serves: 'Garden office heater', lengthM: 24 });
     await page.reload();
     await page.getByRole('region', { name: 'Drawn board' }).waitFor();
-    await expect.poll(() => cellOf(page, added).getAttribute('aria-label')).toMatch(/Garden office heater, (passes|is near its limit|fails)$/);
+    await expect
+      .poll(() => cellOf(page, added).getAttribute('aria-label'))
+      .toMatch(/Garden office heater, (passes|is near its limit|fails)$/);
   });
 
   it('a device that does not fit is refused with the reason', async () => {
@@ -221,9 +235,9 @@ describe('the board editor', () => {
       await page.getByRole('button', { name: 'Save', exact: true }).click();
       const theirs = page.getByRole('dialog', { name: 'This board was saved elsewhere' });
       await theirs.getByRole('button', { name: 'Reload theirs' }).click();
-      await expect.poll(() => page.locator('[data-way-label="5"]').getAttribute('aria-label')).toContain(
-        'Cooker: range, kitchen island',
-      );
+      await expect
+        .poll(() => page.locator('[data-way-label="5"]').getAttribute('aria-label'))
+        .toContain('Cooker: range, kitchen island');
     } finally {
       await other.close();
     }
@@ -267,7 +281,16 @@ describe('the board editor', () => {
     const flat = await stored(page, flatId);
     const site = (await (await page.request.get(`${APP_URL}/api/boards/${flatId}`)).json()).board.siteId;
     const { location, phases, supply, incoming, enclosureModules, rails, dwelling } = flat;
-    const settings = { name: 'Editor review check', location, phases, supply, incoming, enclosureModules, rails, dwelling };
+    const settings = {
+      name: 'Editor review check',
+      location,
+      phases,
+      supply,
+      incoming,
+      enclosureModules,
+      rails,
+      dwelling,
+    };
     const created = await page.request.post(`${APP_URL}/api/boards`, { data: { ...settings, siteId: site } });
     expect(created.status()).toBe(201);
     const boardId = (await created.json()).board.id as string;
@@ -281,7 +304,9 @@ describe('the board editor', () => {
         // 1.0 mm² fixed over 1800 m: voltage drop and Zs fail
         circuit: { ...alarms.circuit, serves: 'Workshop alarm sounder', lengthM: 1800, csaMm2: 1 },
       };
-      const put = await page.request.put(`${APP_URL}/api/boards/${boardId}`, { data: { version: 1, settings, ways: [way] } });
+      const put = await page.request.put(`${APP_URL}/api/boards/${boardId}`, {
+        data: { version: 1, settings, ways: [way] },
+      });
       expect(put.status()).toBe(200);
 
       await openEditor(page, boardId);
@@ -295,9 +320,14 @@ describe('the board editor', () => {
       await refusal.getByRole('button', { name: 'Show them on the board' }).click();
       // The failing way is selected: give it its real length, then send again
       await page.getByRole('region', { name: 'Way panel' }).getByLabel('Length (m)').fill('20');
-      await expect.poll(() => page.locator(`[data-way-id="${way.id}"] [data-verdict]`).getAttribute('data-verdict')).not.toBe('fails');
+      await expect
+        .poll(() => page.locator(`[data-way-id="${way.id}"] [data-verdict]`).getAttribute('data-verdict'))
+        .not.toBe('fails');
       await page.getByRole('button', { name: 'Send for review' }).click();
-      await page.getByRole('dialog', { name: /for review\?$/ }).getByRole('button', { name: 'Send for review' }).click();
+      await page
+        .getByRole('dialog', { name: /for review\?$/ })
+        .getByRole('button', { name: 'Send for review' })
+        .click();
       await expect.poll(() => page.getByText('In review', { exact: true }).count()).toBeGreaterThan(0);
       await expect(page.getByText(/In review: the board can be changed again/).count()).resolves.toBe(1);
       expect(await page.getByRole('region', { name: 'Device tray' }).count()).toBe(0);

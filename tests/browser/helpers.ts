@@ -8,7 +8,7 @@ import path from 'node:path';
 
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 
-import { DEMO_USERS, demoUser } from '@/scripts/demo-data';
+import { type DEMO_USERS, demoUser } from '@/scripts/demo-data';
 
 export { demoUser };
 

@@ -87,7 +87,9 @@ describe('review and label walk', () => {
       expect(await page.locator('[data-sonner-toast]:not([data-removed="true"])').count()).toBe(1);
       // The fourth way: a photo of it, then reload: the walk resumes there with the photo
       const fourth = await page.getByRole('heading', { level: 2 }).textContent();
-      await page.locator('input[type="file"]').setInputFiles({ name: 'way.jpg', mimeType: 'image/jpeg', buffer: photo });
+      await page
+        .locator('input[type="file"]')
+        .setInputFiles({ name: 'way.jpg', mimeType: 'image/jpeg', buffer: photo });
       await page.getByRole('img', { name: /^Photo of way/ }).waitFor();
       await page.reload();
       await page.getByText(`3 of ${total} checked`).waitFor();
@@ -111,7 +113,9 @@ describe('review and label walk', () => {
       await expect(summary.locator('[data-summary="wrong"] dd').textContent()).resolves.toBe('1');
       await expect(summary.locator('[data-summary="unchecked"] dd').textContent()).resolves.toBe(String(total - 4));
       await expect(summary.locator('[data-summary="photos"] dd').textContent()).resolves.toBe('1');
-      await expect(summary.getByRole('button', { name: /Label says Cooker/ }).textContent()).resolves.toContain('Label is wrong');
+      await expect(summary.getByRole('button', { name: /Label says Cooker/ }).textContent()).resolves.toContain(
+        'Label is wrong',
+      );
     } finally {
       await first.close();
     }

@@ -72,7 +72,10 @@ describe('screens', () => {
       expect(await page.getByRole('table', { name: 'Boards' }).isVisible()).toBe(false);
       const flat = cards.filter({ has: page.getByRole('link', { name: 'Flat 1 consumer unit', exact: true }) });
       await expect(flat.getByText('Draft', { exact: true }).isVisible()).resolves.toBe(true);
-      const widths = await page.evaluate(() => ({ page: document.documentElement.scrollWidth, view: window.innerWidth }));
+      const widths = await page.evaluate(() => ({
+        page: document.documentElement.scrollWidth,
+        view: window.innerWidth,
+      }));
       expect(widths.page).toBeLessThanOrEqual(widths.view);
       // Wider screens keep the table
       await page.setViewportSize({ width: 1024, height: 800 });

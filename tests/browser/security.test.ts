@@ -168,7 +168,12 @@ describe('in the browser', () => {
     expect(await control.locator('form').count()).toBe(1);
     // The app's frame never shows the sign-in form: the browser refused to render it
     const app = page.frames().find((f) => f.name() === 'app');
-    const shown = app ? await app.locator('form').count().catch(() => 0) : 0;
+    const shown = app
+      ? await app
+          .locator('form')
+          .count()
+          .catch(() => 0)
+      : 0;
     expect(shown).toBe(0);
   });
 });

@@ -76,7 +76,11 @@ describe('printing on the built app', () => {
       expect(res.status).toBe(200);
       expect(res.headers.get('content-type')).toBe('application/pdf');
       expect(res.headers.get('server-timing')).toMatch(/^render;/);
-      expect(Buffer.from(await res.arrayBuffer()).subarray(0, 5).toString()).toBe('%PDF-');
+      expect(
+        Buffer.from(await res.arrayBuffer())
+          .subarray(0, 5)
+          .toString(),
+      ).toBe('%PDF-');
     }
   });
 
@@ -99,7 +103,8 @@ describe('printing on the built app', () => {
     });
     expect(approve.status, await approve.clone().text()).toBe(200);
     const installer = await signIn('installer');
-    const get = () => fetch(`${APP_URL}/api/boards/${created.id}/schedule?download=1`, { headers: { cookie: installer } });
+    const get = () =>
+      fetch(`${APP_URL}/api/boards/${created.id}/schedule?download=1`, { headers: { cookie: installer } });
     const first = await get();
     expect(first.status).toBe(200);
     expect(first.headers.get('server-timing')).toMatch(/^render;/);

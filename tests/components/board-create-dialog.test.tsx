@@ -100,9 +100,7 @@ describe('BoardCreateDialog', () => {
     await user.type(screen.getByLabelText('Board name'), 'Flat consumer unit');
     await user.click(screen.getByRole('button', { name: 'Create board' }));
     expect(await screen.findByText('Too high for this supply.')).toBeTruthy();
-    expect(
-      screen.getByLabelText('Prospective fault current (kA)').getAttribute('aria-invalid'),
-    ).toBe('true');
+    expect(screen.getByLabelText('Prospective fault current (kA)').getAttribute('aria-invalid')).toBe('true');
     expect(push).not.toHaveBeenCalled();
   });
 

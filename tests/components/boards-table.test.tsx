@@ -78,9 +78,7 @@ function shownNames(): string[] {
 }
 
 function renderTable(props: Partial<React.ComponentProps<typeof BoardsTable>> = {}) {
-  return render(
-    <BoardsTable boards={boards} canEdit onRename={vi.fn()} onDelete={vi.fn()} {...props} />,
-  );
+  return render(<BoardsTable boards={boards} canEdit onRename={vi.fn()} onDelete={vi.fn()} {...props} />);
 }
 
 describe('BoardsTable', () => {
@@ -99,12 +97,7 @@ describe('BoardsTable', () => {
 
   it('lists the newest change first, with links to the editor and the site', () => {
     renderTable();
-    expect(shownNames()).toEqual([
-      'Flat consumer unit',
-      'Workshop DB1',
-      'Spray booth sub-board',
-      'Yard lighting',
-    ]);
+    expect(shownNames()).toEqual(['Flat consumer unit', 'Workshop DB1', 'Spray booth sub-board', 'Yard lighting']);
     expect(within(screen.getByRole('table')).getByRole('link', { name: 'Workshop DB1' }).getAttribute('href')).toBe(
       '/boards/aaaaaaaa-aaaa-4aaa-8aaa-aaaaaaaaaaaa',
     );
@@ -117,7 +110,9 @@ describe('BoardsTable', () => {
     renderTable();
     const table = within(screen.getByRole('table'));
     const workshop = table.getByRole('link', { name: 'Workshop DB1' }).closest('tr')!;
-    expect(within(workshop).getByText('12 ways (36 single-pole positions): 30 circuits, 6 positions spare')).toBeTruthy();
+    expect(
+      within(workshop).getByText('12 ways (36 single-pole positions): 30 circuits, 6 positions spare'),
+    ).toBeTruthy();
     const flat = table.getByRole('link', { name: 'Flat consumer unit' }).closest('tr')!;
     expect(within(flat).getByText('8 ways: 7 circuits, 1 spare')).toBeTruthy();
     const yard = table.getByRole('link', { name: 'Yard lighting' }).closest('tr')!;
@@ -158,24 +153,14 @@ describe('BoardsTable', () => {
     const user = userEvent.setup();
     renderTable();
     await user.click(screen.getByRole('button', { name: /stage/i }));
-    expect(shownNames()).toEqual([
-      'Flat consumer unit',
-      'Spray booth sub-board',
-      'Workshop DB1',
-      'Yard lighting',
-    ]);
+    expect(shownNames()).toEqual(['Flat consumer unit', 'Spray booth sub-board', 'Workshop DB1', 'Yard lighting']);
   });
 
   it('sorts by ways, most first', async () => {
     const user = userEvent.setup();
     renderTable();
     await user.click(screen.getByRole('button', { name: /ways/i }));
-    expect(shownNames()).toEqual([
-      'Workshop DB1',
-      'Flat consumer unit',
-      'Spray booth sub-board',
-      'Yard lighting',
-    ]);
+    expect(shownNames()).toEqual(['Workshop DB1', 'Flat consumer unit', 'Spray booth sub-board', 'Yard lighting']);
   });
 
   it('hides the site column and filter on a site’s own page, and actions from readers', () => {

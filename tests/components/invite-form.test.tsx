@@ -32,9 +32,7 @@ describe('InviteForm', () => {
     await user.type(screen.getByLabelText('Name'), 'Sam Hale');
     await user.selectOptions(screen.getByLabelText('Role'), 'inspector');
     await user.click(screen.getByRole('button', { name: /send invitation/i }));
-    await waitFor(() =>
-      expect((screen.getByLabelText('Name') as HTMLInputElement).value).toBe(''),
-    );
+    await waitFor(() => expect((screen.getByLabelText('Name') as HTMLInputElement).value).toBe(''));
     expect(fetch.mock.calls[0][0]).toBe('/api/members');
     expect(sentBody(fetch)).toEqual({
       email: 'sam.inspector@example.test',
@@ -50,9 +48,7 @@ describe('InviteForm', () => {
     await user.type(screen.getByLabelText('E-mail'), 'alex@example.test');
     await user.type(screen.getByLabelText('Name'), 'Alex Rowe');
     await user.click(screen.getByRole('button', { name: /send invitation/i }));
-    expect(
-      await screen.findByText('Someone with this e-mail address already has an account.'),
-    ).toBeTruthy();
+    expect(await screen.findByText('Someone with this e-mail address already has an account.')).toBeTruthy();
     expect((screen.getByLabelText('Name') as HTMLInputElement).value).toBe('Alex Rowe');
   });
 });

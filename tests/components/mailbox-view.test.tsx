@@ -34,9 +34,7 @@ describe('MailboxView', () => {
             subject: 'Board schedule: Workshop DB1',
             text: 'The schedule is attached.',
             html: '',
-            attachments: [
-              { filename: 'workshop-db1.pdf', contentType: 'application/pdf', size: 2048 },
-            ],
+            attachments: [{ filename: 'workshop-db1.pdf', contentType: 'application/pdf', size: 2048 }],
           },
           { nonsense: true },
         ],

@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 
 import { MembersView } from '@/features/members/components/members-view';
-import type { Member } from '@/lib/dal/members';
+import type { Member } from '@/lib/members/types';
 
 import { json, mockFetch, renderWithQuery, sentBody } from './helpers';
 

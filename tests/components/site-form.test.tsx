@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 
 import { SiteFormDialog } from '@/features/sites/components/site-form';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 
 import { json, mockFetch, renderWithQuery, sentBody } from './helpers';
 

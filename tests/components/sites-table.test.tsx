@@ -3,7 +3,7 @@ import userEvent from '@testing-library/user-event';
 import { describe, expect, it, vi } from 'vitest';
 
 import { SitesTable } from '@/features/sites/components/sites-table';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 
 const sites: SiteSummary[] = [
   {
@@ -42,46 +42,28 @@ function shownNames(): string[] {
 }
 
 function renderTable(canEdit = true) {
-  return render(
-    <SitesTable sites={sites} canEdit={canEdit} onRename={vi.fn()} onDelete={vi.fn()} />,
-  );
+  return render(<SitesTable sites={sites} canEdit={canEdit} onRename={vi.fn()} onDelete={vi.fn()} />);
 }
 
 describe('SitesTable', () => {
   it('starts sorted by name and reverses on a second click', async () => {
     const user = userEvent.setup();
     renderTable();
-    expect(shownNames()).toEqual([
-      'Canal boathouse',
-      'Flat above the workshop',
-      'Oakley Joinery workshop',
-    ]);
+    expect(shownNames()).toEqual(['Canal boathouse', 'Flat above the workshop', 'Oakley Joinery workshop']);
     const header = screen.getByRole('columnheader', { name: /site/i });
     expect(header.getAttribute('aria-sort')).toBe('ascending');
     await user.click(within(header).getByRole('button'));
     expect(header.getAttribute('aria-sort')).toBe('descending');
-    expect(shownNames()).toEqual([
-      'Oakley Joinery workshop',
-      'Flat above the workshop',
-      'Canal boathouse',
-    ]);
+    expect(shownNames()).toEqual(['Oakley Joinery workshop', 'Flat above the workshop', 'Canal boathouse']);
   });
 
   it('sorts by board count (most first) and by last change', async () => {
     const user = userEvent.setup();
     renderTable();
     await user.click(screen.getByRole('button', { name: /boards/i }));
-    expect(shownNames()).toEqual([
-      'Flat above the workshop',
-      'Oakley Joinery workshop',
-      'Canal boathouse',
-    ]);
+    expect(shownNames()).toEqual(['Flat above the workshop', 'Oakley Joinery workshop', 'Canal boathouse']);
     await user.click(screen.getByRole('button', { name: /last change/i }));
-    expect(shownNames()).toEqual([
-      'Oakley Joinery workshop',
-      'Canal boathouse',
-      'Flat above the workshop',
-    ]);
+    expect(shownNames()).toEqual(['Oakley Joinery workshop', 'Canal boathouse', 'Flat above the workshop']);
   });
 
   it('sorts by client and by address', async () => {
@@ -90,11 +72,7 @@ describe('SitesTable', () => {
     await user.click(screen.getByRole('button', { name: /client/i }));
     expect(shownNames()[0]).toBe('Canal boathouse');
     await user.click(screen.getByRole('button', { name: /address/i }));
-    expect(shownNames()).toEqual([
-      'Oakley Joinery workshop',
-      'Flat above the workshop',
-      'Canal boathouse',
-    ]);
+    expect(shownNames()).toEqual(['Oakley Joinery workshop', 'Flat above the workshop', 'Canal boathouse']);
   });
 
   it('filters by name, client or address and says when nothing matches', async () => {

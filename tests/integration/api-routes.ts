@@ -23,7 +23,7 @@ import { archiveSite } from '@/lib/dal/sites';
 import { ROLES, type Role } from '@/lib/domain';
 import { Invitation, User } from '@/models';
 
-import { makeBoard, makeOrganisation } from './helpers';
+import { makeBoard, type makeOrganisation } from './helpers';
 
 export const HTTP_METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE', 'HEAD', 'OPTIONS'] as const;
 export type HttpMethod = (typeof HTTP_METHODS)[number];
@@ -309,7 +309,10 @@ export const ROUTE_CALLS: Readonly<Record<string, RouteSample>> = {
     call: () => ({ params: {}, body: { name: 'Mill Cottage', address: '2 Weir Lane', client: 'R. Hartley' } }),
   },
   'GET /api/sites/[siteId]': { mutates: false, call: (fx) => ({ params: bySite(fx) }) },
-  'PATCH /api/sites/[siteId]': { mutates: true, call: (fx) => ({ params: bySite(fx), body: { name: 'Renamed site' } }) },
+  'PATCH /api/sites/[siteId]': {
+    mutates: true,
+    call: (fx) => ({ params: bySite(fx), body: { name: 'Renamed site' } }),
+  },
   'DELETE /api/sites/[siteId]': { mutates: true, call: (fx) => ({ params: bySite(fx) }) },
   'POST /api/sites/[siteId]/restore': {
     mutates: true,

@@ -20,7 +20,9 @@ beforeAll(async () => {
   team = await makeOrganisation('Photos');
   other = await makeOrganisation('Nosy');
   boardId = (await makeBoard(team.org.id, 'flat')).board.id;
-  png = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#b5652b' } }).png().toBuffer();
+  png = await sharp({ create: { width: 800, height: 600, channels: 3, background: '#b5652b' } })
+    .png()
+    .toBuffer();
 });
 
 function upload(bytes: Uint8Array, name: string, type: string, fields: Record<string, string> = {}) {
@@ -62,7 +64,9 @@ describe('photos', () => {
     signInAs(team.users.installer);
     // Random pixels barely compress: 2000 × 1950 × 3 bytes ≈ 11.2 MiB of PNG
     const noise = crypto.randomBytes(2000 * 1950 * 3);
-    const big = await sharp(noise, { raw: { width: 2000, height: 1950, channels: 3 } }).png({ compressionLevel: 0 }).toBuffer();
+    const big = await sharp(noise, { raw: { width: 2000, height: 1950, channels: 3 } })
+      .png({ compressionLevel: 0 })
+      .toBuffer();
     expect(big.length).toBeGreaterThan(11 * 1024 * 1024);
     const res = await upload(big, 'huge.png', 'image/png');
     expect(res.status).toBe(413);
@@ -79,7 +83,11 @@ describe('photos', () => {
     expect(body.issues[0].path).toBe('file');
     expect(body.error).toMatch(/not a photo/);
     // A PDF is a known type but not an image
-    const pdf = await upload(Buffer.from('%PDF-1.4\n%âãÏÓ\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n'), 'x.jpg', 'image/jpeg');
+    const pdf = await upload(
+      Buffer.from('%PDF-1.4\n%âãÏÓ\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n'),
+      'x.jpg',
+      'image/jpeg',
+    );
     expect(pdf.status).toBe(415);
   });
 

@@ -95,7 +95,9 @@ beforeAll(async () => {
   ours = await makeOrganisation('Ours');
   theirs = await makeOrganisation('Theirs');
   photoPng = new Uint8Array(
-    await sharp({ create: { width: 24, height: 16, channels: 3, background: '#7a8b99' } }).png().toBuffer(),
+    await sharp({ create: { width: 24, height: 16, channels: 3, background: '#7a8b99' } })
+      .png()
+      .toBuffer(),
   );
 });
 
@@ -122,11 +124,12 @@ describe('the routes’ declarations', () => {
       if (!ROUTE_CALLS[r.name]?.call) expect(ROUTE_CALLS[r.name]?.notCalled, r.name).toBeTruthy();
     }
     // Only next-auth's own endpoints and the invitation acceptance are public
-    expect(routes.filter((r) => r.declaration?.action === 'public').map((r) => r.name).sort()).toEqual([
-      'GET /api/auth/[...nextauth]',
-      'POST /api/auth/[...nextauth]',
-      'POST /api/invitations/accept',
-    ]);
+    expect(
+      routes
+        .filter((r) => r.declaration?.action === 'public')
+        .map((r) => r.name)
+        .sort(),
+    ).toEqual(['GET /api/auth/[...nextauth]', 'POST /api/auth/[...nextauth]', 'POST /api/invitations/accept']);
   });
 
   it('params are declared exactly where the path names them, and every sample call fits the declaration', async () => {

@@ -19,7 +19,13 @@ let actor: Actor;
 beforeAll(async () => {
   team = await makeOrganisation('Repository');
   const { designer } = team.users;
-  actor = { userId: designer.id, organisationId: team.org.id, role: 'designer', name: designer.name, email: designer.email };
+  actor = {
+    userId: designer.id,
+    organisationId: team.org.id,
+    role: 'designer',
+    name: designer.name,
+    email: designer.email,
+  };
 });
 
 const stampOf = async (boardId: string) => {

@@ -112,7 +112,10 @@ describe('saving a board from the editor', () => {
     const { board } = await makeBoard(team.org.id, 'flat');
     const opened = await load(board.id);
     await Board.update({ status: 'in-review' }, { where: { id: board.id } });
-    const res = await boardRoute.PUT(jsonRequest('PUT', saveBody(opened, opened.ways.slice(1))), ctx({ boardId: board.id }));
+    const res = await boardRoute.PUT(
+      jsonRequest('PUT', saveBody(opened, opened.ways.slice(1))),
+      ctx({ boardId: board.id }),
+    );
     expect(res.status).toBe(409);
     expect((await res.json()).error).toMatch(/in review/);
     expect(await Way.count({ where: { boardId: board.id } })).toBe(opened.ways.length);
@@ -149,7 +152,13 @@ describe('what a save writes and answers', () => {
     signInAs(team.users.designer);
     const { board, site } = await makeBoard(team.org.id, 'workshop');
     // The one-query read against the model rows
-    const rows = await Way.findAll({ where: { boardId: board.id }, order: [['rail', 'ASC'], ['position', 'ASC']] });
+    const rows = await Way.findAll({
+      where: { boardId: board.id },
+      order: [
+        ['rail', 'ASC'],
+        ['position', 'ASC'],
+      ],
+    });
     const row = (await Board.findByPk(board.id))!;
     const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling, status, version } = row;
     expect(await load(board.id)).toEqual({

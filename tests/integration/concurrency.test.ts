@@ -12,7 +12,7 @@ import * as auditRoute from '@/app/api/boards/[boardId]/audit/route';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
-import type { AuditPage } from '@/lib/dal/audit';
+import type { AuditPage } from '@/lib/audit-types';
 import { AuditEvent, Way } from '@/models';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -66,8 +66,7 @@ function asSaved(board: BoardDto): Omit<SaveBody, 'version'> {
   return rest;
 }
 
-const railOrder = (ways: SaveBody['ways']) =>
-  ways.slice().sort((a, b) => a.rail - b.rail || a.position - b.position);
+const railOrder = (ways: SaveBody['ways']) => ways.slice().sort((a, b) => a.rail - b.rail || a.position - b.position);
 
 beforeAll(async () => {
   team = await makeOrganisation('Concurrent');
@@ -91,7 +90,10 @@ describe(`${CLIENTS} parallel saves of one board`, () => {
       );
       tried += answers.length;
       const statuses = answers.map((r) => r.status);
-      expect(statuses.filter((s) => s === 200), `round ${round}: ${statuses.join(',')}`).toHaveLength(1);
+      expect(
+        statuses.filter((s) => s === 200),
+        `round ${round}: ${statuses.join(',')}`,
+      ).toHaveLength(1);
       expect(statuses.filter((s) => s === 409)).toHaveLength(CLIENTS - 1);
       const winner = statuses.indexOf(200);
       for (const [i, res] of answers.entries()) {
@@ -106,9 +108,7 @@ describe(`${CLIENTS} parallel saves of one board`, () => {
       const submitted = { settings: bodies[winner].settings, ways: railOrder(bodies[winner].ways) };
       expect(saved).toEqual(submitted);
       // (key order aside: the database stores devices and circuits as jsonb)
-      const matches = bodies.filter((b) =>
-        isDeepStrictEqual({ settings: b.settings, ways: railOrder(b.ways) }, saved),
-      );
+      const matches = bodies.filter((b) => isDeepStrictEqual({ settings: b.settings, ways: railOrder(b.ways) }, saved));
       expect(matches).toHaveLength(1);
       expect(await Way.count({ where: { boardId: board.id } })).toBe(bodies[winner].ways.length);
 

@@ -60,7 +60,10 @@ async function pgScript(command: 'start' | 'stop' | 'status'): Promise<string> {
     });
   // Never stop anything but the private cluster: the running server must be ours
   if (command === 'stop') {
-    const status = await run('status').then((r) => r.stdout, () => 'no server running');
+    const status = await run('status').then(
+      (r) => r.stdout,
+      () => 'no server running',
+    );
     if (!status.includes('no server running')) {
       expect(status).toContain(`"-D" "${PGDATA}"`);
       expect(status).toContain(`"-p" "${FAULT.port}"`);
@@ -71,7 +74,11 @@ async function pgScript(command: 'start' | 'stop' | 'status'): Promise<string> {
   return stdout;
 }
 
-const isUp = () => pgScript('status').then((out) => out.includes('server is running'), () => false);
+const isUp = () =>
+  pgScript('status').then(
+    (out) => out.includes('server is running'),
+    () => false,
+  );
 
 /** A call and how long it took. */
 async function timed(fn: () => Promise<Response>): Promise<{ res: Response; ms: number }> {
@@ -212,10 +219,16 @@ describe('PostgreSQL stopped mid-run', () => {
     const errors: unknown[] = [];
     // Refused: the server is stopped
     await pgScript('stop');
-    errors.push(await db().query('select 1').catch((e: unknown) => e));
+    errors.push(
+      await db()
+        .query('select 1')
+        .catch((e: unknown) => e),
+    );
     await pgScript('start');
     // Terminated: the server stops under a running query
-    const running = db().query('select pg_sleep(20)').catch((e: unknown) => e);
+    const running = db()
+      .query('select pg_sleep(20)')
+      .catch((e: unknown) => e);
     await new Promise((r) => setTimeout(r, 300));
     await pgScript('stop');
     errors.push(await running);

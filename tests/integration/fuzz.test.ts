@@ -14,14 +14,7 @@ import type { z } from 'zod';
 import { db } from '@/lib/db';
 import type { Role } from '@/lib/domain';
 
-import {
-  bodyKind,
-  callableRoutes,
-  declaredRoutes,
-  makeFixture,
-  rolesAllowed,
-  type CallableRoute,
-} from './api-routes';
+import { bodyKind, callableRoutes, declaredRoutes, makeFixture, rolesAllowed, type CallableRoute } from './api-routes';
 import { ctx, makeOrganisation, signInAs } from './helpers';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
@@ -37,8 +30,7 @@ const sent = { body: 0, ids: 0, query: 0 };
 
 /** Every stored row of the organisation that a route could change. */
 async function snapshot(): Promise<unknown> {
-  const q = (sql: string) =>
-    db().query(sql, { type: QueryTypes.SELECT, replacements: { org: team.org.id } });
+  const q = (sql: string) => db().query(sql, { type: QueryTypes.SELECT, replacements: { org: team.org.id } });
   // Rows of the organisation's boards, in a child table
   const onBoards = (table: string) =>
     q(`select t.* from ${table} t join boards b on b.id = t.board_id where b.organisation_id = :org order by t.id`);
@@ -235,7 +227,9 @@ const withParams = callable.filter((r) => r.declaration.params);
 beforeAll(async () => {
   team = await makeOrganisation('Fuzz');
   photoPng = new Uint8Array(
-    await sharp({ create: { width: 16, height: 16, channels: 3, background: '#445566' } }).png().toBuffer(),
+    await sharp({ create: { width: 16, height: 16, channels: 3, background: '#445566' } })
+      .png()
+      .toBuffer(),
   );
 });
 
@@ -288,7 +282,9 @@ describe('junk bodies', () => {
         { numRuns: RUNS_PER_ROUTE },
       );
       // 1 MB strings in each text field (at most six of them)
-      const strings = nodesOf(body).filter((n) => typeof n.value === 'string').slice(0, 6);
+      const strings = nodesOf(body)
+        .filter((n) => typeof n.value === 'string')
+        .slice(0, 6);
       for (const n of strings) {
         const big = JSON.stringify(replaceAt(body, n.path, 'Ω'.repeat(ONE_MB / 2)));
         await expectRefusal(await send(big), [400, 413, 422], `1 MB string at ${n.path.join('.')}`);
@@ -317,9 +313,7 @@ describe('junk ids', () => {
     for (const key of Object.keys(valid.params)) {
       // A revision param takes numbers and 'current': those are not junk there
       const junk =
-        key === 'revision'
-          ? junkId.filter((id) => id.trim() !== 'current' && !Number.isFinite(Number(id)))
-          : junkId;
+        key === 'revision' ? junkId.filter((id) => id.trim() !== 'current' && !Number.isFinite(Number(id))) : junkId;
       await fc.assert(
         fc.asyncProperty(junk, async (id) => {
           sent.ids += 1;

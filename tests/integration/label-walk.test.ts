@@ -5,7 +5,7 @@ import * as approveRoute from '@/app/api/boards/[boardId]/review/approve/route';
 import * as scheduleRoute from '@/app/api/boards/[boardId]/schedule/route';
 import * as labelRoute from '@/app/api/boards/[boardId]/ways/[wayId]/label/route';
 import * as walkRoute from '@/app/api/boards/[boardId]/ways/walk/route';
-import type { WalkData } from '@/lib/dal/label-walk';
+import type { WalkData } from '@/lib/boards/walk-types';
 import { Board } from '@/models';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -23,7 +23,14 @@ async function issuedBoard() {
   const { board } = await makeBoard(team.org.id, 'flat');
   await board.update({ status: 'in-review' });
   signInAs(team.users.inspector);
-  expect((await approveRoute.POST(jsonRequest('POST', { declaration: team.users.inspector.name }), ctx({ boardId: board.id }))).status).toBe(200);
+  expect(
+    (
+      await approveRoute.POST(
+        jsonRequest('POST', { declaration: team.users.inspector.name }),
+        ctx({ boardId: board.id }),
+      )
+    ).status,
+  ).toBe(200);
   return board;
 }
 
@@ -86,7 +93,10 @@ describe('the label walk', () => {
     const wrongWay = start.ways.find((w) => w.ref === '2')!;
     const asked = await mark(board.id, wrongWay.id, { status: 'wrong', note: 'Reads "Kitchen" on the label' });
     expect(asked.status).toBe(409);
-    expect(await asked.json()).toMatchObject({ needsConfirmation: true, error: expect.stringMatching(/back to issued/) });
+    expect(await asked.json()).toMatchObject({
+      needsConfirmation: true,
+      error: expect.stringMatching(/back to issued/),
+    });
     expect((await Board.findByPk(board.id))!.status).toBe('labels-matched');
     const wrong = await mark(board.id, wrongWay.id, {
       status: 'wrong',

@@ -54,15 +54,9 @@ describe('invitations', () => {
     expect(weak.status).toBe(400);
     expect((await weak.json()).issues[0].path).toBe('password');
 
-    const ok = await acceptRoute.POST(
-      jsonRequest('POST', { token, password: 'joinery-2026-ok' }),
-      ctx({}),
-    );
+    const ok = await acceptRoute.POST(jsonRequest('POST', { token, password: 'joinery-2026-ok' }), ctx({}));
     expect(ok.status).toBe(201);
-    const again = await acceptRoute.POST(
-      jsonRequest('POST', { token, password: 'joinery-2026-ok' }),
-      ctx({}),
-    );
+    const again = await acceptRoute.POST(jsonRequest('POST', { token, password: 'joinery-2026-ok' }), ctx({}));
     expect(again.status).toBe(410);
 
     const user = await User.findOne({ where: { email } });
@@ -83,10 +77,7 @@ describe('invitations', () => {
 
   it('an admin cannot deactivate themselves', async () => {
     signInAs(team.users.admin);
-    const res = await memberRoute.PATCH(
-      jsonRequest('PATCH', { active: false }),
-      ctx({ userId: team.users.admin.id }),
-    );
+    const res = await memberRoute.PATCH(jsonRequest('PATCH', { active: false }), ctx({ userId: team.users.admin.id }));
     expect(res.status).toBe(409);
   });
 });

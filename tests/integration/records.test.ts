@@ -48,7 +48,13 @@ beforeAll(async () => {
   team = await makeOrganisation('Records');
 });
 
-const actorOf = (u: User) => ({ userId: u.id, organisationId: team.org.id, role: u.role, name: u.name, email: u.email });
+const actorOf = (u: User) => ({
+  userId: u.id,
+  organisationId: team.org.id,
+  role: u.role,
+  name: u.name,
+  email: u.email,
+});
 const byBoard = (boardId: string) => ctx({ boardId });
 const bySite = (siteId: string) => ctx({ siteId });
 const get = (r: { GET: typeof boardRoute.GET }, boardId: string, url = 'http://127.0.0.1/api/x') =>
@@ -96,7 +102,9 @@ async function scheduleStatus(boardId: string, revision?: number) {
   return { status: res.status, type: res.headers.get('content-type'), bytes: (await res.arrayBuffer()).byteLength };
 }
 
-async function actionsOf(boardId: string): Promise<{ action: string; details: Record<string, unknown>; userName: string }[]> {
+async function actionsOf(
+  boardId: string,
+): Promise<{ action: string; details: Record<string, unknown>; userName: string }[]> {
   signInAs(team.users.admin);
   return (await (await get(auditRoute, boardId)).json()).entries;
 }
@@ -164,8 +172,13 @@ describe('sites are archived, not deleted', () => {
     const trail = await actionsOf(boardId);
     expect(trail.find((e) => e.action === 'board.archived')).toMatchObject({ userName: team.users.admin.name });
     expect(trail.find((e) => e.action === 'board.restored')).toMatchObject({ userName: team.users.admin.name });
-    const siteEvents = await AuditEvent.findAll({ where: { organisationId: team.org.id, action: ['site.archived', 'site.restored'] } });
-    expect(siteEvents.filter((e) => e.details.siteId === siteId).map((e) => e.action)).toEqual(['site.archived', 'site.restored']);
+    const siteEvents = await AuditEvent.findAll({
+      where: { organisationId: team.org.id, action: ['site.archived', 'site.restored'] },
+    });
+    expect(siteEvents.filter((e) => e.details.siteId === siteId).map((e) => e.action)).toEqual([
+      'site.archived',
+      'site.restored',
+    ]);
   });
 
   it('a designer may archive a site of draft boards only, and an installer not at all', async () => {
@@ -213,7 +226,9 @@ describe('boards', () => {
     expect((await refused.json()).error).toMatch(/issued, so it is kept/);
     expect((await archiveRoute.POST(jsonRequest('POST'), byBoard(boardId))).status).toBe(403);
     signInAs(team.users.admin);
-    expect(await (await boardRoute.DELETE(jsonRequest('DELETE'), byBoard(boardId))).json()).toEqual({ effect: 'archived' });
+    expect(await (await boardRoute.DELETE(jsonRequest('DELETE'), byBoard(boardId))).json()).toEqual({
+      effect: 'archived',
+    });
     expect((await Board.findByPk(boardId))!.deletedAt).toBeNull();
     expect((await listBoards()).map((b) => b.id)).not.toContain(boardId);
     expect((await scheduleStatus(boardId, revision)).status).toBe(200);
@@ -232,7 +247,9 @@ describe('boards', () => {
     await client.connect();
     try {
       await expect(client.query('delete from board_revisions where board_id = $1', [boardId])).rejects.toThrow(/kept/);
-      await expect(client.query("update board_revisions set declaration = 'x' where board_id = $1", [boardId])).rejects.toThrow(/kept/);
+      await expect(
+        client.query("update board_revisions set declaration = 'x' where board_id = $1", [boardId]),
+      ).rejects.toThrow(/kept/);
       await expect(client.query('delete from boards where id = $1', [boardId])).rejects.toThrow(/issued revision/);
       await expect(client.query('delete from comments where board_id = $1', [boardId])).resolves.toBeTruthy();
     } finally {
@@ -256,7 +273,9 @@ describe('separation of duties at issue', () => {
     expect((await self.json()).error).toMatch(/someone else must issue it/);
     expect((await Board.findByPk(boardId))!.status).toBe('in-review');
     // Self-issue is off by default; an admin turns it on, and then it is allowed
-    expect((await (await organisationRoute.GET(jsonRequest('GET'), ctx({}))).json()).organisation.allowSelfIssue).toBe(false);
+    expect((await (await organisationRoute.GET(jsonRequest('GET'), ctx({}))).json()).organisation.allowSelfIssue).toBe(
+      false,
+    );
     const turned = await organisationRoute.PATCH(jsonRequest('PATCH', { allowSelfIssue: true }), ctx({}));
     expect((await turned.json()).organisation.allowSelfIssue).toBe(true);
     try {
@@ -285,7 +304,10 @@ describe('separation of duties at issue', () => {
       byBoard(boardId),
     );
     expect(wrong.status).toBe(400);
-    expect((await wrong.json()).issues[0]).toMatchObject({ path: 'declaration', message: expect.stringContaining(team.users.inspector.name) });
+    expect((await wrong.json()).issues[0]).toMatchObject({
+      path: 'declaration',
+      message: expect.stringContaining(team.users.inspector.name),
+    });
     const moved = await approveRoute.POST(
       jsonRequest('POST', { acknowledgeFailures: true, declaration: team.users.inspector.name, revision: 7 }),
       byBoard(boardId),
@@ -332,8 +354,14 @@ describe('the designer reads a returned review', () => {
     const board = await load(boardId);
     const wayId = board.ways.find((w) => w.circuit)!.id;
     signInAs(team.users.inspector);
-    await commentsRoute.POST(jsonRequest('POST', { wayId, body: 'Show the cable route to the garage.' }), byBoard(boardId));
-    const returned = await returnRoute.POST(jsonRequest('POST', { comment: 'Two ways need their routes.' }), byBoard(boardId));
+    await commentsRoute.POST(
+      jsonRequest('POST', { wayId, body: 'Show the cable route to the garage.' }),
+      byBoard(boardId),
+    );
+    const returned = await returnRoute.POST(
+      jsonRequest('POST', { comment: 'Two ways need their routes.' }),
+      byBoard(boardId),
+    );
     expect(returned.status).toBe(200);
 
     const designer = actorOf(team.users.designer);
@@ -348,7 +376,10 @@ describe('the designer reads a returned review', () => {
     for (let i = 0; i < 50 && !mail; i++) {
       await dispatchDueMail();
       mail = (await caughtMail()).find(
-        (m) => m.to.includes(team.users.designer.email) && /Returned for changes/.test(m.subject) && m.text.includes(boardId),
+        (m) =>
+          m.to.includes(team.users.designer.email) &&
+          /Returned for changes/.test(m.subject) &&
+          m.text.includes(boardId),
       );
       if (!mail) await new Promise((r) => setTimeout(r, 100));
     }
@@ -357,13 +388,19 @@ describe('the designer reads a returned review', () => {
     const ids = [...notes!.reasons, ...notes!.wayComments].map((c) => c.id);
     expect((await answeredRoute.POST(jsonRequest('POST', { commentIds: ids }), byBoard(boardId))).status).toBe(403);
     signInAs(team.users.designer);
-    const stray = await answeredRoute.POST(jsonRequest('POST', { commentIds: [crypto.randomUUID()] }), byBoard(boardId));
+    const stray = await answeredRoute.POST(
+      jsonRequest('POST', { commentIds: [crypto.randomUUID()] }),
+      byBoard(boardId),
+    );
     expect(stray.status).toBe(400);
     const answered = await answeredRoute.POST(jsonRequest('POST', { commentIds: ids }), byBoard(boardId));
     expect(await answered.json()).toEqual({ answered: 2 });
     expect(await getReturnNotes(designer, boardId)).toBeNull();
     expect(await Comment.count({ where: { boardId, answeredAt: null } })).toBe(0);
-    expect((await actionsOf(boardId))[0]).toMatchObject({ action: 'comments.answered', userName: team.users.designer.name });
+    expect((await actionsOf(boardId))[0]).toMatchObject({
+      action: 'comments.answered',
+      userName: team.users.designer.name,
+    });
   });
 });
 
@@ -388,7 +425,12 @@ describe('photos', () => {
       .withExif({
         IFD0: { Make: 'Hollin Lane Camera', Model: 'HL-7' },
         IFD2: { BodySerialNumber: 'SERIAL-HOLLIN-0042' },
-        IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '53/1 47/1 12/1', GPSLongitudeRef: 'W', GPSLongitude: '1/1 33/1 4/1' },
+        IFD3: {
+          GPSLatitudeRef: 'N',
+          GPSLatitude: '53/1 47/1 12/1',
+          GPSLongitudeRef: 'W',
+          GPSLongitude: '1/1 33/1 4/1',
+        },
       })
       .toBuffer();
     // The photo as taken does carry a GPS position and the serial
@@ -410,8 +452,12 @@ describe('photos', () => {
     const stored = {
       original: Buffer.from((await getObjectBytes(row.storageKey))!),
       thumb: Buffer.from((await getObjectBytes(row.thumbKey!))!),
-      served: Buffer.from(await (await photoRoute.GET(jsonRequest('GET'), ctx({ attachmentId: row.id }))).arrayBuffer()),
-      servedThumb: Buffer.from(await (await thumbRoute.GET(jsonRequest('GET'), ctx({ attachmentId: row.id }))).arrayBuffer()),
+      served: Buffer.from(
+        await (await photoRoute.GET(jsonRequest('GET'), ctx({ attachmentId: row.id }))).arrayBuffer(),
+      ),
+      servedThumb: Buffer.from(
+        await (await thumbRoute.GET(jsonRequest('GET'), ctx({ attachmentId: row.id }))).arrayBuffer(),
+      ),
     };
     for (const [name, bytes] of Object.entries(stored)) {
       const meta = await sharp(bytes).metadata();

@@ -56,8 +56,7 @@ const post = (route: typeof approveRoute | typeof returnRoute, boardId: string, 
     ctx({ boardId }),
   );
 
-const comment = (boardId: string, body: unknown) =>
-  commentsRoute.POST(jsonRequest('POST', body), ctx({ boardId }));
+const comment = (boardId: string, body: unknown) => commentsRoute.POST(jsonRequest('POST', body), ctx({ boardId }));
 
 async function load(boardId: string): Promise<BoardDto> {
   return (await (await boardRoute.GET(jsonRequest('GET'), ctx({ boardId }))).json()).board;

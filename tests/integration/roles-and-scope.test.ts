@@ -139,7 +139,7 @@ describe('organisation scope', () => {
 
   it('lists hold only the caller’s organisation', async () => {
     signInAs(ours.users.designer);
-    const { boards } = await (await boardsRoute.GET(jsonRequest('GET'), ctx({})) ).json();
+    const { boards } = await (await boardsRoute.GET(jsonRequest('GET'), ctx({}))).json();
     expect(boards.map((b: { id: string }) => b.id)).toContain(ourBoard.board.id);
     expect(boards.map((b: { id: string }) => b.id)).not.toContain(theirBoard.board.id);
     const other = await siteRoute.GET(jsonRequest('GET'), ctx({ siteId: theirBoard.site.id }));

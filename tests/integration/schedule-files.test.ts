@@ -122,9 +122,7 @@ describe('an issued revision', () => {
     const unwalked = await download(scheduleRoute, board.id);
     const strips = await download(labelsRoute, board.id);
     expect(renders.mock.calls.length).toBe(start + 2);
-    const wayId = (await getScheduleSource(installer(), board.id)).snapshot.ways.find(
-      (w) => w.circuit,
-    )!.id;
+    const wayId = (await getScheduleSource(installer(), board.id)).snapshot.ways.find((w) => w.circuit)!.id;
     const res = await labelRoute.POST(
       jsonRequest('POST', { status: 'wrong', note: 'Faded label, reprint' }),
       ctx({ boardId: board.id, wayId }),

@@ -72,7 +72,8 @@ async function makeBigBoard(organisationId: string) {
     ways.push({ ...w, id: crypto.randomUUID(), rail: Math.floor(index / 21), position: index % 21, boardId: board.id });
   };
   for (let n = 1; n <= 144; n += 1) {
-    if (n % 12 === 1) push({ device: { kind: 'rcd', poles: 2, modules: 2, ratingA: 63, rcdMa: 30, rcdType: 'A' }, circuit: null });
+    if (n % 12 === 1)
+      push({ device: { kind: 'rcd', poles: 2, modules: 2, ratingA: 63, rcdMa: 30, rcdType: 'A' }, circuit: null });
     if (n % 20 === 0) {
       push({ device: { kind: 'blank', poles: 1, modules: 1 }, circuit: null });
       continue;
@@ -132,7 +133,8 @@ describe('the schedule PDF', () => {
       // The way reference and what it serves sit on one row of the table
       expect(text).toMatch(new RegExp(`${place.label} ${serves.replace(/[()]/g, '\\$&')}`));
     }
-    for (const col of SCHEDULE_COLUMNS.filter((c) => c.key !== 'label')) expect(text).toContain(col.heading.replace(/\s+/g, ' '));
+    for (const col of SCHEDULE_COLUMNS.filter((c) => c.key !== 'label'))
+      expect(text).toContain(col.heading.replace(/\s+/g, ' '));
     expect(text).toContain(SIZING_CAUTION);
     expect(text).toContain('Revision 1');
     expect(text).toContain('Not issued');
@@ -148,9 +150,10 @@ describe('the schedule PDF', () => {
     expect(first).toBeGreaterThan(-1);
     expect(second).toBeGreaterThan(first);
     // Each way sits under the RCD before it on the rail
-    const ways = (await Way.findAll({ where: { boardId: flat.board.id }, order: [['position', 'ASC']] })).map(
-      (w) => ({ kind: w.device.kind as string, serves: (w.circuit?.serves as string | undefined) ?? null }),
-    );
+    const ways = (await Way.findAll({ where: { boardId: flat.board.id }, order: [['position', 'ASC']] })).map((w) => ({
+      kind: w.device.kind as string,
+      serves: (w.circuit?.serves as string | undefined) ?? null,
+    }));
     let rcds = 0;
     for (const way of ways) {
       if (way.kind === 'rcd') rcds += 1;
@@ -168,7 +171,10 @@ describe('the schedule PDF', () => {
       ['flat', flat.board, 1],
       ['workshop', workshop.board, 3],
     ] as const) {
-      const { text, pages } = await pdfText(new Uint8Array(await (await get(scheduleRoute, board.id)).arrayBuffer()), `${name}-trade.pdf`);
+      const { text, pages } = await pdfText(
+        new Uint8Array(await (await get(scheduleRoute, board.id)).arrayBuffer()),
+        `${name}-trade.pdf`,
+      );
       // No id, no code of the app's vocabularies (lower-case codes; "RCBO" and "MCB" are trade words)
       expect(text).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/i);
       expect(text).not.toMatch(
@@ -190,14 +196,17 @@ describe('the schedule PDF', () => {
       }
       const highest = Math.max(...places.map((p) => p.wayNumber!));
       const circuits = ways.filter((w) => w.circuit && places.some((p) => p.id === w.id)).length;
-      const total = /Ways (\d+) ways(?: \((\d+) single-pole positions\))?: (\d+) circuits?, (\d+) (?:positions )?spare/.exec(text);
+      const total =
+        /Ways (\d+) ways(?: \((\d+) single-pole positions\))?: (\d+) circuits?, (\d+) (?:positions )?spare/.exec(text);
       expect(total, `the totals of the ${name}`).not.toBeNull();
       const [, waysN, positionsN, circuitsN, spareN] = total!;
       expect(Number(waysN)).toBe(highest);
       expect(Number(circuitsN)).toBe(circuits);
       if (phases === 3) {
         expect(Number(positionsN)).toBe(highest * 3);
-        const taken = places.filter((p) => ways.find((w) => w.id === p.id)!.circuit).reduce((n, p) => n + p.phases.length, 0);
+        const taken = places
+          .filter((p) => ways.find((w) => w.id === p.id)!.circuit)
+          .reduce((n, p) => n + p.phases.length, 0);
         expect(Number(spareN)).toBe(highest * 3 - taken);
       } else {
         expect(positionsN).toBeUndefined();
@@ -210,7 +219,10 @@ describe('the schedule PDF', () => {
 
   it('names three-phase ways per phase and carries the 400 V notice', async () => {
     signInAs(ours.users.admin);
-    const { text } = await pdfText(new Uint8Array(await (await get(scheduleRoute, workshop.board.id)).arrayBuffer()), 'workshop-draft.pdf');
+    const { text } = await pdfText(
+      new Uint8Array(await (await get(scheduleRoute, workshop.board.id)).arrayBuffer()),
+      'workshop-draft.pdf',
+    );
     expect(text).toMatch(/1L1–L3 Panel saw/);
     expect(text).toMatch(/4L1 Lighting: machine shop/);
     expect(text).toContain('400 V inside');
@@ -249,7 +261,12 @@ describe('the schedule PDF', () => {
     // A change starts revision 2 as a draft; revision 1 still prints as issued
     await Board.update({ status: 'draft', revision: 2 }, { where: { id: board.id } });
     await Way.update(
-      { circuit: { ...((await Way.findOne({ where: { boardId: board.id, position: 2 } }))!.circuit as object), serves: 'Sockets: kitchen (rewired)' } },
+      {
+        circuit: {
+          ...((await Way.findOne({ where: { boardId: board.id, position: 2 } }))!.circuit as object),
+          serves: 'Sockets: kitchen (rewired)',
+        },
+      },
       { where: { boardId: board.id, position: 2 } },
     );
     const old = await pdfText(new Uint8Array(await (await get(scheduleRoute, board.id, '?revision=1')).arrayBuffer()));
@@ -304,7 +321,14 @@ describe('label strips', () => {
     expect(text).toContain('17.5 mm per module');
     // The workshop's rail (28 modules of devices) is one strip in two pieces that meet at a marked join
     expect(text).toMatch(/Rail 1 \(28 modules: one strip in 2 pieces, joined at J1\)/);
-    const order = ['Main switch', 'Panel saw', 'Dust extractor', 'Spindle moulder', 'Lighting: machine shop', 'Fire alarm panel'];
+    const order = [
+      'Main switch',
+      'Panel saw',
+      'Dust extractor',
+      'Spindle moulder',
+      'Lighting: machine shop',
+      'Fire alarm panel',
+    ];
     const at = order.map((t) => text.indexOf(t));
     expect(at.every((i) => i > -1)).toBe(true);
     expect([...at].sort((a, b) => a - b)).toEqual(at);
@@ -326,7 +350,10 @@ describe('e-mailing the schedule', () => {
     await issue(ours, board.id);
     signInAs(ours.users.installer);
     const to = `client-${crypto.randomUUID().slice(0, 8)}@example.test`;
-    const res = await emailRoute.POST(jsonRequest('POST', { to, message: 'As fitted today.' }), ctx({ boardId: board.id }));
+    const res = await emailRoute.POST(
+      jsonRequest('POST', { to, message: 'As fitted today.' }),
+      ctx({ boardId: board.id }),
+    );
     expect(res.status).toBe(202);
     expect((await res.json()).mail.status).toBe('queued');
     const mail = await waitForMail(to);

@@ -205,9 +205,8 @@ describe('session lifetime', () => {
   });
 
   it('the server refuses a session token once its 12 hours are up, or when tampered with', async () => {
-    const { sessionUserId } = await vi.importActual<typeof import('@/lib/auth/session-cookie')>(
-      '@/lib/auth/session-cookie',
-    );
+    const { sessionUserId } =
+      await vi.importActual<typeof import('@/lib/auth/session-cookie')>('@/lib/auth/session-cookie');
     const userId = crypto.randomUUID();
     const secret = authOptions.secret!;
     vi.useFakeTimers({ toFake: ['Date'] });
@@ -263,9 +262,8 @@ describe('cookies over HTTPS', () => {
   });
 
   it('the server reads the __Secure- session cookie', async () => {
-    const { sessionUserId } = await vi.importActual<typeof import('@/lib/auth/session-cookie')>(
-      '@/lib/auth/session-cookie',
-    );
+    const { sessionUserId } =
+      await vi.importActual<typeof import('@/lib/auth/session-cookie')>('@/lib/auth/session-cookie');
     const userId = crypto.randomUUID();
     const claims = { userId, role: 'designer' as const, organisationId: userId };
     const token = await encode({ token: claims, secret: authOptions.secret!, maxAge: 60 });

@@ -69,7 +69,7 @@ describe('POST /api/sizing', () => {
 
   it('answers junk with 400 and one entry per bad field', async () => {
     signInAs(ours.users.designer);
-    const junk = structuredClone(circuitBody) as Record<string, any>;
+    const junk = structuredClone(circuitBody) as { supply: Record<string, unknown>; circuit: Record<string, unknown> };
     junk.supply.zeOhm = 'lots';
     junk.circuit.lengthM = -4;
     junk.circuit.method = 'Z';
@@ -77,9 +77,7 @@ describe('POST /api/sizing', () => {
     const res = await sizingRoute.POST(jsonRequest('POST', junk), ctx({}));
     expect(res.status).toBe(400);
     const paths = (await res.json()).issues.map((i: { path: string }) => i.path);
-    expect(paths).toEqual(
-      expect.arrayContaining(['supply.zeOhm', 'circuit.lengthM', 'circuit.method']),
-    );
+    expect(paths).toEqual(expect.arrayContaining(['supply.zeOhm', 'circuit.lengthM', 'circuit.method']));
   });
 });
 
@@ -92,9 +90,7 @@ describe('POST /api/boards/:boardId/sizing', () => {
     expect((await boardSizingRoute.POST(empty(), ctx({ boardId: ourBoardId }))).status).toBe(403);
     signInAs(ours.users.designer);
     expect((await boardSizingRoute.POST(empty(), ctx({ boardId: theirBoardId }))).status).toBe(404);
-    expect(
-      (await boardSizingRoute.POST(empty(), ctx({ boardId: crypto.randomUUID() }))).status,
-    ).toBe(404);
+    expect((await boardSizingRoute.POST(empty(), ctx({ boardId: crypto.randomUUID() }))).status).toBe(404);
     // A draft sent against their board, or a board that does not exist, is refused the same way
     const draft = () =>
       jsonRequest('POST', { draft: { settings: WORKSHOP_BOARD.settings, ways: demoWays(WORKSHOP_BOARD).slice(0, 2) } });
@@ -130,16 +126,14 @@ describe('POST /api/boards/:boardId/sizing', () => {
   it('answers a junk draft with 400 and field paths', async () => {
     signInAs(ours.users.designer);
     const ways = demoWays(WORKSHOP_BOARD).slice(0, 2);
-    (ways[1] as Record<string, any>).device.modules = 9;
+    (ways[1] as unknown as { device: { modules: number } }).device.modules = 9;
     const res = await boardSizingRoute.POST(
       jsonRequest('POST', { draft: { settings: { ...WORKSHOP_BOARD.settings, phases: 2 }, ways } }),
       ctx({ boardId: ourBoardId }),
     );
     expect(res.status).toBe(400);
     const paths = (await res.json()).issues.map((i: { path: string }) => i.path);
-    expect(paths).toEqual(
-      expect.arrayContaining(['draft.settings.phases', 'draft.ways.1.device.modules']),
-    );
+    expect(paths).toEqual(expect.arrayContaining(['draft.settings.phases', 'draft.ways.1.device.modules']));
   });
 
   describe('the stored board, its sizing stored with it', () => {
@@ -151,7 +145,10 @@ describe('POST /api/boards/:boardId/sizing', () => {
     };
     const sizeDraft = async (board: BoardDto) => {
       const { settings, ways } = saveBodyOf(board);
-      const res = await boardSizingRoute.POST(jsonRequest('POST', { draft: { settings, ways } }), ctx({ boardId: board.id }));
+      const res = await boardSizingRoute.POST(
+        jsonRequest('POST', { draft: { settings, ways } }),
+        ctx({ boardId: board.id }),
+      );
       expect(res.status).toBe(200);
       return (await res.json()) as BoardResult;
     };
@@ -181,7 +178,10 @@ describe('POST /api/boards/:boardId/sizing', () => {
       const ways = before.ways.map((w) =>
         w.id === target.id ? { ...w, circuit: { ...w.circuit!, lengthM: w.circuit!.lengthM + 7 } } : w,
       );
-      const saved = await boardRoute.PUT(jsonRequest('PUT', saveBodyOf({ ...before, ways })), ctx({ boardId: board.id }));
+      const saved = await boardRoute.PUT(
+        jsonRequest('PUT', saveBodyOf({ ...before, ways })),
+        ctx({ boardId: board.id }),
+      );
       expect(saved.status).toBe(200);
       const after = await sizeStored(board.id);
       // A longer run drops more volts (mV/A/m × Ib × L), and the answer is the saved board's
@@ -201,12 +201,15 @@ describe('POST /api/boards/:boardId/sizing', () => {
 
     it('is read back as stored, not sized again, until the design changes', async () => {
       const { board, target } = await sizedWorkshop();
-      const stored = () => db().query('SELECT version, sizing::text AS sizing FROM board_sizings WHERE board_id = $1', {
-        bind: [board.id],
-        type: QueryTypes.SELECT,
-      }) as Promise<{ version: number; sizing: string }[]>;
+      const stored = () =>
+        db().query('SELECT version, sizing::text AS sizing FROM board_sizings WHERE board_id = $1', {
+          bind: [board.id],
+          type: QueryTypes.SELECT,
+        }) as Promise<{ version: number; sizing: string }[]>;
       // What the route answers is the stored text itself: a marker put in its place comes back
-      await db().query(`UPDATE board_sizings SET sizing = '{"marker":"stored"}' WHERE board_id = $1`, { bind: [board.id] });
+      await db().query(`UPDATE board_sizings SET sizing = '{"marker":"stored"}' WHERE board_id = $1`, {
+        bind: [board.id],
+      });
       expect(await sizeStored(board.id)).toEqual({ marker: 'stored' });
       // A label check is not a change of the design: the board keeps its version and its sizing
       await Way.update({ labelStatus: 'matches' }, { where: { id: target.id } });
@@ -218,10 +221,11 @@ describe('POST /api/boards/:boardId/sizing', () => {
       expect(dropOf(resized, target.id)).toBeGreaterThan(0);
       // A save stores the new sizing in its own transaction, before anyone asks for it
       const opened = await load(board.id);
-      const ways = opened.ways.map((w) =>
-        w.id === target.id ? { ...w, circuit: { ...w.circuit!, lengthM: 12 } } : w,
+      const ways = opened.ways.map((w) => (w.id === target.id ? { ...w, circuit: { ...w.circuit!, lengthM: 12 } } : w));
+      const saved = await boardRoute.PUT(
+        jsonRequest('PUT', saveBodyOf({ ...opened, ways })),
+        ctx({ boardId: board.id }),
       );
-      const saved = await boardRoute.PUT(jsonRequest('PUT', saveBodyOf({ ...opened, ways })), ctx({ boardId: board.id }));
       expect(saved.status).toBe(200);
       const [row] = await stored();
       expect(row.version).toBe(opened.version + 1);

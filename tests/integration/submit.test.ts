@@ -30,8 +30,7 @@ async function waitForMail(to: string) {
   throw new Error(`no mail to ${to} arrived at the catcher`);
 }
 
-const submit = (boardId: string, body?: unknown) =>
-  submitRoute.POST(jsonRequest('POST', body), ctx({ boardId }));
+const submit = (boardId: string, body?: unknown) => submitRoute.POST(jsonRequest('POST', body), ctx({ boardId }));
 
 describe('sending a board for review', () => {
   it('a board with a failing way is refused with 422 listing it, and stays a draft', async () => {
@@ -96,7 +95,10 @@ describe('sending a board for review', () => {
     // The ways counted by way number, in the words of the boards list and the schedule
     expect(mail.text).toContain('8 ways (24 single-pole positions): 15 circuits, 3 positions spare');
     // No code or id outside the links
-    const words = mail.text.split('\n').filter((line: string) => !/https?:\/\//.test(line)).join('\n');
+    const words = mail.text
+      .split('\n')
+      .filter((line: string) => !/https?:\/\//.test(line))
+      .join('\n');
     expect(words).not.toMatch(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/i);
     expect(words).not.toMatch(/main-switch|fuse-bs|ring-32|radial-|te-70|swa-xlpe|verified/);
     // Nobody but the inspectors is written to

@@ -13,11 +13,7 @@ export default async function MailboxPage() {
   const actor = await getActor();
   if (!actor) redirect('/login');
   if (!can(actor.role, 'mailbox.read')) {
-    return (
-      <EmptyState title="The outbox is for admins">
-        Your role may not read the development outbox.
-      </EmptyState>
-    );
+    return <EmptyState title="The outbox is for admins">Your role may not read the development outbox.</EmptyState>;
   }
   return <MailboxView />;
 }

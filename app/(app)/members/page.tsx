@@ -17,15 +17,16 @@ export default async function MembersPage() {
   if (!can(actor.role, 'members.manage')) {
     return (
       <EmptyState title="Members are managed by admins">
-        Your role may not manage members. Ask an admin of your organisation to invite someone or
-        change a role.
+        Your role may not manage members. Ask an admin of your organisation to invite someone or change a role.
       </EmptyState>
     );
   }
   return (
     <>
       <MembersView currentUserId={actor.userId} />
-      {can(actor.role, 'organisation.manage') ? <SelfIssueSetting initial={await getOrganisationSettings(actor)} /> : null}
+      {can(actor.role, 'organisation.manage') ? (
+        <SelfIssueSetting initial={await getOrganisationSettings(actor)} />
+      ) : null}
     </>
   );
 }

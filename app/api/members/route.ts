@@ -14,6 +14,5 @@ export const POST = defineRoute({
   action: 'members.manage',
   scope: 'list',
   body: inviteInputSchema,
-  handler: async ({ actor, body }) =>
-    Response.json({ invitation: await inviteMember(actor, body) }, { status: 201 }),
+  handler: async ({ actor, body }) => Response.json({ invitation: await inviteMember(actor, body) }, { status: 201 }),
 });

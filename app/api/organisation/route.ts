@@ -14,6 +14,5 @@ export const PATCH = defineRoute({
   action: 'organisation.manage',
   scope: 'list',
   body: organisationSettingsSchema,
-  handler: async ({ actor, body }) =>
-    Response.json({ organisation: await updateOrganisationSettings(actor, body) }),
+  handler: async ({ actor, body }) => Response.json({ organisation: await updateOrganisationSettings(actor, body) }),
 });

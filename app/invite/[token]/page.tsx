@@ -39,8 +39,8 @@ export default async function InvitePage({ params }: Props) {
             <>
               <h1 className="text-base font-semibold">This link cannot be checked just now</h1>
               <p role="alert" className="mt-2 text-sm leading-relaxed text-ink-soft">
-                Boardwright cannot reach its database at the moment. Nothing has been used up:
-                reload this page in a minute or two.
+                Boardwright cannot reach its database at the moment. Nothing has been used up: reload this page in a
+                minute or two.
               </p>
             </>
           ) : invitation ? (
@@ -63,8 +63,8 @@ export default async function InvitePage({ params }: Props) {
             <>
               <h1 className="text-base font-semibold">This invitation link no longer works</h1>
               <p className="mt-2 text-sm leading-relaxed text-ink-soft">
-                It has been used already, it has expired (links last seven days), or it was copied
-                incompletely. Ask your admin to send a new invitation.
+                It has been used already, it has expired (links last seven days), or it was copied incompletely. Ask
+                your admin to send a new invitation.
               </p>
               <p className="mt-4 text-sm">
                 Already set your password?{' '}

@@ -39,9 +39,7 @@ export function SignInForm({ next }: { next: string }) {
         {(id) => <Input id={id} name="email" type="email" autoComplete="username" required />}
       </Field>
       <Field label="Password">
-        {(id) => (
-          <Input id={id} name="password" type="password" autoComplete="current-password" required />
-        )}
+        {(id) => <Input id={id} name="password" type="password" autoComplete="current-password" required />}
       </Field>
       {error ? (
         <p role="alert" className="rounded-md bg-verdict-fail-bg px-3 py-2 text-sm text-verdict-fail">

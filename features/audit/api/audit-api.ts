@@ -1,5 +1,5 @@
 import { apiFetch } from '@/lib/api/client';
-import type { AuditPage } from '@/lib/dal/audit';
+import type { AuditPage } from '@/lib/audit-types';
 
 /**
  * Cache keys of a board's audit trail. They sit under `['boards', boardId]`, so whatever

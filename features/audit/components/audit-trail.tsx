@@ -55,8 +55,7 @@ export function AuditTrail({ boardId, className }: AuditTrailProps) {
             <li key={entry.id} className="flex flex-col gap-0.5 px-4 py-2 text-sm sm:flex-row sm:gap-3">
               <When iso={entry.createdAt} className="shrink-0 tabular-nums text-ink-faint sm:w-44" />
               <span className="text-ink">
-                <span className="font-medium">{entry.userName ?? 'A former member'}</span>{' '}
-                {describeAuditEntry(entry)}
+                <span className="font-medium">{entry.userName ?? 'A former member'}</span> {describeAuditEntry(entry)}
               </span>
             </li>
           ))}

@@ -1,4 +1,4 @@
-import type { AuditEntry } from '@/lib/dal/audit';
+import type { AuditEntry } from '@/lib/audit-types';
 import type { BoardStatus } from '@/lib/domain';
 import { BOARD_STATUS_NAMES, LABEL_STATUS_NAMES } from '@/lib/names';
 
@@ -11,7 +11,8 @@ const statusWord = (value: unknown) => {
   const code = OLD_STATUS[text(value)] ?? text(value);
   return (BOARD_STATUS_NAMES as Record<string, string>)[code]?.toLowerCase() ?? 'another stage';
 };
-const labelWord = (value: unknown) => (LABEL_STATUS_NAMES as Record<string, string>)[text(value)]?.toLowerCase() ?? 'not recorded';
+const labelWord = (value: unknown) =>
+  (LABEL_STATUS_NAMES as Record<string, string>)[text(value)]?.toLowerCase() ?? 'not recorded';
 
 /** "way 7" when the way still has a printed reference, else "a way". */
 function wayRef(entry: Pick<AuditEntry, 'wayLabel'>): string {
@@ -40,7 +41,9 @@ export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' 
         ? `archived the site “${text(d.site)}” with this board in it`
         : `archived the board at revision ${text(d.revision)}`;
     case 'board.restored':
-      return d.site !== undefined ? `restored the site “${text(d.site)}” and this board with it` : 'restored the board from the archive';
+      return d.site !== undefined
+        ? `restored the site “${text(d.site)}” and this board with it`
+        : 'restored the board from the archive';
     case 'board.saved':
       return d.newRevision !== undefined
         ? `saved version ${text(d.version)}, starting revision ${text(d.newRevision)} as a draft`

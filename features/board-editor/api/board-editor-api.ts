@@ -37,7 +37,8 @@ export async function saveDraft(boardId: string, version: number, draft: DraftSn
   } catch (err) {
     if (!(err instanceof ApiError)) throw err;
     const theirVersion = bodyField(err, 'currentVersion');
-    if (err.status === 409 && typeof theirVersion === 'number') return { kind: 'conflict', theirVersion, message: err.message };
+    if (err.status === 409 && typeof theirVersion === 'number')
+      return { kind: 'conflict', theirVersion, message: err.message };
     if (err.status === 409 || err.status === 403) return { kind: 'locked', message: err.message };
     throw err;
   }
@@ -55,11 +56,15 @@ export type SubmitOutcome =
 /** Sends the stored board for review at `version`. */
 export async function submitForReview(boardId: string, version: number): Promise<SubmitOutcome> {
   try {
-    const { board } = await apiFetch<{ board: BoardDto }>(`/api/boards/${boardId}/submit`, { method: 'POST', body: { version } });
+    const { board } = await apiFetch<{ board: BoardDto }>(`/api/boards/${boardId}/submit`, {
+      method: 'POST',
+      body: { version },
+    });
     return { kind: 'sent', board };
   } catch (err) {
     if (!(err instanceof ApiError)) throw err;
-    if (err.status === 422) return { kind: 'refused', message: err.message, failing: (bodyField(err, 'failing') as RefusedWay[]) ?? [] };
+    if (err.status === 422)
+      return { kind: 'refused', message: err.message, failing: (bodyField(err, 'failing') as RefusedWay[]) ?? [] };
     if (err.status === 409) return { kind: 'conflict', message: err.message };
     throw err;
   }

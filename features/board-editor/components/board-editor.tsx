@@ -22,7 +22,7 @@ import { toast } from 'sonner';
 import { layoutWays } from '@/lib/boards/layout';
 import { drawRails, placementProblem, railCapacities } from '@/lib/boards/rail';
 import type { BoardDto } from '@/lib/boards/types';
-import type { ReturnNotes } from '@/lib/dal/return-notes';
+import type { ReturnNotes } from '@/lib/boards/review-types';
 import type { DeviceOnRail } from '@/lib/sizing';
 
 import { submitForReview, type RefusedWay } from '../api/board-editor-api';
@@ -128,7 +128,13 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   const [dropRefusal, setDropRefusal] = useState<string | null>(null);
   const lastDrop = useRef<string | null>(null);
   const announcements = useMemo(
-    () => boardAnnouncements(() => useBoardDraftStore.getState(), () => lastDrop.current),
+    // The ref is read when dnd-kit announces a drop, never while rendering
+    // eslint-disable-next-line react-hooks/refs
+    () =>
+      boardAnnouncements(
+        () => useBoardDraftStore.getState(),
+        () => lastDrop.current,
+      ),
     [],
   );
 
@@ -194,13 +200,19 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   const addAnywhere = useCallback((device: DeviceOnRail) => {
     const store = useBoardDraftStore.getState();
     if (!store.settings) return;
-    const rails = drawRails(store.settings.phases, railCapacities(store.settings.enclosureModules, store.settings.rails), store.ways);
+    const rails = drawRails(
+      store.settings.phases,
+      railCapacities(store.settings.enclosureModules, store.settings.rails),
+      store.ways,
+    );
     for (const drawing of rails) {
       const index = store.ways.filter((w) => w.rail === drawing.rail).length;
       const way = { id: '(new)', rail: drawing.rail, position: index, device };
       if (!placementProblem(store.settings, store.ways, way, drawing.rail, index)) {
         store.addDevice(newWayId(), device, drawing.rail, index);
-        toast.success(`Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${drawing.rail + 1}` : 'the rail'}.`);
+        toast.success(
+          `Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${drawing.rail + 1}` : 'the rail'}.`,
+        );
         return;
       }
     }
@@ -239,10 +251,10 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
 
   const savePhase = useSaveStore((s) => s.phase);
   const saveMessage = useSaveStore((s) => s.message);
-  const [conflictHidden, setConflictHidden] = useState(false);
-  useEffect(() => {
-    if (savePhase === 'conflict') setConflictHidden(false);
-  }, [savePhase]);
+  // The conflict dialog, once closed, stays closed for that conflict (their version) only
+  const theirVersion = useSaveStore((s) => s.theirVersion);
+  const [hiddenFor, setHiddenFor] = useState<number | null | undefined>(undefined);
+  const conflictHidden = hiddenFor === theirVersion;
 
   if (!ready) {
     return (
@@ -255,10 +267,10 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   const readOnlyReason = readOnlyBecause
     ? readOnlyBecause
     : !can.edit
-    ? `Read only: your role may ${can.size ? 'look at the board and its sizing' : 'look at the board'}, not change it.`
-    : status === 'in-review'
-      ? 'In review: the board can be changed again once the inspector returns it.'
-      : null;
+      ? `Read only: your role may ${can.size ? 'look at the board and its sizing' : 'look at the board'}, not change it.`
+      : status === 'in-review'
+        ? 'In review: the board can be changed again once the inspector returns it.'
+        : null;
 
   return (
     <LiveSizing boardId={board.id} enabled={ready && can.size}>
@@ -299,11 +311,17 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
               />
             ) : null}
             <Notice />
-            <DrawnBoard readOnly={readOnly} showVerdicts={can.size} dropRefusal={dropRefusal} onRemove={removeWithUndo} />
+            <DrawnBoard
+              readOnly={readOnly}
+              showVerdicts={can.size}
+              dropRefusal={dropRefusal}
+              onRemove={removeWithUndo}
+            />
             {!readOnly ? (
               <div className="flex items-center justify-between gap-3">
                 <p className="text-xs text-ink-faint">
-                  Drag to move a way along or between rails. Keyboard: Tab to a device, Space to pick it up, arrows to move, Space to put it down.
+                  Drag to move a way along or between rails. Keyboard: Tab to a device, Space to pick it up, arrows to
+                  move, Space to put it down.
                 </p>
                 <BinZone dragging={dragging?.from === 'rail'} />
               </div>
@@ -323,7 +341,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
           message={saveMessage}
           onReloadTheirs={() => void reloadTheirs()}
           onKeepMine={() => void keepMine()}
-          onClose={() => setConflictHidden(true)}
+          onClose={() => setHiddenFor(theirVersion)}
         />
         <SubmitConfirmDialog
           open={confirmingSubmit}

@@ -44,7 +44,10 @@ export function BoardSummary() {
   const ways = useBoardDraftStore((s) => s.ways);
   if (!result) {
     return (
-      <section aria-label="Board summary" className="rounded-card border border-line bg-paper-raised p-3 text-sm text-ink-soft">
+      <section
+        aria-label="Board summary"
+        className="rounded-card border border-line bg-paper-raised p-3 text-sm text-ink-soft"
+      >
         {error ? <span className="text-verdict-fail">Sizing failed: {error}</span> : 'Sizing the board…'}
       </section>
     );
@@ -64,7 +67,9 @@ export function BoardSummary() {
       <div className="grid grid-cols-2 gap-2 lg:grid-cols-4">
         <Stat title="Maximum demand">
           <span className="text-lg font-semibold tabular-nums">{fmt(s.maxDemandA, 1)} A</span>
-          <span className="block text-xs text-ink-soft">connected {fmt(s.connectedLoadW / 1000, 1)} kW, after diversity</span>
+          <span className="block text-xs text-ink-soft">
+            connected {fmt(s.connectedLoadW / 1000, 1)} kW, after diversity
+          </span>
         </Stat>
         <Stat title={phaseCurrents ? 'Per phase' : 'Supply'}>
           {phaseCurrents ? (
@@ -83,7 +88,10 @@ export function BoardSummary() {
           {s.busbarCheck ? <CheckLine ok={s.busbarCheck.ok} message={s.busbarCheck.message} /> : null}
         </Stat>
         <Stat title="Modules">
-          <CheckLine ok={s.modulesCheck.ok} message={`${s.modulesUsed} of ${s.enclosureModules} used, ${s.modulesFree} free`} />
+          <CheckLine
+            ok={s.modulesCheck.ok}
+            message={`${s.modulesUsed} of ${s.enclosureModules} used, ${s.modulesFree} free`}
+          />
         </Stat>
       </div>
       <div className="mt-2 flex flex-wrap items-center gap-2 text-sm" role="group" aria-label="Ways by verdict">
@@ -93,7 +101,8 @@ export function BoardSummary() {
           onClick={() => selectMany(failing)}
           className="inline-flex items-center gap-1.5 rounded-md border border-verdict-fail/40 bg-verdict-fail-bg px-2.5 py-1 font-medium text-verdict-fail enabled:hover:border-verdict-fail disabled:opacity-60"
         >
-          <CircleX aria-hidden className="h-4 w-4" /> {s.counts.fails} {s.counts.fails === 1 ? 'way fails' : 'ways fail'}
+          <CircleX aria-hidden className="h-4 w-4" /> {s.counts.fails}{' '}
+          {s.counts.fails === 1 ? 'way fails' : 'ways fail'}
         </button>
         <button
           type="button"

@@ -26,13 +26,11 @@ export function CircuitForm({ wayId, boardPhases, readOnly }: CircuitFormProps) 
   const errors = form.formState.errors;
 
   return (
-    <form
-      aria-label="Circuit"
-      noValidate
-      onSubmit={(e) => e.preventDefault()}
-      data-way-form={wayId}
-    >
-      <fieldset disabled={readOnly} className="grid grid-cols-2 gap-x-3 gap-y-3 [&_:is(input,select):disabled]:cursor-not-allowed [&_:is(input,select):disabled]:bg-paper-sunk [&_:is(input,select):disabled]:text-ink-soft">
+    <form aria-label="Circuit" noValidate onSubmit={(e) => e.preventDefault()} data-way-form={wayId}>
+      <fieldset
+        disabled={readOnly}
+        className="grid grid-cols-2 gap-x-3 gap-y-3 [&_:is(input,select):disabled]:cursor-not-allowed [&_:is(input,select):disabled]:bg-paper-sunk [&_:is(input,select):disabled]:text-ink-soft"
+      >
         <legend className="sr-only">Circuit of the way</legend>
         <CircuitFields form={form} prefix="" boardPhases={boardPhases} fullRow="col-span-2" />
         {errors.root?.message ? <p className="col-span-2 text-xs text-verdict-fail">{errors.root.message}</p> : null}

@@ -99,7 +99,10 @@ export const DeviceCell = memo(function DeviceCell({ wayId, label, start }: Devi
         {showVerdict && verdict ? (
           <VerdictBadge verdict={verdict} iconOnly pending={pending} />
         ) : spare || device.kind === 'blank' ? (
-          <span data-spare className="inline-flex rounded-full border border-dashed border-line-strong bg-paper p-0.5 text-ink-soft">
+          <span
+            data-spare
+            className="inline-flex rounded-full border border-dashed border-line-strong bg-paper p-0.5 text-ink-soft"
+          >
             <CircleDashed aria-hidden className="h-3.5 w-3.5" />
           </span>
         ) : null}

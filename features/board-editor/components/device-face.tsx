@@ -56,7 +56,11 @@ export function DeviceFace({ device, className }: { device: DeviceOnRail; classN
         <span
           className={cn(
             'block h-7 rounded-[2px]',
-            device.kind === 'main-switch' ? 'w-[70%] bg-copper' : device.kind === 'rcd' ? 'w-[55%] bg-ink/80' : 'w-[60%] max-w-4 bg-ink/85',
+            device.kind === 'main-switch'
+              ? 'w-[70%] bg-copper'
+              : device.kind === 'rcd'
+                ? 'w-[55%] bg-ink/80'
+                : 'w-[60%] max-w-4 bg-ink/85',
           )}
         />
       ) : fuse ? (
@@ -74,7 +78,10 @@ export function DeviceFace({ device, className }: { device: DeviceOnRail; classN
           />
         ) : null}
         {device.kind === 'rcd' ? (
-          <Printed text="T" className="flex h-3 w-3 items-center justify-center rounded-full bg-copper text-[7px] font-bold text-white" />
+          <Printed
+            text="T"
+            className="flex h-3 w-3 items-center justify-center rounded-full bg-copper text-[7px] font-bold text-white"
+          />
         ) : null}
         <Printed
           text={device.modules > 1 ? kindName(device.kind) : (NARROW[device.kind] ?? kindName(device.kind))}

@@ -42,14 +42,19 @@ export function DeviceForm({ wayId, readOnly }: DeviceFormProps) {
   if (kind === 'blank' || kind === 'spd') {
     return (
       <p className="text-sm text-ink-soft">
-        {kind === 'blank' ? 'A blank covers a spare module; it has nothing to set.' : `A ${device.poles}-pole surge protective device; it feeds no circuit.`}
+        {kind === 'blank'
+          ? 'A blank covers a spare module; it has nothing to set.'
+          : `A ${device.poles}-pole surge protective device; it feeds no circuit.`}
       </p>
     );
   }
 
   return (
     <form aria-label="Device" noValidate onSubmit={(e) => e.preventDefault()} data-device-form={wayId}>
-      <fieldset disabled={readOnly} className="grid grid-cols-2 gap-x-3 gap-y-3 [&_:is(input,select):disabled]:cursor-not-allowed [&_:is(input,select):disabled]:bg-paper-sunk [&_:is(input,select):disabled]:text-ink-soft">
+      <fieldset
+        disabled={readOnly}
+        className="grid grid-cols-2 gap-x-3 gap-y-3 [&_:is(input,select):disabled]:cursor-not-allowed [&_:is(input,select):disabled]:bg-paper-sunk [&_:is(input,select):disabled]:text-ink-soft"
+      >
         <legend className="sr-only">Device of the way</legend>
         <Field label="Rating" error={errors.ratingA?.message}>
           {(id, d) => (

@@ -172,7 +172,12 @@ export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose,
           />
         ) : null}
         {entry.rcdTypes ? (
-          <Choice label="Type" value={choice.rcdType} options={entry.rcdTypes} onChange={(rcdType) => set({ rcdType })} />
+          <Choice
+            label="Type"
+            value={choice.rcdType}
+            options={entry.rcdTypes}
+            onChange={(rcdType) => set({ rcdType })}
+          />
         ) : null}
         <Button size="sm" variant="secondary" className="ml-auto" onClick={() => onAdd(activeDevice)}>
           <Plus aria-hidden className="h-4 w-4" /> Add to the board

@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { CloudOff, Loader2, Redo2, Save, Send, Undo2 } from 'lucide-react';
 
 import { Button } from '@/components/ui/button';
@@ -28,10 +29,17 @@ function SaveState() {
   let tone = dirty ? 'text-ink-soft' : 'text-verdict-pass';
   if (phase === 'saving') [text, tone] = ['Saving…', 'text-ink-soft'];
   if (phase === 'failed') [text, tone] = [message ?? 'Saving failed.', 'text-verdict-fail'];
-  if (phase === 'conflict') [text, tone] = ['Saved elsewhere meanwhile: choose which copy to keep', 'text-verdict-near'];
+  if (phase === 'conflict')
+    [text, tone] = ['Saved elsewhere meanwhile: choose which copy to keep', 'text-verdict-near'];
   if (phase === 'locked') [text, tone] = [message ?? 'This board cannot be saved now.', 'text-verdict-near'];
   return (
-    <span role="status" data-testid="save-state" data-phase={phase} data-dirty={dirty} className={cn('inline-flex items-center gap-1 text-xs', tone)}>
+    <span
+      role="status"
+      data-testid="save-state"
+      data-phase={phase}
+      data-dirty={dirty}
+      className={cn('inline-flex items-center gap-1 text-xs', tone)}
+    >
       {phase === 'saving' ? <Loader2 aria-hidden className="h-3.5 w-3.5 animate-spin" /> : null}
       {phase === 'failed' ? <CloudOff aria-hidden className="h-3.5 w-3.5" /> : null}
       {text}
@@ -40,7 +48,15 @@ function SaveState() {
 }
 
 /** The editor's top bar: the board, its status and saving state, undo and redo, rails, save and send. */
-export function EditorToolbar({ siteName, canEdit, canSubmit, readOnlyReason, submitting, onSave, onSubmit }: EditorToolbarProps) {
+export function EditorToolbar({
+  siteName,
+  canEdit,
+  canSubmit,
+  readOnlyReason,
+  submitting,
+  onSave,
+  onSubmit,
+}: EditorToolbarProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const status = useBoardDraftStore((s) => s.status);
   const canUndo = useBoardDraftStore((s) => s.past.length > 0);
@@ -55,9 +71,9 @@ export function EditorToolbar({ siteName, canEdit, canSubmit, readOnlyReason, su
     <div className="mb-4 flex flex-wrap items-end justify-between gap-3">
       <div className="min-w-0">
         <div className="text-sm text-ink-soft">
-          <a href="/boards" className="hover:text-ink hover:underline">
+          <Link href="/boards" className="hover:text-ink hover:underline">
             Boards
-          </a>{' '}
+          </Link>{' '}
           / {siteName}
         </div>
         <div className="flex flex-wrap items-center gap-2">
@@ -70,10 +86,24 @@ export function EditorToolbar({ siteName, canEdit, canSubmit, readOnlyReason, su
       </div>
       {canEdit ? (
         <div className="flex flex-wrap items-center gap-2">
-          <Button variant="secondary" size="sm" onClick={undo} disabled={!canUndo} aria-keyshortcuts="Control+Z" title="Undo (Ctrl+Z)">
+          <Button
+            variant="secondary"
+            size="sm"
+            onClick={undo}
+            disabled={!canUndo}
+            aria-keyshortcuts="Control+Z"
+            title="Undo (Ctrl+Z)"
+          >
             <Undo2 aria-hidden className="h-4 w-4" /> Undo
           </Button>
-          <Button variant="secondary" size="sm" onClick={redo} disabled={!canRedo} aria-keyshortcuts="Control+Shift+Z Control+Y" title="Redo (Ctrl+Shift+Z)">
+          <Button
+            variant="secondary"
+            size="sm"
+            onClick={redo}
+            disabled={!canRedo}
+            aria-keyshortcuts="Control+Shift+Z Control+Y"
+            title="Redo (Ctrl+Shift+Z)"
+          >
             <Redo2 aria-hidden className="h-4 w-4" /> Redo
           </Button>
           <label className="flex items-center gap-1.5 text-xs text-ink-soft">
@@ -90,7 +120,12 @@ export function EditorToolbar({ siteName, canEdit, canSubmit, readOnlyReason, su
               ))}
             </select>
           </label>
-          <Button variant="secondary" size="sm" onClick={onSave} disabled={!dirty || phase === 'saving' || phase === 'conflict'}>
+          <Button
+            variant="secondary"
+            size="sm"
+            onClick={onSave}
+            disabled={!dirty || phase === 'saving' || phase === 'conflict'}
+          >
             <Save aria-hidden className="h-4 w-4" /> Save
           </Button>
           {canSubmit ? (

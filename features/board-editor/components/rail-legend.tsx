@@ -31,7 +31,10 @@ export function RailLegend({ railName, entries }: RailLegendProps) {
   const { pending } = useSizingState();
   if (!entries.length) return null;
   return (
-    <ol aria-label={`Ways on ${railName}`} className="mt-2 gap-x-4 border-t border-ink/15 pt-2 sm:columns-2 2xl:columns-3">
+    <ol
+      aria-label={`Ways on ${railName}`}
+      className="mt-2 gap-x-4 border-t border-ink/15 pt-2 sm:columns-2 2xl:columns-3"
+    >
       {entries.map(({ id, label }) => {
         const way = ways.find((w) => w.id === id)!;
         const verdict = showVerdicts ? verdicts?.[id] : undefined;

@@ -75,9 +75,7 @@ export function RailRow({ drawing, railCount }: RailRowProps) {
         <span className="font-semibold text-ink">{railCount > 1 ? `Rail ${drawing.rail + 1}` : 'Rail'}</span>
         <span>
           {drawing.used} of {drawing.capacity} modules used
-          {drawing.free < 0 ? (
-            <strong className="ml-1 text-verdict-fail">· over-full by {-drawing.free}</strong>
-          ) : null}
+          {drawing.free < 0 ? <strong className="ml-1 text-verdict-fail">· over-full by {-drawing.free}</strong> : null}
         </span>
       </div>
       <div style={{ maxWidth: columns * MAX_MODULE_PX }}>
@@ -122,14 +120,10 @@ export function RailRow({ drawing, railCount }: RailRowProps) {
                 <DeviceCell key={cell.id} wayId={cell.id} label={cell.label} start={cell.start} />
               ),
             )}
-            {drawing.free > 0 ? (
-              <FreeModules rail={drawing.rail} start={drawing.used} modules={drawing.free} />
-            ) : null}
+            {drawing.free > 0 ? <FreeModules rail={drawing.rail} start={drawing.used} modules={drawing.free} /> : null}
           </div>
         </SortableContext>
-        {drawing.free <= 0 && !readOnly ? (
-          <FreeModules rail={drawing.rail} start={0} modules={0} />
-        ) : null}
+        {drawing.free <= 0 && !readOnly ? <FreeModules rail={drawing.rail} start={0} modules={0} /> : null}
       </div>
       <RailLegend railName={railCount > 1 ? `rail ${drawing.rail + 1}` : 'the rail'} entries={devices} />
     </div>

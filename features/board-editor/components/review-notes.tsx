@@ -10,8 +10,8 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { errorMessage } from '@/lib/api/client';
 import { layoutWays } from '@/lib/boards/layout';
-import type { CommentDto } from '@/lib/dal/comments';
-import type { ReturnNotes } from '@/lib/dal/return-notes';
+import type { CommentDto } from '@/lib/boards/review-types';
+import type { ReturnNotes } from '@/lib/boards/review-types';
 
 import { markCommentsAnswered } from '../api/board-editor-api';
 import { useBoardDraftStore } from '../stores/board-draft-store';
@@ -36,7 +36,15 @@ function Meta({ comment }: { comment: CommentDto }) {
  * comment with its way (a click selects the way), until the designer marks them answered.
  * E-mail links open the editor at #review-notes.
  */
-export function ReviewNotes({ boardId, notes, canAnswer }: { boardId: string; notes: ReturnNotes; canAnswer: boolean }) {
+export function ReviewNotes({
+  boardId,
+  notes,
+  canAnswer,
+}: {
+  boardId: string;
+  notes: ReturnNotes;
+  canAnswer: boolean;
+}) {
   const router = useRouter();
   const refs = useWayRefs();
   const ways = useBoardDraftStore((s) => s.ways);
@@ -48,7 +56,11 @@ export function ReviewNotes({ boardId, notes, canAnswer }: { boardId: string; no
     if (window.location.hash === '#review-notes') section.current?.scrollIntoView({ block: 'start' });
   }, []);
   const answer = useMutation({
-    mutationFn: () => markCommentsAnswered(boardId, [...notes.reasons, ...notes.wayComments].map((c) => c.id)),
+    mutationFn: () =>
+      markCommentsAnswered(
+        boardId,
+        [...notes.reasons, ...notes.wayComments].map((c) => c.id),
+      ),
     onSuccess: () => {
       setAnswered(true);
       toast.success('Review comments marked answered.');
@@ -70,7 +82,8 @@ export function ReviewNotes({ boardId, notes, canAnswer }: { boardId: string; no
             <MessageSquare aria-hidden className="h-4 w-4" /> Returned for changes
           </h2>
           <p className="text-sm text-ink-soft">
-            {notes.returnedByName} returned revision {notes.revision} on {new Date(notes.returnedAt).toLocaleString('en-GB')}.
+            {notes.returnedByName} returned revision {notes.revision} on{' '}
+            {new Date(notes.returnedAt).toLocaleString('en-GB')}.
           </p>
         </div>
         {canAnswer ? (
@@ -98,14 +111,22 @@ export function ReviewNotes({ boardId, notes, canAnswer }: { boardId: string; no
               const onBoard = refs.has(c.wayId!);
               const ref = refs.get(c.wayId!);
               return (
-                <li key={c.id} data-testid="way-comment" className="rounded-md border border-line bg-paper-raised px-3 py-2 text-sm">
+                <li
+                  key={c.id}
+                  data-testid="way-comment"
+                  className="rounded-md border border-line bg-paper-raised px-3 py-2 text-sm"
+                >
                   <div className="flex flex-wrap items-center justify-between gap-2">
                     <span className="font-medium text-ink">
                       {onBoard ? `Way ${ref ?? '(no number)'}` : 'A way since removed'}
                       {serves(c.wayId) ? ` · ${serves(c.wayId)}` : ''}
                     </span>
                     {onBoard ? (
-                      <button type="button" className="text-xs font-medium text-copper-dark underline-offset-2 hover:underline" onClick={() => select(c.wayId)}>
+                      <button
+                        type="button"
+                        className="text-xs font-medium text-copper-dark underline-offset-2 hover:underline"
+                        onClick={() => select(c.wayId)}
+                      >
                         Show the way
                       </button>
                     ) : null}
@@ -130,7 +151,10 @@ export function SelectedWayComments({ notes }: { notes: ReturnNotes }) {
   const mine = notes.wayComments.filter((c) => c.wayId && selection.includes(c.wayId));
   if (!mine.length) return null;
   return (
-    <aside aria-label="Review comments on this way" className="mb-3 rounded-card border border-verdict-near/40 bg-verdict-near-bg p-3 text-sm">
+    <aside
+      aria-label="Review comments on this way"
+      className="mb-3 rounded-card border border-verdict-near/40 bg-verdict-near-bg p-3 text-sm"
+    >
       <h3 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">
         Reviewer on way {refs.get(mine[0].wayId!) ?? ''}
       </h3>

@@ -27,7 +27,11 @@ export function SizingResult({ result, stale }: { result: CircuitResult; stale?:
   const f = result.factors;
   const failed = result.checks.filter((c) => !c.ok).length;
   return (
-    <section aria-label="Sizing result" className={cn('space-y-3', stale && 'opacity-70')} aria-busy={stale || undefined}>
+    <section
+      aria-label="Sizing result"
+      className={cn('space-y-3', stale && 'opacity-70')}
+      aria-busy={stale || undefined}
+    >
       <div className="flex items-center justify-between gap-2">
         <h3 className="text-sm font-semibold text-ink">Sizing</h3>
         <VerdictBadge verdict={result.verdict} pending={stale} />
@@ -44,9 +48,21 @@ export function SizingResult({ result, stale }: { result: CircuitResult; stale?:
           value={result.csaMm2 === null ? '–' : `${result.csaMm2} mm²`}
           note={result.cpcMm2 ? `cpc ${result.cpcMm2} mm²` : undefined}
         />
-        <Row name="Tabulated It" value={withUnit(result.itA, 'A', 1)} note={result.tableRow ? `${result.tableRow.table.replace(/^.*?(Tables? \S+).*$/, '$1')}, method ${result.tableRow.method}` : undefined} />
+        <Row
+          name="Tabulated It"
+          value={withUnit(result.itA, 'A', 1)}
+          note={
+            result.tableRow
+              ? `${result.tableRow.table.replace(/^.*?(Tables? \S+).*$/, '$1')}, method ${result.tableRow.method}`
+              : undefined
+          }
+        />
         <Row name="Iz after factors" value={withUnit(result.izA, 'A')} />
-        <Row name="Voltage drop" value={`${withUnit(result.vdV, 'V')} (${withUnit(result.vdPct, '%')})`} note={`limit ${fmt(result.vdLimitPct, 1)} %`} />
+        <Row
+          name="Voltage drop"
+          value={`${withUnit(result.vdV, 'V')} (${withUnit(result.vdPct, '%')})`}
+          note={`limit ${fmt(result.vdLimitPct, 1)} %`}
+        />
         <Row name="R1+R2" value={withUnit(result.r1r2Ohm, 'Ω', 3)} />
         <Row name="Zs" value={withUnit(result.zsOhm, 'Ω', 3)} note={`limit ${withUnit(result.zsMaxOhm, 'Ω', 2)}`} />
         <Row name="Earth fault current" value={withUnit(result.faultCurrentA, 'A', 0)} />

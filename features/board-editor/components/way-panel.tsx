@@ -93,7 +93,8 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
           ) : null}
           {covers ? (
             <p className="text-xs text-ink-faint">
-              Protects {covers.protectedIds.length ? covers.protectedIds.map((id) => labels.get(id)).join(', ') : 'no ways yet'}.
+              Protects{' '}
+              {covers.protectedIds.length ? covers.protectedIds.map((id) => labels.get(id)).join(', ') : 'no ways yet'}.
             </p>
           ) : null}
         </div>

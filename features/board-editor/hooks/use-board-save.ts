@@ -17,7 +17,8 @@ export const AUTOSAVE_MS = 3000;
 export const RETRY_FIRST_MS = 5000;
 
 /** A failure that may pass on its own: the server not reached, or not able to answer just now. */
-const passing = (err: unknown) => err instanceof ApiError && (err.status === 0 || err.status === 408 || err.status === 429 || err.status >= 500);
+const passing = (err: unknown) =>
+  err instanceof ApiError && (err.status === 0 || err.status === 408 || err.status === 429 || err.status >= 500);
 
 /**
  * One attempt at saving the draft as it is now, at the version it builds on; `settle` hears
@@ -42,7 +43,9 @@ async function saveAttempt(boardId: string, settle: (saved: boolean) => void): P
     }
     settle(outcome.kind === 'saved' && !useBoardDraftStore.getState().dirty);
   } catch (err) {
-    useSaveStore.getState().set({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
+    useSaveStore
+      .getState()
+      .set({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
     settle(false);
     throw err;
   }

@@ -90,14 +90,25 @@ const SizingStateContext = createContext<SizingState>({ pending: false, error: n
  * Sizes the open draft after every change (`enabled`: the member may see sizing) and gives the
  * components inside it the answer through `useDraftSizing`. The draft stays editable all the while.
  */
-export function LiveSizing({ boardId, enabled, children }: { boardId: string; enabled: boolean; children: React.ReactNode }) {
+export function LiveSizing({
+  boardId,
+  enabled,
+  children,
+}: {
+  boardId: string;
+  enabled: boolean;
+  children: React.ReactNode;
+}) {
   const editSeq = useBoardDraftStore((s) => s.editSeq);
   const open = useBoardDraftStore((s) => s.boardId === boardId && s.settings !== null);
   const settled = useSettledEditSeq(boardId, enabled && open);
   const query = useQuery(sizingQuery(boardId, settled, enabled && open));
   const pending = enabled && !query.isError && query.data?.editSeq !== editSeq;
   const error = query.error ? failureWords(query.error) : null;
-  const key = useMemo(() => ({ boardId, editSeq: settled, enabled: enabled && open }), [boardId, settled, enabled, open]);
+  const key = useMemo(
+    () => ({ boardId, editSeq: settled, enabled: enabled && open }),
+    [boardId, settled, enabled, open],
+  );
   const state = useMemo(() => ({ pending, error }), [pending, error]);
   return (
     <SizingKeyContext.Provider value={key}>
@@ -107,7 +118,8 @@ export function LiveSizing({ boardId, enabled, children }: { boardId: string; en
 }
 
 function failureWords(err: Error): string {
-  const detail = err instanceof ApiError && err.issues.length ? ` (${err.issues[0].path}: ${err.issues[0].message})` : '';
+  const detail =
+    err instanceof ApiError && err.issues.length ? ` (${err.issues[0].path}: ${err.issues[0].message})` : '';
   return `${err.message}${detail}`;
 }
 

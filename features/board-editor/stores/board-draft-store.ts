@@ -3,7 +3,7 @@ import { create } from 'zustand';
 import { normalisePositions, placementProblem, placeWay, railCapacities, reflowWays } from '@/lib/boards/rail';
 import type { BoardSettings } from '@/lib/boards/schemas';
 import type { CircuitSpec, DeviceOnRail } from '@/lib/sizing';
-import type { BoardStatus } from '@/models/board';
+import type { BoardStatus } from '@/lib/domain';
 
 import type { DraftSnapshot, EditorBoard, EditorWay, EditResult } from '../types/draft';
 import { sameValue } from '../utils/same-value';
@@ -179,7 +179,9 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     // Dropped back where it was: no undo step (both lists are in rail order)
     const unchanged =
       ways.length === state.ways.length &&
-      ways.every((w, i) => w.id === state.ways[i].id && w.rail === state.ways[i].rail && w.position === state.ways[i].position);
+      ways.every(
+        (w, i) => w.id === state.ways[i].id && w.rail === state.ways[i].rail && w.position === state.ways[i].position,
+      );
     if (unchanged) return { ok: true };
     set({ ...commit(state, { ways }), notice: null });
     return { ok: true };
@@ -296,7 +298,9 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
   setStatus: (status) => set({ status }),
   clearNotice: () => set({ notice: null }),
   keepUnfinished: (key, values) =>
-    set((state) => ({ unfinished: values === null ? without(state.unfinished, key) : { ...state.unfinished, [key]: values } })),
+    set((state) => ({
+      unfinished: values === null ? without(state.unfinished, key) : { ...state.unfinished, [key]: values },
+    })),
   // The edit sequence carries on: a sizing kept for an earlier opening never passes for this one
   reset: () => set({ ...initial, editSeq: get().editSeq }),
 }));

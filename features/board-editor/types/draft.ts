@@ -1,5 +1,5 @@
 import type { BoardSettings, WayInput } from '@/lib/boards/schemas';
-import type { BoardStatus } from '@/models/board';
+import type { BoardStatus } from '@/lib/domain';
 
 /** A way as the editor holds it: the same shape the save route takes. */
 export type EditorWay = WayInput;

@@ -31,7 +31,8 @@ export function boardAnnouncements(
   const describe = (active: ActiveData) => {
     const { settings, ways } = get();
     if (!active || !settings) return { name: 'the device', device: null, movingId: null };
-    if (active.from === 'tray') return { name: `a new ${deviceWords(active.device)}`, device: active.device, movingId: null };
+    if (active.from === 'tray')
+      return { name: `a new ${deviceWords(active.device)}`, device: active.device, movingId: null };
     const way = ways.find((w) => w.id === active.wayId);
     const label = layoutWays(settings.phases, ways).find((p) => p.id === active.wayId)?.label;
     const name = way ? `${label ? `way ${label}, ` : ''}${deviceWords(way.device)}` : 'the way';
@@ -45,12 +46,16 @@ export function boardAnnouncements(
     if (!target || !settings) return past ? `${name} was put back; nothing changed.` : `${name} is not over the board.`;
     if (target.kind === 'bin') {
       if (!movingId) return past ? `${name} was not added.` : 'Over the bin: a new device is simply not added.';
-      return past ? `${name} was removed. Control Z brings it back.` : `Over the bin: putting ${name} down here removes it.`;
+      return past
+        ? `${name} was removed. Control Z brings it back.`
+        : `Over the bin: putting ${name} down here removes it.`;
     }
-    if (target.stays) return past ? `${name} was put down where it was; nothing changed.` : `${name} would stay where it is.`;
+    if (target.stays)
+      return past ? `${name} was put down where it was; nothing changed.` : `${name} would stay where it is.`;
     const labels = new Map(layoutWays(settings.phases, ways).map((p) => [p.id, p.label]));
     const rail = settings.rails > 1 ? ` of rail ${target.rail + 1}` : '';
-    const named = (id: string) => (labels.get(id) ? `way ${labels.get(id)}` : deviceWords(ways.find((w) => w.id === id)!.device));
+    const named = (id: string) =>
+      labels.get(id) ? `way ${labels.get(id)}` : deviceWords(ways.find((w) => w.id === id)!.device);
     const spot = target.afterId
       ? `after ${named(target.afterId)}${rail}`
       : target.beforeId
@@ -59,7 +64,8 @@ export function boardAnnouncements(
     const moving = movingId ? ways.find((w) => w.id === movingId) : undefined;
     const candidate = moving ?? (device ? { id: '(new)', rail: target.rail, position: target.index, device } : null);
     const problem = candidate ? placementProblem(settings, ways, candidate, target.rail, target.index) : null;
-    if (problem) return past ? `${name} was not placed. ${problem}` : `${name} would go ${spot}, but it does not fit. ${problem}`;
+    if (problem)
+      return past ? `${name} was not placed. ${problem}` : `${name} would go ${spot}, but it does not fit. ${problem}`;
     return past ? `${name} was put down ${spot}.` : `${name} would go ${spot}.`;
   };
 
@@ -71,7 +77,9 @@ export function boardAnnouncements(
       if (!over || over.id === active.id) return undefined;
       return where(active.data.current as ActiveData, over.data.current as OverData, false);
     },
-    onDragEnd: ({ active, over }) => dropped() ?? where(active.data.current as ActiveData, over?.data.current as OverData, true),
-    onDragCancel: ({ active }) => `${describe(active.data.current as ActiveData).name} was put back where it was; nothing changed.`,
+    onDragEnd: ({ active, over }) =>
+      dropped() ?? where(active.data.current as ActiveData, over?.data.current as OverData, true),
+    onDragCancel: ({ active }) =>
+      `${describe(active.data.current as ActiveData).name} was put back where it was; nothing changed.`,
   };
 }

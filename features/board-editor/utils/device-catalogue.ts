@@ -1,16 +1,7 @@
 import type { DeviceOnRail } from '@/lib/sizing';
 
 /** The kinds of device the tray offers, in the order it shows them. */
-export const TRAY_KINDS = [
-  'main-switch',
-  'rcd',
-  'mcb',
-  'rcbo',
-  'fuse-bs88-2',
-  'fuse-bs3036',
-  'spd',
-  'blank',
-] as const;
+export const TRAY_KINDS = ['main-switch', 'rcd', 'mcb', 'rcbo', 'fuse-bs88-2', 'fuse-bs3036', 'spd', 'blank'] as const;
 export type TrayKind = (typeof TRAY_KINDS)[number];
 
 /** A tray item's chosen variant: every field the tray lets the designer pick. */
@@ -191,7 +182,8 @@ export function ratingText(device: DeviceOnRail): string {
 
 /** The device in a few words: "MCB B16", "RCD 63 A 30 mA type A", "3-pole MCB C20". */
 export function deviceWords(device: DeviceOnRail): string {
-  const poles = device.poles >= 3 && (device.kind === 'mcb' || device.kind.startsWith('fuse')) ? `${device.poles}-pole ` : '';
+  const poles =
+    device.poles >= 3 && (device.kind === 'mcb' || device.kind.startsWith('fuse')) ? `${device.poles}-pole ` : '';
   const parts = [`${poles}${kindName(device.kind)}`];
   if (device.kind === 'main-switch' || device.kind === 'rcd' || device.kind === 'spd') parts.push(`${device.poles}P`);
   const rating = ratingText(device);

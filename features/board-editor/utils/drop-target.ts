@@ -4,10 +4,7 @@ import type { EditorWay } from '../types/draft';
 
 /** What a drag is over, from the drop zones' data. */
 export type OverData =
-  | { to: 'free'; rail: number }
-  | { to: 'bin' }
-  | { from: 'rail'; wayId: string; rail: number }
-  | undefined;
+  { to: 'free'; rail: number } | { to: 'bin' } | { from: 'rail'; wayId: string; rail: number } | undefined;
 
 /** Where a drop would put the device: a place on a rail, the bin, or nowhere. */
 export type DropTarget =

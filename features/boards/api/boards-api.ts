@@ -11,7 +11,8 @@ export type BoardRename = { name?: string; location?: string };
 /** Cache keys for boards; everything under `['boards']` is refreshed after a board changes. */
 export const boardKeys = {
   all: ['boards'] as const,
-  list: (siteId?: string, archived = false) => ['boards', 'list', siteId ?? 'all', archived ? 'archived' : 'live'] as const,
+  list: (siteId?: string, archived = false) =>
+    ['boards', 'list', siteId ?? 'all', archived ? 'archived' : 'live'] as const,
   // Kept under the sites prefix so a site change refreshes the choices too
   siteOptions: () => ['sites', 'options'] as const,
 };
@@ -42,10 +43,7 @@ export async function postBoard(input: BoardCreateInput): Promise<BoardDto> {
 }
 
 /** PATCH /api/boards/:boardId (name and location only) */
-export async function patchBoard(
-  boardId: string,
-  input: BoardRename,
-): Promise<BoardDto> {
+export async function patchBoard(boardId: string, input: BoardRename): Promise<BoardDto> {
   const url = `/api/boards/${encodeURIComponent(boardId)}`;
   const { board } = await apiFetch<{ board: BoardDto }>(url, {
     method: 'PATCH',
@@ -56,7 +54,9 @@ export async function patchBoard(
 
 /** DELETE /api/boards/:boardId: a never-issued board is deleted (undoable), an issued one archived (admins). */
 export function removeBoard(boardId: string): Promise<{ effect: 'deleted' | 'archived' }> {
-  return apiFetch<{ effect: 'deleted' | 'archived' }>(`/api/boards/${encodeURIComponent(boardId)}`, { method: 'DELETE' });
+  return apiFetch<{ effect: 'deleted' | 'archived' }>(`/api/boards/${encodeURIComponent(boardId)}`, {
+    method: 'DELETE',
+  });
 }
 
 /** POST /api/boards/:boardId/undo-delete */

@@ -37,8 +37,7 @@ export function useCreateBoard() {
 export function useRenameBoard() {
   const refresh = useRefreshLists();
   return useMutation({
-    mutationFn: ({ boardId, input }: { boardId: string; input: BoardRename }) =>
-      patchBoard(boardId, input),
+    mutationFn: ({ boardId, input }: { boardId: string; input: BoardRename }) => patchBoard(boardId, input),
     onSuccess: () => refresh(),
   });
 }

@@ -105,15 +105,7 @@ export function BoardCreateDialog({
   );
 }
 
-function BoardCreateForm({
-  sites,
-  siteId,
-  onClose,
-}: {
-  sites: SiteOption[];
-  siteId?: string;
-  onClose: () => void;
-}) {
+function BoardCreateForm({ sites, siteId, onClose }: { sites: SiteOption[]; siteId?: string; onClose: () => void }) {
   const router = useRouter();
   const create = useCreateBoard();
   const {
@@ -165,11 +157,7 @@ function BoardCreateForm({
             </Select>
           )}
         </Field>
-        <Field
-          label="Location"
-          hint="Where the board is fixed (optional)"
-          error={errors.location?.message}
-        >
+        <Field label="Location" hint="Where the board is fixed (optional)" error={errors.location?.message}>
           {(id, d) => <Input autoComplete="off" {...bind('location', errors.location)(id, d)} />}
         </Field>
         <Field label="Phases" error={errors.phases?.message}>
@@ -197,14 +185,10 @@ function BoardCreateForm({
           {(id, d) => <Input {...decimal} {...bind('supply.uoV', supplyErrors?.uoV, num)(id, d)} />}
         </Field>
         <Field label="Ze (Ω)" hint="Declared or measured" error={supplyErrors?.zeOhm?.message}>
-          {(id, d) => (
-            <Input {...decimal} {...bind('supply.zeOhm', supplyErrors?.zeOhm, num)(id, d)} />
-          )}
+          {(id, d) => <Input {...decimal} {...bind('supply.zeOhm', supplyErrors?.zeOhm, num)(id, d)} />}
         </Field>
         <Field label="Prospective fault current (kA)" error={supplyErrors?.pfcKa?.message}>
-          {(id, d) => (
-            <Input {...decimal} {...bind('supply.pfcKa', supplyErrors?.pfcKa, num)(id, d)} />
-          )}
+          {(id, d) => <Input {...decimal} {...bind('supply.pfcKa', supplyErrors?.pfcKa, num)(id, d)} />}
         </Field>
         <Field label="Supply source" error={supplyErrors?.source?.message}>
           {(id, d) => (
@@ -229,26 +213,15 @@ function BoardCreateForm({
           )}
         </Field>
         <Field label="Device rating (A)" error={incomingErrors?.ratingA?.message}>
-          {(id, d) => (
-            <Input {...whole} {...bind('incoming.ratingA', incomingErrors?.ratingA, num)(id, d)} />
-          )}
+          {(id, d) => <Input {...whole} {...bind('incoming.ratingA', incomingErrors?.ratingA, num)(id, d)} />}
         </Field>
-        <Field
-          label="Busbar rating (A)"
-          hint="Optional"
-          error={incomingErrors?.busbarRatingA?.message}
-        >
+        <Field label="Busbar rating (A)" hint="Optional" error={incomingErrors?.busbarRatingA?.message}>
           {(id, d) => (
-            <Input
-              {...whole}
-              {...bind('incoming.busbarRatingA', incomingErrors?.busbarRatingA, num)(id, d)}
-            />
+            <Input {...whole} {...bind('incoming.busbarRatingA', incomingErrors?.busbarRatingA, num)(id, d)} />
           )}
         </Field>
         <Field label="Enclosure (modules)" error={errors.enclosureModules?.message}>
-          {(id, d) => (
-            <Input {...whole} {...bind('enclosureModules', errors.enclosureModules, num)(id, d)} />
-          )}
+          {(id, d) => <Input {...whole} {...bind('enclosureModules', errors.enclosureModules, num)(id, d)} />}
         </Field>
         <Field label="Rails" error={errors.rails?.message}>
           {(id, d) => <Input {...whole} {...bind('rails', errors.rails, num)(id, d)} />}
@@ -258,9 +231,7 @@ function BoardCreateForm({
           hint="Optional: the assembly's rating its maker declares (a consumer unit to BS EN 61439-3: 16 kA)"
           error={errors.conditionalRatingKa?.message}
         >
-          {(id, d) => (
-            <Input {...decimal} {...bind('conditionalRatingKa', errors.conditionalRatingKa, num)(id, d)} />
-          )}
+          {(id, d) => <Input {...decimal} {...bind('conditionalRatingKa', errors.conditionalRatingKa, num)(id, d)} />}
         </Field>
         <div className="flex items-end pb-2">
           <label className="flex items-center gap-2 text-sm text-ink">

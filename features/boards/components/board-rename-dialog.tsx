@@ -19,13 +19,7 @@ type RenameValues = z.input<typeof renameFormSchema>;
 type RenameInput = z.output<typeof renameFormSchema>;
 
 /** Renames a board or records where it is fixed. */
-export function BoardRenameDialog({
-  board,
-  onClose,
-}: {
-  board: BoardSummary | null;
-  onClose: () => void;
-}) {
+export function BoardRenameDialog({ board, onClose }: { board: BoardSummary | null; onClose: () => void }) {
   return (
     <Dialog open={board !== null} onClose={onClose} title="Rename board">
       {board ? <RenameForm board={board} onClose={onClose} /> : null}

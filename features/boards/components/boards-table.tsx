@@ -61,19 +61,14 @@ export function BoardsTable({
   const siteFilter = (filters.find((f) => f.id === 'site')?.value as string | undefined) ?? '';
 
   function setFilter(id: 'status' | 'site', value: string) {
-    setFilters((current) => [
-      ...current.filter((f) => f.id !== id),
-      ...(value ? [{ id, value }] : []),
-    ]);
+    setFilters((current) => [...current.filter((f) => f.id !== id), ...(value ? [{ id, value }] : [])]);
   }
 
   // The sites present in the list, for the site filter
   const sites = useMemo(() => {
     const byId = new Map<string, string>();
     for (const b of boards) byId.set(b.siteId, b.siteName);
-    return [...byId]
-      .map(([id, name]) => ({ id, name }))
-      .sort((a, b) => a.name.localeCompare(b.name));
+    return [...byId].map(([id, name]) => ({ id, name })).sort((a, b) => a.name.localeCompare(b.name));
   }, [boards]);
 
   const columns = useMemo<ColumnDef<BoardSummary>[]>(() => {

@@ -73,7 +73,15 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
   );
   const removeLabelOf = useCallback(
     (board: BoardSummary) =>
-      board.archivedAt ? (canArchive ? 'Restore' : null) : board.everIssued ? (canArchive ? 'Archive' : null) : 'Delete',
+      board.archivedAt
+        ? canArchive
+          ? 'Restore'
+          : null
+        : board.everIssued
+          ? canArchive
+            ? 'Archive'
+            : null
+          : 'Delete',
     [canArchive],
   );
 
@@ -169,4 +177,3 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
     </section>
   );
 }
-

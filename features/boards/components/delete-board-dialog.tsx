@@ -13,13 +13,7 @@ import { useDeleteBoard } from '../api/use-board-mutations';
  * Asks before archiving a board that was issued (admins): it leaves the lists and becomes
  * read-only, and everything is kept. (A never-issued board is deleted at once, with undo.)
  */
-export function DeleteBoardDialog({
-  board,
-  onClose,
-}: {
-  board: BoardSummary | null;
-  onClose: () => void;
-}) {
+export function DeleteBoardDialog({ board, onClose }: { board: BoardSummary | null; onClose: () => void }) {
   const remove = useDeleteBoard();
   const [error, setError] = useState<string | null>(null);
 
@@ -53,9 +47,9 @@ export function DeleteBoardDialog({
     >
       <p>
         <strong>{board?.name}</strong>
-        {board?.siteName ? ` on ${board.siteName}` : ''} has been issued, so it is kept: it leaves the lists and
-        becomes read-only, and its revisions, schedules, comments, label checks and photos stay readable. An admin can
-        restore it.
+        {board?.siteName ? ` on ${board.siteName}` : ''} has been issued, so it is kept: it leaves the lists and becomes
+        read-only, and its revisions, schedules, comments, label checks and photos stay readable. An admin can restore
+        it.
       </p>
     </ConfirmDialog>
   );

@@ -1,6 +1,6 @@
 import { apiFetch } from '@/lib/api/client';
-import type { AttachmentDto } from '@/lib/dal/attachments';
-import type { WalkData, WalkProgress } from '@/lib/dal/label-walk';
+import type { AttachmentDto } from '@/lib/boards/walk-types';
+import type { WalkData, WalkProgress } from '@/lib/boards/walk-types';
 import type { BoardStatus } from '@/lib/domain';
 
 import type { LabelInput } from '../types/schemas';

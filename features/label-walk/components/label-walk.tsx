@@ -11,7 +11,7 @@ import { LABEL_STATE_LOOKS, LabelStateBadge } from '@/components/ui/label-state-
 import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
 import { labelChangeUnverifies } from '@/lib/boards/record-rules';
-import type { WalkData } from '@/lib/dal/label-walk';
+import type { WalkData } from '@/lib/boards/walk-types';
 import type { LabelStatus } from '@/lib/domain';
 import { LABEL_STATUS_NAMES } from '@/lib/names';
 
@@ -50,13 +50,25 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
       postLabel(boardId, way.id, { status, note, ...(confirm ? { confirmStateChange: true } : {}) }),
     onSuccess: async (result) => {
       // staleTime 0: the cached walk is out of date the moment a result is saved
-      const fresh = await queryClient.fetchQuery({ queryKey: walkKey(boardId), queryFn: () => fetchWalk(boardId), staleTime: 0 });
+      const fresh = await queryClient.fetchQuery({
+        queryKey: walkKey(boardId),
+        queryFn: () => fetchWalk(boardId),
+        staleTime: 0,
+      });
       toast.success(
-        result.boardStatus === 'labels-matched' ? 'Every label matches the schedule: labels matched on site.' : `Saved way ${way.ref ?? way.labelText}.`,
+        result.boardStatus === 'labels-matched'
+          ? 'Every label matches the schedule: labels matched on site.'
+          : `Saved way ${way.ref ?? way.labelText}.`,
         { id: TOAST_ID },
       );
       if (fresh.progress.checked === fresh.progress.total) setSummary(true);
-      else setIndex(nextUnchecked(fresh.ways.map((w) => w.status), index));
+      else
+        setIndex(
+          nextUnchecked(
+            fresh.ways.map((w) => w.status),
+            index,
+          ),
+        );
     },
   });
   // A check that would take a labels-matched board back to issued asks first (lib/boards/record-rules.ts)
@@ -111,7 +123,10 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
       </header>
 
       {data.status === 'labels-matched' ? (
-        <p role="status" className="flex items-center gap-2 rounded-md border border-verdict-pass/40 bg-verdict-pass-bg px-3 py-2 text-sm font-medium text-verdict-pass">
+        <p
+          role="status"
+          className="flex items-center gap-2 rounded-md border border-verdict-pass/40 bg-verdict-pass-bg px-3 py-2 text-sm font-medium text-verdict-pass"
+        >
           <MatchesIcon aria-hidden className="h-5 w-5" /> Every label matches the schedule: labels matched on site.
         </p>
       ) : null}
@@ -119,122 +134,134 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
       {summary ? (
         <WalkSummary data={data} onGoTo={(id) => go(data.ways.findIndex((w) => w.id === id))} />
       ) : (
-      <section aria-labelledby="way-heading" className="space-y-3 rounded-card border border-line bg-paper-raised p-4">
-        <div className="flex items-start justify-between gap-3">
-          <div>
-            <p className="text-xs uppercase tracking-wide text-ink-soft">
-              {index + 1} of {data.ways.length} on the rail
-            </p>
-            <h2 id="way-heading" className="text-3xl font-bold tracking-tight">
-              {way.ref ? `Way ${way.ref}` : way.device}
-            </h2>
-          </div>
-          <LabelStateBadge status={way.status} />
-        </div>
-        <div>
-          <p className="text-xs text-ink-soft">The label should read</p>
-          <p className="text-lg font-semibold leading-snug">{way.labelText}</p>
-          <p className="text-sm text-ink-soft">{way.device}</p>
-        </div>
-        {way.checkedByName && way.checkedAt ? (
-          <p className="text-xs text-ink-soft">
-            Checked by {way.checkedByName}, <When iso={way.checkedAt} />
-          </p>
-        ) : null}
-
-        {canRecord ? (
-          <>
-            <div className="space-y-1">
-              <label htmlFor={noteId} className="text-sm font-medium">
-                Note
-              </label>
-              <textarea
-                id={noteId}
-                value={note}
-                onChange={(e) => setNotes((n) => ({ ...n, [way.id]: e.target.value }))}
-                rows={2}
-                maxLength={500}
-                placeholder="What the label says, or what is wrong"
-                className="w-full rounded-md border border-line-strong bg-paper px-3 py-2 text-base focus:border-copper focus:outline-none"
-              />
-            </div>
-            <div className="grid gap-2">
-              <button
-                type="button"
-                disabled={record.isPending}
-                onClick={() => choose('matches')}
-                className="flex h-16 items-center justify-center gap-2 rounded-lg bg-verdict-pass text-lg font-semibold text-white disabled:opacity-60"
-              >
-                <MatchesIcon aria-hidden className="h-6 w-6" /> Label matches
-              </button>
-              <div className="grid grid-cols-2 gap-2">
-                <button
-                  type="button"
-                  disabled={record.isPending}
-                  onClick={() => choose('wrong')}
-                  className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
-                >
-                  <WrongIcon aria-hidden className="h-5 w-5" /> Label is wrong
-                </button>
-                <button
-                  type="button"
-                  disabled={record.isPending}
-                  onClick={() => choose('missing')}
-                  className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
-                >
-                  <MissingIcon aria-hidden className="h-5 w-5" /> Label is missing
-                </button>
-              </div>
-            </div>
-            {record.isPending ? <p className="text-sm text-ink-soft">Saving…</p> : null}
-            {record.isError ? <FormAlert>{errorMessage(record.error)}</FormAlert> : null}
-          </>
-        ) : (
-          <p className="text-sm text-ink-soft">Your role can follow the walk but not record it.</p>
-        )}
-
-        <div className="space-y-2">
-          <h3 className="text-sm font-medium">Photos of this way</h3>
-          {way.photos.length ? (
-            <ul className="grid grid-cols-3 gap-2">
-              {way.photos.map((p) => (
-                <li key={p.id}>
-                  <a href={p.url} target="_blank" rel="noreferrer" className="block overflow-hidden rounded-md border border-line">
-                    {/* eslint-disable-next-line @next/next/no-img-element -- served by our own authenticated route */}
-                    <img src={p.thumbUrl} alt={`Photo of way ${way.ref ?? way.labelText}: ${p.fileName}`} className="aspect-square w-full object-cover" />
-                  </a>
-                </li>
-              ))}
-            </ul>
-          ) : (
-            <p className="text-sm text-ink-faint">No photos yet.</p>
-          )}
-          {canRecord ? (
+        <section
+          aria-labelledby="way-heading"
+          className="space-y-3 rounded-card border border-line bg-paper-raised p-4"
+        >
+          <div className="flex items-start justify-between gap-3">
             <div>
-              <label
-                htmlFor={fileId}
-                className="flex h-12 cursor-pointer items-center justify-center gap-2 rounded-lg border border-line-strong bg-paper text-base font-medium"
-              >
-                <Camera aria-hidden className="h-5 w-5" /> {photo.isPending ? 'Uploading…' : 'Add a photo'}
-              </label>
-              <input
-                ref={fileInput}
-                id={fileId}
-                type="file"
-                accept="image/*"
-                capture="environment"
-                className="sr-only"
-                disabled={photo.isPending}
-                onChange={(e) => {
-                  const file = e.target.files?.[0];
-                  if (file) photo.mutate(file);
-                }}
-              />
-              {photo.isError ? <FormAlert className="mt-2">{errorMessage(photo.error)}</FormAlert> : null}
+              <p className="text-xs uppercase tracking-wide text-ink-soft">
+                {index + 1} of {data.ways.length} on the rail
+              </p>
+              <h2 id="way-heading" className="text-3xl font-bold tracking-tight">
+                {way.ref ? `Way ${way.ref}` : way.device}
+              </h2>
             </div>
+            <LabelStateBadge status={way.status} />
+          </div>
+          <div>
+            <p className="text-xs text-ink-soft">The label should read</p>
+            <p className="text-lg font-semibold leading-snug">{way.labelText}</p>
+            <p className="text-sm text-ink-soft">{way.device}</p>
+          </div>
+          {way.checkedByName && way.checkedAt ? (
+            <p className="text-xs text-ink-soft">
+              Checked by {way.checkedByName}, <When iso={way.checkedAt} />
+            </p>
           ) : null}
-        </div>
-      </section>
+
+          {canRecord ? (
+            <>
+              <div className="space-y-1">
+                <label htmlFor={noteId} className="text-sm font-medium">
+                  Note
+                </label>
+                <textarea
+                  id={noteId}
+                  value={note}
+                  onChange={(e) => setNotes((n) => ({ ...n, [way.id]: e.target.value }))}
+                  rows={2}
+                  maxLength={500}
+                  placeholder="What the label says, or what is wrong"
+                  className="w-full rounded-md border border-line-strong bg-paper px-3 py-2 text-base focus:border-copper focus:outline-none"
+                />
+              </div>
+              <div className="grid gap-2">
+                <button
+                  type="button"
+                  disabled={record.isPending}
+                  onClick={() => choose('matches')}
+                  className="flex h-16 items-center justify-center gap-2 rounded-lg bg-verdict-pass text-lg font-semibold text-white disabled:opacity-60"
+                >
+                  <MatchesIcon aria-hidden className="h-6 w-6" /> Label matches
+                </button>
+                <div className="grid grid-cols-2 gap-2">
+                  <button
+                    type="button"
+                    disabled={record.isPending}
+                    onClick={() => choose('wrong')}
+                    className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
+                  >
+                    <WrongIcon aria-hidden className="h-5 w-5" /> Label is wrong
+                  </button>
+                  <button
+                    type="button"
+                    disabled={record.isPending}
+                    onClick={() => choose('missing')}
+                    className="flex h-16 items-center justify-center gap-1.5 rounded-lg border-2 border-verdict-fail bg-verdict-fail-bg px-2 text-sm font-semibold text-verdict-fail disabled:opacity-60"
+                  >
+                    <MissingIcon aria-hidden className="h-5 w-5" /> Label is missing
+                  </button>
+                </div>
+              </div>
+              {record.isPending ? <p className="text-sm text-ink-soft">Saving…</p> : null}
+              {record.isError ? <FormAlert>{errorMessage(record.error)}</FormAlert> : null}
+            </>
+          ) : (
+            <p className="text-sm text-ink-soft">Your role can follow the walk but not record it.</p>
+          )}
+
+          <div className="space-y-2">
+            <h3 className="text-sm font-medium">Photos of this way</h3>
+            {way.photos.length ? (
+              <ul className="grid grid-cols-3 gap-2">
+                {way.photos.map((p) => (
+                  <li key={p.id}>
+                    <a
+                      href={p.url}
+                      target="_blank"
+                      rel="noreferrer"
+                      className="block overflow-hidden rounded-md border border-line"
+                    >
+                      {/* eslint-disable-next-line @next/next/no-img-element -- served by our own authenticated route */}
+                      <img
+                        src={p.thumbUrl}
+                        alt={`Photo of way ${way.ref ?? way.labelText}: ${p.fileName}`}
+                        className="aspect-square w-full object-cover"
+                      />
+                    </a>
+                  </li>
+                ))}
+              </ul>
+            ) : (
+              <p className="text-sm text-ink-faint">No photos yet.</p>
+            )}
+            {canRecord ? (
+              <div>
+                <label
+                  htmlFor={fileId}
+                  className="flex h-12 cursor-pointer items-center justify-center gap-2 rounded-lg border border-line-strong bg-paper text-base font-medium"
+                >
+                  <Camera aria-hidden className="h-5 w-5" /> {photo.isPending ? 'Uploading…' : 'Add a photo'}
+                </label>
+                <input
+                  ref={fileInput}
+                  id={fileId}
+                  type="file"
+                  accept="image/*"
+                  capture="environment"
+                  className="sr-only"
+                  disabled={photo.isPending}
+                  onChange={(e) => {
+                    const file = e.target.files?.[0];
+                    if (file) photo.mutate(file);
+                  }}
+                />
+                {photo.isError ? <FormAlert className="mt-2">{errorMessage(photo.error)}</FormAlert> : null}
+              </div>
+            ) : null}
+          </div>
+        </section>
       )}
 
       <nav aria-label="Ways" className="space-y-2">
@@ -266,7 +293,8 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
             disabled={summary}
             className="flex h-12 items-center justify-center gap-1 rounded-lg border border-line-strong bg-paper-raised font-medium disabled:opacity-40"
           >
-            {index >= data.ways.length - 1 && !summary ? 'Summary' : 'Next'} <ChevronRight aria-hidden className="h-5 w-5" />
+            {index >= data.ways.length - 1 && !summary ? 'Summary' : 'Next'}{' '}
+            <ChevronRight aria-hidden className="h-5 w-5" />
           </button>
         </div>
         {summary ? null : (

@@ -21,10 +21,9 @@ export function StateChangeDialog({ status, wayName, revision, onConfirm, onClos
     <Dialog open={status !== null} onClose={onClose} title="This changes the board’s state">
       <div className="space-y-2 text-sm leading-relaxed text-ink">
         <p>
-          Every label on this board was confirmed, so revision {revision} stands as labels matched on site. Recording the
-          label of {wayName} as{' '}
-          <strong>{status === 'missing' ? 'missing' : 'wrong'}</strong> takes the board back to issued until the label is
-          put right and checked again.
+          Every label on this board was confirmed, so revision {revision} stands as labels matched on site. Recording
+          the label of {wayName} as <strong>{status === 'missing' ? 'missing' : 'wrong'}</strong> takes the board back
+          to issued until the label is put right and checked again.
         </p>
         <p>The designer sees the label problem on the board page.</p>
       </div>

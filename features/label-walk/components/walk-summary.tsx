@@ -1,5 +1,5 @@
 import { LABEL_STATE_LOOKS, LabelStateBadge } from '@/components/ui/label-state-badge';
-import type { WalkData } from '@/lib/dal/label-walk';
+import type { WalkData } from '@/lib/boards/walk-types';
 import type { LabelStatus } from '@/lib/domain';
 
 const COUNTED: { status: LabelStatus; words: string }[] = [
@@ -98,9 +98,18 @@ export function WalkSummary({ data, onGoTo }: { data: WalkData; onGoTo: (wayId: 
           <ul className="grid grid-cols-3 gap-2">
             {photos.map((p) => (
               <li key={p.id}>
-                <a href={p.url} target="_blank" rel="noreferrer" className="block overflow-hidden rounded-md border border-line">
+                <a
+                  href={p.url}
+                  target="_blank"
+                  rel="noreferrer"
+                  className="block overflow-hidden rounded-md border border-line"
+                >
                   {/* eslint-disable-next-line @next/next/no-img-element -- served by our own authenticated route */}
-                  <img src={p.thumbUrl} alt={`Photo of ${p.of}: ${p.fileName}`} className="aspect-square w-full object-cover" />
+                  <img
+                    src={p.thumbUrl}
+                    alt={`Photo of ${p.of}: ${p.fileName}`}
+                    className="aspect-square w-full object-cover"
+                  />
                 </a>
               </li>
             ))}

@@ -37,9 +37,7 @@ export function CaughtMailList({ messages }: { messages: CaughtMessage[] }) {
             <details className="mt-2 group">
               <summary className="cursor-pointer list-none text-sm whitespace-pre-wrap text-ink group-open:hidden">
                 {preview || '(empty body)'}
-                {long ? (
-                  <span className="ml-1 text-copper-dark underline underline-offset-4">Show all</span>
-                ) : null}
+                {long ? <span className="ml-1 text-copper-dark underline underline-offset-4">Show all</span> : null}
               </summary>
               <pre className="font-sans text-sm whitespace-pre-wrap break-words text-ink">{m.text}</pre>
             </details>

@@ -24,11 +24,7 @@ export function MailboxView() {
         title="Development outbox"
         description={DESCRIPTION}
         actions={
-          <Button
-            variant="secondary"
-            onClick={() => void mailbox.refetch()}
-            disabled={mailbox.isFetching}
-          >
+          <Button variant="secondary" onClick={() => void mailbox.refetch()} disabled={mailbox.isFetching}>
             <RefreshCw aria-hidden className={cn('h-4 w-4', mailbox.isFetching && 'animate-spin')} />
             Refresh
           </Button>
@@ -64,8 +60,8 @@ export function MailboxView() {
               <CaughtMailList messages={mailbox.data.caught} />
             ) : (
               <p className="text-sm text-ink-soft">
-                No mail catcher is configured (MAIL_CATCHER_URL), or it did not answer. Messages
-                still leave through the configured SMTP server.
+                No mail catcher is configured (MAIL_CATCHER_URL), or it did not answer. Messages still leave through the
+                configured SMTP server.
               </p>
             )}
           </section>

@@ -5,8 +5,7 @@ import { cn } from '@/lib/cn';
 
 import type { OutboxRow } from '../types/mailbox';
 
-const th =
-  'h-11 px-4 text-left text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase';
+const th = 'h-11 px-4 text-left text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase';
 const td = 'px-4 py-3 align-top text-sm text-ink';
 
 const statusLook = {
@@ -26,12 +25,24 @@ export function OutboxTable({ rows }: { rows: OutboxRow[] }) {
         <caption className="sr-only">Outbox</caption>
         <thead className="bg-paper-sunk/60">
           <tr className="border-b border-line">
-            <th scope="col" className={th}>Queued</th>
-            <th scope="col" className={th}>To</th>
-            <th scope="col" className={th}>Subject</th>
-            <th scope="col" className={th}>Status</th>
-            <th scope="col" className={cn(th, 'text-right')}>Attempts</th>
-            <th scope="col" className={th}>Last error</th>
+            <th scope="col" className={th}>
+              Queued
+            </th>
+            <th scope="col" className={th}>
+              To
+            </th>
+            <th scope="col" className={th}>
+              Subject
+            </th>
+            <th scope="col" className={th}>
+              Status
+            </th>
+            <th scope="col" className={cn(th, 'text-right')}>
+              Attempts
+            </th>
+            <th scope="col" className={th}>
+              Last error
+            </th>
           </tr>
         </thead>
         <tbody>

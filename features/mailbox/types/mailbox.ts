@@ -21,9 +21,7 @@ export const caughtMessageSchema = z.object({
   to: z.array(z.string()).default([]),
   subject: z.string().default(''),
   text: z.string().default(''),
-  attachments: z
-    .array(z.object({ filename: z.string(), contentType: z.string(), size: z.number() }))
-    .default([]),
+  attachments: z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number() })).default([]),
 });
 export type CaughtMessage = z.infer<typeof caughtMessageSchema>;
 

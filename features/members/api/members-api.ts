@@ -1,5 +1,5 @@
 import { apiFetch } from '@/lib/api/client';
-import type { Member } from '@/lib/dal/members';
+import type { Member } from '@/lib/members/types';
 import type { InviteInput, MemberUpdate } from '@/lib/members/schemas';
 
 /** Cache keys for the member list. */
@@ -33,10 +33,7 @@ export async function patchMember(userId: string, input: MemberUpdate): Promise<
 }
 
 /** POST /api/invitations/accept: public; the token is the credential. */
-export async function acceptInvitation(
-  token: string,
-  password: string,
-): Promise<{ email: string }> {
+export async function acceptInvitation(token: string, password: string): Promise<{ email: string }> {
   return apiFetch<{ email: string }>('/api/invitations/accept', {
     method: 'POST',
     body: { token, password },

@@ -24,8 +24,7 @@ export function useInviteMember() {
 export function useUpdateMember() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ userId, input }: { userId: string; input: MemberUpdate }) =>
-      patchMember(userId, input),
+    mutationFn: ({ userId, input }: { userId: string; input: MemberUpdate }) => patchMember(userId, input),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: memberKeys.all }),
   });
 }

@@ -47,8 +47,7 @@ export function InviteForm() {
         Invite someone
       </h2>
       <p className="mt-1 mb-4 text-sm text-ink-soft">
-        They get an e-mail with a link to choose a password. The link works once and expires after
-        seven days.
+        They get an e-mail with a link to choose a password. The link works once and expires after seven days.
       </p>
       <div className="grid gap-4 md:grid-cols-[1fr_1fr_12rem_auto] md:items-start">
         <Field label="E-mail" error={errors.email?.message}>
@@ -74,18 +73,9 @@ export function InviteForm() {
             />
           )}
         </Field>
-        <Field
-          label="Role"
-          error={errors.role?.message}
-          hint={ROLE_CHOICES.find((r) => r.value === role)?.does}
-        >
+        <Field label="Role" error={errors.role?.message} hint={ROLE_CHOICES.find((r) => r.value === role)?.does}>
           {(id, d) => (
-            <Select
-              id={id}
-              aria-describedby={d}
-              aria-invalid={errors.role ? true : undefined}
-              {...register('role')}
-            >
+            <Select id={id} aria-describedby={d} aria-invalid={errors.role ? true : undefined} {...register('role')}>
               {ROLE_CHOICES.map((r) => (
                 <option key={r.value} value={r.value}>
                   {r.label}

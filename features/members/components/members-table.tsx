@@ -10,14 +10,13 @@ import { Select } from '@/components/ui/field';
 import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
 import { cn } from '@/lib/cn';
-import type { Member } from '@/lib/dal/members';
+import type { Member } from '@/lib/members/types';
 import type { Role } from '@/lib/domain';
 
 import { useUpdateMember } from '../api/use-members';
 import { ROLE_CHOICES, roleLabel } from '../utils/roles';
 
-const th =
-  'h-11 px-4 text-left text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase';
+const th = 'h-11 px-4 text-left text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase';
 const td = 'h-14 px-4 align-middle text-sm text-ink';
 
 type MembersTableProps = {
@@ -70,11 +69,21 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
           <caption className="sr-only">Members</caption>
           <thead className="bg-paper-sunk/60">
             <tr className="border-b border-line">
-              <th scope="col" className={th}>Name</th>
-              <th scope="col" className={th}>E-mail</th>
-              <th scope="col" className={th}>Role</th>
-              <th scope="col" className={th}>Access</th>
-              <th scope="col" className={th}>Member since</th>
+              <th scope="col" className={th}>
+                Name
+              </th>
+              <th scope="col" className={th}>
+                E-mail
+              </th>
+              <th scope="col" className={th}>
+                Role
+              </th>
+              <th scope="col" className={th}>
+                Access
+              </th>
+              <th scope="col" className={th}>
+                Member since
+              </th>
               <th scope="col" className={cn(th, 'text-right')}>
                 <span className="sr-only">Actions</span>
               </th>
@@ -91,9 +100,7 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
                 >
                   <td className={cn(td, 'font-medium')}>
                     {member.name}
-                    {self ? (
-                      <span className="ml-2 text-xs font-normal text-ink-faint">(you)</span>
-                    ) : null}
+                    {self ? <span className="ml-2 text-xs font-normal text-ink-faint">(you)</span> : null}
                   </td>
                   <td className={cn(td, 'text-ink-soft')}>{member.email}</td>
                   <td className={td}>
@@ -172,8 +179,8 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
         }}
       >
         <p>
-          <strong>{deactivating?.name}</strong> will be signed out on their next request and cannot
-          sign in until reactivated. Their boards, reviews and records stay.
+          <strong>{deactivating?.name}</strong> will be signed out on their next request and cannot sign in until
+          reactivated. Their boards, reviews and records stay.
         </p>
       </ConfirmDialog>
     </>
@@ -188,10 +195,18 @@ export function PendingInvitations({ invitations }: { invitations: Member[] }) {
         <caption className="sr-only">Invitations waiting to be accepted</caption>
         <thead className="bg-paper-sunk/60">
           <tr className="border-b border-line">
-            <th scope="col" className={th}>Name</th>
-            <th scope="col" className={th}>E-mail</th>
-            <th scope="col" className={th}>Role</th>
-            <th scope="col" className={th}>Invited</th>
+            <th scope="col" className={th}>
+              Name
+            </th>
+            <th scope="col" className={th}>
+              E-mail
+            </th>
+            <th scope="col" className={th}>
+              Role
+            </th>
+            <th scope="col" className={th}>
+              Invited
+            </th>
           </tr>
         </thead>
         <tbody>

@@ -15,10 +15,7 @@ export function MembersView({ currentUserId }: { currentUserId: string }) {
 
   return (
     <>
-      <PageHeader
-        title="Members"
-        description="Who can sign in to the organisation, and what each role may do."
-      />
+      <PageHeader title="Members" description="Who can sign in to the organisation, and what each role may do." />
       <div className="flex flex-col gap-8">
         <InviteForm />
         {members.isError ? (
@@ -42,8 +39,7 @@ export function MembersView({ currentUserId }: { currentUserId: string }) {
             </section>
             <section aria-labelledby="invitations-heading" className="flex flex-col gap-3">
               <h2 id="invitations-heading" className="text-lg font-semibold text-ink">
-                Waiting for sign-up{' '}
-                <span className="text-sm font-normal text-ink-soft">({invitations.length})</span>
+                Waiting for sign-up <span className="text-sm font-normal text-ink-soft">({invitations.length})</span>
               </h2>
               {invitations.length ? (
                 <PendingInvitations invitations={invitations} />

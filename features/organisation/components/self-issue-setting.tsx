@@ -16,7 +16,10 @@ export function SelfIssueSetting({ initial }: { initial: OrganisationSettings })
   const [allowed, setAllowed] = useState(initial.allowSelfIssue);
   const change = useMutation({
     mutationFn: (allowSelfIssue: boolean) =>
-      apiFetch<{ organisation: OrganisationSettings }>('/api/organisation', { method: 'PATCH', body: { allowSelfIssue } }),
+      apiFetch<{ organisation: OrganisationSettings }>('/api/organisation', {
+        method: 'PATCH',
+        body: { allowSelfIssue },
+      }),
     onSuccess: ({ organisation }) => {
       setAllowed(organisation.allowSelfIssue);
       toast.success(

@@ -9,8 +9,6 @@ import type { CircuitInput, CircuitResult } from '@/lib/sizing';
 export function useSizeCircuit() {
   return useMutation({
     mutationFn: (input: CircuitInput) =>
-      apiFetch<{ result: CircuitResult }>('/api/sizing', { method: 'POST', body: input }).then(
-        (r) => r.result,
-      ),
+      apiFetch<{ result: CircuitResult }>('/api/sizing', { method: 'POST', body: input }).then((r) => r.result),
   });
 }

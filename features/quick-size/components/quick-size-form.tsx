@@ -52,8 +52,7 @@ const emptyIsUndefined = {
 } as const;
 /** Selects whose empty choice means "let the engine choose" (null). */
 const nullableNumber = {
-  setValueAs: (v: unknown) =>
-    v === '' || v === null || v === undefined || v === 'null' ? null : Number(v),
+  setValueAs: (v: unknown) => (v === '' || v === null || v === undefined || v === 'null' ? null : Number(v)),
 } as const;
 
 function err(errors: FieldErrors<FormIn>, path: string): string | undefined {

@@ -1,7 +1,7 @@
 import { apiFetch } from '@/lib/api/client';
 import type { RevisionDiff } from '@/lib/boards/revision-diff';
-import type { CommentDto } from '@/lib/dal/comments';
-import type { RevisionSummary } from '@/lib/dal/revisions';
+import type { CommentDto } from '@/lib/boards/review-types';
+import type { RevisionSummary } from '@/lib/boards/review-types';
 import type { BoardStatus } from '@/lib/domain';
 
 import type { ApproveInput, CommentInput, ReturnInput } from '../types/schemas';

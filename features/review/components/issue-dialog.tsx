@@ -10,7 +10,7 @@ import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { FormAlert } from '@/components/ui/form-alert';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import type { BoardDto } from '@/lib/boards/types';
-import type { IssuePreview } from '@/lib/dal/issue-and-return';
+import type { IssuePreview } from '@/lib/boards/review-types';
 import { plural } from '@/lib/names';
 
 import { postApprove } from '../api/review-api';
@@ -59,9 +59,7 @@ export function IssueDialog({ open, onClose, board, issue }: Props) {
         <dt className="text-ink-soft">Issued as</dt>
         <dd className="font-medium text-ink">revision {issue.revision}</dd>
         <dt className="text-ink-soft">Ways</dt>
-        <dd className="text-ink">
-          {issue.ways}
-        </dd>
+        <dd className="text-ink">{issue.ways}</dd>
         <dt className="text-ink-soft">Verdicts</dt>
         <dd className="text-ink">
           {passes} pass · {nearLimit} near the limit · {fails} fail
@@ -69,13 +67,18 @@ export function IssueDialog({ open, onClose, board, issue }: Props) {
       </dl>
       {fails > 0 ? (
         <label className="mt-3 flex items-start gap-2 rounded-md border border-verdict-fail/30 bg-verdict-fail-bg px-3 py-2 text-sm text-ink">
-          <input type="checkbox" checked={acknowledge} onChange={(e) => setAcknowledge(e.target.checked)} className="mt-1" />
+          <input
+            type="checkbox"
+            checked={acknowledge}
+            onChange={(e) => setAcknowledge(e.target.checked)}
+            className="mt-1"
+          />
           {plural(fails, 'way fails', 'ways fail')} a check. I issue the board as it is.
         </label>
       ) : null}
       <p className="mt-4 text-sm leading-relaxed text-ink">
-        By typing your name you declare that you have reviewed this design and issue it as revision {issue.revision}. Your
-        name is recorded with the revision and in the audit trail.
+        By typing your name you declare that you have reviewed this design and issue it as revision {issue.revision}.
+        Your name is recorded with the revision and in the audit trail.
       </p>
       <label className="mt-2 block text-sm font-medium text-ink">
         Your full name

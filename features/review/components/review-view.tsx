@@ -19,8 +19,8 @@ import { When } from '@/components/ui/when';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import { allows } from '@/lib/boards/lifecycle';
 import { deviceName, loadTypeName } from '@/lib/names';
-import type { CommentDto } from '@/lib/dal/comments';
-import type { ReviewData } from '@/lib/dal/review-page';
+import type { CommentDto } from '@/lib/boards/review-types';
+import type { ReviewData } from '@/lib/boards/review-types';
 import type { CircuitResult } from '@/lib/sizing';
 
 import { postComment, postReturn } from '../api/review-api';
@@ -98,7 +98,15 @@ function Checks({ result }: { result: CircuitResult }) {
 }
 
 /** The inspector's review of a board: every way with its sizing and comments, and the decision. */
-export function ReviewView({ data, canReview, canComment }: { data: ReviewData; canReview: boolean; canComment: boolean }) {
+export function ReviewView({
+  data,
+  canReview,
+  canComment,
+}: {
+  data: ReviewData;
+  canReview: boolean;
+  canComment: boolean;
+}) {
   const router = useRouter();
   const { board, sizing } = data;
   const [open, setOpen] = useState<string | null>(null);
@@ -119,22 +127,31 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
       router.refresh();
     },
   });
-  const returnIssue = giveBack.error instanceof ApiError ? giveBack.error.issues.find((i) => i.path === 'comment') : undefined;
+  const returnIssue =
+    giveBack.error instanceof ApiError ? giveBack.error.issues.find((i) => i.path === 'comment') : undefined;
 
   return (
     <div className="space-y-6">
       <PageHeader
-        eyebrow={<Link href={`/boards/${board.id}`} className="hover:text-ink">← {board.name}</Link>}
+        eyebrow={
+          <Link href={`/boards/${board.id}`} className="hover:text-ink">
+            ← {board.name}
+          </Link>
+        }
         title={`Review: ${board.name}`}
         description={
           <span className="inline-flex flex-wrap items-center gap-2">
             {board.siteName}
-            {board.location ? ` · ${board.location}` : ''} · revision {board.revision} <StatusBadge status={board.status} />
+            {board.location ? ` · ${board.location}` : ''} · revision {board.revision}{' '}
+            <StatusBadge status={board.status} />
           </span>
         }
         actions={
           <>
-            <Link href={`/boards/${board.id}/schedule`} className="text-sm font-medium text-copper-dark underline-offset-2 hover:underline">
+            <Link
+              href={`/boards/${board.id}/schedule`}
+              className="text-sm font-medium text-copper-dark underline-offset-2 hover:underline"
+            >
               Schedule
             </Link>
             {canReview && inReview ? (
@@ -194,7 +211,9 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
           <p>
             {board.supply.earthing} · Uo {board.supply.uoV} V · Ze {board.supply.zeOhm} Ω · PFC {board.supply.pfcKa} kA
           </p>
-          <p>{board.phases === 3 ? 'Three-phase' : 'Single-phase'}, {board.supply.source} supply</p>
+          <p>
+            {board.phases === 3 ? 'Three-phase' : 'Single-phase'}, {board.supply.source} supply
+          </p>
         </div>
         <div>
           <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Incoming</h2>
@@ -217,12 +236,17 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
               {sizing.summary.counts.spare} spare
             </p>
           ) : (
-            <p className="text-verdict-fail">Not sized: {data.sizingIssues.map((i) => `${i.path}: ${i.message}`).join('; ')}</p>
+            <p className="text-verdict-fail">
+              Not sized: {data.sizingIssues.map((i) => `${i.path}: ${i.message}`).join('; ')}
+            </p>
           )}
         </div>
       </section>
 
-      <section aria-labelledby="ways-heading" className="overflow-x-auto rounded-card border border-line bg-paper-raised">
+      <section
+        aria-labelledby="ways-heading"
+        className="overflow-x-auto rounded-card border border-line bg-paper-raised"
+      >
         <h2 id="ways-heading" className="sr-only">
           Ways
         </h2>
@@ -264,7 +288,15 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                     <td className="px-3 py-2 text-right tabular-nums">
                       {r ? `${fmt(r.zsOhm, 2)} (${fmt(r.zsMaxOhm, 2)})` : '—'}
                     </td>
-                    <td className="px-3 py-2">{way.circuit ? r?.verdict ? <VerdictBadge verdict={r.verdict} /> : <span className="text-xs text-ink-soft">Not sized</span> : null}</td>
+                    <td className="px-3 py-2">
+                      {way.circuit ? (
+                        r?.verdict ? (
+                          <VerdictBadge verdict={r.verdict} />
+                        ) : (
+                          <span className="text-xs text-ink-soft">Not sized</span>
+                        )
+                      ) : null}
+                    </td>
                     <td className="px-3 py-2">
                       <button
                         type="button"
@@ -272,7 +304,11 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                         onClick={() => setOpen(expanded ? null : way.id)}
                         className="inline-flex items-center gap-1 rounded px-1.5 py-0.5 text-ink-soft hover:bg-paper-sunk hover:text-ink"
                       >
-                        {expanded ? <ChevronDown aria-hidden className="h-4 w-4" /> : <ChevronRight aria-hidden className="h-4 w-4" />}
+                        {expanded ? (
+                          <ChevronDown aria-hidden className="h-4 w-4" />
+                        ) : (
+                          <ChevronRight aria-hidden className="h-4 w-4" />
+                        )}
                         <MessageSquare aria-hidden className="h-3.5 w-3.5" /> {comments.length}
                         <span className="sr-only">comments on way {data.refs[way.id] ?? ''}</span>
                       </button>
@@ -282,11 +318,17 @@ export function ReviewView({ data, canReview, canComment }: { data: ReviewData; 
                     <tr className="bg-paper">
                       <td colSpan={10} className="px-3 py-3">
                         <div className="grid gap-4 md:grid-cols-2">
-                          <div>{r ? <Checks result={r} /> : <p className="text-sm text-ink-faint">No circuit to check.</p>}</div>
+                          <div>
+                            {r ? <Checks result={r} /> : <p className="text-sm text-ink-faint">No circuit to check.</p>}
+                          </div>
                           <div className="space-y-3">
                             <CommentThread comments={comments} />
                             {canComment ? (
-                              <CommentForm boardId={board.id} wayId={way.id} label={`Comment on way ${data.refs[way.id] ?? ''}`} />
+                              <CommentForm
+                                boardId={board.id}
+                                wayId={way.id}
+                                label={`Comment on way ${data.refs[way.id] ?? ''}`}
+                              />
                             ) : null}
                           </div>
                         </div>

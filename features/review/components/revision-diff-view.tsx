@@ -40,12 +40,16 @@ export function RevisionDiffView({ diff }: { diff: RevisionDiff }) {
       </Section>
       <Section title="Ways added" count={diff.added.length}>
         {diff.added.map((w) => (
-          <li key={w.id}>{wayName(w)} <span className="text-ink-soft">({w.device})</span></li>
+          <li key={w.id}>
+            {wayName(w)} <span className="text-ink-soft">({w.device})</span>
+          </li>
         ))}
       </Section>
       <Section title="Ways removed" count={diff.removed.length}>
         {diff.removed.map((w) => (
-          <li key={w.id}>{wayName(w)} <span className="text-ink-soft">({w.device})</span></li>
+          <li key={w.id}>
+            {wayName(w)} <span className="text-ink-soft">({w.device})</span>
+          </li>
         ))}
       </Section>
       <Section title="Ways moved" count={diff.moved.length}>

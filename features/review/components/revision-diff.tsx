@@ -23,7 +23,9 @@ export function RevisionDiff({ boardId }: { boardId: string }) {
   const issued = list.data?.revisions ?? [];
   const liveIsIssued = issued.some((r) => r.revision === list.data?.current.revision);
   const options = [
-    ...(liveIsIssued ? [] : [{ value: 'current', label: `Revision ${list.data?.current.revision ?? ''} (live draft)` }]),
+    ...(liveIsIssued
+      ? []
+      : [{ value: 'current', label: `Revision ${list.data?.current.revision ?? ''} (live draft)` }]),
     ...issued.map((r) => ({ value: String(r.revision), label: `Revision ${r.revision} (issued)` })),
   ];
   const to = picked.to ?? options[0]?.value;
@@ -68,7 +70,11 @@ export function RevisionDiff({ boardId }: { boardId: string }) {
         </div>
       </div>
       {diff.isError ? <ErrorState message={errorMessage(diff.error)} onRetry={() => diff.refetch()} /> : null}
-      {diff.data ? <RevisionDiffView diff={diff.data} /> : diff.isFetching ? <p className="text-sm text-ink-soft">Comparing…</p> : null}
+      {diff.data ? (
+        <RevisionDiffView diff={diff.data} />
+      ) : diff.isFetching ? (
+        <p className="text-sm text-ink-soft">Comparing…</p>
+      ) : null}
     </div>
   );
 }

@@ -1,5 +1,5 @@
 import { apiFetch } from '@/lib/api/client';
-import type { ScheduleMail } from '@/lib/dal/schedule-mail';
+import type { ScheduleMail } from '@/lib/boards/review-types';
 
 import type { ScheduleEmailInput } from '../types/schemas';
 

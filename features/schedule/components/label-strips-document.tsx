@@ -46,15 +46,19 @@ const styles = StyleSheet.create({
 /** Way labels drawn to the module pitch, strip by strip in rail order, with cut lines. */
 export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
   return (
-    <Document title={`Labels: ${sheet.boardName}, revision ${sheet.revision}`} creator="Boardwright" producer="Boardwright">
+    <Document
+      title={`Labels: ${sheet.boardName}, revision ${sheet.revision}`}
+      creator="Boardwright"
+      producer="Boardwright"
+    >
       <Page size="A4" orientation="landscape" style={styles.page}>
         <Text style={styles.title}>Way labels: {sheet.boardName}</Text>
         <Text style={styles.meta}>
           {sheet.siteName} · revision {sheet.revision} · {MODULE_PITCH_MM} mm per module · cut along the dashed lines
         </Text>
         <Text style={styles.meta}>
-          Each rail is one strip. A rail too long for the page is printed in pieces that meet at a marked join: cut
-          off the shaded join marks along the solid line and butt the two ends together, J1 to J1.
+          Each rail is one strip. A rail too long for the page is printed in pieces that meet at a marked join: cut off
+          the shaded join marks along the solid line and butt the two ends together, J1 to J1.
         </Text>
         {sheet.draft ? <Text style={styles.draft}>Draft, not issued: do not fit these labels.</Text> : null}
         <View style={styles.scale}>

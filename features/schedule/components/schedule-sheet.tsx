@@ -45,7 +45,11 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
           <thead className="bg-ink text-white">
             <tr>
               {data.columns.map((c) => (
-                <th key={c.key} scope="col" className={cn('px-2 py-1.5 align-bottom font-semibold', c.align === 'right' && 'text-right')}>
+                <th
+                  key={c.key}
+                  scope="col"
+                  className={cn('px-2 py-1.5 align-bottom font-semibold', c.align === 'right' && 'text-right')}
+                >
                   {c.heading}
                 </th>
               ))}
@@ -54,7 +58,11 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
           {data.groups.map((group, g) => (
             <tbody key={g} className="break-inside-avoid-page">
               <tr>
-                <th colSpan={data.columns.length} scope="colgroup" className="bg-copper-light px-2 py-1 text-left font-semibold text-copper-dark">
+                <th
+                  colSpan={data.columns.length}
+                  scope="colgroup"
+                  className="bg-copper-light px-2 py-1 text-left font-semibold text-copper-dark"
+                >
                   {group.heading}
                 </th>
               </tr>
@@ -68,7 +76,9 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
                         c.align === 'right' && 'whitespace-nowrap text-right tabular-nums',
                         c.key === 'way' && 'font-bold text-ink',
                         c.key === 'result' && row.verdict && cn('font-semibold', TONES[row.verdict]),
-                        c.key === 'label' && (row.label === 'wrong' || row.label === 'missing') && 'font-semibold text-verdict-fail',
+                        c.key === 'label' &&
+                          (row.label === 'wrong' || row.label === 'missing') &&
+                          'font-semibold text-verdict-fail',
                       )}
                     >
                       {row.cells[c.key]}

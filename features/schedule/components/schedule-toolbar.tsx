@@ -30,10 +30,18 @@ export function ScheduleToolbar({ boardId, revision, choices }: Props) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const query = `?revision=${revision}`;
-  const mails = useQuery({ queryKey: scheduleMailsKey(boardId), queryFn: () => fetchScheduleMails(boardId), refetchInterval: 5_000 });
-  const form = useForm<ScheduleEmailInput>({ resolver: zodResolver(scheduleEmailSchema), defaultValues: { to: '', message: '' } });
+  const mails = useQuery({
+    queryKey: scheduleMailsKey(boardId),
+    queryFn: () => fetchScheduleMails(boardId),
+    refetchInterval: 5_000,
+  });
+  const form = useForm<ScheduleEmailInput>({
+    resolver: zodResolver(scheduleEmailSchema),
+    defaultValues: { to: '', message: '' },
+  });
   const send = useMutation({
-    mutationFn: (input: ScheduleEmailInput) => postScheduleEmail(boardId, { ...input, revision, message: input.message || undefined }),
+    mutationFn: (input: ScheduleEmailInput) =>
+      postScheduleEmail(boardId, { ...input, revision, message: input.message || undefined }),
     onSuccess: (r) => {
       toast.success(`Schedule queued for ${r.mail.to}.`);
       form.reset({ to: '', message: '' });
@@ -47,10 +55,16 @@ export function ScheduleToolbar({ boardId, revision, choices }: Props) {
         <Button onClick={() => window.print()}>
           <Printer aria-hidden className="h-4 w-4" /> Print
         </Button>
-        <a href={`${base}/schedule${query}&download=1`} className="inline-flex h-10 items-center gap-1.5 rounded-md border border-line-strong bg-paper-raised px-4 text-sm font-medium hover:bg-paper-sunk">
+        <a
+          href={`${base}/schedule${query}&download=1`}
+          className="inline-flex h-10 items-center gap-1.5 rounded-md border border-line-strong bg-paper-raised px-4 text-sm font-medium hover:bg-paper-sunk"
+        >
           <FileDown aria-hidden className="h-4 w-4" /> Download PDF
         </a>
-        <a href={`${base}/labels${query}`} className="inline-flex h-10 items-center gap-1.5 rounded-md border border-line-strong bg-paper-raised px-4 text-sm font-medium hover:bg-paper-sunk">
+        <a
+          href={`${base}/labels${query}`}
+          className="inline-flex h-10 items-center gap-1.5 rounded-md border border-line-strong bg-paper-raised px-4 text-sm font-medium hover:bg-paper-sunk"
+        >
           <Tags aria-hidden className="h-4 w-4" /> Label strips (PDF)
         </a>
         {choices.length > 1 ? (
@@ -74,10 +88,20 @@ export function ScheduleToolbar({ boardId, revision, choices }: Props) {
         <summary className="flex cursor-pointer items-center gap-2 text-sm font-semibold">
           <Mail aria-hidden className="h-4 w-4" /> E-mail this schedule
         </summary>
-        <form className="mt-3 grid gap-3 md:grid-cols-[1fr_2fr_auto] md:items-end" noValidate onSubmit={form.handleSubmit((v) => send.mutate(v))}>
+        <form
+          className="mt-3 grid gap-3 md:grid-cols-[1fr_2fr_auto] md:items-end"
+          noValidate
+          onSubmit={form.handleSubmit((v) => send.mutate(v))}
+        >
           <Field label="To" error={form.formState.errors.to?.message}>
             {(id, describedBy) => (
-              <Input id={id} type="email" aria-describedby={describedBy} aria-invalid={!!form.formState.errors.to} {...form.register('to')} />
+              <Input
+                id={id}
+                type="email"
+                aria-describedby={describedBy}
+                aria-invalid={!!form.formState.errors.to}
+                {...form.register('to')}
+              />
             )}
           </Field>
           <Field label="Message (optional)" error={form.formState.errors.message?.message}>
@@ -90,7 +114,9 @@ export function ScheduleToolbar({ boardId, revision, choices }: Props) {
         {send.isError ? <FormAlert className="mt-3">{errorMessage(send.error)}</FormAlert> : null}
         {mails.data?.length ? (
           <table className="mt-4 w-full text-left text-sm">
-            <caption className="mb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">Sent from here</caption>
+            <caption className="mb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">
+              Sent from here
+            </caption>
             <thead className="text-xs text-ink-soft">
               <tr>
                 <th className="py-1">To</th>

@@ -21,7 +21,11 @@ export type PrintedPdf = {
   renderMs: number;
 };
 
-const slug = (name: string) => name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'board';
+const slug = (name: string) =>
+  name
+    .replace(/[^A-Za-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')
+    .toLowerCase() || 'board';
 
 /** The file name a render gives a board state (the same rule as build-schedule and build-labels). */
 function fileNameOf(kind: PrintJob['kind'], source: ScheduleSource): string {
@@ -110,7 +114,9 @@ export function pdfResponse(printed: PrintedPdf, download: boolean): Response {
     'Content-Disposition': `${download ? 'attachment' : 'inline'}; filename="${printed.fileName}"`,
     'Cache-Control': 'private, no-store',
     'Server-Timing':
-      printed.made === 'stored' ? 'stored;desc="from storage"' : `render;desc="rendered";dur=${printed.renderMs.toFixed(1)}`,
+      printed.made === 'stored'
+        ? 'stored;desc="from storage"'
+        : `render;desc="rendered";dur=${printed.renderMs.toFixed(1)}`,
   };
   if (printed.length !== undefined) headers['Content-Length'] = String(printed.length);
   return new Response(printed.body as BodyInit, { headers });

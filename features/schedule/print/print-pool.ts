@@ -16,8 +16,7 @@ let pool: Piscina<PrintJob, RenderedPdf> | undefined;
  */
 export function printWorkerFile(): string {
   return (
-    process.env.PRINT_WORKER_FILE ??
-    path.join(process.cwd(), process.env.NEXT_DIST_DIR || '.next', 'print-worker.mjs')
+    process.env.PRINT_WORKER_FILE ?? path.join(process.cwd(), process.env.NEXT_DIST_DIR || '.next', 'print-worker.mjs')
   );
 }
 

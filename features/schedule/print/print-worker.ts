@@ -8,7 +8,5 @@ import { renderLabelStripsPdf, renderSchedulePdf } from '../render-schedule';
 import type { PrintJob, RenderedPdf } from './print-job';
 
 export default async function render(job: PrintJob): Promise<RenderedPdf> {
-  return job.kind === 'labels'
-    ? renderLabelStripsPdf(job.source)
-    : renderSchedulePdf(job.source, new Date(job.now));
+  return job.kind === 'labels' ? renderLabelStripsPdf(job.source) : renderSchedulePdf(job.source, new Date(job.now));
 }

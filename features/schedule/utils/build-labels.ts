@@ -58,7 +58,11 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
   const rails = [...new Set(ordered.map((w) => w.rail))].sort((a, b) => a - b);
   // Joins are numbered across the whole sheet, so that no two pieces of different rails match
   let joins = 0;
-  const slug = settings.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'board';
+  const slug =
+    settings.name
+      .replace(/[^A-Za-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '')
+      .toLowerCase() || 'board';
   return {
     boardName: settings.name,
     siteName: source.snapshot.siteName,
@@ -68,14 +72,16 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
     rails: rails.map((rail) => {
       const strips: LabelStrip[] = [];
       let current: LabelStrip | null = null;
-      let module = 0;
+      let moduleAt = 0;
       // The strip's cells in rail order; phase positions a three-pole way leaves empty before it
       // (layout.ts) are an empty cell of their width, so that every label lines up with its device
       const cells: LabelCell[] = ordered
         .filter((w) => w.rail === rail)
         .flatMap((way) => {
           const skipped = places.get(way.id)?.skippedBefore ?? 0;
-          const gap: LabelCell[] = skipped ? [{ wayId: `${way.id}:gap`, ref: null, text: '', device: '', modules: skipped }] : [];
+          const gap: LabelCell[] = skipped
+            ? [{ wayId: `${way.id}:gap`, ref: null, text: '', device: '', modules: skipped }]
+            : [];
           return [
             ...gap,
             {
@@ -93,14 +99,14 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
         if (!current || used + cell.modules > MODULES_PER_STRIP) {
           const join: string | null = current ? `J${++joins}` : null;
           if (current) current.joinAfter = join;
-          current = { firstModule: module + 1, lastModule: module, cells: [], joinBefore: join, joinAfter: null };
+          current = { firstModule: moduleAt + 1, lastModule: moduleAt, cells: [], joinBefore: join, joinAfter: null };
           strips.push(current);
         }
         current.cells.push(cell);
-        module += cell.modules;
-        current.lastModule = module;
+        moduleAt += cell.modules;
+        current.lastModule = moduleAt;
       }
-      return { rail, modules: module, strips };
+      return { rail, modules: moduleAt, strips };
     }),
   };
 }

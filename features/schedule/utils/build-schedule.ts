@@ -20,7 +20,7 @@ import {
 } from '@/lib/names';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { SIZING_CAUTION, type CircuitResult, type Verdict } from '@/lib/sizing';
-import type { LabelStatus } from '@/models/way';
+import type { LabelStatus } from '@/lib/domain';
 
 export type ColumnKey =
   | 'way'
@@ -165,7 +165,12 @@ function rowFor(
   cells.label = labelCell(label);
   const c = way.circuit;
   if (!c) {
-    const spare = way.device.kind === 'blank' ? 'Spare (blank)' : way.device.kind === 'spd' ? 'Surge protection' : 'Spare (device fitted)';
+    const spare =
+      way.device.kind === 'blank'
+        ? 'Spare (blank)'
+        : way.device.kind === 'spd'
+          ? 'Surge protection'
+          : 'Spare (device fitted)';
     cells.serves = spare;
     if (way.device.kind === 'blank') cells.protection = '—';
     return { wayId: way.id, cells, verdict: null, spare: way.device.kind !== 'spd', label: label?.status ?? null };
@@ -351,17 +356,22 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
     if (!r) continue;
     for (const c of r.checks.filter((x) => !x.ok)) {
       const ref = refs.get(way.id);
-      designNotes.push(`${ref ? wayTitle(ref) : deviceName(way.device)}: ${nameWaysIn(c.message, refs)} (${c.reference})`);
+      designNotes.push(
+        `${ref ? wayTitle(ref) : deviceName(way.device)}: ${nameWaysIn(c.message, refs)} (${c.reference})`,
+      );
     }
   }
-  for (const c of s?.checks.filter((x) => !x.ok) ?? []) designNotes.push(`Board: ${nameWaysIn(c.message, refs)} (${c.reference})`);
+  for (const c of s?.checks.filter((x) => !x.ok) ?? [])
+    designNotes.push(`Board: ${nameWaysIn(c.message, refs)} (${c.reference})`);
   for (const issue of source.sizingIssues) designNotes.push(`Not sized: ${nameWaysIn(issue.message, refs)}`);
 
   const columns = SCHEDULE_COLUMNS.filter((c) => c.key !== 'label' || walked);
-  const issued = source.issued
-    ? `${formatDate(source.issued.at)} by ${source.issued.byName}`
-    : 'Not issued';
-  const slug = settings.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'board';
+  const issued = source.issued ? `${formatDate(source.issued.at)} by ${source.issued.byName}` : 'Not issued';
+  const slug =
+    settings.name
+      .replace(/[^A-Za-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '')
+      .toLowerCase() || 'board';
   return {
     organisationName: source.snapshot.organisationName,
     boardName: settings.name,
@@ -384,10 +394,16 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
     ],
     document: [
       { label: 'Revision', value: String(source.revision) },
-      { label: 'Status', value: source.frozen ? BOARD_STATUS_NAMES[source.status] : `${BOARD_STATUS_NAMES[source.status]} (not issued)` },
+      {
+        label: 'Status',
+        value: source.frozen ? BOARD_STATUS_NAMES[source.status] : `${BOARD_STATUS_NAMES[source.status]} (not issued)`,
+      },
       { label: 'Issued', value: issued },
       { label: 'Printed', value: formatDate(now.toISOString()) },
-      { label: 'Enclosure', value: `${settings.enclosureModules} modules, ${settings.rails} rail${settings.rails > 1 ? 's' : ''}` },
+      {
+        label: 'Enclosure',
+        value: `${settings.enclosureModules} modules, ${settings.rails} rail${settings.rails > 1 ? 's' : ''}`,
+      },
     ],
     columns,
     groups: filled,

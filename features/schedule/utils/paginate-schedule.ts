@@ -38,8 +38,7 @@ const BODY_HEIGHT = PAGE.height - PAGE.marginTop - PAGE.marginBottom - PAGE.head
 export const roughMeasure: TextMeasure = (text, fontSize) => text.length * fontSize * 0.6;
 
 export type PageItem =
-  | { kind: 'group'; heading: string; continued: boolean }
-  | { kind: 'row'; row: ScheduleRow; index: number };
+  { kind: 'group'; heading: string; continued: boolean } | { kind: 'row'; row: ScheduleRow; index: number };
 
 export type SchedulePage = {
   items: PageItem[];
@@ -59,7 +58,13 @@ export function scaledColumns(columns: readonly ScheduleColumn[]): (ScheduleColu
  * Lines a text takes in a box `widthPt` wide, wrapping at spaces as a line breaker does
  * (a word longer than the line is split). One point of slack per line is kept on purpose.
  */
-export function countLines(text: string, widthPt: number, measure: TextMeasure, fontSize: number = PAGE.fontSize, bold = false): number {
+export function countLines(
+  text: string,
+  widthPt: number,
+  measure: TextMeasure,
+  fontSize: number = PAGE.fontSize,
+  bold = false,
+): number {
   const room = widthPt - 1;
   const space = measure(' ', fontSize, bold);
   let lines = 1;
@@ -83,9 +88,21 @@ export function countLines(text: string, widthPt: number, measure: TextMeasure, 
 }
 
 /** Height of one table row, points. */
-export function rowHeight(row: ScheduleRow, columns: (ScheduleColumn & { pt: number })[], measure: TextMeasure): number {
+export function rowHeight(
+  row: ScheduleRow,
+  columns: (ScheduleColumn & { pt: number })[],
+  measure: TextMeasure,
+): number {
   const lines = Math.max(
-    ...columns.map((c) => countLines(row.cells[c.key], c.pt - PAGE.cellPadX, measure, c.key === 'way' ? 7.5 : PAGE.fontSize, c.key === 'way' || c.key === 'result')),
+    ...columns.map((c) =>
+      countLines(
+        row.cells[c.key],
+        c.pt - PAGE.cellPadX,
+        measure,
+        c.key === 'way' ? 7.5 : PAGE.fontSize,
+        c.key === 'way' || c.key === 'result',
+      ),
+    ),
   );
   return lines * PAGE.lineHeight + PAGE.cellPadY;
 }

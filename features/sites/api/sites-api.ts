@@ -1,5 +1,5 @@
 import { apiFetch } from '@/lib/api/client';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 import type { SiteInput } from '@/lib/sites/schemas';
 
 /** Cache keys for sites; everything under `['sites']` is refreshed after a site changes. */

@@ -22,8 +22,7 @@ export function useCreateSite() {
 export function useUpdateSite() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: ({ siteId, input }: { siteId: string; input: Partial<SiteInput> }) =>
-      patchSite(siteId, input),
+    mutationFn: ({ siteId, input }: { siteId: string; input: Partial<SiteInput> }) => patchSite(siteId, input),
     onSuccess: (site) => {
       queryClient.setQueryData(siteKeys.detail(site.id), site);
       // Board lists show the site's name, so they are refreshed too

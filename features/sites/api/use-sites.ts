@@ -2,7 +2,7 @@
 
 import { useQuery } from '@tanstack/react-query';
 
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 
 import { fetchSite, fetchSites, siteKeys } from './sites-api';
 

@@ -5,7 +5,7 @@ import { toast } from 'sonner';
 
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { errorMessage } from '@/lib/api/client';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 
 import { useDeleteSite } from '../api/use-site-mutations';
 

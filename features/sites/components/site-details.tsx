@@ -13,7 +13,7 @@ import { ArchivedBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
 import { can } from '@/lib/auth/permissions';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 import type { Role } from '@/lib/domain';
 
 import { useRestoreSite } from '../api/use-site-mutations';
@@ -53,11 +53,7 @@ export function SiteDetails({ site: initial, role }: SiteDetailsProps) {
                 <Pencil aria-hidden className="h-4 w-4" />
                 Edit site
               </Button>
-              <Button
-                variant="quiet"
-                onClick={() => setDeleting(true)}
-                className="hover:text-verdict-fail"
-              >
+              <Button variant="quiet" onClick={() => setDeleting(true)} className="hover:text-verdict-fail">
                 <Archive aria-hidden className="h-4 w-4" />
                 Archive
               </Button>
@@ -76,9 +72,7 @@ export function SiteDetails({ site: initial, role }: SiteDetailsProps) {
       ) : null}
       <dl className="mb-8 grid gap-x-8 gap-y-4 rounded-card border border-line bg-paper-raised px-5 py-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
         <Detail term="Client">{site.client || <span className="text-ink-faint">Not recorded</span>}</Detail>
-        <Detail term="Address">
-          {site.address || <span className="text-ink-faint">Not recorded</span>}
-        </Detail>
+        <Detail term="Address">{site.address || <span className="text-ink-faint">Not recorded</span>}</Detail>
         <Detail term="Boards">{site.boardCount}</Detail>
         <Detail term="Last change">
           <When iso={site.updatedAt} />
@@ -114,7 +108,8 @@ function SiteArchived({ site, canRestore }: { site: SiteSummary; canRestore: boo
     <span className="inline-flex flex-wrap items-center gap-2">
       <ArchivedBadge />
       <span>
-        Archived by {site.archived!.byName} on {new Date(site.archived!.at).toLocaleDateString('en-GB')}: read-only, kept whole.
+        Archived by {site.archived!.byName} on {new Date(site.archived!.at).toLocaleDateString('en-GB')}: read-only,
+        kept whole.
       </span>
       {canRestore ? (
         <Button

@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { TextField } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 import { useServerForm } from '@/lib/forms/use-server-form';
 import { siteInputSchema, type SiteInput } from '@/lib/sites/schemas';
 
@@ -66,9 +66,7 @@ function SiteForm({
     fields: FIELDS,
     submit: async (input) => {
       // Send the whole form: a new site, or the edited one
-      const saved = site
-        ? await update.mutateAsync({ siteId: site.id, input })
-        : await create.mutateAsync(input);
+      const saved = site ? await update.mutateAsync({ siteId: site.id, input }) : await create.mutateAsync(input);
       toast.success(site ? `Saved ${saved.name}.` : `Created ${saved.name}.`);
       onSaved?.(saved);
       onClose();

@@ -13,7 +13,7 @@ import { useMemo, useState } from 'react';
 
 import { byText, DataTable, TableSearch } from '@/components/ui/data-table';
 import { actionsColumn, lastChangeColumn, RowCount, textOrDash } from '@/components/ui/table-columns';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 
 type SitesTableProps = {
   sites: SiteSummary[];
@@ -105,12 +105,7 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete, remove
         />
         {!loading ? <RowCount shown={shown} total={sites.length} one="site" many="sites" /> : null}
       </div>
-      <DataTable
-        table={table}
-        caption="Sites"
-        loading={loading}
-        noMatch={`No site matches “${search.trim()}”.`}
-      />
+      <DataTable table={table} caption="Sites" loading={loading} noMatch={`No site matches “${search.trim()}”.`} />
     </div>
   );
 }

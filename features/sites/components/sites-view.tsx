@@ -9,7 +9,7 @@ import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { can } from '@/lib/auth/permissions';
-import type { SiteSummary } from '@/lib/dal/sites';
+import type { SiteSummary } from '@/lib/sites/types';
 import type { Role } from '@/lib/domain';
 import { errorMessage } from '@/lib/api/client';
 
@@ -72,8 +72,8 @@ export function SitesView({ role }: { role: Role }) {
         {showArchived
           ? 'Archived sites are listed here; an admin can restore them.'
           : canEdit
-          ? 'A site is a building or installation; its boards live under it. Add the first one.'
-          : 'When a designer adds a site it appears here.'}
+            ? 'A site is a building or installation; its boards live under it. Add the first one.'
+            : 'When a designer adds a site it appears here.'}
       </EmptyState>
     );
   } else {

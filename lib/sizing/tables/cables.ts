@@ -86,10 +86,6 @@ for (const [cable, t] of multiTables) {
  * when the tables have no such column (method not valid for the cable, or twin and earth
  * used three-phase).
  */
-export function cableRows(
-  cable: CableKind,
-  method: Method,
-  phases: 1 | 3,
-): readonly CableRowData[] | null {
+export function cableRows(cable: CableKind, method: Method, phases: 1 | 3): readonly CableRowData[] | null {
   return ROWS.get(`${cable}|${method}|${phases}`) ?? null;
 }

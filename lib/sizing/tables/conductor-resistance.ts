@@ -26,9 +26,7 @@ export const COPPER_R20_MOHM_PER_M = {
 } as const satisfies Record<number, number>;
 
 /** Conductor sizes the engine knows, mm². */
-export const CONDUCTOR_SIZES_MM2 = [
-  1, 1.5, 2.5, 4, 6, 10, 16, 25, 35, 50, 70, 95, 120, 150, 185, 240, 300,
-] as const;
+export const CONDUCTOR_SIZES_MM2 = [1, 1.5, 2.5, 4, 6, 10, 16, 25, 35, 50, 70, 95, 120, 150, 185, 240, 300] as const;
 
 /**
  * Multiplier from 20 °C to the conductor's maximum operating temperature, BS 7671

@@ -22,7 +22,17 @@ function Harness({ boardId, onApi }: { boardId: string; onApi: (api: Api) => voi
 /** The board as the API returns it after a save at `version`. */
 function dto(board: EditorBoard, version: number, ways = board.ways) {
   return {
-    board: { ...board.settings, id: board.id, siteId: 's', siteName: 'Site', status: 'draft', version, revision: 1, updatedAt: '', ways },
+    board: {
+      ...board.settings,
+      id: board.id,
+      siteId: 's',
+      siteName: 'Site',
+      status: 'draft',
+      version,
+      revision: 1,
+      updatedAt: '',
+      ways,
+    },
   };
 }
 
@@ -94,7 +104,10 @@ describe('saving the draft', () => {
   });
 
   it('a failed save says so and keeps the draft in memory and in the tab', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('network down'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('network down'))),
+    );
     const id = edit(57);
     await act(async () => expect(await api.save()).toBe(false));
     expect(useSaveStore.getState().phase).toBe('failed');

@@ -8,14 +8,25 @@ import { initialChoices, type TrayKind } from '@/features/board-editor/utils/dev
 function renderTray(phases: 1 | 3, active: TrayKind) {
   return render(
     <DndContext>
-      <DeviceTray choices={initialChoices(phases)} active={active} boardPhases={phases} onActivate={() => {}} onChoose={() => {}} onAdd={() => {}} />
+      <DeviceTray
+        choices={initialChoices(phases)}
+        active={active}
+        boardPhases={phases}
+        onActivate={() => {}}
+        onChoose={() => {}}
+        onAdd={() => {}}
+      />
     </DndContext>,
   );
 }
 
 const chip = (kind: TrayKind) => document.querySelector(`[data-tray-kind="${kind}"]`)!.textContent;
 const poles = (group: string) =>
-  Array.from(within(screen.getByRole('group', { name: group })).getByLabelText('Poles').querySelectorAll('option')).map((o) => o.value);
+  Array.from(
+    within(screen.getByRole('group', { name: group }))
+      .getByLabelText('Poles')
+      .querySelectorAll('option'),
+  ).map((o) => o.value);
 
 describe('the device tray follows the board', () => {
   it('a three-phase board is offered four- and three-pole main switches and three-pole devices first', () => {

@@ -59,7 +59,12 @@ describe('the drawn board', () => {
     store().load(demoBoard('workshop'));
     // Put a single-pole MCB right after the main switch: the panel saw must move on to 2L1
     act(() => {
-      store().addDevice('00000000-0000-4000-8000-000000000001', deviceFromChoice('mcb', { poles: 1, curve: 'B', ratingA: 6 }), 0, 1);
+      store().addDevice(
+        '00000000-0000-4000-8000-000000000001',
+        deviceFromChoice('mcb', { poles: 1, curve: 'B', ratingA: 6 }),
+        0,
+        1,
+      );
     });
     const { container } = renderBoard();
     expect(drawnLabels(container).slice(0, 2)).toEqual(['1L1', '2L1–L3']);

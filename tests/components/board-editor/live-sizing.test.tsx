@@ -1,3 +1,4 @@
+import { useEffect } from 'react';
 import { act, waitFor } from '@testing-library/react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 
@@ -14,11 +15,16 @@ const store = () => useBoardDraftStore.getState();
 const answer = (tag: number) => ({ ways: [], summary: { maxDemandA: tag } }) as unknown as BoardResult;
 
 /** What a component inside the live sizing reads: the answer shown, its edit sequence, pending and error. */
-let seen: { tag?: number; sizedFor?: number; pending: boolean; error: string | null };
+const seenBox: { current: { tag?: number; sizedFor?: number; pending: boolean; error: string | null } } = {
+  current: { pending: false, error: null },
+};
 function Probe() {
   const tag = useDraftSizing((s) => s.result.summary.maxDemandA);
   const sizedFor = useDraftSizing((s) => s.editSeq);
-  seen = { tag, sizedFor, ...useSizingState() };
+  const state = useSizingState();
+  useEffect(() => {
+    seenBox.current = { tag, sizedFor, ...state };
+  });
   return null;
 }
 
@@ -33,7 +39,12 @@ function open() {
   return board;
 }
 
-type Pending = { url: string; body: { draft: { ways: unknown[] } }; signal: AbortSignal; resolve: (r: Response) => void };
+type Pending = {
+  url: string;
+  body: { draft: { ways: unknown[] } };
+  signal: AbortSignal;
+  resolve: (r: Response) => void;
+};
 
 let calls: Pending[];
 beforeEach(() => {
@@ -63,7 +74,7 @@ describe('live sizing of the draft', () => {
     expect(calls[0].url).toBe(`/api/boards/${board.id}/sizing`);
     expect(calls[0].body.draft.ways).toHaveLength(board.ways.length);
     await reply(calls[0], 1);
-    await waitFor(() => expect(seen).toMatchObject({ tag: 1, sizedFor: store().editSeq, pending: false }));
+    await waitFor(() => expect(seenBox.current).toMatchObject({ tag: 1, sizedFor: store().editSeq, pending: false }));
 
     // A quick burst of edits: one request follows it, with the last edit; the shown answer stays meanwhile
     const way = store().ways.find((w) => w.circuit)!;
@@ -72,7 +83,7 @@ describe('live sizing of the draft', () => {
     await waitFor(() => expect(calls).toHaveLength(2));
     act(() => store().updateCircuit(way.id, { ...way.circuit!, lengthM: 21 }, 'len'));
     act(() => store().updateCircuit(way.id, { ...way.circuit!, lengthM: 22 }, 'len'));
-    expect(seen).toMatchObject({ tag: 1, pending: true });
+    expect(seenBox.current).toMatchObject({ tag: 1, pending: true });
     await waitFor(() => expect(calls).toHaveLength(3), { timeout: 1000 });
     // The request for the first edit of the burst was aborted once the newer one went
     expect(calls[1].signal.aborted).toBe(true);
@@ -81,9 +92,9 @@ describe('live sizing of the draft', () => {
 
     // A late answer for the aborted request is never shown
     await reply(calls[1], 99);
-    expect(seen.tag).toBe(1);
+    expect(seenBox.current.tag).toBe(1);
     await reply(calls[2], 3);
-    await waitFor(() => expect(seen).toMatchObject({ tag: 3, sizedFor: store().editSeq, pending: false }));
+    await waitFor(() => expect(seenBox.current).toMatchObject({ tag: 3, sizedFor: store().editSeq, pending: false }));
   });
 
   it('a failed sizing is reported and the draft stays editable', async () => {
@@ -91,13 +102,16 @@ describe('live sizing of the draft', () => {
     await waitFor(() => expect(calls).toHaveLength(1));
     await act(async () =>
       calls[0].resolve(
-        new Response(JSON.stringify({ error: 'Some fields are not valid.', issues: [{ path: 'ways.2.circuit', message: 'bad' }] }), {
-          status: 400,
-        }),
+        new Response(
+          JSON.stringify({ error: 'Some fields are not valid.', issues: [{ path: 'ways.2.circuit', message: 'bad' }] }),
+          {
+            status: 400,
+          },
+        ),
       ),
     );
-    await waitFor(() => expect(seen.error).toBe('Some fields are not valid. (ways.2.circuit: bad)'));
-    expect(seen.pending).toBe(false);
+    await waitFor(() => expect(seenBox.current.error).toBe('Some fields are not valid. (ways.2.circuit: bad)'));
+    expect(seenBox.current.pending).toBe(false);
     act(() => store().removeWay(store().ways[2].id));
     expect(store().dirty).toBe(true);
   });

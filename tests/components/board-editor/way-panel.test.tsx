@@ -108,7 +108,9 @@ describe('the way panel', () => {
     const way = openWay('Immersion heater, airing cupboard');
     renderPanel();
     const methods = () =>
-      within(screen.getByLabelText('Reference method')).getAllByRole('option').map((o) => (o as HTMLOptionElement).value);
+      within(screen.getByLabelText('Reference method'))
+        .getAllByRole('option')
+        .map((o) => (o as HTMLOptionElement).value);
     expect(methods()).toEqual(['100', '101', '102', '103', 'A', 'C']);
 
     await user.selectOptions(screen.getByLabelText('Cable'), 'swa-xlpe-90');
@@ -174,7 +176,9 @@ describe('the way panel', () => {
     renderPanel(false, result);
     const section = screen.getByRole('region', { name: 'Sizing result' });
     const sized = result.ways.find((w) => w.id === way.id)!.result!;
-    expect(within(section).getByText('Design current Ib').nextSibling?.textContent).toContain(`${sized.ibA.toFixed(2)} A`);
+    expect(within(section).getByText('Design current Ib').nextSibling?.textContent).toContain(
+      `${sized.ibA.toFixed(2)} A`,
+    );
     for (const check of sized.checks) {
       const item = section.querySelector(`[data-check="${check.code}"]`)!;
       expect(item.textContent).toContain(check.message);
@@ -213,7 +217,14 @@ describe('the way panel speaks one language with quick size', () => {
     store().load(demoBoard('flat'));
     openWay('Towel rail and extract fan, bathroom');
     renderPanel();
-    for (const label of ['Kind of load', 'Reference method', 'Circuits grouped', 'Where it goes', 'Load given as', 'Run in insulation (mm)']) {
+    for (const label of [
+      'Kind of load',
+      'Reference method',
+      'Circuits grouped',
+      'Where it goes',
+      'Load given as',
+      'Run in insulation (mm)',
+    ]) {
       expect(screen.getByLabelText(label)).toBeTruthy();
     }
     expect((screen.getByLabelText('Kind of load') as HTMLSelectElement).value).toBe('other');

@@ -82,7 +82,12 @@ describe('a declared route checks in order: params, session and role, query, bod
   it('a valid call reaches the handler with everything parsed', async () => {
     const res = await route(post('{"name":"Way 3"}'), ctx({ thingId: id }));
     expect(res.status).toBe(200);
-    expect(seen).toHaveBeenCalledWith({ actor: 'u1', params: { thingId: id }, query: { limit: 5 }, body: { name: 'Way 3' } });
+    expect(seen).toHaveBeenCalledWith({
+      actor: 'u1',
+      params: { thingId: id },
+      query: { limit: 5 },
+      body: { name: 'Way 3' },
+    });
   });
 
   it('a role without the permission is 403', async () => {

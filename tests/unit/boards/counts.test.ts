@@ -19,7 +19,9 @@ describe('countWays: counted by way number, as the ways are printed', () => {
 
   it('the demo workshop: way numbers stop at 8L3, so 8 ways of 24 single-pole positions; 15 circuits, 3 positions spare', () => {
     const ways = demoWays(WORKSHOP_BOARD);
-    const last = layoutWays(3, ways).filter((p) => p.label).at(-1);
+    const last = layoutWays(3, ways)
+      .filter((p) => p.label)
+      .at(-1);
     expect(last?.label).toBe('8L3');
     const counts = countWays(3, ways);
     expect(counts).toEqual({ ways: 8, circuits: 15, spare: 3, positions: 24 });

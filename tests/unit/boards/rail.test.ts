@@ -129,7 +129,9 @@ describe('placementProblem', () => {
     // at the end must start on an L1 position, so 3L2 and 3L3 stay empty: it needs 3 + 2 = 5.
     const ways = row(way('mcb'), way('mcb'), way('mcb'), way('mcb'), way('mcb'), way('mcb'), way('mcb'));
     const msg = placementProblem(three, ways, way('mcb', 3), 0, 7);
-    expect(msg).toMatch(/^Too few free modules on rail 1: the MCB needs 5 \(3 for the device and 2 phase positions left empty so that it starts on L1\) and 2 are free\.$/);
+    expect(msg).toMatch(
+      /^Too few free modules on rail 1: the MCB needs 5 \(3 for the device and 2 phase positions left empty so that it starts on L1\) and 2 are free\.$/,
+    );
   });
 
   it('never refuses a move that does not make a rail fuller', () => {

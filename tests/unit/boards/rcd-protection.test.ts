@@ -10,12 +10,14 @@ import { demoWays, FLAT_BOARD, WORKSHOP_BOARD } from '@/scripts/demo-data';
 describe('rcdProtection: one rule for which ways an RCD protects', () => {
   it('the RCD protects the ways after it to the next RCD or main switch; a spare way sits under it; an RCBO protects itself', () => {
     const d = (kind: string) => ({ kind, poles: 1, modules: 1 });
-    const ways = ['main-switch', 'rcd', 'mcb', 'blank', 'rcbo', 'mcb', 'rcd', 'mcb', 'spd', 'main-switch', 'mcb'].map((kind, i) => ({
-      id: `w${i}`,
-      rail: i < 6 ? 0 : 1,
-      position: i,
-      device: d(kind),
-    }));
+    const ways = ['main-switch', 'rcd', 'mcb', 'blank', 'rcbo', 'mcb', 'rcd', 'mcb', 'spd', 'main-switch', 'mcb'].map(
+      (kind, i) => ({
+        id: `w${i}`,
+        rail: i < 6 ? 0 : 1,
+        position: i,
+        device: d(kind),
+      }),
+    );
     const p = rcdProtection(ways);
     expect([...p.entries()].map(([id, v]) => [id, protectedById(id, v)])).toEqual([
       ['w0', null],
@@ -45,7 +47,9 @@ describe('rcdProtection: one rule for which ways an RCD protects', () => {
           const ways: WayInput[] = picked.map((w, position) => ({ ...w, rail: position % 2, position }));
           const settings = {
             ...demo.settings,
-            incoming: incomingRcd ? { ...demo.settings.incoming, kind: 'rcd' as const, rcdMa: 30 } : demo.settings.incoming,
+            incoming: incomingRcd
+              ? { ...demo.settings.incoming, kind: 'rcd' as const, rcdMa: 30 }
+              : demo.settings.incoming,
           };
           const parsed = boardInputSchema.safeParse(boardSizingInput(settings, ways));
           if (!parsed.success) return true;

@@ -13,11 +13,20 @@ import { BOARD_STATUSES, LABEL_STATUSES, ROLES } from '@/lib/domain';
 
 describe('removing a board', () => {
   it('deletes a never-issued board for designers and admins, archives an issued one for admins only', () => {
-    expect(boardRemoval('designer', { everIssued: false, archived: false })).toEqual({ refused: false, effect: 'delete' });
+    expect(boardRemoval('designer', { everIssued: false, archived: false })).toEqual({
+      refused: false,
+      effect: 'delete',
+    });
     expect(boardRemoval('admin', { everIssued: false, archived: false })).toEqual({ refused: false, effect: 'delete' });
     expect(boardRemoval('admin', { everIssued: true, archived: false })).toEqual({ refused: false, effect: 'archive' });
-    expect(boardRemoval('designer', { everIssued: true, archived: false })).toMatchObject({ refused: true, status: 403 });
-    expect(boardRemoval('inspector', { everIssued: false, archived: false })).toMatchObject({ refused: true, status: 403 });
+    expect(boardRemoval('designer', { everIssued: true, archived: false })).toMatchObject({
+      refused: true,
+      status: 403,
+    });
+    expect(boardRemoval('inspector', { everIssued: false, archived: false })).toMatchObject({
+      refused: true,
+      status: 403,
+    });
     expect(boardRemoval('admin', { everIssued: true, archived: true })).toMatchObject({ refused: true, status: 409 });
   });
 
@@ -34,9 +43,15 @@ describe('removing a board', () => {
 describe('archiving a site', () => {
   it('a site holding an issued board: admins only; otherwise whoever may discard boards', () => {
     expect(siteRemoval('admin', { holdsIssued: true, archived: false })).toEqual({ refused: false });
-    expect(siteRemoval('designer', { holdsIssued: true, archived: false })).toMatchObject({ refused: true, status: 403 });
+    expect(siteRemoval('designer', { holdsIssued: true, archived: false })).toMatchObject({
+      refused: true,
+      status: 403,
+    });
     expect(siteRemoval('designer', { holdsIssued: false, archived: false })).toEqual({ refused: false });
-    expect(siteRemoval('installer', { holdsIssued: false, archived: false })).toMatchObject({ refused: true, status: 403 });
+    expect(siteRemoval('installer', { holdsIssued: false, archived: false })).toMatchObject({
+      refused: true,
+      status: 403,
+    });
     expect(siteRemoval('admin', { holdsIssued: false, archived: true })).toMatchObject({ refused: true, status: 409 });
   });
 

@@ -22,7 +22,8 @@ async function rulesHit(file: string, code: string): Promise<string[]> {
 
 describe('layers: app → features → components → lib → models', () => {
   it('a shared component may not import a feature', async () => {
-    const code = "import { BoardsTable } from '@/features/boards/components/boards-table';\nexport const x = BoardsTable;\n";
+    const code =
+      "import { BoardsTable } from '@/features/boards/components/boards-table';\nexport const x = BoardsTable;\n";
     expect(await rulesHit('components/ui/probe.tsx', code)).toContain('import/no-restricted-paths');
   });
 
@@ -52,7 +53,8 @@ describe('the sizing engine stays pure', () => {
 
 describe('features never import each other', () => {
   it('another feature is refused, the same feature is not', async () => {
-    const other = "import { BoardsTable } from '@/features/boards/components/boards-table';\nexport const x = BoardsTable;\n";
+    const other =
+      "import { BoardsTable } from '@/features/boards/components/boards-table';\nexport const x = BoardsTable;\n";
     expect(await rulesHit('features/sites/components/probe.tsx', other)).toContain('import/no-restricted-paths');
     const own = "import { SitesTable } from '@/features/sites/components/sites-table';\nexport const x = SitesTable;\n";
     expect(await rulesHit('features/sites/components/probe.tsx', own)).not.toContain('import/no-restricted-paths');

@@ -197,7 +197,13 @@ describe('an invitation', () => {
   });
 
   it('still reads when the organisation is unknown', () => {
-    const mail = invitationMail({ organisationName: null, inviteeName: 'A', inviterName: 'B', role: 'designer', link: 'x' });
+    const mail = invitationMail({
+      organisationName: null,
+      inviteeName: 'A',
+      inviterName: 'B',
+      role: 'designer',
+      link: 'x',
+    });
     expect(mail.subject).toBe('You are invited to a team on Boardwright');
     expect(mail.text).toContain('join their team on Boardwright');
   });

@@ -6,9 +6,7 @@ import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
 const device = (modules: 1 | 2 | 3 | 4, kind: SnapshotWay['device']['kind'] = 'mcb'): SnapshotWay['device'] =>
-  kind === 'mcb'
-    ? { kind, poles: modules, modules, curve: 'B', ratingA: 16 }
-    : { kind, poles: modules, modules };
+  kind === 'mcb' ? { kind, poles: modules, modules, curve: 'B', ratingA: 16 } : { kind, poles: modules, modules };
 
 function source(ways: SnapshotWay[], phases: 1 | 3 = 1): ScheduleSource {
   return {
@@ -76,7 +74,13 @@ describe('label strips', () => {
   it('keep rail order, give each label its device’s modules and split a rail only at a marked join, never inside a device', () => {
     const ways: SnapshotWay[] = [
       { id: 'main', rail: 0, position: 0, device: device(2, 'main-switch'), circuit: null },
-      ...Array.from({ length: 14 }, (_, i) => ({ id: `m${i}`, rail: 0, position: i + 1, device: device(1), circuit: null })),
+      ...Array.from({ length: 14 }, (_, i) => ({
+        id: `m${i}`,
+        rail: 0,
+        position: i + 1,
+        device: device(1),
+        circuit: null,
+      })),
       { id: 'last', rail: 0, position: 20, device: device(3), circuit: null },
       { id: 'r2', rail: 1, position: 0, device: device(1, 'blank'), circuit: null },
     ];

@@ -83,7 +83,9 @@ describe('the schedule’s content', () => {
   });
 
   it('a draft says it is not issued, in its status and in a notice', () => {
-    const data = buildSchedule(source([{ id: 'x', device: mcb, circuit: circuit('Lights') }], { frozen: false, issued: null, status: 'draft' }));
+    const data = buildSchedule(
+      source([{ id: 'x', device: mcb, circuit: circuit('Lights') }], { frozen: false, issued: null, status: 'draft' }),
+    );
     expect(data.draft).toBe(true);
     expect(data.document).toContainEqual({ label: 'Issued', value: 'Not issued' });
     expect(data.notices.map((n) => n.title)).toContain('Not issued');
@@ -107,7 +109,9 @@ describe('the schedule’s content', () => {
       ['RCD 40 A 30 mA, type A (continued)', ['4']],
     ]);
     // The engine says the same of every way
-    const by = new Map(data.groups.flatMap((g) => g.rows.map((r) => [r.wayId, g.heading.startsWith('RCD') ? 'r' : r.wayId])));
+    const by = new Map(
+      data.groups.flatMap((g) => g.rows.map((r) => [r.wayId, g.heading.startsWith('RCD') ? 'r' : r.wayId])),
+    );
     const engine = src.sizing!.ways.filter((w) => by.has(w.id));
     expect(engine).toHaveLength(4);
     for (const w of engine) expect(by.get(w.id)).toBe(w.protectedBy);
@@ -134,7 +138,10 @@ describe('the schedule’s content', () => {
     expect(data.noticesNote).toMatch(/do not replace the notices and labels BS 7671 requires at the board/);
     expect(data.groups[0].rows[0].cells.cable).toBe('Flat twin and earth 70 °C, method C');
     expect(data.supply).toContainEqual({ label: 'Incoming', value: 'Main switch 63 A' });
-    expect(data.totals).toContainEqual({ label: 'Incoming device', value: expect.stringMatching(/^Main switch 63 A, not less than the maximum demand of \d/) });
+    expect(data.totals).toContainEqual({
+      label: 'Incoming device',
+      value: expect.stringMatching(/^Main switch 63 A, not less than the maximum demand of \d/),
+    });
   });
 
   it('names a way by its number in a design note, never by its id', () => {

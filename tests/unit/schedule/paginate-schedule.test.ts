@@ -69,7 +69,9 @@ describe('pages of the schedule', () => {
   it('every row is printed once, in order, and no page holds more than fits', () => {
     const data = schedule([12, 12, 30, 60, 30]);
     const pages = paginateSchedule(data, mono);
-    const printed = pages.flatMap((p) => p.items.filter((i) => i.kind === 'row').map((i) => (i.kind === 'row' ? i.row.wayId : '')));
+    const printed = pages.flatMap((p) =>
+      p.items.filter((i) => i.kind === 'row').map((i) => (i.kind === 'row' ? i.row.wayId : '')),
+    );
     expect(printed).toEqual(data.groups.flatMap((g) => g.rows.map((r) => r.wayId)));
     const columns = scaledColumns(data.columns);
     for (const page of pages) {
@@ -94,7 +96,13 @@ describe('pages of the schedule', () => {
 
   it('long “serves” texts take more room, so fewer rows fit on a page', () => {
     const short = paginateSchedule(schedule([100]), mono);
-    const long = paginateSchedule(schedule([100], (n) => `Sockets on the north wall of the machine shop, bench ${n}, and the dust extractor control`), mono);
+    const long = paginateSchedule(
+      schedule(
+        [100],
+        (n) => `Sockets on the north wall of the machine shop, bench ${n}, and the dust extractor control`,
+      ),
+      mono,
+    );
     expect(long.length).toBeGreaterThan(short.length);
   });
 });

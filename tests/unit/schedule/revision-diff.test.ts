@@ -86,7 +86,9 @@ describe('revision diff', () => {
     const diff = diffRevisions(board([a, b, c]), board([a, spare]));
     expect(diff.removed.map((w) => [w.id, w.ref])).toEqual([['b', '2']]);
     expect(diff.changed[0]).toMatchObject({ id: 'c', serves: 'Spare' });
-    expect(diff.changed[0].fields).toEqual([{ field: 'circuit', label: 'Circuit', before: 'Immersion heater', after: 'Spare' }]);
+    expect(diff.changed[0].fields).toEqual([
+      { field: 'circuit', label: 'Circuit', before: 'Immersion heater', after: 'Spare' },
+    ]);
   });
 
   it('a board compared with itself has no changes', () => {

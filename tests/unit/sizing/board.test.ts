@@ -19,7 +19,12 @@ describe('sizeBoard: the flat consumer unit (dwelling, single-phase)', () => {
       {
         id: 'ring',
         device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 32 },
-        circuit: { ...te, use: 'sockets', lengthM: 40, load: { kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 55 } },
+        circuit: {
+          ...te,
+          use: 'sockets',
+          lengthM: 40,
+          load: { kind: 'socket-arrangement', arrangement: 'ring-32', floorAreaM2: 55 },
+        },
       },
       {
         id: 'lights',
@@ -29,13 +34,25 @@ describe('sizeBoard: the flat consumer unit (dwelling, single-phase)', () => {
       {
         id: 'kitchen',
         device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 20 },
-        circuit: { ...te, use: 'sockets', lengthM: 15, load: { kind: 'socket-arrangement', arrangement: 'radial-20', floorAreaM2: 15 } },
+        circuit: {
+          ...te,
+          use: 'sockets',
+          lengthM: 15,
+          load: { kind: 'socket-arrangement', arrangement: 'radial-20', floorAreaM2: 15 },
+        },
       },
       { id: 'spare', device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 16 }, circuit: null },
       {
         id: 'shower',
         device: { kind: 'rcbo', poles: 1, modules: 1, curve: 'B', ratingA: 50, rcdMa: 30 },
-        circuit: { ...te, use: 'fixed', serves: 'Shower', loadType: 'shower', lengthM: 12, load: { kind: 'known', watts: 9200, powerFactor: 1 } },
+        circuit: {
+          ...te,
+          use: 'fixed',
+          serves: 'Shower',
+          loadType: 'shower',
+          lengthM: 12,
+          load: { kind: 'known', watts: 9200, powerFactor: 1 },
+        },
       },
     ],
   });
@@ -43,10 +60,19 @@ describe('sizeBoard: the flat consumer unit (dwelling, single-phase)', () => {
 
   it('the RCD protects the ways after it; the RCBO protects itself', () => {
     const by = Object.fromEntries(out.ways.map((w) => [w.id, w.protectedBy]));
-    expect(by).toMatchObject({ main: null, rcd1: null, ring: 'rcd1', lights: 'rcd1', kitchen: 'rcd1', shower: 'shower' });
+    expect(by).toMatchObject({
+      main: null,
+      rcd1: null,
+      ring: 'rcd1',
+      lights: 'rcd1',
+      kitchen: 'rcd1',
+      shower: 'shower',
+    });
     expect(out.summary.rcdCoverage).toEqual([{ rcdId: 'rcd1', wayIds: ['ring', 'lights', 'kitchen', 'spare'] }]);
     // The upstream 30 mA RCD satisfies the sockets rule (411.3.3) on the MCB ways.
-    expect(out.ways.find((w) => w.id === 'ring')?.result?.checks.find((k) => k.code === 'rcd-additional')?.ok).toBe(true);
+    expect(out.ways.find((w) => w.id === 'ring')?.result?.checks.find((k) => k.code === 'rcd-additional')?.ok).toBe(
+      true,
+    );
   });
 
   it('household diversity, computed by hand (common practice, on-site guidance)', () => {
@@ -83,17 +109,36 @@ describe('sizeBoard: the workshop three-phase board (non-dwelling)', () => {
       {
         id: 'saw',
         device: { kind: 'mcb', poles: 3, modules: 3, curve: 'C', ratingA: 16 },
-        circuit: { ...threePhase, phases: 3, use: 'fixed', lengthM: 20, load: { kind: 'known', watts: 6900, powerFactor: 1 } },
+        circuit: {
+          ...threePhase,
+          phases: 3,
+          use: 'fixed',
+          lengthM: 20,
+          load: { kind: 'known', watts: 6900, powerFactor: 1 },
+        },
       },
       {
         id: 'lights',
         device: { kind: 'rcbo', poles: 1, modules: 1, curve: 'B', ratingA: 10, rcdMa: 30, phase: 'L1' },
-        circuit: { ...threePhase, phases: 1, use: 'lighting', dwelling: false, lengthM: 30, load: { kind: 'known', watts: 1150, powerFactor: 1 } },
+        circuit: {
+          ...threePhase,
+          phases: 1,
+          use: 'lighting',
+          dwelling: false,
+          lengthM: 30,
+          load: { kind: 'known', watts: 1150, powerFactor: 1 },
+        },
       },
       {
         id: 'heater',
         device: { kind: 'rcbo', poles: 1, modules: 1, curve: 'B', ratingA: 16, rcdMa: 30, phase: 'L2' },
-        circuit: { ...threePhase, phases: 1, use: 'fixed', lengthM: 10, load: { kind: 'known', watts: 2300, powerFactor: 1 } },
+        circuit: {
+          ...threePhase,
+          phases: 1,
+          use: 'fixed',
+          lengthM: 10,
+          load: { kind: 'known', watts: 2300, powerFactor: 1 },
+        },
       },
     ],
   });
@@ -114,7 +159,11 @@ describe('sizeBoard: the workshop three-phase board (non-dwelling)', () => {
   });
 
   it('flags an incoming device smaller than the demand and a full enclosure', () => {
-    const small = sizeBoard({ ...input, enclosureModules: 6, incoming: { ...input.incoming, ratingA: 10, busbarRatingA: 8 } });
+    const small = sizeBoard({
+      ...input,
+      enclosureModules: 6,
+      incoming: { ...input.incoming, ratingA: 10, busbarRatingA: 8 },
+    });
     expect(small.summary.incomingCheck.ok).toBe(false);
     expect(small.summary.busbarCheck?.ok).toBe(false);
     expect(small.summary.modulesCheck.ok).toBe(false);

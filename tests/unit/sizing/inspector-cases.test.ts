@@ -59,7 +59,14 @@ describe('1. the engine guards itself', () => {
 
 describe('2. Uo is line-to-earth; three-phase uses UL = 400 V', () => {
   it('refuses Uo = 400 V with a message that says Uo is line-to-earth', () => {
-    const c = { ...te, use: 'fixed', method: 'C', lengthM: 10, load: known(3000), device: { kind: 'mcb', curve: 'B', ratingA: null } };
+    const c = {
+      ...te,
+      use: 'fixed',
+      method: 'C',
+      lengthM: 10,
+      load: known(3000),
+      device: { kind: 'mcb', curve: 'B', ratingA: null },
+    };
     expect(() => sizeCircuit(raw({ ...FLAT_SUPPLY, uoV: 400 }, c))).toThrow(/line-to-earth/);
     expect(() => sizeCircuit(raw({ ...FLAT_SUPPLY, uoV: 99 }, c))).toThrow(/supply\.uoV/);
   });
@@ -176,7 +183,14 @@ describe('5. the adiabatic check uses the far-end fault current and the operatin
     const r = sizeCircuit(
       circuit(
         { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.3, pfcKa: 2, source: 'public' },
-        { ...te, use: 'fixed', method: 'C', lengthM: 15, load: known(2000), device: { kind: 'mcb', curve: 'D', ratingA: 16 } },
+        {
+          ...te,
+          use: 'fixed',
+          method: 'C',
+          lengthM: 15,
+          load: known(2000),
+          device: { kind: 'mcb', curve: 'D', ratingA: 16 },
+        },
       ),
     );
     expect(r.csaMm2).toBe(2.5);
@@ -195,7 +209,15 @@ describe('5. the adiabatic check uses the far-end fault current and the operatin
     const r = sizeCircuit(
       circuit(
         { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.05, pfcKa: 4.6, source: 'public' },
-        { ...te, use: 'fixed', method: 'C', lengthM: 20, load: known(9000), loadType: 'cooker', device: { kind: 'mcb', curve: 'B', ratingA: null } },
+        {
+          ...te,
+          use: 'fixed',
+          method: 'C',
+          lengthM: 20,
+          load: known(9000),
+          loadType: 'cooker',
+          device: { kind: 'mcb', curve: 'B', ratingA: null },
+        },
       ),
     );
     expect(r.inA).toBe(40);
@@ -281,7 +303,17 @@ describe('7. armoured cable: spare core or the armour, with its own resistance a
 
   it('only armoured cable accepts an armour choice', () => {
     expect(() =>
-      sizeCircuit(raw(FLAT_SUPPLY, { ...te, use: 'fixed', method: 'C', lengthM: 5, load: known(100), armouredCpc: 'armour', device: { kind: 'mcb', curve: 'B', ratingA: null } })),
+      sizeCircuit(
+        raw(FLAT_SUPPLY, {
+          ...te,
+          use: 'fixed',
+          method: 'C',
+          lengthM: 5,
+          load: known(100),
+          armouredCpc: 'armour',
+          device: { kind: 'mcb', curve: 'B', ratingA: null },
+        }),
+      ),
     ).toThrow(/armouredCpc/);
   });
 });
@@ -328,7 +360,15 @@ describe('9. thermal insulation derates the method C rating (Table 52.2)', () =>
     // Ib = 13.04 A → B16. Ci (≥ 500 mm) 0.50 (confirmed). Run's It = min(It_A, It_C × 0.5), Table 4D5:
     //   2.5 mm²: min(20, 27 × 0.5 = 13.5) = 13.5 < 16; 4 mm²: min(26, 37 × 0.5 = 18.5) = 18.5 ≥ 16.
     const r = sizeCircuit(
-      circuit(FLAT_SUPPLY, { ...te, use: 'fixed', method: 'A', lengthM: 10, insulationMm: 1000, load: known(3000), device: { kind: 'mcb', curve: 'B', ratingA: null } }),
+      circuit(FLAT_SUPPLY, {
+        ...te,
+        use: 'fixed',
+        method: 'A',
+        lengthM: 10,
+        insulationMm: 1000,
+        load: known(3000),
+        device: { kind: 'mcb', curve: 'B', ratingA: null },
+      }),
     );
     expect(r.factors.ci).toBe(0.5);
     expect(r.csaMm2).toBe(4);
@@ -385,19 +425,19 @@ describe('11. diversity by the kind of load of each way, never from its text', (
   });
   const board = () =>
     boardInputSchema.parse({
-    supply: FLAT_SUPPLY,
-    phases: 1,
-    enclosureModules: 12,
-    dwelling: true,
-    incoming: { kind: 'main-switch', ratingA: 100 },
-    ways: [
-      { id: 'rcd', device: { kind: 'rcd', poles: 2, modules: 2, rcdMa: 30, ratingA: 80 }, circuit: null },
-      way('ev', 32, 7360, 'ev-charger', 'Drive'),
-      way('sh1', 16, 3400, 'storage-heating', 'Hall'),
-      way('sh2', 16, 3400, 'storage-heating', 'Lounge'),
-      way('cook', 50, 10000, 'cooker', 'Kitchen'),
-    ],
-  });
+      supply: FLAT_SUPPLY,
+      phases: 1,
+      enclosureModules: 12,
+      dwelling: true,
+      incoming: { kind: 'main-switch', ratingA: 100 },
+      ways: [
+        { id: 'rcd', device: { kind: 'rcd', poles: 2, modules: 2, rcdMa: 30, ratingA: 80 }, circuit: null },
+        way('ev', 32, 7360, 'ev-charger', 'Drive'),
+        way('sh1', 16, 3400, 'storage-heating', 'Hall'),
+        way('sh2', 16, 3400, 'storage-heating', 'Lounge'),
+        way('cook', 50, 10000, 'cooker', 'Kitchen'),
+      ],
+    });
 
   it('an EV charger and storage heaters take 100 %; the cooker 10 A + 30 %: 81.6 A', () => {
     // EV 7360/230 = 32 A × 100 % (BS 7671 722.311, from memory); storage heaters 2 × 14.783 = 29.565 A × 100 %;
@@ -445,7 +485,9 @@ describe('12. breaking capacity against the assembly rating the board declares',
   });
 
   it('a supply above the assembly rating still fails', () => {
-    const over = sizeBoard(boardInputSchema.parse({ ...base, supply: { ...base.supply, pfcKa: 20 }, conditionalRatingKa: 16 })).ways[0].result!;
+    const over = sizeBoard(
+      boardInputSchema.parse({ ...base, supply: { ...base.supply, pfcKa: 20 }, conditionalRatingKa: 16 }),
+    ).ways[0].result!;
     expect(checkOf(over, 'breaking-capacity').ok).toBe(false);
   });
 });
@@ -481,7 +523,15 @@ describe('13. special locations: a bath or shower room needs 30 mA RCD protectio
 
   it('outdoors, up to 32 A: 30 mA RCD (411.3.3)', () => {
     const r = sizeCircuit(
-      circuit(FLAT_SUPPLY, { ...te, use: 'fixed', method: 'C', lengthM: 12, load: known(2000), specialLocation: 'outdoors', device: { kind: 'mcb', curve: 'B', ratingA: null } }),
+      circuit(FLAT_SUPPLY, {
+        ...te,
+        use: 'fixed',
+        method: 'C',
+        lengthM: 12,
+        load: known(2000),
+        specialLocation: 'outdoors',
+        device: { kind: 'mcb', curve: 'B', ratingA: null },
+      }),
     );
     expect(checkOf(r, 'rcd-additional').ok).toBe(false);
   });

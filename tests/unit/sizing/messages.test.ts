@@ -145,22 +145,26 @@ describe('check messages name things in words', () => {
     for (const t of old) expect(() => expectReadable([t], new Set())).toThrow();
   });
 
-  it('no internal code, id or "undefined" in any message sizeCircuit writes, over varied circuits', { timeout: 60_000 }, () => {
-    const seen = new Set<string>();
-    let sized = 0;
-    fc.assert(
-      fc.property(circuitArb, (input) => {
-        const parsed = circuitInputSchema.safeParse(input);
-        if (!parsed.success) return;
-        sized += 1;
-        expectReadable(textsOfCircuit(sizeCircuit(parsed.data)), seen);
-      }),
-      { numRuns: 700 },
-    );
-    expect(sized).toBeGreaterThan(300);
-    // The walk reached many different messages, failing and passing
-    expect(seen.size).toBeGreaterThan(60);
-  });
+  it(
+    'no internal code, id or "undefined" in any message sizeCircuit writes, over varied circuits',
+    { timeout: 60_000 },
+    () => {
+      const seen = new Set<string>();
+      let sized = 0;
+      fc.assert(
+        fc.property(circuitArb, (input) => {
+          const parsed = circuitInputSchema.safeParse(input);
+          if (!parsed.success) return;
+          sized += 1;
+          expectReadable(textsOfCircuit(sizeCircuit(parsed.data)), seen);
+        }),
+        { numRuns: 700 },
+      );
+      expect(sized).toBeGreaterThan(300);
+      // The walk reached many different messages, failing and passing
+      expect(seen.size).toBeGreaterThan(60);
+    },
+  );
 
   it('board messages name ways by way number and devices by name, never by id or code', { timeout: 60_000 }, () => {
     const seen = new Set<string>();
@@ -173,13 +177,21 @@ describe('check messages name things in words', () => {
         (circuits, phases, incomingKind, dwelling) => {
           const ways = [
             { id: crypto.randomUUID(), device: { kind: 'main-switch', poles: 2, modules: 2 }, circuit: null },
-            { id: crypto.randomUUID(), device: { kind: 'rcd', poles: 2, modules: 2, rcdMa: 30, ratingA: 63 }, circuit: null },
+            {
+              id: crypto.randomUUID(),
+              device: { kind: 'rcd', poles: 2, modules: 2, rcdMa: 30, ratingA: 63 },
+              circuit: null,
+            },
             ...circuits.map((c) => {
               const { device, ...spec } = c.circuit;
               // Three-phase circuits sometimes on a single-pole device (the poles check), no phase set
               return {
                 id: crypto.randomUUID(),
-                device: { ...device, poles: spec.phases === 3 && phases === 3 ? (device.kind === 'mcb' ? 1 : 3) : 1, modules: 1 },
+                device: {
+                  ...device,
+                  poles: spec.phases === 3 && phases === 3 ? (device.kind === 'mcb' ? 1 : 3) : 1,
+                  modules: 1,
+                },
                 circuit: phases === 1 ? { ...spec, phases: 1 } : spec,
               };
             }),
@@ -192,7 +204,12 @@ describe('check messages name things in words', () => {
             supply: circuits[0].supply,
             phases,
             enclosureModules: 6,
-            incoming: { kind: incomingKind, ratingA: 40, busbarRatingA: 32, ...(incomingKind === 'rcd' ? { rcdMa: 30 } : {}) },
+            incoming: {
+              kind: incomingKind,
+              ratingA: 40,
+              busbarRatingA: 32,
+              ...(incomingKind === 'rcd' ? { rcdMa: 30 } : {}),
+            },
             dwelling,
             conditionalRatingKa: 16,
             ways,
@@ -214,13 +231,34 @@ describe('check messages name things in words', () => {
         enclosureModules: 12,
         incoming: { kind: 'fuse-bs88-2', ratingA: 63 },
         ways: [
-          { id: crypto.randomUUID(), device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 }, circuit: null },
-          { id: crypto.randomUUID(), device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 }, circuit: null },
-          { id: crypto.randomUUID(), device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 }, circuit: null },
+          {
+            id: crypto.randomUUID(),
+            device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 },
+            circuit: null,
+          },
+          {
+            id: crypto.randomUUID(),
+            device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 },
+            circuit: null,
+          },
+          {
+            id: crypto.randomUUID(),
+            device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 },
+            circuit: null,
+          },
           {
             id: crypto.randomUUID(),
             device: { kind: 'mcb', poles: 1, modules: 1, curve: 'C', ratingA: 16 },
-            circuit: { phases: 3, use: 'fixed', load: { kind: 'known', watts: 5000, powerFactor: 0.85 }, lengthM: 10, cable: 'multi-pvc-70', method: 'C', ambientC: 30, csaMm2: null },
+            circuit: {
+              phases: 3,
+              use: 'fixed',
+              load: { kind: 'known', watts: 5000, powerFactor: 0.85 },
+              lengthM: 10,
+              cable: 'multi-pvc-70',
+              method: 'C',
+              ambientC: 30,
+              csaMm2: null,
+            },
           },
         ],
       }),

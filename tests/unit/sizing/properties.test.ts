@@ -88,7 +88,7 @@ const withCircuit = (input: CircuitInput, patch: Partial<CircuitInput['circuit']
 });
 
 describe('sizing invariants', () => {
-  it('a longer run never gets a smaller cable, unless the shorter run\'s larger fault current fails that cable\'s cpc', () => {
+  it("a longer run never gets a smaller cable, unless the shorter run's larger fault current fails that cable's cpc", () => {
     // The adiabatic check works at the far-end fault current (BS 7671 543.1.3): a shorter run
     // has the larger current, so where that check sets the size, a longer run may take a
     // smaller cable. Every other rule only tightens with length. So: if the longer run got a

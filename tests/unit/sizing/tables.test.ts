@@ -54,7 +54,9 @@ describe('fuse max Zs tables (from memory) obey the physics of a time-current cu
       const z5 = cols['5'] as Record<number, number>;
       for (const [r, z] of Object.entries(z04)) expect(z).toBeLessThan(z5[Number(r)]);
       for (const col of [z04, z5]) {
-        const ratings = Object.keys(col).map(Number).sort((a, b) => a - b);
+        const ratings = Object.keys(col)
+          .map(Number)
+          .sort((a, b) => a - b);
         for (let i = 1; i < ratings.length; i++) expect(col[ratings[i]]).toBeLessThan(col[ratings[i - 1]]);
       }
     });
@@ -169,12 +171,19 @@ describe('current ratings: confirmed cells and physical ordering', () => {
   it('confirmed cells of Tables 4D5, 4D1A and 4D2A (each table’s header says which cells)', () => {
     const te = (m: '100' | '101' | '102' | '103' | 'C' | 'A', s: number) =>
       cableRows('te-70', m, 1)?.find((r) => r.csaMm2 === s)?.itA;
-    expect([te('100', 1), te('101', 1), te('102', 1), te('103', 1), te('C', 1), te('A', 1)]).toEqual([13, 10.5, 13, 8, 16, 11.5]);
-    expect([te('100', 1.5), te('101', 1.5), te('102', 1.5), te('103', 1.5), te('C', 1.5), te('A', 1.5)]).toEqual([16, 13, 16, 10, 20, 14.5]);
+    expect([te('100', 1), te('101', 1), te('102', 1), te('103', 1), te('C', 1), te('A', 1)]).toEqual([
+      13, 10.5, 13, 8, 16, 11.5,
+    ]);
+    expect([te('100', 1.5), te('101', 1.5), te('102', 1.5), te('103', 1.5), te('C', 1.5), te('A', 1.5)]).toEqual([
+      16, 13, 16, 10, 20, 14.5,
+    ]);
     expect(te('C', 2.5)).toBe(27);
     expect(te('100', 4)).toBe(27);
-    const sc = (m: 'A' | 'B' | 'C', p: 1 | 3, s: number) => cableRows('single-pvc-70', m, p)?.find((r) => r.csaMm2 === s)?.itA;
-    expect([sc('A', 1, 25), sc('A', 3, 25), sc('B', 1, 25), sc('B', 3, 25), sc('C', 1, 25), sc('A', 1, 10)]).toEqual([80, 73, 101, 89, 114, 46]);
+    const sc = (m: 'A' | 'B' | 'C', p: 1 | 3, s: number) =>
+      cableRows('single-pvc-70', m, p)?.find((r) => r.csaMm2 === s)?.itA;
+    expect([sc('A', 1, 25), sc('A', 3, 25), sc('B', 1, 25), sc('B', 3, 25), sc('C', 1, 25), sc('A', 1, 10)]).toEqual([
+      80, 73, 101, 89, 114, 46,
+    ]);
     const mc = cableRows('multi-pvc-70', 'C', 3);
     expect(mc?.find((r) => r.csaMm2 === 4)).toMatchObject({ itA: 32, mvAm: 9.5 });
     expect(mc?.find((r) => r.csaMm2 === 10)).toMatchObject({ itA: 57, mvAm: 3.8 });

@@ -34,7 +34,8 @@ export default async function BoardLayout({ children, params }: Props) {
     {
       href: `/boards/${boardId}/schedule`,
       label: 'Schedule',
-      show: can(actor.role, 'schedule.print') && (can(actor.role, 'schedule.print-draft') || issued || board.revision > 1),
+      show:
+        can(actor.role, 'schedule.print') && (can(actor.role, 'schedule.print-draft') || issued || board.revision > 1),
     },
     { href: `/boards/${boardId}/walk`, label: 'Label walk', show: can(actor.role, 'walk.record') },
   ].filter((t) => t.show);
@@ -43,7 +44,12 @@ export default async function BoardLayout({ children, params }: Props) {
     <div className="flex flex-col gap-4">
       <BoardNav tabs={tabs} />
       {archived ? (
-        <ArchivedBanner boardId={boardId} siteId={board.siteId} state={archived} canRestore={can(actor.role, 'records.archive')} />
+        <ArchivedBanner
+          boardId={boardId}
+          siteId={board.siteId}
+          state={archived}
+          canRestore={can(actor.role, 'records.archive')}
+        />
       ) : null}
       {children}
     </div>

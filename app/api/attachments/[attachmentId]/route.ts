@@ -23,6 +23,5 @@ export const GET = defineRoute({
 export const DELETE = defineRoute({
   action: 'walk.record',
   params,
-  handler: async ({ actor, params: { attachmentId } }) =>
-    Response.json(await deleteAttachment(actor, attachmentId)),
+  handler: async ({ actor, params: { attachmentId } }) => Response.json(await deleteAttachment(actor, attachmentId)),
 });

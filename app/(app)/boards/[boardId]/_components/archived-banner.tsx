@@ -7,7 +7,7 @@ import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
 import { apiFetch, errorMessage } from '@/lib/api/client';
-import type { ArchiveState } from '@/lib/dal/boards';
+import type { ArchiveState } from '@/lib/boards/review-types';
 
 type Props = {
   boardId: string;
@@ -42,8 +42,8 @@ export function ArchivedBanner({ boardId, siteId, state, canRestore }: Props) {
         <Archive aria-hidden className="h-4 w-4" />
         <span>
           <strong>Archived</strong>
-          {state.through === 'site' ? ' with its site' : ''} by {state.byName} on {when}. It is read-only and kept whole:
-          revisions, schedules, comments, label checks and photos stay readable.
+          {state.through === 'site' ? ' with its site' : ''} by {state.byName} on {when}. It is read-only and kept
+          whole: revisions, schedules, comments, label checks and photos stay readable.
         </span>
       </p>
       {canRestore ? (

@@ -19,9 +19,7 @@ export function BoardNav({ tabs }: { tabs: { href: string; label: string }[] }) 
             aria-current={active ? 'page' : undefined}
             className={cn(
               '-mb-px border-b-2 px-3 py-2 text-sm whitespace-nowrap',
-              active
-                ? 'border-copper font-medium text-ink'
-                : 'border-transparent text-ink-soft hover:text-ink',
+              active ? 'border-copper font-medium text-ink' : 'border-transparent text-ink-soft hover:text-ink',
             )}
           >
             {tab.label}

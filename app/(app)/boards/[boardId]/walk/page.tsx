@@ -32,7 +32,8 @@ export default async function WalkPage({ params }: { params: Promise<{ boardId: 
           </Link>
         }
       >
-        {walk.name} is {walk.status === 'draft' ? 'a draft' : 'in review'}; labels are checked against an issued schedule.
+        {walk.name} is {walk.status === 'draft' ? 'a draft' : 'in review'}; labels are checked against an issued
+        schedule.
       </EmptyState>
     );
   }

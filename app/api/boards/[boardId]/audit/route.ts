@@ -11,7 +11,10 @@ export const GET = defineRoute({
   // The page cursor and size
   query: z
     .object({
-      before: z.string().regex(/^[1-9][0-9]{0,17}$/, 'Use the id of an audit event.').optional(),
+      before: z
+        .string()
+        .regex(/^[1-9][0-9]{0,17}$/, 'Use the id of an audit event.')
+        .optional(),
       limit: z.coerce.number().int().min(1).max(AUDIT_PAGE_MAX).optional(),
     })
     .strict(),

@@ -27,6 +27,5 @@ export const POST = defineRoute({
 export const GET = defineRoute({
   action: 'schedule.print',
   params: idParamsSchema,
-  handler: async ({ actor, params: { boardId } }) =>
-    Response.json({ mails: await listScheduleEmails(actor, boardId) }),
+  handler: async ({ actor, params: { boardId } }) => Response.json({ mails: await listScheduleEmails(actor, boardId) }),
 });
