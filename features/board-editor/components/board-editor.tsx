@@ -128,11 +128,11 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   const [dropRefusal, setDropRefusal] = useState<string | null>(null);
   const lastDrop = useRef<string | null>(null);
   const announcements = useMemo(
-    // The ref is read when dnd-kit announces a drop, never while rendering
-    // eslint-disable-next-line react-hooks/refs
     () =>
       boardAnnouncements(
         () => useBoardDraftStore.getState(),
+        // Read when dnd-kit announces a drop, never while rendering
+        // eslint-disable-next-line react-hooks/refs
         () => lastDrop.current,
       ),
     [],
