@@ -1,7 +1,9 @@
 'use client';
 
-import { keepPreviousData, queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
-import { createContext, useContext, useEffect, useMemo, useState } from 'react';
+import { keepPreviousData, queryOptions, replaceEqualDeep, useQuery, useQueryClient } from '@tanstack/react-query';
+import { createContext, useContext, useEffect, useLayoutEffect, useState } from 'react';
+import { createStore, useStore, type StoreApi } from 'zustand';
+import { useShallow } from 'zustand/react/shallow';
 
 import { ApiError } from '@/lib/api/client';
 import type { BoardResult } from '@/lib/sizing';
@@ -73,18 +75,25 @@ function useSettledEditSeq(boardId: string, enabled: boolean): number {
   return settled;
 }
 
-/** Which sizing the components show: the query's key. */
-type SizingKey = { boardId: string; editSeq: number; enabled: boolean };
 type SizingState = {
   /** The result shown is not for the draft as it is now (a sizing is on its way). */
   pending: boolean;
   /** Why the last sizing failed, in words. */
   error: string | null;
 };
+/** What the components read: the last sizing shown, and its state. */
+type Published = SizingState & { sizing: DraftSizing | undefined };
 
-// Two contexts: a component reading the sizing re-renders for a new key, not for pending
-const SizingKeyContext = createContext<SizingKey>({ boardId: '', editSeq: 0, enabled: false });
-const SizingStateContext = createContext<SizingState>({ pending: false, error: null });
+/*
+ * One query observer, in `LiveSizing`, publishes the sizing through a small store; the
+ * components read slices of it with selectors. (An observer per device cell, each switched to
+ * the new key on every change and notified on every answer, re-rendered the whole board twice
+ * per change and made the change-to-verdict time about twice as long.) An answer is merged
+ * into the last one (`replaceEqualDeep`), so a way whose result did not change keeps its object.
+ */
+const SizingStoreContext = createContext<StoreApi<Published>>(
+  createStore<Published>()(() => ({ sizing: undefined, pending: false, error: null })),
+);
 
 /**
  * Sizes the open draft after every change (`enabled`: the member may see sizing) and gives the
@@ -103,18 +112,16 @@ export function LiveSizing({
   const open = useBoardDraftStore((s) => s.boardId === boardId && s.settings !== null);
   const settled = useSettledEditSeq(boardId, enabled && open);
   const query = useQuery(sizingQuery(boardId, settled, enabled && open));
-  const pending = enabled && !query.isError && query.data?.editSeq !== editSeq;
+  const sizing = query.data;
+  const pending = enabled && !query.isError && sizing?.editSeq !== editSeq;
   const error = query.error ? failureWords(query.error) : null;
-  const key = useMemo(
-    () => ({ boardId, editSeq: settled, enabled: enabled && open }),
-    [boardId, settled, enabled, open],
-  );
-  const state = useMemo(() => ({ pending, error }), [pending, error]);
-  return (
-    <SizingKeyContext.Provider value={key}>
-      <SizingStateContext.Provider value={state}>{children}</SizingStateContext.Provider>
-    </SizingKeyContext.Provider>
-  );
+  const [store] = useState(() => createStore<Published>()(() => ({ sizing, pending, error })));
+  // Before paint: the components showing the sizing re-render in the same frame, and only
+  // those whose slice changed (the children themselves are not re-rendered by this component)
+  useLayoutEffect(() => {
+    store.setState((last) => ({ sizing: replaceEqualDeep(last.sizing, sizing), pending, error }));
+  }, [store, sizing, pending, error]);
+  return <SizingStoreContext.Provider value={store}>{children}</SizingStoreContext.Provider>;
 }
 
 function failureWords(err: Error): string {
@@ -124,13 +131,22 @@ function failureWords(err: Error): string {
 }
 
 /** Whether a sizing is on its way, and why the last one failed. */
-export const useSizingState = (): SizingState => useContext(SizingStateContext);
+export function useSizingState(): SizingState {
+  const store = useContext(SizingStoreContext);
+  return useStore(
+    store,
+    useShallow((s) => ({ pending: s.pending, error: s.error })),
+  );
+}
 
 /**
  * The part of the draft's last sizing that `select` picks (undefined before the first answer).
- * A component re-renders only when its part changes.
+ * A component re-renders only when its part changes (compared shallowly).
  */
 export function useDraftSizing<T>(select: (sizing: DraftSizing) => T): T | undefined {
-  const { boardId, editSeq, enabled } = useContext(SizingKeyContext);
-  return useQuery({ ...sizingQuery(boardId, editSeq, enabled), select }).data;
+  const store = useContext(SizingStoreContext);
+  return useStore(
+    store,
+    useShallow((s) => (s.sizing ? select(s.sizing) : undefined)),
+  );
 }

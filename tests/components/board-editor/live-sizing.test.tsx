@@ -86,7 +86,7 @@ describe('live sizing of the draft', () => {
     expect(seenBox.current).toMatchObject({ tag: 1, pending: true });
     await waitFor(() => expect(calls).toHaveLength(3), { timeout: 1000 });
     // The request for the first edit of the burst was aborted once the newer one went
-    expect(calls[1].signal.aborted).toBe(true);
+    await waitFor(() => expect(calls[1].signal.aborted).toBe(true));
     const sent = calls[2].body.draft.ways as { id: string; circuit: { lengthM: number } }[];
     expect(sent.find((w) => w.id === way.id)!.circuit.lengthM).toBe(22);
 
