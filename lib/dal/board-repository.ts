@@ -216,6 +216,27 @@ export async function readStoredSizing(actor: Actor, boardId: string): Promise<S
   return storeSizing(await readBoard(actor, boardId));
 }
 
+/**
+ * The caller's organisation's board (404 otherwise) and its stored sizing, in one statement:
+ * for pages that show both. A stored sizing older than the board is sized now and stored.
+ */
+export async function readBoardAndSizing(
+  actor: Actor,
+  boardId: string,
+): Promise<{ board: BoardDto; sized: SizedBoard }> {
+  const rows = await select<{ dto: string; current: boolean; json: string | null; issues: FieldIssue[] | null }>(
+    `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues
+     FROM boards b LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
+     WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
+    [boardId, actor.organisationId],
+  );
+  if (!rows.length) throw notFound('The board');
+  const [row] = rows;
+  const board = JSON.parse(row.dto) as BoardDto;
+  const { json, issues } = row.current ? { json: row.json, issues: row.issues ?? [] } : await storeSizing(board);
+  return { board, sized: { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues } };
+}
+
 /** The stored sizing of the caller's organisation's board, as the engine's result. */
 export async function readSizedBoard(actor: Actor, boardId: string): Promise<SizedBoard> {
   const { json, issues } = await readStoredSizing(actor, boardId);

@@ -26,6 +26,11 @@ export function commentDto(c: Comment & { author?: User }): CommentDto {
 /** Every comment on a board, oldest first. */
 export async function listComments(actor: Actor, boardId: string): Promise<CommentDto[]> {
   await findBoard(actor, boardId);
+  return commentsOf(boardId);
+}
+
+/** Every comment on a board, oldest first, for a caller who has already read the board. */
+export async function commentsOf(boardId: string): Promise<CommentDto[]> {
   const rows = await Comment.findAll({
     where: { boardId },
     include: [{ model: User, as: 'author', attributes: ['name'] }],

@@ -1,39 +1,63 @@
 import 'server-only';
 
+import { QueryTypes } from 'sequelize';
+
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
+import { issueRefusal } from '@/lib/boards/record-rules';
 import type { IssuePreview, ReviewData } from '@/lib/boards/review-types';
-import { organisationName } from '@/lib/dal/board-snapshot';
-import { readSizedBoard } from '@/lib/dal/board-repository';
-import { findBoard, getBoard } from '@/lib/dal/boards';
-import { listComments } from '@/lib/dal/comments';
-import { issueRefusalFor } from '@/lib/dal/issue-and-return';
-import { listRevisions, nextRevision } from '@/lib/dal/revisions';
+import { db } from '@/lib/db';
+import { readBoardAndSizing } from '@/lib/dal/board-repository';
+import { commentsOf } from '@/lib/dal/comments';
+import { revisionAfter, revisionsOf } from '@/lib/dal/revisions';
 
-/** The review page's data: the board, its sizing, comments and issued revisions. */
+type ReviewFacts = { orgName: string; allowSelfIssue: boolean; designChangedById: string | null; lastIssued: number };
+
+/** What the issue preview needs besides the board: the organisation's name and rule, who changed the design last, the last revision issued. */
+async function reviewFacts(actor: Actor, boardId: string): Promise<ReviewFacts> {
+  const [row] = await db().query<ReviewFacts>(
+    `SELECT o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue",
+       (SELECT b.design_changed_by_id FROM boards b WHERE b.id = $1) AS "designChangedById",
+       COALESCE((SELECT max(r.revision) FROM board_revisions r WHERE r.board_id = $1), 0)::int AS "lastIssued"
+     FROM organisations o WHERE o.id = $2`,
+    { bind: [boardId, actor.organisationId], type: QueryTypes.SELECT, raw: true },
+  );
+  return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0 };
+}
+
+/**
+ * The review page's data: the board, its stored sizing, comments and issued revisions. The
+ * board and its sizing are read first, in one statement that also checks the board is the
+ * caller's organisation's (404 otherwise); the rest is read together after it.
+ */
 export async function getReview(actor: Actor, boardId: string): Promise<ReviewData> {
-  const board = await getBoard(actor, boardId);
-  const [orgName, comments, revisions, row, { sizing, issues }] = await Promise.all([
-    organisationName(actor),
-    listComments(actor, boardId),
-    listRevisions(actor, boardId),
-    findBoard(actor, boardId),
-    readSizedBoard(actor, boardId),
+  const {
+    board,
+    sized: { sizing, issues },
+  } = await readBoardAndSizing(actor, boardId);
+  const [facts, comments, revisions] = await Promise.all([
+    reviewFacts(actor, boardId),
+    commentsOf(boardId),
+    revisionsOf(boardId),
   ]);
   const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
   const counts = sizing?.summary.counts;
   const issue: IssuePreview = {
-    revision: await nextRevision(row),
+    revision: revisionAfter(board.revision, facts.lastIssued),
     ways: countWords(countWays(board.phases, board.ways)),
     devices: board.ways.length,
     circuits: board.ways.filter((w) => w.circuit).length,
     verdicts: { passes: counts?.passes ?? 0, nearLimit: counts?.nearLimit ?? 0, fails: counts?.fails ?? 0 },
-    refusal: await issueRefusalFor(actor, row),
+    refusal: issueRefusal({
+      issuerId: actor.userId,
+      designChangedById: facts.designChangedById,
+      allowSelfIssue: facts.allowSelfIssue,
+    }),
   };
   return {
     board,
-    organisationName: orgName,
+    organisationName: facts.orgName,
     sizing,
     sizingIssues: issues,
     refs,

@@ -16,6 +16,11 @@ import type { RevisionSummary } from '@/lib/boards/review-types';
 /** The issued revisions of a board, newest first. */
 export async function listRevisions(actor: Actor, boardId: string): Promise<RevisionSummary[]> {
   await findBoard(actor, boardId);
+  return revisionsOf(boardId);
+}
+
+/** The issued revisions of a board, newest first, for a caller who has already read the board. */
+export async function revisionsOf(boardId: string): Promise<RevisionSummary[]> {
   const rows = await BoardRevision.findAll({
     where: { boardId },
     attributes: ['revision', 'issuedAt', 'issuedById', 'declaration'],
@@ -34,7 +39,12 @@ export async function listRevisions(actor: Actor, boardId: string): Promise<Revi
 export async function nextRevision(board: Board, transaction?: Transaction): Promise<number> {
   const last =
     ((await BoardRevision.max('revision', { where: { boardId: board.id }, transaction })) as number | null) ?? 0;
-  return Math.max(board.revision, last + 1);
+  return revisionAfter(board.revision, last);
+}
+
+/** The revision a board at `revision` would be issued as, when `lastIssued` (0: none) was issued last. */
+export function revisionAfter(revision: number, lastIssued: number): number {
+  return Math.max(revision, lastIssued + 1);
 }
 
 /** One state of a board: an issued revision, or the live board ('current'). */

@@ -20,8 +20,7 @@ import { ApiError, errorMessage } from '@/lib/api/client';
 import { allows } from '@/lib/boards/lifecycle';
 import { deviceName, loadTypeName } from '@/lib/names';
 import type { CommentDto } from '@/lib/boards/review-types';
-import type { ReviewData } from '@/lib/boards/review-types';
-import type { CircuitResult } from '@/lib/sizing';
+import type { ReviewPageData, ReviewWayResult } from '@/lib/boards/review-page-data';
 
 import { postComment, postReturn } from '../api/review-api';
 import { commentInputSchema, type CommentInput } from '../types/schemas';
@@ -77,7 +76,7 @@ function CommentForm({ boardId, wayId, label }: { boardId: string; wayId: string
   );
 }
 
-function Checks({ result }: { result: CircuitResult }) {
+function Checks({ result }: { result: ReviewWayResult }) {
   return (
     <ul className="space-y-1 text-xs">
       {result.checks.map((c) => (
@@ -103,7 +102,7 @@ export function ReviewView({
   canReview,
   canComment,
 }: {
-  data: ReviewData;
+  data: ReviewPageData;
   canReview: boolean;
   canComment: boolean;
 }) {

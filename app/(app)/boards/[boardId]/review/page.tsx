@@ -3,6 +3,7 @@ import { z } from 'zod';
 
 import { ReviewView } from '@/features/review/components/review-view';
 import { can } from '@/lib/auth/permissions';
+import { reviewPageData } from '@/lib/boards/review-page-data';
 import { getActor } from '@/lib/auth/session';
 import { getReview } from '@/lib/dal/review-page';
 import { HttpError } from '@/lib/errors';
@@ -21,7 +22,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ boardId
   });
   return (
     <ReviewView
-      data={data}
+      data={reviewPageData(data)}
       canReview={can(actor.role, 'boards.review')}
       canComment={can(actor.role, 'boards.review') || can(actor.role, 'boards.edit')}
     />
