@@ -7,12 +7,11 @@
  * (scripts/bench/pages.sh does that). Targets: review page ≥ 0.2 ×, issued schedule download
  * ≥ 0.5 ×, trivial route under printing ≥ 0.7 × its req/s.
  */
-import crypto from 'node:crypto';
-
 import { db } from '@/lib/db';
-import { Board, Organisation, Site, User, Way } from '@/models';
-import { DEMO_ORG, demoUser, demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
+import { Board, User, Way } from '@/models';
+import { demoUser } from '@/scripts/demo-data';
 
+import { benchBoard } from './bench-board';
 import { signInCookie } from './http-session';
 import { describe, load, type LoadResult } from './load';
 
@@ -21,27 +20,6 @@ const duration = Number(process.env.BENCH_SECONDS ?? 10);
 const warmup = Number(process.env.BENCH_WARMUP_SECONDS ?? 3);
 const CONNECTIONS = 16;
 const PRINTERS = 8;
-
-/** A 36-way three-phase board under a bench-only name: the workshop's ways, repeated. */
-async function benchBoard(name: string): Promise<string> {
-  const org = await Organisation.findOne({ where: { name: DEMO_ORG } });
-  if (!org) throw new Error('seed the demo first');
-  const existing = await Board.findOne({ where: { organisationId: org.id, name } });
-  if (existing) return existing.id;
-  const site = await Site.findOne({ where: { organisationId: org.id } });
-  const board = await Board.create({
-    ...WORKSHOP_BOARD.settings,
-    name,
-    enclosureModules: 72,
-    organisationId: org.id,
-    siteId: site!.id,
-  });
-  const all = demoWays(WORKSHOP_BOARD);
-  const outgoing = all.filter((w) => w.device.kind !== 'main-switch');
-  const ways = [all[0], ...outgoing, ...outgoing.map((w) => ({ ...w, id: crypto.randomUUID() }))];
-  await Way.bulkCreate(ways.map((w, position) => ({ ...w, position, rail: 0, boardId: board.id })));
-  return board.id;
-}
 
 /** The issued bench board: put in review on the row and approved through the API as the inspector. */
 async function issuedBoard(inspectorCookie: string): Promise<string> {

@@ -3,14 +3,13 @@
  * production server: autocannon, 16 connections, 10 s each after a warm-up, on a 36-way board.
  * Needs a running server at APP_URL with the demo seeded (scripts/bench/sizing.sh does that).
  */
-import crypto from 'node:crypto';
-
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
-import { Board, Organisation, Site, Way } from '@/models';
-import { DEMO_ORG, demoUser, demoWays, WORKSHOP_BOARD } from '@/scripts/demo-data';
+import { Way } from '@/models';
+import { demoUser } from '@/scripts/demo-data';
 
+import { benchBoard } from './bench-board';
 import { signInCookie } from './http-session';
 import { describe, load } from './load';
 
@@ -18,30 +17,8 @@ const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:3200';
 const duration = Number(process.env.BENCH_SECONDS ?? 10);
 const warmup = Number(process.env.BENCH_WARMUP_SECONDS ?? 5);
 
-/** A 36-way three-phase board: the workshop's ways, repeated, under a bench-only name. */
-async function benchBoard(): Promise<string> {
-  db();
-  const org = await Organisation.findOne({ where: { name: DEMO_ORG } });
-  if (!org) throw new Error('seed the demo first');
-  const name = 'Bench board, 36 ways';
-  const existing = await Board.findOne({ where: { organisationId: org.id, name } });
-  if (existing) return existing.id;
-  const site = await Site.findOne({ where: { organisationId: org.id } });
-  const board = await Board.create({
-    ...WORKSHOP_BOARD.settings,
-    name,
-    enclosureModules: 72,
-    organisationId: org.id,
-    siteId: site!.id,
-  });
-  const outgoing = demoWays(WORKSHOP_BOARD).filter((w) => w.device.kind !== 'main-switch');
-  const ways = [demoWays(WORKSHOP_BOARD)[0], ...outgoing, ...outgoing.map((w) => ({ ...w, id: crypto.randomUUID() }))];
-  await Way.bulkCreate(ways.map((w, position) => ({ ...w, position, rail: 0, boardId: board.id })));
-  return board.id;
-}
-
 async function main() {
-  const boardId = await benchBoard();
+  const boardId = await benchBoard('Bench board, 36 ways');
   const cookie = await signInCookie(baseUrl, demoUser('designer').email, demoUser('designer').password);
   const common = { connections: 16, duration, headers: { cookie, 'content-type': 'application/json' } };
   const ways = await Way.count({ where: { boardId } });
