@@ -46,6 +46,11 @@ const zones = [
   })),
 ];
 
+const ONLY_REPOSITORY =
+  'the boards and ways tables are read and written only in lib/dal/board-repository.ts: add a named function there.';
+// SQL naming either table (the statement's table, not a column or an alias)
+const BOARD_TABLES_SQL = String.raw`/\b(?:from|join|update|into|table)\s+(?:boards|ways)\b/i`;
+
 export default defineConfig([
   ...nextVitals,
   ...nextTs,
@@ -78,6 +83,30 @@ export default defineConfig([
       // These two only report what the React Compiler would skip; the app does not enable it.
       'react-hooks/incompatible-library': 'off',
       'react-hooks/preserve-manual-memoization': 'off',
+    },
+  },
+  {
+    // lib/dal/board-repository.ts is the one module that reads or writes the boards and ways
+    // tables: no other module of the app imports their models or names them in SQL.
+    name: 'boardwright/board-repository',
+    files: ['app/**', 'features/**', 'components/**', 'lib/**'],
+    ignores: ['lib/dal/board-repository.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            { name: '@/models', importNames: ['Board', 'Way'], message: ONLY_REPOSITORY },
+            { name: '@/models/board', importNames: ['Board'], message: ONLY_REPOSITORY },
+            { name: '@/models/way', importNames: ['Way'], message: ONLY_REPOSITORY },
+          ],
+        },
+      ],
+      'no-restricted-syntax': [
+        'error',
+        { selector: `Literal[value=${BOARD_TABLES_SQL}]`, message: ONLY_REPOSITORY },
+        { selector: `TemplateElement[value.raw=${BOARD_TABLES_SQL}]`, message: ONLY_REPOSITORY },
+      ],
     },
   },
   {

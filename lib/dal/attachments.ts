@@ -7,10 +7,11 @@ import sharp from 'sharp';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
+import { wayOnBoard } from '@/lib/dal/board-repository';
 import { assertNotArchived, everIssued, findBoard } from '@/lib/dal/boards';
 import { badRequest, HttpError, notFound } from '@/lib/errors';
 import { deleteObjects, getObjectStream, putObject } from '@/lib/storage/s3';
-import { Attachment, User, Way } from '@/models';
+import { Attachment, User } from '@/models';
 import type { AttachmentDto } from '@/lib/boards/walk-types';
 
 /** Largest photo accepted, bytes. */
@@ -103,7 +104,7 @@ export async function addAttachment(
   // Ownership and the way
   const board = await findBoard(actor, boardId);
   const wayId = input.wayId || null;
-  if (wayId && !(await Way.count({ where: { id: wayId, boardId } }))) {
+  if (wayId && !(await wayOnBoard(boardId, wayId))) {
     throw badRequest([{ path: 'wayId', message: 'That way is not on this board.' }]);
   }
   // Size, then type from the bytes, then a thumbnail (which also proves the image decodes)

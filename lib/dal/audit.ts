@@ -2,9 +2,8 @@ import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { layoutWays } from '@/lib/boards/layout';
-import { db } from '@/lib/db';
-import { notFound } from '@/lib/errors';
-import { AuditEvent, Board, User, Way } from '@/models';
+import { findBoard, readWays } from '@/lib/dal/board-repository';
+import { AuditEvent, User } from '@/models';
 import type { AuditPage } from '@/lib/audit-types';
 
 export type AuditAction =
@@ -94,13 +93,8 @@ export async function listAudit(
   boardId: string,
   opts: { before?: string; limit?: number } = {},
 ): Promise<AuditPage> {
-  db();
-  // Ownership: the board must belong to the caller's organisation
-  const board = await Board.findOne({
-    where: { id: boardId, organisationId: actor.organisationId },
-    attributes: ['id', 'phases'],
-  });
-  if (!board) throw notFound('The board');
+  // Ownership: the board must belong to the caller's organisation (deleted or not)
+  const board = await findBoard(actor, boardId, { deleted: true });
   // One page of events, plus one to know whether there is more
   const limit = Math.min(Math.max(opts.limit ?? 100, 1), AUDIT_PAGE_MAX);
   const events = await AuditEvent.findAll({
@@ -123,18 +117,7 @@ export async function listAudit(
     : [];
   const names = new Map(users.map((u) => [u.id, u.name]));
   // Where: the current printed reference of each way named by an event
-  const ways = await Way.findAll({ where: { boardId }, attributes: ['id', 'rail', 'position', 'device'] });
-  const labels = new Map(
-    layoutWays(
-      board.phases,
-      ways.map((w) => ({
-        id: w.id,
-        rail: w.rail,
-        position: w.position,
-        device: w.device as { kind: string; poles: number; modules: number },
-      })),
-    ).map((p) => [p.id, p.label]),
-  );
+  const labels = new Map(layoutWays(board.phases, await readWays(boardId)).map((p) => [p.id, p.label]));
   return {
     entries: page.map((e) => {
       const wayId = typeof e.details?.wayId === 'string' ? e.details.wayId : null;

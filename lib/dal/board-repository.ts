@@ -1,21 +1,26 @@
 import 'server-only';
 
-import { QueryTypes, type Transaction } from 'sequelize';
+import { literal, Op, QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
+import { countWays, type CountedWay } from '@/lib/boards/counts';
 import {
   engineInputOf,
   wayInputOf,
+  type BoardCreateInput,
   type BoardDto,
   type BoardRow,
   type BoardSettings,
+  type BoardSummary,
   type WayInput,
+  type WayRow,
 } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
-import { Board, Way } from '@/models';
+import type { LabelStatus } from '@/lib/domain';
+import { Board, BoardRevision, Site, Way } from '@/models';
 
 /**
  * The board repository: the one module that reads and writes the `boards`, `ways` and
@@ -63,6 +68,9 @@ export async function readBoard(actor: Actor, boardId: string, opts: ReadOptions
   return JSON.parse(rows[0].dto) as BoardDto;
 }
 
+/** A boards row as read (a plain object: every write goes through this module). */
+export type BoardRecord = Readonly<BoardRow>;
+
 /**
  * The board row of the caller's organisation, or 404 (never another organisation's, nor a
  * deleted one unless `deleted` asks for it: undo needs it); `lock` locks it for a change.
@@ -71,14 +79,14 @@ export async function findBoard(
   actor: Actor,
   boardId: string,
   opts: ReadOptions & { lock?: boolean } = {},
-): Promise<Board> {
+): Promise<BoardRecord> {
   const board = await Board.findOne({
     where: { id: boardId, organisationId: actor.organisationId, ...(opts.deleted ? {} : { deletedAt: null }) },
     transaction: opts.transaction,
     lock: opts.lock ? opts.transaction?.LOCK.UPDATE : undefined,
   });
   if (!board) throw notFound('The board');
-  return board;
+  return board.get({ plain: true }) as BoardRecord;
 }
 
 /** That the board is the caller's organisation's, or 404. */
@@ -117,7 +125,7 @@ export type BoardEvent = { action: AuditAction; details: Record<string, unknown>
  */
 export async function writeBoard(
   actor: Actor,
-  board: Board,
+  board: BoardRecord,
   write: {
     set?: Partial<BoardRow>;
     ways?: { remove: string[]; insert: WayInput[]; update: WayInput[] };
@@ -126,7 +134,9 @@ export async function writeBoard(
   transaction: Transaction,
 ): Promise<BoardDto> {
   const boardId = board.id;
-  await Board.update({ ...write.set }, { where: { id: boardId }, transaction });
+  // Nothing to set (a new board's first write): no UPDATE, so a new board keeps version 1
+  if (write.set && Object.keys(write.set).length)
+    await Board.update(write.set, { where: { id: boardId }, transaction });
   const { remove = [], insert = [], update = [] } = write.ways ?? {};
   if (remove.length) await Way.destroy({ where: { boardId, id: remove }, transaction });
   if (update.length) {
@@ -241,4 +251,170 @@ export async function readBoardAndSizing(
 export async function readSizedBoard(actor: Actor, boardId: string): Promise<SizedBoard> {
   const { json, issues } = await readStoredSizing(actor, boardId);
   return { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues };
+}
+
+/** A new board of the caller's organisation with its first audit events: it starts at version 1. */
+export async function insertBoard(
+  actor: Actor,
+  input: BoardCreateInput,
+  events: BoardEvent[],
+  transaction: Transaction,
+): Promise<BoardDto> {
+  const created = await Board.create(
+    { ...input, organisationId: actor.organisationId, createdById: actor.userId, designChangedById: actor.userId },
+    { transaction },
+  );
+  const ways = { remove: [], insert: [], update: [] };
+  return writeBoard(actor, created.get({ plain: true }) as BoardRecord, { ways, events }, transaction);
+}
+
+/**
+ * The organisation's boards for the lists, optionally of one site: the live ones, or with
+ * `archived` the archived ones (archived themselves or on an archived site), never deleted ones.
+ */
+export async function readBoardSummaries(
+  actor: Actor,
+  opts: { siteId?: string; archived?: boolean } = {},
+): Promise<BoardSummary[]> {
+  const archived = opts.archived
+    ? { [Op.or]: [{ archivedAt: { [Op.ne]: null } }, { '$site.archived_at$': { [Op.ne]: null } }] }
+    : { archivedAt: null, '$site.archived_at$': null };
+  const boards = await Board.findAll({
+    where: {
+      organisationId: actor.organisationId,
+      deletedAt: null,
+      ...archived,
+      ...(opts.siteId ? { siteId: opts.siteId } : {}),
+    },
+    include: [{ model: Site, as: 'site', attributes: ['name', 'archivedAt'] }],
+    order: [['updatedAt', 'DESC']],
+  });
+  const ids = boards.map((b) => b.id);
+  // Ways counted by way number, as the editor and the schedule count them (counts.ts)
+  const ways = (await Way.findAll({
+    where: { boardId: { [Op.in]: ids } },
+    attributes: ['boardId', 'id', 'rail', 'position', 'device', [literal('circuit is not null'), 'circuit']],
+    raw: true,
+  })) as unknown as (CountedWay & { boardId: string })[];
+  const byBoard = new Map<string, CountedWay[]>();
+  for (const w of ways) byBoard.set(w.boardId, [...(byBoard.get(w.boardId) ?? []), w]);
+  const issued = (await BoardRevision.count({
+    where: { boardId: { [Op.in]: ids } },
+    group: ['boardId'],
+  })) as unknown as {
+    boardId: string;
+  }[];
+  const everIssuedIds = new Set(issued.map((c) => c.boardId));
+  return boards.map((b) => {
+    const site = (b as Board & { site?: Site }).site;
+    const counts = countWays(b.phases, byBoard.get(b.id) ?? []);
+    return {
+      id: b.id,
+      siteId: b.siteId,
+      siteName: site?.name ?? '',
+      name: b.name,
+      location: b.location,
+      phases: b.phases,
+      status: b.status,
+      revision: b.revision,
+      wayCount: counts.ways,
+      counts,
+      updatedAt: b.updatedAt.toISOString(),
+      archivedAt: (b.archivedAt ?? site?.archivedAt)?.toISOString() ?? null,
+      everIssued: everIssuedIds.has(b.id),
+    };
+  });
+}
+
+/**
+ * Counts of boards by site: of the organisation, or of one site; never deleted ones, and
+ * archived ones only `withArchived`.
+ */
+export async function countBoardsBySite(
+  where: { organisationId: string } | { siteId: string },
+  withArchived: boolean,
+): Promise<Map<string, number>> {
+  const counts = (await Board.count({
+    where: { ...where, deletedAt: null, ...(withArchived ? {} : { archivedAt: null }) },
+    group: ['siteId'],
+  })) as unknown as { siteId: string; count: number }[];
+  return new Map(counts.map((c) => [c.siteId, Number(c.count)]));
+}
+
+/** A site's boards (with `live`, neither deleted nor archived), optionally locked for a change. */
+export async function readSiteBoards(
+  siteId: string,
+  opts: { transaction: Transaction; lock?: boolean; live?: boolean },
+): Promise<BoardRecord[]> {
+  const boards = await Board.findAll({
+    where: { siteId, ...(opts.live ? { deletedAt: null, archivedAt: null } : {}) },
+    transaction: opts.transaction,
+    lock: opts.lock ? opts.transaction.LOCK.UPDATE : undefined,
+  });
+  return boards.map((b) => b.get({ plain: true }) as BoardRecord);
+}
+
+/**
+ * Moves the version of every board of a site on (an editor still open cannot save into an
+ * archived site); their stored sizings move on with them, since their design is unchanged.
+ */
+export async function raiseSiteBoardVersions(siteId: string, transaction: Transaction): Promise<void> {
+  await db().query(
+    `WITH raised AS (UPDATE boards SET version = version + 1 WHERE site_id = $1 RETURNING id, version)
+     UPDATE board_sizings s SET version = r.version FROM raised r WHERE s.board_id = r.id AND s.version = r.version - 1`,
+    { bind: [siteId], transaction },
+  );
+}
+
+/** Whether the way is on the board. */
+export async function wayOnBoard(boardId: string, wayId: string, transaction?: Transaction): Promise<boolean> {
+  return (await Way.count({ where: { id: wayId, boardId }, transaction })) > 0;
+}
+
+/** A board's ways as stored, label checks included, in rail order (the walk). */
+export async function readWayRows(boardId: string): Promise<WayRow[]> {
+  const rows = await Way.findAll({
+    where: { boardId },
+    order: [
+      ['rail', 'ASC'],
+      ['position', 'ASC'],
+    ],
+  });
+  return rows.map((w) => w.get({ plain: true }) as WayRow);
+}
+
+/**
+ * Records a label check on one way of the board (404 for a way not on it). A label check is
+ * not a design write: the version stays. Answers every way's label status after it.
+ */
+export async function writeLabelCheck(
+  boardId: string,
+  wayId: string,
+  check: Pick<WayRow, 'labelStatus' | 'labelNote' | 'labelCheckedById' | 'labelCheckedAt'>,
+  transaction: Transaction,
+): Promise<LabelStatus[]> {
+  const [written] = await Way.update(check, { where: { id: wayId, boardId }, transaction });
+  if (!written) throw notFound('The way');
+  const ways = await Way.findAll({ where: { boardId }, attributes: ['labelStatus'], transaction });
+  return ways.map((w) => w.labelStatus);
+}
+
+/** What issuing needs besides the board: the organisation's name and rule, who changed the design last, the last revision issued. */
+export type IssueFacts = {
+  orgName: string;
+  allowSelfIssue: boolean;
+  designChangedById: string | null;
+  lastIssued: number;
+};
+
+/** The issue facts of a board of the caller's organisation, in one statement. */
+export async function readIssueFacts(actor: Actor, boardId: string): Promise<IssueFacts> {
+  const [row] = await select<IssueFacts>(
+    `SELECT o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue",
+       (SELECT b.design_changed_by_id FROM boards b WHERE b.id = $1) AS "designChangedById",
+       COALESCE((SELECT max(r.revision) FROM board_revisions r WHERE r.board_id = $1), 0)::int AS "lastIssued"
+     FROM organisations o WHERE o.id = $2`,
+    [boardId, actor.organisationId],
+  );
+  return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0 };
 }

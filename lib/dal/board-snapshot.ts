@@ -6,8 +6,8 @@ import type { Actor } from '@/lib/auth/session';
 import type { BoardSnapshot, SnapshotWay } from '@/lib/boards/revision-diff';
 import { settingsOf } from '@/lib/boards/schemas';
 import { env } from '@/lib/env';
-import { readWays } from '@/lib/dal/board-repository';
-import { type Board, Organisation, Site } from '@/models';
+import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
+import { Organisation, Site } from '@/models';
 
 export function snapshotWay(way: SnapshotWay): SnapshotWay {
   return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
@@ -19,7 +19,11 @@ export async function organisationName(actor: Actor, transaction?: Transaction):
 }
 
 /** The live board as a snapshot (what would be frozen if it were issued now). */
-export async function liveSnapshot(actor: Actor, board: Board, transaction?: Transaction): Promise<BoardSnapshot> {
+export async function liveSnapshot(
+  actor: Actor,
+  board: BoardRecord,
+  transaction?: Transaction,
+): Promise<BoardSnapshot> {
   // One after another: inside a transaction they share one connection, and pg refuses
   // (from pg 9) a query sent while another is running on it
   const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });

@@ -8,8 +8,7 @@ import { boardSizingInput } from '@/lib/boards/sizing-input';
 import { transition } from '@/lib/boards/lifecycle';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
-import { audit } from '@/lib/dal/audit';
-import { readBoard, readWays } from '@/lib/dal/board-repository';
+import { readBoard, readWays, writeBoard } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices } from '@/lib/dal/notices';
 import { env } from '@/lib/env';
@@ -95,16 +94,11 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
       );
     }
 
-    // Status and version, then the audit trail
-    await board.update({ status: step.to, version: board.version + 1 }, { transaction });
-    if (step.audit) {
-      await audit(
-        actor,
-        step.audit,
-        { from: step.from, to: step.to, revision: board.revision },
-        { boardId, transaction },
-      );
-    }
+    // Status (the database moves the version on, so an editor holding the old one cannot save), audit
+    const events = step.audit
+      ? [{ action: step.audit, details: { from: step.from, to: step.to, revision: board.revision } }]
+      : [];
+    await writeBoard(actor, board, { set: { status: step.to }, events }, transaction);
 
     // The organisation's inspectors hear of it through the outbox (sent once committed)
     const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });

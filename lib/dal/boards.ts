@@ -2,10 +2,9 @@ import 'server-only';
 
 import { isDeepStrictEqual } from 'node:util';
 
-import { literal, Op, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { countWays, type CountedWay } from '@/lib/boards/counts';
 import { transition } from '@/lib/boards/lifecycle';
 import { boardRemoval, mayRestore } from '@/lib/boards/record-rules';
 import {
@@ -18,75 +17,33 @@ import {
 } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import type { AuditAction } from '@/lib/dal/audit';
-import { findBoard, readWays, writeBoard, type BoardEvent } from '@/lib/dal/board-repository';
+import {
+  findBoard,
+  insertBoard,
+  readBoardSummaries,
+  readWays,
+  writeBoard,
+  type BoardEvent,
+  type BoardRecord,
+} from '@/lib/dal/board-repository';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
-import { Board, BoardRevision, Site, User, Way } from '@/models';
+import { BoardRevision, Site, User } from '@/models';
 import type { ArchiveState } from '@/lib/boards/review-types';
 
 export { findBoard, readBoard as getBoard, requireBoard } from '@/lib/dal/board-repository';
 
-/**
- * The organisation's boards, optionally of one site: the live ones, or with `archived` the
- * archived ones (archived themselves or on an archived site). Deleted boards never show.
- */
+/** The organisation's boards for the lists, optionally of one site (404 for another's site). */
 export async function listBoards(
   actor: Actor,
   opts: { siteId?: string; archived?: boolean } = {},
 ): Promise<BoardSummary[]> {
   if (opts.siteId) await findSite(actor, opts.siteId);
-  const archived = opts.archived
-    ? { [Op.or]: [{ archivedAt: { [Op.ne]: null } }, { '$site.archived_at$': { [Op.ne]: null } }] }
-    : { archivedAt: null, '$site.archived_at$': null };
-  const boards = await Board.findAll({
-    where: {
-      organisationId: actor.organisationId,
-      deletedAt: null,
-      ...archived,
-      ...(opts.siteId ? { siteId: opts.siteId } : {}),
-    },
-    include: [{ model: Site, as: 'site', attributes: ['name', 'archivedAt'] }],
-    order: [['updatedAt', 'DESC']],
-  });
-  // Ways counted by way number, as the editor and the schedule count them (counts.ts)
-  const ways = await Way.findAll({
-    where: { boardId: { [Op.in]: boards.map((b) => b.id) } },
-    attributes: ['boardId', 'id', 'rail', 'position', 'device', [literal('circuit is not null'), 'circuit']],
-    raw: true,
-  });
-  const byBoard = new Map<string, CountedWay[]>();
-  for (const w of ways as unknown as (CountedWay & { boardId: string })[]) {
-    const list = byBoard.get(w.boardId) ?? [];
-    list.push(w);
-    byBoard.set(w.boardId, list);
-  }
-  const issued = (await BoardRevision.count({
-    where: { boardId: { [Op.in]: boards.map((b) => b.id) } },
-    group: ['boardId'],
-  })) as unknown as { boardId: string; count: number }[];
-  const everIssuedIds = new Set(issued.map((c) => c.boardId));
-  return boards.map((b) => {
-    const counts = countWays(b.phases, byBoard.get(b.id) ?? []);
-    return {
-      id: b.id,
-      siteId: b.siteId,
-      siteName: (b as Board & { site?: Site }).site?.name ?? '',
-      name: b.name,
-      location: b.location,
-      phases: b.phases,
-      status: b.status,
-      revision: b.revision,
-      wayCount: counts.ways,
-      counts,
-      updatedAt: b.updatedAt.toISOString(),
-      archivedAt: (b.archivedAt ?? (b as Board & { site?: Site }).site?.archivedAt)?.toISOString() ?? null,
-      everIssued: everIssuedIds.has(b.id),
-    };
-  });
+  return readBoardSummaries(actor, opts);
 }
 
 /** A board's archive state, for its pages (the "archived" banner) and for refusals. */
-export async function archiveStateOf(board: Board, transaction?: Transaction): Promise<ArchiveState> {
+export async function archiveStateOf(board: BoardRecord, transaction?: Transaction): Promise<ArchiveState> {
   let at = board.archivedAt;
   let by = board.archivedById;
   let through: 'board' | 'site' = 'board';
@@ -105,7 +62,7 @@ export async function getArchiveState(actor: Actor, boardId: string): Promise<Ar
 }
 
 /** 409 for any change to an archived board (or a board on an archived site): it is read-only. */
-export async function assertNotArchived(board: Board, transaction?: Transaction): Promise<void> {
+export async function assertNotArchived(board: BoardRecord, transaction?: Transaction): Promise<void> {
   const state = await archiveStateOf(board, transaction);
   if (state) {
     throw conflict(
@@ -118,7 +75,7 @@ export async function assertNotArchived(board: Board, transaction?: Transaction)
 }
 
 /** The board, locked for a change, refusing an archived one (409). */
-export async function findWritableBoard(actor: Actor, boardId: string, transaction: Transaction): Promise<Board> {
+export async function findWritableBoard(actor: Actor, boardId: string, transaction: Transaction): Promise<BoardRecord> {
   const board = await findBoard(actor, boardId, { transaction, lock: true });
   await assertNotArchived(board, transaction);
   return board;
@@ -132,21 +89,9 @@ export async function everIssued(boardId: string, transaction?: Transaction): Pr
 export async function createBoard(actor: Actor, input: BoardCreateInput): Promise<BoardDto> {
   const site = await findSite(actor, input.siteId);
   if (site.archivedAt) throw conflict('This site is archived; an admin may restore it before boards are added.');
-  return db().transaction(async (transaction) => {
-    const created = await Board.create(
-      { ...input, organisationId: actor.organisationId, createdById: actor.userId, designChangedById: actor.userId },
-      { transaction },
-    );
-    return writeBoard(
-      actor,
-      created,
-      {
-        ways: { remove: [], insert: [], update: [] },
-        events: [{ action: 'board.created', details: { name: input.name } }],
-      },
-      transaction,
-    );
-  });
+  return db().transaction((transaction) =>
+    insertBoard(actor, input, [{ action: 'board.created', details: { name: input.name } }], transaction),
+  );
 }
 
 /**
@@ -156,7 +101,7 @@ export async function createBoard(actor: Actor, input: BoardCreateInput): Promis
 async function changeBoard(
   actor: Actor,
   boardId: string,
-  change: (board: Board, transaction: Transaction) => Promise<Parameters<typeof writeBoard>[2]>,
+  change: (board: BoardRecord, transaction: Transaction) => Promise<Parameters<typeof writeBoard>[2]>,
   opts: { deleted?: boolean } = {},
 ): Promise<BoardDto> {
   return db().transaction(async (transaction) => {
@@ -201,7 +146,7 @@ export async function removeBoard(actor: Actor, boardId: string): Promise<{ effe
   return { effect };
 }
 
-const archiving = (actor: Actor, board: Board) => ({
+const archiving = (actor: Actor, board: BoardRecord) => ({
   set: { archivedAt: new Date(), archivedById: actor.userId },
   events: [{ action: 'board.archived', details: { name: board.name, revision: board.revision } } satisfies BoardEvent],
 });

@@ -6,9 +6,10 @@ import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
+import { wayOnBoard } from '@/lib/dal/board-repository';
 import { assertNotArchived, findBoard } from '@/lib/dal/boards';
 import { badRequest, forbidden } from '@/lib/errors';
-import { Comment, User, Way } from '@/models';
+import { Comment, User } from '@/models';
 import type { CommentDto } from '@/lib/boards/review-types';
 
 export function commentDto(c: Comment & { author?: User }): CommentDto {
@@ -56,8 +57,8 @@ export async function addComment(
     await assertNotArchived(board, transaction);
     const wayId = input.wayId ?? null;
     if (wayId) {
-      const onBoard = await Way.count({ where: { id: wayId, boardId }, transaction });
-      if (!onBoard) throw badRequest([{ path: 'wayId', message: 'That way is not on this board.' }]);
+      if (!(await wayOnBoard(boardId, wayId, transaction)))
+        throw badRequest([{ path: 'wayId', message: 'That way is not on this board.' }]);
     }
     const comment = await Comment.create(
       { boardId, wayId, revision: board.revision, authorId: actor.userId, body: input.body },

@@ -9,17 +9,22 @@ import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
 import { sizeSnapshot } from '@/lib/dal/board-sizing';
+import { writeBoard, type BoardRecord } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices, revisionComments } from '@/lib/dal/notices';
 import { nextRevision } from '@/lib/dal/revisions';
 import { env } from '@/lib/env';
 import { badRequest, conflict, HttpError, unprocessable } from '@/lib/errors';
 import type { IssuedFacts, ReturnedFacts } from '@/lib/mail/templates';
-import { type Board, BoardRevision, Comment, Organisation, Site } from '@/models';
+import { BoardRevision, Comment, Organisation, Site } from '@/models';
 import type { BoardStatus } from '@/models/board';
 
 /** Separation of duties for this issuer and board (lib/boards/record-rules.ts issueRefusal). */
-export async function issueRefusalFor(actor: Actor, board: Board, transaction?: Transaction): Promise<Refusal | null> {
+export async function issueRefusalFor(
+  actor: Actor,
+  board: BoardRecord,
+  transaction?: Transaction,
+): Promise<Refusal | null> {
   const org = await Organisation.findByPk(actor.organisationId, { attributes: ['allowSelfIssue'], transaction });
   return issueRefusal({
     issuerId: actor.userId,
@@ -75,25 +80,19 @@ export async function approveBoard(
       { boardId, revision, snapshot, sizing, issuedById: actor.userId, issuedAt, declaration },
       { transaction },
     );
-    await board.update({ status: step.to, revision, version: board.version + 1 }, { transaction });
     const { passes, nearLimit, fails } = sizing.summary.counts;
-    if (step.audit) {
-      await audit(
-        actor,
-        step.audit,
-        {
-          revision,
-          declaration,
-          devices: snapshot.ways.length,
-          circuits: snapshot.ways.filter((w) => w.circuit).length,
-          verdicts: { passes, nearLimit, fails },
-          acknowledgedFailures: fails > 0,
-          designChangedById: board.designChangedById,
-        },
-        { boardId, transaction },
-      );
-    }
-    // Tell the designers (the comments are gathered after the update, at the issued revision)
+    const details = {
+      revision,
+      declaration,
+      devices: snapshot.ways.length,
+      circuits: snapshot.ways.filter((w) => w.circuit).length,
+      verdicts: { passes, nearLimit, fails },
+      acknowledgedFailures: fails > 0,
+      designChangedById: board.designChangedById,
+    };
+    const events = step.audit ? [{ action: step.audit, details }] : [];
+    await writeBoard(actor, board, { set: { status: step.to, revision }, events }, transaction);
+    // Tell the designers (the comments of the issued revision)
     const issued: IssuedFacts = {
       appUrl: env().APP_URL,
       boardId,
@@ -102,7 +101,7 @@ export async function approveBoard(
       revision,
       approverName: actor.name,
       declaration,
-      comments: await revisionComments(board, transaction),
+      comments: await revisionComments({ ...board, revision }, transaction),
     };
     await queueNotices(step, board, { issued }, transaction);
     return { revision, status: step.to };
@@ -135,10 +134,8 @@ export async function returnBoard(
     if (!count) {
       throw badRequest([{ path: 'comment', message: 'Say what needs changing before returning the board.' }]);
     }
-    await board.update({ status: step.to, version: board.version + 1 }, { transaction });
-    if (step.audit) {
-      await audit(actor, step.audit, { revision: board.revision, comments: count }, { boardId, transaction });
-    }
+    const events = step.audit ? [{ action: step.audit, details: { revision: board.revision, comments: count } }] : [];
+    await writeBoard(actor, board, { set: { status: step.to }, events }, transaction);
     // Tell the designers, with every comment of this revision
     const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
     const returned: ReturnedFacts = {

@@ -10,10 +10,10 @@ import { deviceName } from '@/lib/names';
 import { db } from '@/lib/db';
 import { listAttachments } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
-import { readBoard } from '@/lib/dal/board-repository';
+import { readBoard, readWayRows, writeBoard, writeLabelCheck } from '@/lib/dal/board-repository';
 import { assertNotArchived, findBoard } from '@/lib/dal/boards';
-import { conflict, notFound } from '@/lib/errors';
-import { Site, User, Way } from '@/models';
+import { conflict } from '@/lib/errors';
+import { Site, User } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { LabelStatus } from '@/models/way';
 import type { WalkProgress, WalkData } from '@/lib/boards/walk-types';
@@ -35,7 +35,7 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
   const board = await findBoard(actor, boardId);
   const [site, ways, photos] = await Promise.all([
     Site.findByPk(board.siteId, { attributes: ['name'] }),
-    Way.findAll({ where: { boardId } }),
+    readWayRows(boardId),
     listAttachments(actor, boardId),
   ]);
   const ordered = railOrder(ways);
@@ -98,18 +98,9 @@ export async function recordLabel(
         { needsConfirmation: true, from: ahead.from, to: ahead.to },
       );
     }
-    const way = await Way.findOne({ where: { id: wayId, boardId }, transaction });
-    if (!way) throw notFound('The way');
-    // Record the result
-    await way.update(
-      {
-        labelStatus: input.status,
-        labelNote: input.note?.trim() ?? '',
-        labelCheckedById: actor.userId,
-        labelCheckedAt: new Date(),
-      },
-      { transaction },
-    );
+    // Record the result, then every way's result after it
+    const check = { labelStatus: input.status, labelNote: input.note?.trim() ?? '', labelCheckedById: actor.userId };
+    const statuses = await writeLabelCheck(boardId, wayId, { ...check, labelCheckedAt: new Date() }, transaction);
     // The audit trail keeps every check with its note (a later revision may remove the way)
     await audit(
       actor,
@@ -118,21 +109,15 @@ export async function recordLabel(
       { boardId, transaction },
     );
     // Labels matched when every label matches; back to issued otherwise (lib/boards/lifecycle.ts)
-    const statuses = (await Way.findAll({ where: { boardId }, attributes: ['labelStatus'], transaction })).map(
-      (w) => w.labelStatus,
-    );
     const progress = walkProgress(statuses);
     const step = transition(board.status, labelsEvent(statuses), { revision: board.revision });
-    if (!step.refused && step.to !== board.status) {
-      await board.update({ status: step.to }, { transaction });
-      if (step.audit) {
-        // The way that took the labels back is kept with the event
-        const details =
-          step.audit === 'board.labels-unmatched' ? { revision: board.revision, wayId } : { revision: board.revision };
-        await audit(actor, step.audit, details, { boardId, transaction });
-      }
-    }
-    return { boardStatus: board.status, progress };
+    if (step.refused || step.to === board.status) return { boardStatus: board.status, progress };
+    // The way that took the labels back is kept with the event
+    const details =
+      step.audit === 'board.labels-unmatched' ? { revision: board.revision, wayId } : { revision: board.revision };
+    const events = step.audit ? [{ action: step.audit, details }] : [];
+    await writeBoard(actor, board, { set: { status: step.to }, events }, transaction);
+    return { boardStatus: step.to, progress };
   });
 }
 

@@ -5,10 +5,10 @@ import { Op, type Transaction } from 'sequelize';
 import { can } from '@/lib/auth/permissions';
 import type { LifecycleNotice, LifecycleStep } from '@/lib/boards/lifecycle';
 import { layoutWays } from '@/lib/boards/layout';
-import { readWays } from '@/lib/dal/board-repository';
+import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { renderNotice, type MailComment, type NoticeFacts } from '@/lib/mail/templates';
-import { AuditEvent, type Board, Comment, User } from '@/models';
+import { AuditEvent, Comment, User } from '@/models';
 
 export type Recipient = { email: string; name: string };
 
@@ -17,7 +17,7 @@ export type Recipient = { email: string; name: string };
  * (or admin) who changed or submitted it, if still active members; failing both, every
  * active designer of the organisation.
  */
-async function designers(board: Board, transaction: Transaction): Promise<Recipient[]> {
+async function designers(board: BoardRecord, transaction: Transaction): Promise<Recipient[]> {
   const last = await AuditEvent.findOne({
     where: {
       boardId: board.id,
@@ -47,7 +47,7 @@ async function designers(board: Board, transaction: Transaction): Promise<Recipi
 }
 
 /** Every active inspector of the board's organisation. */
-async function inspectors(board: Board, transaction: Transaction): Promise<Recipient[]> {
+async function inspectors(board: BoardRecord, transaction: Transaction): Promise<Recipient[]> {
   const rows = await User.findAll({
     where: { organisationId: board.organisationId, role: 'inspector', active: true },
     attributes: ['email', 'name'],
@@ -59,14 +59,14 @@ async function inspectors(board: Board, transaction: Transaction): Promise<Recip
 /** The people a notice goes to. */
 export function noticeRecipients(
   to: LifecycleNotice['to'],
-  board: Board,
+  board: BoardRecord,
   transaction: Transaction,
 ): Promise<Recipient[]> {
   return to === 'inspectors' ? inspectors(board, transaction) : designers(board, transaction);
 }
 
 /** The comments of the board's current revision, oldest first, as the e-mails list them. */
-export async function revisionComments(board: Board, transaction: Transaction): Promise<MailComment[]> {
+export async function revisionComments(board: BoardRecord, transaction: Transaction): Promise<MailComment[]> {
   // One after another: both run on the transaction's one connection
   const comments = await Comment.findAll({
     where: { boardId: board.id, revision: board.revision },
@@ -85,24 +85,33 @@ export async function revisionComments(board: Board, transaction: Transaction): 
 }
 
 /**
- * Queues the e-mails a lifecycle step sends (lib/boards/lifecycle.ts says which), in the
- * caller's transaction so that they go only if the step is committed. The caller gathers the
- * facts; the words come from lib/mail/templates.ts.
+ * The e-mails a lifecycle step sends (lib/boards/lifecycle.ts says which). The transaction
+ * gathers only the facts and the recipients; once it is committed, each e-mail is rendered
+ * (lib/mail/templates.ts) and queued in the outbox, which sends it and retries it. A step
+ * rolled back sends nothing; a failed send is the outbox's to retry and never undoes the step.
  */
 export async function queueNotices(
   step: LifecycleStep,
-  board: Board,
+  board: BoardRecord,
   facts: Partial<NoticeFacts>,
   transaction: Transaction,
 ): Promise<void> {
-  for (const notice of step.notify) {
-    const f = facts[notice.template];
-    if (!f) throw new Error(`The facts of the ${notice.template} e-mail were not gathered`);
-    for (const person of await noticeRecipients(notice.to, board, transaction)) {
-      await enqueueMail(
-        { organisationId: board.organisationId, to: person.email, ...renderNotice(notice.template, f, person) },
-        transaction,
-      );
-    }
+  const mails: { template: LifecycleNotice['template']; facts: NoticeFacts[keyof NoticeFacts]; to: Recipient }[] = [];
+  for (const { template, to } of step.notify) {
+    const f = facts[template];
+    if (!f) throw new Error(`The facts of the ${template} e-mail were not gathered`);
+    for (const person of await noticeRecipients(to, board, transaction)) mails.push({ template, facts: f, to: person });
   }
+  if (!mails.length) return;
+  transaction.afterCommit(async () => {
+    for (const { template, facts, to } of mails) {
+      // The change is committed: a mail that cannot be queued is logged, never reported as a failed change
+      try {
+        const content = renderNotice(template, facts as never, to);
+        await enqueueMail({ organisationId: board.organisationId, to: to.email, ...content });
+      } catch (err) {
+        console.error(`The ${template} e-mail to ${to.email} could not be queued`, err);
+      }
+    }
+  });
 }

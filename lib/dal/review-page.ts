@@ -1,30 +1,13 @@
 import 'server-only';
 
-import { QueryTypes } from 'sequelize';
-
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
 import { issueRefusal } from '@/lib/boards/record-rules';
 import type { IssuePreview, ReviewData } from '@/lib/boards/review-types';
-import { db } from '@/lib/db';
-import { readBoardAndSizing } from '@/lib/dal/board-repository';
+import { readBoardAndSizing, readIssueFacts } from '@/lib/dal/board-repository';
 import { commentsOf } from '@/lib/dal/comments';
 import { revisionAfter, revisionsOf } from '@/lib/dal/revisions';
-
-type ReviewFacts = { orgName: string; allowSelfIssue: boolean; designChangedById: string | null; lastIssued: number };
-
-/** What the issue preview needs besides the board: the organisation's name and rule, who changed the design last, the last revision issued. */
-async function reviewFacts(actor: Actor, boardId: string): Promise<ReviewFacts> {
-  const [row] = await db().query<ReviewFacts>(
-    `SELECT o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue",
-       (SELECT b.design_changed_by_id FROM boards b WHERE b.id = $1) AS "designChangedById",
-       COALESCE((SELECT max(r.revision) FROM board_revisions r WHERE r.board_id = $1), 0)::int AS "lastIssued"
-     FROM organisations o WHERE o.id = $2`,
-    { bind: [boardId, actor.organisationId], type: QueryTypes.SELECT, raw: true },
-  );
-  return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0 };
-}
 
 /**
  * The review page's data: the board, its stored sizing, comments and issued revisions. The
@@ -37,7 +20,7 @@ export async function getReview(actor: Actor, boardId: string): Promise<ReviewDa
     sized: { sizing, issues },
   } = await readBoardAndSizing(actor, boardId);
   const [facts, comments, revisions] = await Promise.all([
-    reviewFacts(actor, boardId),
+    readIssueFacts(actor, boardId),
     commentsOf(boardId),
     revisionsOf(boardId),
   ]);

@@ -6,10 +6,11 @@ import type { Actor } from '@/lib/auth/session';
 import { diffRevisions, type BoardSnapshot, type RevisionDiff } from '@/lib/boards/revision-diff';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
 import { sizeSnapshot } from '@/lib/dal/board-sizing';
+import type { BoardRecord } from '@/lib/dal/board-repository';
 import { findBoard } from '@/lib/dal/boards';
 import { notFound } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
-import { type Board, BoardRevision, User } from '@/models';
+import { BoardRevision, User } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { RevisionSummary } from '@/lib/boards/review-types';
 
@@ -36,7 +37,7 @@ export async function revisionsOf(boardId: string): Promise<RevisionSummary[]> {
 }
 
 /** The revision number a board in review would be issued as: its own, unless that one was issued. */
-export async function nextRevision(board: Board, transaction?: Transaction): Promise<number> {
+export async function nextRevision(board: BoardRecord, transaction?: Transaction): Promise<number> {
   const last =
     ((await BoardRevision.max('revision', { where: { boardId: board.id }, transaction })) as number | null) ?? 0;
   return revisionAfter(board.revision, last);

@@ -6,9 +6,10 @@ import type { Actor } from '@/lib/auth/session';
 import { mayRestore, siteRemoval } from '@/lib/boards/record-rules';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
+import { countBoardsBySite, raiseSiteBoardVersions, readSiteBoards } from '@/lib/dal/board-repository';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/errors';
 import type { SiteInput } from '@/lib/sites/schemas';
-import { Board, BoardRevision, Site, User } from '@/models';
+import { BoardRevision, Site, User } from '@/models';
 import type { SiteSummary } from '@/lib/sites/types';
 
 // The schema lives in lib/sites/schemas.ts so the browser form can share it.
@@ -34,20 +35,13 @@ async function archiverNames(sites: Site[]): Promise<Map<string, string>> {
   return new Map(people.map((u) => [u.id, u.name]));
 }
 
-/** Live boards: neither deleted nor archived (what a site's board count counts). */
-const liveBoards = { deletedAt: null, archivedAt: null };
-
 /** The organisation's live sites (or, with `archived`, the archived ones) with their board counts. */
 export async function listSites(actor: Actor, opts: { archived?: boolean } = {}): Promise<SiteSummary[]> {
   const sites = await Site.findAll({
     where: { organisationId: actor.organisationId, archivedAt: opts.archived ? { [Op.ne]: null } : null },
     order: [['name', 'ASC']],
   });
-  const counts = (await Board.count({
-    where: { organisationId: actor.organisationId, deletedAt: null, ...(opts.archived ? {} : { archivedAt: null }) },
-    group: ['siteId'],
-  })) as unknown as { siteId: string; count: number }[];
-  const bySite = new Map(counts.map((c) => [c.siteId, Number(c.count)]));
+  const bySite = await countBoardsBySite({ organisationId: actor.organisationId }, !!opts.archived);
   const names = await archiverNames(sites);
   return sites.map((s) => toSummary(s, bySite.get(s.id) ?? 0, names.get(s.archivedById ?? '')));
 }
@@ -62,9 +56,7 @@ export async function findSite(actor: Actor, siteId: string): Promise<Site> {
 
 export async function getSite(actor: Actor, siteId: string): Promise<SiteSummary> {
   const site = await findSite(actor, siteId);
-  const count = await Board.count({
-    where: { siteId: site.id, ...(site.archivedAt ? { deletedAt: null } : liveBoards) },
-  });
+  const count = (await countBoardsBySite({ siteId: site.id }, !!site.archivedAt)).get(site.id) ?? 0;
   return toSummary(site, count, (await archiverNames([site])).get(site.archivedById ?? ''));
 }
 
@@ -106,7 +98,7 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
   await db().transaction(async (transaction) => {
     const site = await lockedSite(actor, siteId, transaction);
     if (!site) throw notFound('The site');
-    const boards = await Board.findAll({ where: { siteId }, transaction, lock: transaction.LOCK.UPDATE });
+    const boards = await readSiteBoards(siteId, { transaction, lock: true });
     const issued = boards.length
       ? await BoardRevision.count({ where: { boardId: { [Op.in]: boards.map((b) => b.id) } }, transaction })
       : 0;
@@ -114,7 +106,7 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
     if (rule.refused) throw new HttpError(rule.status, rule.message);
     await site.update({ archivedAt: new Date(), archivedById: actor.userId }, { transaction });
     // Every board's version moves on: an editor still open cannot save into an archived site
-    if (boards.length) await Board.increment('version', { by: 1, where: { siteId }, transaction });
+    if (boards.length) await raiseSiteBoardVersions(siteId, transaction);
     const live = boards.filter((b) => !b.deletedAt && !b.archivedAt);
     await audit(
       actor,
@@ -147,7 +139,7 @@ export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSum
     if (!site?.archivedAt) throw conflict('This site is not archived.');
     await site.update({ archivedAt: null, archivedById: null }, { transaction });
     await audit(actor, 'site.restored', { siteId, name: site.name }, { transaction });
-    const boards = await Board.findAll({ where: { siteId, deletedAt: null, archivedAt: null }, transaction });
+    const boards = await readSiteBoards(siteId, { transaction, live: true });
     for (const b of boards) {
       await audit(actor, 'board.restored', { name: b.name, siteId, site: site.name }, { boardId: b.id, transaction });
     }
