@@ -1,14 +1,18 @@
 import crypto from 'node:crypto';
 
+import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
 
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { Actor } from '@/lib/auth/session';
-import { readBoard } from '@/lib/dal/board-repository';
-import { renameBoard } from '@/lib/dal/boards';
+import { readBoard, readStoredSizing } from '@/lib/dal/board-repository';
+import { submitBoard } from '@/lib/dal/board-status';
+import { createBoard, renameBoard } from '@/lib/dal/boards';
+import { approveBoard } from '@/lib/dal/issue-and-return';
 import { db } from '@/lib/db';
 import { AuditEvent, Board, Way } from '@/models';
+import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
 
@@ -105,5 +109,61 @@ describe('the database raises a board’s version (migration 0008)', () => {
       { bind: [crypto.randomUUID(), board.id, JSON.stringify({ kind: 'blank', poles: 1, modules: 1 })] },
     );
     expect((await stampOf(board.id)).version).toBe(v0 + 3);
+  });
+});
+
+describe('a board’s first version and its stored sizing through the lifecycle', () => {
+  it('a new board starts at version 1, also with ways inserted in the transaction that made it (migration 0011)', async () => {
+    const { site } = await makeBoard(team.org.id, 'flat');
+    const created = await createBoard(actor, { ...FLAT_BOARD.settings, siteId: site.id });
+    expect(created.version).toBe(1);
+    expect((await stampOf(created.id)).version).toBe(1);
+    expect(await eventsOf(created.id)).toEqual(['board.created']);
+
+    const withWays = await db().transaction(async (transaction) => {
+      const row = await Board.create(
+        { ...FLAT_BOARD.settings, organisationId: team.org.id, siteId: site.id },
+        { transaction },
+      );
+      await Way.bulkCreate(
+        demoWays(FLAT_BOARD).map((w) => ({ ...w, boardId: row.id })),
+        { transaction },
+      );
+      return row;
+    });
+    expect((await stampOf(withWays.id)).version).toBe(1);
+    // The next transaction that writes it raises it once
+    await renameBoard(actor, withWays.id, { name: 'Flat board, second state' });
+    expect((await stampOf(withWays.id)).version).toBe(2);
+  });
+
+  it('submit and approve move the version on and the stored sizing with it: current at once, no sizing on the next read', async () => {
+    const { board } = await makeBoard(team.org.id, 'flat');
+    const storedRow = async () => {
+      const [row] = await db().query<{ version: number; sizing: string; boardVersion: number }>(
+        `SELECT s.version, s.sizing::text AS sizing, b.version AS "boardVersion"
+         FROM board_sizings s JOIN boards b ON b.id = s.board_id WHERE s.board_id = $1`,
+        { bind: [board.id], type: QueryTypes.SELECT },
+      );
+      return row;
+    };
+    await readStoredSizing(actor, board.id);
+    const before = await storedRow();
+    expect(before.version).toBe(before.boardVersion);
+
+    await submitBoard(actor, board.id);
+    const submitted = await storedRow();
+    expect(submitted.boardVersion).toBe(before.boardVersion + 1);
+    expect(submitted.version).toBe(submitted.boardVersion);
+    expect(submitted.sizing).toBe(before.sizing);
+
+    const { inspector } = team.users;
+    const issuer: Actor = { ...actor, userId: inspector.id, role: 'inspector', name: inspector.name };
+    await approveBoard(issuer, board.id, { declaration: inspector.name });
+    const approved = await storedRow();
+    expect((await readBoard(actor, board.id)).status).toBe('issued');
+    expect(approved.boardVersion).toBe(submitted.boardVersion + 1);
+    expect(approved.version).toBe(approved.boardVersion);
+    expect(approved.sizing).toBe(before.sizing);
   });
 });
