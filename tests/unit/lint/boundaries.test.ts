@@ -84,6 +84,37 @@ describe('client code never imports server-only modules', () => {
   });
 });
 
+describe('only the board repository reads or writes boards and ways', () => {
+  it('the Board and Way models are refused outside lib/dal/board-repository.ts, types included', async () => {
+    const value = "import { Board } from '@/models';\nexport const x = () => Board.count();\n";
+    expect(await rulesHit('lib/dal/probe.ts', value)).toContain('no-restricted-imports');
+    expect(await rulesHit('app/api/probe/route.ts', value)).toContain('no-restricted-imports');
+    const type = "import { type Way } from '@/models';\nexport type X = Way;\n";
+    expect(await rulesHit('lib/dal/probe.ts', type)).toContain('no-restricted-imports');
+    const way = "import { Way } from '@/models/way';\nexport const x = Way;\n";
+    expect(await rulesHit('features/walk-probe.ts', way)).toContain('no-restricted-imports');
+    // other models, and the status types of those modules, stay open
+    const others =
+      "import { Site } from '@/models';\nimport type { BoardStatus } from '@/models/board';\nexport const x = Site;\nexport type S = BoardStatus;\n";
+    expect(await rulesHit('lib/dal/probe.ts', others)).toEqual([]);
+  });
+
+  it('SQL naming either table is refused outside it, in strings and templates', async () => {
+    const update = "export const sql = 'UPDATE boards SET status = $2 WHERE id = $1';\n";
+    expect(await rulesHit('lib/dal/probe.ts', update)).toContain('no-restricted-syntax');
+    const join = 'export const sql = `SELECT 1 FROM sites s\n  JOIN ways w ON w.site_id = s.id`;\n';
+    expect(await rulesHit('lib/probe.ts', join)).toContain('no-restricted-syntax');
+    const words = "export const text = 'Send boards for review; count the ways';\n";
+    expect(await rulesHit('lib/probe.ts', words)).toEqual([]);
+  });
+
+  it('the repository itself may do both', async () => {
+    const code =
+      "import { Board } from '@/models';\nexport const x = Board;\nexport const sql = 'SELECT 1 FROM boards b JOIN ways w ON w.board_id = b.id';\n";
+    expect(await rulesHit('lib/dal/board-repository.ts', code)).toEqual([]);
+  });
+});
+
 describe('disable comments', () => {
   it('one that names a rule the config does not know fails', async () => {
     const code = '// eslint-disable-next-line no-such-plugin/no-such-rule\nexport const x = 1;\n';
