@@ -27,9 +27,9 @@ export type {
   CircuitInput,
   CircuitSpec,
   DeviceOnRail,
+  EngineWayInput,
   RailDeviceKind,
   SupplyInput,
-  WayInput,
 } from './schemas';
 export * from './types';
 export { designCurrent, chooseRating, socketArrangementCurrent } from './design-current';

@@ -256,7 +256,8 @@ export const waySchema = z
     circuit: circuitSpecSchema.nullable(),
   })
   .strict();
-export type WayInput = z.infer<typeof waySchema>;
+/** A way as the engine sizes it; a board's way with its place on the rail is `WayInput` (lib/boards/schemas.ts). */
+export type EngineWayInput = z.infer<typeof waySchema>;
 
 /** Input of `sizeBoard`. */
 export const boardInputSchema = z

@@ -11,7 +11,7 @@ import {
   type Phase,
   type SupplyInput,
   type Verdict,
-  type WayInput,
+  type EngineWayInput,
 } from '@/lib/sizing';
 import { ARMOUR_TEMPERATURE_FACTOR, ARMOURED_4E4, SWA_ARMOUR } from '@/lib/sizing/tables/armoured-4e4';
 import { OPERATING_TEMPERATURE_FACTOR } from '@/lib/sizing/tables/conductor-resistance';
@@ -52,7 +52,7 @@ function withSubMainLoads(
   supply: SupplyInput,
   parse = true,
 ): BoardInput {
-  const ways: WayInput[] = board.ways.map((w) => {
+  const ways: EngineWayInput[] = board.ways.map((w) => {
     const amps = currents.get(w.id);
     if (amps === undefined || !w.circuit) return w;
     return { ...w, circuit: { ...w.circuit, load: subMainLoad(amps, w.circuit.phases, supply.uoV) } };
