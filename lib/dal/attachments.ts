@@ -8,10 +8,11 @@ import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { wayOnBoard } from '@/lib/dal/board-repository';
+import { memberNames } from '@/lib/dal/members';
 import { assertNotArchived, everIssued, findBoard } from '@/lib/dal/boards';
 import { badRequest, HttpError, notFound } from '@/lib/errors';
 import { deleteObjects, getObjectStream, putObject } from '@/lib/storage/s3';
-import { Attachment, User } from '@/models';
+import { Attachment } from '@/models';
 import type { AttachmentDto } from '@/lib/boards/walk-types';
 
 /** Largest photo accepted, bytes. */
@@ -165,11 +166,7 @@ export async function listAttachments(actor: Actor, boardId: string): Promise<At
     where: { boardId, organisationId: actor.organisationId, withdrawnAt: null },
     order: [['createdAt', 'ASC']],
   });
-  const people = await User.findAll({
-    where: { id: [...new Set(rows.map((r) => r.uploadedById))] },
-    attributes: ['id', 'name'],
-  });
-  const names = new Map(people.map((u) => [u.id, u.name]));
+  const names = await memberNames(rows.map((r) => r.uploadedById));
   return rows.map((r) => attachmentDto(r, names.get(r.uploadedById) ?? 'A former member'));
 }
 

@@ -3,7 +3,8 @@ import { Op, type Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { layoutWays } from '@/lib/boards/layout';
 import { findBoard, readWays } from '@/lib/dal/board-repository';
-import { AuditEvent, User } from '@/models';
+import { memberNames } from '@/lib/dal/members';
+import { AuditEvent } from '@/models';
 import type { AuditPage } from '@/lib/audit-types';
 
 export type AuditAction =
@@ -108,14 +109,10 @@ export async function listAudit(
   });
   const page = events.slice(0, limit);
   // Who: names of the members involved, from the same organisation only
-  const userIds = [...new Set(page.map((e) => e.userId).filter((id): id is string => !!id))];
-  const users = userIds.length
-    ? await User.findAll({
-        where: { id: { [Op.in]: userIds }, organisationId: actor.organisationId },
-        attributes: ['id', 'name'],
-      })
-    : [];
-  const names = new Map(users.map((u) => [u.id, u.name]));
+  const names = await memberNames(
+    page.map((e) => e.userId),
+    actor.organisationId,
+  );
   // Where: the current printed reference of each way named by an event
   const labels = new Map(layoutWays(board.phases, await readWays(boardId)).map((p) => [p.id, p.label]));
   return {

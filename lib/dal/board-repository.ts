@@ -100,16 +100,7 @@ export async function requireBoard(actor: Actor, boardId: string): Promise<void>
 
 /** A board's ways, design fields only, in rail order. */
 export async function readWays(boardId: string, transaction?: Transaction): Promise<WayInput[]> {
-  const rows = await Way.findAll({
-    where: { boardId },
-    attributes: ['id', 'rail', 'position', 'device', 'circuit'],
-    order: [
-      ['rail', 'ASC'],
-      ['position', 'ASC'],
-    ],
-    transaction,
-  });
-  return rows.map(wayInputOf);
+  return (await readWayRows(boardId, transaction)).map(wayInputOf);
 }
 
 /** One event of the audit trail, of the board written. */
@@ -372,15 +363,12 @@ export async function wayOnBoard(boardId: string, wayId: string, transaction?: T
 }
 
 /** A board's ways as stored, label checks included, in rail order (the walk). */
-export async function readWayRows(boardId: string): Promise<WayRow[]> {
-  const rows = await Way.findAll({
-    where: { boardId },
-    order: [
-      ['rail', 'ASC'],
-      ['position', 'ASC'],
-    ],
-  });
-  return rows.map((w) => w.get({ plain: true }) as WayRow);
+export async function readWayRows(boardId: string, transaction?: Transaction): Promise<WayRow[]> {
+  const order: [string, string][] = [
+    ['rail', 'ASC'],
+    ['position', 'ASC'],
+  ];
+  return (await Way.findAll({ where: { boardId }, order, transaction, raw: true })) as unknown as WayRow[];
 }
 
 /**

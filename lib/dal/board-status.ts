@@ -4,19 +4,16 @@ import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
 import { settingsOf } from '@/lib/boards/schemas';
-import { boardSizingInput } from '@/lib/boards/sizing-input';
 import { transition } from '@/lib/boards/lifecycle';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
-import { readBoard, readWays, writeBoard } from '@/lib/dal/board-repository';
+import { readWays, sizeDesign, writeBoard } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices } from '@/lib/dal/notices';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import type { ReviewRequestedFacts } from '@/lib/mail/templates';
 import { nameWaysIn } from '@/lib/names';
-import { boardInputSchema, sizeBoard } from '@/lib/sizing';
-import { Site } from '@/models';
 
 /** One way that stops a board going for review, as the refusal lists it. */
 export type FailingWay = {
@@ -43,8 +40,7 @@ export type FailingBoardCheck = { code: string; message: string; reference: stri
  * so what goes for review is what the designer saw.
  */
 export async function submitBoard(actor: Actor, boardId: string, expectedVersion?: number): Promise<BoardDto> {
-  const sequelize = db();
-  await sequelize.transaction(async (transaction) => {
+  return db().transaction(async (transaction) => {
     // The board, locked, in the caller's organisation, not archived; its stage first (a board
     // already in review or issued says so, whatever version the caller held), then the version
     const board = await findWritableBoard(actor, boardId, transaction);
@@ -58,19 +54,13 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     const ways = await readWays(boardId, transaction);
 
     // Size the stored board exactly as the sizing route does
-    const settings = settingsOf(board);
-    const parsed = boardInputSchema.safeParse(boardSizingInput(settings, ways));
-    if (!parsed.success) {
+    const { sizing: sized, issues } = sizeDesign({ ...settingsOf(board), ways });
+    if (!sized) {
       throw unprocessable('The stored board is not complete enough to size; open it in the editor and save it again.', {
         failing: [],
-        boardChecks: parsed.error.issues.map((i) => ({
-          code: 'input',
-          message: i.message,
-          reference: i.path.join('.'),
-        })),
+        boardChecks: issues.map(({ path, message }) => ({ code: 'input', message, reference: path })),
       });
     }
-    const sized = sizeBoard(parsed.data);
 
     // Every failing way and board-level check, in rail order with its way reference
     const labels = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
@@ -98,21 +88,20 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     const events = step.audit
       ? [{ action: step.audit, details: { from: step.from, to: step.to, revision: board.revision } }]
       : [];
-    await writeBoard(actor, board, { set: { status: step.to }, events }, transaction);
+    const written = await writeBoard(actor, board, { set: { status: step.to }, events }, transaction);
 
     // The organisation's inspectors hear of it through the outbox (sent once committed)
-    const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
     const reviewRequested: ReviewRequestedFacts = {
       appUrl: env().APP_URL,
       boardId: board.id,
       boardName: board.name,
-      siteName: site?.name ?? null,
+      siteName: written.siteName ?? null,
       revision: board.revision,
       senderName: actor.name,
       counts: countWords(countWays(board.phases, ways)),
       boardChecks,
     };
     await queueNotices(step, board, { 'review-requested': reviewRequested }, transaction);
+    return written;
   });
-  return readBoard(actor, boardId);
 }

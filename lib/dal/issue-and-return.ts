@@ -16,7 +16,7 @@ import { nextRevision } from '@/lib/dal/revisions';
 import { env } from '@/lib/env';
 import { badRequest, conflict, HttpError, unprocessable } from '@/lib/errors';
 import type { IssuedFacts, ReturnedFacts } from '@/lib/mail/templates';
-import { BoardRevision, Comment, Organisation, Site } from '@/models';
+import { BoardRevision, Comment, Organisation } from '@/models';
 import type { BoardStatus } from '@/models/board';
 
 /** Separation of duties for this issuer and board (lib/boards/record-rules.ts issueRefusal). */
@@ -135,14 +135,13 @@ export async function returnBoard(
       throw badRequest([{ path: 'comment', message: 'Say what needs changing before returning the board.' }]);
     }
     const events = step.audit ? [{ action: step.audit, details: { revision: board.revision, comments: count } }] : [];
-    await writeBoard(actor, board, { set: { status: step.to }, events }, transaction);
+    const { siteName } = await writeBoard(actor, board, { set: { status: step.to }, events }, transaction);
     // Tell the designers, with every comment of this revision
-    const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
     const returned: ReturnedFacts = {
       appUrl: env().APP_URL,
       boardId,
       boardName: board.name,
-      siteName: site?.name ?? null,
+      siteName,
       revision: board.revision,
       returnerName: actor.name,
       comments: await revisionComments(board, transaction),

@@ -1,19 +1,18 @@
 import 'server-only';
 
-import { Op } from 'sequelize';
-
 import type { Actor } from '@/lib/auth/session';
-import { layoutWays, railOrder } from '@/lib/boards/layout';
+import { layoutWays } from '@/lib/boards/layout';
 import { labelCheckEvent, labelsEvent, transition } from '@/lib/boards/lifecycle';
-import { labelTextOf, type SnapshotWay } from '@/lib/boards/revision-diff';
+import { labelTextOf } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
 import { db } from '@/lib/db';
 import { listAttachments } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
+import { memberNames } from '@/lib/dal/members';
 import { readBoard, readWayRows, writeBoard, writeLabelCheck } from '@/lib/dal/board-repository';
 import { assertNotArchived, findBoard } from '@/lib/dal/boards';
 import { conflict } from '@/lib/errors';
-import { Site, User } from '@/models';
+import { Site } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { LabelStatus } from '@/models/way';
 import type { WalkProgress, WalkData } from '@/lib/boards/walk-types';
@@ -38,28 +37,21 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
     readWayRows(boardId),
     listAttachments(actor, boardId),
   ]);
-  const ordered = railOrder(ways);
-  const refs = new Map(layoutWays(board.phases, ordered as unknown as SnapshotWay[]).map((p) => [p.id, p.label]));
-  const checkers = await User.findAll({
-    where: { id: { [Op.in]: ordered.map((w) => w.labelCheckedById).filter((id): id is string => !!id) } },
-    attributes: ['id', 'name'],
-  });
-  const names = new Map(checkers.map((u) => [u.id, u.name]));
-  const walkWays = ordered.map((w) => {
-    const way = w as unknown as SnapshotWay;
-    return {
-      id: w.id,
-      ref: refs.get(w.id) ?? null,
-      labelText: labelTextOf(way),
-      device: deviceName(way.device),
-      rail: w.rail,
-      status: w.labelStatus,
-      note: w.labelNote,
-      checkedByName: w.labelCheckedById ? (names.get(w.labelCheckedById) ?? null) : null,
-      checkedAt: w.labelCheckedAt ? w.labelCheckedAt.toISOString() : null,
-      photos: photos.filter((p) => p.wayId === w.id),
-    };
-  });
+  const refs = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+  const names = await memberNames(ways.map((w) => w.labelCheckedById));
+  // The ways come in rail order
+  const walkWays = ways.map((w) => ({
+    id: w.id,
+    ref: refs.get(w.id) ?? null,
+    labelText: labelTextOf(w),
+    device: deviceName(w.device),
+    rail: w.rail,
+    status: w.labelStatus,
+    note: w.labelNote,
+    checkedByName: w.labelCheckedById ? (names.get(w.labelCheckedById) ?? null) : null,
+    checkedAt: w.labelCheckedAt ? w.labelCheckedAt.toISOString() : null,
+    photos: photos.filter((p) => p.wayId === w.id),
+  }));
   return {
     boardId,
     name: board.name,

@@ -152,3 +152,11 @@ export async function updateMember(actor: Actor, userId: string, input: MemberUp
     createdAt: user.createdAt.toISOString(),
   };
 }
+
+/** The names of these members by id (only of `organisationId` when given); ids may repeat or be null. */
+export async function memberNames(ids: (string | null)[], organisationId?: string): Promise<Map<string, string>> {
+  const wanted = [...new Set(ids.filter((id): id is string => !!id))];
+  if (!wanted.length) return new Map();
+  const where = { id: { [Op.in]: wanted }, ...(organisationId ? { organisationId } : {}) };
+  return new Map((await User.findAll({ where, attributes: ['id', 'name'] })).map((u) => [u.id, u.name]));
+}

@@ -56,15 +56,6 @@ async function inspectors(board: BoardRecord, transaction: Transaction): Promise
   return rows.map((u) => ({ email: u.email, name: u.name }));
 }
 
-/** The people a notice goes to. */
-export function noticeRecipients(
-  to: LifecycleNotice['to'],
-  board: BoardRecord,
-  transaction: Transaction,
-): Promise<Recipient[]> {
-  return to === 'inspectors' ? inspectors(board, transaction) : designers(board, transaction);
-}
-
 /** The comments of the board's current revision, oldest first, as the e-mails list them. */
 export async function revisionComments(board: BoardRecord, transaction: Transaction): Promise<MailComment[]> {
   // One after another: both run on the transaction's one connection
@@ -100,7 +91,8 @@ export async function queueNotices(
   for (const { template, to } of step.notify) {
     const f = facts[template];
     if (!f) throw new Error(`The facts of the ${template} e-mail were not gathered`);
-    for (const person of await noticeRecipients(to, board, transaction)) mails.push({ template, facts: f, to: person });
+    for (const person of await (to === 'inspectors' ? inspectors : designers)(board, transaction))
+      mails.push({ template, facts: f, to: person });
   }
   if (!mails.length) return;
   transaction.afterCommit(async () => {

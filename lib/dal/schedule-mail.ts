@@ -6,10 +6,11 @@ import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { findBoard } from '@/lib/dal/boards';
+import { memberNames } from '@/lib/dal/members';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { scheduleMail } from '@/lib/mail/templates';
-import { AuditEvent, OutgoingMail, User } from '@/models';
+import { AuditEvent, OutgoingMail } from '@/models';
 import type { ScheduleMail } from '@/lib/boards/review-types';
 
 /** Queues the schedule PDF to an address through the outbox and records who sent it. */
@@ -63,15 +64,11 @@ export async function listScheduleEmails(actor: Actor, boardId: string): Promise
     limit: 50,
   });
   const ids = events.map((e) => String(e.details.mailId ?? '')).filter(Boolean);
-  const [mails, users] = await Promise.all([
+  const [mails, nameById] = await Promise.all([
     OutgoingMail.findAll({ where: { id: { [Op.in]: ids }, organisationId: actor.organisationId } }),
-    User.findAll({
-      where: { id: { [Op.in]: events.map((e) => e.userId).filter((u): u is string => !!u) } },
-      attributes: ['id', 'name'],
-    }),
+    memberNames(events.map((e) => e.userId)),
   ]);
   const mailById = new Map(mails.map((m) => [m.id, m]));
-  const nameById = new Map(users.map((u) => [u.id, u.name]));
   return events.flatMap((e) => {
     const mail = mailById.get(String(e.details.mailId));
     if (!mail) return [];
