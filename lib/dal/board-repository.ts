@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { literal, Op, QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, type CountedWay } from '@/lib/boards/counts';
@@ -20,7 +20,7 @@ import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import type { LabelStatus } from '@/lib/domain';
-import { Board, BoardRevision, Site, Way } from '@/models';
+import { Board, Way } from '@/models';
 
 /**
  * The board repository: the one module that reads and writes the `boards`, `ways` and
@@ -267,53 +267,23 @@ export async function readBoardSummaries(
   actor: Actor,
   opts: { siteId?: string; archived?: boolean } = {},
 ): Promise<BoardSummary[]> {
-  const archived = opts.archived
-    ? { [Op.or]: [{ archivedAt: { [Op.ne]: null } }, { '$site.archived_at$': { [Op.ne]: null } }] }
-    : { archivedAt: null, '$site.archived_at$': null };
-  const boards = await Board.findAll({
-    where: {
-      organisationId: actor.organisationId,
-      deletedAt: null,
-      ...archived,
-      ...(opts.siteId ? { siteId: opts.siteId } : {}),
-    },
-    include: [{ model: Site, as: 'site', attributes: ['name', 'archivedAt'] }],
-    order: [['updatedAt', 'DESC']],
-  });
-  const ids = boards.map((b) => b.id);
   // Ways counted by way number, as the editor and the schedule count them (counts.ts)
-  const ways = (await Way.findAll({
-    where: { boardId: { [Op.in]: ids } },
-    attributes: ['boardId', 'id', 'rail', 'position', 'device', [literal('circuit is not null'), 'circuit']],
-    raw: true,
-  })) as unknown as (CountedWay & { boardId: string })[];
-  const byBoard = new Map<string, CountedWay[]>();
-  for (const w of ways) byBoard.set(w.boardId, [...(byBoard.get(w.boardId) ?? []), w]);
-  const issued = (await BoardRevision.count({
-    where: { boardId: { [Op.in]: ids } },
-    group: ['boardId'],
-  })) as unknown as {
-    boardId: string;
-  }[];
-  const everIssuedIds = new Set(issued.map((c) => c.boardId));
-  return boards.map((b) => {
-    const site = (b as Board & { site?: Site }).site;
-    const counts = countWays(b.phases, byBoard.get(b.id) ?? []);
-    return {
-      id: b.id,
-      siteId: b.siteId,
-      siteName: site?.name ?? '',
-      name: b.name,
-      location: b.location,
-      phases: b.phases,
-      status: b.status,
-      revision: b.revision,
-      wayCount: counts.ways,
-      counts,
-      updatedAt: b.updatedAt.toISOString(),
-      archivedAt: (b.archivedAt ?? site?.archivedAt)?.toISOString() ?? null,
-      everIssued: everIssuedIds.has(b.id),
-    };
+  const rows = await select<Omit<BoardSummary, 'counts' | 'wayCount'> & { ways: CountedWay[] }>(
+    `SELECT b.id, b.site_id AS "siteId", s.name AS "siteName", b.name, b.location, b.phases, b.status, b.revision,
+       ${isoSql('b.updated_at')} AS "updatedAt", ${isoSql('COALESCE(b.archived_at, s.archived_at)')} AS "archivedAt",
+       EXISTS (SELECT 1 FROM board_revisions r WHERE r.board_id = b.id) AS "everIssued",
+       COALESCE((SELECT json_agg(json_build_object('id', w.id, 'rail', w.rail, 'position', w.position,
+         'device', w.device, 'circuit', w.circuit IS NOT NULL) ORDER BY w.rail, w.position)
+         FROM ways w WHERE w.board_id = b.id), '[]'::json) AS ways
+     FROM boards b JOIN sites s ON s.id = b.site_id
+     WHERE b.organisation_id = $1 AND b.deleted_at IS NULL AND ($2::uuid IS NULL OR b.site_id = $2)
+       AND (COALESCE(b.archived_at, s.archived_at) IS NOT NULL) = $3
+     ORDER BY b.updated_at DESC`,
+    [actor.organisationId, opts.siteId ?? null, !!opts.archived],
+  );
+  return rows.map(({ ways, ...b }) => {
+    const counts = countWays(b.phases, ways);
+    return { ...b, wayCount: counts.ways, counts };
   });
 }
 
