@@ -210,7 +210,9 @@ export function defineRoute<
 /** The JSON error answer for anything a handler or server action throws. */
 export function errorResponse(err: unknown): Response {
   if (err instanceof HttpError) {
-    return Response.json({ error: err.message, ...err.body }, { status: err.status });
+    // A refusal that can pass (e.g. the print queue full) says when to try again
+    const retry = typeof err.body.retryAfter === 'number' ? { 'Retry-After': String(err.body.retryAfter) } : undefined;
+    return Response.json({ error: err.message, ...err.body }, { status: err.status, headers: retry });
   }
   if (err instanceof ZodError) {
     return Response.json({ error: 'Some fields are not valid.', issues: fieldIssues(err) }, { status: 400 });

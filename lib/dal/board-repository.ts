@@ -20,6 +20,7 @@ import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import type { LabelStatus } from '@/lib/domain';
+import type { CommentDto } from '@/lib/boards/review-types';
 import { Board, Way } from '@/models';
 
 /**
@@ -357,22 +358,33 @@ export async function writeLabelCheck(
   return ways.map((w) => w.labelStatus);
 }
 
-/** What issuing needs besides the board: the organisation's name and rule, who changed the design last, the last revision issued. */
+/** What issuing needs besides the board. */
 export type IssueFacts = {
   orgName: string;
   allowSelfIssue: boolean;
   designChangedById: string | null;
   lastIssued: number;
+  /** The board's comments, oldest first (as `commentsOf` answers them). */
+  comments: CommentDto[];
 };
 
-/** The issue facts of a board of the caller's organisation, in one statement. */
+/**
+ * What the issue preview needs besides the board (the organisation's name and rule, who changed
+ * the design last, the last revision issued) and the board's comments, in one statement.
+ */
 export async function readIssueFacts(actor: Actor, boardId: string): Promise<IssueFacts> {
   const [row] = await select<IssueFacts>(
     `SELECT o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue",
        (SELECT b.design_changed_by_id FROM boards b WHERE b.id = $1) AS "designChangedById",
-       COALESCE((SELECT max(r.revision) FROM board_revisions r WHERE r.board_id = $1), 0)::int AS "lastIssued"
+       COALESCE((SELECT max(r.revision) FROM board_revisions r WHERE r.board_id = $1), 0)::int AS "lastIssued",
+       COALESCE((SELECT json_agg(json_build_object(
+           'id', c.id, 'wayId', c.way_id, 'revision', c.revision, 'body', c.body,
+           'authorName', COALESCE(u.name, 'A former member'), 'createdAt', ${isoSql('c.created_at')},
+           'answeredAt', CASE WHEN c.answered_at IS NULL THEN NULL ELSE ${isoSql('c.answered_at')} END
+         ) ORDER BY c.created_at, c.id)
+         FROM comments c LEFT JOIN users u ON u.id = c.author_id WHERE c.board_id = $1), '[]'::json) AS comments
      FROM organisations o WHERE o.id = $2`,
     [boardId, actor.organisationId],
   );
-  return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0 };
+  return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0, comments: [] };
 }

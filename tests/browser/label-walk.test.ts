@@ -50,6 +50,13 @@ describe('review and label walk', () => {
       await signIn(page, 'inspector');
       await page.goto(`${APP_URL}/boards/${boardId}/review`);
       await expect.poll(() => page.getByRole('heading', { name: `Review: ${boardName}` }).count()).toBe(1);
+      // A way's checks are not in the page: they load when the way is opened
+      await expect(page.getByTestId('way-checks').count()).resolves.toBe(0);
+      const toggle = page.locator('tr:has([data-verdict]) button[aria-expanded]').first();
+      await toggle.click();
+      await expect.poll(() => toggle.getAttribute('aria-expanded')).toBe('true');
+      await page.getByTestId('way-checks').locator('li').first().waitFor();
+      await expect(page.getByTestId('way-checks').textContent()).resolves.toMatch(/BS 7671/);
       await page.getByRole('button', { name: 'Approve and issue' }).click();
       // The confirmation asks for the issuer's name (tests/browser/records.test.ts covers it)
       await page.getByLabel('Your full name').fill(demoUser('inspector').name);

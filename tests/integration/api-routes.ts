@@ -259,6 +259,10 @@ export const ROUTE_CALLS: Readonly<Record<string, RouteSample>> = {
     stage: 'issued',
     call: (fx) => ({ params: byBoard(fx), body: { to: 'client@example.test', message: 'The schedule as issued.' } }),
   },
+  'GET /api/boards/[boardId]/sizing/ways/[wayId]': {
+    mutates: false,
+    call: (fx) => ({ params: { ...byBoard(fx), wayId: fx.board.ways[1].id } }),
+  },
   'GET /api/boards/[boardId]/ways/walk': { mutates: false, call: (fx) => ({ params: byBoard(fx) }) },
   'POST /api/boards/[boardId]/ways/[wayId]/label': {
     mutates: true,

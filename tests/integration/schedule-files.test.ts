@@ -143,6 +143,54 @@ describe('an issued revision', () => {
   });
 });
 
+describe('a stored file and the browser', () => {
+  const withTag = (etag: string) =>
+    new Request('http://127.0.0.1/x?download=1', { headers: { 'if-none-match': etag } });
+
+  it('carries a strong ETag; If-None-Match with it is a 304 without a body or a render, until the walk changes it', async () => {
+    const board = await issuedBoard();
+    signInAs(team.users.installer);
+    const first = await download(scheduleRoute, board.id);
+    const etag = first.res.headers.get('etag')!;
+    expect(etag).toMatch(/^"[\w-]+"$/);
+    expect(first.res.headers.get('cache-control')).toBe('private, no-cache');
+    const stored = await download(scheduleRoute, board.id);
+    expect(stored.timing).toMatch(/^stored;/);
+    expect(stored.res.headers.get('etag')).toBe(etag);
+
+    const start = renders.mock.calls.length;
+    const again = await scheduleRoute.GET(withTag(etag), ctx({ boardId: board.id }));
+    expect(again.status).toBe(304);
+    expect(again.headers.get('etag')).toBe(etag);
+    expect(await again.text()).toBe('');
+    // Another tag, or one of several, is answered as it should be
+    expect((await scheduleRoute.GET(withTag('"something-else"'), ctx({ boardId: board.id }))).status).toBe(200);
+    expect((await scheduleRoute.GET(withTag(`"x", ${etag}`), ctx({ boardId: board.id }))).status).toBe(304);
+    // The label strips have their own tag
+    const strips = await download(labelsRoute, board.id);
+    expect(strips.res.headers.get('etag')).not.toBe(etag);
+    expect((await labelsRoute.GET(withTag(etag), ctx({ boardId: board.id }))).status).toBe(200);
+
+    // A label checked on the walk: the old tag no longer matches, the new file comes whole
+    const wayId = (await getScheduleSource(installer(), board.id)).snapshot.ways.find((w) => w.circuit)!.id;
+    const res = await labelRoute.POST(jsonRequest('POST', { status: 'matches' }), ctx({ boardId: board.id, wayId }));
+    expect(res.status).toBe(200);
+    const walked = await scheduleRoute.GET(withTag(etag), ctx({ boardId: board.id }));
+    expect(walked.status).toBe(200);
+    expect(walked.headers.get('etag')).not.toBe(etag);
+    expect(renders.mock.calls.length).toBe(start + 2);
+  });
+
+  it('is never a 304 for a draft (no ETag: it is rendered every time)', async () => {
+    const { board } = await makeBoard(team.org.id, 'flat');
+    signInAs(team.users.designer);
+    const first = await download(scheduleRoute, board.id);
+    expect(first.res.headers.get('etag')).toBeNull();
+    expect(first.res.headers.get('cache-control')).toBe('private, no-store');
+    expect((await scheduleRoute.GET(withTag('*'), ctx({ boardId: board.id }))).status).toBe(200);
+  });
+});
+
 describe('a draft', () => {
   it('is rendered on every print, in a worker thread of the print pool, and never stored', async () => {
     const { board } = await makeBoard(team.org.id, 'workshop');

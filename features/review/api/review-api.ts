@@ -1,4 +1,5 @@
 import { apiFetch } from '@/lib/api/client';
+import type { WayChecks } from '@/lib/boards/review-page-data';
 import type { RevisionDiff } from '@/lib/boards/revision-diff';
 import type { CommentDto } from '@/lib/boards/review-types';
 import type { RevisionSummary } from '@/lib/boards/review-types';
@@ -12,7 +13,14 @@ const base = (boardId: string) => `/api/boards/${encodeURIComponent(boardId)}`;
 export const reviewKeys = {
   revisions: (boardId: string) => ['boards', boardId, 'revisions'] as const,
   diff: (boardId: string, from: string, to: string) => ['boards', boardId, 'revisions', 'diff', from, to] as const,
+  wayChecks: (boardId: string, wayId: string) => ['boards', boardId, 'sizing', 'ways', wayId] as const,
 };
+
+/** GET /api/boards/:id/sizing/ways/:wayId: one way's checks from the stored sizing */
+export async function fetchWayChecks(boardId: string, wayId: string): Promise<WayChecks> {
+  const { checks } = await apiFetch<{ checks: WayChecks }>(`${base(boardId)}/sizing/ways/${encodeURIComponent(wayId)}`);
+  return checks;
+}
 
 /** POST /api/boards/:id/comments */
 export async function postComment(boardId: string, input: CommentInput): Promise<CommentDto> {

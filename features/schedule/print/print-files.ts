@@ -2,12 +2,16 @@ import 'server-only';
 
 import crypto from 'node:crypto';
 
-import type { ScheduleSource } from '@/lib/dal/schedule-source';
+import { can } from '@/lib/auth/permissions';
+import type { Actor } from '@/lib/auth/session';
+import { issuedPrintFacts, type IssuedPrintFacts } from '@/lib/dal/print-facts';
+import { getScheduleSource, type ScheduleSource } from '@/lib/dal/schedule-source';
 import { getObjectStream, putObject } from '@/lib/storage/s3';
 
 import { formatDate } from '../utils/build-schedule';
+import { parsePrintQuery } from '../utils/print-query';
 import type { PrintJob, RenderedPdf } from './print-job';
-import { renderInPool } from './print-pool';
+import { printQueueFull, PrintQueueFull, renderInPool } from './print-pool';
 
 /**
  * A printed PDF ready to answer: the stored file's stream, or freshly rendered bytes, and how
@@ -19,6 +23,8 @@ export type PrintedPdf = {
   fileName: string;
   made: 'stored' | 'rendered';
   renderMs: number;
+  /** An issued revision's file: its strong ETag (from the storage key, which names its content). */
+  etag?: string;
 };
 
 const slug = (name: string) =>
@@ -28,9 +34,15 @@ const slug = (name: string) =>
     .toLowerCase() || 'board';
 
 /** The file name a render gives a board state (the same rule as build-schedule and build-labels). */
-function fileNameOf(kind: PrintJob['kind'], source: ScheduleSource): string {
-  return `${kind}-${slug(source.snapshot.settings.name)}-rev${source.revision}${source.frozen ? '' : '-draft'}.pdf`;
+function fileNameOf(kind: PrintJob['kind'], name: string, revision: number, frozen: boolean): string {
+  return `${kind}-${slug(name)}-rev${revision}${frozen ? '' : '-draft'}.pdf`;
 }
+
+/** What a stored print's key is made from: the fields of a source (or of `IssuedPrintFacts`) it hashes. */
+type KeyFacts = Pick<ScheduleSource, 'boardId' | 'boardUrl' | 'revision' | 'status' | 'issued' | 'labels'>;
+
+/** A strong ETag for a stored file: its key names its content (rendered once per key). */
+const etagOf = (key: string) => `"${crypto.createHash('sha256').update(key).digest('base64url').slice(0, 27)}"`;
 
 /**
  * Where an issued revision's PDF is stored. The revision itself never changes (its row cannot be
@@ -39,7 +51,7 @@ function fileNameOf(kind: PrintJob['kind'], source: ScheduleSource): string {
  * printed. Those go into a hash in the key, so a label change gives a new file; within one day
  * and one state of the walk the schedule is rendered once. Label strips print none of them.
  */
-export function storedKey(kind: PrintJob['kind'], source: ScheduleSource, now: Date): string {
+export function storedKey(kind: PrintJob['kind'], source: KeyFacts, now: Date): string {
   const base = `prints/${source.boardId}/rev-${source.revision}`;
   if (kind === 'labels') return `${base}/labels.pdf`;
   const labels = Object.entries(source.labels ?? {}).sort(([a], [b]) => a.localeCompare(b));
@@ -66,12 +78,13 @@ async function render(job: PrintJob): Promise<RenderedPdf> {
  * there, else rendered (in the pool) and stored; a draft's is always rendered in the pool.
  */
 export async function printPdf(kind: PrintJob['kind'], source: ScheduleSource, now = new Date()): Promise<PrintedPdf> {
-  const fileName = fileNameOf(kind, source);
+  const fileName = fileNameOf(kind, source.snapshot.settings.name, source.revision, source.frozen);
   const job = { kind, source, now: now.toISOString() };
   if (!source.frozen) return rendered(await timed(job), fileName);
   const key = storedKey(kind, source, now);
+  const etag = etagOf(key);
   const found = await getObjectStream(key);
-  if (found) return { body: found.body, length: found.length, fileName, made: 'stored', renderMs: 0 };
+  if (found) return { body: found.body, length: found.length, fileName, made: 'stored', renderMs: 0, etag };
   // Requests for a file not yet stored wait for the one render of it under way in this process
   let pending = storing.get(key);
   if (!pending) {
@@ -83,8 +96,48 @@ export async function printPdf(kind: PrintJob['kind'], source: ScheduleSource, n
       .finally(() => storing.delete(key));
     storing.set(key, pending);
   }
-  return rendered(await pending, fileName);
+  return { ...rendered(await pending, fileName), etag };
 }
+
+/**
+ * An issued revision's print answered from its facts alone (one light statement, no snapshot
+ * or sizing read): 304 when the caller's `If-None-Match` names the file's ETag, else the stored
+ * file streamed from object storage. Null when it is not stored yet (the caller then gathers
+ * the source and renders it through `printPdf`, which stores it).
+ */
+export async function storedPrintResponse(
+  kind: PrintJob['kind'],
+  facts: IssuedPrintFacts,
+  req: Request,
+  download: boolean,
+  now = new Date(),
+): Promise<Response | null> {
+  const key = storedKey(kind, facts, now);
+  const etag = etagOf(key);
+  const fileName = fileNameOf(kind, facts.name, facts.revision, true);
+  if (matches(req.headers.get('if-none-match'), etag)) {
+    return new Response(null, { status: 304, headers: { ETag: etag, 'Cache-Control': CACHE_ISSUED } });
+  }
+  const found = await getObjectStream(key);
+  if (!found) return null;
+  return pdfResponse({ body: found.body, length: found.length, fileName, made: 'stored', renderMs: 0, etag }, download);
+}
+
+/** Whether an If-None-Match header names this ETag (a list, `*`, or weak forms of it). */
+function matches(header: string | null, etag: string): boolean {
+  if (!header) return false;
+  return header.split(',').some((t) => {
+    const tag = t.trim();
+    return tag === '*' || tag === etag || tag === `W/${etag}`;
+  });
+}
+
+/**
+ * An issued file may be kept by the caller's browser but never by a shared cache, and is
+ * checked again on each use (a label change on the walk gives a new file): with its ETag that
+ * check is a 304 when nothing changed.
+ */
+const CACHE_ISSUED = 'private, no-cache';
 
 /** Renders of issued files under way in this process, by storage key (removed when stored). */
 const storing = new Map<string, Promise<RenderedPdf & { renderMs: number }>>();
@@ -112,12 +165,61 @@ export function pdfResponse(printed: PrintedPdf, download: boolean): Response {
   const headers: Record<string, string> = {
     'Content-Type': 'application/pdf',
     'Content-Disposition': `${download ? 'attachment' : 'inline'}; filename="${printed.fileName}"`,
-    'Cache-Control': 'private, no-store',
+    'Cache-Control': printed.etag ? CACHE_ISSUED : 'private, no-store',
     'Server-Timing':
       printed.made === 'stored'
         ? 'stored;desc="from storage"'
         : `render;desc="rendered";dur=${printed.renderMs.toFixed(1)}`,
   };
   if (printed.length !== undefined) headers['Content-Length'] = String(printed.length);
+  if (printed.etag) headers.ETag = printed.etag;
   return new Response(printed.body as BodyInit, { headers });
+}
+
+/**
+ * The answer to a refused print (`PrintQueueFull`): 503 with Retry-After. A browser that opened
+ * the PDF link itself (it accepts HTML) gets a short page saying so instead of JSON.
+ */
+export function printBusyResponse(err: PrintQueueFull, req: Request): Response {
+  const retry = String(err.body.retryAfter);
+  if (!(req.headers.get('accept') ?? '').includes('text/html')) {
+    return Response.json({ error: err.message }, { status: 503, headers: { 'Retry-After': retry } });
+  }
+  const page = `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Busy printing</title>
+<meta name="viewport" content="width=device-width, initial-scale=1"></head>
+<body style="font-family: system-ui, sans-serif; margin: 2rem; max-width: 40rem; color: #1f2328">
+<h1 style="font-size: 1.25rem">Busy printing</h1><p>${err.message}</p>
+<p><a href="javascript:location.reload()">Try again</a></p></body></html>`;
+  return new Response(page, {
+    status: 503,
+    headers: { 'Content-Type': 'text/html; charset=utf-8', 'Retry-After': retry, 'Cache-Control': 'no-store' },
+  });
+}
+
+/**
+ * A schedule or label strips request: an issued revision's stored file from one light
+ * statement (or 304), else the board state gathered and printed (`printPdf`). A draft is
+ * refused with 503 before its source is gathered when the print queue is full.
+ */
+export async function answerPrint(
+  kind: PrintJob['kind'],
+  { req, actor, boardId }: { req: Request; actor: Actor; boardId: string },
+): Promise<Response> {
+  const query = parsePrintQuery(req.url);
+  const download = query.download === '1';
+  try {
+    const facts = await issuedPrintFacts(actor, boardId, query.revision);
+    if (facts) {
+      const stored = await storedPrintResponse(kind, facts, req, download);
+      if (stored) return stored;
+    } else if (printQueueFull() && can(actor.role, 'schedule.print-draft')) {
+      throw new PrintQueueFull();
+    }
+    // The board state to print (ownership and the installers' rule in the DAL)
+    const source = await getScheduleSource(actor, boardId, query.revision);
+    return pdfResponse(await printPdf(kind, source), download);
+  } catch (err) {
+    if (err instanceof PrintQueueFull) return printBusyResponse(err, req);
+    throw err;
+  }
 }

@@ -6,6 +6,8 @@ import { pathToFileURL } from 'node:url';
 
 import { Piscina } from 'piscina';
 
+import { HttpError } from '@/lib/errors';
+
 import type { PrintJob, RenderedPdf } from './print-job';
 
 let pool: Piscina<PrintJob, RenderedPdf> | undefined;
@@ -20,14 +22,27 @@ export function printWorkerFile(): string {
   );
 }
 
+/** A whole number from the environment, else the fallback. */
+function envCount(name: string, fallback: number, min: number): number {
+  const asked = Number(process.env[name]);
+  return Number.isInteger(asked) && asked >= min ? asked : fallback;
+}
+
 /**
  * Threads: PRINT_THREADS, else one fewer than the cores (at least one), so that renders
- * never take every core from the threads answering requests.
+ * never take every core from the thread answering requests (on 2 cores: one thread).
  */
 function threads(): number {
-  const asked = Number(process.env.PRINT_THREADS);
-  if (Number.isInteger(asked) && asked > 0) return asked;
-  return Math.max(1, os.availableParallelism() - 1);
+  return envCount('PRINT_THREADS', Math.max(1, os.availableParallelism() - 1), 1);
+}
+
+/**
+ * Prints waiting for a thread at most: PRINT_QUEUE, else 8. A render takes about half a second
+ * of CPU, so a print waits a few seconds at worst; beyond that the server answers 503 with
+ * Retry-After (`PrintQueueFull`) rather than letting waits and memory grow without end.
+ */
+export function printQueueLimit(): number {
+  return envCount('PRINT_QUEUE', 8, 0);
 }
 
 /** The print pool of this process, started on first use. */
@@ -38,15 +53,45 @@ export function printPool(): Piscina<PrintJob, RenderedPdf> {
     filename: pathToFileURL(printWorkerFile()).href,
     minThreads: 1,
     maxThreads: max,
+    maxQueue: printQueueLimit(),
     // A thread that has loaded react-pdf and the fonts is kept a while for the next print
     idleTimeout: 60_000,
   });
   return pool;
 }
 
-/** Renders a PDF in a worker thread of the print pool. */
+/** Seconds a refused print is asked to wait before trying again. */
+const RETRY_AFTER_S = 5;
+
+/** The print queue is full: 503 with Retry-After and a message a reader can act on. */
+export class PrintQueueFull extends HttpError {
+  constructor() {
+    super(503, `The server is busy printing other schedules. Try again in ${RETRY_AFTER_S} seconds.`, {
+      retryAfter: RETRY_AFTER_S,
+    });
+  }
+}
+
+/**
+ * Whether a new print would be refused now: every thread busy and the queue at its limit.
+ * Checked before a draft's source is gathered, so that a refused print costs next to nothing.
+ */
+export function printQueueFull(): boolean {
+  return pool !== undefined && pool.queueSize > 0 && pool.queueSize >= printQueueLimit();
+}
+
+/** Renders a PDF in a worker thread of the print pool; a full queue is `PrintQueueFull` (503). */
 export async function renderInPool(job: PrintJob): Promise<RenderedPdf> {
-  const out = await printPool().run(job);
+  let out: RenderedPdf;
+  try {
+    out = await printPool().run(job);
+  } catch (err) {
+    // piscina's refusals: the queue at its limit, or no queue and every thread busy
+    if (err instanceof Error && /queue is at limit|no task queue available/i.test(err.message)) {
+      throw new PrintQueueFull();
+    }
+    throw err;
+  }
   // A Uint8Array cloned from the worker arrives as one
   return { pdf: new Uint8Array(out.pdf.buffer, out.pdf.byteOffset, out.pdf.byteLength), fileName: out.fileName };
 }

@@ -3,9 +3,27 @@
  * pool (print-pool.ts), so that a render's CPU never holds up the server's own event loop.
  * Bundled into `<distDir>/print-worker.mjs` by scripts/build-print-worker.mjs after `next build`.
  */
+import os from 'node:os';
+import { isMainThread } from 'node:worker_threads';
+
 import { renderLabelStripsPdf, renderSchedulePdf } from '../render-schedule';
 
 import type { PrintJob, RenderedPdf } from './print-job';
+
+/**
+ * A render thread runs at a lower priority (PRINT_NICE, default 10) than the thread answering
+ * requests: on Linux a thread's nice value is its own (`setpriority` with 0 names the calling
+ * thread), so the server's event loop keeps the CPU it needs while prints take what is left.
+ * Never in the main thread (the in-process render of `next dev` and tests).
+ */
+if (!isMainThread) {
+  const nice = Number(process.env.PRINT_NICE ?? 10);
+  try {
+    if (Number.isInteger(nice) && nice > 0) os.setPriority(Math.min(nice, 19));
+  } catch {
+    // Not allowed here (some containers): renders run at the normal priority
+  }
+}
 
 export default async function render(job: PrintJob): Promise<RenderedPdf> {
   return job.kind === 'labels' ? renderLabelStripsPdf(job.source) : renderSchedulePdf(job.source, new Date(job.now));

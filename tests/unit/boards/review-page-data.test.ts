@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
-import { reviewPageData } from '@/lib/boards/review-page-data';
+import { reviewPageData, wayChecksOf } from '@/lib/boards/review-page-data';
 import type { ReviewData } from '@/lib/boards/review-types';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
@@ -33,7 +33,7 @@ const review = { sizing, sizingIssues: [], comments: [], revisions: [], refs: {}
 describe('reviewPageData: the review cut to what the page shows', () => {
   const page = reviewPageData(review);
 
-  it('keeps every way and the figures and checks the page shows, unchanged', () => {
+  it('keeps every way and the figures the table shows, unchanged; the checks load on opening a way', () => {
     expect(page.sizing!.ways.map((w) => w.id)).toEqual(sizing.ways.map((w) => w.id));
     const full = sizing.ways.find((w) => w.id === 'lights')!.result!;
     const cut = page.sizing!.ways.find((w) => w.id === 'lights')!.result!;
@@ -46,8 +46,8 @@ describe('reviewPageData: the review cut to what the page shows', () => {
       zsOhm: full.zsOhm,
       zsMaxOhm: full.zsMaxOhm,
       verdict: full.verdict,
-      checks: full.checks,
     });
+    expect(cut).not.toHaveProperty('checks');
     expect(page.sizing!.ways.find((w) => w.id === 'main')!.result).toBeNull();
     expect(page.sizing!.summary.counts).toEqual(sizing.summary.counts);
     expect(page.sizing!.summary.incomingCheck.message).toBe(sizing.summary.incomingCheck.message);
@@ -59,6 +59,15 @@ describe('reviewPageData: the review cut to what the page shows', () => {
     expect(cut).not.toHaveProperty('tableRow');
     expect(page.sizing!.summary).not.toHaveProperty('rcdCoverage');
     expect(JSON.stringify(page.sizing).length).toBeLessThan(JSON.stringify(sizing).length);
+  });
+
+  it("a way's checks as the page shows them on opening it: each check's words, nothing of the working", () => {
+    const full = sizing.ways.find((w) => w.id === 'lights')!.result!;
+    expect(wayChecksOf(full)).toEqual(
+      full.checks.map((c) => ({ code: c.code, ok: c.ok, message: c.message, reference: c.reference })),
+    );
+    expect(full.checks.length).toBeGreaterThan(0);
+    expect(wayChecksOf(null)).toEqual([]);
   });
 
   it('passes a board the engine refused through as not sized', () => {

@@ -16,7 +16,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ boardId
   const actor = await getActor();
   if (!actor) redirect('/login');
   if (!z.uuid().safeParse(boardId).success) notFound();
-  const data = await getReview(actor, boardId).catch((err: unknown) => {
+  const data = await getReview(actor, boardId, { withRevisions: false }).catch((err: unknown) => {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   });
