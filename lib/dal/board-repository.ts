@@ -19,7 +19,7 @@ import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
-import type { LabelStatus } from '@/lib/domain';
+import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import type { CommentDto } from '@/lib/boards/review-types';
 import { Board, Way } from '@/models';
 
@@ -387,4 +387,45 @@ export async function readIssueFacts(actor: Actor, boardId: string): Promise<Iss
     [boardId, actor.organisationId],
   );
   return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0, comments: [] };
+}
+
+/** One issued revision's print facts as `readIssuedPrintRows` reads them. */
+export type IssuedPrintRow = {
+  status: BoardStatus;
+  boardRevision: number;
+  revision: number | null;
+  issuedAt: Date | null;
+  issuerName: string | null;
+  name: string | null;
+  labels: [string, LabelStatus, string][] | null;
+};
+
+/**
+ * The row naming the issued revision a print request asks for (see `issuedPrintFacts`), with
+ * the walk's label results for the board's current issued revision; no row for a board that
+ * is not the caller's organisation's.
+ */
+export async function readIssuedPrintRows(
+  actor: Actor,
+  boardId: string,
+  revision: number | null,
+  mayPrintDraft: boolean,
+): Promise<IssuedPrintRow[]> {
+  return select<IssuedPrintRow>(
+    `SELECT b.status, b.revision AS "boardRevision", r.revision, r.issued_at AS "issuedAt", u.name AS "issuerName",
+       r.snapshot->'settings'->>'name' AS name,
+       CASE WHEN b.status IN ('issued', 'labels-matched') AND r.revision = b.revision THEN COALESCE((
+         SELECT json_agg(json_build_array(w.id, w.label_status, w.label_note))
+         FROM ways w WHERE w.board_id = b.id
+           AND w.id::text IN (SELECT e->>'id' FROM jsonb_array_elements(r.snapshot->'ways') e)
+       ), '[]'::json) END AS labels
+     FROM boards b
+     LEFT JOIN board_revisions r ON r.board_id = b.id AND r.revision = CASE
+       WHEN $3::int IS NOT NULL THEN $3::int
+       WHEN b.status IN ('issued', 'labels-matched') OR $4::boolean THEN b.revision
+       ELSE (SELECT max(x.revision) FROM board_revisions x WHERE x.board_id = b.id) END
+     LEFT JOIN users u ON u.id = r.issued_by_id
+     WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
+    [boardId, actor.organisationId, revision, mayPrintDraft],
+  );
 }
