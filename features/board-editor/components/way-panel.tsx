@@ -22,6 +22,21 @@ type WayPanelProps = {
   onRemove: (id: string) => void;
 };
 
+/** The way's full sizing: drawn again for an answer or a pending state, without the forms above it. */
+function WaySizing({ wayId }: { wayId: string }) {
+  const result = useDraftSizing((s) => s.result.ways.find((w) => w.id === wayId)?.result);
+  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
+  const { pending } = useSizingState();
+  if (!result) {
+    return (
+      <p className="text-sm text-ink-soft" role="status">
+        Sizing…
+      </p>
+    );
+  }
+  return <SizingResult result={result} stale={pending || sizedFor === 0} />;
+}
+
 /**
  * The way panel: the selected way's device and circuit, and below them the full sizing of
  * the way. Several ways selected (from the board summary): a list to step through them.
@@ -32,9 +47,6 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
   const selection = useBoardDraftStore((s) => s.selection);
   const { select, selectMany, updateCircuit } = useBoardDraftStore.getState();
   const labels = useWayLabels();
-  const wayResult = useDraftSizing((s) => s.result.ways.find((w) => w.id === selection[0]));
-  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
-  const { pending } = useSizingState();
   const way = ways.find((w) => w.id === selection[0]);
 
   if (!settings) return null;
@@ -143,15 +155,7 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
           </div>
         ) : null}
 
-        {protective && way.circuit && showSizing ? (
-          wayResult?.result ? (
-            <SizingResult result={wayResult.result} stale={pending || sizedFor === 0} />
-          ) : (
-            <p className="text-sm text-ink-soft" role="status">
-              Sizing…
-            </p>
-          )
-        ) : null}
+        {protective && way.circuit && showSizing ? <WaySizing wayId={way.id} /> : null}
         {protective && way.circuit && !showSizing ? (
           <p className="text-sm text-ink-soft">Sizing results are shown to designers and inspectors.</p>
         ) : null}

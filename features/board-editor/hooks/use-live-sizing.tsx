@@ -12,7 +12,7 @@ import { sizeDraft } from '../api/board-editor-api';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
 /** Quiet time after a change before the draft is sized again, when changes come quickly, ms. */
-export const SIZING_DEBOUNCE_MS = 150;
+export const SIZING_DEBOUNCE_MS = 80;
 
 /** The sizing of the draft at one edit sequence. */
 export type DraftSizing = { editSeq: number; result: BoardResult };
@@ -137,6 +137,11 @@ export function useSizingState(): SizingState {
     store,
     useShallow((s) => ({ pending: s.pending, error: s.error })),
   );
+}
+
+/** Why the last sizing failed, in words (null when it did not). */
+export function useSizingError(): string | null {
+  return useStore(useContext(SizingStoreContext), (s) => s.error);
 }
 
 /**
