@@ -1,6 +1,7 @@
 'use client';
 
 import { CircleCheck, CircleX, TriangleAlert } from 'lucide-react';
+import { memo } from 'react';
 
 import { countWays, countWords } from '@/lib/boards/counts';
 import { cn } from '@/lib/cn';
@@ -36,7 +37,7 @@ function CheckLine({ ok, message }: { ok: boolean; message: string }) {
  * against the demand, modules used, and how many ways fail or are near their limit. A count
  * selects those ways on the board.
  */
-export function BoardSummary() {
+export const BoardSummary = memo(function BoardSummary() {
   const result = useDraftSizing((s) => s.result);
   const error = useSizingError();
   const selectMany = useBoardDraftStore((s) => s.selectMany);
@@ -143,4 +144,4 @@ export function BoardSummary() {
       </details>
     </section>
   );
-}
+});

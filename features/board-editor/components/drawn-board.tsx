@@ -1,7 +1,7 @@
 'use client';
 
 import { replaceEqualDeep } from '@tanstack/react-query';
-import { useMemo, useRef } from 'react';
+import { memo, useMemo, useRef } from 'react';
 
 import type { BoardSettings } from '@/lib/boards/schemas';
 import { drawRails, railCapacities, rcdGroups } from '@/lib/boards/rail';
@@ -58,7 +58,12 @@ function useRailViews(): RailView[] {
  * The board as drawn: the enclosure and each rail to scale, every device at its module width
  * with its way reference, what it serves and its verdict, RCD brackets, gaps and free modules.
  */
-export function DrawnBoard({ readOnly, showVerdicts, dropRefusal = null, onRemove }: DrawnBoardProps) {
+export const DrawnBoard = memo(function DrawnBoard({
+  readOnly,
+  showVerdicts,
+  dropRefusal = null,
+  onRemove,
+}: DrawnBoardProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const editSeq = useBoardDraftStore((s) => s.editSeq);
   const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
@@ -104,4 +109,4 @@ export function DrawnBoard({ readOnly, showVerdicts, dropRefusal = null, onRemov
       </BoardViewContext.Provider>
     </section>
   );
-}
+});

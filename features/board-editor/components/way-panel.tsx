@@ -1,6 +1,7 @@
 'use client';
 
 import { CircleDashed, Plus, Trash2 } from 'lucide-react';
+import { memo } from 'react';
 
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
@@ -41,7 +42,7 @@ function WaySizing({ wayId }: { wayId: string }) {
  * The way panel: the selected way's device and circuit, and below them the full sizing of
  * the way. Several ways selected (from the board summary): a list to step through them.
  */
-export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
+export const WayPanel = memo(function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const ways = useBoardDraftStore((s) => s.ways);
   const selection = useBoardDraftStore((s) => s.selection);
@@ -162,4 +163,4 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
       </div>
     </section>
   );
-}
+});

@@ -116,6 +116,22 @@ export function LiveSizing({
   const pending = enabled && !query.isError && sizing?.editSeq !== editSeq;
   const error = query.error ? failureWords(query.error) : null;
   const [store] = useState(() => createStore<Published>()(() => ({ sizing, pending, error })));
+  // The answer for the draft as it is goes to the components in the task it arrives in (the
+  // query cache tells its listeners at once; the query observer above hears a task later, then
+  // renders, then publishes below: the same state, so nothing is drawn twice)
+  const queryClient = useQueryClient();
+  useEffect(
+    () =>
+      queryClient.getQueryCache().subscribe((event) => {
+        if (event.type !== 'updated' || event.action.type !== 'success') return;
+        const [name, id] = event.query.queryKey as unknown[];
+        const answer = event.query.state.data as DraftSizing | undefined;
+        if (name !== 'board-sizing' || id !== boardId || answer?.editSeq !== useBoardDraftStore.getState().editSeq)
+          return;
+        store.setState((last) => ({ sizing: replaceEqualDeep(last.sizing, answer), pending: false, error: null }));
+      }),
+    [queryClient, boardId, store],
+  );
   // Before paint: the components showing the sizing re-render in the same frame, and only
   // those whose slice changed (the children themselves are not re-rendered by this component)
   useLayoutEffect(() => {
