@@ -1,7 +1,10 @@
 /**
  * Board editor latency in a real browser: from a change (a field typed in the way panel, or a
- * way dropped at a new place on the rail) to the new verdict rendered on that way, measured
- * inside the page with performance.now(). Runs on the demo three-phase board 'Workshop DB1'.
+ * way dropped at a new place on the rail) to the new verdict rendered on that way and painted,
+ * measured inside the page with performance.now(). Runs on the demo three-phase board
+ * 'Workshop DB1'. Then where the time went (medians, and of the slowest 5 %): the change drawn,
+ * the sizing request sent, its time on the server (request start to first byte, Resource
+ * Timing), the answer in, the verdict in the DOM, painted, and the main thread's long tasks.
  * Also reports the editor route's first-load JavaScript as the browser fetched it.
  *
  *   APP_URL=http://127.0.0.1:3000 npx tsx scripts/bench/editor-latency.ts [changes=60]
@@ -17,7 +20,7 @@ import { chromium, type Page } from 'playwright-core';
 
 const APP_URL = process.env.APP_URL ?? 'http://127.0.0.1:3000';
 const CHANGES = Math.max(50, Number(process.argv[2] ?? 60));
-// Time between changes: a designer's pace, longer than the editor's 150 ms debounce
+// Time between changes: a designer's pace, longer than the editor's 80 ms debounce
 const GAP_MS = 250;
 
 function percentile(sorted: number[], p: number): number {
@@ -31,22 +34,78 @@ function summary(name: string, samples: number[]) {
   return `${name.padEnd(26)} n=${String(s.length).padStart(3)}  p50 ${percentile(s, 50).toFixed(1).padStart(6)} ms  p95 ${percentile(s, 95).toFixed(1).padStart(6)} ms  max ${s[s.length - 1].toFixed(1).padStart(6)} ms  mean ${mean.toFixed(1)} ms`;
 }
 
-/** Waits, in the page, until the way shows a sizing of the current edit sequence newer than `before`. */
-async function waitForVerdict(page: Page, wayId: string, before: number): Promise<number> {
+/** Where one change's time went, ms from the change (see `installProbes`). */
+type Sample = {
+  total: number;
+  /** The change drawn: the drawn board's `data-edit-seq` committed to the DOM. */
+  edit: number;
+  /** The sizing request sent (fetch start), answered (response end), and the verdict in the DOM. */
+  sent: number;
+  server: number;
+  answered: number;
+  verdict: number;
+  /** Main-thread long tasks (over 50 ms) inside the change, summed. */
+  longTasks: number;
+};
+
+/**
+ * Page-side probes for the breakdown: when the drawn board's edit sequence reaches the DOM, and
+ * the long tasks. The sizing request's own times come from the Resource Timing entries.
+ */
+async function installProbes(page: Page) {
+  await page.evaluate(() => {
+    const w = window as unknown as { benchEditAt: number; benchLongTasks: PerformanceEntry[] };
+    const board = document.querySelector<HTMLElement>('[data-testid="drawn-board"]')!;
+    w.benchLongTasks = [];
+    performance.setResourceTimingBufferSize(100_000);
+    new MutationObserver(() => (w.benchEditAt = performance.now())).observe(board, {
+      attributes: true,
+      attributeFilter: ['data-edit-seq'],
+    });
+    new PerformanceObserver((list) => w.benchLongTasks.push(...list.getEntries())).observe({ type: 'longtask' });
+  });
+}
+
+/**
+ * Waits, in the page, until the drawn board shows a sizing of the current edit sequence newer
+ * than `before` (its `data-sized-for`; the devices are drawn in the same commit) with a
+ * verdict on the way.
+ */
+async function waitForVerdict(page: Page, wayId: string, before: number): Promise<Sample> {
   return page.evaluate(
     ({ wayId, before }) =>
-      new Promise<number>((resolve, reject) => {
+      new Promise<Sample>((resolve, reject) => {
         const board = document.querySelector<HTMLElement>('[data-testid="drawn-board"]')!;
-        const t0 = (window as unknown as { benchT0: number }).benchT0;
+        const w = window as unknown as { benchT0: number; benchEditAt: number; benchLongTasks: PerformanceEntry[] };
+        const t0 = w.benchT0;
         const done = () => {
           const cell = document.querySelector<HTMLElement>(`[data-way-id="${wayId}"]`);
-          const sized = Number(cell?.dataset.sizedFor ?? 0);
+          const sized = Number(board.dataset.sizedFor ?? 0);
           const editSeq = Number(board.dataset.editSeq);
           if (cell && sized > before && sized === editSeq && cell.querySelector('[data-verdict]')) {
+            const verdictAt = performance.now();
             observer.disconnect();
             clearTimeout(timer);
             // The verdict is in the DOM; count the frame that paints it
-            requestAnimationFrame(() => resolve(performance.now() - t0));
+            requestAnimationFrame(() => {
+              const end = performance.now();
+              const request = performance
+                .getEntriesByType('resource')
+                .filter((e) => e.name.includes('/sizing') && e.startTime >= t0)
+                .pop() as PerformanceResourceTiming | undefined;
+              const longTasks = w.benchLongTasks
+                .filter((e) => e.startTime + e.duration > t0 && e.startTime < end)
+                .reduce((n, e) => n + Math.min(end, e.startTime + e.duration) - Math.max(t0, e.startTime), 0);
+              resolve({
+                total: end - t0,
+                edit: w.benchEditAt - t0,
+                sent: request ? request.fetchStart - t0 : NaN,
+                server: request ? request.responseStart - request.requestStart : NaN,
+                answered: request ? request.responseEnd - t0 : NaN,
+                verdict: verdictAt - t0,
+                longTasks,
+              });
+            });
             return true;
           }
           return false;
@@ -61,6 +120,27 @@ async function waitForVerdict(page: Page, wayId: string, before: number): Promis
       }),
     { wayId, before },
   );
+}
+
+/** The median of each part of the time, and of the slowest 5 % of the changes. */
+function breakdown(name: string, samples: Sample[]) {
+  const median = (xs: number[]) => {
+    const s = xs.filter((x) => !Number.isNaN(x)).sort((a, b) => a - b);
+    return s.length ? s[Math.floor((s.length - 1) / 2)] : NaN;
+  };
+  const row = (label: string, of: Sample[]) => {
+    const m = (f: (s: Sample) => number) => median(of.map(f)).toFixed(1).padStart(6);
+    return (
+      `  ${label.padEnd(14)} change drawn ${m((s) => s.edit)} | request sent ${m((s) => s.sent)}` +
+      ` | on the server ${m((s) => s.server)} | answer in ${m((s) => s.answered)}` +
+      ` | verdict in the DOM ${m((s) => s.verdict)} | painted ${m((s) => s.total)}` +
+      ` | long tasks ${m((s) => s.longTasks)}`
+    );
+  };
+  const slowest = [...samples].sort((a, b) => b.total - a.total).slice(0, Math.max(1, Math.ceil(samples.length / 20)));
+  console.log(`${name}, ms from the change (medians):`);
+  console.log(row('all', samples));
+  console.log(row('slowest 5 %', slowest));
 }
 
 async function main() {
@@ -114,7 +194,8 @@ async function main() {
     const targetId = (await target.getAttribute('data-way-id'))!;
     await target.click();
     await page.getByRole('region', { name: 'Way panel' }).getByLabel('Length (m)').waitFor();
-    const fieldSamples: number[] = [];
+    await installProbes(page);
+    const fieldSamples: Sample[] = [];
     for (let i = 0; i < CHANGES; i++) {
       const before = Number(await page.locator('[data-testid="drawn-board"]').getAttribute('data-edit-seq'));
       await page.evaluate(
@@ -134,7 +215,7 @@ async function main() {
     }
 
     // 2. Drops: a way dragged with the pointer one place along the rail and back again
-    const dropSamples: number[] = [];
+    const dropSamples: Sample[] = [];
     const mover = page.locator('[data-way-label="5L1"]');
     const moverId = (await mover.getAttribute('data-way-id'))!;
     await page.evaluate(() => {
@@ -169,11 +250,15 @@ async function main() {
       await page.waitForTimeout(GAP_MS);
     }
 
-    console.log(summary('field change → verdict', fieldSamples));
-    console.log(summary('drop → verdict', dropSamples));
-    console.log(summary('all changes', [...fieldSamples, ...dropSamples]));
+    const totals = (xs: Sample[]) => xs.map((x) => x.total);
+    console.log(summary('field change → verdict', totals(fieldSamples)));
+    console.log(summary('drop → verdict', totals(dropSamples)));
+    console.log(summary('all changes', totals([...fieldSamples, ...dropSamples])));
+    console.log();
+    breakdown('Field changes', fieldSamples);
+    breakdown('Drops', dropSamples);
     const p95 = percentile(
-      [...fieldSamples, ...dropSamples].sort((a, b) => a - b),
+      totals([...fieldSamples, ...dropSamples]).sort((a, b) => a - b),
       95,
     );
     console.log(`\nTarget p95 < 150 ms: ${p95 < 150 ? 'met' : 'NOT met'} (${p95.toFixed(1)} ms)`);

@@ -113,7 +113,13 @@ describe('the board editor', () => {
     await panel.getByLabel('Load (W)').fill('2500');
     await panel.getByLabel('Length (m)').fill('24');
 
-    // The verdict is drawn on the way, in words, and the full sizing is in the panel
+    // The verdict is drawn on the way, in words, and the full sizing is in the panel; read once
+    // the draft as it is now is sized (each field's change is sized as it comes, so an earlier
+    // answer may be showing for a moment)
+    await page.waitForFunction(() => {
+      const board = document.querySelector<HTMLElement>('[data-testid="drawn-board"]')?.dataset;
+      return !!board && board.sizedFor === board.editSeq && board.sizing === 'done';
+    });
     await expect
       .poll(() => cellOf(page, added).getAttribute('aria-label'))
       .toMatch(/^Way 10, MCB C20, serves Garden office heater, (passes|is near its limit|fails)$/);

@@ -1,11 +1,12 @@
 'use client';
 
 import { CircleCheck, CircleX, TriangleAlert } from 'lucide-react';
+import { memo } from 'react';
 
 import { countWays, countWords } from '@/lib/boards/counts';
 import { cn } from '@/lib/cn';
 
-import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
+import { useDraftSizing, useSizingError } from '../hooks/use-live-sizing';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { fmt } from '../utils/format';
 
@@ -36,12 +37,12 @@ function CheckLine({ ok, message }: { ok: boolean; message: string }) {
  * against the demand, modules used, and how many ways fail or are near their limit. A count
  * selects those ways on the board.
  */
-export function BoardSummary() {
+export const BoardSummary = memo(function BoardSummary() {
   const result = useDraftSizing((s) => s.result);
-  const { error } = useSizingState();
+  const error = useSizingError();
   const selectMany = useBoardDraftStore((s) => s.selectMany);
-  const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
-  const ways = useBoardDraftStore((s) => s.ways);
+  // The words only: a change to a circuit does not draw the summary again
+  const wayCounts = useBoardDraftStore((s) => countWords(countWays(s.settings?.phases ?? 1, s.ways)));
   if (!result) {
     return (
       <section
@@ -117,7 +118,7 @@ export function BoardSummary() {
         </span>
         {/* The ways counted by way number, in the words of the boards list and the schedule */}
         <span className="text-ink-soft" data-testid="way-counts">
-          · {countWords(countWays(phases, ways))}
+          · {wayCounts}
         </span>
       </div>
       {s.checks.some((c) => !c.ok && !['incoming', 'busbar', 'modules'].includes(c.code)) ? (
@@ -143,4 +144,4 @@ export function BoardSummary() {
       </details>
     </section>
   );
-}
+});

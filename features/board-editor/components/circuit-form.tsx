@@ -1,5 +1,7 @@
 'use client';
 
+import { memo } from 'react';
+
 import { CircuitFields } from '@/components/sizing/circuit-fields';
 import { circuitSpecSchema, type CircuitSpec } from '@/lib/sizing';
 
@@ -18,7 +20,7 @@ type CircuitFormProps = {
  * Each valid change goes into the draft at once; an invalid field shows its error and the draft
  * keeps the last valid circuit.
  */
-export function CircuitForm({ wayId, boardPhases, readOnly }: CircuitFormProps) {
+export const CircuitForm = memo(function CircuitForm({ wayId, boardPhases, readOnly }: CircuitFormProps) {
   const circuit = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId)?.circuit) as CircuitSpec;
   const form = useDraftForm(`circuit:${wayId}`, circuitSpecSchema, circuit, (value, field) =>
     useBoardDraftStore.getState().updateCircuit(wayId, value, `circuit:${wayId}:${field}`),
@@ -37,4 +39,4 @@ export function CircuitForm({ wayId, boardPhases, readOnly }: CircuitFormProps) 
       </fieldset>
     </form>
   );
-}
+});

@@ -10,10 +10,17 @@ import { cn } from '@/lib/cn';
 import { isProtectiveDevice } from '@/lib/sizing';
 
 import { useBoardView } from '../hooks/use-board-view';
-import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
+import { useDraftSizing } from '../hooks/use-live-sizing';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { describeWay } from '../utils/describe';
 import { DeviceFace } from './device-face';
+
+/**
+ * A verdict while a newer sizing is on its way (the drawn board's `data-sizing`): dimmed after
+ * a moment, by CSS, so that neither the devices nor the legend are drawn again for it.
+ */
+export const PENDING_DIM =
+  'transition-opacity group-data-[sizing=pending]/board:opacity-50 group-data-[sizing=pending]/board:delay-300';
 
 type DeviceCellProps = {
   wayId: string;
@@ -32,9 +39,8 @@ export const DeviceCell = memo(function DeviceCell({ wayId, label, start }: Devi
   const way = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId))!;
   const selected = useBoardDraftStore((s) => s.selection.includes(wayId));
   const { readOnly, showVerdicts: showVerdict, onRemove } = useBoardView();
+  // Its own way's result only: an answer that leaves it as it was does not draw it again
   const result = useDraftSizing((s) => s.result.ways.find((w) => w.id === wayId));
-  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
-  const { pending } = useSizingState();
   const onSelect = useBoardDraftStore((s) => s.select);
   const { attributes, listeners, setNodeRef, transform, transition, isDragging } = useSortable({
     id: way.id,
@@ -58,7 +64,6 @@ export const DeviceCell = memo(function DeviceCell({ wayId, label, start }: Devi
       aria-pressed={selected}
       data-way-id={way.id}
       data-way-label={label ?? ''}
-      data-sized-for={sizedFor}
       onClick={() => onSelect(way.id)}
       onKeyDown={(event) => {
         if (event.key === 'Enter') {
@@ -97,7 +102,7 @@ export const DeviceCell = memo(function DeviceCell({ wayId, label, start }: Devi
       </div>
       <div className="flex h-6 items-center justify-center">
         {showVerdict && verdict ? (
-          <VerdictBadge verdict={verdict} iconOnly pending={pending} />
+          <VerdictBadge verdict={verdict} iconOnly className={PENDING_DIM} />
         ) : spare || device.kind === 'blank' ? (
           <span
             data-spare

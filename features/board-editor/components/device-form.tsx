@@ -1,5 +1,7 @@
 'use client';
 
+import { memo } from 'react';
+
 import { Field, Select } from '@/components/ui/field';
 import { deviceOnRailSchema, isProtectiveDevice, STANDARD_RATINGS_A, type DeviceOnRail } from '@/lib/sizing';
 
@@ -19,7 +21,7 @@ const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefi
  * engine's deviceOnRailSchema. Its kind and width stay as dropped: a different device is a new
  * one from the tray.
  */
-export function DeviceForm({ wayId, readOnly }: DeviceFormProps) {
+export const DeviceForm = memo(function DeviceForm({ wayId, readOnly }: DeviceFormProps) {
   const device = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId)?.device) as DeviceOnRail;
   const form = useDraftForm(`device:${wayId}`, deviceOnRailSchema, device, (value, field) =>
     useBoardDraftStore.getState().updateDevice(wayId, value, `device:${wayId}:${field}`),
@@ -124,4 +126,4 @@ export function DeviceForm({ wayId, readOnly }: DeviceFormProps) {
       </fieldset>
     </form>
   );
-}
+});

@@ -3,20 +3,25 @@
 import { useDroppable } from '@dnd-kit/core';
 import { horizontalListSortingStrategy, SortableContext } from '@dnd-kit/sortable';
 
-import { useMemo } from 'react';
+import { memo } from 'react';
 
 import { cn } from '@/lib/cn';
-import { rcdGroups, type RailDrawing } from '@/lib/boards/rail';
+import type { RailDrawing } from '@/lib/boards/rail';
 
-import { useBoardView, useWayLabels } from '../hooks/use-board-view';
-import { useBoardDraftStore } from '../stores/board-draft-store';
+import { useBoardView } from '../hooks/use-board-view';
 import { DeviceCell } from './device-cell';
 import { RailLegend } from './rail-legend';
 
 /** Widest a module is drawn, px: a short rail does not stretch across the page. */
 const MAX_MODULE_PX = 58;
 
-type RailRowProps = { drawing: RailDrawing; railCount: number };
+/** One rail as drawn, and the part of each RCD's bracket on it (its ends in modules, the ways it protects). */
+export type RailView = {
+  drawing: RailDrawing;
+  brackets: { id: string; from: number; to: number; rcdMa: number | null; protectedLabels: string[] }[];
+};
+
+type RailRowProps = { view: RailView; railCount: number };
 
 function FreeModules({ rail, start, modules }: { rail: number; start: number; modules: number }) {
   const { readOnly, dropRefusal: refusal } = useBoardView();
@@ -46,28 +51,16 @@ function FreeModules({ rail, start, modules }: { rail: number; start: number; mo
   );
 }
 
-/** One DIN rail drawn to scale: module grid, RCD brackets, devices, phase gaps and free modules. */
-export function RailRow({ drawing, railCount }: RailRowProps) {
-  const ways = useBoardDraftStore((s) => s.ways);
-  const labels = useWayLabels();
+/**
+ * One DIN rail drawn to scale: module grid, RCD brackets, devices, phase gaps and free modules.
+ * Drawn again only when its view changes (the devices and the legend follow their own ways).
+ */
+export const RailRow = memo(function RailRow({ view: { drawing, brackets }, railCount }: RailRowProps) {
   const { readOnly } = useBoardView();
-  const groups = useMemo(() => rcdGroups(ways), [ways]);
   const columns = Math.max(drawing.capacity, drawing.used);
   const grid = { gridTemplateColumns: `repeat(${columns}, minmax(0, 1fr))` };
   const devices = drawing.cells.flatMap((c) => (c.type === 'device' ? [c] : []));
   const ids = devices.map((c) => c.id);
-  const cellOf = new Map(devices.map((c) => [c.id, c]));
-
-  // The part of each RCD's bracket that lies on this rail
-  const brackets = groups.flatMap((g) => {
-    const here = g.spanIds.map((id) => cellOf.get(id)).filter((c) => c !== undefined);
-    if (!here.length) return [];
-    const from = Math.min(...here.map((c) => c.start));
-    const to = Math.max(...here.map((c) => c.start + c.modules));
-    const rcd = ways.find((w) => w.id === g.rcdId);
-    const protectedLabels = g.protectedIds.map((id) => labels.get(id)).filter(Boolean);
-    return [{ id: g.rcdId, from, to, rcd, protectedLabels }];
-  });
 
   return (
     <div className="mb-4 last:mb-0" data-rail={drawing.rail}>
@@ -88,7 +81,7 @@ export function RailRow({ drawing, railCount }: RailRowProps) {
               className="relative mx-px mt-3 rounded-t-sm border-x-2 border-t-2 border-copper"
             >
               <span className="absolute -top-3 left-1 max-w-full truncate bg-[#e6e2d8] px-1 text-[10px] font-semibold text-copper-dark">
-                RCD {b.rcd?.device.rcdMa ?? '?'} mA
+                RCD {b.rcdMa ?? '?'} mA
                 {b.protectedLabels.length ? ` · ${b.protectedLabels.join(', ')}` : ' · nothing yet'}
               </span>
             </div>
@@ -128,4 +121,4 @@ export function RailRow({ drawing, railCount }: RailRowProps) {
       <RailLegend railName={railCount > 1 ? `rail ${drawing.rail + 1}` : 'the rail'} entries={devices} />
     </div>
   );
-}
+});

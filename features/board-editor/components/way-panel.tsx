@@ -1,6 +1,7 @@
 'use client';
 
 import { CircleDashed, Plus, Trash2 } from 'lucide-react';
+import { memo } from 'react';
 
 import { Button } from '@/components/ui/button';
 import { Caution } from '@/components/ui/caution';
@@ -22,19 +23,31 @@ type WayPanelProps = {
   onRemove: (id: string) => void;
 };
 
+/** The way's full sizing: drawn again for an answer or a pending state, without the forms above it. */
+function WaySizing({ wayId }: { wayId: string }) {
+  const result = useDraftSizing((s) => s.result.ways.find((w) => w.id === wayId)?.result);
+  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
+  const { pending } = useSizingState();
+  if (!result) {
+    return (
+      <p className="text-sm text-ink-soft" role="status">
+        Sizing…
+      </p>
+    );
+  }
+  return <SizingResult result={result} stale={pending || sizedFor === 0} />;
+}
+
 /**
  * The way panel: the selected way's device and circuit, and below them the full sizing of
  * the way. Several ways selected (from the board summary): a list to step through them.
  */
-export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
+export const WayPanel = memo(function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const ways = useBoardDraftStore((s) => s.ways);
   const selection = useBoardDraftStore((s) => s.selection);
   const { select, selectMany, updateCircuit } = useBoardDraftStore.getState();
   const labels = useWayLabels();
-  const wayResult = useDraftSizing((s) => s.result.ways.find((w) => w.id === selection[0]));
-  const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;
-  const { pending } = useSizingState();
   const way = ways.find((w) => w.id === selection[0]);
 
   if (!settings) return null;
@@ -143,19 +156,11 @@ export function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
           </div>
         ) : null}
 
-        {protective && way.circuit && showSizing ? (
-          wayResult?.result ? (
-            <SizingResult result={wayResult.result} stale={pending || sizedFor === 0} />
-          ) : (
-            <p className="text-sm text-ink-soft" role="status">
-              Sizing…
-            </p>
-          )
-        ) : null}
+        {protective && way.circuit && showSizing ? <WaySizing wayId={way.id} /> : null}
         {protective && way.circuit && !showSizing ? (
           <p className="text-sm text-ink-soft">Sizing results are shown to designers and inspectors.</p>
         ) : null}
       </div>
     </section>
   );
-}
+});

@@ -12,7 +12,7 @@ import { sizeDraft } from '../api/board-editor-api';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
 /** Quiet time after a change before the draft is sized again, when changes come quickly, ms. */
-export const SIZING_DEBOUNCE_MS = 150;
+export const SIZING_DEBOUNCE_MS = 80;
 
 /** The sizing of the draft at one edit sequence. */
 export type DraftSizing = { editSeq: number; result: BoardResult };
@@ -116,6 +116,22 @@ export function LiveSizing({
   const pending = enabled && !query.isError && sizing?.editSeq !== editSeq;
   const error = query.error ? failureWords(query.error) : null;
   const [store] = useState(() => createStore<Published>()(() => ({ sizing, pending, error })));
+  // The answer for the draft as it is goes to the components in the task it arrives in (the
+  // query cache tells its listeners at once; the query observer above hears a task later, then
+  // renders, then publishes below: the same state, so nothing is drawn twice)
+  const queryClient = useQueryClient();
+  useEffect(
+    () =>
+      queryClient.getQueryCache().subscribe((event) => {
+        if (event.type !== 'updated' || event.action.type !== 'success') return;
+        const [name, id] = event.query.queryKey as unknown[];
+        const answer = event.query.state.data as DraftSizing | undefined;
+        if (name !== 'board-sizing' || id !== boardId || answer?.editSeq !== useBoardDraftStore.getState().editSeq)
+          return;
+        store.setState((last) => ({ sizing: replaceEqualDeep(last.sizing, answer), pending: false, error: null }));
+      }),
+    [queryClient, boardId, store],
+  );
   // Before paint: the components showing the sizing re-render in the same frame, and only
   // those whose slice changed (the children themselves are not re-rendered by this component)
   useLayoutEffect(() => {
@@ -137,6 +153,11 @@ export function useSizingState(): SizingState {
     store,
     useShallow((s) => ({ pending: s.pending, error: s.error })),
   );
+}
+
+/** Why the last sizing failed, in words (null when it did not). */
+export function useSizingError(): string | null {
+  return useStore(useContext(SizingStoreContext), (s) => s.error);
 }
 
 /**
