@@ -46,7 +46,8 @@ export type AuditAction =
   | 'board.supply-origin'
   | 'board.feed-changed'
   | 'board.supply-changed'
-  | 'site.origin-changed';
+  | 'site.origin-changed'
+  | 'site.pack-emailed';
 
 /** Appends one event to the audit trail, inside the caller's transaction when given. */
 export async function audit(

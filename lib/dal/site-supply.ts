@@ -22,7 +22,7 @@ import type {
   SiteTreeEdge,
 } from '@/lib/sites/tree-types';
 import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
-import { subMainLoad, wayLabels, worstVerdictOf } from '@/lib/supply';
+import { subMainLoad, wayLabels, worstVerdictOf, type SiteBoardResult, type SiteResult } from '@/lib/supply';
 
 import { lockSite, readSiteBoards, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
 
@@ -233,4 +233,56 @@ export function withTreeContext<T extends { settings: BoardSettings; ways: WayIn
       };
     }),
   };
+}
+
+/** A board the engine refused, as the pack's and diagram's board entry (no values carried). */
+function refusedBoard(b: TreeBoard, why: string): SiteBoardResult {
+  return {
+    boardId: b.id,
+    name: b.name,
+    depth: 0,
+    fedFrom: null,
+    phase: null,
+    zdb: null,
+    pfc: null,
+    vdUsed: null,
+    subMainCurrent: null,
+    selectivity: [],
+    supply: null,
+    sizedInput: null,
+    sizing: null,
+    worstVerdict: null,
+    problem: why,
+  };
+}
+
+/**
+ * What the site pack prints (404 for another organisation's site): the site's name, the tree as
+ * lib/supply answers it (the pack's diagram and carried values) and the boards whose schedules
+ * follow, in tree order (archived boards are left out).
+ */
+export async function sitePackData(
+  actor: Actor,
+  siteId: string,
+): Promise<{ siteName: string; site: SiteResult; boardIds: string[] }> {
+  const rows = await db().query<{ name: string; origin: SiteOrigin | null }>(
+    'SELECT name, origin FROM sites WHERE id = $1 AND organisation_id = $2',
+    { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT },
+  );
+  if (!rows.length) throw notFound('The site');
+  const boards = (await readSiteBoards(siteId, undefined, { stored: false })).filter((b) => !b.archived);
+  const sized = sizeTree(siteId, rows[0].origin, boards);
+  const inOrder = [
+    ...sized.site.boards.map((r) => r.boardId),
+    ...boards.map((b) => b.id).filter((id) => !sized.site.boards.some((r) => r.boardId === id)),
+  ];
+  const byId = new Map(boards.map((b) => [b.id, b]));
+  const results = inOrder.map((id) => {
+    const s = sized.boards.get(id);
+    return (
+      s?.result ?? refusedBoard(byId.get(id)!, `Cannot be sized: ${(s?.issues ?? []).map((i) => i.message).join('; ')}`)
+    );
+  });
+  const origin = rows[0].origin ?? sized.site.origin;
+  return { siteName: rows[0].name, site: { siteId, origin, boards: results }, boardIds: inOrder };
 }

@@ -1,8 +1,10 @@
 import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
-import { HttpError } from '@/lib/errors';
+import { emailSitePack } from '@/lib/dal/site-pack-mail';
 import { sitePackEmailSchema } from '@/lib/sites/tree-types';
+
+import { composeSitePack } from '../compose';
 
 const params = z.object({ siteId: z.uuid() });
 
@@ -11,7 +13,13 @@ export const POST = defineRoute({
   action: 'schedule.print-draft',
   params,
   body: sitePackEmailSchema,
-  handler: async () => {
-    throw new HttpError(501, 'Not built yet.');
+  handler: async ({ actor, params: { siteId }, body }) => {
+    const pack = await composeSitePack(actor, siteId);
+    const mail = await emailSitePack(
+      actor,
+      { id: siteId, name: pack.siteName, boardCount: pack.boardCount },
+      { to: body.to, message: body.message, pdf: pack.pdf, fileName: pack.fileName },
+    );
+    return Response.json({ mail: { ...mail, to: body.to } }, { status: 202 });
   },
 });
