@@ -159,15 +159,23 @@ async function changeBoard(
   actor: Actor,
   boardId: string,
   change: (board: Board, transaction: Transaction) => Promise<Parameters<typeof writeBoard>[2]>,
-  opts: { deleted?: boolean } = {},
+  opts: { deleted?: boolean; tree?: boolean } = {},
 ): Promise<BoardDto> {
   return db().transaction(async (transaction) => {
     // The site first, then the board: every write on one site's tree takes them in this order
-    await lockSiteOfBoard(actor, boardId, transaction);
+    await lockSiteOfBoard(actor, boardId, transaction, { tree: opts.tree });
     const board = await findBoard(actor, boardId, { transaction, lock: true, deleted: opts.deleted });
     return writeBoard(actor, board, await change(board, transaction), transaction);
   });
 }
+
+/** `changeBoard` for a write that may link the board to a way (the site locked for a tree write). */
+const changeLinkedBoard = (
+  actor: Actor,
+  boardId: string,
+  tree: boolean,
+  change: Parameters<typeof changeBoard>[2],
+): Promise<BoardDto> => changeBoard(actor, boardId, change, { tree });
 
 export async function renameBoard(
   actor: Actor,
@@ -284,7 +292,7 @@ export async function saveBoard(
   out?: TreeWriteRequest['out'],
 ): Promise<BoardDto> {
   try {
-    return await changeBoard(actor, boardId, async (board, transaction) => {
+    return await changeLinkedBoard(actor, boardId, input.settings.feed?.from === 'way', async (board, transaction) => {
       // An archive also moves the version on: say that it is archived, not that someone saved
       await assertNotArchived(board, transaction);
       // The stage first (lib/boards/lifecycle.ts: a board in review is not saved), then the version

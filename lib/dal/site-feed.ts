@@ -12,7 +12,7 @@ import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { isProtectiveDevice } from '@/lib/sizing';
 import { wayLabels } from '@/lib/supply';
 
-import { feedRefusal, lockSite, readSiteBoards, resizeSite, type TreeBoard } from './site-tree';
+import { feedRefusal, lockSiteForWrite, readSiteBoards, resizeSite, type SiteLock, type TreeBoard } from './site-tree';
 
 /**
  * A board's feed and the site tree around a board write (called by lib/dal/board-repository.ts
@@ -34,21 +34,30 @@ export type TreeWriteRequest = {
 
 /** What `beforeTreeWrite` found, for `afterTreeWrite`. */
 export type TreeWritePlan = {
-  site: Awaited<ReturnType<typeof lockSite>>;
+  site: SiteLock;
   /** Boards that go back to the origin, and why. */
   detach: FeedChange[];
   /** The board's new feed to write, when it changes. */
   feed: BoardFeed | null;
 };
 
-/** The site of a board of the caller's organisation, locked (404 for another organisation's board). */
-export async function lockSiteOfBoard(actor: Actor, boardId: string, transaction: Transaction) {
+/**
+ * The site of a board of the caller's organisation, locked for a write of the board (404 for
+ * another organisation's board): see lib/dal/site-tree.ts lockSiteForWrite; `tree`: the write
+ * links a board.
+ */
+export async function lockSiteOfBoard(
+  actor: Actor,
+  boardId: string,
+  transaction: Transaction,
+  opts: { tree?: boolean } = {},
+) {
   const rows = await db().query<{ site_id: string }>(
     'SELECT site_id FROM boards WHERE id = $1 AND organisation_id = $2',
     { bind: [boardId, actor.organisationId], type: QueryTypes.SELECT, transaction },
   );
   if (!rows.length) throw notFound('The board');
-  return lockSite(actor, rows[0].site_id, transaction);
+  return lockSiteForWrite(actor, rows[0].site_id, transaction, opts);
 }
 
 /** Why a way cannot feed a board of these phases, or null when it can. */
@@ -84,7 +93,9 @@ export async function beforeTreeWrite(
   write: { ways?: { remove: string[]; insert: WayInput[]; update: WayInput[] }; phases?: 1 | 3 } & TreeWriteRequest,
   transaction: Transaction,
 ): Promise<TreeWritePlan> {
-  const site = await lockSite(actor, board.siteId, transaction);
+  const site = await lockSiteForWrite(actor, board.siteId, transaction, { tree: write.feed?.from === 'way' });
+  // A site without sub-mains: its boards are independent, and this write links none
+  if (site.mode === 'share') return { site, detach: [], feed: null };
   const boards = await readSiteBoards(board.siteId, transaction, { stored: false });
   const byId = new Map(boards.map((b) => [b.id, b]));
   const me = byId.get(board.id);
@@ -246,5 +257,9 @@ export async function afterTreeWrite(
       { boardId: c.boardId, transaction },
     );
   }
-  return resizeSite(actor, plan.site, transaction, { writtenBoardId: board.id, cause: `${board.name} was changed` });
+  return resizeSite(actor, plan.site, transaction, {
+    writtenBoardId: board.id,
+    cause: `${board.name} was changed`,
+    only: plan.site.mode === 'share' ? board.id : undefined,
+  });
 }

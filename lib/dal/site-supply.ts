@@ -170,7 +170,7 @@ export async function setBoardFeed(
 ): Promise<{ board: BoardDto; ripple: SiteRipple | null }> {
   const out = { ripple: null as SiteRipple | null };
   const board = await db().transaction(async (transaction) => {
-    await lockSiteOfBoard(actor, boardId, transaction);
+    await lockSiteOfBoard(actor, boardId, transaction, { tree: input.feed.from === 'way' });
     const row = await findBoard(actor, boardId, { transaction, lock: true });
     await assertNotArchived(row, transaction);
     const step = transition(row.status, 'save', { revision: row.revision });

@@ -8,7 +8,7 @@ import type { Actor } from '@/lib/auth/session';
 import { engineInputOf, type BoardFeed, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { auditMany } from '@/lib/dal/audit';
-import { HttpError, notFound, type FieldIssue } from '@/lib/errors';
+import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardStatus } from '@/lib/domain';
 import { wayName } from '@/lib/names';
 import type { DerivedSupply, RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
@@ -43,12 +43,40 @@ import {
  * tree version it was carried at.
  */
 
-/** The site row, locked for the rest of the transaction (404 for another organisation's). */
+/** The site row as locked, and how (`share`: boards of a site without sub-mains, written side by side). */
+export type SiteLock = {
+  id: string;
+  name: string;
+  origin: SiteOrigin | null;
+  treeVersion: number;
+  archived: boolean;
+  mode: 'share' | 'update';
+};
+
+/** The site locks each transaction holds (a lock is taken once per transaction and site). */
+const held = new WeakMap<Transaction, Map<string, SiteLock>>();
+
+/** The lock this transaction holds on the site, if any. */
+export function heldSiteLock(transaction: Transaction, siteId: string): SiteLock | null {
+  return held.get(transaction)?.get(siteId) ?? null;
+}
+
+/**
+ * The site row, locked for the rest of the transaction (404 for another organisation's):
+ * `update` (SELECT … FOR UPDATE) for a write on a tree, `share` (FOR SHARE) for a board of a site
+ * whose boards are independent (no sub-mains), so that those saves run side by side while a
+ * tree write (a first link, an origin change) waits for them and they for it. A transaction
+ * never upgrades a share lock (two would deadlock): it asks for the mode it needs first.
+ */
 export async function lockSite(
   actor: Pick<Actor, 'organisationId'>,
   siteId: string,
   transaction: Transaction,
-): Promise<{ id: string; name: string; origin: SiteOrigin | null; treeVersion: number; archived: boolean }> {
+  mode: 'share' | 'update' = 'update',
+): Promise<SiteLock> {
+  const prior = heldSiteLock(transaction, siteId);
+  if (prior && (prior.mode === 'update' || mode === 'share')) return prior;
+  if (prior) throw conflict('The site’s supply tree changed while this was being saved; save again.');
   const rows = await db().query<{
     id: string;
     name: string;
@@ -57,12 +85,52 @@ export async function lockSite(
     archived: boolean;
   }>(
     `SELECT id, name, origin, tree_version, archived_at IS NOT NULL AS archived FROM sites
-     WHERE id = $1 AND organisation_id = $2 FOR UPDATE`,
+     WHERE id = $1 AND organisation_id = $2 ${mode === 'update' ? 'FOR UPDATE' : 'FOR SHARE'}`,
     { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT, transaction },
   );
   if (!rows.length) throw notFound('The site');
   const r = rows[0];
-  return { id: r.id, name: r.name, origin: r.origin, treeVersion: r.tree_version, archived: r.archived };
+  const lock: SiteLock = {
+    id: r.id,
+    name: r.name,
+    origin: r.origin,
+    treeVersion: r.tree_version,
+    archived: r.archived,
+    mode,
+  };
+  if (!held.has(transaction)) held.set(transaction, new Map());
+  held.get(transaction)!.set(siteId, lock);
+  return lock;
+}
+
+/** Whether any live board of the site is fed from a way (the site's boards form a tree). */
+export async function siteHasSubMains(siteId: string, transaction?: Transaction): Promise<boolean> {
+  const [row] = await db().query<{ tree: boolean }>(
+    `SELECT EXISTS (SELECT 1 FROM boards WHERE site_id = $1 AND fed_from_way_id IS NOT NULL AND deleted_at IS NULL) AS tree`,
+    { bind: [siteId], type: QueryTypes.SELECT, transaction },
+  );
+  return row.tree;
+}
+
+/**
+ * Locks the site for a board write: `update` when the site has sub-mains or the write links a
+ * board (`tree`), else `share`. A first link that commits between the look and the lock is
+ * caught after it (the write is refused with 409, to be saved again).
+ */
+export async function lockSiteForWrite(
+  actor: Pick<Actor, 'organisationId'>,
+  siteId: string,
+  transaction: Transaction,
+  opts: { tree?: boolean } = {},
+): Promise<SiteLock> {
+  const prior = heldSiteLock(transaction, siteId);
+  if (prior && (prior.mode === 'update' || !opts.tree)) return prior;
+  const mode = opts.tree || (await siteHasSubMains(siteId, transaction)) ? 'update' : 'share';
+  const lock = await lockSite(actor, siteId, transaction, mode);
+  if (mode === 'share' && (await siteHasSubMains(siteId, transaction))) {
+    throw conflict('The site’s supply tree changed while this was being saved; save again.');
+  }
+  return lock;
 }
 
 /** One board of a site as the tree needs it: settings, ways, feed and what was stored for it. */
@@ -80,7 +148,7 @@ export type TreeBoard = BoardSettings & {
 export async function readSiteBoards(
   siteId: string,
   transaction?: Transaction,
-  opts: { stored?: boolean } = {},
+  opts: { stored?: boolean; only?: string } = {},
 ): Promise<TreeBoard[]> {
   const stored = opts.stored ?? true;
   const rows = await db().query<{ j: string }>(
@@ -105,9 +173,9 @@ export async function readSiteBoards(
        }
      )::text AS j
      FROM boards b LEFT JOIN ways fw ON fw.id = b.fed_from_way_id
-     WHERE b.site_id = $1 AND b.deleted_at IS NULL
+     WHERE b.site_id = $1 AND b.deleted_at IS NULL ${opts.only ? 'AND b.id = $2' : ''}
      ORDER BY b.created_at, b.id`,
-    { bind: [siteId], type: QueryTypes.SELECT, transaction },
+    { bind: opts.only ? [siteId, opts.only] : [siteId], type: QueryTypes.SELECT, transaction },
   );
   return rows.map((r) => JSON.parse(r.j) as TreeBoard);
 }
@@ -311,13 +379,20 @@ export async function resizeSite(
     cause?: string;
     /** Hands back the boards as read and their sizing (to answer the tree without sizing it twice). */
     sizedOut?: { sized?: SizedSite; boards?: TreeBoard[] };
+    /**
+     * Only this board (a site without sub-mains under a share lock: its boards are independent,
+     * so the others are unchanged and the tree version stays).
+     */
+    only?: string;
   } = {},
 ): Promise<SiteRipple> {
-  const boards = await readSiteBoards(site.id, transaction);
+  const boards = await readSiteBoards(site.id, transaction, { only: opts.only });
   const sized = sizeTree(site.id, site.origin, boards);
   if (opts.sizedOut) Object.assign(opts.sizedOut, { sized, boards });
-  const treeVersion = site.treeVersion + 1;
-  await db().query('UPDATE sites SET tree_version = $2 WHERE id = $1', { bind: [site.id, treeVersion], transaction });
+  const treeVersion = opts.only ? site.treeVersion : site.treeVersion + 1;
+  if (!opts.only) {
+    await db().query('UPDATE sites SET tree_version = $2 WHERE id = $1', { bind: [site.id, treeVersion], transaction });
+  }
 
   const rows: { board_id: string; version: number; sizing: string | null; issues: string; carried: string | null }[] =
     [];

@@ -223,6 +223,33 @@ describe('the site tree through its routes', () => {
     await putOrigin(theirs.site.id, twoLevel().origin, 404);
   });
 
+  it('links through the whole-board save (settings.feed) on a site without sub-mains yet', async () => {
+    signInAs(team.users.designer);
+    const fx = twoLevel();
+    const t = await storeTree(team.org.id, fx);
+    await putOrigin(t.site.id, fx.origin);
+    const fin = await getBoard(t.id('fin'));
+    const body = saveBody(fin);
+    const feed = { from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') };
+    const saved = await call<{ board: BoardDto; ripple: SiteRipple }>(
+      boardRoute.PUT(jsonRequest('PUT', { ...body, settings: { ...body.settings, feed } }), ctx({ boardId: fin.id })),
+    );
+    expect(saved.board.feed).toMatchObject(feed);
+    expect(saved.board.derivedSupply?.zdb?.value).toBeCloseTo(0.443696, 6);
+  });
+
+  it('saves of independent boards of one site (no sub-mains) run side by side', async () => {
+    signInAs(team.users.designer);
+    const t = await storeTree(team.org.id, twoLevel());
+    const boards = await Promise.all([getBoard(t.id('db1')), getBoard(t.id('fin'))]);
+    const answers = await Promise.all(
+      boards.map((b) => boardRoute.PUT(jsonRequest('PUT', saveBody(b)), ctx({ boardId: b.id }))),
+    );
+    expect(answers.map((r) => r.status)).toEqual([200, 200]);
+    // A site without an origin: each board sized with its own typed supply, as before the tree
+    expect((await getBoard(t.id('fin'))).derivedSupply).toBeNull();
+  });
+
   it('removing a feeding way asks first (409 naming the boards), then feeds them from the origin', async () => {
     signInAs(team.users.designer);
     const { t } = await linkedTwoLevel();
