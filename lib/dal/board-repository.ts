@@ -14,6 +14,7 @@ import {
 import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/dal/site-feed';
+import { resizeSiteOfStaleBoard } from '@/lib/dal/site-tree';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import { Board, Way } from '@/models';
@@ -234,7 +235,7 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
  * version: one statement. A board whose stored sizing is older (written before migration 0008,
  * or behind the app's back) is sized now and stored.
  */
-export async function readStoredSizing(actor: Actor, boardId: string): Promise<StoredSizing> {
+export async function readStoredSizing(actor: Actor, boardId: string, again = false): Promise<StoredSizing> {
   const rows = await select<{ current: boolean; json: string | null; issues: FieldIssue[] | null }>(
     `SELECT s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues FROM boards b
      LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
@@ -244,7 +245,10 @@ export async function readStoredSizing(actor: Actor, boardId: string): Promise<S
   if (!rows.length) throw notFound('The board');
   const [row] = rows;
   if (row.current) return { json: row.json, issues: row.issues ?? [] };
-  return storeSizing(await readBoard(actor, boardId));
+  const board = await readBoard(actor, boardId);
+  // A board of a site's tree: the whole site is re-sized (lib/dal/site-tree.ts)
+  if (!again && (await resizeSiteOfStaleBoard(actor, board))) return readStoredSizing(actor, boardId, true);
+  return storeSizing(board);
 }
 
 /**
@@ -254,6 +258,7 @@ export async function readStoredSizing(actor: Actor, boardId: string): Promise<S
 export async function readBoardAndSizing(
   actor: Actor,
   boardId: string,
+  again = false,
 ): Promise<{ board: BoardDto; sized: SizedBoard }> {
   const rows = await select<{ dto: string; current: boolean; json: string | null; issues: FieldIssue[] | null }>(
     `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues
@@ -264,6 +269,10 @@ export async function readBoardAndSizing(
   if (!rows.length) throw notFound('The board');
   const [row] = rows;
   const board = JSON.parse(row.dto) as BoardDto;
+  // A board of a site's tree whose stored sizing is older: the whole site is re-sized (lib/dal/site-tree.ts)
+  if (!row.current && !again && (await resizeSiteOfStaleBoard(actor, board))) {
+    return readBoardAndSizing(actor, boardId, true);
+  }
   const { json, issues } = row.current ? { json: row.json, issues: row.issues ?? [] } : await storeSizing(board);
   return { board, sized: { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues } };
 }

@@ -473,3 +473,23 @@ export async function resizeSite(
 export function feedRefusal(issues: FieldIssue[], cycle?: { boardId: string; name: string }[]): HttpError {
   return new HttpError(422, issues.map((i) => i.message).join('; '), { issues, ...(cycle ? { cycle } : {}) });
 }
+
+/**
+ * Re-sizes the site of a board whose stored sizing is older than the board (a board linked by a
+ * seed or a script, a version moved on by an archive) when the board is in a tree: the site has
+ * an origin or sub-mains. Answers false when it is not (the board alone is sized as before).
+ */
+export async function resizeSiteOfStaleBoard(actor: Actor, board: { id: string; siteId: string }): Promise<boolean> {
+  const [row] = await db().query<{ tree: boolean }>(
+    `SELECT s.origin IS NOT NULL OR EXISTS (SELECT 1 FROM boards b
+       WHERE b.site_id = s.id AND b.fed_from_way_id IS NOT NULL AND b.deleted_at IS NULL) AS tree
+     FROM sites s WHERE s.id = $1 AND s.organisation_id = $2`,
+    { bind: [board.siteId, actor.organisationId], type: QueryTypes.SELECT },
+  );
+  if (!row?.tree) return false;
+  await db().transaction(async (transaction) => {
+    const site = await lockSite(actor, board.siteId, transaction, 'update');
+    await resizeSite(actor, site, transaction, { cause: 'The stored sizing was older than the board' });
+  });
+  return true;
+}

@@ -6,6 +6,7 @@ import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import * as treeRoute from '@/app/api/sites/[siteId]/tree/route';
 import type { BoardDto } from '@/lib/boards/schemas';
+import { db } from '@/lib/db';
 import type { SiteRipple, SiteTreeDto } from '@/lib/sites/tree-types';
 import { sizeSite } from '@/lib/supply';
 import { AuditEvent } from '@/models';
@@ -248,6 +249,23 @@ describe('the site tree through its routes', () => {
     expect(answers.map((r) => r.status)).toEqual([200, 200]);
     // A site without an origin: each board sized with its own typed supply, as before the tree
     expect((await getBoard(t.id('fin'))).derivedSupply).toBeNull();
+  });
+
+  it('a board linked behind the app’s back (a seed) is sized with what is carried to it on first read', async () => {
+    signInAs(team.users.designer);
+    const fx = twoLevel();
+    const t = await storeTree(team.org.id, fx);
+    // As a seed would: the origin and the link written to the rows, no sizing stored
+    await db().query('UPDATE sites SET origin = $2::jsonb WHERE id = $1', {
+      bind: [t.site.id, JSON.stringify(fx.origin)],
+    });
+    await db().query('UPDATE boards SET fed_from_way_id = $2 WHERE id = $1', { bind: [t.id('fin'), t.id('w-sub')] });
+    await db().query('DELETE FROM board_sizings WHERE board_id IN ($1, $2)', { bind: [t.id('fin'), t.id('db1')] });
+    const spray = (await getStoredSizing(t.id('fin'))).ways.find((w) => w.id === t.id('f-spray'))?.result;
+    // Zs = 0.443696 + 0.23412 = 0.677816 Ω (carried-values.test.ts), not the typed TT supply's
+    expect(spray?.zsOhm).toBeCloseTo(0.677816, 6);
+    const sub = (await getStoredSizing(t.id('db1'))).ways.find((w) => w.id === t.id('w-sub'))?.result;
+    expect(sub?.ibA).toBeCloseTo(13.75, 9);
   });
 
   it('removing a feeding way asks first (409 naming the boards), then feeds them from the origin', async () => {
