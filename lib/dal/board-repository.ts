@@ -8,6 +8,7 @@ import {
   engineInputOf,
   wayInputOf,
   type BoardCreateInput,
+  type BoardFeed,
   type BoardDto,
   type BoardRow,
   type BoardSettings,
@@ -17,6 +18,9 @@ import {
 } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
+import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/dal/site-feed';
+import { resizeSiteOfStaleBoard, type TreeBoard } from '@/lib/dal/site-tree';
+import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
@@ -34,6 +38,13 @@ import { Board, Way } from '@/models';
 /** A timestamp column as the ISO text `Date.toISOString` gives (the DTO's form). */
 const isoSql = (column: string) => `to_char(${column} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
+/** The board's feed (lib/boards/schemas.ts boardFeedSchema) of boards row `b`. */
+const FEED_JSON = `CASE WHEN b.fed_from_way_id IS NULL THEN json_build_object('from', 'origin') ELSE json_build_object(
+  'from', 'way', 'boardId', (SELECT fw.board_id FROM ways fw WHERE fw.id = b.fed_from_way_id), 'wayId', b.fed_from_way_id,
+  'designCurrentOverride', CASE WHEN b.sub_main_design_current_a IS NULL THEN NULL ELSE json_build_object(
+    'amps', b.sub_main_design_current_a::float8, 'reason', b.sub_main_design_current_reason) END,
+  'upstreamRcdTimeDelayed', b.upstream_rcd_time_delayed) END`;
+
 /** The board DTO of boards row `b`, its site's name and its ways in rail order, as JSON text. */
 const BOARD_DTO_JSON = `json_build_object(
   'id', b.id, 'siteId', b.site_id, 'siteName', (SELECT s.name FROM sites s WHERE s.id = b.site_id),
@@ -47,7 +58,8 @@ const BOARD_DTO_JSON = `json_build_object(
       'circuit', w.circuit, 'labelStatus', w.label_status, 'labelNote', w.label_note
     ) ORDER BY w.rail, w.position)
     FROM ways w WHERE w.board_id = b.id
-  ), '[]'::json)
+  ), '[]'::json),
+  'feed', ${FEED_JSON}, 'derivedSupply', (SELECT bs.carried FROM board_sizings bs WHERE bs.board_id = b.id)
 )::text`;
 
 /** One statement with bind parameters ($1…), its rows as plain objects. */
@@ -122,10 +134,26 @@ export async function writeBoard(
     set?: Partial<BoardRow>;
     ways?: { remove: string[]; insert: WayInput[]; update: WayInput[] };
     events: BoardEvent[];
-  },
+  } & TreeWriteRequest,
   transaction: Transaction,
 ): Promise<BoardDto> {
   const boardId = board.id;
+  const design = !!write.ways || Object.keys(write.set ?? {}).some((k) => ENGINE_SETTINGS.has(k));
+  // The site's tree: locked, a new feed checked, feeding ways not taken away unasked (lib/dal/site-feed.ts)
+  const tree =
+    design || write.feed
+      ? await beforeTreeWrite(
+          actor,
+          { id: boardId, siteId: board.siteId, name: write.set?.name ?? board.name, phases: board.phases },
+          {
+            ways: write.ways,
+            phases: write.set?.phases,
+            feed: write.feed,
+            confirmFeedChanges: write.confirmFeedChanges,
+          },
+          transaction,
+        )
+      : null;
   // Nothing to set (a new board's first write): no UPDATE, so a new board keeps version 1
   if (write.set && Object.keys(write.set).length)
     await Board.update(write.set, { where: { id: boardId }, transaction });
@@ -147,8 +175,13 @@ export async function writeBoard(
     );
   }
   await auditMany(actor, write.events, { boardId, transaction });
+  if (tree) {
+    // The whole site re-sized with this board's change, every sizing stored
+    const ripple = await afterTreeWrite(actor, { id: boardId, name: write.set?.name ?? board.name }, tree, transaction);
+    if (write.out) write.out.ripple = ripple;
+    return readBoard(actor, boardId, { transaction, deleted: true });
+  }
   const written = await readBoard(actor, boardId, { transaction, deleted: true });
-  const design = write.ways || Object.keys(write.set ?? {}).some((k) => ENGINE_SETTINGS.has(k));
   if (design) {
     await storeSizing(written, transaction);
   } else {
@@ -189,7 +222,8 @@ export type StoredSizing = { json: string | null; issues: FieldIssue[] };
 
 /** Sizes the board as read and stores it for its version (an older stored sizing is replaced). */
 async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<StoredSizing> {
-  const sized = sizeDesign(board);
+  // A board in a site's tree is sized with what is carried to it (lib/dal/site-tree.ts)
+  const sized = sizeDesign(board.derivedSupply ? { ...board, supply: board.derivedSupply.supply } : board);
   const stored = { json: sized.sizing && JSON.stringify(sized.sizing), issues: sized.issues };
   await db().query(
     `INSERT INTO board_sizings (board_id, version, sizing, issues) VALUES ($1, $2, $3::json, $4::jsonb)
@@ -205,7 +239,7 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
  * version: one statement. A board whose stored sizing is older (written before migration 0008,
  * or behind the app's back) is sized now and stored.
  */
-export async function readStoredSizing(actor: Actor, boardId: string): Promise<StoredSizing> {
+export async function readStoredSizing(actor: Actor, boardId: string, again = false): Promise<StoredSizing> {
   const rows = await select<{ current: boolean; json: string | null; issues: FieldIssue[] | null }>(
     `SELECT s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues FROM boards b
      LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
@@ -215,7 +249,10 @@ export async function readStoredSizing(actor: Actor, boardId: string): Promise<S
   if (!rows.length) throw notFound('The board');
   const [row] = rows;
   if (row.current) return { json: row.json, issues: row.issues ?? [] };
-  return storeSizing(await readBoard(actor, boardId));
+  const board = await readBoard(actor, boardId);
+  // A board of a site's tree: the whole site is re-sized (lib/dal/site-tree.ts)
+  if (!again && (await resizeSiteOfStaleBoard(actor, board))) return readStoredSizing(actor, boardId, true);
+  return storeSizing(board);
 }
 
 /**
@@ -225,6 +262,7 @@ export async function readStoredSizing(actor: Actor, boardId: string): Promise<S
 export async function readBoardAndSizing(
   actor: Actor,
   boardId: string,
+  again = false,
 ): Promise<{ board: BoardDto; sized: SizedBoard }> {
   const rows = await select<{ dto: string; current: boolean; json: string | null; issues: FieldIssue[] | null }>(
     `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues
@@ -235,6 +273,10 @@ export async function readBoardAndSizing(
   if (!rows.length) throw notFound('The board');
   const [row] = rows;
   const board = JSON.parse(row.dto) as BoardDto;
+  // A board of a site's tree whose stored sizing is older: the whole site is re-sized (lib/dal/site-tree.ts)
+  if (!row.current && !again && (await resizeSiteOfStaleBoard(actor, board))) {
+    return readBoardAndSizing(actor, boardId, true);
+  }
   const { json, issues } = row.current ? { json: row.json, issues: row.issues ?? [] } : await storeSizing(board);
   return { board, sized: { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues } };
 }
@@ -257,7 +299,12 @@ export async function insertBoard(
     { transaction },
   );
   const ways = { remove: [], insert: [], update: [] };
-  return writeBoard(actor, created.get({ plain: true }) as BoardRecord, { ways, events }, transaction);
+  return writeBoard(
+    actor,
+    created.get({ plain: true }) as BoardRecord,
+    { ways, feed: input.feed, events },
+    transaction,
+  );
 }
 
 /**
@@ -304,7 +351,7 @@ export async function countBoardsBySite(
 }
 
 /** A site's boards (with `live`, neither deleted nor archived), optionally locked for a change. */
-export async function readSiteBoards(
+export async function readSiteBoardRecords(
   siteId: string,
   opts: { transaction: Transaction; lock?: boolean; live?: boolean },
 ): Promise<BoardRecord[]> {
@@ -427,5 +474,130 @@ export async function readIssuedPrintRows(
      LEFT JOIN users u ON u.id = r.issued_by_id
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId, revision, mayPrintDraft],
+  );
+}
+
+/** Whether any live board of the site is fed from a way (the site's boards form a tree). */
+export async function siteHasSubMains(siteId: string, transaction?: Transaction): Promise<boolean> {
+  const [row] = await select<{ tree: boolean }>(
+    `SELECT EXISTS (SELECT 1 FROM boards WHERE site_id = $1 AND fed_from_way_id IS NOT NULL AND deleted_at IS NULL) AS tree`,
+    [siteId],
+    transaction,
+  );
+  return row.tree;
+}
+
+/** The site's boards (not deleted), oldest first, with their ways in rail order and feed. */
+export async function readTreeBoards(
+  siteId: string,
+  transaction?: Transaction,
+  opts: { stored?: boolean; only?: string } = {},
+): Promise<TreeBoard[]> {
+  const stored = opts.stored ?? true;
+  const rows = await select<{ j: string }>(
+    `SELECT json_build_object(
+       'id', b.id, 'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
+       'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails, 'dwelling', b.dwelling,
+       'conditionalRatingKa', b.conditional_rating_ka, 'status', b.status, 'version', b.version,
+       'archived', b.archived_at IS NOT NULL,
+       'feed', CASE WHEN fw.id IS NULL THEN json_build_object('from', 'origin') ELSE json_build_object(
+         'from', 'way', 'boardId', fw.board_id, 'wayId', fw.id,
+         'designCurrentOverride', CASE WHEN b.sub_main_design_current_a IS NULL THEN NULL ELSE json_build_object(
+           'amps', b.sub_main_design_current_a::float8, 'reason', b.sub_main_design_current_reason) END,
+         'upstreamRcdTimeDelayed', b.upstream_rcd_time_delayed) END,
+       'ways', COALESCE((SELECT json_agg(json_build_object('id', w.id, 'rail', w.rail, 'position', w.position,
+           'device', w.device, 'circuit', w.circuit) ORDER BY w.rail, w.position)
+         FROM ways w WHERE w.board_id = b.id), '[]'::json),
+       'stored', ${
+         stored
+           ? `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
+         FROM board_sizings s WHERE s.board_id = b.id)`
+           : 'NULL'
+       }
+     )::text AS j
+     FROM boards b LEFT JOIN ways fw ON fw.id = b.fed_from_way_id
+     WHERE b.site_id = $1 AND b.deleted_at IS NULL ${opts.only ? 'AND b.id = $2' : ''}
+     ORDER BY b.created_at, b.id`,
+    opts.only ? [siteId, opts.only] : [siteId],
+    transaction,
+  );
+  return rows.map((r) => JSON.parse(r.j) as TreeBoard);
+}
+
+/** Whether the caller's organisation's site is a tree: it has an origin or a board fed from a way. */
+export async function siteIsTree(actor: Actor, siteId: string): Promise<boolean> {
+  const [row] = await select<{ tree: boolean }>(
+    `SELECT s.origin IS NOT NULL OR EXISTS (SELECT 1 FROM boards b
+       WHERE b.site_id = s.id AND b.fed_from_way_id IS NOT NULL AND b.deleted_at IS NULL) AS tree
+     FROM sites s WHERE s.id = $1 AND s.organisation_id = $2`,
+    [siteId, actor.organisationId],
+  );
+  return !!row?.tree;
+}
+
+/** The site of the caller's organisation's board, or null. */
+export async function readBoardSiteId(
+  actor: Actor,
+  boardId: string,
+  transaction?: Transaction,
+): Promise<string | null> {
+  const rows = await select<{ site_id: string }>(
+    'SELECT site_id FROM boards WHERE id = $1 AND organisation_id = $2',
+    [boardId, actor.organisationId],
+    transaction,
+  );
+  return rows[0]?.site_id ?? null;
+}
+
+/** The board a feeding way is on (the caller's organisation's), with its site; none when there is no such way. */
+export async function readFeedingWayBoard(
+  actor: Actor,
+  boardId: string,
+  wayId: string,
+  transaction?: Transaction,
+): Promise<{ site_id: string; board_name: string; deleted: boolean }[]> {
+  return select(
+    `SELECT b.site_id, b.name AS board_name, b.deleted_at IS NOT NULL AS deleted FROM ways w JOIN boards b ON b.id = w.board_id
+     WHERE w.id = $1 AND b.id = $2 AND b.organisation_id = $3`,
+    [wayId, boardId, actor.organisationId],
+    transaction,
+  );
+}
+
+/** Writes a board's feed: from this way, with its override and upstream RCD, or (null) from the origin. */
+export async function writeBoardFeed(
+  boardId: string,
+  way: Extract<BoardFeed, { from: 'way' }> | null,
+  transaction: Transaction,
+): Promise<void> {
+  await db().query(
+    `UPDATE boards SET fed_from_way_id = $2, sub_main_design_current_a = $3, sub_main_design_current_reason = $4,
+       upstream_rcd_time_delayed = $5 WHERE id = $1`,
+    {
+      bind: [
+        boardId,
+        way?.wayId ?? null,
+        way?.designCurrentOverride?.amps ?? null,
+        way?.designCurrentOverride?.reason ?? null,
+        way?.upstreamRcdTimeDelayed ?? false,
+      ],
+      transaction,
+    },
+  );
+}
+
+/** What the tree stored for a board (the supply carried to it) and the sub-main currents of the boards its ways feed. */
+export async function readDraftTreeRows(actor: Actor, boardId: string) {
+  return select<{
+    carried: DerivedSupply | null;
+    feeds: { wayId: string; amps: number | null }[] | null;
+  }>(
+    `SELECT (SELECT s.carried FROM board_sizings s WHERE s.board_id = b.id) AS carried,
+       (SELECT json_agg(json_build_object('wayId', d.fed_from_way_id,
+          'amps', (SELECT (s.carried->'subMainCurrent'->>'value')::float8 FROM board_sizings s WHERE s.board_id = d.id)))
+        FROM boards d JOIN ways w ON w.id = d.fed_from_way_id
+        WHERE w.board_id = b.id AND d.deleted_at IS NULL) AS feeds
+     FROM boards b WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
+    [boardId, actor.organisationId],
   );
 }

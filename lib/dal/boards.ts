@@ -26,6 +26,7 @@ import {
   type BoardEvent,
   type BoardRecord,
 } from '@/lib/dal/board-repository';
+import { lockSiteOfBoard, type TreeWriteRequest } from '@/lib/dal/site-feed';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
 import { BoardRevision, Site, User } from '@/models';
@@ -102,13 +103,23 @@ async function changeBoard(
   actor: Actor,
   boardId: string,
   change: (board: BoardRecord, transaction: Transaction) => Promise<Parameters<typeof writeBoard>[2]>,
-  opts: { deleted?: boolean } = {},
+  opts: { deleted?: boolean; tree?: boolean } = {},
 ): Promise<BoardDto> {
   return db().transaction(async (transaction) => {
+    // The site first, then the board: every write on one site's tree takes them in this order
+    await lockSiteOfBoard(actor, boardId, transaction, { tree: opts.tree });
     const board = await findBoard(actor, boardId, { transaction, lock: true, deleted: opts.deleted });
     return writeBoard(actor, board, await change(board, transaction), transaction);
   });
 }
+
+/** `changeBoard` for a write that may link the board to a way (the site locked for a tree write). */
+const changeLinkedBoard = (
+  actor: Actor,
+  boardId: string,
+  tree: boolean,
+  change: Parameters<typeof changeBoard>[2],
+): Promise<BoardDto> => changeBoard(actor, boardId, change, { tree });
 
 export async function renameBoard(
   actor: Actor,
@@ -218,9 +229,14 @@ export function diffWays(before: WayInput[], after: WayInput[]) {
  * check; a way left as it was is not written, so it keeps its label check. Saving an issued
  * board (labels matched or not) starts the next draft revision.
  */
-export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveInput): Promise<BoardDto> {
+export async function saveBoard(
+  actor: Actor,
+  boardId: string,
+  input: BoardSaveInput,
+  out?: TreeWriteRequest['out'],
+): Promise<BoardDto> {
   try {
-    return await changeBoard(actor, boardId, async (board, transaction) => {
+    return await changeLinkedBoard(actor, boardId, input.settings.feed?.from === 'way', async (board, transaction) => {
       // An archive also moves the version on: say that it is archived, not that someone saved
       await assertNotArchived(board, transaction);
       // The stage first (lib/boards/lifecycle.ts: a board in review is not saved), then the version
@@ -246,6 +262,10 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
           insert: input.ways.filter((w) => added.has(w.id)),
           update: input.ways.filter((w) => touched.has(w.id)),
         },
+        // The site's tree (lib/dal/site-feed.ts): a new feed, feeding ways taken away, the ripple
+        feed: input.settings.feed,
+        confirmFeedChanges: input.confirmFeedChanges,
+        out,
         events: [
           ...wayEvents('way.added', diff.added),
           ...wayEvents('way.removed', diff.removed),

@@ -6,7 +6,7 @@ import type { Actor } from '@/lib/auth/session';
 import { mayRestore, siteRemoval } from '@/lib/boards/record-rules';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { countBoardsBySite, raiseSiteBoardVersions, readSiteBoards } from '@/lib/dal/board-repository';
+import { countBoardsBySite, raiseSiteBoardVersions, readSiteBoardRecords } from '@/lib/dal/board-repository';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/errors';
 import type { SiteInput } from '@/lib/sites/schemas';
 import { BoardRevision, Site, User } from '@/models';
@@ -98,7 +98,7 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
   await db().transaction(async (transaction) => {
     const site = await lockedSite(actor, siteId, transaction);
     if (!site) throw notFound('The site');
-    const boards = await readSiteBoards(siteId, { transaction, lock: true });
+    const boards = await readSiteBoardRecords(siteId, { transaction, lock: true });
     const issued = boards.length
       ? await BoardRevision.count({ where: { boardId: { [Op.in]: boards.map((b) => b.id) } }, transaction })
       : 0;
@@ -139,7 +139,7 @@ export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSum
     if (!site?.archivedAt) throw conflict('This site is not archived.');
     await site.update({ archivedAt: null, archivedById: null }, { transaction });
     await audit(actor, 'site.restored', { siteId, name: site.name }, { transaction });
-    const boards = await readSiteBoards(siteId, { transaction, live: true });
+    const boards = await readSiteBoardRecords(siteId, { transaction, live: true });
     for (const b of boards) {
       await audit(actor, 'board.restored', { name: b.name, siteId, site: site.name }, { boardId: b.id, transaction });
     }

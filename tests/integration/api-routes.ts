@@ -324,6 +324,23 @@ export const ROUTE_CALLS: Readonly<Record<string, RouteSample>> = {
     call: (fx) => ({ params: bySite(fx) }),
   },
   'POST /api/sizing': { mutates: false, call: () => ({ params: {}, body: QUICK_SIZE_BODY }) },
+  'GET /api/sites/[siteId]/tree': { mutates: false, call: (fx) => ({ params: bySite(fx) }) },
+  'PUT /api/sites/[siteId]/origin': {
+    mutates: true,
+    call: (fx) => ({
+      params: bySite(fx),
+      body: { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.3, pfcKa: 2.2, source: 'public' },
+    }),
+  },
+  'PUT /api/boards/[boardId]/feed': {
+    mutates: true,
+    call: (fx) => ({ params: byBoard(fx), body: { version: fx.board.version, feed: { from: 'origin' } } }),
+  },
+  'GET /api/sites/[siteId]/pack': { mutates: false, call: (fx) => ({ params: bySite(fx) }) },
+  'POST /api/sites/[siteId]/pack/email': {
+    mutates: false,
+    call: (fx) => ({ params: bySite(fx), body: { to: 'client@example.test', message: 'The site pack.' } }),
+  },
 };
 
 /** A declared route with its sample call (the routes in-process tests can call). */

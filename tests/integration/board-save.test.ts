@@ -166,6 +166,9 @@ describe('what a save writes and answers', () => {
       ...{ enclosureModules, rails, dwelling, conditionalRatingKa: row.conditionalRatingKa, status, version },
       revision: row.revision,
       updatedAt: row.updatedAt.toISOString(),
+      // The site tree's fields (migration 0009): fed from the origin of a site without one yet
+      feed: { from: 'origin' },
+      derivedSupply: null,
       ways: rows.map(({ id, rail, position, device, circuit, labelStatus, labelNote }) => ({
         ...{ id, rail, position, device, circuit, labelStatus, labelNote },
       })),

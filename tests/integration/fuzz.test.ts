@@ -335,6 +335,7 @@ describe('junk queries', () => {
     expect(withQuery.map((r) => r.name).sort()).toEqual([
       'GET /api/boards/[boardId]/audit',
       'GET /api/boards/[boardId]/revisions/[revision]',
+      'GET /api/sites/[siteId]/pack',
     ]);
   });
 

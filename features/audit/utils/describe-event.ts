@@ -91,6 +91,18 @@ export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' 
       return d.wayId ? `added a photo of ${wayRef(entry)}` : 'added a photo of the board';
     case 'attachment.deleted':
       return 'removed a photo';
+    case 'board.supply-origin':
+      return 'fed the board from the site’s origin (its typed supply values are kept in its record)';
+    case 'board.feed-changed':
+      return d.reason === 'way-removed'
+        ? 'fed the board from the site’s origin: the way that fed it was removed'
+        : 'changed where the board is fed from';
+    case 'board.supply-changed': {
+      const n = Array.isArray(d.ways) ? d.ways.length : 0;
+      return `changed the supply carried to this board (${text(d.cause) || 'a change upstream'})${
+        n ? `: ${n} way${n === 1 ? '' : 's'} changed verdict` : ''
+      }`;
+    }
     case 'schedule.emailed':
       return `e-mailed the schedule (revision ${text(d.revision)}) to ${text(d.to)}`;
     default:

@@ -1,0 +1,18 @@
+import { z } from 'zod';
+
+import { defineRoute } from '@/lib/api/handler';
+import { setSiteOrigin } from '@/lib/dal/site-supply';
+import { siteOriginSchema } from '@/lib/sites/tree-types';
+
+const params = z.object({ siteId: z.uuid() });
+
+/**
+ * PUT /api/sites/:siteId/origin: the site's supply intake; every board below is re-sized in
+ * the same request. Answers `{ tree, ripple }` (lib/sites/tree-types.ts).
+ */
+export const PUT = defineRoute({
+  action: 'boards.edit',
+  params,
+  body: siteOriginSchema,
+  handler: async ({ actor, params: { siteId }, body }) => Response.json(await setSiteOrigin(actor, siteId, body)),
+});
