@@ -10,6 +10,8 @@ import { z } from 'zod';
 import { BOARD_STATUSES, LABEL_STATUSES } from '@/lib/domain';
 import { circuitSpecSchema, deviceOnRailSchema, supplySchema, type BoardInput } from '@/lib/sizing';
 
+import type { DerivedSupply } from '@/lib/sites/tree-types';
+
 import type { WayCounts } from './counts';
 import { layoutWays, railOrder } from './layout';
 
@@ -20,6 +22,35 @@ export const incomingDeviceSchema = z
     busbarRatingA: z.number().int().min(1).max(4000).optional(),
   })
   .strict();
+
+/** The designer's design current for a sub-main, in place of the board's maximum demand, with why. */
+export const designCurrentOverrideSchema = z
+  .object({
+    amps: z.number().gt(0, 'must be above 0 A').max(4000),
+    reason: z.string().trim().min(1, 'Say why the design current is overridden.').max(300),
+  })
+  .strict();
+
+/**
+ * Where a board's supply comes from: the site's origin, or one way (a sub-main) of another board
+ * of the same site. A board fed from a way is sized with the values carried down to it (its
+ * typed supply is not used); see lib/supply and the design notes' "A site's boards as one supply tree".
+ */
+export const boardFeedSchema = z.discriminatedUnion('from', [
+  z.object({ from: z.literal('origin') }).strict(),
+  z
+    .object({
+      from: z.literal('way'),
+      boardId: z.uuid(),
+      wayId: z.uuid(),
+      /** The sub-main's design current typed by the designer, with a reason; null: the board's maximum demand. */
+      designCurrentOverride: designCurrentOverrideSchema.nullable().default(null),
+      /** Whether the RCD protecting the sub-main on the board above is time-delayed (type S). */
+      upstreamRcdTimeDelayed: z.boolean().default(false),
+    })
+    .strict(),
+]);
+export type BoardFeed = z.infer<typeof boardFeedSchema>;
 
 /** The fields of a board other than its ways. */
 export const boardSettingsSchema = z
@@ -37,6 +68,8 @@ export const boardSettingsSchema = z
      * one (a consumer unit to BS EN 61439-3: 16 kA); null or absent when none is declared.
      */
     conditionalRatingKa: z.number().gt(0, 'must be above 0 kA').max(200).nullable().optional(),
+    /** Where the board is fed from (absent in a save: unchanged). */
+    feed: boardFeedSchema.optional(),
   })
   .strict();
 export type BoardSettings = z.infer<typeof boardSettingsSchema>;
@@ -71,6 +104,11 @@ export const boardSaveSchema = z
     version: z.number().int().min(1),
     settings: boardSettingsSchema,
     ways: z.array(wayInputSchema).max(400),
+    /**
+     * The save removes, moves or re-points a way that feeds other boards, or changes this
+     * board's feed: without this, such a save answers 409 naming the boards that change.
+     */
+    confirmFeedChanges: z.boolean().optional(),
   })
   .strict()
   .superRefine((value, ctx) => {
@@ -108,11 +146,18 @@ export const boardDtoSchema = boardSettingsSchema.extend({
   revision: z.number().int(),
   updatedAt: z.string(),
   ways: z.array(wayDtoSchema),
+  feed: boardFeedSchema,
+  /**
+   * The supply the board is sized with when it is not its typed `supply`: the site's origin, or
+   * the values carried down a sub-main (then `supply` is not used and is read-only). Null: the
+   * typed supply is used (a site whose origin is not given yet, and the board fed from it).
+   */
+  derivedSupply: z.custom<DerivedSupply>().nullable(),
 });
 export type BoardDto = z.infer<typeof boardDtoSchema>;
 
 /** The columns of a boards row (the model's attributes): the settings and the record's fields. */
-export type BoardRow = BoardSettings &
+export type BoardRow = Omit<BoardSettings, 'feed'> &
   Pick<BoardDto, 'id' | 'siteId' | 'status' | 'version' | 'revision'> & {
     organisationId: string;
     conditionalRatingKa: number | null;

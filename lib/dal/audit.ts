@@ -41,7 +41,12 @@ export type AuditAction =
   | 'site.archived'
   | 'site.restored'
   | 'comments.answered'
-  | 'organisation.changed';
+  | 'organisation.changed'
+  /** Site supply tree (migration 0009): a board's feed, its carried supply, the site's origin. */
+  | 'board.supply-origin'
+  | 'board.feed-changed'
+  | 'board.supply-changed'
+  | 'site.origin-changed';
 
 /** Appends one event to the audit trail, inside the caller's transaction when given. */
 export async function audit(

@@ -28,6 +28,13 @@ import { Board, Way } from '@/models';
 /** A timestamp column as the ISO text `Date.toISOString` gives (the DTO's form). */
 const isoSql = (column: string) => `to_char(${column} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
+/** The board's feed (lib/boards/schemas.ts boardFeedSchema) of boards row `b`. */
+const FEED_JSON = `CASE WHEN b.fed_from_way_id IS NULL THEN json_build_object('from', 'origin') ELSE json_build_object(
+  'from', 'way', 'boardId', (SELECT fw.board_id FROM ways fw WHERE fw.id = b.fed_from_way_id), 'wayId', b.fed_from_way_id,
+  'designCurrentOverride', CASE WHEN b.sub_main_design_current_a IS NULL THEN NULL ELSE json_build_object(
+    'amps', b.sub_main_design_current_a::float8, 'reason', b.sub_main_design_current_reason) END,
+  'upstreamRcdTimeDelayed', b.upstream_rcd_time_delayed) END`;
+
 /** The board DTO of boards row `b`, its site's name and its ways in rail order, as JSON text. */
 const BOARD_DTO_JSON = `json_build_object(
   'id', b.id, 'siteId', b.site_id, 'siteName', (SELECT s.name FROM sites s WHERE s.id = b.site_id),
@@ -41,7 +48,8 @@ const BOARD_DTO_JSON = `json_build_object(
       'circuit', w.circuit, 'labelStatus', w.label_status, 'labelNote', w.label_note
     ) ORDER BY w.rail, w.position)
     FROM ways w WHERE w.board_id = b.id
-  ), '[]'::json)
+  ), '[]'::json),
+  'feed', ${FEED_JSON}, 'derivedSupply', (SELECT bs.carried FROM board_sizings bs WHERE bs.board_id = b.id)
 )::text`;
 
 /** One statement with bind parameters ($1…), its rows as plain objects. */

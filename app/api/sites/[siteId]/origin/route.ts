@@ -1,0 +1,20 @@
+import { z } from 'zod';
+
+import { defineRoute } from '@/lib/api/handler';
+import { HttpError } from '@/lib/errors';
+import { siteOriginSchema } from '@/lib/sites/tree-types';
+
+const params = z.object({ siteId: z.uuid() });
+
+/**
+ * PUT /api/sites/:siteId/origin: the site's supply intake; every board below is re-sized in
+ * the same request. Answers `{ tree, ripple }` (lib/sites/tree-types.ts).
+ */
+export const PUT = defineRoute({
+  action: 'boards.edit',
+  params,
+  body: siteOriginSchema,
+  handler: async () => {
+    throw new HttpError(501, 'Not built yet.');
+  },
+});
