@@ -2,7 +2,7 @@
 
 import { Select } from '@/components/ui/field';
 
-import { feedKey, feedOptions, feedWayWords, type FeedChoice, type TreeBoard } from './tree-model';
+import { boardFedBy, feedKey, feedOptions, feedWayWords, type FeedChoice, type TreeBoard } from './tree-model';
 
 type FeedSelectProps = {
   id?: string;
@@ -27,11 +27,14 @@ export function FeedSelect({ id, boards, boardId, value, disabled, onChange, ...
       <option value="origin">The origin (supply intake)</option>
       {groups.map((g) => (
         <optgroup key={g.boardId} label={g.boardName}>
-          {g.ways.map((w) => (
-            <option key={w.id} value={`${g.boardId}:${w.id}`}>
-              {`${g.boardName}, ${feedWayWords(w)}`}
-            </option>
-          ))}
+          {g.ways.map((w) => {
+            const feeds = w.feedsBoardId && w.feedsBoardId !== boardId ? boardFedBy(boards, w) : null;
+            return (
+              <option key={w.id} value={`${g.boardId}:${w.id}`}>
+                {`${g.boardName}, ${feedWayWords(w)}${feeds ? ` (feeds ${feeds} now)` : ''}`}
+              </option>
+            );
+          })}
         </optgroup>
       ))}
     </Select>

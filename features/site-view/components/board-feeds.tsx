@@ -28,11 +28,11 @@ import {
 } from '@/components/site-diagram/tree-model';
 import { cn } from '@/lib/cn';
 import { fedFromWords } from '@/lib/names';
-import type { SiteBoardResult } from '@/lib/supply';
+import type { SiteTreeBoard } from '@/lib/sites/tree-types';
 
 type BoardFeedsProps = {
-  boards: readonly TreeBoard[];
-  results: readonly SiteBoardResult[];
+  /** The site's boards, parents first, with their carried values. */
+  boards: readonly SiteTreeBoard[];
   /** Whether the member may link boards (designers and admins on a live site). */
   canLink: boolean;
   /** A feed the designer picked (by the select or by a drop); the view asks before it is saved. */
@@ -61,19 +61,19 @@ const pct = (x: number) => `${x.toFixed(2)} %`;
  * For a designer each board has a "Fed from" choice and a handle to drag it onto a feeding
  * way; each distribution way of a board is a place to drop one (and so is the origin).
  */
-export function BoardFeeds({ boards, results, canLink, onPick, busy }: BoardFeedsProps) {
+export function BoardFeeds({ boards, canLink, onPick, busy }: BoardFeedsProps) {
   const sensors = useSensors(
     useSensor(PointerSensor, { activationConstraint: { distance: 6 } }),
     useSensor(TouchSensor, { activationConstraint: { delay: 200, tolerance: 6 } }),
     useSensor(KeyboardSensor),
   );
-  const nameOf = (id: string | number) => boards.find((b) => `board:${b.id}` === String(id))?.name ?? 'the board';
+  const nameOf = (id: string | number) => boards.find((b) => `board:${b.boardId}` === String(id))?.name ?? 'the board';
   const targetWords = (id: string | number | undefined) => {
     if (id === undefined) return 'no feeding way';
     const feed = feedOfTarget(String(id));
     if (!feed) return 'no feeding way';
     if (feed.from === 'origin') return 'the origin';
-    const parent = boards.find((b) => b.id === feed.boardId);
+    const parent = boards.find((b) => b.boardId === feed.boardId);
     const way = parent?.ways.find((w) => w.id === feed.wayId);
     return fedFromWords({ boardName: parent?.name ?? 'a board', wayLabel: way?.label ?? null });
   };
@@ -90,12 +90,6 @@ export function BoardFeeds({ boards, results, canLink, onPick, busy }: BoardFeed
     const feed = feedOfTarget(String(over.id));
     if (feed) onPick(boardId, feed);
   };
-  const byId = new Map(results.map((r) => [r.boardId, r]));
-  // Tree order from the sized result; boards it does not know (not sized) at the end
-  const ordered = [
-    ...results.map((r) => boards.find((b) => b.id === r.boardId)).filter((b): b is TreeBoard => !!b),
-    ...boards.filter((b) => !byId.has(b.id)),
-  ];
 
   return (
     <DndContext
@@ -111,11 +105,10 @@ export function BoardFeeds({ boards, results, canLink, onPick, busy }: BoardFeed
     >
       {canLink ? <OriginTarget disabled={busy} /> : null}
       <ol className="flex flex-col gap-3" aria-label="Boards of the site, in supply order">
-        {ordered.map((b) => (
+        {boards.map((b) => (
           <BoardCard
-            key={b.id}
+            key={b.boardId}
             board={b}
-            result={byId.get(b.id) ?? null}
             boards={boards}
             canLink={canLink}
             busy={busy}
@@ -146,14 +139,12 @@ function OriginTarget({ disabled }: { disabled?: boolean }) {
 
 function BoardCard({
   board,
-  result,
   boards,
   canLink,
   busy,
   onPick,
 }: {
-  board: TreeBoard;
-  result: SiteBoardResult | null;
+  board: SiteTreeBoard;
   boards: readonly TreeBoard[];
   canLink: boolean;
   busy?: boolean;
@@ -161,24 +152,23 @@ function BoardCard({
 }) {
   const selectId = useId();
   const { attributes, listeners, setNodeRef, transform, isDragging } = useDraggable({
-    id: `board:${board.id}`,
+    id: `board:${board.boardId}`,
     disabled: !canLink || busy,
   });
   const feeding = board.ways.filter((w) => w.distribution);
-  const values = result
-    ? [
-        result.zdb ? `Zdb ${ohm(result.zdb.value)}` : null,
-        result.pfc ? `PFC ${ka(result.pfc.value)}` : null,
-        result.vdUsed ? `volt drop used ${pct(result.vdUsed.value)}` : null,
-        result.sizing ? `demand ${result.sizing.summary.maxDemandA.toFixed(1)} A` : null,
-      ].filter(Boolean)
-    : [];
+  const result = board;
+  const values = [
+    result.zdb ? `Zdb ${ohm(result.zdb.value)}` : null,
+    result.pfc ? `PFC ${ka(result.pfc.value)}` : null,
+    result.vdUsed ? `volt drop used ${pct(result.vdUsed.value)}` : null,
+    result.sizing ? `demand ${result.sizing.summary.maxDemandA.toFixed(1)} A` : null,
+  ].filter(Boolean);
   return (
     <li
       ref={setNodeRef}
-      data-board-card={board.id}
+      data-board-card={board.boardId}
       style={{
-        marginLeft: `${Math.min(result?.depth ?? 0, 4) * 1.25}rem`,
+        marginLeft: `${Math.min(result.depth ?? 0, 4) * 1.25}rem`,
         transform: transform ? `translate3d(${transform.x}px, ${transform.y}px, 0)` : undefined,
       }}
       className={cn(
@@ -200,15 +190,15 @@ function BoardCard({
         ) : null}
         <div className="min-w-0 flex-1">
           <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
-            <Link href={`/boards/${board.id}`} className="font-semibold text-ink underline hover:text-copper">
+            <Link href={`/boards/${board.boardId}`} className="font-semibold text-ink underline hover:text-copper">
               {board.name}
             </Link>
-            {result?.worstVerdict ? <VerdictBadge verdict={result.worstVerdict} /> : null}
+            {result.worstVerdict ? <VerdictBadge verdict={result.worstVerdict} /> : null}
           </div>
           <p className="mt-1 text-ink-soft">
-            {result?.problem ? result.problem : values.length ? values.join(' · ') : 'Not sized yet'}
+            {result.problem ? result.problem : values.length ? values.join(' · ') : 'Not sized yet'}
           </p>
-          {result?.fedFrom ? (
+          {result.fedFrom ? (
             <p className="mt-1 text-xs text-ink-soft">
               Sub-main: {result.fedFrom.device}, {result.fedFrom.cable}
               {result.phase ? `, on ${result.phase}` : ''}
@@ -224,19 +214,19 @@ function BoardCard({
           <FeedSelect
             id={selectId}
             boards={boards}
-            boardId={board.id}
+            boardId={board.boardId}
             value={board.feed}
             disabled={busy}
-            onChange={(key) => onPick(board.id, feedOfKey(key))}
+            onChange={(key) => onPick(board.boardId, feedOfKey(key))}
           />
         </div>
       ) : (
-        <p className="mt-2 text-xs text-ink-soft">Fed from {fedFromWords(result?.fedFrom ?? null)}</p>
+        <p className="mt-2 text-xs text-ink-soft">Fed from {fedFromWords(result.fedFrom ?? null)}</p>
       )}
       {canLink && feeding.length ? (
         <ul className="mt-3 flex flex-wrap gap-2" aria-label={`Feeding ways of ${board.name}`}>
           {feeding.map((w) => (
-            <WayTarget key={w.id} board={board} way={w} feeds={boardFedBy(boards, board.id, w.id)} disabled={busy} />
+            <WayTarget key={w.id} board={board} way={w} feeds={boardFedBy(boards, w)} disabled={busy} />
           ))}
         </ul>
       ) : null}
@@ -252,21 +242,21 @@ function WayTarget({
 }: {
   board: TreeBoard;
   way: FeedWay;
-  feeds: TreeBoard | null;
+  feeds: string | null;
   disabled?: boolean;
 }) {
-  const { setNodeRef, isOver } = useDroppable({ id: targetId(board.id, way.id), disabled });
+  const { setNodeRef, isOver } = useDroppable({ id: targetId(board.boardId, way.id), disabled });
   return (
     <li
       ref={setNodeRef}
-      data-drop-target={`${board.id}:${way.id}`}
+      data-drop-target={`${board.boardId}:${way.id}`}
       className={cn(
         'rounded-md border border-dashed border-line-strong px-2 py-1 text-xs text-ink-soft',
         isOver && 'border-copper bg-copper-light/60 text-ink',
       )}
     >
       <span className="font-medium text-ink">{feedWayWords(way)}</span>
-      {feeds ? ` feeds ${feeds.name}` : ': free, drop a board here'}
+      {feeds ? ` feeds ${feeds}` : ': free, drop a board here'}
     </li>
   );
 }

@@ -33,7 +33,7 @@ export function SiteView({ siteId, siteName, canLink }: SiteViewProps) {
   const view = query.data;
 
   const pick = (boardId: string, feed: FeedChoice) => {
-    const board = view?.boards.find((b) => b.id === boardId);
+    const board = view?.boards.find((b) => b.boardId === boardId);
     if (!board || sameFeed(board.feed, feed)) return;
     setFeed.reset();
     setPending({ boardId, feed });
@@ -67,26 +67,14 @@ export function SiteView({ siteId, siteName, canLink }: SiteViewProps) {
         <div className="grid gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
           <figure className="min-w-0">
             <figcaption className="mb-2 text-sm font-medium text-ink">Single-line diagram</figcaption>
-            {view.result ? (
-              <div className="overflow-x-auto rounded-card border border-line bg-paper p-2" data-testid="site-diagram">
-                <SiteDiagram
-                  site={view.result}
-                  siteName={siteName}
-                  hrefOf={(id) => `/boards/${id}`}
-                  className="min-w-[22rem]"
-                />
-              </div>
-            ) : (
-              <p className="rounded-card border border-line bg-paper-raised p-3 text-sm text-ink">
-                {view.problem ?? 'The tree could not be sized.'}
-              </p>
-            )}
+            <div className="overflow-x-auto rounded-card border border-line bg-paper p-2" data-testid="site-diagram">
+              <SiteDiagram site={view} siteName={siteName} hrefOf={(id) => `/boards/${id}`} className="min-w-[22rem]" />
+            </div>
           </figure>
           <div className="min-w-0">
             <h3 className="mb-2 text-sm font-medium text-ink">Boards and their feeds</h3>
             <BoardFeeds
               boards={view.boards}
-              results={view.result?.boards ?? []}
               canLink={canLink}
               onPick={pick}
               busy={setFeed.isPending}

@@ -19,7 +19,7 @@ export interface RepointWords {
 
 /** The words of the question asked before a board's feed changes. */
 export function repointWords(boards: readonly TreeBoard[], pending: PendingFeed): RepointWords {
-  const board = boards.find((b) => b.id === pending.boardId);
+  const board = boards.find((b) => b.boardId === pending.boardId);
   const name = board?.name ?? 'This board';
   const below = boardsBelow(boards, pending.boardId).map((b) => b.name);
   const changes = [name, ...below];
