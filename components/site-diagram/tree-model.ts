@@ -78,7 +78,9 @@ export function feedOptions(boards: readonly TreeBoard[], boardId: string): Feed
     .map((b) => ({
       boardId: b.boardId,
       boardName: b.name,
-      ways: b.ways.filter((w) => w.distribution || (current !== null && current.boardId === b.boardId && current.wayId === w.id)),
+      ways: b.ways.filter(
+        (w) => w.distribution || (current !== null && current.boardId === b.boardId && current.wayId === w.id),
+      ),
     }))
     .filter((g) => g.ways.length > 0);
 }

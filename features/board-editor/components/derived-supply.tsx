@@ -6,13 +6,7 @@ import Link from 'next/link';
 import { useId, useState } from 'react';
 
 import { FeedSelect } from '@/components/site-diagram/feed-select';
-import {
-  boardsBelow,
-  feedOfKey,
-  feedWords,
-  sameFeed,
-  type FeedChoice,
-} from '@/components/site-diagram/tree-model';
+import { boardsBelow, feedOfKey, feedWords, sameFeed, type FeedChoice } from '@/components/site-diagram/tree-model';
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { apiFetch } from '@/lib/api/client';

@@ -106,14 +106,7 @@ export function BoardFeeds({ boards, canLink, onPick, busy }: BoardFeedsProps) {
       {canLink ? <OriginTarget disabled={busy} /> : null}
       <ol className="flex flex-col gap-3" aria-label="Boards of the site, in supply order">
         {boards.map((b) => (
-          <BoardCard
-            key={b.boardId}
-            board={b}
-            boards={boards}
-            canLink={canLink}
-            busy={busy}
-            onPick={onPick}
-          />
+          <BoardCard key={b.boardId} board={b} boards={boards} canLink={canLink} busy={busy} onPick={onPick} />
         ))}
       </ol>
     </DndContext>

@@ -73,12 +73,7 @@ export function SiteView({ siteId, siteName, canLink }: SiteViewProps) {
           </figure>
           <div className="min-w-0">
             <h3 className="mb-2 text-sm font-medium text-ink">Boards and their feeds</h3>
-            <BoardFeeds
-              boards={view.boards}
-              canLink={canLink}
-              onPick={pick}
-              busy={setFeed.isPending}
-            />
+            <BoardFeeds boards={view.boards} canLink={canLink} onPick={pick} busy={setFeed.isPending} />
           </div>
         </div>
       )}
