@@ -13,6 +13,7 @@ import {
 } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
+import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/dal/site-feed';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import { Board, Way } from '@/models';
@@ -130,10 +131,26 @@ export async function writeBoard(
     set?: Partial<BoardRow>;
     ways?: { remove: string[]; insert: WayInput[]; update: WayInput[] };
     events: BoardEvent[];
-  },
+  } & TreeWriteRequest,
   transaction: Transaction,
 ): Promise<BoardDto> {
   const boardId = board.id;
+  const design = !!write.ways || Object.keys(write.set ?? {}).some((k) => ENGINE_SETTINGS.has(k));
+  // The site's tree: locked, a new feed checked, feeding ways not taken away unasked (lib/dal/site-feed.ts)
+  const tree =
+    design || write.feed
+      ? await beforeTreeWrite(
+          actor,
+          { id: boardId, siteId: board.siteId, name: write.set?.name ?? board.name, phases: board.phases },
+          {
+            ways: write.ways,
+            phases: write.set?.phases,
+            feed: write.feed,
+            confirmFeedChanges: write.confirmFeedChanges,
+          },
+          transaction,
+        )
+      : null;
   await Board.update({ ...write.set }, { where: { id: boardId }, transaction });
   const { remove = [], insert = [], update = [] } = write.ways ?? {};
   if (remove.length) await Way.destroy({ where: { boardId, id: remove }, transaction });
@@ -153,8 +170,13 @@ export async function writeBoard(
     );
   }
   await auditMany(actor, write.events, { boardId, transaction });
+  if (tree) {
+    // The whole site re-sized with this board's change, every sizing stored
+    const ripple = await afterTreeWrite(actor, { id: boardId, name: write.set?.name ?? board.name }, tree, transaction);
+    if (write.out) write.out.ripple = ripple;
+    return readBoard(actor, boardId, { transaction, deleted: true });
+  }
   const written = await readBoard(actor, boardId, { transaction, deleted: true });
-  const design = write.ways || Object.keys(write.set ?? {}).some((k) => ENGINE_SETTINGS.has(k));
   if (design) {
     await storeSizing(written, transaction);
   } else {
@@ -195,7 +217,8 @@ export type StoredSizing = { json: string | null; issues: FieldIssue[] };
 
 /** Sizes the board as read and stores it for its version (an older stored sizing is replaced). */
 async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<StoredSizing> {
-  const sized = sizeDesign(board);
+  // A board in a site's tree is sized with what is carried to it (lib/dal/site-tree.ts)
+  const sized = sizeDesign(board.derivedSupply ? { ...board, supply: board.derivedSupply.supply } : board);
   const stored = { json: sized.sizing && JSON.stringify(sized.sizing), issues: sized.issues };
   await db().query(
     `INSERT INTO board_sizings (board_id, version, sizing, issues) VALUES ($1, $2, $3::json, $4::jsonb)

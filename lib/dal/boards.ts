@@ -19,6 +19,7 @@ import {
 import { db } from '@/lib/db';
 import type { AuditAction } from '@/lib/dal/audit';
 import { findBoard, readWays, writeBoard, type BoardEvent } from '@/lib/dal/board-repository';
+import { lockSiteOfBoard, type TreeWriteRequest } from '@/lib/dal/site-feed';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
 import { Board, BoardRevision, Site, User, Way } from '@/models';
@@ -142,6 +143,7 @@ export async function createBoard(actor: Actor, input: BoardCreateInput): Promis
       created,
       {
         ways: { remove: [], insert: [], update: [] },
+        feed: input.feed,
         events: [{ action: 'board.created', details: { name: input.name } }],
       },
       transaction,
@@ -160,6 +162,8 @@ async function changeBoard(
   opts: { deleted?: boolean } = {},
 ): Promise<BoardDto> {
   return db().transaction(async (transaction) => {
+    // The site first, then the board: every write on one site's tree takes them in this order
+    await lockSiteOfBoard(actor, boardId, transaction);
     const board = await findBoard(actor, boardId, { transaction, lock: true, deleted: opts.deleted });
     return writeBoard(actor, board, await change(board, transaction), transaction);
   });
@@ -273,7 +277,12 @@ export function diffWays(before: WayInput[], after: WayInput[]) {
  * check; a way left as it was is not written, so it keeps its label check. Saving an issued
  * board (labels matched or not) starts the next draft revision.
  */
-export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveInput): Promise<BoardDto> {
+export async function saveBoard(
+  actor: Actor,
+  boardId: string,
+  input: BoardSaveInput,
+  out?: TreeWriteRequest['out'],
+): Promise<BoardDto> {
   try {
     return await changeBoard(actor, boardId, async (board, transaction) => {
       // An archive also moves the version on: say that it is archived, not that someone saved
@@ -301,6 +310,10 @@ export async function saveBoard(actor: Actor, boardId: string, input: BoardSaveI
           insert: input.ways.filter((w) => added.has(w.id)),
           update: input.ways.filter((w) => touched.has(w.id)),
         },
+        // The site's tree (lib/dal/site-feed.ts): a new feed, feeding ways taken away, the ripple
+        feed: input.settings.feed,
+        confirmFeedChanges: input.confirmFeedChanges,
+        out,
         events: [
           ...wayEvents('way.added', diff.added),
           ...wayEvents('way.removed', diff.removed),

@@ -9,13 +9,21 @@ export const GET = defineRoute({
   handler: async ({ actor, params: { boardId } }) => Response.json({ board: await getBoard(actor, boardId) }),
 });
 
-/** PUT /api/boards/:boardId: save the whole board (settings and ways) at a known version. */
+/**
+ * PUT /api/boards/:boardId: save the whole board (settings and ways) at a known version.
+ * Answers `{ board, ripple }`: every board of the site is re-sized with it; 409 naming the
+ * boards whose feeding way the save takes away, unless `confirmFeedChanges`.
+ */
 export const PUT = defineRoute({
   action: 'boards.edit',
   params: idParamsSchema,
   body: boardSaveSchema,
-  handler: async ({ actor, params: { boardId }, body }) =>
-    Response.json({ board: await saveBoard(actor, boardId, body) }),
+  handler: async ({ actor, params: { boardId }, body }) => {
+    // The board, and what the save did to the rest of its site (lib/sites/tree-types.ts SiteRipple)
+    const out = { ripple: null };
+    const board = await saveBoard(actor, boardId, body, out);
+    return Response.json({ board, ripple: out.ripple });
+  },
 });
 
 /** PATCH /api/boards/:boardId: rename or relocate. */

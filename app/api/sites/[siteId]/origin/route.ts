@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
-import { HttpError } from '@/lib/errors';
+import { setSiteOrigin } from '@/lib/dal/site-supply';
 import { siteOriginSchema } from '@/lib/sites/tree-types';
 
 const params = z.object({ siteId: z.uuid() });
@@ -14,7 +14,5 @@ export const PUT = defineRoute({
   action: 'boards.edit',
   params,
   body: siteOriginSchema,
-  handler: async () => {
-    throw new HttpError(501, 'Not built yet.');
-  },
+  handler: async ({ actor, params: { siteId }, body }) => Response.json(await setSiteOrigin(actor, siteId, body)),
 });

@@ -1,15 +1,16 @@
 import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
-import { HttpError } from '@/lib/errors';
+import { getSiteTree } from '@/lib/dal/site-supply';
 
 const params = z.object({ siteId: z.uuid() });
 
-/** GET /api/sites/:siteId/tree: the site's supply tree (lib/sites/tree-types.ts SiteTreeDto). */
+/**
+ * GET /api/sites/:siteId/tree: the site's supply tree (lib/sites/tree-types.ts SiteTreeDto): the
+ * origin, each board with the values carried to it and its worst verdict, the sub-mains.
+ */
 export const GET = defineRoute({
   action: 'boards.read',
   params,
-  handler: async () => {
-    throw new HttpError(501, 'Not built yet.');
-  },
+  handler: async ({ actor, params: { siteId } }) => Response.json({ tree: await getSiteTree(actor, siteId) }),
 });

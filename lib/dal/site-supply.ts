@@ -1,0 +1,188 @@
+import 'server-only';
+
+import { QueryTypes } from 'sequelize';
+
+import type { Actor } from '@/lib/auth/session';
+import { engineInputOf, type BoardDto } from '@/lib/boards/schemas';
+import { transition } from '@/lib/boards/lifecycle';
+import { db } from '@/lib/db';
+import { audit } from '@/lib/dal/audit';
+import { findBoard, writeBoard } from '@/lib/dal/board-repository';
+import { assertNotArchived } from '@/lib/dal/boards';
+import { lockSiteOfBoard } from '@/lib/dal/site-feed';
+import { conflict, notFound } from '@/lib/errors';
+import type {
+  BoardFeedInput,
+  SiteOrigin,
+  SiteOriginInput,
+  SiteRipple,
+  SiteTreeBoard,
+  SiteTreeDto,
+  SiteTreeEdge,
+} from '@/lib/sites/tree-types';
+import { isProtectiveDevice, SIZING_CAUTION } from '@/lib/sizing';
+import { wayLabels, worstVerdictOf } from '@/lib/supply';
+
+import { lockSite, readSiteBoards, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
+
+/** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
+
+/** The tree DTO from the boards and their sizing as one tree. */
+export function treeDtoOf(
+  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
+  boards: readonly TreeBoard[],
+  sized: SizedSite,
+): SiteTreeDto {
+  const byId = new Map(boards.map((b) => [b.id, b]));
+  const labels = new Map(
+    boards.map((b) => [b.id, wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways })]),
+  );
+  const feeds = new Map<string, string>(); // way id → the board it feeds
+  for (const b of boards) if (b.feed.from === 'way' && !sized.detached.has(b.id)) feeds.set(b.feed.wayId, b.id);
+
+  const order = [
+    ...sized.site.boards.map((r) => r.boardId),
+    ...boards.filter((b) => !sized.site.boards.some((r) => r.boardId === b.id)).map((b) => b.id),
+  ];
+  const out: SiteTreeBoard[] = [];
+  const edges: SiteTreeEdge[] = [];
+  for (const id of order) {
+    const b = byId.get(id)!;
+    const s = sized.boards.get(id);
+    const r = s?.result ?? null;
+    const sizing = s?.sizing ?? null;
+    const problem =
+      r?.problem ?? (s && !sizing ? `${b.name} cannot be sized: ${s.issues.map((i) => i.message).join('; ')}` : null);
+    out.push({
+      boardId: b.id,
+      name: b.name,
+      depth: r?.depth ?? 0,
+      fedFrom: sized.detached.has(b.id) ? null : (r?.fedFrom ?? null),
+      phase: r?.phase ?? null,
+      zdb: s?.carried?.zdb ?? r?.zdb ?? null,
+      pfc: s?.carried?.pfc ?? r?.pfc ?? null,
+      vdUsed: s?.carried?.vdUsed ?? r?.vdUsed ?? null,
+      subMainCurrent: s?.carried?.subMainCurrent ?? r?.subMainCurrent ?? null,
+      selectivity: r?.selectivity ?? [],
+      supply: s?.carried?.supply ?? (sizing ? b.supply : null),
+      sizing: sizing ? { summary: sizing.summary } : null,
+      worstVerdict: sizing ? (r?.worstVerdict ?? worstVerdictOf(sizing, r?.selectivity ?? [])) : null,
+      problem,
+      location: b.location,
+      phases: b.phases,
+      status: b.status,
+      version: b.version,
+      feed: b.feed,
+      feedsBoards: b.ways.filter((w) => feeds.has(w.id)).map((w) => ({ wayId: w.id, boardId: feeds.get(w.id)! })),
+      ways: engineInputOf(b, b.ways).ways.map((w) => ({
+        id: w.id,
+        label: labels.get(b.id)?.get(w.id) ?? null,
+        feedsBoardId: feeds.get(w.id) ?? null,
+        distribution: isProtectiveDevice(w.device.kind) && w.circuit?.use === 'distribution',
+      })),
+    });
+    const feed = b.feed;
+    if (feed.from === 'way' && !sized.detached.has(b.id) && r?.fedFrom) {
+      const parentSizing = sized.boards.get(feed.boardId)?.sizing ?? null;
+      edges.push({
+        fromBoardId: feed.boardId,
+        fromWayId: feed.wayId,
+        wayLabel: r.fedFrom.wayLabel,
+        toBoardId: b.id,
+        device: r.fedFrom.device,
+        cable: r.fedFrom.cable,
+        verdict: parentSizing?.ways.find((w) => w.id === feed.wayId)?.result?.verdict ?? null,
+        designCurrent: r.subMainCurrent,
+      });
+    }
+  }
+  return {
+    siteId: site.id,
+    siteName: site.name,
+    origin: site.origin,
+    treeVersion: site.treeVersion,
+    boards: out,
+    edges,
+    caution: SIZING_CAUTION,
+  };
+}
+
+/** The caller's organisation's site's supply tree (404 otherwise), every board sized in it. */
+export async function getSiteTree(actor: Actor, siteId: string): Promise<SiteTreeDto> {
+  const rows = await db().query<{ id: string; name: string; origin: SiteOrigin | null; tree_version: number }>(
+    'SELECT id, name, origin, tree_version FROM sites WHERE id = $1 AND organisation_id = $2',
+    { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT },
+  );
+  if (!rows.length) throw notFound('The site');
+  const site = { ...rows[0], treeVersion: rows[0].tree_version };
+  const boards = await readSiteBoards(siteId, undefined, { stored: false });
+  return treeDtoOf(site, boards, sizeTree(siteId, site.origin, boards));
+}
+
+/**
+ * Sets the site's origin and re-sizes every board of the site in the same transaction (the
+ * site row locked): answers the tree and the ripple. An archived site is read-only (409).
+ */
+export async function setSiteOrigin(
+  actor: Actor,
+  siteId: string,
+  origin: SiteOriginInput,
+): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
+  return db().transaction(async (transaction) => {
+    const site = await lockSite(actor, siteId, transaction);
+    if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
+    const next: SiteOrigin = {
+      earthing: origin.earthing,
+      uoV: origin.uoV,
+      zeOhm: origin.zeOhm,
+      pfcKa: origin.pfcKa,
+      source: origin.source,
+    };
+    await db().query('UPDATE sites SET origin = $2::jsonb, updated_at = now() WHERE id = $1', {
+      bind: [siteId, JSON.stringify(next)],
+      transaction,
+    });
+    await audit(actor, 'site.origin-changed', { siteId, from: site.origin, to: next }, { transaction });
+    const sizedOut: { sized?: SizedSite; boards?: TreeBoard[] } = {};
+    const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
+      cause: 'The site’s origin was changed',
+      sizedOut,
+    });
+    const tree = treeDtoOf(
+      { ...site, origin: next, treeVersion: ripple.treeVersion },
+      sizedOut.boards!,
+      sizedOut.sized!,
+    );
+    return { tree, ripple };
+  });
+}
+
+/**
+ * Sets where a board is fed from (lib/dal/site-feed.ts checks it), in one transaction with the
+ * site and the board locked, and re-sizes the site. A stale `version` is 409; an archived board
+ * or one in review is refused like a save.
+ */
+export async function setBoardFeed(
+  actor: Actor,
+  boardId: string,
+  input: BoardFeedInput,
+): Promise<{ board: BoardDto; ripple: SiteRipple | null }> {
+  const out = { ripple: null as SiteRipple | null };
+  const board = await db().transaction(async (transaction) => {
+    await lockSiteOfBoard(actor, boardId, transaction);
+    const row = await findBoard(actor, boardId, { transaction, lock: true });
+    await assertNotArchived(row, transaction);
+    const step = transition(row.status, 'save', { revision: row.revision });
+    if (step.refused) throw conflict(step.message);
+    if (input.version !== undefined && row.version !== input.version) {
+      throw conflict('Someone else saved this board after you opened it.', { currentVersion: row.version });
+    }
+    return writeBoard(
+      actor,
+      row,
+      { events: [], feed: input.feed, confirmFeedChanges: input.confirmFeedChanges, out },
+      transaction,
+    );
+  });
+  return { board, ripple: out.ripple };
+}

@@ -1,0 +1,397 @@
+import 'server-only';
+
+import { QueryTypes, type Transaction } from 'sequelize';
+
+import type { Actor } from '@/lib/auth/session';
+import { engineInputOf, type BoardFeed, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
+import { db } from '@/lib/db';
+import { auditMany } from '@/lib/dal/audit';
+import { HttpError, notFound, type FieldIssue } from '@/lib/errors';
+import type { BoardStatus } from '@/lib/domain';
+import { wayName } from '@/lib/names';
+import type { DerivedSupply, RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
+import {
+  parseBoardInput,
+  sizeBoard,
+  SizingInputError,
+  type BoardResult,
+  type SupplyInput,
+  type Verdict,
+} from '@/lib/sizing';
+import {
+  sizeSite,
+  SiteTreeError,
+  wayLabels,
+  worstVerdictOf,
+  type SiteBoardInput,
+  type SiteBoardResult,
+  type SiteResult,
+} from '@/lib/supply';
+
+/**
+ * A site's boards as one supply tree, on the server: the tree read from the database, sized with
+ * lib/supply's `sizeSite` and stored with every board's sizing (`board_sizings`, with the values
+ * carried to it and the site's tree version).
+ *
+ * Concurrency: every write that changes what is carried down (a board's design or feed, the
+ * site's origin) locks the site row (`lockSite`, SELECT … FOR UPDATE) before it re-sizes, and
+ * re-sizes the whole site from what is committed plus its own change. Writes on one tree are so
+ * serialised on the site row, and the last one sizes every board against its parents' latest
+ * state: no board is left sized against a stale parent. Each stored sizing records the site's
+ * tree version it was carried at.
+ */
+
+/** The site row, locked for the rest of the transaction (404 for another organisation's). */
+export async function lockSite(
+  actor: Pick<Actor, 'organisationId'>,
+  siteId: string,
+  transaction: Transaction,
+): Promise<{ id: string; name: string; origin: SiteOrigin | null; treeVersion: number; archived: boolean }> {
+  const rows = await db().query<{
+    id: string;
+    name: string;
+    origin: SiteOrigin | null;
+    tree_version: number;
+    archived: boolean;
+  }>(
+    `SELECT id, name, origin, tree_version, archived_at IS NOT NULL AS archived FROM sites
+     WHERE id = $1 AND organisation_id = $2 FOR UPDATE`,
+    { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT, transaction },
+  );
+  if (!rows.length) throw notFound('The site');
+  const r = rows[0];
+  return { id: r.id, name: r.name, origin: r.origin, treeVersion: r.tree_version, archived: r.archived };
+}
+
+/** One board of a site as the tree needs it: settings, ways, feed and what was stored for it. */
+export type TreeBoard = BoardSettings & {
+  id: string;
+  status: BoardStatus;
+  version: number;
+  archived: boolean;
+  ways: WayInput[];
+  feed: BoardFeed;
+  stored: { version: number; sizing: BoardResult | null; carried: DerivedSupply | null } | null;
+};
+
+/** The site's boards (not deleted), oldest first, with their ways in rail order and feed. */
+export async function readSiteBoards(
+  siteId: string,
+  transaction?: Transaction,
+  opts: { stored?: boolean } = {},
+): Promise<TreeBoard[]> {
+  const stored = opts.stored ?? true;
+  const rows = await db().query<{ j: string }>(
+    `SELECT json_build_object(
+       'id', b.id, 'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
+       'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails, 'dwelling', b.dwelling,
+       'conditionalRatingKa', b.conditional_rating_ka, 'status', b.status, 'version', b.version,
+       'archived', b.archived_at IS NOT NULL,
+       'feed', CASE WHEN fw.id IS NULL THEN json_build_object('from', 'origin') ELSE json_build_object(
+         'from', 'way', 'boardId', fw.board_id, 'wayId', fw.id,
+         'designCurrentOverride', CASE WHEN b.sub_main_design_current_a IS NULL THEN NULL ELSE json_build_object(
+           'amps', b.sub_main_design_current_a::float8, 'reason', b.sub_main_design_current_reason) END,
+         'upstreamRcdTimeDelayed', b.upstream_rcd_time_delayed) END,
+       'ways', COALESCE((SELECT json_agg(json_build_object('id', w.id, 'rail', w.rail, 'position', w.position,
+           'device', w.device, 'circuit', w.circuit) ORDER BY w.rail, w.position)
+         FROM ways w WHERE w.board_id = b.id), '[]'::json),
+       'stored', ${
+         stored
+           ? `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
+         FROM board_sizings s WHERE s.board_id = b.id)`
+           : 'NULL'
+       }
+     )::text AS j
+     FROM boards b LEFT JOIN ways fw ON fw.id = b.fed_from_way_id
+     WHERE b.site_id = $1 AND b.deleted_at IS NULL
+     ORDER BY b.created_at, b.id`,
+    { bind: [siteId], type: QueryTypes.SELECT, transaction },
+  );
+  return rows.map((r) => JSON.parse(r.j) as TreeBoard);
+}
+
+/** What sizing the whole site gives each board: the stored form and the tree's values. */
+export type SizedSite = {
+  /** Per board: its sizing (null: the engine refused it), the issues, and what was carried to it. */
+  boards: Map<
+    string,
+    { sizing: BoardResult | null; issues: FieldIssue[]; carried: DerivedSupply | null; result: SiteBoardResult | null }
+  >;
+  /** The tree as sizeSite answered it (boards it could size, parents first). */
+  site: SiteResult;
+  /** Feeds that could not be followed (a broken or refused link): board id → why. */
+  detached: Map<string, string>;
+};
+
+const originSupply = (o: SiteOrigin): SupplyInput => ({
+  earthing: o.earthing,
+  uoV: o.uoV,
+  zeOhm: o.zeOhm,
+  pfcKa: o.pfcKa,
+  source: o.source,
+});
+
+/** A board sized alone with the given supply (its typed one, or a fallback), or its issues. */
+function sizeAlone(b: TreeBoard, supply: SupplyInput): { sizing: BoardResult | null; issues: FieldIssue[] } {
+  try {
+    return { sizing: sizeBoard(parseBoardInput(engineInputOf({ ...b, supply }, b.ways))), issues: [] };
+  } catch (err) {
+    if (!(err instanceof SizingInputError)) throw err;
+    return { sizing: null, issues: err.issues.map(({ path, message }) => ({ path: path || '(body)', message })) };
+  }
+}
+
+/** The tree issues (lib/supply validateTree) that name a board's feed: board index → message. */
+function feedIssues(err: SiteTreeError): Map<number, string> {
+  const out = new Map<number, string>();
+  for (const i of err.issues) {
+    const m = /^boards\.(\d+)\.(feed|board)/.exec(i.path);
+    if (m) out.set(Number(m[1]), [out.get(Number(m[1])), i.message].filter(Boolean).join('; '));
+  }
+  return out;
+}
+
+/**
+ * Sizes a site's boards as one tree. The origin is the site's; a site without one yet sizes
+ * each board fed from the origin with its own typed supply (as before the tree existed). A
+ * board the engine refuses is stored with its issues and cannot feed anything; a board whose
+ * feed cannot be followed (a refused parent, a way no longer fit to feed it) is sized with its
+ * typed supply and says why (`problem`). Pure apart from nothing: no database.
+ */
+export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: readonly TreeBoard[]): SizedSite {
+  const out: SizedSite['boards'] = new Map();
+  const detached = new Map<string, string>();
+  const byId = new Map(boards.map((b) => [b.id, b]));
+  // Boards the engine refuses on their own: stored with their issues, never in the tree
+  const inTree = new Set<string>();
+  for (const b of boards) {
+    try {
+      parseBoardInput(engineInputOf({ ...b, supply: origin ? originSupply(origin) : b.supply }, b.ways));
+      inTree.add(b.id);
+    } catch (err) {
+      if (!(err instanceof SizingInputError)) throw err;
+      const issues = err.issues.map(({ path, message }) => ({ path: path || '(body)', message }));
+      out.set(b.id, { sizing: null, issues, carried: null, result: null });
+    }
+  }
+  // Feeds from a board outside the tree are cut
+  const feedOf = new Map<string, BoardFeed>();
+  for (const b of boards) {
+    if (!inTree.has(b.id)) continue;
+    if (b.feed.from === 'way' && !inTree.has(b.feed.boardId)) {
+      const parent = byId.get(b.feed.boardId);
+      detached.set(
+        b.id,
+        parent
+          ? `${parent.name} cannot be sized (see its checks), so no values can be carried to ${b.name}.`
+          : `The board that fed ${b.name} is no longer on the site.`,
+      );
+      feedOf.set(b.id, { from: 'origin' });
+    } else feedOf.set(b.id, b.feed);
+  }
+  // Each group of boards under one origin: the site's, or (none given) each root's typed supply
+  const roots = boards.filter((b) => inTree.has(b.id) && feedOf.get(b.id)?.from === 'origin');
+  const groups: { origin: SiteOrigin; ids: string[] }[] = [];
+  if (origin) groups.push({ origin, ids: boards.filter((b) => inTree.has(b.id)).map((b) => b.id) });
+  else {
+    const below = new Map<string, string[]>();
+    for (const b of boards) {
+      const f = feedOf.get(b.id);
+      if (f?.from === 'way') below.set(f.boardId, [...(below.get(f.boardId) ?? []), b.id]);
+    }
+    const seen = new Set<string>();
+    for (const r of roots) {
+      const ids: string[] = [];
+      const visit = (id: string) => {
+        if (seen.has(id)) return;
+        seen.add(id);
+        ids.push(id);
+        for (const c of below.get(id) ?? []) visit(c);
+      };
+      visit(r.id);
+      const s = r.supply;
+      groups.push({
+        origin: { earthing: s.earthing, uoV: s.uoV, zeOhm: s.zeOhm, pfcKa: s.pfcKa, source: s.source },
+        ids,
+      });
+    }
+    // Boards in a loop (never reached from a root): cut
+    for (const b of boards) {
+      if (inTree.has(b.id) && !seen.has(b.id)) {
+        detached.set(b.id, `${b.name} is fed in a loop of boards.`);
+        feedOf.set(b.id, { from: 'origin' });
+        groups.push({ origin: { ...originSupply(b.supply) }, ids: [b.id] });
+      }
+    }
+  }
+
+  const all: SiteBoardResult[] = [];
+  for (const g of groups) {
+    let members = g.ids.map((id) => byId.get(id)!);
+    // A feed the tree refuses (a way no longer fit to feed, a loop) is cut, and the rest sized
+    for (let attempt = 0; attempt <= members.length; attempt++) {
+      const input: SiteBoardInput[] = members.map((b) => ({
+        id: b.id,
+        name: b.name,
+        siteId,
+        feed: feedOf.get(b.id)!,
+        board: engineInputOf(b, b.ways),
+      }));
+      try {
+        const sized = sizeSite({ siteId, origin: g.origin, boards: input });
+        all.push(...sized.boards);
+        break;
+      } catch (err) {
+        if (!(err instanceof SiteTreeError)) throw err;
+        const bad = feedIssues(err);
+        if (!bad.size) throw err;
+        for (const [i, message] of bad) {
+          const b = members[i];
+          detached.set(b.id, message);
+          feedOf.set(b.id, { from: 'origin' });
+        }
+        members = [...members];
+      }
+    }
+  }
+
+  for (const r of all) {
+    const b = byId.get(r.boardId)!;
+    const problem = r.problem ?? detached.get(b.id) ?? null;
+    let sizing = r.sizing;
+    let issues: FieldIssue[] = [];
+    if (!sizing || detached.has(b.id)) {
+      // Nothing could be carried to it: sized with the origin's or its typed supply, saying why
+      ({ sizing, issues } = sizeAlone(b, origin ? originSupply(origin) : b.supply));
+    }
+    const fromWay = b.feed.from === 'way';
+    const carried: DerivedSupply | null =
+      !origin && !fromWay
+        ? null
+        : {
+            from: fromWay ? 'way' : 'origin',
+            supply: r.supply && !detached.has(b.id) ? r.supply : b.supply,
+            fedFrom: detached.has(b.id) ? null : r.fedFrom,
+            phase: r.phase,
+            zdb: detached.has(b.id) ? null : r.zdb,
+            pfc: detached.has(b.id) ? null : r.pfc,
+            vdUsed: detached.has(b.id) ? null : r.vdUsed,
+            subMainCurrent: detached.has(b.id) ? null : r.subMainCurrent,
+            problem,
+            treeVersion: 0,
+          };
+    out.set(b.id, { sizing, issues, carried, result: { ...r, problem, sizing } });
+  }
+  return { boards: out, site: { siteId, origin: origin ?? groups[0]?.origin ?? null!, boards: all }, detached };
+}
+
+/** The verdict of each way of a sizing, by way id. */
+function verdicts(sizing: BoardResult | null): Map<string, Verdict> {
+  return new Map((sizing?.ways ?? []).flatMap((w) => (w.result ? [[w.id, w.result.verdict] as const] : [])));
+}
+
+const sameSupply = (a: SupplyInput | null | undefined, b: SupplyInput | null | undefined) =>
+  JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
+
+/**
+ * Re-sizes every board of the site (the caller holds the site row: `lockSite`), stores each
+ * board's sizing with what was carried to it, raises the site's tree version, and records in
+ * the history of every board other than `writtenBoardId` whose supply or verdicts changed that
+ * its supply changed, with the ways whose verdict changed. Answers the ripple for the whole site.
+ */
+export async function resizeSite(
+  actor: Actor,
+  site: { id: string; origin: SiteOrigin | null; treeVersion: number },
+  transaction: Transaction,
+  opts: {
+    writtenBoardId?: string | null;
+    cause?: string;
+    /** Hands back the boards as read and their sizing (to answer the tree without sizing it twice). */
+    sizedOut?: { sized?: SizedSite; boards?: TreeBoard[] };
+  } = {},
+): Promise<SiteRipple> {
+  const boards = await readSiteBoards(site.id, transaction);
+  const sized = sizeTree(site.id, site.origin, boards);
+  if (opts.sizedOut) Object.assign(opts.sizedOut, { sized, boards });
+  const treeVersion = site.treeVersion + 1;
+  await db().query('UPDATE sites SET tree_version = $2 WHERE id = $1', { bind: [site.id, treeVersion], transaction });
+
+  const rows: { board_id: string; version: number; sizing: string | null; issues: string; carried: string | null }[] =
+    [];
+  const ripple: RippleBoard[] = [];
+  for (const b of boards) {
+    const s = sized.boards.get(b.id);
+    if (!s) continue;
+    const carried = s.carried && { ...s.carried, treeVersion };
+    rows.push({
+      board_id: b.id,
+      version: b.version,
+      sizing: s.sizing && JSON.stringify(s.sizing),
+      issues: JSON.stringify(s.issues),
+      carried: carried && JSON.stringify(carried),
+    });
+    const before = verdicts(b.stored?.sizing ?? null);
+    const after = verdicts(s.sizing);
+    const labels = wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways });
+    const changedWays = [...new Set([...before.keys(), ...after.keys()])]
+      .filter((id) => before.get(id) !== after.get(id))
+      .map((wayId) => ({
+        wayId,
+        wayLabel: labels.get(wayId) ?? null,
+        before: before.get(wayId) ?? null,
+        after: after.get(wayId) ?? null,
+      }));
+    // A board never sized before has nothing to compare with
+    if (!b.stored) continue;
+    const supplyChanged = !sameSupply(b.stored.carried?.supply, s.carried?.supply);
+    if (!changedWays.length && !supplyChanged) continue;
+    const worst = (x: BoardResult | null | undefined) => (x ? worstVerdictOf(x, []) : null);
+    ripple.push({
+      boardId: b.id,
+      name: b.name,
+      supplyChanged,
+      worstBefore: worst(b.stored?.sizing),
+      worstAfter: s.result?.worstVerdict ?? worst(s.sizing),
+      changedWays,
+    });
+  }
+  if (rows.length) {
+    await db().query(
+      `INSERT INTO board_sizings (board_id, version, sizing, issues, carried, tree_version)
+       SELECT r.board_id, r.version, r.sizing::json, r.issues::jsonb, r.carried::jsonb, $2
+       FROM jsonb_to_recordset($1::jsonb) AS r(board_id uuid, version int, sizing text, issues text, carried text)
+       ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
+         issues = EXCLUDED.issues, carried = EXCLUDED.carried, tree_version = EXCLUDED.tree_version`,
+      { bind: [JSON.stringify(rows), treeVersion], transaction },
+    );
+  }
+  // Each board below whose supply or verdicts changed: its history says so
+  for (const r of ripple) {
+    if (r.boardId === opts.writtenBoardId) continue;
+    await auditMany(
+      actor,
+      [
+        {
+          action: 'board.supply-changed',
+          details: {
+            cause: opts.cause ?? 'A change upstream',
+            supplyChanged: r.supplyChanged,
+            ways: r.changedWays.map((w) => ({
+              wayId: w.wayId,
+              way: w.wayLabel ? wayName(w.wayLabel) : null,
+              before: w.before,
+              after: w.after,
+            })),
+          },
+        },
+      ],
+      { boardId: r.boardId, transaction },
+    );
+  }
+  return { siteId: site.id, treeVersion, boards: ripple };
+}
+
+/** A feed that cannot be: 422 naming the field, and the boards of a loop when it is one. */
+export function feedRefusal(issues: FieldIssue[], cycle?: { boardId: string; name: string }[]): HttpError {
+  return new HttpError(422, issues.map((i) => i.message).join('; '), { issues, ...(cycle ? { cycle } : {}) });
+}
