@@ -34,6 +34,24 @@ function latestSupplyChange(page: AuditPage): SupplyChange | null {
   return { at: entry.createdAt, cause, ways };
 }
 
+/** What the tree carried to this board, in the shape the board's own record keeps it. */
+function derivedOf(tree: SiteTreeDto | undefined, boardId: string): Derived | null {
+  const b = tree?.boards.find((x) => x.boardId === boardId);
+  if (!tree || !b || !b.supply || (!b.fedFrom && !tree.origin)) return null;
+  return {
+    from: b.fedFrom ? 'way' : 'origin',
+    supply: b.supply,
+    fedFrom: b.fedFrom,
+    phase: b.phase,
+    zdb: b.zdb,
+    pfc: b.pfc,
+    vdUsed: b.vdUsed,
+    subMainCurrent: b.subMainCurrent,
+    problem: b.problem,
+    treeVersion: tree.treeVersion,
+  };
+}
+
 const ohm = (x: number) => `${x.toFixed(3)} Ω`;
 const ka = (x: number) => `${x.toFixed(2)} kA`;
 const pct = (x: number) => `${x.toFixed(2)} %`;
@@ -51,12 +69,10 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
   const queryClient = useQueryClient();
   const selectId = useId();
   const [pending, setPending] = useState<FeedChoice | null>(null);
-  const derived = board.derivedSupply;
   const tree = useQuery({
     queryKey: ['sites', 'tree', board.siteId],
     queryFn: async () =>
       (await apiFetch<{ tree: SiteTreeDto }>(`/api/sites/${encodeURIComponent(board.siteId)}/tree`)).tree,
-    enabled: canEdit,
   });
   const history = useQuery({
     queryKey: ['boards', board.id, 'supply-change'],
@@ -77,6 +93,9 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
   });
 
   const boards = tree.data?.boards ?? [];
+  // The tree is sized on every read, so its values are the current ones; until it has loaded,
+  // what was stored with the board's sizing
+  const derived = derivedOf(tree.data, board.id) ?? board.derivedSupply;
   const change = history.data ?? null;
   const below = boardsBelow(boards, board.id).map((b) => b.name);
 
