@@ -3,7 +3,7 @@ import 'server-only';
 import { QueryTypes } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { engineInputOf, type BoardDto } from '@/lib/boards/schemas';
+import { engineInputOf, type BoardDto, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
 import { transition } from '@/lib/boards/lifecycle';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
@@ -13,6 +13,7 @@ import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { conflict, notFound } from '@/lib/errors';
 import type {
   BoardFeedInput,
+  DerivedSupply,
   SiteOrigin,
   SiteOriginInput,
   SiteRipple,
@@ -20,8 +21,8 @@ import type {
   SiteTreeDto,
   SiteTreeEdge,
 } from '@/lib/sites/tree-types';
-import { isProtectiveDevice, SIZING_CAUTION } from '@/lib/sizing';
-import { wayLabels, worstVerdictOf } from '@/lib/supply';
+import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
+import { subMainLoad, wayLabels, worstVerdictOf } from '@/lib/supply';
 
 import { lockSite, readSiteBoards, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
 
@@ -185,4 +186,51 @@ export async function setBoardFeed(
     );
   });
   return { board, ripple: out.ripple };
+}
+
+/**
+ * What the tree gives a draft of a board (the editor's unsaved edits, sized by the board's
+ * sizing route): the supply carried to it (null: its typed supply) and the design current of
+ * each of its ways that feeds a board. 404 for another organisation's board.
+ */
+export async function draftTreeContext(
+  actor: Actor,
+  boardId: string,
+): Promise<{ supply: SupplyInput | null; subMains: Map<string, number> }> {
+  const rows = await db().query<{
+    carried: DerivedSupply | null;
+    feeds: { wayId: string; amps: number | null }[] | null;
+  }>(
+    `SELECT (SELECT s.carried FROM board_sizings s WHERE s.board_id = b.id) AS carried,
+       (SELECT json_agg(json_build_object('wayId', d.fed_from_way_id,
+          'amps', (SELECT (s.carried->'subMainCurrent'->>'value')::float8 FROM board_sizings s WHERE s.board_id = d.id)))
+        FROM boards d JOIN ways w ON w.id = d.fed_from_way_id
+        WHERE w.board_id = b.id AND d.deleted_at IS NULL) AS feeds
+     FROM boards b WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
+    { bind: [boardId, actor.organisationId], type: QueryTypes.SELECT },
+  );
+  if (!rows.length) throw notFound('The board');
+  const { carried, feeds } = rows[0];
+  const subMains = new Map<string, number>();
+  for (const f of feeds ?? []) if (f.amps !== null) subMains.set(f.wayId, f.amps);
+  return { supply: carried?.supply ?? null, subMains };
+}
+
+/** A draft's settings and ways with what the tree gives it (see `draftTreeContext`). */
+export function withTreeContext<T extends { settings: BoardSettings; ways: WayInput[] }>(
+  draft: T,
+  context: { supply: SupplyInput | null; subMains: Map<string, number> },
+): { settings: BoardSettings; ways: WayInput[] } {
+  const { supply, subMains } = context;
+  return {
+    settings: supply ? { ...draft.settings, supply } : draft.settings,
+    ways: draft.ways.map((w) => {
+      const amps = subMains.get(w.id);
+      if (amps === undefined || !w.circuit) return w;
+      return {
+        ...w,
+        circuit: { ...w.circuit, load: subMainLoad(amps, w.circuit.phases, (supply ?? draft.settings.supply).uoV) },
+      };
+    }),
+  };
 }

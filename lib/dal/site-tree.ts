@@ -1,5 +1,7 @@
 import 'server-only';
 
+import { isDeepStrictEqual } from 'node:util';
+
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
@@ -270,7 +272,7 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
         ? null
         : {
             from: fromWay ? 'way' : 'origin',
-            supply: r.supply && !detached.has(b.id) ? r.supply : b.supply,
+            supply: r.supply && !detached.has(b.id) ? r.supply : origin ? originSupply(origin) : b.supply,
             fedFrom: detached.has(b.id) ? null : r.fedFrom,
             phase: r.phase,
             zdb: detached.has(b.id) ? null : r.zdb,
@@ -290,8 +292,9 @@ function verdicts(sizing: BoardResult | null): Map<string, Verdict> {
   return new Map((sizing?.ways ?? []).flatMap((w) => (w.result ? [[w.id, w.result.verdict] as const] : [])));
 }
 
+// Compared as values: the stored copy is jsonb, which orders its keys its own way
 const sameSupply = (a: SupplyInput | null | undefined, b: SupplyInput | null | undefined) =>
-  JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
+  isDeepStrictEqual(a ?? null, b ?? null);
 
 /**
  * Re-sizes every board of the site (the caller holds the site row: `lockSite`), stores each

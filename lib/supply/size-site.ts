@@ -40,7 +40,7 @@ const SRC_METHOD = 'Site-supply method (carried values)';
  * (P = Ib·Uo single-phase, Ib·√3·UL three-phase, power factor 1), so the engine's own design
  * current step gives Ib back.
  */
-function subMainLoad(amps: number, phases: 1 | 3, uoV: number) {
+export function subMainLoad(amps: number, phases: 1 | 3, uoV: number) {
   const watts = phases === 3 ? amps * Math.sqrt(3) * lineVoltage(uoV) : amps * uoV;
   return { kind: 'known' as const, watts, powerFactor: 1 };
 }

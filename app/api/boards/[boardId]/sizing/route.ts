@@ -2,7 +2,8 @@ import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
-import { readStoredSizing, requireBoard, sizeDesign } from '@/lib/dal/board-repository';
+import { readStoredSizing, sizeDesign } from '@/lib/dal/board-repository';
+import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
 import { badRequest } from '@/lib/errors';
 
 /** The body is optional: empty sizes the stored board; `draft` sizes unsaved edits. */
@@ -30,8 +31,9 @@ export const POST = defineRoute({
     }
     // A draft: ownership, then the board-level rules (duplicate ids, circuits on devices
     // that feed none) as field issues
-    await requireBoard(actor, boardId);
-    const { sizing, issues } = sizeDesign({ ...body.draft.settings, ways: body.draft.ways });
+    // A board of a site's tree is sized with what is carried to it (lib/dal/site-supply.ts)
+    const draft = withTreeContext(body.draft, await draftTreeContext(actor, boardId));
+    const { sizing, issues } = sizeDesign({ ...draft.settings, ways: draft.ways });
     if (!sizing) throw badRequest(issues);
     return Response.json(sizing);
   },
