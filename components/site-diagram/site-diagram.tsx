@@ -169,6 +169,13 @@ function BoardNode({
         <text x={x + 12} y={y + 22} className="fill-ink text-[14px] font-semibold underline">
           {b.name}
         </text>
+      </a>
+      {/*
+        The values are in the link's name already, which starts with its visible text (the
+        board's name); drawn outside the link so that the visible text inside it is the name
+        alone, and let clicks through to the link's box beneath.
+      */}
+      <g aria-hidden="true" className="pointer-events-none">
         <text x={x + 12} y={y + 42} className="fill-ink text-[12px]">
           {b.problem ? 'No carried values: see the sub-main above' : values.join(' · ')}
         </text>
@@ -176,7 +183,7 @@ function BoardNode({
           {second.join(' · ')}
         </text>
         <VerdictMark b={b} x={x + 12} y={y + 80} />
-      </a>
+      </g>
     </g>
   );
 }

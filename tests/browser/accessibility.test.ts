@@ -96,7 +96,7 @@ const heading = (name: string | RegExp) => async (page: Page) => {
 const siteView = async (page: Page) => {
   await heading(DEMO_SITE.name)(page);
   await page.getByRole('list', { name: 'Boards of the site, in supply order' }).waitFor();
-  await page.getByTestId('site-diagram').locator('svg').waitFor();
+  await page.getByTestId('site-diagram').locator('svg').first().waitFor();
 };
 
 const SCREENS: Screen[] = [
