@@ -333,6 +333,108 @@ export const WORKSHOP_BOARD: { settings: BoardSettings; ways: Way[] } = {
 };
 
 /**
+ * The demo site as one supply tree. Workshop DB1 is fed from the origin (its typed supply is the
+ * site's origin); two of its spare ways become sub-mains: a three-pole MCB feeding the finishing
+ * room's board over armoured cable, and a single-pole MCB (on the phase of its way) feeding the
+ * flat's consumer unit upstairs. The flat's and the finishing room's supply values are then
+ * carried down from the workshop, not typed. Lengths and loads are invented for the demo.
+ */
+export const WORKSHOP_SUB_MAINS = {
+  finishing: breaker(
+    'mcb',
+    'C',
+    40,
+    {
+      serves: 'Sub-main: finishing room board',
+      use: 'distribution',
+      loadType: 'other',
+      load: known(0),
+      lengthM: 32,
+      cable: 'swa-xlpe-90',
+      method: 'C',
+      csaMm2: 10,
+    },
+    3,
+  ),
+  // A BS 88-2 fuse: a C-curve breaker of 80 A would not disconnect in time at the flat's Zdb
+  flat: {
+    device: { kind: 'fuse-bs88-2', poles: 1, modules: 1, ratingA: 80, breakingKa: 80 },
+    circuit: {
+      ...base,
+      phases: 1,
+      serves: 'Sub-main: flat 1 consumer unit',
+      use: 'distribution',
+      loadType: 'other',
+      load: known(0),
+      lengthM: 24,
+      cable: 'swa-xlpe-90',
+      method: 'C',
+      csaMm2: 16,
+    },
+  } satisfies Way,
+} as const;
+
+/** Workshop DB1 as the demo site stores it: its last two spares became its sub-mains. */
+export const WORKSHOP_SITE_BOARD: { settings: BoardSettings; ways: Way[] } = {
+  // A larger main switch: the workshop now carries the flat and the finishing room as well
+  settings: { ...WORKSHOP_BOARD.settings, incoming: { kind: 'main-switch', ratingA: 200, busbarRatingA: 200 } },
+  ways: [...WORKSHOP_BOARD.ways.slice(0, -2), WORKSHOP_SUB_MAINS.finishing, WORKSHOP_SUB_MAINS.flat],
+};
+
+/** The finishing room's board, fed from Workshop DB1 (its supply values are carried down). */
+export const FINISHING_BOARD: { settings: BoardSettings; ways: Way[] } = {
+  settings: {
+    name: 'Finishing room DB2',
+    location: 'Finishing room, beside the spray booth door',
+    phases: 3,
+    // Kept only until the tree carries the values down from Workshop DB1
+    supply: WORKSHOP_BOARD.settings.supply,
+    incoming: { kind: 'main-switch', ratingA: 63, busbarRatingA: 100 },
+    enclosureModules: 18,
+    rails: 1,
+    dwelling: false,
+  },
+  ways: [
+    mainSwitch(4, 63),
+    breaker(
+      'mcb',
+      'C',
+      16,
+      { serves: 'Spray booth extract', use: 'fixed', loadType: 'motor', load: known(4000, 0.85), lengthM: 9, ...swa },
+      3,
+    ),
+    breaker('rcbo', 'B', 10, {
+      serves: 'Lighting: finishing room',
+      use: 'lighting',
+      loadType: 'lighting',
+      load: known(600, 0.95),
+      lengthM: 18,
+      cable: 'multi-pvc-70',
+      method: 'C',
+    }),
+    breaker('rcbo', 'B', 20, {
+      serves: 'Sockets: finishing benches (radial)',
+      use: 'sockets',
+      loadType: 'sockets',
+      load: { kind: 'socket-arrangement', arrangement: 'radial-20', floorAreaM2: 30 },
+      lengthM: 22,
+      cable: 'multi-pvc-70',
+      method: 'C',
+    }),
+    breaker('rcbo', 'B', 16, {
+      serves: 'Drying cabinet heater',
+      use: 'fixed',
+      loadType: 'other',
+      load: known(2000),
+      lengthM: 12,
+      cable: 'multi-pvc-70',
+      method: 'C',
+    }),
+    spare(),
+  ],
+};
+
+/**
  * The demo board's ways ready to store: fresh ids, places along one rail, and on a
  * three-phase board each single-pole device given the phase of its position.
  */

@@ -12,10 +12,12 @@ import {
   DEMO_ORG,
   DEMO_SITE,
   DEMO_USERS,
+  FINISHING_BOARD,
   FLAT_BOARD,
   OTHER_ORG,
   OTHER_USER,
-  WORKSHOP_BOARD,
+  WORKSHOP_SITE_BOARD,
+  WORKSHOP_SUB_MAINS,
   demoWays,
 } from './demo-data';
 
@@ -44,8 +46,30 @@ async function createBoard(orgId: string, siteId: string, createdById: string, d
     createdById,
     designChangedById: createdById,
   });
-  await Way.bulkCreate(demoWays(demo).map((w) => ({ ...w, boardId: board.id })));
-  return board;
+  const ways = demoWays(demo);
+  await Way.bulkCreate(ways.map((w) => ({ ...w, boardId: board.id })));
+  return { board, ways };
+}
+
+/**
+ * The demo site as one supply tree: its origin is the workshop's supply intake, Workshop DB1
+ * is fed from it, and its two sub-mains feed the finishing room's board and the flat's consumer
+ * unit, whose supply values are then carried down (derived), not typed.
+ */
+async function linkDemoTree(
+  siteId: string,
+  workshop: Awaited<ReturnType<typeof createBoard>>,
+  fedBy: { boardId: string; serves: string }[],
+) {
+  const { earthing, uoV, zeOhm, pfcKa, source } = WORKSHOP_SITE_BOARD.settings.supply;
+  await db().query('UPDATE sites SET origin = $1::jsonb, tree_version = tree_version + 1 WHERE id = $2', {
+    bind: [JSON.stringify({ earthing, uoV, zeOhm, pfcKa, source }), siteId],
+  });
+  for (const { boardId, serves } of fedBy) {
+    const way = workshop.ways.find((w) => w.circuit?.serves === serves);
+    if (!way) throw new Error(`the demo workshop has no way serving "${serves}"`);
+    await db().query('UPDATE boards SET fed_from_way_id = $1 WHERE id = $2', { bind: [way.id, boardId] });
+  }
 }
 
 async function main() {
@@ -60,8 +84,13 @@ async function main() {
   if (!site) {
     const designer = users.find((u) => u.role === 'designer')!;
     const created = await Site.create({ ...DEMO_SITE, organisationId: org.id });
-    await createBoard(org.id, created.id, designer.id, WORKSHOP_BOARD);
-    await createBoard(org.id, created.id, designer.id, FLAT_BOARD);
+    const workshop = await createBoard(org.id, created.id, designer.id, WORKSHOP_SITE_BOARD);
+    const finishing = await createBoard(org.id, created.id, designer.id, FINISHING_BOARD);
+    const flat = await createBoard(org.id, created.id, designer.id, FLAT_BOARD);
+    await linkDemoTree(created.id, workshop, [
+      { boardId: finishing.board.id, serves: WORKSHOP_SUB_MAINS.finishing.circuit!.serves! },
+      { boardId: flat.board.id, serves: WORKSHOP_SUB_MAINS.flat.circuit.serves },
+    ]);
   }
   // The second organisation owns one board, so that isolation can be seen and tested.
   const otherSite = await Site.findOne({ where: { organisationId: other.id } });

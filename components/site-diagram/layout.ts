@@ -1,4 +1,4 @@
-import type { SiteBoardResult, SiteResult } from '@/lib/supply';
+import type { SiteBoardResult } from '@/lib/supply';
 
 /** Sizes of the drawing, in viewBox units (the SVG scales to its container's width). */
 export const DIAGRAM = {
@@ -11,9 +11,12 @@ export const DIAGRAM = {
   originHeight: 76,
 } as const;
 
+/** What the layout needs of a board: where it hangs in the tree. */
+export type LayoutBoard = Pick<SiteBoardResult, 'boardId' | 'depth' | 'fedFrom'>;
+
 /** A board placed on the drawing. */
-export interface PlacedBoard {
-  board: SiteBoardResult;
+export interface PlacedBoard<B extends LayoutBoard = SiteBoardResult> {
+  board: B;
   x: number;
   y: number;
   /** Where the line feeding it starts (the parent's stem, or the origin's). */
@@ -22,10 +25,10 @@ export interface PlacedBoard {
 }
 
 /** The drawing's layout: origin at the top, each board below its parent, indented by depth. */
-export interface DiagramLayout {
+export interface DiagramLayout<B extends LayoutBoard = SiteBoardResult> {
   width: number;
   height: number;
-  boards: PlacedBoard[];
+  boards: PlacedBoard<B>[];
 }
 
 /**
@@ -34,16 +37,16 @@ export interface DiagramLayout {
  * stem drops from the left of its parent's box. A column keeps the text the same size for a
  * site of 3 or 30 boards and reads top to bottom on a phone.
  */
-export function layoutSite(site: Pick<SiteResult, 'boards'>): DiagramLayout {
+export function layoutSite<B extends LayoutBoard>(site: { boards: readonly B[] }): DiagramLayout<B> {
   const { margin, indent, boxWidth, boxHeight, feedHeight, originHeight } = DIAGRAM;
-  const placed = new Map<string, PlacedBoard>();
-  const out: PlacedBoard[] = [];
+  const placed = new Map<string, PlacedBoard<B>>();
+  const out: PlacedBoard<B>[] = [];
   let y = margin + originHeight;
   let maxDepth = 0;
   for (const board of site.boards) {
     const parent = board.fedFrom ? placed.get(board.fedFrom.boardId) : undefined;
     const x = margin + indent * (board.depth + 1);
-    const p: PlacedBoard = {
+    const p: PlacedBoard<B> = {
       board,
       x,
       y: y + feedHeight,

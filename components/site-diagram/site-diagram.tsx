@@ -2,12 +2,25 @@ import { useId, type KeyboardEvent, type MouseEvent } from 'react';
 
 import { VERDICT_LOOKS } from '@/components/sizing/verdict-badge';
 import { EARTHING_NAMES, fedFromWords, SUPPLY_SOURCE_NAMES, VERDICT_WORDS } from '@/lib/names';
-import type { SiteBoardResult, SiteResult } from '@/lib/supply';
+import type { BoardSummary } from '@/lib/sizing';
+import type { SiteBoardResult, SiteOrigin } from '@/lib/supply';
 
 import { DIAGRAM, layoutSite, type PlacedBoard } from './layout';
 
+/** A board as the diagram draws it: its carried values, worst verdict and maximum demand. */
+export type DiagramBoard = Omit<SiteBoardResult, 'sizing' | 'sizedInput'> & {
+  sizing: { summary: Pick<BoardSummary, 'maxDemandA'> } | null;
+};
+
+/** A site as the diagram draws it (`sizeSite`'s result, or the tree the site route answers). */
+export interface DiagramSite {
+  /** Null: the site's origin is not given yet. */
+  origin: SiteOrigin | null;
+  boards: readonly DiagramBoard[];
+}
+
 type SiteDiagramProps = {
-  site: SiteResult;
+  site: DiagramSite;
   /** The site's name, for the drawing's title. */
   siteName: string;
   /** Where a board opens (a link); without it, `onOpenBoard` makes each board a button. */
@@ -23,7 +36,7 @@ const pct = (x: number) => `${x.toFixed(2)} %`;
 const amps = (x: number) => `${x.toFixed(1)} A`;
 
 /** The carried values of a board in one sentence, for its accessible name and the list below. */
-export function boardSummaryWords(b: SiteBoardResult): string {
+export function boardSummaryWords(b: DiagramBoard): string {
   const parts = [`${b.name}: fed from ${fedFromWords(b.fedFrom)}`];
   if (b.fedFrom) parts.push(`sub-main ${b.fedFrom.device}, ${b.fedFrom.cable}`);
   if (b.phase) parts.push(`on ${b.phase}`);
@@ -66,7 +79,7 @@ function DeviceSymbol({ kind, x, y }: { kind: string; x: number; y: number }) {
   return null;
 }
 
-function VerdictMark({ b, x, y }: { b: SiteBoardResult; x: number; y: number }) {
+function VerdictMark({ b, x, y }: { b: DiagramBoard; x: number; y: number }) {
   if (!b.worstVerdict) {
     return (
       <text x={x} y={y} className="fill-ink-soft text-[12px]">
@@ -91,7 +104,7 @@ function BoardNode({
   hrefOf,
   onOpenBoard,
 }: {
-  placed: PlacedBoard;
+  placed: PlacedBoard<DiagramBoard>;
   hrefOf?: (boardId: string) => string;
   onOpenBoard?: (boardId: string) => void;
 }) {
@@ -156,6 +169,13 @@ function BoardNode({
         <text x={x + 12} y={y + 22} className="fill-ink text-[14px] font-semibold underline">
           {b.name}
         </text>
+      </a>
+      {/*
+        The values are in the link's name already, which starts with its visible text (the
+        board's name); drawn outside the link so that the visible text inside it is the name
+        alone, and let clicks through to the link's box beneath.
+      */}
+      <g aria-hidden="true" className="pointer-events-none">
         <text x={x + 12} y={y + 42} className="fill-ink text-[12px]">
           {b.problem ? 'No carried values: see the sub-main above' : values.join(' · ')}
         </text>
@@ -163,12 +183,12 @@ function BoardNode({
           {second.join(' · ')}
         </text>
         <VerdictMark b={b} x={x + 12} y={y + 80} />
-      </a>
+      </g>
     </g>
   );
 }
 
-function deviceKindOf(b: SiteBoardResult): string {
+function deviceKindOf(b: DiagramBoard): string {
   const d = b.fedFrom?.device ?? '';
   if (d.startsWith('MCB')) return 'mcb';
   if (d.startsWith('RCBO')) return 'rcbo';
@@ -188,7 +208,9 @@ export function SiteDiagram({ site, siteName, hrefOf, onOpenBoard, className }: 
   const layout = layoutSite(site);
   const o = site.origin;
   const { margin, originHeight } = DIAGRAM;
-  const originWords = `${EARTHING_NAMES[o.earthing] ?? o.earthing}, Uo ${o.uoV} V, Ze ${ohm(o.zeOhm)}, PFC ${ka(o.pfcKa)}, ${SUPPLY_SOURCE_NAMES[o.source]}`;
+  const originWords = o
+    ? `${EARTHING_NAMES[o.earthing] ?? o.earthing}, Uo ${o.uoV} V, Ze ${ohm(o.zeOhm)}, PFC ${ka(o.pfcKa)}, ${SUPPLY_SOURCE_NAMES[o.source]}`
+    : 'not given yet: each board fed from it is sized with its own typed supply';
   return (
     <svg
       viewBox={`0 0 ${layout.width} ${layout.height}`}
@@ -218,10 +240,12 @@ export function SiteDiagram({ site, siteName, hrefOf, onOpenBoard, className }: 
             Origin (supply intake)
           </text>
           <text x={margin + 12} y={margin + 35} className="fill-ink-soft text-[11px]" aria-hidden="true">
-            {`${EARTHING_NAMES[o.earthing] ?? o.earthing}, Uo ${o.uoV} V, ${SUPPLY_SOURCE_NAMES[o.source].toLowerCase()}`}
+            {o
+              ? `${EARTHING_NAMES[o.earthing] ?? o.earthing}, Uo ${o.uoV} V, ${SUPPLY_SOURCE_NAMES[o.source].toLowerCase()}`
+              : 'Values not given yet'}
           </text>
           <text x={margin + 12} y={margin + 50} className="fill-ink-soft text-[11px]" aria-hidden="true">
-            {`Ze ${ohm(o.zeOhm)}, prospective fault current ${ka(o.pfcKa)}`}
+            {o ? `Ze ${ohm(o.zeOhm)}, prospective fault current ${ka(o.pfcKa)}` : 'Boards use their typed supply'}
           </text>
         </g>
         {layout.boards.map((p) => (

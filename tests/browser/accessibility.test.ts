@@ -83,7 +83,7 @@ type Screen = {
   role: Role | null;
   phone?: boolean;
   /** The page's path; `ids` gives the boards and site this test uses. */
-  path: (ids: { workshop: string; site: string }) => string;
+  path: (ids: { workshop: string; flat: string; site: string }) => string;
   /** What shows once the page has drawn its content. */
   ready: (page: Page) => Promise<void>;
 };
@@ -92,10 +92,19 @@ const heading = (name: string | RegExp) => async (page: Page) => {
   await page.getByRole('heading', { name, level: 1 }).first().waitFor();
 };
 
+// The site page once its supply tree (diagram and list) has loaded
+const siteView = async (page: Page) => {
+  await heading(DEMO_SITE.name)(page);
+  await page.getByRole('list', { name: 'Boards of the site, in supply order' }).waitFor();
+  await page.getByTestId('site-diagram').locator('svg').first().waitFor();
+};
+
 const SCREENS: Screen[] = [
   { name: 'sign-in', role: null, path: () => '/login', ready: heading('Boardwright') },
   { name: 'sites', role: 'designer', path: () => '/sites', ready: heading('Sites') },
-  { name: 'a site', role: 'designer', path: ({ site }) => `/sites/${site}`, ready: heading(DEMO_SITE.name) },
+  { name: 'a site', role: 'designer', path: ({ site }) => `/sites/${site}`, ready: siteView },
+  { name: 'a site (inspector)', role: 'inspector', path: ({ site }) => `/sites/${site}`, ready: siteView },
+  { name: 'a site (phone)', role: 'designer', phone: true, path: ({ site }) => `/sites/${site}`, ready: siteView },
   { name: 'boards', role: 'designer', path: () => '/boards', ready: heading('Boards') },
   { name: 'boards (phone)', role: 'installer', phone: true, path: () => '/boards', ready: heading('Boards') },
   {
@@ -115,6 +124,15 @@ const SCREENS: Screen[] = [
       await page.locator('[data-verdict]').first().waitFor();
       await page.locator('[data-way-label="4L1"]').click();
       await page.getByRole('region', { name: 'Sizing result' }).waitFor();
+    },
+  },
+  {
+    name: 'editor of a board fed from a sub-main (derived supply)',
+    role: 'designer',
+    path: ({ flat }) => `/boards/${flat}`,
+    ready: async (page) => {
+      await page.locator('[data-verdict]').first().waitFor();
+      await page.getByTestId('derived-supply').getByLabel('Fed from').waitFor();
     },
   },
   {
@@ -176,7 +194,7 @@ const SCREENS: Screen[] = [
 ];
 
 describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
-  let ids: { workshop: string; site: string };
+  let ids: { workshop: string; flat: string; site: string };
 
   beforeAll(async () => {
     const { page, close } = await openBrowser();
@@ -186,6 +204,7 @@ describe('accessibility (axe-core, WCAG 2.1 A and AA)', () => {
       const { sites } = (await res.json()) as { sites: { id: string; name: string }[] };
       ids = {
         workshop: await boardIdByName(page, WORKSHOP_BOARD.settings.name),
+        flat: await boardIdByName(page, FLAT_BOARD.settings.name),
         site: sites.find((s) => s.name === DEMO_SITE.name)!.id,
       };
     } finally {

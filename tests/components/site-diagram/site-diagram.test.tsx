@@ -34,7 +34,7 @@ describe('SiteDiagram', () => {
     expect(node.textContent).toContain('Zdb 0.678 Ω · PFC 1.09 kA');
     expect(node.textContent).toContain('MCB C20 (way 2L3), L3');
     expect(node.textContent).toContain('4 mm² twin and earth, 15 m, reference method C');
-    expect(within(fin as unknown as HTMLElement).getByText(/^(Passes|Near limit|Fails)$/)).toBeTruthy();
+    expect(within(node as HTMLElement).getByText(/^(Passes|Near limit|Fails)$/)).toBeTruthy();
   });
 
   it('opens a board by click and, without links, by keyboard as a button', async () => {

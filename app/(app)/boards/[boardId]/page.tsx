@@ -3,6 +3,7 @@ import { notFound } from 'next/navigation';
 
 import { AuditTrail } from '@/features/audit/components/audit-trail';
 import { BoardEditor } from '@/features/board-editor/components/board-editor';
+import { DerivedSupply } from '@/features/board-editor/components/derived-supply';
 import { RevisionDiff } from '@/features/review/components/revision-diff';
 import { can } from '@/lib/auth/permissions';
 import { requireActor } from '@/lib/auth/session';
@@ -49,6 +50,7 @@ export default async function BoardPage({ params }: Props) {
         reviewNotes={archived ? null : reviewNotes}
         readOnlyBecause={archived ? 'Archived: read only. An admin may restore it.' : null}
       />
+      <DerivedSupply board={board} canEdit={abilities.edit} />
       <LabelFindings board={board} />
       <div className="grid gap-6 lg:grid-cols-2">
         <section aria-labelledby="revisions" className="rounded-card border border-line bg-paper-raised p-4">

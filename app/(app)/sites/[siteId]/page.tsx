@@ -3,7 +3,9 @@ import { notFound, redirect } from 'next/navigation';
 import { z } from 'zod';
 
 import { BoardsView } from '@/features/boards/components/boards-view';
+import { SiteView } from '@/features/site-view/components/site-view';
 import { SiteDetails } from '@/features/sites/components/site-details';
+import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
 import { getSite } from '@/lib/dal/sites';
 import { HttpError } from '@/lib/errors';
@@ -27,6 +29,7 @@ export default async function SitePage({ params }: Props) {
   return (
     <>
       <SiteDetails site={site} role={actor.role} />
+      <SiteView siteId={site.id} siteName={site.name} canLink={can(actor.role, 'boards.edit') && !site.archived} />
       <BoardsView role={actor.role} siteId={site.id} />
     </>
   );

@@ -1,0 +1,23 @@
+import { apiFetch } from '@/lib/api/client';
+import type { FeedChoice } from '@/components/site-diagram/tree-model';
+import type { BoardSaveAnswer, SiteTreeDto } from '@/lib/sites/tree-types';
+
+/** Cache key of a site's tree. */
+export const siteTreeKey = (siteId: string) => ['sites', 'tree', siteId] as const;
+
+/** GET /api/sites/:siteId/tree */
+export async function fetchSiteTree(siteId: string): Promise<SiteTreeDto> {
+  const { tree } = await apiFetch<{ tree: SiteTreeDto }>(`/api/sites/${encodeURIComponent(siteId)}/tree`);
+  return tree;
+}
+
+/**
+ * PUT /api/boards/:boardId/feed, confirmed: the screen has already asked, naming every board
+ * that changes. A loop or a way that cannot feed a board is refused (422) with the server's words.
+ */
+export async function putBoardFeed(boardId: string, feed: FeedChoice, version?: number): Promise<BoardSaveAnswer> {
+  return apiFetch<BoardSaveAnswer>(`/api/boards/${encodeURIComponent(boardId)}/feed`, {
+    method: 'PUT',
+    body: { feed, confirmFeedChanges: true, ...(version ? { version } : {}) },
+  });
+}

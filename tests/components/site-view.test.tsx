@@ -1,0 +1,119 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+
+import { SiteView } from '@/features/site-view/components/site-view';
+import type { SiteTreeDto } from '@/lib/sites/tree-types';
+import { SIZING_CAUTION } from '@/lib/sizing';
+import { sizeSite } from '@/lib/supply';
+import { wayLabels } from '@/lib/supply/validate-tree';
+
+import { threeLevel } from '../unit/supply/fixtures';
+import { json, mockFetch, renderWithQuery, sentBody } from './helpers';
+
+/** The three-level tree of the supply tests, sized, as the tree route answers it. */
+function treeDto(): SiteTreeDto {
+  const input = threeLevel();
+  const sized = sizeSite(input);
+  return {
+    siteId: 'site-1',
+    siteName: 'Hollin Lane Joinery',
+    origin: sized.origin,
+    treeVersion: 3,
+    caution: SIZING_CAUTION,
+    edges: [],
+    boards: sized.boards.map((b) => {
+      const own = input.boards.find((x) => x.id === b.boardId)!;
+      const labels = wayLabels(own.board);
+      const { sizedInput: _dropped, ...rest } = b;
+      void _dropped;
+      return {
+        ...rest,
+        sizing: b.sizing ? { summary: b.sizing.summary } : null,
+        location: '',
+        phases: own.board.phases,
+        status: 'draft',
+        version: 1,
+        feed:
+          own.feed.from === 'origin'
+            ? { from: 'origin' }
+            : { ...own.feed, designCurrentOverride: null, upstreamRcdTimeDelayed: false },
+        feedsBoards: [],
+        ways: own.board.ways.map((w) => ({
+          id: w.id,
+          label: labels.get(w.id) ?? null,
+          feedsBoardId: input.boards.find((x) => x.feed.from === 'way' && x.feed.wayId === w.id)?.id ?? null,
+          distribution: w.circuit?.use === 'distribution',
+        })),
+      };
+    }),
+  } as SiteTreeDto;
+}
+
+afterEach(() => vi.unstubAllGlobals());
+
+describe('SiteView', () => {
+  it('shows the diagram, the caution and each board in supply order with its carried values', async () => {
+    mockFetch(json({ tree: treeDto() }));
+    renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink={false} />);
+    const list = await screen.findByRole('list', { name: 'Boards of the site, in supply order' });
+    const cards = within(list).getAllByRole('listitem');
+    expect(cards.map((c) => within(c).getAllByRole('link')[0].textContent)).toEqual([
+      'Workshop DB1',
+      'Machine shop board',
+      'Finishing room board',
+    ]);
+    // The hand-worked values of the three-level tree (tests/unit/supply/carried-values.test.ts)
+    expect(cards[2].textContent).toContain('Zdb 0.678 Ω · PFC 1.09 kA · volt drop used 1.03 %');
+    expect(cards[2].textContent).toContain('Fed from Machine shop board, way 2L3');
+    expect(screen.getByRole('note', { name: 'Caution' }).textContent).toContain(SIZING_CAUTION);
+    // The diagram's boards open their editors
+    const svg = screen.getByTestId('site-diagram');
+    expect(
+      within(svg)
+        .getByRole('link', { name: /^Finishing room board:/ })
+        .getAttribute('href'),
+    ).toBe('/boards/fin');
+    // Read only: no choice of feed
+    expect(screen.queryByLabelText('Fed from')).toBeNull();
+  });
+
+  it('asks before re-pointing a board, naming every board that changes, then sends the confirmed feed', async () => {
+    const fetch = mockFetch(json({ tree: treeDto() }), json({ board: {}, ripple: null }), json({ tree: treeDto() }));
+    renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink />);
+    await screen.findByRole('list', { name: 'Boards of the site, in supply order' });
+    const selects = screen.getAllByLabelText('Fed from');
+    // The machine shop board (second) to the origin: it and the finishing room below it change
+    await userEvent.selectOptions(selects[1], 'origin');
+    const dialog = await screen.findByRole('dialog', { name: 'Feed Machine shop board from elsewhere?' });
+    expect(dialog.textContent).toContain(
+      'Fed from Workshop DB1, way 1L1–L3 now; from the origin (the supply intake) after this.',
+    );
+    expect(within(dialog).getByRole('list', { name: 'Boards that change' }).textContent).toBe(
+      'Machine shop boardFinishing room board',
+    );
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Change the feed' }));
+    await waitFor(() => expect(fetch).toHaveBeenCalledTimes(3));
+    expect(fetch.mock.calls[1][0]).toBe('/api/boards/ms/feed');
+    expect(fetch.mock.calls[1][1]?.method).toBe('PUT');
+    expect(sentBody(fetch, 1)).toEqual({ feed: { from: 'origin' }, confirmFeedChanges: true });
+    await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
+  });
+
+  it("shows the server's refusal of a loop and keeps the board's feed", async () => {
+    const refusal = {
+      error: 'Workshop DB1 cannot be fed from Finishing room board: the boards would feed each other in a loop.',
+      issues: [{ path: 'feed', message: 'loop' }],
+    };
+    mockFetch(json({ tree: treeDto() }), json(refusal, 422));
+    renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink />);
+    await screen.findByRole('list', { name: 'Boards of the site, in supply order' });
+    const first = screen.getAllByLabelText('Fed from')[0] as HTMLSelectElement;
+    // Workshop DB1 offered the machine shop's sub-main to the finishing room (below it): a loop
+    await userEvent.selectOptions(first, 'ms:m-fin');
+    const dialog = await screen.findByRole('dialog');
+    await userEvent.click(within(dialog).getByRole('button', { name: 'Change the feed' }));
+    expect(await within(dialog).findByText(refusal.error)).toBeTruthy();
+    expect(first.value).toBe('origin');
+  });
+});
