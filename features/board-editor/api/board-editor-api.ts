@@ -1,5 +1,6 @@
 import { apiFetch, ApiError } from '@/lib/api/client';
 import type { BoardDto } from '@/lib/boards/types';
+import type { FeedChange } from '@/lib/sites/tree-types';
 import type { BoardResult } from '@/lib/sizing';
 
 import type { DraftSnapshot } from '../types/draft';
@@ -22,16 +23,33 @@ export function sizeDraft(boardId: string, draft: DraftSnapshot, signal?: AbortS
 /** A field of a refusal's body beyond its message (the stored version, the failing ways). */
 const bodyField = (err: ApiError, name: string): unknown => (err.body as Record<string, unknown> | undefined)?.[name];
 
-/** How a save ended: saved, someone else saved first (with their version), or refused. */
+/**
+ * How a save ended: saved, someone else saved first (with their version), the save would take
+ * a feeding way from other boards (asked first: they would be fed from the origin), or refused.
+ */
 export type SaveOutcome =
   | { kind: 'saved'; board: BoardDto }
   | { kind: 'conflict'; theirVersion: number; message: string }
+  | { kind: 'feed-changes'; feedChanges: FeedChange[]; message: string }
   | { kind: 'locked'; message: string };
 
-/** Saves the draft on top of `version`. Network and validation failures reject with ApiError. */
-export async function saveDraft(boardId: string, version: number, draft: DraftSnapshot): Promise<SaveOutcome> {
+/**
+ * Saves the draft on top of `version`; `confirmFeedChanges`: the designer agreed that boards fed
+ * from ways this save removes go back to the origin. Network and validation failures reject with ApiError.
+ */
+export async function saveDraft(
+  boardId: string,
+  version: number,
+  draft: DraftSnapshot,
+  confirmFeedChanges = false,
+): Promise<SaveOutcome> {
   try {
-    const body = { version, settings: draft.settings, ways: draft.ways };
+    const body = {
+      version,
+      settings: draft.settings,
+      ways: draft.ways,
+      ...(confirmFeedChanges ? { confirmFeedChanges } : {}),
+    };
     const { board } = await apiFetch<{ board: BoardDto }>(`/api/boards/${boardId}`, { method: 'PUT', body });
     return { kind: 'saved', board };
   } catch (err) {
@@ -39,6 +57,9 @@ export async function saveDraft(boardId: string, version: number, draft: DraftSn
     const theirVersion = bodyField(err, 'currentVersion');
     if (err.status === 409 && typeof theirVersion === 'number')
       return { kind: 'conflict', theirVersion, message: err.message };
+    const feedChanges = bodyField(err, 'feedChanges');
+    if (err.status === 409 && Array.isArray(feedChanges))
+      return { kind: 'feed-changes', feedChanges: feedChanges as FeedChange[], message: err.message };
     if (err.status === 409 || err.status === 403) return { kind: 'locked', message: err.message };
     throw err;
   }

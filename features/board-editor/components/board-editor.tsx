@@ -40,6 +40,7 @@ import { newWayId } from '../utils/ids';
 import { BinZone } from './bin-zone';
 import { BoardSummary } from './board-summary';
 import { ConflictDialog } from './conflict-dialog';
+import { FeedChangeDialog } from './feed-change-dialog';
 import { DeviceFace } from './device-face';
 import { DeviceTray } from './device-tray';
 import { DrawnBoard } from './drawn-board';
@@ -107,7 +108,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
 
   useDraftPersistence(board.id, ready && !readOnly);
   useUndoShortcuts(ready && !readOnly);
-  const { save, reloadTheirs, keepMine } = useBoardSave(board.id, ready && !readOnly);
+  const { save, reloadTheirs, keepMine, confirmFeeds, holdFeeds } = useBoardSave(board.id, ready && !readOnly);
 
   // Warn before leaving with changes that are not saved (they are kept in the tab anyway)
   useEffect(() => {
@@ -250,6 +251,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   };
 
   const savePhase = useSaveStore((s) => s.phase);
+  const feedChanges = useSaveStore((s) => s.feedChanges);
   const saveMessage = useSaveStore((s) => s.message);
   // The conflict dialog, once closed, stays closed for that conflict (their version) only
   const theirVersion = useSaveStore((s) => s.theirVersion);
@@ -342,6 +344,11 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
           onReloadTheirs={() => void reloadTheirs()}
           onKeepMine={() => void keepMine()}
           onClose={() => setHiddenFor(theirVersion)}
+        />
+        <FeedChangeDialog
+          feedChanges={savePhase === 'feeds' ? feedChanges : null}
+          onConfirm={() => void confirmFeeds()}
+          onHold={holdFeeds}
         />
         <SubmitConfirmDialog
           open={confirmingSubmit}

@@ -31,6 +31,9 @@ function SaveState() {
   if (phase === 'failed') [text, tone] = [message ?? 'Saving failed.', 'text-verdict-fail'];
   if (phase === 'conflict')
     [text, tone] = ['Saved elsewhere meanwhile: choose which copy to keep', 'text-verdict-near'];
+  if (phase === 'feeds')
+    [text, tone] = ['Not saved yet: other boards are fed from a way you took away', 'text-verdict-near'];
+  if (phase === 'idle' && dirty && message) [text, tone] = [message, 'text-verdict-near'];
   if (phase === 'locked') [text, tone] = [message ?? 'This board cannot be saved now.', 'text-verdict-near'];
   return (
     <span

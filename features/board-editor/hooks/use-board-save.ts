@@ -26,16 +26,20 @@ const passing = (err: unknown) =>
  */
 async function saveAttempt(boardId: string, settle: (saved: boolean) => void): Promise<void> {
   const { settings, ways, baseVersion, dirty } = useBoardDraftStore.getState();
-  const { phase } = useSaveStore.getState();
-  if (!settings || !dirty || phase === 'conflict' || phase === 'locked') return settle(!dirty);
+  const { phase, confirmFeeds } = useSaveStore.getState();
+  if (!settings || !dirty || phase === 'conflict' || phase === 'feeds' || phase === 'locked') return settle(!dirty);
   const snapshot = { settings, ways };
-  useSaveStore.getState().set({ phase: 'saving', message: null });
+  useSaveStore.getState().set({ phase: 'saving', message: null, confirmFeeds: false });
   try {
-    const outcome = await saveDraft(boardId, baseVersion, snapshot);
+    const outcome = await saveDraft(boardId, baseVersion, snapshot, confirmFeeds);
     if (outcome.kind === 'saved') {
       useBoardDraftStore.getState().markSaved(outcome.board.version, snapshot, outcome.board.status);
       if (!useBoardDraftStore.getState().dirty) clearStoredDraft(boardId);
       useSaveStore.getState().set({ phase: 'saved', savedAt: Date.now(), message: null });
+    } else if (outcome.kind === 'feed-changes') {
+      useSaveStore
+        .getState()
+        .set({ phase: 'feeds', feedChanges: outcome.feedChanges, message: outcome.message, savedAt: null });
     } else if (outcome.kind === 'conflict') {
       useSaveStore.getState().set({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
     } else {
@@ -59,7 +63,9 @@ async function saveAttempt(boardId: string, settle: (saved: boolean) => void): P
  * `reloadTheirs()` drops this draft for the stored board, `keepMine()` saves this draft on top
  * of theirs. A save that fails because the server is out of reach keeps the draft (in memory
  * and session storage), says so, and is tried again by the mutation's `retry`, waiting longer
- * each time. `save()` answers after its first attempt: whether the draft is saved now.
+ * each time. A save that would take away a way feeding other boards goes to `feeds` and waits:
+ * `confirmFeeds()` saves with those boards fed from the origin, `holdFeeds()` keeps editing.
+ * `save()` answers after its first attempt: whether the draft is saved now.
  */
 export function useBoardSave(boardId: string, enabled: boolean) {
   const { mutate } = useMutation({
@@ -112,5 +118,18 @@ export function useBoardSave(boardId: string, enabled: boolean) {
     await save();
   }, [save]);
 
-  return { save, reloadTheirs, keepMine };
+  /** Saves the draft, the boards fed from the ways it removes going back to the origin. */
+  const confirmFeeds = useCallback(async () => {
+    useSaveStore.getState().set({ phase: 'idle', feedChanges: null, message: null, confirmFeeds: true });
+    await save();
+  }, [save]);
+
+  /** Keeps editing without saving (the draft stays unsaved, here and in this browser tab). */
+  const holdFeeds = useCallback(() => {
+    useSaveStore
+      .getState()
+      .set({ phase: 'idle', feedChanges: null, message: 'Not saved: a way that feeds another board was taken away.' });
+  }, []);
+
+  return { save, reloadTheirs, keepMine, confirmFeeds, holdFeeds };
 }

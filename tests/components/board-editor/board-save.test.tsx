@@ -90,6 +90,65 @@ describe('saving the draft', () => {
     expect(useSaveStore.getState().phase).toBe('saved');
   });
 
+  it('a save that takes a feeding way asks first; "save and feed from the origin" sends the confirmation', async () => {
+    const feedChanges = [
+      {
+        boardId: 'b2',
+        name: 'Finishing room DB2',
+        from: { boardId: board.id, boardName: 'Flat CU', wayId: 'w9', wayLabel: '9', device: '', cable: '' },
+        to: 'origin',
+        reason: 'way-removed',
+      },
+    ];
+    const fetch = mockFetch(
+      json({ error: 'This save takes away the way that feeds Finishing room DB2.', feedChanges }, 409),
+      json(dto(board, 4)),
+    );
+    const id = edit(18);
+    await act(async () => expect(await api.save()).toBe(false));
+    expect(useSaveStore.getState()).toMatchObject({ phase: 'feeds', feedChanges });
+    expect(sentBody(fetch)).not.toHaveProperty('confirmFeedChanges');
+    expect(store().ways.find((w) => w.id === id)!.circuit!.lengthM).toBe(18);
+    // While the question is open, autosave and Save send nothing
+    await act(async () => expect(await api.save()).toBe(false));
+    expect(fetch).toHaveBeenCalledTimes(1);
+
+    await act(async () => api.confirmFeeds());
+    expect(sentBody(fetch, 1)).toMatchObject({ version: 3, confirmFeedChanges: true });
+    expect(store().dirty).toBe(false);
+    expect(useSaveStore.getState()).toMatchObject({ phase: 'saved', feedChanges: null, confirmFeeds: false });
+  });
+
+  it('"keep editing" leaves the draft unsaved, says so, and the next save asks again', async () => {
+    const refusal = json(
+      {
+        error: 'takes away',
+        feedChanges: [{ boardId: 'b2', name: 'DB2', from: null, to: 'origin', reason: 'way-removed' }],
+      },
+      409,
+    );
+    const fetch = mockFetch(
+      refusal,
+      json(
+        {
+          error: 'takes away',
+          feedChanges: [{ boardId: 'b2', name: 'DB2', from: null, to: 'origin', reason: 'way-removed' }],
+        },
+        409,
+      ),
+    );
+    edit(19);
+    await act(async () => void (await api.save()));
+    act(() => api.holdFeeds());
+    expect(useSaveStore.getState()).toMatchObject({ phase: 'idle', feedChanges: null });
+    expect(useSaveStore.getState().message).toMatch(/Not saved/);
+    expect(store().dirty).toBe(true);
+    await act(async () => expect(await api.save()).toBe(false));
+    expect(fetch).toHaveBeenCalledTimes(2);
+    expect(sentBody(fetch, 1)).not.toHaveProperty('confirmFeedChanges');
+    expect(useSaveStore.getState().phase).toBe('feeds');
+  });
+
   it('"reload theirs" drops this draft for the stored board', async () => {
     const theirs = board.ways.slice(0, 5);
     mockFetch(json({ error: 'stale', currentVersion: 9 }, 409), json(dto(board, 9, theirs)));
