@@ -16,6 +16,7 @@ type StoredBoard = {
   enclosureModules: number;
   rails: number;
   dwelling: boolean;
+  feed: { from: string; boardId?: string };
   ways: {
     id: string;
     rail: number;
@@ -258,7 +259,9 @@ describe('the board editor', () => {
       await page.getByLabel('Rails').selectOption('2');
       // 36 modules as two rails of 18: the devices flow onto the second rail
       await page.locator('[data-rail="1"]').waitFor();
-      const first = page.locator('[data-rail="0"] [data-way-id]').nth(1);
+      // A single-pole RCBO: it fits the second rail's free modules (a three-pole device would
+      // need its phase positions left empty there and is refused, as it should be)
+      const first = page.locator('[data-rail="0"] [data-way-id][aria-label*="RCBO"]').first();
       const id = (await first.getAttribute('data-way-id'))!;
       // Both rails in view, away from the window's edges (where dragging scrolls the page)
       await page.locator('[data-rail="1"]').evaluate((el) => el.scrollIntoView({ block: 'end' }));
@@ -276,6 +279,33 @@ describe('the board editor', () => {
       await expect.poll(() => page.locator(`[data-rail="0"] [data-way-id="${id}"]`).count()).toBe(1);
       await page.keyboard.press('Control+z');
       await expect.poll(() => page.locator('[data-rail="1"]').count()).toBe(0);
+    } finally {
+      await restore(page, workshopId, workshop);
+    }
+  });
+
+  it('removing the way that feeds another board asks before saving and names the board', async () => {
+    const { page } = browser;
+    const workshopId = await boardIdByName(page, 'Workshop DB1');
+    const workshop = await stored(page, workshopId);
+    try {
+      await openEditor(page, workshopId);
+      // 10L1 is the sub-main to the flat's consumer unit (the demo's tree)
+      await page.locator('[data-way-label="10L1"]').focus();
+      await page.keyboard.press('Delete');
+      await expect.poll(() => page.locator('[data-way-label="10L1"]').count()).toBe(0);
+      await page.getByRole('button', { name: 'Save', exact: true }).click();
+      const question = page.getByRole('dialog', { name: 'Other boards are fed from this board' });
+      await question.waitFor();
+      await expect(question.textContent()).resolves.toContain('Flat 1 consumer unit');
+      await question.getByRole('button', { name: 'Keep editing' }).click();
+      await expect(page.getByTestId('save-state').textContent()).resolves.toMatch(/Not saved/);
+      // Nothing was saved: the flat is still fed from the workshop's way
+      expect((await stored(page, flatId)).feed).toMatchObject({ from: 'way', boardId: workshopId });
+      expect((await stored(page, workshopId)).version).toBe(workshop.version);
+      // Undo puts the way back; the draft is as stored again
+      await page.keyboard.press('Control+z');
+      await expect.poll(() => page.locator('[data-way-label="10L1"]').count()).toBe(1);
     } finally {
       await restore(page, workshopId, workshop);
     }
