@@ -525,12 +525,13 @@ export async function readTreeBoards(
 }
 
 /** Whether the caller's organisation's site is a tree: it has an origin or a board fed from a way. */
-export async function siteIsTree(actor: Actor, siteId: string): Promise<boolean> {
+export async function siteIsTree(actor: Actor, siteId: string, transaction?: Transaction): Promise<boolean> {
   const [row] = await select<{ tree: boolean }>(
     `SELECT s.origin IS NOT NULL OR EXISTS (SELECT 1 FROM boards b
        WHERE b.site_id = s.id AND b.fed_from_way_id IS NOT NULL AND b.deleted_at IS NULL) AS tree
      FROM sites s WHERE s.id = $1 AND s.organisation_id = $2`,
     [siteId, actor.organisationId],
+    transaction,
   );
   return !!row?.tree;
 }
