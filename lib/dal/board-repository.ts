@@ -588,7 +588,7 @@ export async function writeBoardFeed(
 }
 
 /** What the tree stored for a board (the supply carried to it) and the sub-main currents of the boards its ways feed. */
-export async function readDraftTreeRows(actor: Actor, boardId: string) {
+export async function readDraftTreeRows(actor: Actor, boardId: string, transaction?: Transaction) {
   return select<{
     carried: DerivedSupply | null;
     feeds: { wayId: string; amps: number | null }[] | null;
@@ -600,5 +600,6 @@ export async function readDraftTreeRows(actor: Actor, boardId: string) {
         WHERE w.board_id = b.id AND d.deleted_at IS NULL) AS feeds
      FROM boards b WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
+    transaction,
   );
 }
