@@ -51,6 +51,8 @@ const FIELD_LABELS: Record<string, string> = {
   'supply.zeOhm': 'Ze (Ω)',
   'supply.pfcKa': 'PFC (kA)',
   'supply.source': 'Supply source',
+  // A board fed from another board: the volt drop its sub-mains used (carried down, lib/supply)
+  'supply.vdUsedPct': 'Volt drop used above (%)',
   'incoming.kind': 'Incoming device',
   'incoming.ratingA': 'Incoming rating (A)',
   'incoming.busbarRatingA': 'Busbar rating (A)',
