@@ -5,7 +5,7 @@ import { memo, useMemo, useRef } from 'react';
 
 import type { BoardSettings } from '@/lib/boards/schemas';
 import { drawRails, railCapacities, rcdGroups } from '@/lib/boards/rail';
-import { fedFromWords } from '@/lib/names';
+import { supplyInUseWords } from '@/lib/sites/supply-words';
 import type { DerivedSupply } from '@/lib/sites/tree-types';
 
 import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
@@ -26,35 +26,6 @@ type DrawnBoardProps = {
    */
   derivedSupply?: DerivedSupply | null;
 };
-
-const ohm = (x: number) => `${x.toFixed(3)} Ω`;
-const ka = (x: number) => `${x.toFixed(2)} kA`;
-
-/**
- * The supply as the header states it: the typed values for a board outside a tree; for a board
- * fed from another board, the Zdb and PFC carried down to it, marked as carried; for a board fed
- * from the site's origin, the origin's values, marked so. A feed the tree could not follow says
- * so (its reason is on the Supply panel below).
- */
-function supplyWords(settings: BoardSettings, derived: DerivedSupply | null | undefined) {
-  const phases = settings.phases === 3 ? 'Three-phase' : 'Single-phase';
-  if (!derived) {
-    const s = settings.supply;
-    return { text: `${phases} · ${s.earthing} · Ze ${s.zeOhm} Ω · PFC ${s.pfcKa} kA`, title: undefined };
-  }
-  const s = derived.supply;
-  if (derived.from === 'way' && !derived.problem) {
-    return {
-      text: `${phases} · ${s.earthing} · Zdb ${ohm(s.zeOhm)} (carried) · PFC ${ka(s.pfcKa)} (carried)`,
-      title: `Carried down from ${fedFromWords(derived.fedFrom)}; the board’s typed Ze and PFC are not used.`,
-    };
-  }
-  const mark = derived.from === 'way' ? '(not carried: see Supply)' : '(site origin)';
-  return {
-    text: `${phases} · ${s.earthing} · Ze ${ohm(s.zeOhm)} ${mark} · PFC ${ka(s.pfcKa)} ${mark}`,
-    title: derived.problem ?? 'The site’s origin; the board’s typed Ze and PFC are not used.',
-  };
-}
 
 /** Each rail as drawn, with the part of each RCD's bracket that lies on it. */
 function railViews(settings: BoardSettings, ways: EditorWay[]): RailView[] {
@@ -118,7 +89,7 @@ export const DrawnBoard = memo(function DrawnBoard({
 
   if (!settings) return null;
   const used = rails.reduce((n, r) => n + r.drawing.used, 0);
-  const supply = supplyWords(settings, derivedSupply);
+  const supply = supplyInUseWords(settings.supply, derivedSupply);
   // Whether the verdicts shown are for the draft as it is is said here once, not by every
   // device: the verdicts dim (by CSS, after a moment) while a newer sizing is on its way
   return (
@@ -133,7 +104,7 @@ export const DrawnBoard = memo(function DrawnBoard({
     >
       <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-2 text-xs text-ink-soft">
         <span className="font-semibold text-ink" title={supply.title} data-testid="drawn-board-supply">
-          {supply.text}
+          {settings.phases === 3 ? 'Three-phase' : 'Single-phase'} · {supply.supply.earthing} · {supply.values}
         </span>
         <span>
           Enclosure {settings.enclosureModules} modules · {used} used · incoming {settings.incoming.ratingA} A
