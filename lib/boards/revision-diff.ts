@@ -17,6 +17,12 @@ export type BoardSnapshot = {
   siteName: string;
   organisationName: string;
   ways: SnapshotWay[];
+  /**
+   * For a board fed from another board's way, that way in words ("Workshop DB1, way 1"): then
+   * `settings.supply` is what the site's tree carried down to the board (its Ze is the Zdb), not
+   * its typed supply. Absent in revisions issued before boards were frozen with the tree's values.
+   */
+  fedFrom?: string | null;
 };
 
 export type FieldChange = { field: string; label: string; before: string; after: string };
@@ -45,6 +51,8 @@ const FIELD_LABELS: Record<string, string> = {
   'supply.zeOhm': 'Ze (Ω)',
   'supply.pfcKa': 'PFC (kA)',
   'supply.source': 'Supply source',
+  // A board fed from another board: the volt drop its sub-mains used (carried down, lib/supply)
+  'supply.vdUsedPct': 'Volt drop used above (%)',
   'incoming.kind': 'Incoming device',
   'incoming.ratingA': 'Incoming rating (A)',
   'incoming.busbarRatingA': 'Busbar rating (A)',

@@ -525,12 +525,13 @@ export async function readTreeBoards(
 }
 
 /** Whether the caller's organisation's site is a tree: it has an origin or a board fed from a way. */
-export async function siteIsTree(actor: Actor, siteId: string): Promise<boolean> {
+export async function siteIsTree(actor: Actor, siteId: string, transaction?: Transaction): Promise<boolean> {
   const [row] = await select<{ tree: boolean }>(
     `SELECT s.origin IS NOT NULL OR EXISTS (SELECT 1 FROM boards b
        WHERE b.site_id = s.id AND b.fed_from_way_id IS NOT NULL AND b.deleted_at IS NULL) AS tree
      FROM sites s WHERE s.id = $1 AND s.organisation_id = $2`,
     [siteId, actor.organisationId],
+    transaction,
   );
   return !!row?.tree;
 }
@@ -587,7 +588,7 @@ export async function writeBoardFeed(
 }
 
 /** What the tree stored for a board (the supply carried to it) and the sub-main currents of the boards its ways feed. */
-export async function readDraftTreeRows(actor: Actor, boardId: string) {
+export async function readDraftTreeRows(actor: Actor, boardId: string, transaction?: Transaction) {
   return select<{
     carried: DerivedSupply | null;
     feeds: { wayId: string; amps: number | null }[] | null;
@@ -599,5 +600,6 @@ export async function readDraftTreeRows(actor: Actor, boardId: string) {
         WHERE w.board_id = b.id AND d.deleted_at IS NULL) AS feeds
      FROM boards b WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
+    transaction,
   );
 }

@@ -7,6 +7,8 @@ import type { BoardSnapshot, SnapshotWay } from '@/lib/boards/revision-diff';
 import { settingsOf } from '@/lib/boards/schemas';
 import { env } from '@/lib/env';
 import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
+import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
+import { fedFromWords } from '@/lib/names';
 import { Organisation, Site } from '@/models';
 
 export function snapshotWay(way: SnapshotWay): SnapshotWay {
@@ -18,7 +20,11 @@ export async function organisationName(actor: Actor, transaction?: Transaction):
   return org?.name ?? '';
 }
 
-/** The live board as a snapshot (what would be frozen if it were issued now). */
+/**
+ * The live board as a snapshot (what would be frozen if it were issued now). A board of a supply
+ * tree is frozen as the tree sizes it (lib/dal/site-supply.ts draftTreeContext): with the supply
+ * carried down to it, and each of its sub-mains with the design current of the board it feeds.
+ */
 export async function liveSnapshot(
   actor: Actor,
   board: BoardRecord,
@@ -29,11 +35,14 @@ export async function liveSnapshot(
   const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
   const ways = await readWays(board.id, transaction);
   const orgName = await organisationName(actor, transaction);
+  const tree = await draftTreeContext(actor, board.id, transaction);
+  const design = withTreeContext({ settings: settingsOf(board), ways: ways.map(snapshotWay) }, tree);
   return {
-    settings: settingsOf(board),
+    settings: design.settings,
     siteName: site?.name ?? '',
     organisationName: orgName,
-    ways: ways.map(snapshotWay),
+    ways: design.ways.map(snapshotWay),
+    ...(tree.fedFrom ? { fedFrom: fedFromWords(tree.fedFrom) } : {}),
   };
 }
 

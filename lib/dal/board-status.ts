@@ -10,6 +10,7 @@ import { db } from '@/lib/db';
 import { readWays, sizeDesign, writeBoard } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices } from '@/lib/dal/notices';
+import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import type { ReviewRequestedFacts } from '@/lib/mail/templates';
@@ -53,8 +54,12 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     }
     const ways = await readWays(boardId, transaction);
 
-    // Size the stored board exactly as the sizing route does
-    const { sizing: sized, issues } = sizeDesign({ ...settingsOf(board), ways });
+    // Size the stored board exactly as the sizing route does (with what the site's tree gives it)
+    const design = withTreeContext(
+      { settings: settingsOf(board), ways },
+      await draftTreeContext(actor, boardId, transaction),
+    );
+    const { sizing: sized, issues } = sizeDesign({ ...design.settings, ways: design.ways });
     if (!sized) {
       throw unprocessable('The stored board is not complete enough to size; open it in the editor and save it again.', {
         failing: [],

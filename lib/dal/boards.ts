@@ -20,15 +20,26 @@ import type { AuditAction } from '@/lib/dal/audit';
 import {
   findBoard,
   insertBoard,
+  readBoard,
   readBoardSummaries,
   readWays,
   writeBoard,
   type BoardEvent,
   type BoardRecord,
 } from '@/lib/dal/board-repository';
-import { lockSiteOfBoard, type TreeWriteRequest } from '@/lib/dal/site-feed';
+import {
+  afterBoardRemoval,
+  afterBoardReturn,
+  beforeBoardRemoval,
+  beforeBoardReturn,
+  lockSiteOfBoard,
+  type RemovalPlan,
+  type TreeWriteRequest,
+} from '@/lib/dal/site-feed';
+import type { SiteLock } from '@/lib/dal/site-tree';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
+import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { BoardRevision, Site, User } from '@/models';
 import type { ArchiveState } from '@/lib/boards/review-types';
 
@@ -97,19 +108,26 @@ export async function createBoard(actor: Actor, input: BoardCreateInput): Promis
 
 /**
  * One change of a board of the caller's organisation, in a transaction with its row locked:
- * `change` checks the row (throwing to refuse) and says what to write (`writeBoard`).
+ * `change` checks the row (throwing to refuse) and says what to write (`writeBoard`); `after`
+ * runs once it is written, in the same transaction.
  */
 async function changeBoard(
   actor: Actor,
   boardId: string,
   change: (board: BoardRecord, transaction: Transaction) => Promise<Parameters<typeof writeBoard>[2]>,
-  opts: { deleted?: boolean; tree?: boolean } = {},
+  opts: {
+    deleted?: boolean;
+    tree?: boolean;
+    after?: (board: BoardRecord, written: BoardDto, transaction: Transaction) => Promise<void>;
+  } = {},
 ): Promise<BoardDto> {
   return db().transaction(async (transaction) => {
     // The site first, then the board: every write on one site's tree takes them in this order
     await lockSiteOfBoard(actor, boardId, transaction, { tree: opts.tree });
     const board = await findBoard(actor, boardId, { transaction, lock: true, deleted: opts.deleted });
-    return writeBoard(actor, board, await change(board, transaction), transaction);
+    const written = await writeBoard(actor, board, await change(board, transaction), transaction);
+    await opts.after?.(board, written, transaction);
+    return written;
   });
 }
 
@@ -132,29 +150,85 @@ export async function renameBoard(
   });
 }
 
+/** What a removal did to the site's tree: the boards that went back to the origin. */
+export type RemovalAnswer = { feedChanges: FeedChange[]; ripple: SiteRipple | null };
+
+/**
+ * A removal (delete or archive) of a board of a supply tree (lib/dal/site-feed.ts
+ * beforeBoardRemoval says what a designer expects): the site locked for a tree write, the boards
+ * fed from this board's ways named in a 409 unless `confirmFeedChanges`; confirmed, they go back
+ * to the origin and the whole site is re-sized in the same transaction.
+ */
+function removal(
+  actor: Actor,
+  effect: () => 'deleted' | 'archived',
+  opts: { confirmFeedChanges?: boolean },
+  out: RemovalAnswer,
+) {
+  let plan: RemovalPlan | null = null;
+  return {
+    tree: true,
+    /** Called by `change` once the refusals of the record rules have been checked. */
+    plan: async (board: BoardRecord, transaction: Transaction) => {
+      plan = await beforeBoardRemoval(actor, board, { effect: effect(), ...opts }, transaction);
+      out.feedChanges = plan.detach;
+    },
+    after: async (board: BoardRecord, _written: BoardDto, transaction: Transaction) => {
+      if (plan) out.ripple = await afterBoardRemoval(actor, board, plan, effect(), transaction);
+    },
+  };
+}
+
+/** The hooks of a board coming back (undelete, restore): it rejoins the tree at the origin, the site re-sized. */
+function comingBack(actor: Actor) {
+  let site: SiteLock | null = null;
+  return {
+    tree: true,
+    plan: async (board: BoardRecord, transaction: Transaction) => {
+      site = await beforeBoardReturn(actor, board, transaction);
+    },
+    after: async (board: BoardRecord, _written: BoardDto, transaction: Transaction) => {
+      if (site) await afterBoardReturn(actor, board, site, transaction);
+    },
+  };
+}
+
 /**
  * Removes a board (lib/boards/record-rules.ts boardRemoval): a board never issued is deleted
  * (hidden everywhere, its rows kept so that the delete can be undone); a board ever issued is
  * archived, by an admin only. The version moves on, so an editor still open cannot save it.
+ * A board that feeds others asks first (see `removal`).
  */
-export async function removeBoard(actor: Actor, boardId: string): Promise<{ effect: 'deleted' | 'archived' }> {
+export async function removeBoard(
+  actor: Actor,
+  boardId: string,
+  opts: { confirmFeedChanges?: boolean } = {},
+): Promise<{ effect: 'deleted' | 'archived' } & RemovalAnswer> {
   let effect: 'deleted' | 'archived' = 'deleted';
-  await changeBoard(actor, boardId, async (board, transaction) => {
-    const rule = boardRemoval(actor.role, {
-      everIssued: await everIssued(boardId, transaction),
-      archived: (await archiveStateOf(board, transaction)) !== null,
-    });
-    if (rule.refused) throw new HttpError(rule.status, rule.message);
-    if (rule.effect === 'delete') {
-      return {
-        set: { deletedAt: new Date(), deletedById: actor.userId },
-        events: [{ action: 'board.deleted', details: { name: board.name } }],
-      };
-    }
-    effect = 'archived';
-    return archiving(actor, board);
-  });
-  return { effect };
+  const out: RemovalAnswer = { feedChanges: [], ripple: null };
+  const tree = removal(actor, () => effect, opts, out);
+  await changeBoard(
+    actor,
+    boardId,
+    async (board, transaction) => {
+      const rule = boardRemoval(actor.role, {
+        everIssued: await everIssued(boardId, transaction),
+        archived: (await archiveStateOf(board, transaction)) !== null,
+      });
+      if (rule.refused) throw new HttpError(rule.status, rule.message);
+      effect = rule.effect === 'delete' ? 'deleted' : 'archived';
+      await tree.plan(board, transaction);
+      if (rule.effect === 'delete') {
+        return {
+          set: { deletedAt: new Date(), deletedById: actor.userId },
+          events: [{ action: 'board.deleted', details: { name: board.name } }],
+        };
+      }
+      return archiving(actor, board);
+    },
+    tree,
+  );
+  return { effect, ...out };
 }
 
 const archiving = (actor: Actor, board: BoardRecord) => ({
@@ -162,42 +236,66 @@ const archiving = (actor: Actor, board: BoardRecord) => ({
   events: [{ action: 'board.archived', details: { name: board.name, revision: board.revision } } satisfies BoardEvent],
 });
 
-/** Archives a board (admins: records.archive), issued or not. */
-export async function archiveBoard(actor: Actor, boardId: string): Promise<void> {
+/** Archives a board (admins: records.archive), issued or not; a board that feeds others asks first. */
+export async function archiveBoard(
+  actor: Actor,
+  boardId: string,
+  opts: { confirmFeedChanges?: boolean } = {},
+): Promise<RemovalAnswer> {
   if (!mayRestore(actor.role, 'archived')) throw forbidden('archive boards');
-  await changeBoard(actor, boardId, async (board) => {
-    if (board.archivedAt) throw conflict('This board is archived already.');
-    return archiving(actor, board);
-  });
-}
-
-/** Brings an archived board back into the lists (admins). */
-export async function restoreBoard(actor: Actor, boardId: string): Promise<BoardDto> {
-  if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived boards');
-  return changeBoard(actor, boardId, async (board) => {
-    if (!board.archivedAt) throw conflict('This board is not archived.');
-    return {
-      set: { archivedAt: null, archivedById: null },
-      events: [{ action: 'board.restored', details: { name: board.name } }],
-    };
-  });
-}
-
-/** Undoes the delete of a draft board: it comes back as it was. */
-export async function undeleteBoard(actor: Actor, boardId: string): Promise<BoardDto> {
-  if (!mayRestore(actor.role, 'deleted')) throw forbidden('restore deleted boards');
-  return changeBoard(
+  const out: RemovalAnswer = { feedChanges: [], ripple: null };
+  const tree = removal(actor, () => 'archived', opts, out);
+  await changeBoard(
     actor,
     boardId,
-    async (board) => {
+    async (board, transaction) => {
+      if (board.archivedAt) throw conflict('This board is archived already.');
+      await tree.plan(board, transaction);
+      return archiving(actor, board);
+    },
+    tree,
+  );
+  return out;
+}
+
+/** Brings an archived board back into the lists (admins), fed from the origin. */
+export async function restoreBoard(actor: Actor, boardId: string): Promise<BoardDto> {
+  if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived boards');
+  const tree = comingBack(actor);
+  const restored = await changeBoard(
+    actor,
+    boardId,
+    async (board, transaction) => {
+      if (!board.archivedAt) throw conflict('This board is not archived.');
+      await tree.plan(board, transaction);
+      return {
+        set: { archivedAt: null, archivedById: null },
+        events: [{ action: 'board.restored', details: { name: board.name } }],
+      };
+    },
+    tree,
+  );
+  return readBoard(actor, restored.id);
+}
+
+/** Undoes the delete of a draft board: it comes back as it was, fed from the origin. */
+export async function undeleteBoard(actor: Actor, boardId: string): Promise<BoardDto> {
+  if (!mayRestore(actor.role, 'deleted')) throw forbidden('restore deleted boards');
+  const tree = comingBack(actor);
+  const back = await changeBoard(
+    actor,
+    boardId,
+    async (board, transaction) => {
       if (!board.deletedAt) throw conflict('This board is not deleted.');
+      await tree.plan(board, transaction);
       return {
         set: { deletedAt: null, deletedById: null },
         events: [{ action: 'board.undeleted', details: { name: board.name } }],
       };
     },
-    { deleted: true },
+    { ...tree, deleted: true },
   );
+  return readBoard(actor, back.id);
 }
 
 /** What changed between the stored ways and the saved ones, for the audit trail. */

@@ -4,7 +4,13 @@ import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { engineInputOf, type BoardFeed, type WayInput } from '@/lib/boards/schemas';
-import { readBoardSiteId, readFeedingWayBoard, readTreeBoards, writeBoardFeed } from '@/lib/dal/board-repository';
+import {
+  readBoardSiteId,
+  readFeedingWayBoard,
+  readTreeBoards,
+  siteIsTree,
+  writeBoardFeed,
+} from '@/lib/dal/board-repository';
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, notFound, type FieldIssue } from '@/lib/errors';
 import { fedFromWords, wayName } from '@/lib/names';
@@ -12,7 +18,7 @@ import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { isProtectiveDevice } from '@/lib/sizing';
 import { wayLabels } from '@/lib/supply';
 
-import { feedRefusal, lockSiteForWrite, resizeSite, type SiteLock, type TreeBoard } from './site-tree';
+import { feedRefusal, lockSite, lockSiteForWrite, resizeSite, type SiteLock, type TreeBoard } from './site-tree';
 
 /**
  * A board's feed and the site tree around a board write (called by lib/dal/board-repository.ts
@@ -238,4 +244,154 @@ export async function afterTreeWrite(
     cause: `${board.name} was changed`,
     only: plan.site.mode === 'share' ? board.id : undefined,
   });
+}
+
+/**
+ * A board leaving its site's tree (deleted, or archived), planned before the write.
+ *
+ * What a designer expects: the boards fed from one of its ways are not left sized against a
+ * board that is no longer part of the design, and they are not moved silently either. So a
+ * removal that would take the supply of other boards away is refused with 409 naming them
+ * (`feedChanges`, like a save that removes a feeding way) unless it is confirmed; confirmed, they
+ * are fed from the origin (their history says which board fed them and why), to be linked again
+ * from their own editor or the site view. The board itself lets go of the way that fed it, with a
+ * history entry naming that way: the way is free to feed another board, and an archived board
+ * (which the tree still reads, read-only) no longer loads the sub-main. Undo of a delete, or a
+ * restore, brings the board back fed from the origin; its history says where it was fed from.
+ * Either way the whole site is re-sized in the same transaction.
+ */
+export type RemovalPlan = {
+  site: SiteLock;
+  /** The boards fed from the removed board's ways: they go back to the origin. */
+  detach: FeedChange[];
+  /** Where the removed board itself was fed from (null: the origin). */
+  ownFeed: FedFromWords | null;
+};
+
+type FedFromWords = { boardName: string; wayLabel: string | null };
+
+/** Locks the site (update: the tree may change) and finds whom the board's removal changes; 409 unconfirmed. */
+export async function beforeBoardRemoval(
+  actor: Actor,
+  board: { id: string; siteId: string; name: string },
+  opts: { effect: 'deleted' | 'archived'; confirmFeedChanges?: boolean },
+  transaction: Transaction,
+): Promise<RemovalPlan> {
+  const site = await lockSite(actor, board.siteId, transaction, 'update');
+  const boards = await readTreeBoards(board.siteId, transaction, { stored: false });
+  const byId = new Map(boards.map((b) => [b.id, b]));
+  const me = byId.get(board.id);
+  const labels = me ? labelsOf(me) : new Map<string, string | null>();
+  const detach: FeedChange[] = boards
+    .filter((d) => d.id !== board.id && d.feed.from === 'way' && d.feed.boardId === board.id)
+    .map((d) => {
+      const wayId = (d.feed as Extract<BoardFeed, { from: 'way' }>).wayId;
+      const from = { boardId: board.id, boardName: board.name, wayId, wayLabel: labels.get(wayId) ?? null };
+      return {
+        boardId: d.id,
+        name: d.name,
+        from: { ...from, device: '', cable: '' },
+        to: 'origin',
+        reason: 'board-removed',
+      };
+    });
+  if (detach.length && !opts.confirmFeedChanges) {
+    const names = detach.map((c) => c.name).join(', ');
+    const verb = opts.effect === 'deleted' ? 'Deleting' : 'Archiving';
+    throw conflict(
+      `${verb} ${board.name} takes away the supply of ${names}, fed from its ways; confirm to feed ${
+        detach.length === 1 ? 'it' : 'them'
+      } from the origin.`,
+      { feedChanges: detach },
+    );
+  }
+  let ownFeed: FedFromWords | null = null;
+  if (me?.feed.from === 'way') {
+    const wayId = me.feed.wayId;
+    const parent = byId.get(me.feed.boardId);
+    ownFeed = {
+      boardName: parent?.name ?? 'another board',
+      wayLabel: parent ? (labelsOf(parent).get(wayId) ?? null) : null,
+    };
+  }
+  return { site, detach, ownFeed };
+}
+
+/** After the removal's write: the feeds let go (each history says so), the whole site re-sized. */
+export async function afterBoardRemoval(
+  actor: Actor,
+  board: { id: string; name: string },
+  plan: RemovalPlan,
+  effect: 'deleted' | 'archived',
+  transaction: Transaction,
+): Promise<SiteRipple | null> {
+  if (!plan.detach.length && !plan.ownFeed) return null;
+  for (const c of plan.detach) {
+    await writeBoardFeed(c.boardId, null, transaction);
+    await auditMany(
+      actor,
+      [
+        {
+          action: 'board.feed-changed',
+          details: {
+            feed: { from: 'origin' },
+            reason: 'board-removed',
+            removedBoard: board.name,
+            effect,
+            was: fedFromWords(c.from),
+            note: `${board.name}, which fed this board, was ${effect}; it is now fed from the origin.`,
+          },
+        },
+      ],
+      { boardId: c.boardId, transaction },
+    );
+  }
+  if (plan.ownFeed) {
+    await writeBoardFeed(board.id, null, transaction);
+    await auditMany(
+      actor,
+      [
+        {
+          action: 'board.feed-changed',
+          details: {
+            feed: { from: 'origin' },
+            reason: 'board-removed',
+            self: true,
+            effect,
+            was: fedFromWords(plan.ownFeed),
+            note: `This board was ${effect}, so it no longer takes its supply from ${fedFromWords(plan.ownFeed)}; brought back, it is fed from the origin.`,
+          },
+        },
+      ],
+      { boardId: board.id, transaction },
+    );
+  }
+  return resizeSite(actor, plan.site, transaction, { writtenBoardId: board.id, cause: `${board.name} was ${effect}` });
+}
+
+/**
+ * Before a deleted or archived board comes back: the site locked for a tree write (the board
+ * rejoins the tree, at the origin).
+ */
+export async function beforeBoardReturn(
+  actor: Actor,
+  board: { siteId: string },
+  transaction: Transaction,
+): Promise<SiteLock> {
+  return lockSite(actor, board.siteId, transaction, 'update');
+}
+
+/**
+ * After a deleted or archived board came back: when the site is a tree (an origin, or boards
+ * fed from ways), the site is re-sized so that the board is sized against the origin now, not
+ * with what was carried to it before it left.
+ */
+export async function afterBoardReturn(
+  actor: Actor,
+  board: { id: string; name: string },
+  site: SiteLock,
+  transaction: Transaction,
+): Promise<SiteRipple | null> {
+  if (!(await siteIsTree(actor, site.id, transaction))) return null;
+  return resizeSite(actor, site, transaction, { writtenBoardId: board.id, cause: `${board.name} came back` });
 }

@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { QueryTypes } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { engineInputOf, type BoardDto, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
@@ -14,6 +14,7 @@ import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { conflict, notFound } from '@/lib/errors';
 import type {
   BoardFeedInput,
+  FedFrom,
   SiteOrigin,
   SiteOriginInput,
   SiteRipple,
@@ -190,19 +191,22 @@ export async function setBoardFeed(
 
 /**
  * What the tree gives a draft of a board (the editor's unsaved edits, sized by the board's
- * sizing route): the supply carried to it (null: its typed supply) and the design current of
- * each of its ways that feeds a board. 404 for another organisation's board.
+ * sizing route; the stored board sent for review, issued or printed): the supply carried to it
+ * (null: its typed supply), the way it is carried from when the tree could follow the feed, and
+ * the design current of each of its ways that feeds a board. 404 for another organisation's board.
  */
 export async function draftTreeContext(
   actor: Actor,
   boardId: string,
-): Promise<{ supply: SupplyInput | null; subMains: Map<string, number> }> {
-  const rows = await readDraftTreeRows(actor, boardId);
+  transaction?: Transaction,
+): Promise<{ supply: SupplyInput | null; subMains: Map<string, number>; fedFrom: FedFrom | null }> {
+  const rows = await readDraftTreeRows(actor, boardId, transaction);
   if (!rows.length) throw notFound('The board');
   const { carried, feeds } = rows[0];
   const subMains = new Map<string, number>();
   for (const f of feeds ?? []) if (f.amps !== null) subMains.set(f.wayId, f.amps);
-  return { supply: carried?.supply ?? null, subMains };
+  const fedFrom = carried?.from === 'way' && !carried.problem ? carried.fedFrom : null;
+  return { supply: carried?.supply ?? null, subMains, fedFrom };
 }
 
 /** A draft's settings and ways with what the tree gives it (see `draftTreeContext`). */

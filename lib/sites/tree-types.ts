@@ -13,6 +13,10 @@
  *   another organisation or site.
  * - `PUT  /api/boards/[boardId]` (the whole-board save) also takes `settings.feed` and
  *   `confirmFeedChanges`, answers `{ board, ripple }` and 409 `FeedChangesConflict` likewise.
+ * - `DELETE /api/boards/[boardId]` and `POST /api/boards/[boardId]/archive` take
+ *   `?confirmFeedChanges=1` (`removalQuerySchema`): a board that feeds other boards is not
+ *   removed unasked (409 `FeedChangesConflict`, reason `board-removed`); confirmed, those boards
+ *   go back to the origin and the answer lists them as `feedChanges`.
  * - `GET  /api/sites/[siteId]/pack` → `application/pdf` (admins, designers, inspectors): the
  *   diagram and carried values, then each board's schedule (issued file where issued, else draft).
  * - `POST /api/sites/[siteId]/pack/email` `SitePackEmailInput` → 202 `{ mail: { id, to } }`.
@@ -48,6 +52,18 @@ export const boardFeedInputSchema = z
   })
   .strict();
 export type BoardFeedInput = z.infer<typeof boardFeedInputSchema>;
+
+/**
+ * The query of `DELETE /api/boards/[boardId]` and `POST /api/boards/[boardId]/archive`:
+ * `confirmFeedChanges=1` lets the boards fed from the board go back to the origin.
+ */
+export const removalQuerySchema = z.object({
+  confirmFeedChanges: z
+    .enum(['1', 'true'], { error: 'Give confirmFeedChanges=1 to confirm, or leave it out.' })
+    .optional()
+    .transform((v) => v !== undefined),
+});
+export type RemovalQuery = z.output<typeof removalQuerySchema>;
 
 /** `POST /api/sites/[siteId]/pack/email`. */
 export const sitePackEmailSchema = z
@@ -157,7 +173,8 @@ export interface FeedChange {
   from: FedFrom | null;
   /** What it will be fed from: the origin. */
   to: 'origin';
-  reason: 'way-removed' | 'way-moved' | 'feed-changed';
+  /** `board-removed`: the board that feeds it is being deleted or archived. */
+  reason: 'way-removed' | 'way-moved' | 'feed-changed' | 'board-removed';
 }
 
 /** The 409 answer of a save that changes other boards' feed without `confirmFeedChanges: true`. */

@@ -333,9 +333,11 @@ describe('junk queries', () => {
 
   it('covers every route that declares a query', () => {
     expect(withQuery.map((r) => r.name).sort()).toEqual([
+      'DELETE /api/boards/[boardId]',
       'GET /api/boards/[boardId]/audit',
       'GET /api/boards/[boardId]/revisions/[revision]',
       'GET /api/sites/[siteId]/pack',
+      'POST /api/boards/[boardId]/archive',
     ]);
   });
 

@@ -96,7 +96,11 @@ export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' 
     case 'board.feed-changed':
       return d.reason === 'way-removed'
         ? 'fed the board from the site’s origin: the way that fed it was removed'
-        : 'changed where the board is fed from';
+        : d.reason === 'board-removed'
+          ? d.self
+            ? `let go of the way that fed the board (${text(d.was)}): the board was ${text(d.effect)}`
+            : `fed the board from the site’s origin: ${text(d.removedBoard)}, which fed it, was ${text(d.effect)}`
+          : 'changed where the board is fed from';
     case 'board.supply-changed': {
       const n = Array.isArray(d.ways) ? d.ways.length : 0;
       return `changed the supply carried to this board (${text(d.cause) || 'a change upstream'})${

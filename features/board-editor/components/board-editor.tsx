@@ -318,6 +318,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
               showVerdicts={can.size}
               dropRefusal={dropRefusal}
               onRemove={removeWithUndo}
+              derivedSupply={board.derivedSupply}
             />
             {!readOnly ? (
               <div className="flex items-center justify-between gap-3">

@@ -17,22 +17,43 @@ import { EARTHING_NAMES, fedFromWords, plural } from '@/lib/names';
 import type { CarriedValue, DerivedSupply as Derived, SiteTreeDto } from '@/lib/sites/tree-types';
 
 type DerivedSupplyProps = {
-  board: Pick<BoardDto, 'id' | 'siteId' | 'siteName' | 'feed' | 'derivedSupply' | 'supply' | 'version'>;
+  board: Pick<
+    BoardDto,
+    'id' | 'siteId' | 'siteName' | 'feed' | 'derivedSupply' | 'supply' | 'version' | 'status' | 'revision'
+  >;
   /** Whether the member may change where the board is fed from (the server checks again). */
   canEdit: boolean;
 };
 
 type ChangedWay = { wayId: string; way: string | null; before: Verdict | null; after: Verdict | null };
-type SupplyChange = { at: string; cause: string; ways: ChangedWay[] };
+type SupplyChange = {
+  at: string;
+  cause: string;
+  ways: ChangedWay[];
+  /** Newer than the board's last issue (its approval), or no approval on this newest page. */
+  afterLastIssue: boolean;
+};
 
 /** The newest "supply changed" record of the board's history, with the ways whose verdict moved. */
 function latestSupplyChange(page: AuditPage): SupplyChange | null {
-  const entry = page.entries.find((e) => e.action === 'board.supply-changed');
-  if (!entry) return null;
+  const at = page.entries.findIndex((e) => e.action === 'board.supply-changed');
+  if (at < 0) return null;
+  const entry = page.entries[at];
   const ways = Array.isArray(entry.details.ways) ? (entry.details.ways as ChangedWay[]) : [];
   const cause = typeof entry.details.cause === 'string' ? entry.details.cause : 'A change upstream';
-  return { at: entry.createdAt, cause, ways };
+  // Newest first: an approval after it comes before it in the page
+  const issued = page.entries.findIndex((e) => e.action === 'review.approved');
+  return { at: entry.createdAt, cause, ways, afterLastIssue: issued < 0 || at < issued };
 }
+
+/**
+ * Whether the supply carried to an issued board changed after it was issued. The issued revision
+ * stays as it was (nobody changed this board, and a revision is a fixed record), so its status
+ * does not move; but the schedule in the board door shows the values at issue, so the designer is
+ * told, to decide whether to start the next revision.
+ */
+const changedSinceIssue = (status: BoardDto['status'], change: SupplyChange | null) =>
+  (status === 'issued' || status === 'labels-matched') && !!change?.afterLastIssue;
 
 /** What the tree carried to this board, in the shape the board's own record keeps it. */
 function derivedOf(tree: SiteTreeDto | undefined, boardId: string): Derived | null {
@@ -115,6 +136,17 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
       </div>
       <SupplyWords derived={derived} typed={board.supply} />
       {derived && derived.from === 'way' ? <CarriedValues derived={derived} /> : null}
+      {changedSinceIssue(board.status, change) ? (
+        <p
+          role="note"
+          className="mt-3 rounded-md border border-copper/40 bg-copper-light/40 p-3 text-ink"
+          data-testid="supply-changed-since-issue"
+        >
+          <strong>Supply changed since issue.</strong> {change!.cause} after revision {board.revision} was issued, so
+          the printed schedule shows the values carried at issue. Save the board to start revision {board.revision + 1}{' '}
+          and send it for review if the change matters.
+        </p>
+      ) : null}
       {change && change.ways.length > 0 ? (
         <div className="mt-3 rounded-md border border-copper/40 bg-copper-light/40 p-3" data-testid="supply-change">
           <p className="font-medium text-ink">

@@ -5,6 +5,8 @@ import { memo, useMemo, useRef } from 'react';
 
 import type { BoardSettings } from '@/lib/boards/schemas';
 import { drawRails, railCapacities, rcdGroups } from '@/lib/boards/rail';
+import { supplyInUseWords } from '@/lib/sites/supply-words';
+import type { DerivedSupply } from '@/lib/sites/tree-types';
 
 import { useDraftSizing, useSizingState } from '../hooks/use-live-sizing';
 import { BoardViewContext } from '../hooks/use-board-view';
@@ -18,6 +20,11 @@ type DrawnBoardProps = {
   /** Why the device being dragged would not fit where it is, if it would not. */
   dropRefusal?: string | null;
   onRemove?: (id: string) => void;
+  /**
+   * What the site's tree sized the board with (the board DTO's `derivedSupply`): when given, the
+   * header shows those values, not the board's typed supply, which is then not used.
+   */
+  derivedSupply?: DerivedSupply | null;
 };
 
 /** Each rail as drawn, with the part of each RCD's bracket that lies on it. */
@@ -63,6 +70,7 @@ export const DrawnBoard = memo(function DrawnBoard({
   showVerdicts,
   dropRefusal = null,
   onRemove,
+  derivedSupply = null,
 }: DrawnBoardProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const editSeq = useBoardDraftStore((s) => s.editSeq);
@@ -81,6 +89,7 @@ export const DrawnBoard = memo(function DrawnBoard({
 
   if (!settings) return null;
   const used = rails.reduce((n, r) => n + r.drawing.used, 0);
+  const supply = supplyInUseWords(settings.supply, derivedSupply);
   // Whether the verdicts shown are for the draft as it is is said here once, not by every
   // device: the verdicts dim (by CSS, after a moment) while a newer sizing is on its way
   return (
@@ -94,9 +103,8 @@ export const DrawnBoard = memo(function DrawnBoard({
       className="group/board rounded-[14px] border-[6px] border-ink/85 bg-[#e6e2d8] p-3 shadow-sm"
     >
       <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2 border-b border-ink/15 pb-2 text-xs text-ink-soft">
-        <span className="font-semibold text-ink">
-          {settings.phases === 3 ? 'Three-phase' : 'Single-phase'} · {settings.supply.earthing} · Ze{' '}
-          {settings.supply.zeOhm} Ω · PFC {settings.supply.pfcKa} kA
+        <span className="font-semibold text-ink" title={supply.title} data-testid="drawn-board-supply">
+          {settings.phases === 3 ? 'Three-phase' : 'Single-phase'} · {supply.supply.earthing} · {supply.values}
         </span>
         <span>
           Enclosure {settings.enclosureModules} modules · {used} used · incoming {settings.incoming.ratingA} A

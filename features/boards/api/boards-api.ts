@@ -1,6 +1,7 @@
-import { apiFetch } from '@/lib/api/client';
+import { ApiError, apiFetch } from '@/lib/api/client';
 import type { BoardCreateInput } from '@/lib/boards/schemas';
 import type { BoardDto, BoardSummary } from '@/lib/boards/types';
+import type { FeedChange } from '@/lib/sites/tree-types';
 
 /** A site as the board dialogs need it: enough to pick one. */
 export type SiteOption = { id: string; name: string };
@@ -52,11 +53,23 @@ export async function patchBoard(boardId: string, input: BoardRename): Promise<B
   return board;
 }
 
-/** DELETE /api/boards/:boardId: a never-issued board is deleted (undoable), an issued one archived (admins). */
-export function removeBoard(boardId: string): Promise<{ effect: 'deleted' | 'archived' }> {
-  return apiFetch<{ effect: 'deleted' | 'archived' }>(`/api/boards/${encodeURIComponent(boardId)}`, {
-    method: 'DELETE',
-  });
+/** What removing a board answers: deleted or archived, and the boards now fed from the origin. */
+export type RemovalAnswer = { effect: 'deleted' | 'archived'; feedChanges?: FeedChange[] };
+
+/**
+ * DELETE /api/boards/:boardId: a never-issued board is deleted (undoable), an issued one archived
+ * (admins). A board that feeds others is refused (409 with `feedChanges`) unless confirmed.
+ */
+export function removeBoard(boardId: string, confirmFeedChanges = false): Promise<RemovalAnswer> {
+  const query = confirmFeedChanges ? '?confirmFeedChanges=1' : '';
+  return apiFetch<RemovalAnswer>(`/api/boards/${encodeURIComponent(boardId)}${query}`, { method: 'DELETE' });
+}
+
+/** The boards a refused removal would take the supply from (a 409 naming them), or null. */
+export function feedChangesOf(error: unknown): FeedChange[] | null {
+  if (!(error instanceof ApiError) || error.status !== 409) return null;
+  const changes = (error.body as { feedChanges?: unknown } | undefined)?.feedChanges;
+  return Array.isArray(changes) && changes.length ? (changes as FeedChange[]) : null;
 }
 
 /** POST /api/boards/:boardId/undo-delete */

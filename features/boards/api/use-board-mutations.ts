@@ -42,11 +42,15 @@ export function useRenameBoard() {
   });
 }
 
-/** Deletes a never-issued board (undoable), or archives an issued one (admins). */
+/**
+ * Deletes a never-issued board (undoable), or archives an issued one (admins); a board that feeds
+ * others is refused (`feedChangesOf`) until sent again with `confirmFeedChanges`.
+ */
 export function useDeleteBoard() {
   const refresh = useRefreshLists();
   return useMutation({
-    mutationFn: (boardId: string) => removeBoard(boardId),
+    mutationFn: ({ boardId, confirmFeedChanges }: { boardId: string; confirmFeedChanges?: boolean }) =>
+      removeBoard(boardId, confirmFeedChanges),
     onSuccess: () => refresh(),
   });
 }

@@ -13,12 +13,13 @@ import type { BoardSummary } from '@/lib/boards/types';
 import type { Role } from '@/lib/domain';
 import { errorMessage } from '@/lib/api/client';
 
+import { feedChangesOf } from '../api/boards-api';
 import { useDeleteBoard, useRestoreBoard, useUndoDeleteBoard } from '../api/use-board-mutations';
 import { useBoards, useSiteOptions } from '../api/use-boards';
 import { BoardCreateDialog } from './board-create-dialog';
 import { BoardRenameDialog } from './board-rename-dialog';
 import { BoardsTable } from './boards-table';
-import { DeleteBoardDialog } from './delete-board-dialog';
+import { DeleteBoardDialog, type RemovalQuestion } from './delete-board-dialog';
 
 type BoardsViewProps = {
   role: Role;
@@ -38,7 +39,7 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
   const [creating, setCreating] = useState(false);
   const siteOptions = useSiteOptions(canEdit && creating);
   const [renaming, setRenaming] = useState<BoardSummary | null>(null);
-  const [deleting, setDeleting] = useState<BoardSummary | null>(null);
+  const [deleting, setDeleting] = useState<RemovalQuestion | null>(null);
   const onRename = useCallback((board: BoardSummary) => setRenaming(board), []);
   // Archived rows: restore (admins). Issued boards: archive with a confirmation (admins).
   // Never-issued boards: delete at once, with undo in the toast.
@@ -50,23 +51,31 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
           onError: (err) => toast.error(errorMessage(err)),
         });
       } else if (board.everIssued) {
-        setDeleting(board);
+        setDeleting({ board, feedChanges: null });
       } else {
-        remove.mutate(board.id, {
-          onSuccess: () =>
-            toast.success(`Deleted ${board.name}.`, {
-              duration: 10_000,
-              action: {
-                label: 'Undo',
-                onClick: () =>
-                  undo.mutate(board.id, {
-                    onSuccess: () => toast.success(`${board.name} is back.`),
-                    onError: (err) => toast.error(errorMessage(err)),
-                  }),
-              },
-            }),
-          onError: (err) => toast.error(errorMessage(err)),
-        });
+        remove.mutate(
+          { boardId: board.id },
+          {
+            onSuccess: () =>
+              toast.success(`Deleted ${board.name}.`, {
+                duration: 10_000,
+                action: {
+                  label: 'Undo',
+                  onClick: () =>
+                    undo.mutate(board.id, {
+                      onSuccess: () => toast.success(`${board.name} is back.`),
+                      onError: (err) => toast.error(errorMessage(err)),
+                    }),
+                },
+              }),
+            // Other boards are fed from its ways: ask, naming them, before it goes
+            onError: (err) => {
+              const feedChanges = feedChangesOf(err);
+              if (feedChanges) setDeleting({ board, feedChanges });
+              else toast.error(errorMessage(err));
+            },
+          },
+        );
       }
     },
     [remove, undo, restore],
@@ -171,7 +180,7 @@ export function BoardsView({ role, siteId }: BoardsViewProps) {
             siteId={siteId}
           />
           <BoardRenameDialog board={renaming} onClose={() => setRenaming(null)} />
-          <DeleteBoardDialog board={deleting} onClose={() => setDeleting(null)} />
+          <DeleteBoardDialog question={deleting} onClose={() => setDeleting(null)} />
         </>
       ) : null}
     </section>

@@ -8,6 +8,7 @@ import { allows } from '@/lib/boards/lifecycle';
 import type { ReviewPageData } from '@/lib/boards/review-page-data';
 import type { CommentDto } from '@/lib/boards/review-types';
 import { deviceName, loadTypeName } from '@/lib/names';
+import { supplyInUseWords } from '@/lib/sites/supply-words';
 
 import { CommentThread } from './comment-thread';
 import {
@@ -46,6 +47,7 @@ export function ReviewView({
   const byWay = new Map<string, CommentDto[]>();
   for (const c of data.comments) if (c.wayId) byWay.set(c.wayId, [...(byWay.get(c.wayId) ?? []), c]);
   const boardSummary = { id: board.id, name: board.name, siteName: board.siteName, location: board.location };
+  const supply = supplyInUseWords(board.supply, board.derivedSupply);
 
   return (
     <DecisionArea>
@@ -97,9 +99,9 @@ export function ReviewView({
         <section className="grid gap-4 rounded-card border border-line bg-paper-raised p-4 text-sm sm:grid-cols-2 lg:grid-cols-4">
           <div>
             <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Supply</h2>
-            <p>
-              {board.supply.earthing} · Uo {board.supply.uoV} V · Ze {board.supply.zeOhm} Ω · PFC {board.supply.pfcKa}{' '}
-              kA
+            {/* What the board is sized with: carried down the site's tree when it is fed from another board */}
+            <p title={supply.title}>
+              {supply.supply.earthing} · Uo {supply.supply.uoV} V · {supply.values}
             </p>
             <p>
               {board.phases === 3 ? 'Three-phase' : 'Single-phase'}, {board.supply.source} supply

@@ -384,8 +384,17 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
     supply: [
       { label: 'Earthing', value: EARTHING_NAMES[settings.supply.earthing] ?? settings.supply.earthing },
       { label: 'Uo', value: `${settings.supply.uoV} V` },
-      { label: 'Ze', value: `${settings.supply.zeOhm} Ω` },
-      { label: 'PFC', value: `${settings.supply.pfcKa} kA` },
+      // A board fed from another board is frozen with what the site's tree carried down to it
+      ...(source.snapshot.fedFrom
+        ? [
+            { label: 'Fed from', value: source.snapshot.fedFrom },
+            { label: 'Zdb (carried)', value: `${num(settings.supply.zeOhm, 3)} Ω` },
+            { label: 'PFC (carried)', value: `${num(settings.supply.pfcKa, 2)} kA` },
+          ]
+        : [
+            { label: 'Ze', value: `${settings.supply.zeOhm} Ω` },
+            { label: 'PFC', value: `${settings.supply.pfcKa} kA` },
+          ]),
       {
         label: 'Phases',
         value: `${settings.phases === 3 ? 'Three-phase' : 'Single-phase'}, ${settings.supply.source} supply`,

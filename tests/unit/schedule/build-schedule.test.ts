@@ -82,6 +82,32 @@ describe('the schedule’s content', () => {
     expect(walked.groups[0].rows[0].cells.label).toBe('✗ Label is missing: No label at all');
   });
 
+  it('a board fed from another board prints the carried Zdb and PFC, marked carried, and what feeds it', () => {
+    const plain = source([{ id: 'x', device: mcb, circuit: circuit('Lights') }]);
+    // As lib/dal/board-snapshot.ts freezes it: the supply the tree carried down (Zdb as its Ze)
+    const carried = {
+      earthing: 'TN-C-S' as const,
+      uoV: 230,
+      zeOhm: 0.443696,
+      pfcKa: 0.9876,
+      source: 'public' as const,
+    };
+    const fed = buildSchedule({
+      ...plain,
+      snapshot: {
+        ...plain.snapshot,
+        settings: { ...plain.snapshot.settings, supply: carried },
+        fedFrom: 'Workshop DB1, way 1',
+      },
+    });
+    expect(fed.supply).toContainEqual({ label: 'Fed from', value: 'Workshop DB1, way 1' });
+    expect(fed.supply).toContainEqual({ label: 'Zdb (carried)', value: '0.444 Ω' });
+    expect(fed.supply).toContainEqual({ label: 'PFC (carried)', value: '0.99 kA' });
+    expect(fed.supply.map((r) => r.label)).not.toContain('Ze');
+    // A board fed from the origin (or issued before) keeps its Ze and PFC as typed
+    expect(buildSchedule(plain).supply).toContainEqual({ label: 'Ze', value: '21 Ω' });
+  });
+
   it('a draft says it is not issued, in its status and in a notice', () => {
     const data = buildSchedule(
       source([{ id: 'x', device: mcb, circuit: circuit('Lights') }], { frozen: false, issued: null, status: 'draft' }),

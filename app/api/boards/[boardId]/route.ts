@@ -1,6 +1,7 @@
 import { defineRoute } from '@/lib/api/handler';
 import { boardRenameSchema, boardSaveSchema, idParamsSchema } from '@/lib/boards/schemas';
 import { getBoard, removeBoard, renameBoard, saveBoard } from '@/lib/dal/boards';
+import { removalQuerySchema } from '@/lib/sites/tree-types';
 
 /** GET /api/boards/:boardId: the board with its ways. */
 export const GET = defineRoute({
@@ -37,10 +38,18 @@ export const PATCH = defineRoute({
 
 /**
  * DELETE /api/boards/:boardId: a board never issued is deleted (undo: POST …/undo-delete);
- * a board ever issued is archived, by an admin only (lib/boards/record-rules.ts).
+ * a board ever issued is archived, by an admin only (lib/boards/record-rules.ts). A board that
+ * feeds other boards answers 409 `feedChanges` unless `?confirmFeedChanges=1` (lib/sites/tree-types.ts);
+ * confirmed, the answer lists them as `feedChanges`.
  */
 export const DELETE = defineRoute({
   action: 'boards.discard',
   params: idParamsSchema,
-  handler: async ({ actor, params: { boardId } }) => Response.json(await removeBoard(actor, boardId)),
+  query: removalQuerySchema,
+  // Remove (ownership, the record rules and the boards it feeds checked in the DAL)
+  handler: async ({ actor, params: { boardId }, query }) => {
+    const { effect, feedChanges } = await removeBoard(actor, boardId, { confirmFeedChanges: query.confirmFeedChanges });
+    // The boards now fed from the origin, when there are any
+    return Response.json({ effect, ...(feedChanges.length ? { feedChanges } : {}) });
+  },
 });
