@@ -202,6 +202,20 @@ async function checkFeed(
   return feed;
 }
 
+/** Feeds a board from the origin again, its history saying why (`details` beside the new feed). */
+async function feedFromOrigin(
+  actor: Actor,
+  boardId: string,
+  details: Record<string, unknown>,
+  transaction: Transaction,
+): Promise<void> {
+  await writeBoardFeed(boardId, null, transaction);
+  await auditMany(actor, [{ action: 'board.feed-changed', details: { feed: { from: 'origin' }, ...details } }], {
+    boardId,
+    transaction,
+  });
+}
+
 /**
  * After the board's own writes: writes its new feed, sends the boards that lost their feed back
  * to the origin (each history says so), and re-sizes the whole site. Answers the ripple.
@@ -222,21 +236,15 @@ export async function afterTreeWrite(
     });
   }
   for (const c of plan.detach) {
-    await writeBoardFeed(c.boardId, null, transaction);
-    await auditMany(
+    await feedFromOrigin(
       actor,
-      [
-        {
-          action: 'board.feed-changed',
-          details: {
-            feed: { from: 'origin' },
-            reason: c.reason,
-            was: fedFromWords(c.from),
-            note: `The way of ${board.name} that fed this board was removed; it is now fed from the origin.`,
-          },
-        },
-      ],
-      { boardId: c.boardId, transaction },
+      c.boardId,
+      {
+        reason: c.reason,
+        was: fedFromWords(c.from),
+        note: `The way of ${board.name} that fed this board was removed; it is now fed from the origin.`,
+      },
+      transaction,
     );
   }
   return resizeSite(actor, plan.site, transaction, {
@@ -327,43 +335,32 @@ export async function afterBoardRemoval(
 ): Promise<SiteRipple | null> {
   if (!plan.detach.length && !plan.ownFeed) return null;
   for (const c of plan.detach) {
-    await writeBoardFeed(c.boardId, null, transaction);
-    await auditMany(
+    await feedFromOrigin(
       actor,
-      [
-        {
-          action: 'board.feed-changed',
-          details: {
-            feed: { from: 'origin' },
-            reason: 'board-removed',
-            removedBoard: board.name,
-            effect,
-            was: fedFromWords(c.from),
-            note: `${board.name}, which fed this board, was ${effect}; it is now fed from the origin.`,
-          },
-        },
-      ],
-      { boardId: c.boardId, transaction },
+      c.boardId,
+      {
+        reason: 'board-removed',
+        removedBoard: board.name,
+        effect,
+        was: fedFromWords(c.from),
+        note: `${board.name}, which fed this board, was ${effect}; it is now fed from the origin.`,
+      },
+      transaction,
     );
   }
   if (plan.ownFeed) {
-    await writeBoardFeed(board.id, null, transaction);
-    await auditMany(
+    const was = fedFromWords(plan.ownFeed);
+    await feedFromOrigin(
       actor,
-      [
-        {
-          action: 'board.feed-changed',
-          details: {
-            feed: { from: 'origin' },
-            reason: 'board-removed',
-            self: true,
-            effect,
-            was: fedFromWords(plan.ownFeed),
-            note: `This board was ${effect}, so it no longer takes its supply from ${fedFromWords(plan.ownFeed)}; brought back, it is fed from the origin.`,
-          },
-        },
-      ],
-      { boardId: board.id, transaction },
+      board.id,
+      {
+        reason: 'board-removed',
+        self: true,
+        effect,
+        was,
+        note: `This board was ${effect}, so it no longer takes its supply from ${was}; brought back, it is fed from the origin.`,
+      },
+      transaction,
     );
   }
   return resizeSite(actor, plan.site, transaction, { writtenBoardId: board.id, cause: `${board.name} was ${effect}` });

@@ -23,7 +23,7 @@ import type {
   SiteTreeEdge,
 } from '@/lib/sites/tree-types';
 import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
-import { subMainLoad, wayLabels, worstVerdictOf, type SiteBoardResult, type SiteResult } from '@/lib/supply';
+import { subMainLoad, unsizedBoard, wayLabels, worstVerdictOf, type SiteResult } from '@/lib/supply';
 
 import { lockSite, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
 
@@ -228,27 +228,6 @@ export function withTreeContext<T extends { settings: BoardSettings; ways: WayIn
   };
 }
 
-/** A board the engine refused, as the pack's and diagram's board entry (no values carried). */
-function refusedBoard(b: TreeBoard, why: string): SiteBoardResult {
-  return {
-    boardId: b.id,
-    name: b.name,
-    depth: 0,
-    fedFrom: null,
-    phase: null,
-    zdb: null,
-    pfc: null,
-    vdUsed: null,
-    subMainCurrent: null,
-    selectivity: [],
-    supply: null,
-    sizedInput: null,
-    sizing: null,
-    worstVerdict: null,
-    problem: why,
-  };
-}
-
 /**
  * What the site pack prints (404 for another organisation's site): the site's name, the tree as
  * lib/supply answers it (the pack's diagram and carried values) and the boards whose schedules
@@ -273,7 +252,8 @@ export async function sitePackData(
   const results = inOrder.map((id) => {
     const s = sized.boards.get(id);
     return (
-      s?.result ?? refusedBoard(byId.get(id)!, `Cannot be sized: ${(s?.issues ?? []).map((i) => i.message).join('; ')}`)
+      s?.result ??
+      unsizedBoard(byId.get(id)!, 0, `Cannot be sized: ${(s?.issues ?? []).map((i) => i.message).join('; ')}`)
     );
   });
   const origin = rows[0].origin ?? sized.site.origin;

@@ -207,29 +207,9 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
   }
   return { siteId: input.siteId, origin, boards: out };
 
-  function empty(b: SiteBoardInput, depth: number): SiteBoardResult {
-    return {
-      boardId: b.id,
-      name: b.name,
-      depth,
-      fedFrom: null,
-      phase: null,
-      zdb: null,
-      pfc: null,
-      vdUsed: null,
-      subMainCurrent: null,
-      selectivity: [],
-      supply: null,
-      sizedInput: null,
-      sizing: null,
-      worstVerdict: null,
-      problem: null,
-    };
-  }
-
   function rootBoard(b: SiteBoardInput, site: SiteTreeInput): { result: SiteBoardResult; cold: Cold | null } {
     const o = site.origin;
-    const res = empty(b, 0);
+    const res = unsizedBoard(b, 0);
     res.zdb = {
       value: o.zeOhm,
       working: {
@@ -267,7 +247,7 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
   function childBoard(b: SiteBoardInput, parent: SiteBoardResult): { result: SiteBoardResult; cold: Cold | null } {
     if (b.feed.from !== 'way') throw new Error('unreachable');
     const feed = b.feed;
-    const res = empty(b, parent.depth + 1);
+    const res = unsizedBoard(b, parent.depth + 1);
     const parentInput = parent.sizedInput ?? tree.parsed.get(parent.boardId)!;
     const way = parentInput.ways.find((w) => w.id === feed.wayId)!;
     const spec = way.circuit!;
@@ -449,4 +429,29 @@ export function sizeSite(input: SiteTreeInput): SiteResult {
     const m = /L([123])$/.exec(tree.labels.get(boardId)?.get(wayId) ?? '');
     return m ? (`L${m[1]}` as Phase) : 'L1';
   }
+}
+
+/** A board's entry with nothing carried to it yet (or ever: `problem` says why not). */
+export function unsizedBoard(
+  b: Pick<SiteBoardInput, 'id' | 'name'>,
+  depth: number,
+  problem: string | null = null,
+): SiteBoardResult {
+  return {
+    boardId: b.id,
+    name: b.name,
+    depth,
+    fedFrom: null,
+    phase: null,
+    zdb: null,
+    pfc: null,
+    vdUsed: null,
+    subMainCurrent: null,
+    selectivity: [],
+    supply: null,
+    sizedInput: null,
+    sizing: null,
+    worstVerdict: null,
+    problem,
+  };
 }
