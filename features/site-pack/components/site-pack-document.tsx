@@ -32,19 +32,30 @@ const styles = StyleSheet.create({
   caution: { flex: 1, paddingRight: 12 },
 });
 
-/** The drawing's rows that fit on one page of the diagram, in viewBox units. */
-const PAGE_DRAWING_HEIGHT = 660;
+/** An A4 page's width inside the page's padding, in points (the drawing is scaled to it). */
+const CONTENT_WIDTH_PT = 595.28 - 2 * 36;
+/** The height left for the drawing on a page, in points: A4 less the padding, the title and a two-line subtitle. */
+const DRAWING_HEIGHT_PT = 640;
 
-/** Split the laid-out boards into pages of whole rows (a board and the sub-main above it). */
+/**
+ * The drawing's height that fits on one page, in viewBox units: the drawing is scaled to the
+ * page's width, so a narrow drawing (a shallow tree) is scaled up and fewer of its rows fit.
+ */
+export function pageDrawingHeight(layoutWidth: number): number {
+  return (DRAWING_HEIGHT_PT * layoutWidth) / CONTENT_WIDTH_PT;
+}
+
+/** Split the laid-out boards into pages of whole rows (a board and the sub-main above it), each at most `pageHeight` tall. */
 export function diagramPages(
   boards: readonly PlacedBoard[],
+  pageHeight: number,
 ): Array<{ top: number; bottom: number; boards: PlacedBoard[] }> {
   const pages: Array<{ top: number; bottom: number; boards: PlacedBoard[] }> = [];
   let current = { top: 0, bottom: DIAGRAM.margin + DIAGRAM.originHeight, boards: [] as PlacedBoard[] };
   for (const p of boards) {
     const rowTop = p.y - DIAGRAM.feedHeight;
     const rowBottom = p.y + DIAGRAM.boxHeight;
-    if (rowBottom - current.top > PAGE_DRAWING_HEIGHT && current.boards.length > 0) {
+    if (rowBottom - current.top > pageHeight && current.boards.length > 0) {
       pages.push(current);
       current = { top: rowTop, bottom: rowBottom, boards: [] };
     }
@@ -227,7 +238,7 @@ export function SitePackDocument({
   caution: string;
 }) {
   const layout = layoutSite(site);
-  const pages = diagramPages(layout.boards);
+  const pages = diagramPages(layout.boards, pageDrawingHeight(layout.width));
   const o = site.origin;
   const originWords = `${EARTHING_NAMES[o.earthing] ?? o.earthing}, Uo ${o.uoV} V, ${SUPPLY_SOURCE_NAMES[o.source].toLowerCase()}; Ze ${n(o.zeOhm, 3)} Ω, prospective fault current ${n(o.pfcKa, 2)} kA`;
   return (
@@ -244,7 +255,15 @@ export function SitePackDocument({
           ) : (
             <Text style={styles.subtitle}>{`Single-line diagram of ${siteName}, continued`}</Text>
           )}
-          <Svg viewBox={`0 ${pg.top} ${layout.width} ${pg.bottom - pg.top + 4}`} style={{ width: '100%' }}>
+          {/* Sized in points (the page's width, the height in proportion): a drawing sized by its
+              box alone collapses when it does not fit the page */}
+          <Svg
+            viewBox={`0 ${pg.top} ${layout.width} ${pg.bottom - pg.top + 4}`}
+            style={{
+              width: CONTENT_WIDTH_PT,
+              height: ((pg.bottom - pg.top + 4) * CONTENT_WIDTH_PT) / layout.width,
+            }}
+          >
             {i === 0 ? (
               <G>
                 <Rect

@@ -2,7 +2,7 @@ import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
 
 import { layoutSite } from '@/components/site-diagram/layout';
-import { diagramPages } from '@/features/site-pack/components/site-pack-document';
+import { diagramPages, pageDrawingHeight } from '@/features/site-pack/components/site-pack-document';
 import { renderSitePackPdf, sitePackFileName } from '@/features/site-pack/render-site-pack';
 import { SIZING_CAUTION } from '@/lib/sizing';
 import { sizeSite, type SiteBoardInput } from '@/lib/supply';
@@ -52,7 +52,7 @@ describe('renderSitePackPdf', () => {
       } as SiteBoardInput);
     }
     const layout = layoutSite(sizeSite(t));
-    const pages = diagramPages(layout.boards);
+    const pages = diagramPages(layout.boards, pageDrawingHeight(layout.width));
     expect(pages.length).toBeGreaterThan(1);
     expect(pages.flatMap((p) => p.boards).length).toBe(30);
     for (const p of pages) {
@@ -60,7 +60,26 @@ describe('renderSitePackPdf', () => {
         expect(b.y - 46).toBeGreaterThanOrEqual(p.top);
         expect(b.y + 92).toBeLessThanOrEqual(p.bottom);
       }
+      expect(p.bottom - p.top).toBeLessThanOrEqual(pageDrawingHeight(layout.width));
     }
     expect(sitePackFileName('  ')).toBe('site-pack-site.pdf');
   });
+
+  it('prints a site of ten boards fed from one (a shallow, narrow drawing over several pages)', async () => {
+    const t = threeLevel();
+    // Nine more boards fed from the origin: one level, so the drawing is narrow and scaled up
+    for (let i = 0; i < 9; i += 1) {
+      t.boards.push({
+        ...t.boards[2],
+        id: `d${i}`,
+        name: `Bay ${i + 1} board`,
+        feed: { from: 'origin' },
+      } as SiteBoardInput);
+    }
+    const site = sizeSite(t);
+    const { pdf } = await renderSitePackPdf(site, 'Bench site', new Date('2026-12-02T12:00:00Z'));
+    const pages = await pagesOf(pdf);
+    expect(pages.filter((p) => p.includes('Single-line diagram')).length).toBeGreaterThan(1);
+    expect(pages.join(' ')).toContain('Bay 9 board');
+  }, 60_000);
 });
