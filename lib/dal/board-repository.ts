@@ -212,9 +212,14 @@ export function sizeDesign(board: BoardSettings & { ways: readonly WayInput[] })
   try {
     return { sizing: sizeBoard(parseBoardInput(engineInputOf(board, board.ways))), issues: [] };
   } catch (err) {
-    if (!(err instanceof SizingInputError)) throw err;
-    return { sizing: null, issues: err.issues.map(({ path, message }) => ({ path: path || '(body)', message })) };
+    return { sizing: null, issues: engineIssues(err) };
   }
+}
+
+/** The engine's refusal of a board's input as field issues; any other error is thrown on. */
+export function engineIssues(err: unknown): FieldIssue[] {
+  if (!(err instanceof SizingInputError)) throw err;
+  return err.issues.map(({ path, message }) => ({ path: path || '(body)', message }));
 }
 
 /** A stored sizing: the engine's answer as JSON text (null when it refused), or its issues. */

@@ -3,7 +3,7 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { engineInputOf, type BoardFeed, type WayInput } from '@/lib/boards/schemas';
+import type { BoardFeed, WayInput } from '@/lib/boards/schemas';
 import {
   readBoardSiteId,
   readFeedingWayBoard,
@@ -14,11 +14,18 @@ import {
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, notFound, type FieldIssue } from '@/lib/errors';
 import { fedFromWords, wayName } from '@/lib/names';
-import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
+import type { FedFrom, FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { isProtectiveDevice } from '@/lib/sizing';
-import { wayLabels } from '@/lib/supply';
 
-import { feedRefusal, lockSite, lockSiteForWrite, resizeSite, type SiteLock, type TreeBoard } from './site-tree';
+import {
+  feedRefusal,
+  lockSite,
+  lockSiteForWrite,
+  resizeSite,
+  wayLabelsOf,
+  type SiteLock,
+  type TreeBoard,
+} from './site-tree';
 
 /**
  * A board's feed and the site tree around a board write (called by lib/dal/board-repository.ts
@@ -80,8 +87,6 @@ function unfitReason(way: WayInput, wayWords: string, boardName: string, phases:
   return null;
 }
 
-const labelsOf = (b: TreeBoard) => wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways });
-
 const sameFeed = (a: BoardFeed, b: BoardFeed) => JSON.stringify(a) === JSON.stringify(b);
 
 /**
@@ -112,34 +117,19 @@ export async function beforeTreeWrite(
   }
 
   // Feeding ways of this board that the write removes or makes unfit, and whom they feed
-  const detach: FeedChange[] = [];
   const removed = new Set(write.ways?.remove ?? []);
   const updated = new Map((write.ways?.update ?? []).map((w) => [w.id, w]));
-  const labels = me ? labelsOf(me) : new Map<string, string | null>();
+  const fed = boardsFedFrom(board, boards, 'way-removed');
+  const detach = fed.filter((c) => removed.has(c.from.wayId));
   const issues: FieldIssue[] = [];
-  for (const d of boards) {
-    if (d.feed.from !== 'way' || d.feed.boardId !== board.id) continue;
-    const wayId = d.feed.wayId;
-    const label = labels.get(wayId) ?? null;
-    const from = {
-      boardId: board.id,
-      boardName: board.name,
-      wayId,
-      wayLabel: label,
-      device: '',
-      cable: '',
-    };
-    if (removed.has(wayId)) {
-      detach.push({ boardId: d.id, name: d.name, from, to: 'origin', reason: 'way-removed' });
-      continue;
-    }
-    const next = updated.get(wayId);
-    if (next) {
-      const why = unfitReason(next, label ? wayName(label) : 'The way', d.name, d.phases);
-      if (why) {
-        const i = (write.ways?.update ?? []).indexOf(next);
-        issues.push({ path: `ways.${i}`, message: `${why}; link ${d.name} elsewhere first` });
-      }
+  for (const c of fed) {
+    const next = updated.get(c.from.wayId);
+    if (!next || removed.has(c.from.wayId)) continue;
+    const wayWords = c.from.wayLabel ? wayName(c.from.wayLabel) : 'The way';
+    const why = unfitReason(next, wayWords, c.name, byId.get(c.boardId)!.phases);
+    if (why) {
+      const i = (write.ways?.update ?? []).indexOf(next);
+      issues.push({ path: `ways.${i}`, message: `${why}; link ${c.name} elsewhere first` });
     }
   }
   if (issues.length) throw feedRefusal(issues);
@@ -151,6 +141,22 @@ export async function beforeTreeWrite(
     );
   }
   return { site, detach, feed };
+}
+
+/** The boards fed from a way of `parent`, each as a change of its feed back to the origin. */
+function boardsFedFrom(
+  parent: { id: string; name: string },
+  boards: readonly TreeBoard[],
+  reason: FeedChange['reason'],
+): (FeedChange & { from: FedFrom })[] {
+  const me = boards.find((b) => b.id === parent.id);
+  const labels = me ? wayLabelsOf(me) : new Map<string, string | null>();
+  return boards.flatMap((d) => {
+    if (d.feed.from !== 'way' || d.feed.boardId !== parent.id) return [];
+    const { wayId } = d.feed;
+    const from = { boardId: parent.id, boardName: parent.name, wayId, wayLabel: labels.get(wayId) ?? null };
+    return [{ boardId: d.id, name: d.name, from: { ...from, device: '', cable: '' }, to: 'origin' as const, reason }];
+  });
 }
 
 /** Checks a feed from a way: same organisation (else 404), same site, a fit way, no loop (else 422). */
@@ -187,7 +193,7 @@ async function checkFeed(
     throw feedRefusal([{ path: 'feed.boardId', message: `Boards cannot feed each other in a loop: ${names}` }], cycle);
   }
   const way = parent.ways.find((w) => w.id === feed.wayId)!;
-  const label = labelsOf(parent).get(way.id) ?? null;
+  const label = wayLabelsOf(parent).get(way.id) ?? null;
   const wayWords = `${label ? wayName(label) : 'The way'} of ${parent.name}`;
   const why = unfitReason(way, wayWords, board.name, board.phases);
   if (why) throw feedRefusal([{ path: 'feed.wayId', message: why }]);
@@ -202,19 +208,19 @@ async function checkFeed(
   return feed;
 }
 
-/** Feeds a board from the origin again, its history saying why (`details` beside the new feed). */
-async function feedFromOrigin(
+/** Writes a board's feed, its history saying so (`details`, beside the new feed, say why). */
+async function writeFeed(
   actor: Actor,
   boardId: string,
+  feed: BoardFeed,
   details: Record<string, unknown>,
   transaction: Transaction,
 ): Promise<void> {
-  await writeBoardFeed(boardId, null, transaction);
-  await auditMany(actor, [{ action: 'board.feed-changed', details: { feed: { from: 'origin' }, ...details } }], {
-    boardId,
-    transaction,
-  });
+  await writeBoardFeed(boardId, feed.from === 'way' ? feed : null, transaction);
+  await auditMany(actor, [{ action: 'board.feed-changed', details: { feed, ...details } }], { boardId, transaction });
 }
+
+const ORIGIN: BoardFeed = { from: 'origin' };
 
 /**
  * After the board's own writes: writes its new feed, sends the boards that lost their feed back
@@ -226,19 +232,12 @@ export async function afterTreeWrite(
   plan: TreeWritePlan,
   transaction: Transaction,
 ): Promise<SiteRipple> {
-  if (plan.feed) {
-    const f = plan.feed;
-    const way = f.from === 'way' ? f : null;
-    await writeBoardFeed(board.id, way, transaction);
-    await auditMany(actor, [{ action: 'board.feed-changed', details: { feed: f } }], {
-      boardId: board.id,
-      transaction,
-    });
-  }
+  if (plan.feed) await writeFeed(actor, board.id, plan.feed, {}, transaction);
   for (const c of plan.detach) {
-    await feedFromOrigin(
+    await writeFeed(
       actor,
       c.boardId,
+      ORIGIN,
       {
         reason: c.reason,
         was: fedFromWords(c.from),
@@ -289,20 +288,7 @@ export async function beforeBoardRemoval(
   const boards = await readTreeBoards(board.siteId, transaction, { stored: false });
   const byId = new Map(boards.map((b) => [b.id, b]));
   const me = byId.get(board.id);
-  const labels = me ? labelsOf(me) : new Map<string, string | null>();
-  const detach: FeedChange[] = boards
-    .filter((d) => d.id !== board.id && d.feed.from === 'way' && d.feed.boardId === board.id)
-    .map((d) => {
-      const wayId = (d.feed as Extract<BoardFeed, { from: 'way' }>).wayId;
-      const from = { boardId: board.id, boardName: board.name, wayId, wayLabel: labels.get(wayId) ?? null };
-      return {
-        boardId: d.id,
-        name: d.name,
-        from: { ...from, device: '', cable: '' },
-        to: 'origin',
-        reason: 'board-removed',
-      };
-    });
+  const detach = boardsFedFrom(board, boards, 'board-removed').filter((c) => c.boardId !== board.id);
   if (detach.length && !opts.confirmFeedChanges) {
     const names = detach.map((c) => c.name).join(', ');
     const verb = opts.effect === 'deleted' ? 'Deleting' : 'Archiving';
@@ -319,7 +305,7 @@ export async function beforeBoardRemoval(
     const parent = byId.get(me.feed.boardId);
     ownFeed = {
       boardName: parent?.name ?? 'another board',
-      wayLabel: parent ? (labelsOf(parent).get(wayId) ?? null) : null,
+      wayLabel: parent ? (wayLabelsOf(parent).get(wayId) ?? null) : null,
     };
   }
   return { site, detach, ownFeed };
@@ -335,9 +321,10 @@ export async function afterBoardRemoval(
 ): Promise<SiteRipple | null> {
   if (!plan.detach.length && !plan.ownFeed) return null;
   for (const c of plan.detach) {
-    await feedFromOrigin(
+    await writeFeed(
       actor,
       c.boardId,
+      ORIGIN,
       {
         reason: 'board-removed',
         removedBoard: board.name,
@@ -350,9 +337,10 @@ export async function afterBoardRemoval(
   }
   if (plan.ownFeed) {
     const was = fedFromWords(plan.ownFeed);
-    await feedFromOrigin(
+    await writeFeed(
       actor,
       board.id,
+      ORIGIN,
       {
         reason: 'board-removed',
         self: true,

@@ -23,9 +23,9 @@ import type {
   SiteTreeEdge,
 } from '@/lib/sites/tree-types';
 import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
-import { subMainLoad, unsizedBoard, wayLabels, worstVerdictOf, type SiteResult } from '@/lib/supply';
+import { subMainLoad, unsizedBoard, worstVerdictOf, type SiteResult } from '@/lib/supply';
 
-import { lockSite, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
+import { lockSite, originSupply, resizeSite, sizeTree, wayLabelsOf, type SizedSite, type TreeBoard } from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
 
@@ -36,9 +36,7 @@ export function treeDtoOf(
   sized: SizedSite,
 ): SiteTreeDto {
   const byId = new Map(boards.map((b) => [b.id, b]));
-  const labels = new Map(
-    boards.map((b) => [b.id, wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways })]),
-  );
+  const labels = new Map(boards.map((b) => [b.id, wayLabelsOf(b)]));
   const feeds = new Map<string, string>(); // way id → the board it feeds
   for (const b of boards) if (b.feed.from === 'way' && !sized.detached.has(b.id)) feeds.set(b.feed.wayId, b.id);
 
@@ -133,13 +131,7 @@ export async function setSiteOrigin(
   return db().transaction(async (transaction) => {
     const site = await lockSite(actor, siteId, transaction);
     if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
-    const next: SiteOrigin = {
-      earthing: origin.earthing,
-      uoV: origin.uoV,
-      zeOhm: origin.zeOhm,
-      pfcKa: origin.pfcKa,
-      source: origin.source,
-    };
+    const next = originSupply(origin);
     await db().query('UPDATE sites SET origin = $2::jsonb, updated_at = now() WHERE id = $1', {
       bind: [siteId, JSON.stringify(next)],
       transaction,

@@ -7,20 +7,13 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { engineInputOf, type BoardFeed, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
-import { readTreeBoards, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
+import { engineIssues, readTreeBoards, sizeDesign, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardStatus } from '@/lib/domain';
 import { wayName } from '@/lib/names';
 import type { DerivedSupply, RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
-import {
-  parseBoardInput,
-  sizeBoard,
-  SizingInputError,
-  type BoardResult,
-  type SupplyInput,
-  type Verdict,
-} from '@/lib/sizing';
+import { parseBoardInput, type BoardResult, type SupplyInput, type Verdict } from '@/lib/sizing';
 import {
   sizeSite,
   SiteTreeError,
@@ -149,23 +142,14 @@ export type SizedSite = {
   detached: Map<string, string>;
 };
 
-const originSupply = (o: SiteOrigin): SupplyInput => ({
+/** The origin's supply fields alone (a board's typed supply less its volt drop used). */
+export const originSupply = (o: SiteOrigin): SupplyInput => ({
   earthing: o.earthing,
   uoV: o.uoV,
   zeOhm: o.zeOhm,
   pfcKa: o.pfcKa,
   source: o.source,
 });
-
-/** A board sized alone with the given supply (its typed one, or a fallback), or its issues. */
-function sizeAlone(b: TreeBoard, supply: SupplyInput): { sizing: BoardResult | null; issues: FieldIssue[] } {
-  try {
-    return { sizing: sizeBoard(parseBoardInput(engineInputOf({ ...b, supply }, b.ways))), issues: [] };
-  } catch (err) {
-    if (!(err instanceof SizingInputError)) throw err;
-    return { sizing: null, issues: err.issues.map(({ path, message }) => ({ path: path || '(body)', message })) };
-  }
-}
 
 /** The tree issues (lib/supply validateTree) that name a board's feed: board index → message. */
 function feedIssues(err: SiteTreeError): Map<number, string> {
@@ -195,9 +179,7 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
       parseBoardInput(engineInputOf({ ...b, supply: origin ? originSupply(origin) : b.supply }, b.ways));
       inTree.add(b.id);
     } catch (err) {
-      if (!(err instanceof SizingInputError)) throw err;
-      const issues = err.issues.map(({ path, message }) => ({ path: path || '(body)', message }));
-      out.set(b.id, { sizing: null, issues, carried: null, result: null });
+      out.set(b.id, { sizing: null, issues: engineIssues(err), carried: null, result: null });
     }
   }
   // Feeds from a board outside the tree are cut
@@ -235,18 +217,14 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
         for (const c of below.get(id) ?? []) visit(c);
       };
       visit(r.id);
-      const s = r.supply;
-      groups.push({
-        origin: { earthing: s.earthing, uoV: s.uoV, zeOhm: s.zeOhm, pfcKa: s.pfcKa, source: s.source },
-        ids,
-      });
+      groups.push({ origin: originSupply(r.supply), ids });
     }
     // Boards in a loop (never reached from a root): cut
     for (const b of boards) {
       if (inTree.has(b.id) && !seen.has(b.id)) {
         detached.set(b.id, `${b.name} is fed in a loop of boards.`);
         feedOf.set(b.id, { from: 'origin' });
-        groups.push({ origin: { ...originSupply(b.supply) }, ids: [b.id] });
+        groups.push({ origin: originSupply(b.supply), ids: [b.id] });
       }
     }
   }
@@ -288,7 +266,7 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
     let issues: FieldIssue[] = [];
     if (!sizing || detached.has(b.id)) {
       // Nothing could be carried to it: sized with the origin's or its typed supply, saying why
-      ({ sizing, issues } = sizeAlone(b, origin ? originSupply(origin) : b.supply));
+      ({ sizing, issues } = sizeDesign({ ...b, supply: origin ? originSupply(origin) : b.supply }));
     }
     const fromWay = b.feed.from === 'way';
     const carried: DerivedSupply | null =
@@ -310,6 +288,9 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
   }
   return { boards: out, site: { siteId, origin: origin ?? groups[0]?.origin ?? null!, boards: all }, detached };
 }
+
+/** A board's way labels ("3L2"), by way id. */
+export const wayLabelsOf = (b: TreeBoard) => wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways });
 
 /** The verdict of each way of a sizing, by way id. */
 function verdicts(sizing: BoardResult | null): Map<string, Verdict> {
@@ -366,7 +347,7 @@ export async function resizeSite(
     });
     const before = verdicts(b.stored?.sizing ?? null);
     const after = verdicts(s.sizing);
-    const labels = wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways });
+    const labels = wayLabelsOf(b);
     const changedWays = [...new Set([...before.keys(), ...after.keys()])]
       .filter((id) => before.get(id) !== after.get(id))
       .map((wayId) => ({

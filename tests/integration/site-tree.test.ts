@@ -293,6 +293,26 @@ describe('the site tree through its routes', () => {
     const events = await AuditEvent.findAll({ where: { boardId: t.id('fin'), action: 'board.feed-changed' } });
     expect(events.map((e) => (e.details as { reason?: string }).reason)).toContain('way-removed');
   });
+
+  it('refuses (422 naming the way) a save that makes a feeding way unfit to feed its board', async () => {
+    signInAs(team.users.designer);
+    const { t } = await linkedTwoLevel();
+    const body = saveBody(await getBoard(t.id('db1')));
+    const i = body.ways.findIndex((w) => w.id === t.id('w-sub'));
+    const way = body.ways[i];
+    body.ways[i] = { ...way, circuit: { ...way.circuit!, use: 'fixed' } };
+    const refused = await call<{ issues: { path: string; message: string }[] }>(
+      boardRoute.PUT(jsonRequest('PUT', body), ctx({ boardId: t.id('db1') })),
+      422,
+    );
+    expect(refused.issues).toEqual([
+      {
+        path: expect.stringMatching(/^ways\.\d+$/),
+        message: expect.stringMatching(/set its use to distribution.*link Finishing room board elsewhere first$/),
+      },
+    ]);
+    expect((await getBoard(t.id('fin'))).feed).toMatchObject({ from: 'way', wayId: t.id('w-sub') });
+  });
 });
 
 async function getStoredSizing(boardId: string) {
