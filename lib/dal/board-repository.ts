@@ -45,20 +45,24 @@ const FEED_JSON = `CASE WHEN b.fed_from_way_id IS NULL THEN json_build_object('f
     'amps', b.sub_main_design_current_a::float8, 'reason', b.sub_main_design_current_reason) END,
   'upstreamRcdTimeDelayed', b.upstream_rcd_time_delayed) END`;
 
+/** The settings, status and version of boards row `b` (json_build_object's arguments). */
+const SETTINGS_JSON = `'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
+  'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails,
+  'dwelling', b.dwelling, 'conditionalRatingKa', b.conditional_rating_ka, 'status', b.status, 'version', b.version`;
+
+/** The ways of boards row `b` in rail order, their design fields and `more` (json_build_object's arguments). */
+const waysJson = (more = '') => `COALESCE((
+    SELECT json_agg(json_build_object(
+      'id', w.id, 'rail', w.rail, 'position', w.position, 'device', w.device, 'circuit', w.circuit${more}
+    ) ORDER BY w.rail, w.position)
+    FROM ways w WHERE w.board_id = b.id
+  ), '[]'::json)`;
+
 /** The board DTO of boards row `b`, its site's name and its ways in rail order, as JSON text. */
 const BOARD_DTO_JSON = `json_build_object(
   'id', b.id, 'siteId', b.site_id, 'siteName', (SELECT s.name FROM sites s WHERE s.id = b.site_id),
-  'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
-  'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails,
-  'dwelling', b.dwelling, 'conditionalRatingKa', b.conditional_rating_ka, 'status', b.status,
-  'version', b.version, 'revision', b.revision, 'updatedAt', ${isoSql('b.updated_at')},
-  'ways', COALESCE((
-    SELECT json_agg(json_build_object(
-      'id', w.id, 'rail', w.rail, 'position', w.position, 'device', w.device,
-      'circuit', w.circuit, 'labelStatus', w.label_status, 'labelNote', w.label_note
-    ) ORDER BY w.rail, w.position)
-    FROM ways w WHERE w.board_id = b.id
-  ), '[]'::json),
+  ${SETTINGS_JSON}, 'revision', b.revision, 'updatedAt', ${isoSql('b.updated_at')},
+  'ways', ${waysJson(`, 'labelStatus', w.label_status, 'labelNote', w.label_note`)},
   'feed', ${FEED_JSON}, 'derivedSupply', (SELECT bs.carried FROM board_sizings bs WHERE bs.board_id = b.id)
 )::text`;
 
@@ -501,18 +505,8 @@ export async function readTreeBoards(
   const stored = opts.stored ?? true;
   const rows = await select<{ j: string }>(
     `SELECT json_build_object(
-       'id', b.id, 'name', b.name, 'location', b.location, 'phases', b.phases, 'supply', b.supply,
-       'incoming', b.incoming, 'enclosureModules', b.enclosure_modules, 'rails', b.rails, 'dwelling', b.dwelling,
-       'conditionalRatingKa', b.conditional_rating_ka, 'status', b.status, 'version', b.version,
-       'archived', b.archived_at IS NOT NULL,
-       'feed', CASE WHEN fw.id IS NULL THEN json_build_object('from', 'origin') ELSE json_build_object(
-         'from', 'way', 'boardId', fw.board_id, 'wayId', fw.id,
-         'designCurrentOverride', CASE WHEN b.sub_main_design_current_a IS NULL THEN NULL ELSE json_build_object(
-           'amps', b.sub_main_design_current_a::float8, 'reason', b.sub_main_design_current_reason) END,
-         'upstreamRcdTimeDelayed', b.upstream_rcd_time_delayed) END,
-       'ways', COALESCE((SELECT json_agg(json_build_object('id', w.id, 'rail', w.rail, 'position', w.position,
-           'device', w.device, 'circuit', w.circuit) ORDER BY w.rail, w.position)
-         FROM ways w WHERE w.board_id = b.id), '[]'::json),
+       'id', b.id, ${SETTINGS_JSON}, 'archived', b.archived_at IS NOT NULL,
+       'feed', ${FEED_JSON}, 'ways', ${waysJson()},
        'stored', ${
          stored
            ? `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
@@ -520,7 +514,7 @@ export async function readTreeBoards(
            : 'NULL'
        }
      )::text AS j
-     FROM boards b LEFT JOIN ways fw ON fw.id = b.fed_from_way_id
+     FROM boards b
      WHERE b.site_id = $1 AND b.deleted_at IS NULL ${opts.only ? 'AND b.id = $2' : ''}
      ORDER BY b.created_at, b.id`,
     opts.only ? [siteId, opts.only] : [siteId],
