@@ -40,13 +40,9 @@ export function treeDtoOf(
   const feeds = new Map<string, string>(); // way id → the board it feeds
   for (const b of boards) if (b.feed.from === 'way' && !sized.detached.has(b.id)) feeds.set(b.feed.wayId, b.id);
 
-  const order = [
-    ...sized.site.boards.map((r) => r.boardId),
-    ...boards.filter((b) => !sized.site.boards.some((r) => r.boardId === b.id)).map((b) => b.id),
-  ];
   const out: SiteTreeBoard[] = [];
   const edges: SiteTreeEdge[] = [];
-  for (const id of order) {
+  for (const id of treeOrder(boards, sized)) {
     const b = byId.get(id)!;
     const s = sized.boards.get(id);
     const r = s?.result ?? null;
@@ -107,14 +103,25 @@ export function treeDtoOf(
   };
 }
 
-/** The caller's organisation's site's supply tree (404 otherwise), every board sized in it. */
-export async function getSiteTree(actor: Actor, siteId: string): Promise<SiteTreeDto> {
+/** The boards' ids in tree order: those sizeSite placed (parents first), then the others as read. */
+function treeOrder(boards: readonly TreeBoard[], sized: SizedSite): string[] {
+  const placed = sized.site.boards.map((r) => r.boardId);
+  return [...placed, ...boards.map((b) => b.id).filter((id) => !placed.includes(id))];
+}
+
+/** The caller's organisation's site row (404 otherwise). */
+async function readSite(actor: Actor, siteId: string) {
   const rows = await db().query<{ id: string; name: string; origin: SiteOrigin | null; tree_version: number }>(
     'SELECT id, name, origin, tree_version FROM sites WHERE id = $1 AND organisation_id = $2',
     { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT },
   );
   if (!rows.length) throw notFound('The site');
-  const site = { ...rows[0], treeVersion: rows[0].tree_version };
+  return { ...rows[0], treeVersion: rows[0].tree_version };
+}
+
+/** The caller's organisation's site's supply tree (404 otherwise), every board sized in it. */
+export async function getSiteTree(actor: Actor, siteId: string): Promise<SiteTreeDto> {
+  const site = await readSite(actor, siteId);
   const boards = await readTreeBoards(siteId, undefined, { stored: false });
   return treeDtoOf(site, boards, sizeTree(siteId, site.origin, boards));
 }
@@ -229,17 +236,10 @@ export async function sitePackData(
   actor: Actor,
   siteId: string,
 ): Promise<{ siteName: string; site: SiteResult; boardIds: string[] }> {
-  const rows = await db().query<{ name: string; origin: SiteOrigin | null }>(
-    'SELECT name, origin FROM sites WHERE id = $1 AND organisation_id = $2',
-    { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT },
-  );
-  if (!rows.length) throw notFound('The site');
+  const site = await readSite(actor, siteId);
   const boards = (await readTreeBoards(siteId, undefined, { stored: false })).filter((b) => !b.archived);
-  const sized = sizeTree(siteId, rows[0].origin, boards);
-  const inOrder = [
-    ...sized.site.boards.map((r) => r.boardId),
-    ...boards.map((b) => b.id).filter((id) => !sized.site.boards.some((r) => r.boardId === id)),
-  ];
+  const sized = sizeTree(siteId, site.origin, boards);
+  const inOrder = treeOrder(boards, sized);
   const byId = new Map(boards.map((b) => [b.id, b]));
   const results = inOrder.map((id) => {
     const s = sized.boards.get(id);
@@ -248,6 +248,6 @@ export async function sitePackData(
       unsizedBoard(byId.get(id)!, 0, `Cannot be sized: ${(s?.issues ?? []).map((i) => i.message).join('; ')}`)
     );
   });
-  const origin = rows[0].origin ?? sized.site.origin;
-  return { siteName: rows[0].name, site: { siteId, origin, boards: results }, boardIds: inOrder };
+  const origin = site.origin ?? sized.site.origin;
+  return { siteName: site.name, site: { siteId, origin, boards: results }, boardIds: inOrder };
 }
