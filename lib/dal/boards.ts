@@ -31,12 +31,11 @@ import {
   afterBoardRemoval,
   afterBoardReturn,
   beforeBoardRemoval,
-  beforeBoardReturn,
   lockSiteOfBoard,
   type RemovalPlan,
   type TreeWriteRequest,
 } from '@/lib/dal/site-feed';
-import type { SiteLock } from '@/lib/dal/site-tree';
+import { lockSite, type SiteLock } from '@/lib/dal/site-tree';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
 import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
@@ -184,8 +183,9 @@ function comingBack(actor: Actor) {
   let site: SiteLock | null = null;
   return {
     tree: true,
+    // The site locked for a tree write (`changeBoard` took that lock: this is the row as locked)
     plan: async (board: BoardRecord, transaction: Transaction) => {
-      site = await beforeBoardReturn(actor, board, transaction);
+      site = await lockSite(actor, board.siteId, transaction, 'update');
     },
     after: async (board: BoardRecord, _written: BoardDto, transaction: Transaction) => {
       if (site) await afterBoardReturn(actor, board, site, transaction);

@@ -355,18 +355,6 @@ export async function afterBoardRemoval(
 }
 
 /**
- * Before a deleted or archived board comes back: the site locked for a tree write (the board
- * rejoins the tree, at the origin).
- */
-export async function beforeBoardReturn(
-  actor: Actor,
-  board: { siteId: string },
-  transaction: Transaction,
-): Promise<SiteLock> {
-  return lockSite(actor, board.siteId, transaction, 'update');
-}
-
-/**
  * After a deleted or archived board came back: when the site is a tree (an origin, or boards
  * fed from ways), the site is re-sized so that the board is sized against the origin now, not
  * with what was carried to it before it left.
