@@ -2,6 +2,7 @@ import { useId, type KeyboardEvent, type MouseEvent } from 'react';
 
 import { VERDICT_LOOKS } from '@/components/sizing/verdict-badge';
 import { EARTHING_NAMES, fedFromWords, SUPPLY_SOURCE_NAMES, VERDICT_WORDS } from '@/lib/names';
+import { amps, ka, ohm, pct } from '@/lib/sites/supply-words';
 import type { BoardSummary } from '@/lib/sizing';
 import type { SiteBoardResult, SiteOrigin } from '@/lib/supply';
 
@@ -29,11 +30,6 @@ type SiteDiagramProps = {
   onOpenBoard?: (boardId: string) => void;
   className?: string;
 };
-
-const ohm = (x: number) => `${x.toFixed(3)} Ω`;
-const ka = (x: number) => `${x.toFixed(2)} kA`;
-const pct = (x: number) => `${x.toFixed(2)} %`;
-const amps = (x: number) => `${x.toFixed(1)} A`;
 
 /** The carried values of a board in one sentence, for its accessible name and the list below. */
 export function boardSummaryWords(b: DiagramBoard): string {

@@ -10,8 +10,11 @@ import { fedFromWords } from '@/lib/names';
 
 import type { DerivedSupply } from './tree-types';
 
-const ohm = (x: number) => `${x.toFixed(3)} Ω`;
-const ka = (x: number) => `${x.toFixed(2)} kA`;
+/** Carried values in words, at the same precision on every screen and print that states them. */
+export const ohm = (x: number) => `${x.toFixed(3)} Ω`;
+export const ka = (x: number) => `${x.toFixed(2)} kA`;
+export const pct = (x: number) => `${x.toFixed(2)} %`;
+export const amps = (x: number) => `${x.toFixed(1)} A`;
 
 export type SupplyWords = {
   supply: SupplyInput;

@@ -14,6 +14,7 @@ import type { AuditPage } from '@/lib/audit-types';
 import type { BoardDto } from '@/lib/boards/schemas';
 import type { Verdict } from '@/lib/sizing';
 import { EARTHING_NAMES, fedFromWords, plural } from '@/lib/names';
+import { amps, ka, ohm, pct } from '@/lib/sites/supply-words';
 import type { CarriedValue, DerivedSupply as Derived, SiteTreeDto } from '@/lib/sites/tree-types';
 
 type DerivedSupplyProps = {
@@ -72,11 +73,6 @@ function derivedOf(tree: SiteTreeDto | undefined, boardId: string): Derived | nu
     treeVersion: tree.treeVersion,
   };
 }
-
-const ohm = (x: number) => `${x.toFixed(3)} Ω`;
-const ka = (x: number) => `${x.toFixed(2)} kA`;
-const pct = (x: number) => `${x.toFixed(2)} %`;
-const amps = (x: number) => `${x.toFixed(1)} A`;
 
 /**
  * Where the board's supply comes from, shown on the editor: fed from the site's origin, or

@@ -28,6 +28,7 @@ import {
 } from '@/components/site-diagram/tree-model';
 import { cn } from '@/lib/cn';
 import { fedFromWords } from '@/lib/names';
+import { ka, ohm, pct } from '@/lib/sites/supply-words';
 import type { SiteTreeBoard } from '@/lib/sites/tree-types';
 
 type BoardFeedsProps = {
@@ -50,10 +51,6 @@ function feedOfTarget(id: string): FeedChoice | null {
   const [, boardId, wayId] = id.split(':');
   return feedOfKey(`${boardId}:${wayId}`);
 }
-
-const ohm = (x: number) => `${x.toFixed(3)} Ω`;
-const ka = (x: number) => `${x.toFixed(2)} kA`;
-const pct = (x: number) => `${x.toFixed(2)} %`;
 
 /**
  * The site's boards as a stacked list in tree order (each indented below the board that feeds
