@@ -161,24 +161,19 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
         </div>
       ) : null}
       {canEdit && tree.data ? (
-        <div className="mt-3 flex flex-col gap-1">
-          <label htmlFor={selectId} className="text-xs font-medium text-ink">
-            Fed from
-          </label>
-          <FeedSelect
-            id={selectId}
-            boards={boards}
-            boardId={board.id}
-            value={board.feed}
-            disabled={setFeed.isPending}
-            onChange={(key) => {
-              const feed = feedOfKey(key);
-              if (sameFeed(feed, board.feed)) return;
-              setFeed.reset();
-              setPending(feed);
-            }}
-          />
-        </div>
+        <FeedSelect
+          id={selectId}
+          boards={boards}
+          boardId={board.id}
+          value={board.feed}
+          disabled={setFeed.isPending}
+          onChange={(key) => {
+            const feed = feedOfKey(key);
+            if (sameFeed(feed, board.feed)) return;
+            setFeed.reset();
+            setPending(feed);
+          }}
+        />
       ) : null}
       {pending ? (
         <ConfirmDialog

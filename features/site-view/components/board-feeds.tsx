@@ -197,19 +197,14 @@ function BoardCard({
         </div>
       </div>
       {canLink ? (
-        <div className="mt-3 flex flex-col gap-1">
-          <label htmlFor={selectId} className="text-xs font-medium text-ink">
-            Fed from
-          </label>
-          <FeedSelect
-            id={selectId}
-            boards={boards}
-            boardId={board.boardId}
-            value={board.feed}
-            disabled={busy}
-            onChange={(key) => onPick(board.boardId, feedOfKey(key))}
-          />
-        </div>
+        <FeedSelect
+          id={selectId}
+          boards={boards}
+          boardId={board.boardId}
+          value={board.feed}
+          disabled={busy}
+          onChange={(key) => onPick(board.boardId, feedOfKey(key))}
+        />
       ) : (
         <p className="mt-2 text-xs text-ink-soft">Fed from {fedFromWords(result.fedFrom ?? null)}</p>
       )}
