@@ -107,13 +107,30 @@ function keptFor(state: State, ways: EditorWay[]): Record<string, unknown> {
   );
 }
 
+const present = (state: State): DraftSnapshot => ({ settings: state.settings!, ways: state.ways });
+
+/** The part of the state undo or redo sets: the draft at `to`, the history as given, the selection kept where it can. */
+function travel(state: State, to: DraftSnapshot, past: DraftSnapshot[], future: DraftSnapshot[]): Partial<State> {
+  const ids = new Set(to.ways.map((w) => w.id));
+  return {
+    settings: to.settings,
+    ways: to.ways,
+    past,
+    future,
+    lastKey: null,
+    editSeq: state.editSeq + 1,
+    unfinished: keptFor(state, to.ways),
+    dirty: !isSaved(state.saved, to.settings, to.ways),
+    selection: state.selection.filter((id) => ids.has(id)),
+  };
+}
+
 /** The part of the state a change sets: a new snapshot, one undo step (or merged), dirty. */
 function commit(state: State, next: Partial<DraftSnapshot>, key: string | null = null): Partial<State> {
   const settings = next.settings ?? state.settings;
   const ways = next.ways ?? state.ways;
   const merge = key !== null && key === state.lastKey && state.past.length > 0;
-  const current = { settings: state.settings!, ways: state.ways };
-  const past = merge ? state.past : [...state.past, current].slice(-UNDO_LIMIT);
+  const past = merge ? state.past : [...state.past, present(state)].slice(-UNDO_LIMIT);
   return {
     settings,
     ways,
@@ -248,38 +265,14 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     const state = get();
     const previous = state.past[state.past.length - 1];
     if (!previous) return;
-    const present = { settings: state.settings!, ways: state.ways };
-    const ids = new Set(previous.ways.map((w) => w.id));
-    set({
-      settings: previous.settings,
-      ways: previous.ways,
-      past: state.past.slice(0, -1),
-      future: [present, ...state.future],
-      lastKey: null,
-      editSeq: state.editSeq + 1,
-      unfinished: keptFor(state, previous.ways),
-      dirty: !isSaved(state.saved, previous.settings, previous.ways),
-      selection: state.selection.filter((id) => ids.has(id)),
-    });
+    set(travel(state, previous, state.past.slice(0, -1), [present(state), ...state.future]));
   },
 
   redo: () => {
     const state = get();
     const next = state.future[0];
     if (!next) return;
-    const present = { settings: state.settings!, ways: state.ways };
-    const ids = new Set(next.ways.map((w) => w.id));
-    set({
-      settings: next.settings,
-      ways: next.ways,
-      past: [...state.past, present].slice(-UNDO_LIMIT),
-      future: state.future.slice(1),
-      lastKey: null,
-      editSeq: state.editSeq + 1,
-      unfinished: keptFor(state, next.ways),
-      dirty: !isSaved(state.saved, next.settings, next.ways),
-      selection: state.selection.filter((id) => ids.has(id)),
-    });
+    set(travel(state, next, [...state.past, present(state)].slice(-UNDO_LIMIT), state.future.slice(1)));
   },
 
   markSaved: (version, snapshot, status) => {
@@ -304,8 +297,3 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
   // The edit sequence carries on: a sizing kept for an earlier opening never passes for this one
   reset: () => set({ ...initial, editSeq: get().editSeq }),
 }));
-
-/** The open draft as a snapshot (for saving and sizing). */
-export function draftSnapshot(state: Pick<State, 'settings' | 'ways'>): DraftSnapshot | null {
-  return state.settings ? { settings: state.settings, ways: state.ways } : null;
-}
