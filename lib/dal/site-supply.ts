@@ -111,12 +111,12 @@ function treeOrder(boards: readonly TreeBoard[], sized: SizedSite): string[] {
 
 /** The caller's organisation's site row (404 otherwise). */
 async function readSite(actor: Actor, siteId: string) {
-  const rows = await db().query<{ id: string; name: string; origin: SiteOrigin | null; tree_version: number }>(
-    'SELECT id, name, origin, tree_version FROM sites WHERE id = $1 AND organisation_id = $2',
+  const rows = await db().query<{ id: string; name: string; origin: SiteOrigin | null; treeVersion: number }>(
+    'SELECT id, name, origin, tree_version AS "treeVersion" FROM sites WHERE id = $1 AND organisation_id = $2',
     { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT },
   );
   if (!rows.length) throw notFound('The site');
-  return { ...rows[0], treeVersion: rows[0].tree_version };
+  return rows[0];
 }
 
 /** The caller's organisation's site's supply tree (404 otherwise), every board sized in it. */

@@ -71,27 +71,13 @@ export async function lockSite(
   const prior = heldSiteLock(transaction, siteId);
   if (prior && (prior.mode === 'update' || mode === 'share')) return prior;
   if (prior) throw conflict('The site’s supply tree changed while this was being saved; save again.');
-  const rows = await db().query<{
-    id: string;
-    name: string;
-    origin: SiteOrigin | null;
-    tree_version: number;
-    archived: boolean;
-  }>(
-    `SELECT id, name, origin, tree_version, archived_at IS NOT NULL AS archived FROM sites
+  const rows = await db().query<Omit<SiteLock, 'mode'>>(
+    `SELECT id, name, origin, tree_version AS "treeVersion", archived_at IS NOT NULL AS archived FROM sites
      WHERE id = $1 AND organisation_id = $2 ${mode === 'update' ? 'FOR UPDATE' : 'FOR SHARE'}`,
     { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT, transaction },
   );
   if (!rows.length) throw notFound('The site');
-  const r = rows[0];
-  const lock: SiteLock = {
-    id: r.id,
-    name: r.name,
-    origin: r.origin,
-    treeVersion: r.tree_version,
-    archived: r.archived,
-    mode,
-  };
+  const lock: SiteLock = { ...rows[0], mode };
   if (!held.has(transaction)) held.set(transaction, new Map());
   held.get(transaction)!.set(siteId, lock);
   return lock;
@@ -231,7 +217,7 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
 
   const all: SiteBoardResult[] = [];
   for (const g of groups) {
-    let members = g.ids.map((id) => byId.get(id)!);
+    const members = g.ids.map((id) => byId.get(id)!);
     // A feed the tree refuses (a way no longer fit to feed, a loop) is cut, and the rest sized
     for (let attempt = 0; attempt <= members.length; attempt++) {
       const input: SiteBoardInput[] = members.map((b) => ({
@@ -254,7 +240,6 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
           detached.set(b.id, message);
           feedOf.set(b.id, { from: 'origin' });
         }
-        members = [...members];
       }
     }
   }
