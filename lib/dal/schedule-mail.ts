@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
@@ -29,28 +29,37 @@ export async function emailSchedule(
     senderName: actor.name,
     message: input.message,
   });
-  return db().transaction(async (transaction) => {
-    const id = await enqueueMail(
-      {
-        organisationId: actor.organisationId,
-        to: input.to,
-        ...content,
-        attachments: [
-          {
-            filename: input.fileName,
-            contentType: 'application/pdf',
-            contentBase64: Buffer.from(input.pdf).toString('base64'),
-          },
-        ],
-      },
-      transaction,
-    );
-    await audit(
+  return queuePdfMail(actor, { ...input, ...content }, (mailId, transaction) =>
+    audit(
       actor,
       'schedule.emailed',
-      { mailId: id, to: input.to, revision: source.revision },
+      { mailId, to: input.to, revision: source.revision },
       { boardId: source.boardId, transaction },
+    ),
+  );
+}
+
+/**
+ * Queues a PDF to an address through the outbox (stored in the transaction, then sent and
+ * retried) and records it in the trail (`record`, given the mail's id) in the same transaction.
+ */
+export async function queuePdfMail(
+  actor: Actor,
+  mail: { to: string; subject: string; text: string; pdf: Uint8Array; fileName: string },
+  record: (mailId: string, transaction: Transaction) => Promise<unknown>,
+): Promise<{ id: string; status: 'queued' }> {
+  const { pdf, fileName, to, subject, text } = mail;
+  const attachment = {
+    filename: fileName,
+    contentType: 'application/pdf',
+    contentBase64: Buffer.from(pdf).toString('base64'),
+  };
+  return db().transaction(async (transaction) => {
+    const id = await enqueueMail(
+      { organisationId: actor.organisationId, to, subject, text, attachments: [attachment] },
+      transaction,
     );
+    await record(id, transaction);
     return { id, status: 'queued' as const };
   });
 }

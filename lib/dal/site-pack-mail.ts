@@ -1,15 +1,11 @@
 import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
-import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { enqueueMail } from '@/lib/mail/outbox';
+import { queuePdfMail } from '@/lib/dal/schedule-mail';
 import { SIZING_CAUTION } from '@/lib/sizing';
 
-/**
- * Sends a site pack through the outbox, like a board schedule (stored in the transaction,
- * then sent and retried), and records it in the organisation's trail.
- */
+/** Sends a site pack through the outbox, like a board schedule, and records it in the organisation's trail. */
 export async function emailSitePack(
   actor: Actor,
   site: { id: string; name: string; boardCount: number },
@@ -24,24 +20,7 @@ export async function emailSitePack(
     '',
     SIZING_CAUTION,
   ].join('\n');
-  return db().transaction(async (transaction) => {
-    const id = await enqueueMail(
-      {
-        organisationId: actor.organisationId,
-        to: input.to,
-        subject,
-        text,
-        attachments: [
-          {
-            filename: input.fileName,
-            contentType: 'application/pdf',
-            contentBase64: Buffer.from(input.pdf).toString('base64'),
-          },
-        ],
-      },
-      transaction,
-    );
-    await audit(actor, 'site.pack-emailed', { siteId: site.id, mailId: id, to: input.to }, { transaction });
-    return { id, status: 'queued' as const };
-  });
+  return queuePdfMail(actor, { ...input, subject, text }, (mailId, transaction) =>
+    audit(actor, 'site.pack-emailed', { siteId: site.id, mailId, to: input.to }, { transaction }),
+  );
 }
