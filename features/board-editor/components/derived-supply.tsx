@@ -239,26 +239,16 @@ function SupplyWords({ derived, typed }: { derived: Derived | null; typed: Board
 }
 
 function CarriedValues({ derived }: { derived: Derived }) {
-  const values: { key: string; name: string; words: string; value: CarriedValue | null }[] = [
-    { key: 'zdb', name: 'Zdb', words: derived.zdb ? ohm(derived.zdb.value) : '–', value: derived.zdb },
-    { key: 'pfc', name: 'PFC', words: derived.pfc ? ka(derived.pfc.value) : '–', value: derived.pfc },
-    {
-      key: 'vd',
-      name: 'Volt drop used above',
-      words: derived.vdUsed ? pct(derived.vdUsed.value) : '–',
-      value: derived.vdUsed,
-    },
-    {
-      key: 'ib',
-      name: 'Sub-main design current',
-      words: derived.subMainCurrent ? amps(derived.subMainCurrent.value) : '–',
-      value: derived.subMainCurrent,
-    },
+  const values: { key: string; name: string; unit: (x: number) => string; value: CarriedValue | null }[] = [
+    { key: 'zdb', name: 'Zdb', unit: ohm, value: derived.zdb },
+    { key: 'pfc', name: 'PFC', unit: ka, value: derived.pfc },
+    { key: 'vd', name: 'Volt drop used above', unit: pct, value: derived.vdUsed },
+    { key: 'ib', name: 'Sub-main design current', unit: amps, value: derived.subMainCurrent },
   ];
   return (
     <dl className="mt-3 grid grid-cols-2 gap-2 sm:grid-cols-4" aria-label="Values carried down to this board (derived)">
       {values.map((v) => (
-        <CarriedStat key={v.key} name={v.name} words={v.words} value={v.value} />
+        <CarriedStat key={v.key} name={v.name} words={v.value ? v.unit(v.value.value) : '–'} value={v.value} />
       ))}
     </dl>
   );
