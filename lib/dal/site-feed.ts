@@ -11,7 +11,7 @@ import {
   siteIsTree,
   writeBoardFeed,
 } from '@/lib/dal/board-repository';
-import { auditMany } from '@/lib/dal/audit';
+import { audit } from '@/lib/dal/audit';
 import { conflict, notFound, type FieldIssue } from '@/lib/errors';
 import { fedFromWords, wayName } from '@/lib/names';
 import type { FedFrom, FeedChange, SiteRipple } from '@/lib/sites/tree-types';
@@ -217,7 +217,7 @@ async function writeFeed(
   transaction: Transaction,
 ): Promise<void> {
   await writeBoardFeed(boardId, feed.from === 'way' ? feed : null, transaction);
-  await auditMany(actor, [{ action: 'board.feed-changed', details: { feed, ...details } }], { boardId, transaction });
+  await audit(actor, 'board.feed-changed', { feed, ...details }, { boardId, transaction });
 }
 
 const ORIGIN: BoardFeed = { from: 'origin' };

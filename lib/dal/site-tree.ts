@@ -8,7 +8,7 @@ import type { Actor } from '@/lib/auth/session';
 import { engineInputOf, type BoardFeed, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { engineIssues, readTreeBoards, sizeDesign, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
-import { auditMany } from '@/lib/dal/audit';
+import { audit } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardStatus } from '@/lib/domain';
 import { wayName } from '@/lib/names';
@@ -368,25 +368,14 @@ export async function resizeSite(
   // Each board below whose supply or verdicts changed: its history says so
   for (const r of ripple) {
     if (r.boardId === opts.writtenBoardId) continue;
-    await auditMany(
-      actor,
-      [
-        {
-          action: 'board.supply-changed',
-          details: {
-            cause: opts.cause ?? 'A change upstream',
-            supplyChanged: r.supplyChanged,
-            ways: r.changedWays.map((w) => ({
-              wayId: w.wayId,
-              way: w.wayLabel ? wayName(w.wayLabel) : null,
-              before: w.before,
-              after: w.after,
-            })),
-          },
-        },
-      ],
-      { boardId: r.boardId, transaction },
-    );
+    const ways = r.changedWays.map(({ wayId, wayLabel, before, after }) => ({
+      wayId,
+      way: wayLabel ? wayName(wayLabel) : null,
+      before,
+      after,
+    }));
+    const details = { cause: opts.cause ?? 'A change upstream', supplyChanged: r.supplyChanged, ways };
+    await audit(actor, 'board.supply-changed', details, { boardId: r.boardId, transaction });
   }
   return { siteId: site.id, treeVersion, boards: ripple };
 }
