@@ -8,8 +8,7 @@ import { issueRefusal, sameName, type Refusal } from '@/lib/boards/record-rules'
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
-import { sizeSnapshot } from '@/lib/dal/board-sizing';
-import { writeBoard, type BoardRecord } from '@/lib/dal/board-repository';
+import { sizeDesign, writeBoard, type BoardRecord } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices, revisionComments } from '@/lib/dal/notices';
 import { nextRevision } from '@/lib/dal/revisions';
@@ -61,7 +60,7 @@ export async function approveBoard(
     }
     // Freeze the board and size it
     const snapshot = await liveSnapshot(actor, board, transaction);
-    const { sizing, issues } = sizeSnapshot(snapshot);
+    const { sizing, issues } = sizeDesign({ ...snapshot.settings, ways: snapshot.ways });
     if (!sizing) throw unprocessable('The board cannot be sized, so it cannot be issued.', { issues });
     if (sizing.summary.counts.fails > 0 && !input.acknowledgeFailures) {
       throw unprocessable(

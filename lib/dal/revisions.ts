@@ -5,8 +5,7 @@ import type { Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { diffRevisions, type BoardSnapshot, type RevisionDiff } from '@/lib/boards/revision-diff';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
-import { sizeSnapshot } from '@/lib/dal/board-sizing';
-import type { BoardRecord } from '@/lib/dal/board-repository';
+import { sizeDesign, type BoardRecord } from '@/lib/dal/board-repository';
 import { findBoard } from '@/lib/dal/boards';
 import { notFound } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
@@ -61,7 +60,12 @@ export async function getRevision(actor: Actor, boardId: string, revision: numbe
   const board = await findBoard(actor, boardId);
   if (revision === 'current') {
     const snapshot = await liveSnapshot(actor, board);
-    return { revision: board.revision, issued: null, snapshot, sizing: sizeSnapshot(snapshot).sizing };
+    return {
+      revision: board.revision,
+      issued: null,
+      snapshot,
+      sizing: sizeDesign({ ...snapshot.settings, ways: snapshot.ways }).sizing,
+    };
   }
   const row = await BoardRevision.findOne({
     where: { boardId, revision },
