@@ -106,15 +106,6 @@ export async function findBoard(
   return board.get({ plain: true }) as BoardRecord;
 }
 
-/** That the board is the caller's organisation's, or 404. */
-export async function requireBoard(actor: Actor, boardId: string): Promise<void> {
-  const rows = await select('SELECT 1 FROM boards WHERE id = $1 AND organisation_id = $2 AND deleted_at IS NULL', [
-    boardId,
-    actor.organisationId,
-  ]);
-  if (!rows.length) throw notFound('The board');
-}
-
 /** A board's ways, design fields only, in rail order. */
 export async function readWays(boardId: string, transaction?: Transaction): Promise<WayInput[]> {
   return (await readWayRows(boardId, transaction)).map(wayInputOf);

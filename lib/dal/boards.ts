@@ -42,7 +42,7 @@ import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { BoardRevision, Site, User } from '@/models';
 import type { ArchiveState } from '@/lib/boards/review-types';
 
-export { findBoard, readBoard as getBoard, requireBoard } from '@/lib/dal/board-repository';
+export { findBoard, readBoard as getBoard } from '@/lib/dal/board-repository';
 
 /** The organisation's boards for the lists, optionally of one site (404 for another's site). */
 export async function listBoards(
