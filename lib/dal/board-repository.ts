@@ -24,6 +24,7 @@ import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
+import { sizingOutcome } from '@/lib/supply';
 import type { CommentDto } from '@/lib/boards/review-types';
 import { Board, Way } from '@/models';
 
@@ -225,11 +226,13 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   // A board in a site's tree is sized with what is carried to it (lib/dal/site-tree.ts)
   const sized = sizeDesign(board.derivedSupply ? { ...board, supply: board.derivedSupply.supply } : board);
   const stored = { json: sized.sizing && JSON.stringify(sized.sizing), issues: sized.issues };
+  const outcome = sized.sizing && JSON.stringify(sizingOutcome(sized.sizing));
   await db().query(
-    `INSERT INTO board_sizings (board_id, version, sizing, issues) VALUES ($1, $2, $3::json, $4::jsonb)
-     ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing, issues = EXCLUDED.issues
+    `INSERT INTO board_sizings (board_id, version, sizing, issues, outcome) VALUES ($1, $2, $3::json, $4::jsonb, $5::jsonb)
+     ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing, issues = EXCLUDED.issues,
+       outcome = EXCLUDED.outcome
      WHERE board_sizings.version <= EXCLUDED.version`,
-    { bind: [board.id, board.version, stored.json, JSON.stringify(stored.issues)], transaction },
+    { bind: [board.id, board.version, stored.json, JSON.stringify(stored.issues), outcome], transaction },
   );
   return stored;
 }
@@ -487,11 +490,15 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
   return row.tree;
 }
 
-/** The site's boards (not deleted), oldest first, with their ways in rail order and feed. */
+/**
+ * The site's boards (not deleted), oldest first, with their ways in rail order and feed, and what
+ * was stored for each (`stored`: its whole sizing; `'outcome'`: only what a re-size compares, the
+ * stored `outcome` (way verdicts and worst verdict), and the whole sizing only for a row that has none).
+ */
 export async function readTreeBoards(
   siteId: string,
   transaction?: Transaction,
-  opts: { stored?: boolean; only?: string } = {},
+  opts: { stored?: boolean | 'outcome'; only?: string } = {},
 ): Promise<TreeBoard[]> {
   const stored = opts.stored ?? true;
   const rows = await select<{ j: string }>(
@@ -509,10 +516,14 @@ export async function readTreeBoards(
            'device', w.device, 'circuit', w.circuit) ORDER BY w.rail, w.position)
          FROM ways w WHERE w.board_id = b.id), '[]'::json),
        'stored', ${
-         stored
-           ? `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
+         stored === 'outcome'
+           ? `(SELECT json_build_object('version', s.version, 'carried', s.carried, 'outcome', s.outcome,
+             'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END)
          FROM board_sizings s WHERE s.board_id = b.id)`
-           : 'NULL'
+           : stored
+             ? `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
+         FROM board_sizings s WHERE s.board_id = b.id)`
+             : 'NULL'
        }
      )::text AS j
      FROM boards b LEFT JOIN ways fw ON fw.id = b.fed_from_way_id

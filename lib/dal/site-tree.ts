@@ -13,22 +13,16 @@ import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardStatus } from '@/lib/domain';
 import { wayName } from '@/lib/names';
 import type { DerivedSupply, RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
-import {
-  parseBoardInput,
-  sizeBoard,
-  SizingInputError,
-  type BoardResult,
-  type SupplyInput,
-  type Verdict,
-} from '@/lib/sizing';
+import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult, type SupplyInput } from '@/lib/sizing';
 import {
   sizeSite,
+  sizingOutcome,
   SiteTreeError,
   wayLabels,
-  worstVerdictOf,
   type SiteBoardInput,
   type SiteBoardResult,
   type SiteResult,
+  type SizingOutcome,
 } from '@/lib/supply';
 
 /**
@@ -133,7 +127,16 @@ export type TreeBoard = BoardSettings & {
   archived: boolean;
   ways: WayInput[];
   feed: BoardFeed;
-  stored: { version: number; sizing: BoardResult | null; carried: DerivedSupply | null } | null;
+  /**
+   * What was stored for it: the whole sizing (`readTreeBoards` by default), or (`stored:
+   * 'outcome'`) its `outcome` only, with the whole sizing only for a row stored without one.
+   */
+  stored: {
+    version: number;
+    sizing?: BoardResult | null;
+    carried: DerivedSupply | null;
+    outcome?: SizingOutcome | null;
+  } | null;
 };
 
 /** What sizing the whole site gives each board: the stored form and the tree's values. */
@@ -311,9 +314,9 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
   return { boards: out, site: { siteId, origin: origin ?? groups[0]?.origin ?? null!, boards: all }, detached };
 }
 
-/** The verdict of each way of a sizing, by way id. */
-function verdicts(sizing: BoardResult | null): Map<string, Verdict> {
-  return new Map((sizing?.ways ?? []).flatMap((w) => (w.result ? [[w.id, w.result.verdict] as const] : [])));
+/** What a stored sizing gave: its way verdicts and worst verdict (its stored outcome, else from the sizing). */
+function storedOutcome(stored: NonNullable<TreeBoard['stored']>): SizingOutcome | null {
+  return stored.outcome ?? (stored.sizing ? sizingOutcome(stored.sizing) : null);
 }
 
 // Compared as values: the stored copy is jsonb, which orders its keys its own way
@@ -342,7 +345,7 @@ export async function resizeSite(
     only?: string;
   } = {},
 ): Promise<SiteRipple> {
-  const boards = await readTreeBoards(site.id, transaction, { only: opts.only });
+  const boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
   const sized = sizeTree(site.id, site.origin, boards);
   if (opts.sizedOut) Object.assign(opts.sizedOut, { sized, boards });
   const treeVersion = opts.only ? site.treeVersion : site.treeVersion + 1;
@@ -350,22 +353,31 @@ export async function resizeSite(
     await db().query('UPDATE sites SET tree_version = $2 WHERE id = $1', { bind: [site.id, treeVersion], transaction });
   }
 
-  const rows: { board_id: string; version: number; sizing: string | null; issues: string; carried: string | null }[] =
-    [];
+  const rows: {
+    board_id: string;
+    version: number;
+    sizing: string | null;
+    issues: string;
+    carried: string | null;
+    outcome: string | null;
+  }[] = [];
   const ripple: RippleBoard[] = [];
   for (const b of boards) {
     const s = sized.boards.get(b.id);
     if (!s) continue;
     const carried = s.carried && { ...s.carried, treeVersion };
+    const outcome = s.sizing && sizingOutcome(s.sizing);
     rows.push({
       board_id: b.id,
       version: b.version,
       sizing: s.sizing && JSON.stringify(s.sizing),
       issues: JSON.stringify(s.issues),
       carried: carried && JSON.stringify(carried),
+      outcome: outcome && JSON.stringify(outcome),
     });
-    const before = verdicts(b.stored?.sizing ?? null);
-    const after = verdicts(s.sizing);
+    const was = b.stored ? storedOutcome(b.stored) : null;
+    const before = new Map(Object.entries(was?.verdicts ?? {}));
+    const after = new Map(Object.entries(outcome?.verdicts ?? {}));
     const labels = wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways });
     const changedWays = [...new Set([...before.keys(), ...after.keys()])]
       .filter((id) => before.get(id) !== after.get(id))
@@ -379,49 +391,53 @@ export async function resizeSite(
     if (!b.stored) continue;
     const supplyChanged = !sameSupply(b.stored.carried?.supply, s.carried?.supply);
     if (!changedWays.length && !supplyChanged) continue;
-    const worst = (x: BoardResult | null | undefined) => (x ? worstVerdictOf(x, []) : null);
     ripple.push({
       boardId: b.id,
       name: b.name,
       supplyChanged,
-      worstBefore: worst(b.stored?.sizing),
-      worstAfter: s.result?.worstVerdict ?? worst(s.sizing),
+      worstBefore: was?.worst ?? null,
+      worstAfter: s.result?.worstVerdict ?? outcome?.worst ?? null,
       changedWays,
     });
   }
   if (rows.length) {
+    // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL), not one
+    // JSON document holding the sizings as escaped strings
+    const bind: unknown[] = [treeVersion];
+    const values = rows.map((r) => {
+      const at = bind.push(r.board_id, r.version, r.sizing, r.issues, r.carried, r.outcome);
+      return `($${at - 5}::uuid, $${at - 4}::int, $${at - 3}::json, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int)`;
+    });
     await db().query(
-      `INSERT INTO board_sizings (board_id, version, sizing, issues, carried, tree_version)
-       SELECT r.board_id, r.version, r.sizing::json, r.issues::jsonb, r.carried::jsonb, $2
-       FROM jsonb_to_recordset($1::jsonb) AS r(board_id uuid, version int, sizing text, issues text, carried text)
+      `INSERT INTO board_sizings (board_id, version, sizing, issues, carried, outcome, tree_version)
+       VALUES ${values.join(', ')}
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
-         issues = EXCLUDED.issues, carried = EXCLUDED.carried, tree_version = EXCLUDED.tree_version`,
-      { bind: [JSON.stringify(rows), treeVersion], transaction },
+         issues = EXCLUDED.issues, carried = EXCLUDED.carried, outcome = EXCLUDED.outcome,
+         tree_version = EXCLUDED.tree_version`,
+      { bind, transaction },
     );
   }
-  // Each board below whose supply or verdicts changed: its history says so
-  for (const r of ripple) {
-    if (r.boardId === opts.writtenBoardId) continue;
-    await auditMany(
-      actor,
-      [
-        {
-          action: 'board.supply-changed',
-          details: {
-            cause: opts.cause ?? 'A change upstream',
-            supplyChanged: r.supplyChanged,
-            ways: r.changedWays.map((w) => ({
-              wayId: w.wayId,
-              way: w.wayLabel ? wayName(w.wayLabel) : null,
-              before: w.before,
-              after: w.after,
-            })),
-          },
+  // Each board below whose supply or verdicts changed: its history says so (one insert for all)
+  await auditMany(
+    actor,
+    ripple
+      .filter((r) => r.boardId !== opts.writtenBoardId)
+      .map((r) => ({
+        action: 'board.supply-changed' as const,
+        boardId: r.boardId,
+        details: {
+          cause: opts.cause ?? 'A change upstream',
+          supplyChanged: r.supplyChanged,
+          ways: r.changedWays.map((w) => ({
+            wayId: w.wayId,
+            way: w.wayLabel ? wayName(w.wayLabel) : null,
+            before: w.before,
+            after: w.after,
+          })),
         },
-      ],
-      { boardId: r.boardId, transaction },
-    );
-  }
+      })),
+    { transaction },
+  );
   return { siteId: site.id, treeVersion, boards: ripple };
 }
 
