@@ -13,7 +13,14 @@ import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardStatus } from '@/lib/domain';
 import { wayName } from '@/lib/names';
 import type { DerivedSupply, RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
-import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult, type SupplyInput } from '@/lib/sizing';
+import {
+  parseBoardInput,
+  sizeBoard,
+  SizingInputError,
+  type BoardInput,
+  type BoardResult,
+  type SupplyInput,
+} from '@/lib/sizing';
 import {
   sizeSite,
   sizingOutcome,
@@ -191,11 +198,14 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
   const out: SizedSite['boards'] = new Map();
   const detached = new Map<string, string>();
   const byId = new Map(boards.map((b) => [b.id, b]));
-  // Boards the engine refuses on their own: stored with their issues, never in the tree
+  // Boards the engine refuses on their own: stored with their issues, never in the tree. With
+  // the site's origin, each board parsed here is handed to sizeSite (parsed once, not twice).
   const inTree = new Set<string>();
+  const inputs = new Map(boards.map((b) => [b.id, engineInputOf(b, b.ways)]));
+  const parsed = new Map<string, BoardInput>();
   for (const b of boards) {
     try {
-      parseBoardInput(engineInputOf({ ...b, supply: origin ? originSupply(origin) : b.supply }, b.ways));
+      parsed.set(b.id, parseBoardInput({ ...inputs.get(b.id)!, supply: origin ? originSupply(origin) : b.supply }));
       inTree.add(b.id);
     } catch (err) {
       if (!(err instanceof SizingInputError)) throw err;
@@ -264,10 +274,10 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
         name: b.name,
         siteId,
         feed: feedOf.get(b.id)!,
-        board: engineInputOf(b, b.ways),
+        board: inputs.get(b.id)!,
       }));
       try {
-        const sized = sizeSite({ siteId, origin: g.origin, boards: input });
+        const sized = sizeSite({ siteId, origin: g.origin, boards: input, parsed: origin ? parsed : undefined });
         all.push(...sized.boards);
         break;
       } catch (err) {
