@@ -490,6 +490,13 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
   return row.tree;
 }
 
+/** What was stored for board `b`, whole (its sizing) or only its outcome (the sizing only for a row without one). */
+const STORED_SIZING_JSON = `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
+  FROM board_sizings s WHERE s.board_id = b.id)`;
+const STORED_OUTCOME_JSON = `(SELECT json_build_object('version', s.version, 'carried', s.carried, 'outcome', s.outcome,
+    'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END)
+  FROM board_sizings s WHERE s.board_id = b.id)`;
+
 /**
  * The site's boards (not deleted), oldest first, with their ways in rail order and feed, and what
  * was stored for each (`stored`: its whole sizing; `'outcome'`: only what a re-size compares, the
@@ -498,7 +505,7 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
 export async function readTreeBoards(
   siteId: string,
   transaction?: Transaction,
-  opts: { stored?: boolean | 'outcome'; only?: string } = {},
+  opts: { stored?: boolean | 'outcome'; only?: string; organisationId?: string } = {},
 ): Promise<TreeBoard[]> {
   const stored = opts.stored ?? true;
   const rows = await select<{ j: string }>(
@@ -515,24 +522,35 @@ export async function readTreeBoards(
        'ways', COALESCE((SELECT json_agg(json_build_object('id', w.id, 'rail', w.rail, 'position', w.position,
            'device', w.device, 'circuit', w.circuit) ORDER BY w.rail, w.position)
          FROM ways w WHERE w.board_id = b.id), '[]'::json),
-       'stored', ${
-         stored === 'outcome'
-           ? `(SELECT json_build_object('version', s.version, 'carried', s.carried, 'outcome', s.outcome,
-             'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END)
-         FROM board_sizings s WHERE s.board_id = b.id)`
-           : stored
-             ? `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
-         FROM board_sizings s WHERE s.board_id = b.id)`
-             : 'NULL'
-       }
+       'stored', ${stored === 'outcome' ? STORED_OUTCOME_JSON : stored ? STORED_SIZING_JSON : 'NULL'}
      )::text AS j
      FROM boards b LEFT JOIN ways fw ON fw.id = b.fed_from_way_id
-     WHERE b.site_id = $1 AND b.deleted_at IS NULL ${opts.only ? 'AND b.id = $2' : ''}
+     WHERE b.site_id = $1 AND b.deleted_at IS NULL AND ($2::uuid IS NULL OR b.id = $2)
+       AND ($3::uuid IS NULL OR b.organisation_id = $3)
      ORDER BY b.created_at, b.id`,
-    opts.only ? [siteId, opts.only] : [siteId],
+    [siteId, opts.only ?? null, opts.organisationId ?? null],
     transaction,
   );
   return rows.map((r) => JSON.parse(r.j) as TreeBoard);
+}
+
+/**
+ * The site's boards (not deleted) in `readTreeBoards`' order, each with its version and what was
+ * stored for it (its outcome): enough to tell whether boards read earlier are still the
+ * committed ones (every write of a board or its ways raises its version, migration 0008).
+ */
+export async function readTreeStored(
+  siteId: string,
+  transaction: Transaction,
+): Promise<Pick<TreeBoard, 'id' | 'version' | 'stored'>[]> {
+  const rows = await select<{ j: string }>(
+    `SELECT json_build_object('id', b.id, 'version', b.version, 'stored', ${STORED_OUTCOME_JSON})::text AS j
+     FROM boards b WHERE b.site_id = $1 AND b.deleted_at IS NULL
+     ORDER BY b.created_at, b.id`,
+    [siteId],
+    transaction,
+  );
+  return rows.map((r) => JSON.parse(r.j) as Pick<TreeBoard, 'id' | 'version' | 'stored'>);
 }
 
 /** Whether the caller's organisation's site is a tree: it has an origin or a board fed from a way. */

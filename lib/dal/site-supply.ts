@@ -25,7 +25,7 @@ import type {
 import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
 import { subMainLoad, unsizedBoard, wayLabels, worstVerdictOf, type SiteResult } from '@/lib/supply';
 
-import { lockSite, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
+import { lockSite, presizeSite, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
 
@@ -130,16 +130,18 @@ export async function setSiteOrigin(
   siteId: string,
   origin: SiteOriginInput,
 ): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
+  const next: SiteOrigin = {
+    earthing: origin.earthing,
+    uoV: origin.uoV,
+    zeOhm: origin.zeOhm,
+    pfcKa: origin.pfcKa,
+    source: origin.source,
+  };
+  // Sized before the lock; used under it only if no board changed meanwhile (see presizeSite)
+  const presized = await presizeSite(actor, siteId, next);
   return db().transaction(async (transaction) => {
     const site = await lockSite(actor, siteId, transaction);
     if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
-    const next: SiteOrigin = {
-      earthing: origin.earthing,
-      uoV: origin.uoV,
-      zeOhm: origin.zeOhm,
-      pfcKa: origin.pfcKa,
-      source: origin.source,
-    };
     await db().query('UPDATE sites SET origin = $2::jsonb, updated_at = now() WHERE id = $1', {
       bind: [siteId, JSON.stringify(next)],
       transaction,
@@ -149,6 +151,7 @@ export async function setSiteOrigin(
     const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
       cause: 'The site’s origin was changed',
       sizedOut,
+      presized,
     });
     const tree = treeDtoOf(
       { ...site, origin: next, treeVersion: ripple.treeVersion },

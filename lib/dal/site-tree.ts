@@ -7,7 +7,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { engineInputOf, type BoardFeed, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
-import { readTreeBoards, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
+import { readTreeBoards, readTreeStored, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardStatus } from '@/lib/domain';
@@ -332,6 +332,7 @@ function storedOutcome(stored: NonNullable<TreeBoard['stored']>): SizingOutcome 
 // Compared as values: the stored copy is jsonb, which orders its keys its own way
 const sameSupply = (a: SupplyInput | null | undefined, b: SupplyInput | null | undefined) =>
   isDeepStrictEqual(a ?? null, b ?? null);
+const sameOrigin = (a: SiteOrigin | null, b: SiteOrigin | null) => isDeepStrictEqual(a, b);
 
 /**
  * Re-sizes every board of the site (the caller holds the site row: `lockSite`), stores each
@@ -353,10 +354,29 @@ export async function resizeSite(
      * so the others are unchanged and the tree version stays).
      */
     only?: string;
+    /** The site sized before the lock was taken (`presizeSite`): used when its boards are still the committed ones. */
+    presized?: PresizedSite;
   } = {},
 ): Promise<SiteRipple> {
-  const boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
-  const sized = sizeTree(site.id, site.origin, boards);
+  const pre = opts.presized && !opts.only && sameOrigin(opts.presized.origin, site.origin) ? opts.presized : null;
+  const current = pre ? await readTreeStored(site.id, transaction) : null;
+  let boards: TreeBoard[];
+  let sized: SizedSite;
+  let sizingJson: ReadonlyMap<string, string | null> | null = null;
+  if (
+    pre &&
+    current &&
+    current.length === pre.boards.length &&
+    current.every((c, i) => c.id === pre.boards[i].id && c.version === pre.boards[i].version)
+  ) {
+    // Nobody changed a board since it was sized (each write of a board or its ways raises its
+    // version): that sizing is the committed tree's, compared with what is stored now
+    boards = pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
+    ({ sized, sizingJson } = pre);
+  } else {
+    boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
+    sized = sizeTree(site.id, site.origin, boards);
+  }
   if (opts.sizedOut) Object.assign(opts.sizedOut, { sized, boards });
   const treeVersion = opts.only ? site.treeVersion : site.treeVersion + 1;
   if (!opts.only) {
@@ -380,7 +400,7 @@ export async function resizeSite(
     rows.push({
       board_id: b.id,
       version: b.version,
-      sizing: s.sizing && JSON.stringify(s.sizing),
+      sizing: sizingJson?.has(b.id) ? sizingJson.get(b.id)! : s.sizing && JSON.stringify(s.sizing),
       issues: JSON.stringify(s.issues),
       carried: carried && JSON.stringify(carried),
       outcome: outcome && JSON.stringify(outcome),
@@ -449,6 +469,32 @@ export async function resizeSite(
     { transaction },
   );
   return { siteId: site.id, treeVersion, boards: ripple };
+}
+
+/** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */
+export type PresizedSite = {
+  origin: SiteOrigin | null;
+  boards: TreeBoard[];
+  sized: SizedSite;
+  /** Each board's sizing as the JSON text to store. */
+  sizingJson: ReadonlyMap<string, string | null>;
+};
+
+/**
+ * Reads and sizes the caller's organisation's site with `origin`, before the site row is locked:
+ * the engine and the serialising of the sizings then run while other writes of the same site hold
+ * its lock, and the locked section (`resizeSite` with `presized`) only checks that every board is
+ * still at the version sized (else it reads and sizes again, under the lock), compares and stores.
+ */
+export async function presizeSite(
+  actor: Pick<Actor, 'organisationId'>,
+  siteId: string,
+  origin: SiteOrigin | null,
+): Promise<PresizedSite> {
+  const boards = await readTreeBoards(siteId, undefined, { stored: false, organisationId: actor.organisationId });
+  const sized = sizeTree(siteId, origin, boards);
+  const sizingJson = new Map([...sized.boards].map(([id, b]) => [id, b.sizing && JSON.stringify(b.sizing)]));
+  return { origin, boards, sized, sizingJson };
 }
 
 /** A feed that cannot be: 422 naming the field, and the boards of a loop when it is one. */

@@ -2,9 +2,13 @@ import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
 
 import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
+import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
+import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
+import { readTreeBoards } from '@/lib/dal/board-repository';
+import { lockSite, presizeSite, resizeSite, sizeTree } from '@/lib/dal/site-tree';
 import type { SiteRipple } from '@/lib/sites/tree-types';
 import type { BoardResult, Verdict } from '@/lib/sizing';
 import { worstVerdictOf } from '@/lib/supply';
@@ -140,5 +144,48 @@ describe('re-sizing a site compares the stored outcome', () => {
       expect(strip(ra.ripple, a.t)).toEqual(strip(rb.ripple, b.t));
       expect(ra.ripple.boards.length).toBeGreaterThan(0);
     }
+  });
+
+  it('a site sized before the lock is sized again under it when a board changed meanwhile', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    const u = team.users.designer;
+    const actor = {
+      userId: u.id,
+      organisationId: team.org.id,
+      role: 'designer' as const,
+      name: u.name,
+      email: u.email,
+    };
+    const next = { ...fx.origin, zeOhm: 0.8 };
+    const presized = await presizeSite(actor, t.site.id, next);
+    // Meanwhile (committed before the lock is taken) the sub-main becomes 400 m long
+    const db1 = (await call<{ board: BoardDto }>(boardRoute.GET(jsonRequest('GET'), ctx({ boardId: t.id('db1') }))))
+      .board;
+    const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = db1;
+    const ways = db1.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
+    const sub = ways.find((w) => w.id === t.id('w-sub'))!;
+    sub.circuit = { ...sub.circuit!, lengthM: 400 };
+    await call(
+      boardRoute.PUT(
+        jsonRequest('PUT', {
+          version: db1.version,
+          settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
+          ways,
+        }),
+        ctx({ boardId: t.id('db1') }),
+      ),
+    );
+    await db().transaction(async (transaction) => {
+      const site = await lockSite(actor, t.site.id, transaction);
+      await resizeSite(actor, { ...site, origin: next }, transaction, { presized });
+    });
+    // What is stored is the committed tree (the 400 m sub-main) sized with the new origin
+    const fresh = sizeTree(t.site.id, next, await readTreeBoards(t.site.id));
+    for (const id of ['db1', 'fin']) {
+      expect((await storedRow(t.id(id))).sizing, id).toEqual(fresh.boards.get(t.id(id))!.sizing);
+    }
+    const spray = (await storedRow(t.id('fin'))).sizing!.ways.find((w) => w.id === t.id('f-spray'))!.result;
+    expect(spray?.verdict).toBe('fails');
   });
 });
