@@ -68,17 +68,20 @@ export async function audit(
   );
 }
 
-/** Appends several events of one board in a single insert (a save records one per way touched). */
+/**
+ * Appends several events in a single insert (a save records one per way touched; a re-sized site
+ * one per board whose supply changed): each event's own `boardId` when it has one, else `opts.boardId`.
+ */
 export async function auditMany(
   actor: Actor,
-  events: { action: AuditAction; details: Record<string, unknown> }[],
+  events: { action: AuditAction; details: Record<string, unknown>; boardId?: string | null }[],
   opts: { boardId?: string | null; transaction?: Transaction } = {},
 ): Promise<void> {
   if (!events.length) return;
   await AuditEvent.bulkCreate(
     events.map((e) => ({
       organisationId: actor.organisationId,
-      boardId: opts.boardId ?? null,
+      boardId: e.boardId !== undefined ? e.boardId : (opts.boardId ?? null),
       userId: actor.userId,
       action: e.action,
       details: e.details,

@@ -24,6 +24,7 @@ import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
+import { sizingOutcome } from '@/lib/supply';
 import type { CommentDto } from '@/lib/boards/review-types';
 import { Board, Way } from '@/models';
 
@@ -225,11 +226,13 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   // A board in a site's tree is sized with what is carried to it (lib/dal/site-tree.ts)
   const sized = sizeDesign(board.derivedSupply ? { ...board, supply: board.derivedSupply.supply } : board);
   const stored = { json: sized.sizing && JSON.stringify(sized.sizing), issues: sized.issues };
+  const outcome = sized.sizing && JSON.stringify(sizingOutcome(sized.sizing));
   await db().query(
-    `INSERT INTO board_sizings (board_id, version, sizing, issues) VALUES ($1, $2, $3::json, $4::jsonb)
-     ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing, issues = EXCLUDED.issues
+    `INSERT INTO board_sizings (board_id, version, sizing, issues, outcome) VALUES ($1, $2, $3::json, $4::jsonb, $5::jsonb)
+     ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing, issues = EXCLUDED.issues,
+       outcome = EXCLUDED.outcome
      WHERE board_sizings.version <= EXCLUDED.version`,
-    { bind: [board.id, board.version, stored.json, JSON.stringify(stored.issues)], transaction },
+    { bind: [board.id, board.version, stored.json, JSON.stringify(stored.issues), outcome], transaction },
   );
   return stored;
 }
@@ -487,31 +490,57 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
   return row.tree;
 }
 
-/** The site's boards (not deleted), oldest first, with their ways in rail order and feed. */
+/** What was stored for board `b`, whole (its sizing) or only its outcome (the sizing only for a row without one). */
+const STORED_SIZING_JSON = `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
+  FROM board_sizings s WHERE s.board_id = b.id)`;
+const STORED_OUTCOME_JSON = `(SELECT json_build_object('version', s.version, 'carried', s.carried, 'outcome', s.outcome,
+    'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END)
+  FROM board_sizings s WHERE s.board_id = b.id)`;
+
+/**
+ * The site's boards (not deleted), oldest first, with their ways in rail order and feed, and what
+ * was stored for each (`stored`: its whole sizing; `'outcome'`: only what a re-size compares, the
+ * stored `outcome` (way verdicts and worst verdict), and the whole sizing only for a row that has none).
+ */
 export async function readTreeBoards(
   siteId: string,
   transaction?: Transaction,
-  opts: { stored?: boolean; only?: string } = {},
+  opts: { stored?: boolean | 'outcome'; only?: string; organisationId?: string } = {},
 ): Promise<TreeBoard[]> {
   const stored = opts.stored ?? true;
   const rows = await select<{ j: string }>(
     `SELECT json_build_object(
        'id', b.id, ${SETTINGS_JSON}, 'archived', b.archived_at IS NOT NULL,
        'feed', ${FEED_JSON}, 'ways', ${waysJson()},
-       'stored', ${
-         stored
-           ? `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
-         FROM board_sizings s WHERE s.board_id = b.id)`
-           : 'NULL'
-       }
+       'stored', ${stored === 'outcome' ? STORED_OUTCOME_JSON : stored ? STORED_SIZING_JSON : 'NULL'}
      )::text AS j
      FROM boards b
-     WHERE b.site_id = $1 AND b.deleted_at IS NULL ${opts.only ? 'AND b.id = $2' : ''}
+     WHERE b.site_id = $1 AND b.deleted_at IS NULL AND ($2::uuid IS NULL OR b.id = $2)
+       AND ($3::uuid IS NULL OR b.organisation_id = $3)
      ORDER BY b.created_at, b.id`,
-    opts.only ? [siteId, opts.only] : [siteId],
+    [siteId, opts.only ?? null, opts.organisationId ?? null],
     transaction,
   );
   return rows.map((r) => JSON.parse(r.j) as TreeBoard);
+}
+
+/**
+ * The site's boards (not deleted) in `readTreeBoards`' order, each with its version and what was
+ * stored for it (its outcome): enough to tell whether boards read earlier are still the
+ * committed ones (every write of a board or its ways raises its version, migration 0008).
+ */
+export async function readTreeStored(
+  siteId: string,
+  transaction: Transaction,
+): Promise<Pick<TreeBoard, 'id' | 'version' | 'stored'>[]> {
+  const rows = await select<{ j: string }>(
+    `SELECT json_build_object('id', b.id, 'version', b.version, 'stored', ${STORED_OUTCOME_JSON})::text AS j
+     FROM boards b WHERE b.site_id = $1 AND b.deleted_at IS NULL
+     ORDER BY b.created_at, b.id`,
+    [siteId],
+    transaction,
+  );
+  return rows.map((r) => JSON.parse(r.j) as Pick<TreeBoard, 'id' | 'version' | 'stored'>);
 }
 
 /** Whether the caller's organisation's site is a tree: it has an origin or a board fed from a way. */

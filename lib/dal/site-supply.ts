@@ -25,7 +25,16 @@ import type {
 import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
 import { subMainLoad, unsizedBoard, worstVerdictOf, type SiteResult } from '@/lib/supply';
 
-import { lockSite, originSupply, resizeSite, sizeTree, wayLabelsOf, type SizedSite, type TreeBoard } from './site-tree';
+import {
+  lockSite,
+  originSupply,
+  presizeSite,
+  resizeSite,
+  sizeTree,
+  wayLabelsOf,
+  type SizedSite,
+  type TreeBoard,
+} from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
 
@@ -135,10 +144,12 @@ export async function setSiteOrigin(
   siteId: string,
   origin: SiteOriginInput,
 ): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
+  const next = originSupply(origin);
+  // Sized before the lock; used under it only if no board changed meanwhile (see presizeSite)
+  const presized = await presizeSite(actor, siteId, next);
   return db().transaction(async (transaction) => {
     const site = await lockSite(actor, siteId, transaction);
     if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
-    const next = originSupply(origin);
     await db().query('UPDATE sites SET origin = $2::jsonb, updated_at = now() WHERE id = $1', {
       bind: [siteId, JSON.stringify(next)],
       transaction,
@@ -148,6 +159,7 @@ export async function setSiteOrigin(
     const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
       cause: 'The site’s origin was changed',
       sizedOut,
+      presized,
     });
     const tree = treeDtoOf(
       { ...site, origin: next, treeVersion: ripple.treeVersion },

@@ -7,21 +7,29 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { engineInputOf, type BoardFeed, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
-import { engineIssues, readTreeBoards, sizeDesign, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
-import { audit } from '@/lib/dal/audit';
+import {
+  engineIssues,
+  readTreeBoards,
+  readTreeStored,
+  sizeDesign,
+  siteHasSubMains,
+  siteIsTree,
+} from '@/lib/dal/board-repository';
+import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardStatus } from '@/lib/domain';
 import { wayName } from '@/lib/names';
 import type { DerivedSupply, RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
-import { parseBoardInput, type BoardResult, type SupplyInput, type Verdict } from '@/lib/sizing';
+import { parseBoardInput, type BoardInput, type BoardResult, type SupplyInput } from '@/lib/sizing';
 import {
   sizeSite,
+  sizingOutcome,
   SiteTreeError,
   wayLabels,
-  worstVerdictOf,
   type SiteBoardInput,
   type SiteBoardResult,
   type SiteResult,
+  type SizingOutcome,
 } from '@/lib/supply';
 
 /**
@@ -112,7 +120,16 @@ export type TreeBoard = BoardSettings & {
   archived: boolean;
   ways: WayInput[];
   feed: BoardFeed;
-  stored: { version: number; sizing: BoardResult | null; carried: DerivedSupply | null } | null;
+  /**
+   * What was stored for it: the whole sizing (`readTreeBoards` by default), or (`stored:
+   * 'outcome'`) its `outcome` only, with the whole sizing only for a row stored without one.
+   */
+  stored: {
+    version: number;
+    sizing?: BoardResult | null;
+    carried: DerivedSupply | null;
+    outcome?: SizingOutcome | null;
+  } | null;
 };
 
 /** What sizing the whole site gives each board: the stored form and the tree's values. */
@@ -158,11 +175,14 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
   const out: SizedSite['boards'] = new Map();
   const detached = new Map<string, string>();
   const byId = new Map(boards.map((b) => [b.id, b]));
-  // Boards the engine refuses on their own: stored with their issues, never in the tree
+  // Boards the engine refuses on their own: stored with their issues, never in the tree. With
+  // the site's origin, each board parsed here is handed to sizeSite (parsed once, not twice).
   const inTree = new Set<string>();
+  const inputs = new Map(boards.map((b) => [b.id, engineInputOf(b, b.ways)]));
+  const parsed = new Map<string, BoardInput>();
   for (const b of boards) {
     try {
-      parseBoardInput(engineInputOf({ ...b, supply: origin ? originSupply(origin) : b.supply }, b.ways));
+      parsed.set(b.id, parseBoardInput({ ...inputs.get(b.id)!, supply: origin ? originSupply(origin) : b.supply }));
       inTree.add(b.id);
     } catch (err) {
       out.set(b.id, { sizing: null, issues: engineIssues(err), carried: null, result: null });
@@ -225,10 +245,10 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
         name: b.name,
         siteId,
         feed: feedOf.get(b.id)!,
-        board: engineInputOf(b, b.ways),
+        board: inputs.get(b.id)!,
       }));
       try {
-        const sized = sizeSite({ siteId, origin: g.origin, boards: input });
+        const sized = sizeSite({ siteId, origin: g.origin, boards: input, parsed: origin ? parsed : undefined });
         all.push(...sized.boards);
         break;
       } catch (err) {
@@ -277,14 +297,15 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
 /** A board's way labels ("3L2"), by way id. */
 export const wayLabelsOf = (b: TreeBoard) => wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways });
 
-/** The verdict of each way of a sizing, by way id. */
-function verdicts(sizing: BoardResult | null): Map<string, Verdict> {
-  return new Map((sizing?.ways ?? []).flatMap((w) => (w.result ? [[w.id, w.result.verdict] as const] : [])));
+/** What a stored sizing gave: its way verdicts and worst verdict (its stored outcome, else from the sizing). */
+function storedOutcome(stored: NonNullable<TreeBoard['stored']>): SizingOutcome | null {
+  return stored.outcome ?? (stored.sizing ? sizingOutcome(stored.sizing) : null);
 }
 
 // Compared as values: the stored copy is jsonb, which orders its keys its own way
 const sameSupply = (a: SupplyInput | null | undefined, b: SupplyInput | null | undefined) =>
   isDeepStrictEqual(a ?? null, b ?? null);
+const sameOrigin = (a: SiteOrigin | null, b: SiteOrigin | null) => isDeepStrictEqual(a, b);
 
 /**
  * Re-sizes every board of the site (the caller holds the site row: `lockSite`), stores each
@@ -306,32 +327,60 @@ export async function resizeSite(
      * so the others are unchanged and the tree version stays).
      */
     only?: string;
+    /** The site sized before the lock was taken (`presizeSite`): used when its boards are still the committed ones. */
+    presized?: PresizedSite;
   } = {},
 ): Promise<SiteRipple> {
-  const boards = await readTreeBoards(site.id, transaction, { only: opts.only });
-  const sized = sizeTree(site.id, site.origin, boards);
+  const pre = opts.presized && !opts.only && sameOrigin(opts.presized.origin, site.origin) ? opts.presized : null;
+  const current = pre ? await readTreeStored(site.id, transaction) : null;
+  let boards: TreeBoard[];
+  let sized: SizedSite;
+  let sizingJson: ReadonlyMap<string, string | null> | null = null;
+  if (
+    pre &&
+    current &&
+    current.length === pre.boards.length &&
+    current.every((c, i) => c.id === pre.boards[i].id && c.version === pre.boards[i].version)
+  ) {
+    // Nobody changed a board since it was sized (each write of a board or its ways raises its
+    // version): that sizing is the committed tree's, compared with what is stored now
+    boards = pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
+    ({ sized, sizingJson } = pre);
+  } else {
+    boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
+    sized = sizeTree(site.id, site.origin, boards);
+  }
   if (opts.sizedOut) Object.assign(opts.sizedOut, { sized, boards });
   const treeVersion = opts.only ? site.treeVersion : site.treeVersion + 1;
   if (!opts.only) {
     await db().query('UPDATE sites SET tree_version = $2 WHERE id = $1', { bind: [site.id, treeVersion], transaction });
   }
 
-  const rows: { board_id: string; version: number; sizing: string | null; issues: string; carried: string | null }[] =
-    [];
+  const rows: {
+    board_id: string;
+    version: number;
+    sizing: string | null;
+    issues: string;
+    carried: string | null;
+    outcome: string | null;
+  }[] = [];
   const ripple: RippleBoard[] = [];
   for (const b of boards) {
     const s = sized.boards.get(b.id);
     if (!s) continue;
     const carried = s.carried && { ...s.carried, treeVersion };
+    const outcome = s.sizing && sizingOutcome(s.sizing);
     rows.push({
       board_id: b.id,
       version: b.version,
-      sizing: s.sizing && JSON.stringify(s.sizing),
+      sizing: sizingJson?.has(b.id) ? sizingJson.get(b.id)! : s.sizing && JSON.stringify(s.sizing),
       issues: JSON.stringify(s.issues),
       carried: carried && JSON.stringify(carried),
+      outcome: outcome && JSON.stringify(outcome),
     });
-    const before = verdicts(b.stored?.sizing ?? null);
-    const after = verdicts(s.sizing);
+    const was = b.stored ? storedOutcome(b.stored) : null;
+    const before = new Map(Object.entries(was?.verdicts ?? {}));
+    const after = new Map(Object.entries(outcome?.verdicts ?? {}));
     const labels = wayLabelsOf(b);
     const changedWays = [...new Set([...before.keys(), ...after.keys()])]
       .filter((id) => before.get(id) !== after.get(id))
@@ -345,39 +394,80 @@ export async function resizeSite(
     if (!b.stored) continue;
     const supplyChanged = !sameSupply(b.stored.carried?.supply, s.carried?.supply);
     if (!changedWays.length && !supplyChanged) continue;
-    const worst = (x: BoardResult | null | undefined) => (x ? worstVerdictOf(x, []) : null);
     ripple.push({
       boardId: b.id,
       name: b.name,
       supplyChanged,
-      worstBefore: worst(b.stored?.sizing),
-      worstAfter: s.result?.worstVerdict ?? worst(s.sizing),
+      worstBefore: was?.worst ?? null,
+      worstAfter: s.result?.worstVerdict ?? outcome?.worst ?? null,
       changedWays,
     });
   }
   if (rows.length) {
+    // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL), not one
+    // JSON document holding the sizings as escaped strings
+    const bind: unknown[] = [treeVersion];
+    const values = rows.map((r) => {
+      const at = bind.push(r.board_id, r.version, r.sizing, r.issues, r.carried, r.outcome);
+      return `($${at - 5}::uuid, $${at - 4}::int, $${at - 3}::json, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int)`;
+    });
     await db().query(
-      `INSERT INTO board_sizings (board_id, version, sizing, issues, carried, tree_version)
-       SELECT r.board_id, r.version, r.sizing::json, r.issues::jsonb, r.carried::jsonb, $2
-       FROM jsonb_to_recordset($1::jsonb) AS r(board_id uuid, version int, sizing text, issues text, carried text)
+      `INSERT INTO board_sizings (board_id, version, sizing, issues, carried, outcome, tree_version)
+       VALUES ${values.join(', ')}
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
-         issues = EXCLUDED.issues, carried = EXCLUDED.carried, tree_version = EXCLUDED.tree_version`,
-      { bind: [JSON.stringify(rows), treeVersion], transaction },
+         issues = EXCLUDED.issues, carried = EXCLUDED.carried, outcome = EXCLUDED.outcome,
+         tree_version = EXCLUDED.tree_version`,
+      { bind, transaction },
     );
   }
-  // Each board below whose supply or verdicts changed: its history says so
-  for (const r of ripple) {
-    if (r.boardId === opts.writtenBoardId) continue;
-    const ways = r.changedWays.map(({ wayId, wayLabel, before, after }) => ({
-      wayId,
-      way: wayLabel ? wayName(wayLabel) : null,
-      before,
-      after,
-    }));
-    const details = { cause: opts.cause ?? 'A change upstream', supplyChanged: r.supplyChanged, ways };
-    await audit(actor, 'board.supply-changed', details, { boardId: r.boardId, transaction });
-  }
+  // Each board below whose supply or verdicts changed: its history says so (one insert for all)
+  await auditMany(
+    actor,
+    ripple
+      .filter((r) => r.boardId !== opts.writtenBoardId)
+      .map((r) => ({
+        action: 'board.supply-changed' as const,
+        boardId: r.boardId,
+        details: {
+          cause: opts.cause ?? 'A change upstream',
+          supplyChanged: r.supplyChanged,
+          ways: r.changedWays.map((w) => ({
+            wayId: w.wayId,
+            way: w.wayLabel ? wayName(w.wayLabel) : null,
+            before: w.before,
+            after: w.after,
+          })),
+        },
+      })),
+    { transaction },
+  );
   return { siteId: site.id, treeVersion, boards: ripple };
+}
+
+/** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */
+export type PresizedSite = {
+  origin: SiteOrigin | null;
+  boards: TreeBoard[];
+  sized: SizedSite;
+  /** Each board's sizing as the JSON text to store. */
+  sizingJson: ReadonlyMap<string, string | null>;
+};
+
+/**
+ * Reads and sizes the caller's organisation's site with `origin`, before the site row is locked:
+ * the engine and the serialising of the sizings then run while other writes of the same site hold
+ * its lock, and the locked section (`resizeSite` with `presized`) only checks that every board is
+ * still at the version sized (else it reads and sizes again, under the lock), compares and stores.
+ */
+export async function presizeSite(
+  actor: Pick<Actor, 'organisationId'>,
+  siteId: string,
+  origin: SiteOrigin | null,
+): Promise<PresizedSite> {
+  const boards = await readTreeBoards(siteId, undefined, { stored: false, organisationId: actor.organisationId });
+  const sized = sizeTree(siteId, origin, boards);
+  const sizingJson = new Map([...sized.boards].map(([id, b]) => [id, b.sizing && JSON.stringify(b.sizing)]));
+  return { origin, boards, sized, sizingJson };
 }
 
 /** A feed that cannot be: 422 naming the field, and the boards of a loop when it is one. */

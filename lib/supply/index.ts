@@ -4,7 +4,7 @@
  * design currents, selectivity), each with its working, and every board sized with them.
  * Pure (no database). A design aid: see SIZING_CAUTION in lib/sizing.
  */
-export { sizeSite, subMainLoad, unsizedBoard, worstVerdictOf } from './size-site';
+export { sizeSite, sizingOutcome, subMainLoad, unsizedBoard, worstVerdictOf, type SizingOutcome } from './size-site';
 export { boardMaxDemand } from './max-demand';
 export { validateTree, wayLabels, SiteTreeError, type SiteTreeIssue } from './validate-tree';
 export {

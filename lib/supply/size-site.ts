@@ -69,6 +69,16 @@ export function worstVerdictOf(sizing: BoardResult, selectivity: readonly Select
   return 'passes';
 }
 
+/** What a sizing gave, in brief: each way's verdict (by way id) and the board's worst verdict without selectivity. */
+export type SizingOutcome = { verdicts: Record<string, Verdict>; worst: Verdict };
+
+/** A sizing's outcome (stored beside it, so a re-size compares verdicts without reading it whole). */
+export function sizingOutcome(sizing: BoardResult): SizingOutcome {
+  const verdicts: Record<string, Verdict> = {};
+  for (const w of sizing.ways) if (w.result) verdicts[w.id] = w.result.verdict;
+  return { verdicts, worst: worstVerdictOf(sizing, []) };
+}
+
 /** Resistance per metre of the cpc at 20 °C, Ω/m: a copper core, or the armour. */
 function cpcR20(r: CircuitResult, phases: 1 | 3): number | null {
   if (r.csaMm2 === null || r.cpcMm2 === null) return null;

@@ -61,6 +61,12 @@ export interface SiteTreeInput {
   siteId: string;
   origin: SiteOrigin;
   boards: SiteBoardInput[];
+  /**
+   * Boards the caller has already put through the engine's schema (`parseBoardInput` of the
+   * board with the origin as its supply), by board id: not parsed again (a re-size of a whole
+   * site parses each board once instead of twice).
+   */
+  parsed?: ReadonlyMap<string, BoardInput>;
 }
 
 /** How a carried value was found: a sentence, the arithmetic step by step, and the sources. */

@@ -62,7 +62,7 @@ export function validateTree(input: SiteTreeInput): ValidTree {
   const labels = new Map<string, Map<string, string | null>>();
   input.boards.forEach((b, i) => {
     try {
-      const board = parseBoardInput({ ...b.board, supply: { ...input.origin } });
+      const board = input.parsed?.get(b.id) ?? parseBoardInput({ ...b.board, supply: { ...input.origin } });
       parsed.set(b.id, board);
       labels.set(b.id, wayLabels(board));
     } catch (e) {

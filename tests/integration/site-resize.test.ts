@@ -1,0 +1,191 @@
+import { QueryTypes } from 'sequelize';
+import { beforeAll, describe, expect, it } from 'vitest';
+
+import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
+import * as boardRoute from '@/app/api/boards/[boardId]/route';
+import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
+import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
+import type { BoardDto } from '@/lib/boards/schemas';
+import { db } from '@/lib/db';
+import { readTreeBoards } from '@/lib/dal/board-repository';
+import { lockSite, presizeSite, resizeSite, sizeTree } from '@/lib/dal/site-tree';
+import type { SiteRipple } from '@/lib/sites/tree-types';
+import type { BoardResult, Verdict } from '@/lib/sizing';
+import { worstVerdictOf } from '@/lib/supply';
+import { AuditEvent } from '@/models';
+
+import { twoLevel } from '../unit/supply/fixtures';
+import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
+import { storeTree } from './site-fixtures';
+
+// A re-size compares each board's new way verdicts with the stored ones. It reads them from the
+// stored outcome (board_sizings.outcome, migration 0012: way id → verdict, and the worst
+// verdict), written with every stored sizing, not from the whole sizing; a row stored without
+// one (before the migration) is compared whole. Here the outcome must always be the stored
+// sizing in brief, and the ripple the same whichever way it was read.
+
+type Org = Awaited<ReturnType<typeof makeOrganisation>>;
+let team: Org;
+
+beforeAll(async () => {
+  team = await makeOrganisation('Resize');
+});
+
+async function call<T>(res: Promise<Response>, status = 200): Promise<T> {
+  const r = await res;
+  const body = await r.json();
+  if (r.status !== status) throw new Error(`expected ${status}, got ${r.status}: ${JSON.stringify(body)}`);
+  return body as T;
+}
+
+type Row = { sizing: BoardResult | null; outcome: { verdicts: Record<string, Verdict>; worst: Verdict } | null };
+
+async function storedRow(boardId: string): Promise<Row> {
+  const [row] = await db().query<Row>('SELECT sizing, outcome FROM board_sizings WHERE board_id = $1', {
+    bind: [boardId],
+    type: QueryTypes.SELECT,
+  });
+  return row;
+}
+
+/** The stored sizing in brief, worked out here from the sizing itself. */
+function brief(sizing: BoardResult) {
+  return {
+    verdicts: Object.fromEntries(sizing.ways.flatMap((w) => (w.result ? [[w.id, w.result.verdict]] : []))),
+    worst: worstVerdictOf(sizing, []),
+  };
+}
+
+async function linkedTwoLevel() {
+  const fx = twoLevel();
+  const t = await storeTree(team.org.id, fx);
+  await call(originRoute.PUT(jsonRequest('PUT', fx.origin), ctx({ siteId: t.site.id })));
+  await call(
+    feedRoute.PUT(
+      jsonRequest('PUT', { feed: { from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') } }),
+      ctx({ boardId: t.id('fin') }),
+    ),
+  );
+  return { fx, t };
+}
+
+describe('re-sizing a site compares the stored outcome', () => {
+  it('every stored sizing of the tree is stored with its outcome', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    await call(originRoute.PUT(jsonRequest('PUT', { ...fx.origin, zeOhm: 1.2 }), ctx({ siteId: t.site.id })));
+    for (const id of ['db1', 'fin']) {
+      const row = await storedRow(t.id(id));
+      expect(row.sizing, id).not.toBeNull();
+      expect(row.outcome, id).toEqual(brief(row.sizing!));
+    }
+  });
+
+  it('a board sized alone (no tree) is stored with its outcome too', async () => {
+    signInAs(team.users.designer);
+    const { board } = await makeBoard(team.org.id, 'workshop');
+    await call(sizingRoute.POST(jsonRequest('POST'), ctx({ boardId: board.id })));
+    const row = await storedRow(board.id);
+    expect(row.sizing).not.toBeNull();
+    expect(row.outcome).toEqual(brief(row.sizing!));
+  });
+
+  it('a sizing stored without an outcome (before migration 0012) is compared whole: the same ripple', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    const was = (await storedRow(t.id('fin'))).sizing!;
+    const wasVerdicts = brief(was).verdicts;
+    await db().query('UPDATE board_sizings SET outcome = NULL WHERE board_id = $1', { bind: [t.id('fin')] });
+    // Ze 0.35 → 2.6 Ω: the spray booth's Zs = 2.6 + 0.093696 (the sub-main) + 0.23412 (its own
+    // R1+R2) = 2.927816 Ω, above the 0.95 × 230 / (5 × 16) = 2.73 Ω a B16 allows (BS 7671 Table
+    // 41.3, 0.4 s; Cmin 0.95)
+    const { ripple } = await call<{ ripple: SiteRipple }>(
+      originRoute.PUT(jsonRequest('PUT', { ...fx.origin, zeOhm: 2.6 }), ctx({ siteId: t.site.id })),
+    );
+    const fin = ripple.boards.find((b) => b.boardId === t.id('fin'));
+    expect(fin?.worstBefore).toBe(worstVerdictOf(was, []));
+    const spray = fin?.changedWays.find((w) => w.wayId === t.id('f-spray'));
+    expect(spray?.before).toBe(wasVerdicts[t.id('f-spray')]);
+    expect(spray?.before).not.toBeNull();
+    expect(spray?.after).toBe('fails');
+    // The history says the same, and the row has its outcome again
+    const events = await AuditEvent.findAll({ where: { boardId: t.id('fin'), action: 'board.supply-changed' } });
+    const newest = events.sort((a, b) => Number(b.id) - Number(a.id))[0];
+    expect((newest.details as { ways: { wayId: string; before: Verdict }[] }).ways).toContainEqual(
+      expect.objectContaining({ wayId: t.id('f-spray'), before: wasVerdicts[t.id('f-spray')] }),
+    );
+    const row = await storedRow(t.id('fin'));
+    expect(row.outcome).toEqual(brief(row.sizing!));
+  });
+
+  it('the ripple read from the outcome is the one read from the whole sizing', async () => {
+    signInAs(team.users.designer);
+    const a = await linkedTwoLevel();
+    const b = await linkedTwoLevel();
+    // Site b's rows without outcome (compared whole), site a's with it
+    await db().query('UPDATE board_sizings SET outcome = NULL WHERE board_id = ANY($1::uuid[])', {
+      bind: [[b.t.id('db1'), b.t.id('fin')]],
+    });
+    const strip = (r: SiteRipple, t: typeof a.t) =>
+      r.boards.map((x) => ({
+        board: [...['db1', 'fin']].find((k) => t.id(k) === x.boardId),
+        supplyChanged: x.supplyChanged,
+        worstBefore: x.worstBefore,
+        worstAfter: x.worstAfter,
+        ways: x.changedWays.map((w) => [w.wayLabel, w.before, w.after]),
+      }));
+    for (const zeOhm of [1.2, 0.35, 1.2]) {
+      const ra = await call<{ ripple: SiteRipple }>(
+        originRoute.PUT(jsonRequest('PUT', { ...a.fx.origin, zeOhm }), ctx({ siteId: a.t.site.id })),
+      );
+      const rb = await call<{ ripple: SiteRipple }>(
+        originRoute.PUT(jsonRequest('PUT', { ...b.fx.origin, zeOhm }), ctx({ siteId: b.t.site.id })),
+      );
+      expect(strip(ra.ripple, a.t)).toEqual(strip(rb.ripple, b.t));
+      expect(ra.ripple.boards.length).toBeGreaterThan(0);
+    }
+  });
+
+  it('a site sized before the lock is sized again under it when a board changed meanwhile', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    const u = team.users.designer;
+    const actor = {
+      userId: u.id,
+      organisationId: team.org.id,
+      role: 'designer' as const,
+      name: u.name,
+      email: u.email,
+    };
+    const next = { ...fx.origin, zeOhm: 0.8 };
+    const presized = await presizeSite(actor, t.site.id, next);
+    // Meanwhile (committed before the lock is taken) the sub-main becomes 400 m long
+    const db1 = (await call<{ board: BoardDto }>(boardRoute.GET(jsonRequest('GET'), ctx({ boardId: t.id('db1') }))))
+      .board;
+    const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = db1;
+    const ways = db1.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
+    const sub = ways.find((w) => w.id === t.id('w-sub'))!;
+    sub.circuit = { ...sub.circuit!, lengthM: 400 };
+    await call(
+      boardRoute.PUT(
+        jsonRequest('PUT', {
+          version: db1.version,
+          settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
+          ways,
+        }),
+        ctx({ boardId: t.id('db1') }),
+      ),
+    );
+    await db().transaction(async (transaction) => {
+      const site = await lockSite(actor, t.site.id, transaction);
+      await resizeSite(actor, { ...site, origin: next }, transaction, { presized });
+    });
+    // What is stored is the committed tree (the 400 m sub-main) sized with the new origin
+    const fresh = sizeTree(t.site.id, next, await readTreeBoards(t.site.id));
+    for (const id of ['db1', 'fin']) {
+      expect((await storedRow(t.id(id))).sizing, id).toEqual(fresh.boards.get(t.id(id))!.sizing);
+    }
+    const spray = (await storedRow(t.id('fin'))).sizing!.ways.find((w) => w.id === t.id('f-spray'))!.result;
+    expect(spray?.verdict).toBe('fails');
+  });
+});
