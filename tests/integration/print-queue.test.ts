@@ -8,10 +8,12 @@ import crypto from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 
+import { PDFDocument } from 'pdf-lib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import * as approveRoute from '@/app/api/boards/[boardId]/review/approve/route';
 import * as scheduleRoute from '@/app/api/boards/[boardId]/schedule/route';
+import * as packRoute from '@/app/api/sites/[siteId]/pack/route';
 import * as pool from '@/features/schedule/print/print-pool';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -98,4 +100,28 @@ describe('the print queue', () => {
     expect(issued.headers.get('server-timing')).toMatch(/^stored;/);
     await Promise.all((await Promise.all(drafts)).map((a) => a.arrayBuffer()));
   }, 60_000);
+
+  it('prints a site pack of more draft boards than the queue holds, one schedule per board', async () => {
+    // Four boards on one site, every one a draft: with one thread and one place in the queue,
+    // the pack's four schedules sent to the pool at once were three too many (503)
+    const { site, board: first } = await makeBoard(team.org.id, 'workshop');
+    const boards = [first];
+    for (let i = 0; i < 3; i++) {
+      const { board } = await makeBoard(team.org.id, 'flat');
+      await board.update({ siteId: site.id });
+      boards.push(board);
+    }
+    signInAs(team.users.inspector);
+    const res = await packRoute.GET(jsonRequest('GET'), ctx({ siteId: site.id }));
+    expect(res.status).toBe(200);
+    const pack = await PDFDocument.load(await res.arrayBuffer());
+    // The pack holds its own pages and every board's schedule, each as many pages as printed alone
+    let schedulePages = 0;
+    for (const b of boards) {
+      const alone = await print(b.id);
+      expect(alone.status).toBe(200);
+      schedulePages += (await PDFDocument.load(await alone.arrayBuffer())).getPageCount();
+    }
+    expect(pack.getPageCount()).toBeGreaterThan(schedulePages);
+  }, 90_000);
 });

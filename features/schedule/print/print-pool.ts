@@ -32,7 +32,7 @@ function envCount(name: string, fallback: number, min: number): number {
  * Threads: PRINT_THREADS, else one fewer than the cores (at least one), so that renders
  * never take every core from the thread answering requests (on 2 cores: one thread).
  */
-function threads(): number {
+export function printThreads(): number {
   return envCount('PRINT_THREADS', Math.max(1, os.availableParallelism() - 1), 1);
 }
 
@@ -48,7 +48,7 @@ export function printQueueLimit(): number {
 /** The print pool of this process, started on first use. */
 export function printPool(): Piscina<PrintJob, RenderedPdf> {
   if (pool) return pool;
-  const max = threads();
+  const max = printThreads();
   pool = new Piscina<PrintJob, RenderedPdf>({
     filename: pathToFileURL(printWorkerFile()).href,
     minThreads: 1,
