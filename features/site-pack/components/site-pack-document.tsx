@@ -5,6 +5,7 @@ import { EARTHING_NAMES, fedFromWords, selectivityWords, SUPPLY_SOURCE_NAMES, VE
 import type { SiteBoardResult, SiteResult, Working } from '@/lib/supply';
 
 import { SITE_PACK_FONT } from '../utils/fonts';
+import { groupSelectivity, placesWords } from '../utils/group-selectivity';
 
 const INK = '#1f2a37';
 const SOFT = '#4b5563';
@@ -197,12 +198,12 @@ function BoardValues({ b }: { b: SiteBoardResult }) {
           working={b.subMainCurrent.working}
         />
       ) : null}
-      {b.selectivity.map((s, i) => (
+      {groupSelectivity(b.selectivity).map((g, i) => (
         <WorkingLines
           key={i}
           label={i === 0 ? 'Selectivity (advisory)' : ''}
-          value={`${s.upstream} above ${s.downstream}: ${selectivityWords(s.outcome, s.upToA)}`}
-          working={s.working}
+          value={`${g.upstream} above ${g.device}${g.places.length ? ` (${placesWords(g.places)})` : ''}: ${selectivityWords(g.outcome, g.upToA)}`}
+          working={g.working}
         />
       ))}
     </View>
