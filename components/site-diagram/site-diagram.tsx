@@ -9,7 +9,7 @@ import type { SiteBoardResult, SiteOrigin } from '@/lib/supply';
 import { DIAGRAM, layoutSite, type PlacedBoard } from './layout';
 
 /** A board as the diagram draws it: its carried values, worst verdict and maximum demand. */
-export type DiagramBoard = Omit<SiteBoardResult, 'sizing' | 'sizedInput'> & {
+export type DiagramBoard = Omit<SiteBoardResult, 'sizing' | 'sizedInput' | 'selectivity'> & {
   sizing: { summary: Pick<BoardSummary, 'maxDemandA'> } | null;
 };
 

@@ -23,7 +23,7 @@ import type {
   SiteTreeEdge,
 } from '@/lib/sites/tree-types';
 import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
-import { subMainLoad, unsizedBoard, worstVerdictOf, type SiteResult } from '@/lib/supply';
+import { groupSelectivity, subMainLoad, unsizedBoard, worstVerdictOf, type SiteResult } from '@/lib/supply';
 
 import {
   lockSite,
@@ -68,7 +68,7 @@ export function treeDtoOf(
       pfc: s?.carried?.pfc ?? r?.pfc ?? null,
       vdUsed: s?.carried?.vdUsed ?? r?.vdUsed ?? null,
       subMainCurrent: s?.carried?.subMainCurrent ?? r?.subMainCurrent ?? null,
-      selectivity: r?.selectivity ?? [],
+      selectivity: groupSelectivity(r?.selectivity ?? []),
       supply: s?.carried?.supply ?? (sizing ? b.supply : null),
       sizing: sizing ? { summary: sizing.summary } : null,
       worstVerdict: sizing ? (r?.worstVerdict ?? worstVerdictOf(sizing, r?.selectivity ?? [])) : null,

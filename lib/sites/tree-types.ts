@@ -35,7 +35,9 @@ import type {
   SiteOrigin,
   SubMainCurrent,
 } from '@/lib/supply/types';
+import type { SelectivityGroup } from '@/lib/supply/group-selectivity';
 
+export type { SelectivityGroup };
 export type { BoardFeed, CarriedFaultCurrent, CarriedValue, FedFrom, SelectivityPair, SiteOrigin, SubMainCurrent };
 
 /** The origin of a site (its supply intake) as a request gives it: a board's supply without volt drop used. */
@@ -97,7 +99,9 @@ export interface DerivedSupply {
 }
 
 /** One board of the tree: what the site view and the site pack show of it. */
-export type SiteTreeBoard = Omit<SiteBoardResult, 'sizing' | 'sizedInput'> & {
+export type SiteTreeBoard = Omit<SiteBoardResult, 'sizing' | 'sizedInput' | 'selectivity'> & {
+  /** Selectivity below the sub-main feeding it, one entry per judgement with the ways it covers. */
+  selectivity: SelectivityGroup[];
   /** The sizing's summary only (counts, maximum demand, board checks); the board's own route has the rest. */
   sizing: { summary: BoardResult['summary'] } | null;
   location: string;

@@ -6,6 +6,7 @@
  */
 export { sizeSite, sizingOutcome, subMainLoad, unsizedBoard, worstVerdictOf, type SizingOutcome } from './size-site';
 export { boardMaxDemand } from './max-demand';
+export { groupSelectivity, placesWords, type SelectivityGroup } from './group-selectivity';
 export { validateTree, wayLabels, SiteTreeError, type SiteTreeIssue } from './validate-tree';
 export {
   overcurrentSelectivity,

@@ -5,7 +5,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { SiteView } from '@/features/site-view/components/site-view';
 import type { SiteTreeDto } from '@/lib/sites/tree-types';
 import { SIZING_CAUTION } from '@/lib/sizing';
-import { sizeSite } from '@/lib/supply';
+import { groupSelectivity, sizeSite } from '@/lib/supply';
 import { wayLabels } from '@/lib/supply/validate-tree';
 
 import { threeLevel } from '../unit/supply/fixtures';
@@ -30,6 +30,7 @@ function treeDto(): SiteTreeDto {
       return {
         ...rest,
         sizing: b.sizing ? { summary: b.sizing.summary } : null,
+        selectivity: groupSelectivity(b.selectivity),
         location: '',
         phases: own.board.phases,
         status: 'draft',
@@ -76,6 +77,23 @@ describe('SiteView', () => {
     ).toBe('/boards/fin');
     // Read only: no choice of feed
     expect(screen.queryByLabelText('Fed from')).toBeNull();
+  });
+
+  it('states the selectivity below each sub-main, one line per judgement with its working', async () => {
+    const tree = treeDto();
+    mockFetch(json({ tree }));
+    renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink={false} />);
+    const list = await screen.findByRole('list', { name: 'Boards of the site, in supply order' });
+    const fin = within(list).getAllByRole('listitem')[2];
+    const summary = within(fin).getByLabelText('Selectivity below the sub-main feeding Finishing room board');
+    const groups = tree.boards[2].selectivity;
+    expect(groups.length).toBeGreaterThan(0);
+    // Worked in tests/unit/supply/carried-values.test.ts: C20 above the B16, selective up to 5 × 20 = 100 A
+    expect(fin.textContent).toContain('Selective up to 100 A');
+    expect(summary.textContent).toMatch(/not selective throughout|selective throughout/);
+    for (const g of groups) expect(fin.textContent).toContain(g.working.text);
+    // The origin's board has no sub-main above it: nothing to state
+    expect(within(list).getAllByRole('listitem')[0].textContent).not.toContain('Selectivity');
   });
 
   it('asks before re-pointing a board, naming every board that changes, then sends the confirmed feed', async () => {

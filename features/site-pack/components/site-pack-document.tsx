@@ -2,10 +2,9 @@ import { Document, G, Line, Page, Path, Rect, StyleSheet, Svg, Text, View } from
 
 import { DIAGRAM, layoutSite, type PlacedBoard } from '@/components/site-diagram/layout';
 import { EARTHING_NAMES, fedFromWords, selectivityWords, SUPPLY_SOURCE_NAMES, VERDICT_WORDS } from '@/lib/names';
-import type { SiteBoardResult, SiteResult, Working } from '@/lib/supply';
+import { groupSelectivity, placesWords, type SiteBoardResult, type SiteResult, type Working } from '@/lib/supply';
 
 import { SITE_PACK_FONT } from '../utils/fonts';
-import { groupSelectivity, placesWords } from '../utils/group-selectivity';
 
 const INK = '#1f2a37';
 const SOFT = '#4b5563';

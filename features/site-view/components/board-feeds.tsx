@@ -27,9 +27,10 @@ import {
   type TreeBoard,
 } from '@/components/site-diagram/tree-model';
 import { cn } from '@/lib/cn';
-import { fedFromWords } from '@/lib/names';
+import { fedFromWords, selectivityWords } from '@/lib/names';
 import { ka, ohm, pct } from '@/lib/sites/supply-words';
-import type { SiteTreeBoard } from '@/lib/sites/tree-types';
+import type { SelectivityGroup, SiteTreeBoard } from '@/lib/sites/tree-types';
+import { placesWords } from '@/lib/supply/group-selectivity';
 
 type BoardFeedsProps = {
   /** The site's boards, parents first, with their carried values. */
@@ -127,6 +128,35 @@ function OriginTarget({ disabled }: { disabled?: boolean }) {
   );
 }
 
+/**
+ * Selectivity between the sub-main's device and the devices below it, folded away: one line per
+ * judgement with the ways it covers, and its working. Advisory: never a failure of the board.
+ */
+function SelectivityList({ name, groups }: { name: string; groups: readonly SelectivityGroup[] }) {
+  const toLook = groups.filter((g) => g.outcome !== 'selective').length;
+  return (
+    <details className="mt-1 text-xs text-ink-soft">
+      <summary className="cursor-pointer hover:text-ink" aria-label={`Selectivity below the sub-main feeding ${name}`}>
+        Selectivity (advisory):{' '}
+        {toLook ? `${toLook} of ${groups.length} not selective throughout` : 'selective throughout'}
+      </summary>
+      {/* Paragraphs, not a list: the card is an item of the board list */}
+      <div className="mt-1 space-y-1.5 pl-4">
+        {groups.map((g, i) => (
+          <p key={i}>
+            <span className="text-ink">
+              {g.upstream} above {g.device}
+              {g.places.length ? ` (${placesWords(g.places)})` : ''}: {selectivityWords(g.outcome, g.upToA)}
+            </span>
+            <span className="block">{g.working.text}</span>
+            <span className="block text-ink-faint">Basis: {g.working.sources.join('; ')}</span>
+          </p>
+        ))}
+      </div>
+    </details>
+  );
+}
+
 function BoardCard({
   board,
   boards,
@@ -194,6 +224,7 @@ function BoardCard({
               {result.phase ? `, on ${result.phase}` : ''}
             </p>
           ) : null}
+          {result.selectivity.length ? <SelectivityList name={board.name} groups={result.selectivity} /> : null}
         </div>
       </div>
       {canLink ? (

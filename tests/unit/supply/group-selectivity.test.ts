@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 
-import { groupSelectivity, placesWords } from '@/features/site-pack/utils/group-selectivity';
-import { sizeSite, type SelectivityPair } from '@/lib/supply';
+import { groupSelectivity, placesWords, sizeSite, type SelectivityPair } from '@/lib/supply';
 
-import { threeLevel, twoLevel } from '../supply/fixtures';
+import { threeLevel, twoLevel } from './fixtures';
 
 const working = (text: string) => ({ text, steps: [], sources: ['a source'] });
 

@@ -1,4 +1,4 @@
-import type { SelectivityPair, Working } from '@/lib/supply';
+import type { SelectivityPair, Working } from './types';
 
 /** Pairs of one judgement: the device above, one kind of device below and the ways it sits in. */
 export type SelectivityGroup = {
