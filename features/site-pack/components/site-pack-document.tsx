@@ -1,3 +1,4 @@
+import { Fragment } from 'react';
 import { Document, G, Line, Page, Path, Rect, StyleSheet, Svg, Text, View } from '@react-pdf/renderer';
 
 import { DIAGRAM, layoutSite, type PlacedBoard } from '@/components/site-diagram/layout';
@@ -175,35 +176,44 @@ function WorkingLines({ label, value, working }: { label: string; value: string;
 }
 
 function BoardValues({ b }: { b: SiteBoardResult }) {
+  const lines = [
+    b.zdb ? (
+      <WorkingLines label="Earth fault loop impedance" value={`${n(b.zdb.value, 3)} Ω`} working={b.zdb.working} />
+    ) : null,
+    b.pfc ? (
+      <WorkingLines label="Prospective fault current" value={`${n(b.pfc.value, 2)} kA`} working={b.pfc.working} />
+    ) : null,
+    b.vdUsed ? (
+      <WorkingLines label="Volt drop used above" value={`${n(b.vdUsed.value, 2)} %`} working={b.vdUsed.working} />
+    ) : null,
+    b.subMainCurrent ? (
+      <WorkingLines
+        label="Sub-main design current"
+        value={`${n(b.subMainCurrent.value, 1)} A`}
+        working={b.subMainCurrent.working}
+      />
+    ) : null,
+    ...groupSelectivity(b.selectivity).map((g, i) => (
+      <WorkingLines
+        key={`selectivity-${i}`}
+        label={i === 0 ? 'Selectivity (advisory)' : ''}
+        value={`${g.upstream} above ${g.device}${g.places.length ? ` (${placesWords(g.places)})` : ''}: ${selectivityWords(g.outcome, g.upToA)}`}
+        working={g.working}
+      />
+    )),
+  ].filter((line) => line !== null);
   return (
     <View style={styles.board}>
-      <Text
-        style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700, marginBottom: 3 }}
-      >{`${b.name}, fed from ${fedFromWords(b.fedFrom)}${b.phase ? ` (${b.phase})` : ''}`}</Text>
-      {b.problem ? <Text>{b.problem}</Text> : null}
-      {b.zdb ? (
-        <WorkingLines label="Earth fault loop impedance" value={`${n(b.zdb.value, 3)} Ω`} working={b.zdb.working} />
-      ) : null}
-      {b.pfc ? (
-        <WorkingLines label="Prospective fault current" value={`${n(b.pfc.value, 2)} kA`} working={b.pfc.working} />
-      ) : null}
-      {b.vdUsed ? (
-        <WorkingLines label="Volt drop used above" value={`${n(b.vdUsed.value, 2)} %`} working={b.vdUsed.working} />
-      ) : null}
-      {b.subMainCurrent ? (
-        <WorkingLines
-          label="Sub-main design current"
-          value={`${n(b.subMainCurrent.value, 1)} A`}
-          working={b.subMainCurrent.working}
-        />
-      ) : null}
-      {groupSelectivity(b.selectivity).map((g, i) => (
-        <WorkingLines
-          key={i}
-          label={i === 0 ? 'Selectivity (advisory)' : ''}
-          value={`${g.upstream} above ${g.device}${g.places.length ? ` (${placesWords(g.places)})` : ''}: ${selectivityWords(g.outcome, g.upToA)}`}
-          working={g.working}
-        />
+      {/* The board's name is never alone at the foot of a page: its first value stays with it */}
+      <View wrap={false}>
+        <Text
+          style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700, marginBottom: 3 }}
+        >{`${b.name}, fed from ${fedFromWords(b.fedFrom)}${b.phase ? ` (${b.phase})` : ''}`}</Text>
+        {b.problem ? <Text>{b.problem}</Text> : null}
+        {lines[0] ?? null}
+      </View>
+      {lines.slice(1).map((line, i) => (
+        <Fragment key={i}>{line}</Fragment>
       ))}
     </View>
   );
