@@ -19,6 +19,7 @@ import * as labelRoute from '@/app/api/boards/[boardId]/ways/[wayId]/label/route
 import { storedKey } from '@/features/schedule/print/print-files';
 import * as pool from '@/features/schedule/print/print-pool';
 import { getScheduleSource } from '@/lib/dal/schedule-source';
+import * as storage from '@/lib/storage/s3';
 import { getObjectBytes } from '@/lib/storage/s3';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -31,6 +32,7 @@ vi.mock('@/features/schedule/print/print-pool', async (importActual) => {
 const renders = vi.mocked(pool.renderInPool);
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
 let team: Org;
+let other: Org;
 const workerFile = path.join(process.cwd(), '.data', `print-worker-test-${crypto.randomUUID().slice(0, 8)}.mjs`);
 
 beforeAll(async () => {
@@ -41,6 +43,7 @@ beforeAll(async () => {
   await buildPrintWorker(workerFile);
   process.env.PRINT_WORKER_FILE = workerFile;
   team = await makeOrganisation('Files');
+  other = await makeOrganisation('Files elsewhere');
 }, 60_000);
 
 afterAll(async () => {
@@ -103,6 +106,27 @@ describe('an issued revision', () => {
     expect(renders.mock.calls.length).toBe(before + 1);
     expect(Buffer.from(second.bytes).equals(Buffer.from(first.bytes))).toBe(true);
     expect(second.res.headers.get('content-length')).toBe(String(first.bytes.byteLength));
+  });
+
+  it('is sent from the process’s memory once read or stored, and storage is asked only for a file not kept', async () => {
+    const board = await issuedBoard();
+    signInAs(team.users.installer);
+    const first = await download(scheduleRoute, board.id);
+    expect(first.timing).toMatch(/^render;/);
+    const key = storedKey('schedule', await getScheduleSource(installer(), board.id), new Date());
+    const reads = vi.spyOn(storage, 'getObjectBytes');
+    try {
+      // Stored by this process a moment ago: kept, so storage is not read again
+      const again = await download(scheduleRoute, board.id);
+      expect(again.timing).toMatch(/^stored;/);
+      expect(Buffer.from(again.bytes).equals(Buffer.from(first.bytes))).toBe(true);
+      expect(reads.mock.calls.filter(([k]) => k === key)).toHaveLength(0);
+      // Another organisation's member still gets 404: the facts are read on every request
+      signInAs(other.users.installer);
+      expect((await scheduleRoute.GET(jsonRequest('GET'), ctx({ boardId: board.id }))).status).toBe(404);
+    } finally {
+      reads.mockRestore();
+    }
   });
 
   it('is rendered once when several ask for it before it is stored', async () => {
