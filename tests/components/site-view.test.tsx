@@ -85,7 +85,7 @@ describe('SiteView', () => {
     renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink={false} />);
     const list = await screen.findByRole('list', { name: 'Boards of the site, in supply order' });
     const fin = within(list).getAllByRole('listitem')[2];
-    const summary = within(fin).getByLabelText('Selectivity below the sub-main feeding Finishing room board');
+    const summary = within(fin).getByText(/^Selectivity below the sub-main \(advisory\):/);
     const groups = tree.boards[2].selectivity;
     expect(groups.length).toBeGreaterThan(0);
     // Worked in tests/unit/supply/carried-values.test.ts: C20 above the B16, selective up to 5 × 20 = 100 A

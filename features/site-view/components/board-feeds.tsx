@@ -132,12 +132,12 @@ function OriginTarget({ disabled }: { disabled?: boolean }) {
  * Selectivity between the sub-main's device and the devices below it, folded away: one line per
  * judgement with the ways it covers, and its working. Advisory: never a failure of the board.
  */
-function SelectivityList({ name, groups }: { name: string; groups: readonly SelectivityGroup[] }) {
+function SelectivityList({ groups }: { groups: readonly SelectivityGroup[] }) {
   const toLook = groups.filter((g) => g.outcome !== 'selective').length;
   return (
     <details className="mt-1 text-xs text-ink-soft">
-      <summary className="cursor-pointer hover:text-ink" aria-label={`Selectivity below the sub-main feeding ${name}`}>
-        Selectivity (advisory):{' '}
+      <summary className="cursor-pointer hover:text-ink">
+        Selectivity below the sub-main (advisory):{' '}
         {toLook ? `${toLook} of ${groups.length} not selective throughout` : 'selective throughout'}
       </summary>
       {/* Paragraphs, not a list: the card is an item of the board list */}
@@ -224,7 +224,7 @@ function BoardCard({
               {result.phase ? `, on ${result.phase}` : ''}
             </p>
           ) : null}
-          {result.selectivity.length ? <SelectivityList name={board.name} groups={result.selectivity} /> : null}
+          {result.selectivity.length ? <SelectivityList groups={result.selectivity} /> : null}
         </div>
       </div>
       {canLink ? (
