@@ -49,6 +49,21 @@ export type AuditAction =
   | 'site.origin-changed'
   | 'site.pack-emailed';
 
+/** The details of a board's latest event of one action (null: none), inside the caller's transaction. */
+export async function latestEventDetails(
+  boardId: string,
+  action: AuditAction,
+  transaction: Transaction,
+): Promise<Record<string, unknown> | null> {
+  const event = await AuditEvent.findOne({
+    where: { boardId, action },
+    order: [['createdAt', 'DESC']],
+    attributes: ['details'],
+    transaction,
+  });
+  return (event?.details as Record<string, unknown> | undefined) ?? null;
+}
+
 /** Appends one event to the audit trail, inside the caller's transaction when given. */
 export async function audit(
   actor: Actor,

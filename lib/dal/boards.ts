@@ -16,7 +16,7 @@ import {
   type WayInput,
 } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
-import type { AuditAction } from '@/lib/dal/audit';
+import { latestEventDetails, type AuditAction } from '@/lib/dal/audit';
 import {
   findBoard,
   insertBoard,
@@ -32,6 +32,7 @@ import {
   afterBoardReturn,
   beforeBoardRemoval,
   lockSiteOfBoard,
+  type Relink,
   type RemovalPlan,
   type TreeWriteRequest,
 } from '@/lib/dal/site-feed';
@@ -175,20 +176,29 @@ function removal(
     after: async (board: BoardRecord, _written: BoardDto, transaction: Transaction) => {
       if (plan) out.ripple = await afterBoardRemoval(actor, board, plan, effect(), transaction);
     },
+    /** The feeds the removal lets go, kept in its history event so that coming back takes them up. */
+    relinks: (): Relink[] => (plan as RemovalPlan | null)?.relinks ?? [],
   };
 }
 
-/** The hooks of a board coming back (undelete, restore): it rejoins the tree at the origin, the site re-sized. */
-function comingBack(actor: Actor) {
+/**
+ * The hooks of a board coming back (undelete, restore): it takes up the feeds its removal let go
+ * (`removal` is the history event that holds them: its own feed, and the boards it fed), where
+ * they still hold, else rejoins the tree at the origin; the site re-sized.
+ */
+function comingBack(actor: Actor, removal: 'board.deleted' | 'board.archived') {
   let site: SiteLock | null = null;
+  let relinks: Relink[] = [];
   return {
     tree: true,
     // The site locked for a tree write (`changeBoard` took that lock: this is the row as locked)
     plan: async (board: BoardRecord, transaction: Transaction) => {
       site = await lockSite(actor, board.siteId, transaction, 'update');
+      const details = await latestEventDetails(board.id, removal, transaction);
+      relinks = Array.isArray(details?.feeds) ? (details.feeds as Relink[]) : [];
     },
     after: async (board: BoardRecord, _written: BoardDto, transaction: Transaction) => {
-      if (site) await afterBoardReturn(actor, board, site, transaction);
+      if (site) await afterBoardReturn(actor, board, site, transaction, relinks);
     },
   };
 }
@@ -221,19 +231,21 @@ export async function removeBoard(
       if (rule.effect === 'delete') {
         return {
           set: { deletedAt: new Date(), deletedById: actor.userId },
-          events: [{ action: 'board.deleted', details: { name: board.name } }],
+          events: [{ action: 'board.deleted', details: { name: board.name, feeds: tree.relinks() } }],
         };
       }
-      return archiving(actor, board);
+      return archiving(actor, board, tree.relinks());
     },
     tree,
   );
   return { effect, ...out };
 }
 
-const archiving = (actor: Actor, board: BoardRecord) => ({
+const archiving = (actor: Actor, board: BoardRecord, feeds: Relink[]) => ({
   set: { archivedAt: new Date(), archivedById: actor.userId },
-  events: [{ action: 'board.archived', details: { name: board.name, revision: board.revision } } satisfies BoardEvent],
+  events: [
+    { action: 'board.archived', details: { name: board.name, revision: board.revision, feeds } } satisfies BoardEvent,
+  ],
 });
 
 /** Archives a board (admins: records.archive), issued or not; a board that feeds others asks first. */
@@ -251,7 +263,7 @@ export async function archiveBoard(
     async (board, transaction) => {
       if (board.archivedAt) throw conflict('This board is archived already.');
       await tree.plan(board, transaction);
-      return archiving(actor, board);
+      return archiving(actor, board, tree.relinks());
     },
     tree,
   );
@@ -261,7 +273,7 @@ export async function archiveBoard(
 /** Brings an archived board back into the lists (admins), fed from the origin. */
 export async function restoreBoard(actor: Actor, boardId: string): Promise<BoardDto> {
   if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived boards');
-  const tree = comingBack(actor);
+  const tree = comingBack(actor, 'board.archived');
   const restored = await changeBoard(
     actor,
     boardId,
@@ -281,7 +293,7 @@ export async function restoreBoard(actor: Actor, boardId: string): Promise<Board
 /** Undoes the delete of a draft board: it comes back as it was, fed from the origin. */
 export async function undeleteBoard(actor: Actor, boardId: string): Promise<BoardDto> {
   if (!mayRestore(actor.role, 'deleted')) throw forbidden('restore deleted boards');
-  const tree = comingBack(actor);
+  const tree = comingBack(actor, 'board.deleted');
   const back = await changeBoard(
     actor,
     boardId,

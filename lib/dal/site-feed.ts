@@ -12,7 +12,7 @@ import {
   writeBoardFeed,
 } from '@/lib/dal/board-repository';
 import { audit } from '@/lib/dal/audit';
-import { conflict, notFound, type FieldIssue } from '@/lib/errors';
+import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import { fedFromWords, wayName } from '@/lib/names';
 import type { FedFrom, FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { isProtectiveDevice } from '@/lib/sizing';
@@ -273,7 +273,12 @@ export type RemovalPlan = {
   detach: FeedChange[];
   /** Where the removed board itself was fed from (null: the origin). */
   ownFeed: FedFromWords | null;
+  /** The feeds let go (the removed board's own, then each board it fed), to take up again if it comes back. */
+  relinks: Relink[];
 };
+
+/** A feed from a way that a removal let go: which board, and the feed as it was. */
+export type Relink = { boardId: string; feed: Extract<BoardFeed, { from: 'way' }> };
 
 type FedFromWords = { boardName: string; wayLabel: string | null };
 
@@ -300,6 +305,7 @@ export async function beforeBoardRemoval(
     );
   }
   let ownFeed: FedFromWords | null = null;
+  const relinks: Relink[] = [];
   if (me?.feed.from === 'way') {
     const wayId = me.feed.wayId;
     const parent = byId.get(me.feed.boardId);
@@ -307,8 +313,13 @@ export async function beforeBoardRemoval(
       boardName: parent?.name ?? 'another board',
       wayLabel: parent ? (wayLabelsOf(parent).get(wayId) ?? null) : null,
     };
+    relinks.push({ boardId: board.id, feed: me.feed });
   }
-  return { site, detach, ownFeed };
+  for (const c of detach) {
+    const feed = byId.get(c.boardId)?.feed;
+    if (feed?.from === 'way') relinks.push({ boardId: c.boardId, feed });
+  }
+  return { site, detach, ownFeed, relinks };
 }
 
 /** After the removal's write: the feeds let go (each history says so), the whole site re-sized. */
@@ -361,10 +372,63 @@ export async function afterBoardRemoval(
  */
 export async function afterBoardReturn(
   actor: Actor,
-  board: { id: string; name: string },
+  board: { id: string; name: string; siteId: string },
   site: SiteLock,
   transaction: Transaction,
+  relinks: readonly Relink[] = [],
 ): Promise<SiteRipple | null> {
+  if (relinks.length) await takeUpFeeds(actor, board, relinks, transaction);
   if (!(await siteIsTree(actor, site.id, transaction))) return null;
   return resizeSite(actor, site, transaction, { writtenBoardId: board.id, cause: `${board.name} came back` });
+}
+
+/**
+ * A board coming back takes up the feeds its removal let go: its own, and each board it fed.
+ * A feed is taken up only if it still holds: the board is still fed from the origin (nobody
+ * pointed it elsewhere meanwhile), it is not deleted, and the way passes the checks of a feed
+ * chosen by hand (`checkFeed`: there, fit, free, no loop). Each one taken up or left is in the
+ * board's history. Answers the boards fed again and those left at the origin, with why.
+ */
+export async function takeUpFeeds(
+  actor: Actor,
+  board: { id: string; name: string; siteId: string },
+  relinks: readonly Relink[],
+  transaction: Transaction,
+): Promise<{ relinked: string[]; left: { boardId: string; why: string }[] }> {
+  const boards = await readTreeBoards(board.siteId, transaction, { stored: false });
+  const byId = new Map(boards.map((b) => [b.id, b]));
+  const out = { relinked: [] as string[], left: [] as { boardId: string; why: string }[] };
+  for (const r of relinks) {
+    const target = byId.get(r.boardId);
+    if (!target || target.feed.from !== 'origin') continue;
+    const parent = byId.get(r.feed.boardId);
+    const was = fedFromWords({
+      boardName: parent?.name ?? 'another board',
+      wayLabel: parent ? (wayLabelsOf(parent).get(r.feed.wayId) ?? null) : null,
+    });
+    try {
+      await checkFeed(actor, { ...target, siteId: board.siteId }, r.feed, byId, transaction);
+    } catch (err) {
+      if (!(err instanceof HttpError)) throw err;
+      const why = err.status === 404 ? 'the way that fed it is gone' : err.message;
+      out.left.push({ boardId: target.id, why });
+      await audit(
+        actor,
+        'board.feed-changed',
+        { feed: ORIGIN, reason: 'board-returned', kept: true, was, returnedBoard: board.name, why },
+        { boardId: target.id, transaction },
+      );
+      continue;
+    }
+    await writeFeed(
+      actor,
+      target.id,
+      r.feed,
+      { reason: 'board-returned', returnedBoard: board.name, was },
+      transaction,
+    );
+    byId.set(target.id, { ...target, feed: r.feed });
+    out.relinked.push(target.id);
+  }
+  return out;
 }

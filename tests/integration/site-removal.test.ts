@@ -1,3 +1,5 @@
+import crypto from 'node:crypto';
+
 import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it } from 'vitest';
 
@@ -12,7 +14,7 @@ import { describeAuditEntry } from '@/features/audit/utils/describe-event';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import type { DerivedSupply, FeedChange, SiteTreeDto } from '@/lib/sites/tree-types';
-import { AuditEvent } from '@/models';
+import { AuditEvent, Board } from '@/models';
 
 import { twoLevel } from '../unit/supply/fixtures';
 import { ctx, jsonRequest, makeOrganisation, signInAs } from './helpers';
@@ -143,15 +145,64 @@ describe('removing a board of a supply tree', () => {
     expect(await fedFromWay(t.id('fin'))).toBe(t.id('w-sub'));
     await archive(t.id('db1'), true);
     await expectAtOrigin(t.id('fin'), fx.origin.zeOhm);
-    // Restored, Workshop DB1 comes back on its own: the finishing room stays where it was put
+    // Restored, Workshop DB1 takes up the feed its archive let go: the finishing room is fed
+    // from its way again and sized with what it carries, in the same request
     await call(restoreRoute.POST(jsonRequest('POST'), ctx({ boardId: t.id('db1') })));
-    await expectAtOrigin(t.id('fin'), fx.origin.zeOhm);
+    expect(await fedFromWay(t.id('fin'))).toBe(t.id('w-sub'));
+    expect((await stored(t.id('fin'))).carried?.from).toBe('way');
     const db1 = await stored(t.id('db1'));
     expect(db1.version).toBe(db1.board_version);
+    const history = await AuditEvent.findAll({ where: { boardId: t.id('fin'), action: 'board.feed-changed' } });
+    const entry = history.find((e) => (e.details as { reason?: string }).reason === 'board-returned')!;
+    expect(describeAuditEntry({ action: entry.action, details: entry.details, wayLabel: null })).toBe(
+      'fed the board again from Workshop DB1, way 1, as before Workshop DB1 was removed',
+    );
   });
 
-  it('deleting a fed board takes its demand off the sub-main at once; undo brings it back at the origin', async () => {
+  it('undoing the delete of a board that fed another feeds that board from it again', async () => {
+    const { t } = await linkedTwoLevel();
+    await remove(t.id('db1'), true);
+    expect(await fedFromWay(t.id('fin'))).toBeNull();
+    await call(undoRoute.POST(jsonRequest('POST'), ctx({ boardId: t.id('db1') })));
+    expect(await fedFromWay(t.id('fin'))).toBe(t.id('w-sub'));
+    const fin = await getBoard(t.id('fin'));
+    expect(fin.derivedSupply?.fedFrom).toMatchObject({ boardName: 'Workshop DB1', wayLabel: '1' });
+    const tree = await getTree(t.site.id);
+    expect(tree.edges).toEqual([expect.objectContaining({ fromWayId: t.id('w-sub'), toBoardId: t.id('fin') })]);
+  });
+
+  it('a feed taken meanwhile is not taken back: the board stays at the origin, its history says why', async () => {
     const { t, fx } = await linkedTwoLevel();
+    await remove(t.id('fin'), false);
+    // While the finishing room is deleted, another board of the site is fed from the freed way
+    const finRow = await Board.findByPk(t.id('fin'));
+    const spray = await Board.create({
+      ...finRow!.get({ plain: true }),
+      id: crypto.randomUUID(),
+      name: 'Spray booth board',
+      deletedAt: null,
+      deletedById: null,
+      fedFromWayId: null,
+    });
+    await call(
+      feedRoute.PUT(
+        jsonRequest('PUT', { feed: { from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') } }),
+        ctx({ boardId: spray.id }),
+      ),
+    );
+    await call(undoRoute.POST(jsonRequest('POST'), ctx({ boardId: t.id('fin') })));
+    await expectAtOrigin(t.id('fin'), fx.origin.zeOhm);
+    expect(await fedFromWay(spray.id)).toBe(t.id('w-sub'));
+    const history = await AuditEvent.findAll({ where: { boardId: t.id('fin'), action: 'board.feed-changed' } });
+    const entry = history.find((e) => (e.details as { reason?: string }).reason === 'board-returned')!;
+    expect(describeAuditEntry({ action: entry.action, details: entry.details, wayLabel: null })).toBe(
+      'kept the board fed from the site’s origin when Finishing room board came back: ' +
+        'way 1 of Workshop DB1 already feeds Spray booth board; a way feeds one board',
+    );
+  });
+
+  it('deleting a fed board takes its demand off the sub-main at once; undo feeds it from its way again', async () => {
+    const { t } = await linkedTwoLevel();
     // The sub-main carries the finishing room's maximum demand, 13.75 A (tests/unit/supply)
     const subIb = async () => (await stored(t.id('db1'))).sizing?.ways.find((w) => w.id === t.id('w-sub'))?.result?.ibA;
     expect(await subIb()).toBeCloseTo(13.75, 9);
@@ -169,9 +220,12 @@ describe('removing a board of a supply tree', () => {
     expect(await subIb()).toBe(0);
     const db1 = await stored(t.id('db1'));
     expect(db1.version).toBe(db1.board_version);
-    // Undo: the board is back, fed from the origin and sized against it in the same request
+    // Undo: the board is back on the way that fed it (still free), and the sub-main carries its
+    // demand again, all in the same request
     const back = await call<{ board: BoardDto }>(undoRoute.POST(jsonRequest('POST'), ctx({ boardId: t.id('fin') })));
-    expect(back.board.feed).toEqual({ from: 'origin' });
-    await expectAtOrigin(t.id('fin'), fx.origin.zeOhm);
+    expect(await fedFromWay(t.id('fin'))).toBe(t.id('w-sub'));
+    expect((await stored(t.id('fin'))).carried?.from).toBe('way');
+    expect(await subIb()).toBeCloseTo(13.75, 9);
+    expect(back.board.feed).toMatchObject({ from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') });
   });
 });

@@ -100,7 +100,11 @@ export function describeAuditEntry(entry: Pick<AuditEntry, 'action' | 'details' 
           ? d.self
             ? `let go of the way that fed the board (${text(d.was)}): the board was ${text(d.effect)}`
             : `fed the board from the site’s origin: ${text(d.removedBoard)}, which fed it, was ${text(d.effect)}`
-          : 'changed where the board is fed from';
+          : d.reason === 'board-returned'
+            ? d.kept
+              ? `kept the board fed from the site’s origin when ${text(d.returnedBoard)} came back: ${text(d.why)}`
+              : `fed the board again from ${text(d.was)}, as before ${text(d.returnedBoard)} was removed`
+            : 'changed where the board is fed from';
     case 'board.supply-changed': {
       const n = Array.isArray(d.ways) ? d.ways.length : 0;
       return `changed the supply carried to this board (${text(d.cause) || 'a change upstream'})${

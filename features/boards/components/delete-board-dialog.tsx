@@ -47,14 +47,16 @@ export function DeleteBoardDialog({ question, onClose }: { question: RemovalQues
         : '';
       if (answer.effect === 'archived') toast.success(`Archived ${board.name}. Find it under “Show archived”.${moved}`);
       else {
-        // Undo brings the board back fed from the origin; the boards it fed stay where they now are
+        // Undo brings the board back with the feeds it had (its own and the boards it fed), where
+        // each way is still free and nobody linked the board elsewhere meanwhile
         toast.success(`Deleted ${board.name}.${moved}`, {
           duration: 10_000,
           action: {
             label: 'Undo',
             onClick: () =>
               undo.mutate(board.id, {
-                onSuccess: () => toast.success(`${board.name} is back, fed from the origin.`),
+                onSuccess: () =>
+                  toast.success(`${board.name} is back, with its feeds as they were where the ways are still free.`),
                 onError: (e) => toast.error(errorMessage(e)),
               }),
           },
@@ -114,6 +116,10 @@ export function DeleteBoardDialog({ question, onClose }: { question: RemovalQues
               </li>
             ))}
           </ul>
+          <p className="mt-2">
+            {archive ? 'Restoring' : 'Undoing the delete of'} {board?.name} feeds them from it again, where nobody has
+            linked them elsewhere meanwhile.
+          </p>
         </div>
       ) : null}
     </ConfirmDialog>
