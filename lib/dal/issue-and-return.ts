@@ -11,6 +11,7 @@ import { liveSnapshot } from '@/lib/dal/board-snapshot';
 import { sizeDesign, writeBoard, type BoardRecord } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices, revisionComments } from '@/lib/dal/notices';
+import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { nextRevision } from '@/lib/dal/revisions';
 import { env } from '@/lib/env';
 import { badRequest, conflict, HttpError, unprocessable } from '@/lib/errors';
@@ -45,6 +46,9 @@ export async function approveBoard(
   input: { acknowledgeFailures?: boolean; declaration: string; revision?: number },
 ): Promise<{ revision: number; status: BoardStatus }> {
   return db().transaction(async (transaction) => {
+    // The site first (the order of every write on a site), so that the supply carried to this
+    // board, frozen below, is not re-sized by a change upstream while it is being issued
+    await lockSiteOfBoard(actor, boardId, transaction);
     // Lock the board and check its stage
     const board = await findWritableBoard(actor, boardId, transaction);
     const step = transition(board.status, 'approve', { revision: board.revision });

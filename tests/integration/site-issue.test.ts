@@ -6,6 +6,7 @@ import * as submitRoute from '@/app/api/boards/[boardId]/submit/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import type { BoardSnapshot } from '@/lib/boards/revision-diff';
 import type { BoardResult } from '@/lib/sizing';
+import { db } from '@/lib/db';
 import { BoardRevision } from '@/models';
 
 import { twoLevel } from '../unit/supply/fixtures';
@@ -75,5 +76,37 @@ describe('issuing a board of a supply tree', () => {
     // The sub-main carries the finishing room's maximum demand, 13.75 A
     const sub = db1.sizing.ways.find((w) => w.id === t.id('w-sub'))?.result;
     expect(sub?.ibA).toBeCloseTo(13.75, 9);
+  });
+
+  it('waits for a change upstream that holds the site, so the supply it freezes is the one committed', async () => {
+    signInAs(team.users.designer);
+    const fx = twoLevel();
+    const t = await storeTree(team.org.id, fx);
+    await ok(originRoute.PUT(jsonRequest('PUT', fx.origin), ctx({ siteId: t.site.id })));
+    await ok(submitRoute.POST(jsonRequest('POST', {}), ctx({ boardId: t.id('db1') })));
+    // A tree write in progress elsewhere: the site's row locked, as every upstream change locks it
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    let locked!: () => void;
+    const isLocked = new Promise<void>((resolve) => (locked = resolve));
+    const writer = db().transaction(async (transaction) => {
+      await db().query('SELECT id FROM sites WHERE id = $1 FOR UPDATE', { bind: [t.site.id], transaction });
+      locked();
+      await held;
+    });
+    await isLocked;
+    signInAs(team.users.inspector);
+    let done = false;
+    const approving = approveRoute
+      .POST(
+        jsonRequest('POST', { acknowledgeFailures: true, declaration: team.users.inspector.name }),
+        ctx({ boardId: t.id('db1') }),
+      )
+      .finally(() => (done = true));
+    await new Promise((r) => setTimeout(r, 400));
+    expect(done).toBe(false);
+    release();
+    await writer;
+    expect((await approving).status).toBe(200);
   });
 });
