@@ -116,7 +116,7 @@ export const AUDIT_PAGE_MAX = 200;
 export async function listAudit(
   actor: Actor,
   boardId: string,
-  opts: { before?: string; limit?: number } = {},
+  opts: { before?: string; limit?: number; actions?: readonly string[] } = {},
 ): Promise<AuditPage> {
   // Ownership: the board must belong to the caller's organisation (deleted or not)
   const board = await findBoard(actor, boardId, { deleted: true });
@@ -127,6 +127,7 @@ export async function listAudit(
       boardId,
       organisationId: actor.organisationId,
       ...(opts.before ? { id: { [Op.lt]: opts.before } } : {}),
+      ...(opts.actions?.length ? { action: { [Op.in]: [...opts.actions] } } : {}),
     },
     order: [['id', 'DESC']],
     limit: limit + 1,

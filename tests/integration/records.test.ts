@@ -259,6 +259,32 @@ describe('boards', () => {
   });
 });
 
+describe('the history of a board', () => {
+  it('is read for chosen kinds of event, so a long history since cannot hide them; a malformed list is 400', async () => {
+    const { boardId } = await draftBoard();
+    const org = (await Board.findByPk(boardId))!.organisationId;
+    await AuditEvent.create({ organisationId: org, boardId, action: 'board.supply-changed', details: { cause: 'x' } });
+    // A walk since: one event per label, more than a page
+    await AuditEvent.bulkCreate(
+      Array.from({ length: 120 }, (_, i) => ({
+        organisationId: org,
+        boardId,
+        action: 'label.checked',
+        details: { wayId: `w${i}` },
+      })),
+    );
+    signInAs(team.users.admin);
+    const page = (url: string) => get(auditRoute, boardId, url);
+    const all = await (await page('http://127.0.0.1/api/x')).json();
+    expect(all.entries.some((e: { action: string }) => e.action === 'board.supply-changed')).toBe(false);
+    const chosen = await (await page('http://127.0.0.1/api/x?actions=board.supply-changed,review.approved')).json();
+    expect(chosen.entries.map((e: { action: string }) => e.action)).toEqual(['board.supply-changed']);
+    const bad = await page('http://127.0.0.1/api/x?actions=DROP%20TABLE');
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(await bad.json())).toContain('actions');
+  });
+});
+
 describe('separation of duties at issue', () => {
   it('the last person to change the design may not issue it, unless the organisation allows self-issue', async () => {
     // The admin saves the design, so the admin may not issue it; the inspector may

@@ -31,7 +31,7 @@ type SupplyChange = {
   at: string;
   cause: string;
   ways: ChangedWay[];
-  /** Newer than the board's last issue (its approval), or no approval on this newest page. */
+  /** Newer than the board's last issue (its approval), or no approval as new as it (none on the page). */
   afterLastIssue: boolean;
 };
 
@@ -93,7 +93,12 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
   });
   const history = useQuery({
     queryKey: ['boards', board.id, 'supply-change'],
-    queryFn: () => apiFetch<AuditPage>(`/api/boards/${encodeURIComponent(board.id)}/audit`),
+    // Only the supply changes and the approvals: the newest of each are on this one page however
+    // long the history since (a walk alone writes an event per label)
+    queryFn: () =>
+      apiFetch<AuditPage>(
+        `/api/boards/${encodeURIComponent(board.id)}/audit?actions=board.supply-changed,review.approved`,
+      ),
     select: latestSupplyChange,
   });
   const setFeed = useMutation({

@@ -4,7 +4,7 @@ import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
 import { AUDIT_PAGE_MAX, listAudit } from '@/lib/dal/audit';
 
-/** GET /api/boards/:boardId/audit[?before=&limit=]: who changed what on the board, newest first. */
+/** GET /api/boards/:boardId/audit[?before=&limit=&actions=]: who changed what on the board, newest first. */
 export const GET = defineRoute({
   action: 'boards.read',
   params: idParamsSchema,
@@ -16,6 +16,12 @@ export const GET = defineRoute({
         .regex(/^[1-9][0-9]{0,17}$/, 'Use the id of an audit event.')
         .optional(),
       limit: z.coerce.number().int().min(1).max(AUDIT_PAGE_MAX).optional(),
+      // Only these kinds of event, comma-separated ("board.supply-changed,review.approved")
+      actions: z
+        .string()
+        .regex(/^[a-z]+\.[a-z-]+(,[a-z]+\.[a-z-]+){0,9}$/, 'Name up to ten kinds of event, separated by commas.')
+        .transform((v) => v.split(','))
+        .optional(),
     })
     .strict(),
   // Ownership and the page, in the DAL
