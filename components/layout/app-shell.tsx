@@ -18,12 +18,16 @@ export function AppShell({ links, user, children }: ShellProps) {
   return (
     <div className="flex min-h-screen flex-col">
       <header className="border-b border-line bg-paper-raised">
-        <div className="mx-auto flex h-14 max-w-[1400px] items-center gap-6 px-4">
+        {/* On a phone the sections take a row of their own under the name, so none is hidden */}
+        <div className="mx-auto flex max-w-[1400px] flex-wrap items-center gap-x-6 gap-y-1 px-4 py-2 sm:h-14 sm:flex-nowrap sm:py-0">
           <Link href="/boards" className="flex items-center gap-2 font-semibold tracking-tight">
             <span aria-hidden className="inline-block h-4 w-4 rounded-sm bg-copper" />
             Boardwright
           </Link>
-          <nav aria-label="Sections" className="flex flex-1 items-center gap-1 overflow-x-auto">
+          <nav
+            aria-label="Sections"
+            className="order-last -mx-3 flex w-full flex-wrap items-center gap-1 sm:order-none sm:mx-0 sm:w-auto sm:flex-1 sm:flex-nowrap sm:overflow-x-auto"
+          >
             {links.map((link) => {
               const active = pathname === link.href || pathname.startsWith(`${link.href}/`);
               return (
@@ -41,7 +45,7 @@ export function AppShell({ links, user, children }: ShellProps) {
               );
             })}
           </nav>
-          <div className="flex items-center gap-3 text-sm">
+          <div className="ml-auto flex items-center gap-3 text-sm sm:ml-0">
             <span className="hidden text-ink-soft sm:inline">
               {user.name} · <span className="capitalize">{user.role}</span>
             </span>

@@ -86,6 +86,28 @@ describe('screens', () => {
     }
   });
 
+  it('on a phone every section of the top bar is in view (an admin has five)', async () => {
+    const phone = await openBrowser({ phone: true });
+    try {
+      const { page } = phone;
+      await signIn(page, 'admin');
+      await page.goto(`${APP_URL}/boards`);
+      const nav = page.getByRole('navigation', { name: 'Sections' });
+      const links = nav.getByRole('link');
+      await links.first().waitFor();
+      expect(await links.allTextContents()).toEqual(['Boards', 'Sites', 'Quick size', 'Members', 'Outbox']);
+      const width = await page.evaluate(() => window.innerWidth);
+      for (const link of await links.all()) {
+        const name = (await link.textContent()) ?? '';
+        const box = (await link.boundingBox())!;
+        expect(box.x, name).toBeGreaterThanOrEqual(0);
+        expect(box.x + box.width, name).toBeLessThanOrEqual(width);
+      }
+    } finally {
+      await phone.close();
+    }
+  });
+
   it('dates are written one way, with their time: lists and the outbox', async () => {
     const admin = await openBrowser();
     try {
