@@ -118,6 +118,35 @@ describe('SiteView', () => {
     await waitFor(() => expect(screen.queryByRole('dialog')).toBeNull());
   });
 
+  it('offers the site pack to those who may print it: open, download, and e-mail with the address checked', async () => {
+    const fetch = mockFetch(json({ tree: treeDto() }), json({ mail: { id: 'm1', to: 'client@example.test' } }, 202));
+    renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink={false} canPrint />);
+    await screen.findByRole('list', { name: 'Boards of the site, in supply order' });
+    expect(screen.getByRole('link', { name: 'Site pack (PDF)' }).getAttribute('href')).toBe('/api/sites/site-1/pack');
+    expect(screen.getByRole('link', { name: 'Download the site pack' }).getAttribute('href')).toBe(
+      '/api/sites/site-1/pack?download=1',
+    );
+    await userEvent.click(screen.getByText('E-mail the site pack'));
+    // A bad address is refused on the field, and nothing is sent
+    await userEvent.type(screen.getByLabelText('To'), 'not-an-address');
+    await userEvent.click(screen.getByRole('button', { name: 'Send the pack' }));
+    expect(await screen.findByText('Give a valid e-mail address.')).toBeTruthy();
+    expect(fetch).toHaveBeenCalledTimes(1);
+    await userEvent.clear(screen.getByLabelText('To'));
+    await userEvent.type(screen.getByLabelText('To'), 'client@example.test');
+    await userEvent.click(screen.getByRole('button', { name: 'Send the pack' }));
+    await waitFor(() => expect(fetch).toHaveBeenCalledTimes(2));
+    expect(fetch.mock.calls[1][0]).toBe('/api/sites/site-1/pack/email');
+    expect(sentBody(fetch, 1)).toEqual({ to: 'client@example.test' });
+  });
+
+  it('offers no site pack to a member who may not print drafts', async () => {
+    mockFetch(json({ tree: treeDto() }));
+    renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink={false} />);
+    await screen.findByRole('list', { name: 'Boards of the site, in supply order' });
+    expect(screen.queryByRole('link', { name: 'Site pack (PDF)' })).toBeNull();
+  });
+
   it("shows the server's refusal of a loop and keeps the board's feed", async () => {
     const refusal = {
       error: 'Workshop DB1 cannot be fed from Finishing room board: the boards would feed each other in a loop.',

@@ -1,6 +1,6 @@
 import { apiFetch } from '@/lib/api/client';
 import type { FeedChoice } from '@/components/site-diagram/tree-model';
-import type { BoardSaveAnswer, SiteTreeDto } from '@/lib/sites/tree-types';
+import type { BoardSaveAnswer, SitePackEmailInput, SiteTreeDto } from '@/lib/sites/tree-types';
 
 /** Cache key of a site's tree. */
 export const siteTreeKey = (siteId: string) => ['sites', 'tree', siteId] as const;
@@ -20,4 +20,12 @@ export async function putBoardFeed(boardId: string, feed: FeedChoice, version?: 
     method: 'PUT',
     body: { feed, confirmFeedChanges: true, ...(version ? { version } : {}) },
   });
+}
+
+/** POST /api/sites/:siteId/pack/email: the site pack queued in the outbox for `to`. */
+export async function postSitePackEmail(
+  siteId: string,
+  input: SitePackEmailInput,
+): Promise<{ mail: { id: string; to: string } }> {
+  return apiFetch(`/api/sites/${encodeURIComponent(siteId)}/pack/email`, { method: 'POST', body: input });
 }

@@ -11,12 +11,15 @@ import { ErrorState } from '@/components/ui/error-state';
 import { useSetFeed, useSiteTree } from '../api/use-site-tree';
 import { repointWords, type PendingFeed } from '../utils/repoint';
 import { BoardFeeds } from './board-feeds';
+import { SitePackActions } from './site-pack-actions';
 
 type SiteViewProps = {
   siteId: string;
   siteName: string;
   /** Whether the member may link boards (the server checks again). */
   canLink: boolean;
+  /** Whether the member may print the site pack (it prints drafts; the server checks again). */
+  canPrint?: boolean;
 };
 
 /**
@@ -26,7 +29,7 @@ type SiteViewProps = {
  * first, naming every board whose supply values change; a refusal (a loop, a way that already
  * feeds a board) shows the server's message.
  */
-export function SiteView({ siteId, siteName, canLink }: SiteViewProps) {
+export function SiteView({ siteId, siteName, canLink, canPrint = false }: SiteViewProps) {
   const query = useSiteTree(siteId);
   const setFeed = useSetFeed(siteId);
   const [pending, setPending] = useState<PendingFeed | null>(null);
@@ -52,6 +55,7 @@ export function SiteView({ siteId, siteName, canLink }: SiteViewProps) {
         </p>
       </div>
       <Caution />
+      {canPrint ? <SitePackActions siteId={siteId} /> : null}
       {query.isError ? (
         <ErrorState
           title="The supply tree could not be loaded"

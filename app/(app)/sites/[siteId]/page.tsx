@@ -29,7 +29,12 @@ export default async function SitePage({ params }: Props) {
   return (
     <>
       <SiteDetails site={site} role={actor.role} />
-      <SiteView siteId={site.id} siteName={site.name} canLink={can(actor.role, 'boards.edit') && !site.archived} />
+      <SiteView
+        siteId={site.id}
+        siteName={site.name}
+        canLink={can(actor.role, 'boards.edit') && !site.archived}
+        canPrint={can(actor.role, 'schedule.print-draft')}
+      />
       <BoardsView role={actor.role} siteId={site.id} />
     </>
   );

@@ -1,0 +1,80 @@
+'use client';
+
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useMutation } from '@tanstack/react-query';
+import { FileDown, FileText, Mail } from 'lucide-react';
+import { useForm } from 'react-hook-form';
+import { toast } from 'sonner';
+
+import { Button } from '@/components/ui/button';
+import { Field, Input } from '@/components/ui/field';
+import { FormAlert } from '@/components/ui/form-alert';
+import { errorMessage } from '@/lib/api/client';
+import { sitePackEmailSchema, type SitePackEmailInput } from '@/lib/sites/tree-types';
+
+import { postSitePackEmail } from '../api/site-tree-api';
+
+const linkClass =
+  'inline-flex h-10 items-center gap-1.5 rounded-md border border-line-strong bg-paper-raised px-4 text-sm font-medium hover:bg-paper-sunk';
+
+/**
+ * The site pack (the single-line diagram, the values carried to each board with their working,
+ * then every board's schedule, one PDF): open it, download it, or e-mail it through the outbox.
+ * For the members who may print drafts (the server checks again).
+ */
+export function SitePackActions({ siteId }: { siteId: string }) {
+  const form = useForm<SitePackEmailInput>({
+    resolver: zodResolver(sitePackEmailSchema),
+    defaultValues: { to: '', message: '' },
+  });
+  const send = useMutation({
+    mutationFn: (input: SitePackEmailInput) =>
+      postSitePackEmail(siteId, { ...input, message: input.message || undefined }),
+    onSuccess: (r) => {
+      toast.success(`Site pack queued for ${r.mail.to}.`);
+      form.reset({ to: '', message: '' });
+    },
+  });
+  const pack = `/api/sites/${encodeURIComponent(siteId)}/pack`;
+  return (
+    <div className="flex flex-col gap-3">
+      <div className="flex flex-wrap items-center gap-2">
+        <a href={pack} target="_blank" rel="noopener" className={linkClass}>
+          <FileText aria-hidden className="h-4 w-4" /> Site pack (PDF)
+        </a>
+        <a href={`${pack}?download=1`} className={linkClass}>
+          <FileDown aria-hidden className="h-4 w-4" /> Download the site pack
+        </a>
+      </div>
+      <details className="rounded-card border border-line bg-paper-raised p-4">
+        <summary className="flex cursor-pointer items-center gap-2 text-sm font-semibold">
+          <Mail aria-hidden className="h-4 w-4" /> E-mail the site pack
+        </summary>
+        <form
+          className="mt-3 grid gap-3 md:grid-cols-[1fr_2fr_auto] md:items-end"
+          noValidate
+          onSubmit={form.handleSubmit((v) => send.mutate(v))}
+        >
+          <Field label="To" error={form.formState.errors.to?.message}>
+            {(id, describedBy) => (
+              <Input
+                id={id}
+                type="email"
+                aria-describedby={describedBy}
+                aria-invalid={!!form.formState.errors.to}
+                {...form.register('to')}
+              />
+            )}
+          </Field>
+          <Field label="Message (optional)" error={form.formState.errors.message?.message}>
+            {(id, describedBy) => <Input id={id} aria-describedby={describedBy} {...form.register('message')} />}
+          </Field>
+          <Button type="submit" disabled={send.isPending}>
+            {send.isPending ? 'Sending…' : 'Send the pack'}
+          </Button>
+        </form>
+        {send.isError ? <FormAlert className="mt-3">{errorMessage(send.error)}</FormAlert> : null}
+      </details>
+    </div>
+  );
+}
