@@ -55,7 +55,6 @@ export function SiteView({ siteId, siteName, canLink, canPrint = false }: SiteVi
         </p>
       </div>
       <Caution />
-      {canPrint ? <SitePackActions siteId={siteId} /> : null}
       {query.isError ? (
         <ErrorState
           title="The supply tree could not be loaded"
@@ -105,6 +104,8 @@ export function SiteView({ siteId, siteName, canLink, canPrint = false }: SiteVi
           ) : null}
         </ConfirmDialog>
       ) : null}
+      {/* After the tree, so that printing the whole site never pushes the tree itself down */}
+      {canPrint ? <SitePackActions siteId={siteId} /> : null}
     </section>
   );
 }
