@@ -8,8 +8,9 @@ import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
-import { Field, Input, Select } from '@/components/ui/field';
+import { Select } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
+import { PdfMailForm } from '@/components/ui/pdf-mail-form';
 import { errorMessage } from '@/lib/api/client';
 import { MAIL_STATUS_NAMES } from '@/lib/names';
 
@@ -88,29 +89,14 @@ export function ScheduleToolbar({ boardId, revision, choices }: Props) {
         <summary className="flex cursor-pointer items-center gap-2 text-sm font-semibold">
           <Mail aria-hidden className="h-4 w-4" /> E-mail this schedule
         </summary>
-        <form
-          className="mt-3 grid gap-3 md:grid-cols-[1fr_2fr_auto] md:items-end"
-          noValidate
+        <PdfMailForm
+          to={form.register('to')}
+          message={form.register('message')}
+          errors={{ to: form.formState.errors.to?.message, message: form.formState.errors.message?.message }}
+          pending={send.isPending}
+          submitLabel="Send PDF"
           onSubmit={form.handleSubmit((v) => send.mutate(v))}
-        >
-          <Field label="To" error={form.formState.errors.to?.message}>
-            {(id, describedBy) => (
-              <Input
-                id={id}
-                type="email"
-                aria-describedby={describedBy}
-                aria-invalid={!!form.formState.errors.to}
-                {...form.register('to')}
-              />
-            )}
-          </Field>
-          <Field label="Message (optional)" error={form.formState.errors.message?.message}>
-            {(id, describedBy) => <Input id={id} aria-describedby={describedBy} {...form.register('message')} />}
-          </Field>
-          <Button type="submit" disabled={send.isPending}>
-            {send.isPending ? 'Sending…' : 'Send PDF'}
-          </Button>
-        </form>
+        />
         {send.isError ? <FormAlert className="mt-3">{errorMessage(send.error)}</FormAlert> : null}
         {mails.data?.length ? (
           <table className="mt-4 w-full text-left text-sm">

@@ -6,9 +6,8 @@ import { FileDown, FileText, Mail } from 'lucide-react';
 import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 
-import { Button } from '@/components/ui/button';
-import { Field, Input } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
+import { PdfMailForm } from '@/components/ui/pdf-mail-form';
 import { errorMessage } from '@/lib/api/client';
 import { sitePackEmailSchema, type SitePackEmailInput } from '@/lib/sites/tree-types';
 
@@ -50,29 +49,14 @@ export function SitePackActions({ siteId }: { siteId: string }) {
         <summary className="flex cursor-pointer items-center gap-2 text-sm font-semibold">
           <Mail aria-hidden className="h-4 w-4" /> E-mail the site pack
         </summary>
-        <form
-          className="mt-3 grid gap-3 md:grid-cols-[1fr_2fr_auto] md:items-end"
-          noValidate
+        <PdfMailForm
+          to={form.register('to')}
+          message={form.register('message')}
+          errors={{ to: form.formState.errors.to?.message, message: form.formState.errors.message?.message }}
+          pending={send.isPending}
+          submitLabel="Send the pack"
           onSubmit={form.handleSubmit((v) => send.mutate(v))}
-        >
-          <Field label="To" error={form.formState.errors.to?.message}>
-            {(id, describedBy) => (
-              <Input
-                id={id}
-                type="email"
-                aria-describedby={describedBy}
-                aria-invalid={!!form.formState.errors.to}
-                {...form.register('to')}
-              />
-            )}
-          </Field>
-          <Field label="Message (optional)" error={form.formState.errors.message?.message}>
-            {(id, describedBy) => <Input id={id} aria-describedby={describedBy} {...form.register('message')} />}
-          </Field>
-          <Button type="submit" disabled={send.isPending}>
-            {send.isPending ? 'Sending…' : 'Send the pack'}
-          </Button>
-        </form>
+        />
         {send.isError ? <FormAlert className="mt-3">{errorMessage(send.error)}</FormAlert> : null}
       </details>
     </div>
