@@ -1,11 +1,6 @@
-import type { ReviewData } from '@/lib/boards/review-types';
-import type { BoardSummary, CircuitResult } from '@/lib/sizing';
-
-/** The parts of a way's sizing the review page's table shows (its checks load when the way is opened). */
-export type ReviewWayResult = Pick<
-  CircuitResult,
-  'ibA' | 'inA' | 'csaMm2' | 'izA' | 'vdPct' | 'zsOhm' | 'zsMaxOhm' | 'verdict'
->;
+import type { CommentDto, ReviewData } from '@/lib/boards/review-types';
+import { deviceName, loadTypeName } from '@/lib/names';
+import type { BoardSummary, CircuitResult, Verdict } from '@/lib/sizing';
 
 /** A way's checks as the review page shows them when the way is opened. */
 export type WayChecks = Pick<CircuitResult['checks'][number], 'code' | 'ok' | 'message' | 'reference'>[];
@@ -15,45 +10,73 @@ export function wayChecksOf(result: Pick<CircuitResult, 'checks'> | null): WayCh
   return (result?.checks ?? []).map(({ code, ok, message, reference }) => ({ code, ok, message, reference }));
 }
 
-/** The parts of a board's sizing the review page shows. */
-export type ReviewSizing = {
-  ways: { id: string; result: ReviewWayResult | null }[];
-  summary: Pick<BoardSummary, 'connectedLoadW' | 'maxDemandA' | 'counts'> & {
-    incomingCheck: { message: string };
-  };
+/** One row of the review page's ways table, in words and figures ready to show. */
+export type ReviewWayRow = {
+  id: string;
+  /** The printed way reference ('' for a device without one, such as a main switch). */
+  ref: string;
+  /** What the way's circuit serves; null when the way has no circuit. */
+  serves: string | null;
+  /** The circuit's kind of load, in words; null when the way has no circuit. */
+  loadType: string | null;
+  device: string;
+  /** Ib A, mm², Iz A, volt drop %, Zs Ω with its maximum in brackets ('—' where there is none). */
+  figures: [string, string, string, string, string];
+  /** Whether the way has a sizing (a circuit the engine sized), so checks to open. */
+  sized: boolean;
+  verdict: Verdict | null;
+  comments: CommentDto[];
 };
 
-/** The review page's props: the review, its sizing cut to what the page shows. */
-export type ReviewPageData = Omit<ReviewData, 'sizing'> & { sizing: ReviewSizing | null };
+/** The parts of a board's sizing summary the review page shows. */
+export type ReviewSummary = Pick<BoardSummary, 'connectedLoadW' | 'maxDemandA' | 'counts'> & {
+  incomingCheck: { message: string };
+};
+
+/** The review page's props: the review, with its sizing cut to the table's rows and the summary. */
+export type ReviewPageData = Omit<ReviewData, 'sizing'> & { summary: ReviewSummary | null; rows: ReviewWayRow[] };
+
+const fmt = (v: number | null | undefined, d: number) => (v === null || v === undefined ? '—' : v.toFixed(d));
 
 /**
- * The review cut to what the page shows: the engine's working (factors, table rows, notes, RCD
- * coverage…) and each way's checks (loaded when a way is opened) stay out of the page.
+ * The review cut to what the page shows: each way as a row of words and figures (the engine's
+ * working, factors, table rows and notes stay on the server; a way's checks load when it is
+ * opened) and the board's summary.
  */
 export function reviewPageData(data: ReviewData): ReviewPageData {
-  const { sizing } = data;
+  const { sizing, board } = data;
+  const results = new Map((sizing?.ways ?? []).map((w) => [w.id, w.result]));
+  const byWay = new Map<string, CommentDto[]>();
+  for (const c of data.comments) if (c.wayId) byWay.set(c.wayId, [...(byWay.get(c.wayId) ?? []), c]);
+  const rows = board.ways.map((way): ReviewWayRow => {
+    const r = results.get(way.id) ?? null;
+    return {
+      id: way.id,
+      ref: data.refs[way.id] ?? '',
+      serves: way.circuit ? way.circuit.serves || '(not named)' : null,
+      loadType: way.circuit ? loadTypeName(way.circuit) : null,
+      device: deviceName(way.device, r?.inA),
+      figures: [
+        fmt(r?.ibA, 1),
+        r?.csaMm2 === undefined || r?.csaMm2 === null ? '—' : String(r.csaMm2),
+        fmt(r?.izA, 1),
+        fmt(r?.vdPct, 2),
+        r ? `${fmt(r.zsOhm, 2)} (${fmt(r.zsMaxOhm, 2)})` : '—',
+      ],
+      sized: !!r,
+      verdict: (way.circuit && r?.verdict) || null,
+      comments: byWay.get(way.id) ?? [],
+    };
+  });
+  const { sizing: _full, ...rest } = data;
   return {
-    ...data,
-    sizing: sizing && {
-      ways: sizing.ways.map(({ id, result: r }) => ({
-        id,
-        result: r && {
-          ibA: r.ibA,
-          inA: r.inA,
-          csaMm2: r.csaMm2,
-          izA: r.izA,
-          vdPct: r.vdPct,
-          zsOhm: r.zsOhm,
-          zsMaxOhm: r.zsMaxOhm,
-          verdict: r.verdict,
-        },
-      })),
-      summary: {
-        connectedLoadW: sizing.summary.connectedLoadW,
-        maxDemandA: sizing.summary.maxDemandA,
-        counts: sizing.summary.counts,
-        incomingCheck: { message: sizing.summary.incomingCheck.message },
-      },
+    ...rest,
+    rows,
+    summary: sizing && {
+      connectedLoadW: sizing.summary.connectedLoadW,
+      maxDemandA: sizing.summary.maxDemandA,
+      counts: sizing.summary.counts,
+      incomingCheck: { message: sizing.summary.incomingCheck.message },
     },
   };
 }

@@ -1,8 +1,7 @@
 'use client';
 
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useMutation, useQuery } from '@tanstack/react-query';
-import { CircleCheck, CircleX } from 'lucide-react';
+import { useMutation } from '@tanstack/react-query';
 import { useRouter } from 'next/navigation';
 import { createContext, use, useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -12,17 +11,16 @@ import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { ApiError, errorMessage } from '@/lib/api/client';
 import type { BoardDto } from '@/lib/boards/types';
-import type { CommentDto, IssuePreview } from '@/lib/boards/review-types';
+import type { IssuePreview } from '@/lib/boards/review-types';
 
-import { fetchWayChecks, postComment, postReturn, reviewKeys } from '../api/review-api';
+import { postComment, postReturn } from '../api/review-api';
 import { commentInputSchema, type CommentInput } from '../types/schemas';
-import { CommentThread } from './comment-thread';
 import { IssueDialog } from './issue-dialog';
 
 /*
- * The review page's client parts. The page itself is rendered on the server
- * (review-view.tsx); these are the few controls that need the browser: the decision
- * (return, approve), the comment forms, and opening a way (its checks load then).
+ * The review page's client parts besides its ways table (ways-table.tsx). The page itself is
+ * rendered on the server (review-view.tsx); these are the controls that need the browser: the
+ * decision (return, approve) and the comment forms.
  */
 
 /** Whether the return form is open: shared by the header's button and the form below it. */
@@ -126,139 +124,5 @@ export function CommentForm({ boardId, wayId, label }: { boardId: string; wayId:
         {send.isPending ? 'Adding…' : 'Add comment'}
       </Button>
     </form>
-  );
-}
-
-/** Which way of the table is open (one at a time). */
-const OpenWayContext = createContext<{ open: string | null; setOpen: (id: string | null) => void }>({
-  open: null,
-  setOpen: () => {},
-});
-
-/** The ways table's body: its rows are rendered on the server; this holds which one is open. */
-export function WaysBody({ children }: { children: React.ReactNode }) {
-  const [open, setOpen] = useState<string | null>(null);
-  return (
-    <OpenWayContext value={{ open, setOpen }}>
-      <tbody>{children}</tbody>
-    </OpenWayContext>
-  );
-}
-
-/**
- * The icons of the ways' buttons, drawn once per page (lucide's chevron-right, chevron-down and
- * message-square) and used by each row through `<use>`: a row carries a short reference instead
- * of the icon's whole markup, which on a 36-way board was a fifth of the page.
- */
-export function WayIcons() {
-  const stroke = {
-    fill: 'none',
-    stroke: 'currentColor',
-    strokeWidth: 2,
-    strokeLinecap: 'round',
-    strokeLinejoin: 'round',
-  } as const;
-  return (
-    <svg aria-hidden className="absolute h-0 w-0 overflow-hidden">
-      <symbol id="way-icon-closed" viewBox="0 0 24 24" {...stroke}>
-        <path d="m9 18 6-6-6-6" />
-      </symbol>
-      <symbol id="way-icon-open" viewBox="0 0 24 24" {...stroke}>
-        <path d="m6 9 6 6 6-6" />
-      </symbol>
-      <symbol id="way-icon-comments" viewBox="0 0 24 24" {...stroke}>
-        <path d="M22 17a2 2 0 0 1-2 2H6.828a2 2 0 0 0-1.414.586l-2.202 2.202A.71.71 0 0 1 2 21.286V5a2 2 0 0 1 2-2h16a2 2 0 0 1 2 2z" />
-      </symbol>
-    </svg>
-  );
-}
-
-/** The button that opens a way: its checks and comments. */
-export function WayToggle({ wayId, count, refLabel }: { wayId: string; count: number; refLabel: string }) {
-  const { open, setOpen } = use(OpenWayContext);
-  const expanded = open === wayId;
-  return (
-    <button
-      type="button"
-      aria-expanded={expanded}
-      onClick={() => setOpen(expanded ? null : wayId)}
-      className="inline-flex items-center gap-1 rounded px-1.5 py-0.5 text-ink-soft hover:bg-paper-sunk hover:text-ink"
-    >
-      <svg aria-hidden className="h-4 w-4">
-        <use href={expanded ? '#way-icon-open' : '#way-icon-closed'} />
-      </svg>
-      <svg aria-hidden className="h-3.5 w-3.5">
-        <use href="#way-icon-comments" />
-      </svg>{' '}
-      {count}
-      <span className="sr-only">comments on way {refLabel}</span>
-    </button>
-  );
-}
-
-/** A way's checks, loaded when the way is opened. */
-function Checks({ boardId, wayId }: { boardId: string; wayId: string }) {
-  const checks = useQuery({
-    queryKey: reviewKeys.wayChecks(boardId, wayId),
-    queryFn: () => fetchWayChecks(boardId, wayId),
-  });
-  if (checks.isPending) return <p className="text-sm text-ink-soft">Loading the checks…</p>;
-  if (checks.isError) return <FormAlert>{errorMessage(checks.error)}</FormAlert>;
-  return (
-    <ul className="space-y-1 text-xs" data-testid="way-checks">
-      {checks.data.map((c) => (
-        <li key={c.code} className="flex items-start gap-1.5">
-          {c.ok ? (
-            <CircleCheck aria-hidden className="mt-0.5 h-3.5 w-3.5 shrink-0 text-verdict-pass" />
-          ) : (
-            <CircleX aria-hidden className="mt-0.5 h-3.5 w-3.5 shrink-0 text-verdict-fail" />
-          )}
-          <span>
-            <span className="sr-only">{c.ok ? 'Met: ' : 'Not met: '}</span>
-            {c.message} <span className="text-ink-faint">({c.reference})</span>
-          </span>
-        </li>
-      ))}
-    </ul>
-  );
-}
-
-/** The opened way's row: its checks (loaded now) and its comments, with the form to add one. */
-export function WayDetail({
-  boardId,
-  wayId,
-  sized,
-  comments,
-  canComment,
-  refLabel,
-}: {
-  boardId: string;
-  wayId: string;
-  /** Whether the way has a circuit with a sizing (else there is nothing to check). */
-  sized: boolean;
-  comments: CommentDto[];
-  canComment: boolean;
-  refLabel: string;
-}) {
-  const { open } = use(OpenWayContext);
-  if (open !== wayId) return null;
-  return (
-    <tr className="bg-paper">
-      <td colSpan={10} className="px-3 py-3">
-        <div className="grid gap-4 md:grid-cols-2">
-          <div>
-            {sized ? (
-              <Checks boardId={boardId} wayId={wayId} />
-            ) : (
-              <p className="text-sm text-ink-faint">No circuit to check.</p>
-            )}
-          </div>
-          <div className="space-y-3">
-            <CommentThread comments={comments} />
-            {canComment ? <CommentForm boardId={boardId} wayId={wayId} label={`Comment on way ${refLabel}`} /> : null}
-          </div>
-        </div>
-      </td>
-    </tr>
   );
 }

@@ -8,7 +8,23 @@ import { FLAT_SUPPLY } from '../sizing/helpers';
 
 const te = { cable: 'te-70', method: 'C', ambientC: 30, csaMm2: null, phases: 1 };
 
-// A small invented board: a main switch, an RCD and one lighting circuit
+// A small invented board: a main switch, an RCD, one lighting circuit and a spare
+const ways = [
+  { id: 'main', device: { kind: 'main-switch', poles: 2, modules: 2 }, circuit: null },
+  { id: 'rcd1', device: { kind: 'rcd', poles: 2, modules: 2, rcdMa: 30, ratingA: 63 }, circuit: null },
+  {
+    id: 'lights',
+    device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 },
+    circuit: {
+      ...te,
+      use: 'lighting',
+      serves: 'Landing lights',
+      lengthM: 20,
+      load: { kind: 'known', watts: 460, powerFactor: 1 },
+    },
+  },
+  { id: 'spare', device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 16 }, circuit: null },
+];
 const sizing = sizeBoard(
   boardInputSchema.parse({
     supply: FLAT_SUPPLY,
@@ -16,49 +32,71 @@ const sizing = sizeBoard(
     enclosureModules: 12,
     dwelling: true,
     incoming: { kind: 'main-switch', ratingA: 100, busbarRatingA: 100 },
-    ways: [
-      { id: 'main', device: { kind: 'main-switch', poles: 2, modules: 2 }, circuit: null },
-      { id: 'rcd1', device: { kind: 'rcd', poles: 2, modules: 2, rcdMa: 30, ratingA: 63 }, circuit: null },
-      {
-        id: 'lights',
-        device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 6 },
-        circuit: { ...te, use: 'lighting', lengthM: 20, load: { kind: 'known', watts: 460, powerFactor: 1 } },
-      },
-    ],
+    ways,
   }),
 );
 
-const review = { sizing, sizingIssues: [], comments: [], revisions: [], refs: {} } as unknown as ReviewData;
+const comment = (id: string, wayId: string | null) => ({
+  id,
+  wayId,
+  revision: 1,
+  body: `comment ${id}`,
+  authorName: 'A. Inspector',
+  createdAt: '2026-11-30T10:00:00.000Z',
+  answeredAt: null,
+});
+const review = {
+  board: { ways },
+  sizing,
+  sizingIssues: [],
+  comments: [comment('c1', 'lights'), comment('c2', null), comment('c3', 'lights')],
+  revisions: [],
+  refs: { rcd1: null, lights: '1', spare: '2' },
+} as unknown as ReviewData;
 
-describe('reviewPageData: the review cut to what the page shows', () => {
+describe('reviewPageData: the review cut to the rows and summary the page shows', () => {
   const page = reviewPageData(review);
+  const row = (id: string) => page.rows.find((r) => r.id === id)!;
 
-  it('keeps every way and the figures the table shows, unchanged; the checks load on opening a way', () => {
-    expect(page.sizing!.ways.map((w) => w.id)).toEqual(sizing.ways.map((w) => w.id));
+  it("gives every way a row, in the board's order, with the sized way's figures as the engine gave them", () => {
+    expect(page.rows.map((r) => r.id)).toEqual(['main', 'rcd1', 'lights', 'spare']);
     const full = sizing.ways.find((w) => w.id === 'lights')!.result!;
-    const cut = page.sizing!.ways.find((w) => w.id === 'lights')!.result!;
-    expect(cut).toEqual({
-      ibA: full.ibA,
-      inA: full.inA,
-      csaMm2: full.csaMm2,
-      izA: full.izA,
-      vdPct: full.vdPct,
-      zsOhm: full.zsOhm,
-      zsMaxOhm: full.zsMaxOhm,
+    expect(row('lights')).toMatchObject({
+      ref: '1',
+      serves: 'Landing lights',
+      sized: true,
       verdict: full.verdict,
+      figures: [
+        full.ibA.toFixed(1),
+        String(full.csaMm2),
+        full.izA!.toFixed(1),
+        full.vdPct!.toFixed(2),
+        `${full.zsOhm!.toFixed(2)} (${full.zsMaxOhm!.toFixed(2)})`,
+      ],
     });
-    expect(cut).not.toHaveProperty('checks');
-    expect(page.sizing!.ways.find((w) => w.id === 'main')!.result).toBeNull();
-    expect(page.sizing!.summary.counts).toEqual(sizing.summary.counts);
-    expect(page.sizing!.summary.incomingCheck.message).toBe(sizing.summary.incomingCheck.message);
+    // The device is named with the rating the engine chose when the way has none of its own
+    expect(row('lights').device).toBe('MCB B6');
+    expect(page.summary!.counts).toEqual(sizing.summary.counts);
+    expect(page.summary!.incomingCheck.message).toBe(sizing.summary.incomingCheck.message);
   });
 
-  it("leaves the engine's working on the server", () => {
-    const cut = page.sizing!.ways.find((w) => w.id === 'lights')!.result!;
-    expect(cut).not.toHaveProperty('factors');
-    expect(cut).not.toHaveProperty('tableRow');
-    expect(page.sizing!.summary).not.toHaveProperty('rcdCoverage');
-    expect(JSON.stringify(page.sizing).length).toBeLessThan(JSON.stringify(sizing).length);
+  it('shows a way without a circuit as no circuit, with dashes for the figures and no verdict', () => {
+    expect(row('spare')).toMatchObject({ ref: '2', serves: null, loadType: null, sized: false, verdict: null });
+    expect(row('spare').figures).toEqual(['—', '—', '—', '—', '—']);
+    expect(row('main').ref).toBe('');
+  });
+
+  it("puts each way's comments on its row, oldest first, and leaves the board's own comments out of the rows", () => {
+    expect(row('lights').comments.map((c) => c.id)).toEqual(['c1', 'c3']);
+    expect(page.rows.flatMap((r) => r.comments).map((c) => c.id)).not.toContain('c2');
+    expect(page.comments.map((c) => c.id)).toEqual(['c1', 'c2', 'c3']);
+  });
+
+  it("leaves the engine's working on the server: no sizing, factors, table rows or checks in what the page gets", () => {
+    expect(page).not.toHaveProperty('sizing');
+    const sent = JSON.stringify(page.rows);
+    for (const word of ['factors', 'tableRow', 'checks', 'rcdCoverage']) expect(sent).not.toContain(word);
+    expect(page.summary).not.toHaveProperty('rcdCoverage');
   });
 
   it("a way's checks as the page shows them on opening it: each check's words, nothing of the working", () => {
@@ -70,7 +108,10 @@ describe('reviewPageData: the review cut to what the page shows', () => {
     expect(wayChecksOf(null)).toEqual([]);
   });
 
-  it('passes a board the engine refused through as not sized', () => {
-    expect(reviewPageData({ ...review, sizing: null }).sizing).toBeNull();
+  it('passes a board the engine refused through as not sized, every way without figures', () => {
+    const refused = reviewPageData({ ...review, sizing: null });
+    expect(refused.summary).toBeNull();
+    expect(row('lights').sized).toBe(true);
+    expect(refused.rows.find((r) => r.id === 'lights')).toMatchObject({ sized: false, verdict: null });
   });
 });
