@@ -1,5 +1,6 @@
 import 'server-only';
 
+import { cache } from 'react';
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
@@ -25,7 +26,7 @@ import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
-import type { CommentDto } from '@/lib/boards/review-types';
+import type { ArchiveState, CommentDto } from '@/lib/boards/review-types';
 import { Board, Way } from '@/models';
 
 /**
@@ -106,6 +107,32 @@ export async function findBoard(
   if (!board) throw notFound('The board');
   return board.get({ plain: true }) as BoardRecord;
 }
+
+/** What every page of one board shows around it: its status, revision, site and archive state. */
+export type BoardFrame = { status: BoardStatus; revision: number; siteId: string; archived: ArchiveState };
+
+const archivedJson = (table: string, through: 'board' | 'site') =>
+  `json_build_object('at', ${isoSql(`${table}.archived_at`)}, 'byName', COALESCE(${table}_by.name, 'A former member'),
+     'through', '${through}')`;
+
+/**
+ * The frame of the caller's organisation's board (404 otherwise), in one statement: archived
+ * through the board itself, else through its site. A board's layout and its page both ask for
+ * it, so it is read once per request (React's `cache`, by actor and board id).
+ */
+export const readBoardFrame = cache(async (actor: Actor, boardId: string): Promise<BoardFrame> => {
+  const rows = await select<BoardFrame>(
+    `SELECT b.status, b.revision, b.site_id AS "siteId",
+       CASE WHEN b.archived_at IS NOT NULL THEN ${archivedJson('b', 'board')}
+         WHEN s.archived_at IS NOT NULL THEN ${archivedJson('s', 'site')} END AS archived
+     FROM boards b JOIN sites s ON s.id = b.site_id
+       LEFT JOIN users b_by ON b_by.id = b.archived_by_id LEFT JOIN users s_by ON s_by.id = s.archived_by_id
+     WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
+    [boardId, actor.organisationId],
+  );
+  if (!rows.length) throw notFound('The board');
+  return rows[0];
+});
 
 /** A board's ways, design fields only, in rail order. */
 export async function readWays(boardId: string, transaction?: Transaction): Promise<WayInput[]> {

@@ -43,7 +43,7 @@ import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { BoardRevision, Site, User } from '@/models';
 import type { ArchiveState } from '@/lib/boards/review-types';
 
-export { findBoard, readBoard as getBoard } from '@/lib/dal/board-repository';
+export { findBoard, readBoard as getBoard, readBoardFrame } from '@/lib/dal/board-repository';
 
 /** The organisation's boards for the lists, optionally of one site (404 for another's site). */
 export async function listBoards(
@@ -66,11 +66,6 @@ export async function archiveStateOf(board: BoardRecord, transaction?: Transacti
   }
   const who = by ? await User.findByPk(by, { attributes: ['name'], transaction }) : null;
   return { at: at.toISOString(), byName: who?.name ?? 'A former member', through };
-}
-
-/** The archive state of one board of the caller's organisation (404 otherwise). */
-export async function getArchiveState(actor: Actor, boardId: string): Promise<ArchiveState> {
-  return archiveStateOf(await findBoard(actor, boardId));
 }
 
 /** 409 for any change to an archived board (or a board on an archived site): it is read-only. */

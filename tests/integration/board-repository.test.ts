@@ -6,12 +6,12 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { Actor } from '@/lib/auth/session';
-import { readBoard, readStoredSizing } from '@/lib/dal/board-repository';
+import { readBoard, readBoardFrame, readStoredSizing } from '@/lib/dal/board-repository';
 import { submitBoard } from '@/lib/dal/board-status';
 import { createBoard, renameBoard } from '@/lib/dal/boards';
 import { approveBoard } from '@/lib/dal/issue-and-return';
 import { db } from '@/lib/db';
-import { AuditEvent, Board, Way } from '@/models';
+import { AuditEvent, Board, Site, Way } from '@/models';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -165,5 +165,46 @@ describe('a board’s first version and its stored sizing through the lifecycle'
     expect(approved.boardVersion).toBe(submitted.boardVersion + 1);
     expect(approved.version).toBe(approved.boardVersion);
     expect(approved.sizing).toBe(before.sizing);
+  });
+});
+
+describe('the frame of a board’s pages (readBoardFrame)', () => {
+  it('reads status, revision, site and archive state in one; archived through the board or its site, with who did it', async () => {
+    const { site, board } = await makeBoard(team.org.id, 'flat');
+    expect(await readBoardFrame(actor, board.id)).toEqual({
+      status: 'draft',
+      revision: board.revision,
+      siteId: site.id,
+      archived: null,
+    });
+    const { admin } = team.users;
+    await Site.update(
+      { archivedAt: new Date('2026-11-20T09:30:00.000Z'), archivedById: admin.id },
+      { where: { id: site.id } },
+    );
+    expect((await readBoardFrame(actor, board.id)).archived).toEqual({
+      at: '2026-11-20T09:30:00.000Z',
+      byName: admin.name,
+      through: 'site',
+    });
+    // The board's own archive comes first; a member no longer on record is named as such
+    await Board.update(
+      { archivedAt: new Date('2026-11-21T15:00:00.250Z'), archivedById: null },
+      { where: { id: board.id } },
+    );
+    expect((await readBoardFrame(actor, board.id)).archived).toEqual({
+      at: '2026-11-21T15:00:00.250Z',
+      byName: 'A former member',
+      through: 'board',
+    });
+  });
+
+  it("answers 404 for another organisation's board and for a deleted one", async () => {
+    const other = await makeOrganisation('Elsewhere');
+    const { board } = await makeBoard(other.org.id, 'flat');
+    await expect(readBoardFrame(actor, board.id)).rejects.toMatchObject({ status: 404 });
+    const { board: mine } = await makeBoard(team.org.id, 'flat');
+    await Board.update({ deletedAt: new Date() }, { where: { id: mine.id } });
+    await expect(readBoardFrame(actor, mine.id)).rejects.toMatchObject({ status: 404 });
   });
 });

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
 import { isIssued } from '@/lib/boards/lifecycle';
-import { archiveStateOf, findBoard } from '@/lib/dal/boards';
+import { readBoardFrame } from '@/lib/dal/boards';
 import { HttpError } from '@/lib/errors';
 
 import { ArchivedBanner } from './_components/archived-banner';
@@ -18,7 +18,7 @@ export default async function BoardLayout({ children, params }: Props) {
   if (!z.uuid().safeParse(boardId).success) notFound();
   const actor = await getActor();
   if (!actor) notFound();
-  const board = await findBoard(actor, boardId).catch((err: unknown) => {
+  const board = await readBoardFrame(actor, boardId).catch((err: unknown) => {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   });
@@ -39,7 +39,7 @@ export default async function BoardLayout({ children, params }: Props) {
     },
     { href: `/boards/${boardId}/walk`, label: 'Label walk', show: can(actor.role, 'walk.record') },
   ].filter((t) => t.show);
-  const archived = await archiveStateOf(board);
+  const { archived } = board;
   return (
     <div className="flex flex-col gap-4">
       <BoardNav tabs={tabs} />

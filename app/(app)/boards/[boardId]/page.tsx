@@ -8,7 +8,7 @@ import { RevisionDiff } from '@/features/review/components/revision-diff';
 import { can } from '@/lib/auth/permissions';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getArchiveState, getBoard } from '@/lib/dal/boards';
+import { getBoard, readBoardFrame } from '@/lib/dal/boards';
 import { getReturnNotes } from '@/lib/dal/return-notes';
 import { HttpError } from '@/lib/errors';
 
@@ -32,8 +32,8 @@ export default async function BoardPage({ params }: Props) {
     throw err;
   }
   // An archived board is read-only for everyone; a returned one shows its review
-  const [archived, reviewNotes] = await Promise.all([
-    getArchiveState(actor, board.id),
+  const [{ archived }, reviewNotes] = await Promise.all([
+    readBoardFrame(actor, board.id),
     getReturnNotes(actor, board.id),
   ]);
   // What the role may do here; every route checks again on the server
