@@ -33,6 +33,18 @@ export type ReviewSummary = Pick<BoardSummary, 'connectedLoadW' | 'maxDemandA' |
   incomingCheck: { message: string };
 };
 
+/** The parts of a way's sizing the review page's table shows (its checks load when the way is opened). */
+export type ReviewWayResult = Pick<
+  CircuitResult,
+  'ibA' | 'inA' | 'csaMm2' | 'izA' | 'vdPct' | 'zsOhm' | 'zsMaxOhm' | 'verdict'
+>;
+
+/** A board's sizing cut to what the review page shows: the engine's whole answer is one too. */
+export type ReviewSizing = { ways: { id: string; result: ReviewWayResult | null }[]; summary: ReviewSummary };
+
+/** What the review page is made from: the review, its sizing whole or cut to what the page shows. */
+export type ReviewSource = Omit<ReviewData, 'sizing'> & { sizing: ReviewSizing | null };
+
 /** The review page's props: the review, with its sizing cut to the table's rows and the summary. */
 export type ReviewPageData = Omit<ReviewData, 'sizing'> & { summary: ReviewSummary | null; rows: ReviewWayRow[] };
 
@@ -43,7 +55,7 @@ const fmt = (v: number | null | undefined, d: number) => (v === null || v === un
  * working, factors, table rows and notes stay on the server; a way's checks load when it is
  * opened) and the board's summary.
  */
-export function reviewPageData(data: ReviewData): ReviewPageData {
+export function reviewPageData(data: ReviewSource): ReviewPageData {
   const { sizing, board } = data;
   const results = new Map((sizing?.ways ?? []).map((w) => [w.id, w.result]));
   const byWay = new Map<string, CommentDto[]>();

@@ -26,6 +26,7 @@ import { notFound, type FieldIssue } from '@/lib/errors';
 import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
+import type { ReviewSizing } from '@/lib/boards/review-page-data';
 import type { ArchiveState, CommentDto } from '@/lib/boards/review-types';
 import { Board, Way } from '@/models';
 
@@ -450,20 +451,68 @@ export type IssueFacts = {
  * the design last, the last revision issued) and the board's comments, in one statement.
  */
 export async function readIssueFacts(actor: Actor, boardId: string): Promise<IssueFacts> {
-  const [row] = await select<IssueFacts>(
-    `SELECT o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue",
-       (SELECT b.design_changed_by_id FROM boards b WHERE b.id = $1) AS "designChangedById",
-       COALESCE((SELECT max(r.revision) FROM board_revisions r WHERE r.board_id = $1), 0)::int AS "lastIssued",
-       COALESCE((SELECT json_agg(json_build_object(
-           'id', c.id, 'wayId', c.way_id, 'revision', c.revision, 'body', c.body,
-           'authorName', COALESCE(u.name, 'A former member'), 'createdAt', ${isoSql('c.created_at')},
-           'answeredAt', CASE WHEN c.answered_at IS NULL THEN NULL ELSE ${isoSql('c.answered_at')} END
-         ) ORDER BY c.created_at, c.id)
-         FROM comments c LEFT JOIN users u ON u.id = c.author_id WHERE c.board_id = $1), '[]'::json) AS comments
-     FROM organisations o WHERE o.id = $2`,
+  const [row] = await select<IssueFacts>(`SELECT ${ISSUE_FACTS} FROM organisations o WHERE o.id = $2`, [
+    boardId,
+    actor.organisationId,
+  ]);
+  return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0, comments: [] };
+}
+
+/** The columns of `IssueFacts` for board $1, from organisations row `o`. */
+const ISSUE_FACTS = `o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue",
+  (SELECT b.design_changed_by_id FROM boards b WHERE b.id = $1) AS "designChangedById",
+  COALESCE((SELECT max(r.revision) FROM board_revisions r WHERE r.board_id = $1), 0)::int AS "lastIssued",
+  COALESCE((SELECT json_agg(json_build_object(
+      'id', c.id, 'wayId', c.way_id, 'revision', c.revision, 'body', c.body,
+      'authorName', COALESCE(u.name, 'A former member'), 'createdAt', ${isoSql('c.created_at')},
+      'answeredAt', CASE WHEN c.answered_at IS NULL THEN NULL ELSE ${isoSql('c.answered_at')} END
+    ) ORDER BY c.created_at, c.id)
+    FROM comments c LEFT JOIN users u ON u.id = c.author_id WHERE c.board_id = $1), '[]'::json) AS comments`;
+
+/**
+ * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing): PostgreSQL takes the few figures a page shows out
+ * of the engine's whole answer (about 1.4 kB of working a way), so the app does not receive and
+ * parse it all for them.
+ */
+const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object(
+  'summary', jsonb_build_object('connectedLoadW', j#>'{summary,connectedLoadW}', 'maxDemandA', j#>'{summary,maxDemandA}',
+    'counts', j#>'{summary,counts}', 'incomingCheck', jsonb_build_object('message', j#>'{summary,incomingCheck,message}')),
+  'ways', (SELECT COALESCE(jsonb_agg(jsonb_build_object('id', w->'id', 'result', CASE WHEN jsonb_typeof(w->'result') = 'object'
+      THEN jsonb_build_object('ibA', w#>'{result,ibA}', 'inA', w#>'{result,inA}', 'csaMm2', w#>'{result,csaMm2}',
+        'izA', w#>'{result,izA}', 'vdPct', w#>'{result,vdPct}', 'zsOhm', w#>'{result,zsOhm}',
+        'zsMaxOhm', w#>'{result,zsMaxOhm}', 'verdict', w#>'{result,verdict}') END) ORDER BY i), '[]'::jsonb)
+    FROM jsonb_array_elements(j->'ways') WITH ORDINALITY AS x(w, i))
+)::text END`;
+
+/**
+ * The review page's read, in one statement: the caller's organisation's board (404 otherwise),
+ * its stored sizing cut to what the page shows, and the issue facts with the comments. Null
+ * when the stored sizing is older than the board: the caller then reads it the long way, which
+ * sizes the board (or its site) again and stores it.
+ */
+export async function readReviewSource(
+  actor: Actor,
+  boardId: string,
+): Promise<{ board: BoardDto; sizing: ReviewSizing | null; issues: FieldIssue[]; facts: IssueFacts } | null> {
+  const rows = await select<
+    IssueFacts & { dto: string; current: boolean; cut: string | null; issues: FieldIssue[] | null }
+  >(
+    `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, ${SIZING_CUT} AS cut, s.issues, ${ISSUE_FACTS}
+     FROM boards b JOIN organisations o ON o.id = b.organisation_id
+       LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
+       LEFT JOIN LATERAL (SELECT s.sizing::jsonb AS j) js ON true
+     WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );
-  return row ?? { orgName: '', allowSelfIssue: false, designChangedById: null, lastIssued: 0, comments: [] };
+  if (!rows.length) throw notFound('The board');
+  const [{ dto, current, cut, issues, ...facts }] = rows;
+  if (!current) return null;
+  return {
+    board: JSON.parse(dto) as BoardDto,
+    sizing: cut === null ? null : (JSON.parse(cut) as ReviewSizing),
+    issues: issues ?? [],
+    facts,
+  };
 }
 
 /** One issued revision's print facts as `readIssuedPrintRows` reads them. */

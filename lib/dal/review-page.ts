@@ -4,31 +4,48 @@ import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { layoutWays } from '@/lib/boards/layout';
 import { issueRefusal } from '@/lib/boards/record-rules';
+import type { ReviewSource } from '@/lib/boards/review-page-data';
 import type { IssuePreview, ReviewData } from '@/lib/boards/review-types';
-import { readBoardAndSizing, readIssueFacts } from '@/lib/dal/board-repository';
+import type { BoardDto } from '@/lib/boards/types';
+import { readBoardAndSizing, readIssueFacts, readReviewSource, type IssueFacts } from '@/lib/dal/board-repository';
 import { revisionAfter, revisionsOf } from '@/lib/dal/revisions';
+import type { FieldIssue } from '@/lib/errors';
 
 /**
- * The review page's data: the board, its stored sizing, comments and issued revisions. The
- * board and its sizing are read first, in one statement that also checks the board is the
- * caller's organisation's (404 otherwise); the facts and comments in one more, with the issued
- * revisions beside it unless `withRevisions` is false (the page does not show them: its
- * revision diff loads its own), so the page costs two statements besides the member's.
+ * The review (GET /api/boards/:id/review): the board, its stored sizing, comments and issued
+ * revisions. The board and its sizing are read first, in one statement that also checks the
+ * board is the caller's organisation's (404 otherwise); the facts and comments in one more,
+ * with the issued revisions beside it.
  */
-export async function getReview(
-  actor: Actor,
-  boardId: string,
-  { withRevisions = true }: { withRevisions?: boolean } = {},
-): Promise<ReviewData> {
+export async function getReview(actor: Actor, boardId: string): Promise<ReviewData> {
   const {
     board,
     sized: { sizing, issues },
   } = await readBoardAndSizing(actor, boardId);
-  const [facts, revisions] = await Promise.all([
-    readIssueFacts(actor, boardId),
-    withRevisions ? revisionsOf(boardId) : [],
-  ]);
-  const { comments } = facts;
+  const [facts, revisions] = await Promise.all([readIssueFacts(actor, boardId), revisionsOf(boardId)]);
+  return { ...reviewOf(actor, board, facts, sizing, issues), sizing, revisions };
+}
+
+/**
+ * The review page's source: as `getReview`, without the issued revisions (the page's revision
+ * diff loads its own) and with the sizing cut to what the page shows, in one statement (404
+ * for another organisation's board). A stored sizing older than the board is sized now and
+ * stored, through `getReview`'s reads.
+ */
+export async function getReviewSource(actor: Actor, boardId: string): Promise<ReviewSource> {
+  const read = await readReviewSource(actor, boardId);
+  if (read) return { ...reviewOf(actor, read.board, read.facts, read.sizing, read.issues), revisions: [] };
+  const { revisions: _none, ...review } = await getReview(actor, boardId);
+  return { ...review, revisions: [] };
+}
+
+function reviewOf(
+  actor: Actor,
+  board: BoardDto,
+  facts: IssueFacts,
+  sizing: ReviewSource['sizing'],
+  sizingIssues: FieldIssue[],
+): Omit<ReviewSource, 'revisions'> {
   const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
   const counts = sizing?.summary.counts;
   const issue: IssuePreview = {
@@ -47,10 +64,9 @@ export async function getReview(
     board,
     organisationName: facts.orgName,
     sizing,
-    sizingIssues: issues,
+    sizingIssues,
     refs,
-    comments,
-    revisions,
+    comments: facts.comments,
     issue,
   };
 }

@@ -6,12 +6,14 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { Actor } from '@/lib/auth/session';
+import { reviewPageData } from '@/lib/boards/review-page-data';
 import { readBoard, readBoardFrame, readStoredSizing } from '@/lib/dal/board-repository';
 import { submitBoard } from '@/lib/dal/board-status';
 import { createBoard, renameBoard } from '@/lib/dal/boards';
 import { approveBoard } from '@/lib/dal/issue-and-return';
+import { getReview, getReviewSource } from '@/lib/dal/review-page';
 import { db } from '@/lib/db';
-import { AuditEvent, Board, Site, Way } from '@/models';
+import { AuditEvent, Board, Comment, Site, Way } from '@/models';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
@@ -206,5 +208,44 @@ describe('the frame of a board’s pages (readBoardFrame)', () => {
     const { board: mine } = await makeBoard(team.org.id, 'flat');
     await Board.update({ deletedAt: new Date() }, { where: { id: mine.id } });
     await expect(readBoardFrame(actor, mine.id)).rejects.toMatchObject({ status: 404 });
+  });
+});
+
+describe('the review page’s read (getReviewSource)', () => {
+  it('gives the page the same rows and summary as the whole stored sizing, with the comments and issue facts, in one read', async () => {
+    const { board } = await makeBoard(team.org.id, 'workshop');
+    await readStoredSizing(actor, board.id);
+    await Comment.create({ boardId: board.id, wayId: null, authorId: actor.userId, revision: 1, body: 'Whole board' });
+    const whole = await getReview(actor, board.id);
+    const cut = await getReviewSource(actor, board.id);
+    expect(whole.sizing).not.toBeNull();
+    // The figures PostgreSQL takes out of the stored sizing are the engine's, to the last digit
+    expect(reviewPageData(cut)).toEqual(reviewPageData({ ...whole, revisions: [] }));
+    expect(JSON.stringify(cut.sizing).length).toBeLessThan(JSON.stringify(whole.sizing).length / 5);
+    expect(cut.comments.map((c) => c.body)).toEqual(['Whole board']);
+    expect(cut.issue).toEqual(whole.issue);
+  });
+
+  it('sizes a board whose stored sizing is older than the board, stores it, and answers as the long way does', async () => {
+    const { board } = await makeBoard(team.org.id, 'flat');
+    await readStoredSizing(actor, board.id);
+    // A write behind the app's back raises the version (migration 0008), so the stored sizing is stale
+    await Board.update({ location: 'Under the stairs' }, { where: { id: board.id } });
+    const { version } = await stampOf(board.id);
+    const cut = await getReviewSource(actor, board.id);
+    expect(cut.board.location).toBe('Under the stairs');
+    expect(cut.sizing).not.toBeNull();
+    const [stored] = await db().query<{ version: number }>('SELECT version FROM board_sizings WHERE board_id = $1', {
+      bind: [board.id],
+      type: QueryTypes.SELECT,
+    });
+    expect(stored.version).toBe(version);
+    expect(reviewPageData(await getReviewSource(actor, board.id))).toEqual(reviewPageData(cut));
+  });
+
+  it("answers 404 for another organisation's board", async () => {
+    const other = await makeOrganisation('Elsewhere');
+    const { board } = await makeBoard(other.org.id, 'flat');
+    await expect(getReviewSource(actor, board.id)).rejects.toMatchObject({ status: 404 });
   });
 });

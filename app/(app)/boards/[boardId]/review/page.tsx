@@ -5,7 +5,7 @@ import { ReviewView } from '@/features/review/components/review-view';
 import { can } from '@/lib/auth/permissions';
 import { reviewPageData } from '@/lib/boards/review-page-data';
 import { getActor } from '@/lib/auth/session';
-import { getReview } from '@/lib/dal/review-page';
+import { getReviewSource } from '@/lib/dal/review-page';
 import { HttpError } from '@/lib/errors';
 
 export const metadata = { title: 'Review' };
@@ -16,7 +16,7 @@ export default async function ReviewPage({ params }: { params: Promise<{ boardId
   const actor = await getActor();
   if (!actor) redirect('/login');
   if (!z.uuid().safeParse(boardId).success) notFound();
-  const data = await getReview(actor, boardId, { withRevisions: false }).catch((err: unknown) => {
+  const data = await getReviewSource(actor, boardId).catch((err: unknown) => {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;
   });
