@@ -99,6 +99,12 @@ const siteView = async (page: Page) => {
   await page.getByTestId('site-diagram').locator('svg').first().waitFor();
 };
 
+// The review page once the browser has drawn its ways table (features/review/components/ways-table.tsx)
+const reviewView = async (page: Page) => {
+  await heading(/^Review: /)(page);
+  await page.getByRole('columnheader', { name: 'Zs Ω (max)' }).waitFor();
+};
+
 const SCREENS: Screen[] = [
   { name: 'sign-in', role: null, path: () => '/login', ready: heading('Boardwright') },
   { name: 'sites', role: 'designer', path: () => '/sites', ready: heading('Sites') },
@@ -164,7 +170,7 @@ const SCREENS: Screen[] = [
     name: 'review',
     role: 'inspector',
     path: () => `/boards/${inReviewId}/review`,
-    ready: heading(/^Review: /),
+    ready: reviewView,
   },
   { name: 'schedule', role: 'inspector', path: () => `/boards/${issuedId}/schedule`, ready: heading(/Schedule/) },
   {
