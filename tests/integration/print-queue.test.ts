@@ -35,7 +35,7 @@ beforeAll(async () => {
 }, 60_000);
 
 afterAll(async () => {
-  await pool.printPool().destroy();
+  await pool.closePrintPool();
   fs.rmSync(workerFile, { force: true });
   for (const [name, value] of [
     ['PRINT_THREADS', saved.threads],

@@ -47,7 +47,7 @@ beforeAll(async () => {
 }, 60_000);
 
 afterAll(async () => {
-  await pool.printPool().destroy();
+  await pool.closePrintPool();
   fs.rmSync(workerFile, { force: true });
 });
 
@@ -234,5 +234,28 @@ describe('a draft', () => {
     const labels = await download(labelsRoute, board.id);
     expect(labels.timing).toMatch(/^render;/);
     expect(renders.mock.calls.length).toBe(start + 3);
+  });
+});
+
+describe('the print pool’s warm-up (instrumentation.ts at a server start)', () => {
+  it("has a thread render the warm-up board's schedule and strips, in the pool, and logs how long it took", async () => {
+    const log = vi.spyOn(console, 'log').mockImplementation(() => {});
+    const failed = vi.spyOn(console, 'error');
+    const done = pool.printPool().completed;
+    await pool.warmPrintPool();
+    expect(pool.printPool().completed).toBe(done + 1);
+    expect(failed).not.toHaveBeenCalled();
+    expect(log).toHaveBeenCalledWith(expect.stringMatching(/^print pool warmed in \d+ ms$/));
+    log.mockRestore();
+    failed.mockRestore();
+  });
+
+  it('one pool per process: a second copy of the module (another bundle) finds the same pool', async () => {
+    const first = pool.printPool();
+    vi.resetModules();
+    const again = await vi.importActual<typeof import('@/features/schedule/print/print-pool')>(
+      '@/features/schedule/print/print-pool',
+    );
+    expect(again.printPool()).toBe(first);
   });
 });

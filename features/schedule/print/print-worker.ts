@@ -9,6 +9,7 @@ import { isMainThread } from 'node:worker_threads';
 import { renderLabelStripsPdf, renderSchedulePdf } from '../render-schedule';
 
 import type { PrintJob, RenderedPdf } from './print-job';
+import { warmUpSource } from './warm-up';
 
 /**
  * A render thread runs at a lower priority (PRINT_NICE, default 10) than the thread answering
@@ -27,4 +28,16 @@ if (!isMainThread) {
 
 export default async function render(job: PrintJob): Promise<RenderedPdf> {
   return job.kind === 'labels' ? renderLabelStripsPdf(job.source) : renderSchedulePdf(job.source, new Date(job.now));
+}
+
+/**
+ * Renders the warm-up board's schedule and label strips and throws them away (print-pool.ts
+ * `warmPrintPool`); answers how long it took, in milliseconds.
+ */
+export async function warmUp(): Promise<number> {
+  const started = performance.now();
+  const source = warmUpSource();
+  await renderSchedulePdf(source, new Date());
+  await renderLabelStripsPdf(source);
+  return performance.now() - started;
 }
