@@ -4,8 +4,9 @@ import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { diffRevisions, type BoardSnapshot, type RevisionDiff } from '@/lib/boards/revision-diff';
+import { sizeDesign } from '@/lib/boards/size-design';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
-import { sizeDesign, type BoardRecord } from '@/lib/dal/board-repository';
+import type { BoardRecord } from '@/lib/dal/board-repository';
 import { findBoard } from '@/lib/dal/boards';
 import { notFound } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';

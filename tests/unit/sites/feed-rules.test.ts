@@ -40,7 +40,13 @@ describe('whether a way may feed a board', () => {
 
 describe('a loop of feeds', () => {
   const board = (id: string, feed: BoardFeed) => ({ id, name: id.toUpperCase(), feed });
-  const fromWay = (boardId: string): BoardFeed => ({ from: 'way', boardId, wayId: `${boardId}-w` });
+  const fromWay = (boardId: string): BoardFeed => ({
+    from: 'way',
+    boardId,
+    wayId: `${boardId}-w`,
+    designCurrentOverride: null,
+    upstreamRcdTimeDelayed: false,
+  });
 
   it('feeding a board from a board it feeds closes a loop, named as the power would flow', () => {
     // a (origin) feeds b, b feeds c: feeding a from c closes a → b → c → a

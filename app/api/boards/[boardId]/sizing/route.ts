@@ -2,7 +2,8 @@ import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
-import { readStoredSizing, sizeDesign } from '@/lib/dal/board-repository';
+import { sizeDesign } from '@/lib/boards/size-design';
+import { readStoredSizing } from '@/lib/dal/board-repository';
 import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
 import { badRequest } from '@/lib/errors';
 
