@@ -7,7 +7,8 @@ import type { BoardSnapshot, SnapshotWay } from '@/lib/boards/revision-diff';
 import { settingsOf } from '@/lib/boards/schemas';
 import { env } from '@/lib/env';
 import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
-import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
+import { draftTreeContext } from '@/lib/dal/site-supply';
+import { withTreeContext } from '@/lib/sites/tree-context';
 import { fedFromWords } from '@/lib/names';
 import { Organisation, Site } from '@/models';
 

@@ -4,7 +4,8 @@ import { defineRoute } from '@/lib/api/handler';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
 import { sizeDesign } from '@/lib/boards/size-design';
 import { readStoredSizing } from '@/lib/dal/board-repository';
-import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
+import { draftTreeContext } from '@/lib/dal/site-supply';
+import { withTreeContext } from '@/lib/sites/tree-context';
 import { badRequest } from '@/lib/errors';
 
 /** The body is optional: empty sizes the stored board; `draft` sizes unsaved edits. */
