@@ -3,12 +3,12 @@
 import { CircleCheck, CircleX, TriangleAlert } from 'lucide-react';
 import { memo } from 'react';
 
+import { fmt } from '@/components/sizing/circuit-result-view';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { cn } from '@/lib/cn';
 
 import { useDraftSizing, useSizingError } from '../hooks/use-live-sizing';
 import { useBoardDraftStore } from '../stores/board-draft-store';
-import { fmt } from '../utils/format';
 
 function Stat({ title, children, className }: { title: string; children: React.ReactNode; className?: string }) {
   return (
