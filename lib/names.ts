@@ -191,6 +191,19 @@ export function deviceKindPhrase(kind: string): string {
   return (DEVICE_KIND_PHRASES as Record<string, string>)[kind] ?? 'device';
 }
 
+/** The device kinds as printed on the device's face in the drawn board: fuses by their standard alone. */
+const DEVICE_FACE_NAMES: Record<keyof typeof DEVICE_KIND_NAMES, string> = {
+  ...DEVICE_KIND_NAMES,
+  'fuse-bs88-2': 'BS 88-2',
+  'fuse-bs88-3': 'BS 88-3',
+  'fuse-bs3036': 'BS 3036',
+};
+
+/** A device kind as printed on its face; an unknown code is never shown as it is. */
+export function deviceFaceName(kind: string): string {
+  return (DEVICE_FACE_NAMES as Record<string, string>)[kind] ?? 'Device';
+}
+
 /** What `deviceName` needs of a device. */
 export interface NamedDevice {
   kind: string;

@@ -79,3 +79,31 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
     </Field>
   );
 });
+
+type SelectFieldProps = React.SelectHTMLAttributes<HTMLSelectElement> & {
+  label: string;
+  error?: string;
+  hint?: string;
+  /** The choices, each a value and its words. */
+  options: readonly { value: string | number; label: string }[];
+};
+
+/** A labelled select with its error or hint; spread `register(...)` into it like `TextField`. */
+export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(function SelectField(
+  { label, error, hint, className, options, ...select },
+  ref,
+) {
+  return (
+    <Field label={label} error={error} hint={hint} className={className}>
+      {(id, describedBy) => (
+        <Select ref={ref} id={id} aria-describedby={describedBy} aria-invalid={error ? true : undefined} {...select}>
+          {options.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </Select>
+      )}
+    </Field>
+  );
+});

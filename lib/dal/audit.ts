@@ -71,16 +71,7 @@ export async function audit(
   details: Record<string, unknown>,
   opts: { boardId?: string | null; transaction?: Transaction } = {},
 ): Promise<void> {
-  await AuditEvent.create(
-    {
-      organisationId: actor.organisationId,
-      boardId: opts.boardId ?? null,
-      userId: actor.userId,
-      action,
-      details,
-    },
-    { transaction: opts.transaction },
-  );
+  await auditMany(actor, [{ action, details }], opts);
 }
 
 /**

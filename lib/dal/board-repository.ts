@@ -5,14 +5,13 @@ import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, type CountedWay } from '@/lib/boards/counts';
+import { sizeDesign, type SizedBoard } from '@/lib/boards/size-design';
 import {
-  engineInputOf,
   wayInputOf,
   type BoardCreateInput,
   type BoardFeed,
   type BoardDto,
   type BoardRow,
-  type BoardSettings,
   type BoardSummary,
   type WayInput,
   type WayRow,
@@ -23,7 +22,7 @@ import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/da
 import { resizeSiteOfStaleBoard, type TreeBoard } from '@/lib/dal/site-tree';
 import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
-import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
+import type { BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
 import type { ReviewSizing } from '@/lib/boards/review-page-data';
@@ -217,6 +216,9 @@ export async function writeBoard(
   return written;
 }
 
+// Kept for lib/dal/site-tree.ts until it imports them from lib/boards/size-design.ts
+export { engineIssues, sizeDesign } from '@/lib/boards/size-design';
+
 /** The settings the engine reads: a write of any other column keeps the stored sizing. */
 const ENGINE_SETTINGS = new Set([
   'supply',
@@ -226,25 +228,6 @@ const ENGINE_SETTINGS = new Set([
   'dwelling',
   'conditionalRatingKa',
 ]);
-
-/** A board sized, or the reasons the engine refused it (then `sizing` is null). */
-export type SizedBoard = { sizing: BoardResult | null; issues: FieldIssue[] };
-
-/** Sizes a board's settings and ways; a board the engine refuses gets its issues instead. */
-export function sizeDesign(board: BoardSettings & { ways: readonly WayInput[] }): SizedBoard {
-  // Parsed once, and marked so that the engine does not parse it again
-  try {
-    return { sizing: sizeBoard(parseBoardInput(engineInputOf(board, board.ways))), issues: [] };
-  } catch (err) {
-    return { sizing: null, issues: engineIssues(err) };
-  }
-}
-
-/** The engine's refusal of a board's input as field issues; any other error is thrown on. */
-export function engineIssues(err: unknown): FieldIssue[] {
-  if (!(err instanceof SizingInputError)) throw err;
-  return err.issues.map(({ path, message }) => ({ path: path || '(body)', message }));
-}
 
 /** A stored sizing: the engine's answer as JSON text (null when it refused), or its issues. */
 export type StoredSizing = { json: string | null; issues: FieldIssue[] };

@@ -3,17 +3,14 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import type { BoardSnapshot, SnapshotWay } from '@/lib/boards/revision-diff';
-import { settingsOf } from '@/lib/boards/schemas';
+import type { BoardSnapshot } from '@/lib/boards/revision-diff';
+import { settingsOf, wayInputOf } from '@/lib/boards/schemas';
 import { env } from '@/lib/env';
 import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
-import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
+import { draftTreeContext } from '@/lib/dal/site-supply';
+import { withTreeContext } from '@/lib/sites/tree-context';
 import { fedFromWords } from '@/lib/names';
 import { Organisation, Site } from '@/models';
-
-export function snapshotWay(way: SnapshotWay): SnapshotWay {
-  return { id: way.id, rail: way.rail, position: way.position, device: way.device, circuit: way.circuit };
-}
 
 export async function organisationName(actor: Actor, transaction?: Transaction): Promise<string> {
   const org = await Organisation.findByPk(actor.organisationId, { attributes: ['name'], transaction });
@@ -36,12 +33,12 @@ export async function liveSnapshot(
   const ways = await readWays(board.id, transaction);
   const orgName = await organisationName(actor, transaction);
   const tree = await draftTreeContext(actor, board.id, transaction);
-  const design = withTreeContext({ settings: settingsOf(board), ways: ways.map(snapshotWay) }, tree);
+  const design = withTreeContext({ settings: settingsOf(board), ways }, tree);
   return {
     settings: design.settings,
     siteName: site?.name ?? '',
     organisationName: orgName,
-    ways: design.ways.map(snapshotWay),
+    ways: design.ways.map(wayInputOf),
     ...(tree.fedFrom ? { fedFrom: fedFromWords(tree.fedFrom) } : {}),
   };
 }

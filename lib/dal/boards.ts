@@ -1,7 +1,5 @@
 import 'server-only';
 
-import { isDeepStrictEqual } from 'node:util';
-
 import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
@@ -13,8 +11,8 @@ import {
   type BoardDto,
   type BoardSaveInput,
   type BoardSummary,
-  type WayInput,
 } from '@/lib/boards/schemas';
+import { diffWays } from '@/lib/boards/way-diff';
 import { db } from '@/lib/db';
 import { latestEventDetails, type AuditAction } from '@/lib/dal/audit';
 import {
@@ -265,65 +263,35 @@ export async function archiveBoard(
   return out;
 }
 
-/** Brings an archived board back into the lists (admins), fed from the origin. */
-export async function restoreBoard(actor: Actor, boardId: string): Promise<BoardDto> {
-  if (!mayRestore(actor.role, 'archived')) throw forbidden('restore archived boards');
-  const tree = comingBack(actor, 'board.archived');
-  const restored = await changeBoard(
-    actor,
-    boardId,
-    async (board, transaction) => {
-      if (!board.archivedAt) throw conflict('This board is not archived.');
-      await tree.plan(board, transaction);
-      return {
-        set: { archivedAt: null, archivedById: null },
-        events: [{ action: 'board.restored', details: { name: board.name } }],
-      };
-    },
-    tree,
-  );
-  return readBoard(actor, restored.id);
-}
+/** What bringing a board back undoes: its removal's history event, the event it writes, the columns it clears. */
+const BRINGING_BACK = {
+  archived: { removal: 'board.archived', event: 'board.restored', set: { archivedAt: null, archivedById: null } },
+  deleted: { removal: 'board.deleted', event: 'board.undeleted', set: { deletedAt: null, deletedById: null } },
+} as const;
 
-/** Undoes the delete of a draft board: it comes back as it was, fed from the origin. */
-export async function undeleteBoard(actor: Actor, boardId: string): Promise<BoardDto> {
-  if (!mayRestore(actor.role, 'deleted')) throw forbidden('restore deleted boards');
-  const tree = comingBack(actor, 'board.deleted');
+/** Brings an archived (admins) or deleted board back into the lists as it was, fed as `comingBack` says. */
+async function bringBack(actor: Actor, boardId: string, from: 'archived' | 'deleted'): Promise<BoardDto> {
+  if (!mayRestore(actor.role, from)) throw forbidden(`restore ${from} boards`);
+  const { removal, event, set } = BRINGING_BACK[from];
+  const tree = comingBack(actor, removal);
   const back = await changeBoard(
     actor,
     boardId,
     async (board, transaction) => {
-      if (!board.deletedAt) throw conflict('This board is not deleted.');
+      if (!board[from === 'archived' ? 'archivedAt' : 'deletedAt']) throw conflict(`This board is not ${from}.`);
       await tree.plan(board, transaction);
-      return {
-        set: { deletedAt: null, deletedById: null },
-        events: [{ action: 'board.undeleted', details: { name: board.name } }],
-      };
+      return { set: { ...set }, events: [{ action: event, details: { name: board.name } }] };
     },
-    { ...tree, deleted: true },
+    { ...tree, deleted: from === 'deleted' },
   );
   return readBoard(actor, back.id);
 }
 
-/** What changed between the stored ways and the saved ones, for the audit trail. */
-export function diffWays(before: WayInput[], after: WayInput[]) {
-  const old = new Map(before.map((w) => [w.id, w]));
-  const now = new Map(after.map((w) => [w.id, w]));
-  const added = after.filter((w) => !old.has(w.id)).map((w) => w.id);
-  const removed = before.filter((w) => !now.has(w.id)).map((w) => w.id);
-  const moved: string[] = [];
-  const changed: string[] = [];
-  for (const w of after) {
-    const o = old.get(w.id);
-    if (!o) continue;
-    if (o.rail !== w.rail || o.position !== w.position) moved.push(w.id);
-    // Compared by value: stored JSON comes back with its keys in PostgreSQL's order
-    if (!isDeepStrictEqual(o.device, w.device) || !isDeepStrictEqual(o.circuit, w.circuit)) {
-      changed.push(w.id);
-    }
-  }
-  return { added, removed, moved, changed };
-}
+/** Brings an archived board back into the lists (admins), fed from the origin. */
+export const restoreBoard = (actor: Actor, boardId: string) => bringBack(actor, boardId, 'archived');
+
+/** Undoes the delete of a draft board: it comes back as it was, fed from the origin. */
+export const undeleteBoard = (actor: Actor, boardId: string) => bringBack(actor, boardId, 'deleted');
 
 /**
  * Saves the whole board at the version the editor opened, in one transaction with the board

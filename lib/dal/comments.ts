@@ -30,10 +30,10 @@ export async function listComments(actor: Actor, boardId: string): Promise<Comme
   return commentsOf(boardId);
 }
 
-/** Every comment on a board, oldest first, for a caller who has already read the board. */
-export async function commentsOf(boardId: string): Promise<CommentDto[]> {
+/** Every comment on a board (or of one revision), oldest first, for a caller who has already read the board. */
+export async function commentsOf(boardId: string, revision?: number): Promise<CommentDto[]> {
   const rows = await Comment.findAll({
-    where: { boardId },
+    where: { boardId, ...(revision === undefined ? {} : { revision }) },
     include: [{ model: User, as: 'author', attributes: ['name'] }],
     order: [['createdAt', 'ASC']],
   });

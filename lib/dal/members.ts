@@ -35,26 +35,13 @@ export async function listMembers(actor: Actor): Promise<Member[]> {
       order: [['createdAt', 'DESC']],
     }),
   ]);
-  return [
-    ...users.map((u) => ({
-      id: u.id,
-      name: u.name,
-      email: u.email,
-      role: u.role,
-      active: u.active,
-      pending: false,
-      createdAt: u.createdAt.toISOString(),
-    })),
-    ...invitations.map((i) => ({
-      id: i.id,
-      name: i.name,
-      email: i.email,
-      role: i.role,
-      active: false,
-      pending: true,
-      createdAt: i.createdAt.toISOString(),
-    })),
-  ];
+  return [...users.map((u) => memberOf(u, u.active, false)), ...invitations.map((i) => memberOf(i, false, true))];
+}
+
+/** A member (or an invitation not yet taken up) as the members page shows it. */
+function memberOf(who: User | Invitation, active: boolean, pending: boolean): Member {
+  const { id, name, email, role } = who;
+  return { id, name, email, role, active, pending, createdAt: who.createdAt.toISOString() };
 }
 
 /**
@@ -142,15 +129,7 @@ export async function updateMember(actor: Actor, userId: string, input: MemberUp
     await user.update(input, { transaction });
     await audit(actor, 'member.changed', { userId, ...input }, { transaction });
   });
-  return {
-    id: user.id,
-    name: user.name,
-    email: user.email,
-    role: user.role,
-    active: user.active,
-    pending: false,
-    createdAt: user.createdAt.toISOString(),
-  };
+  return memberOf(user, user.active, false);
 }
 
 /** The names of these members by id (only of `organisationId` when given); ids may repeat or be null. */

@@ -1,9 +1,9 @@
 import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
-import { commentDto } from '@/lib/dal/comments';
+import { commentsOf } from '@/lib/dal/comments';
 import { findBoard } from '@/lib/dal/boards';
-import { AuditEvent, Comment, User } from '@/models';
+import { AuditEvent, User } from '@/models';
 import type { ReturnNotes } from '@/lib/boards/review-types';
 
 /**
@@ -19,12 +19,8 @@ export async function getReturnNotes(actor: Actor, boardId: string): Promise<Ret
     order: [['id', 'DESC']],
   });
   if (!returned || Number(returned.details.revision) !== board.revision) return null;
-  const comments = await Comment.findAll({
-    where: { boardId, revision: board.revision },
-    include: [{ model: User, as: 'author', attributes: ['name'] }],
-    order: [['createdAt', 'ASC']],
-  });
-  const open = comments.filter((c) => !c.answeredAt).map(commentDto);
+  const comments = await commentsOf(boardId, board.revision);
+  const open = comments.filter((c) => !c.answeredAt);
   if (!open.length) return null;
   const who = returned.userId ? await User.findByPk(returned.userId, { attributes: ['name'] }) : null;
   return {

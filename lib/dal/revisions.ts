@@ -4,8 +4,9 @@ import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { diffRevisions, type BoardSnapshot, type RevisionDiff } from '@/lib/boards/revision-diff';
+import { sizeDesign } from '@/lib/boards/size-design';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
-import { sizeDesign, type BoardRecord } from '@/lib/dal/board-repository';
+import type { BoardRecord } from '@/lib/dal/board-repository';
 import { findBoard } from '@/lib/dal/boards';
 import { notFound } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
@@ -55,6 +56,17 @@ export type RevisionState = {
   sizing: BoardResult | null;
 };
 
+/** An issued revision of a board with who issued it, or null. */
+export async function readIssuedRevision(boardId: string, revision: number) {
+  const row = await BoardRevision.findOne({
+    where: { boardId, revision },
+    include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
+  });
+  if (!row) return null;
+  const byName = (row as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member';
+  return { row, issued: { at: row.issuedAt.toISOString(), byName } };
+}
+
 /** An issued revision, or the live board when `revision` is 'current'. */
 export async function getRevision(actor: Actor, boardId: string, revision: number | 'current'): Promise<RevisionState> {
   const board = await findBoard(actor, boardId);
@@ -67,17 +79,12 @@ export async function getRevision(actor: Actor, boardId: string, revision: numbe
       sizing: sizeDesign({ ...snapshot.settings, ways: snapshot.ways }).sizing,
     };
   }
-  const row = await BoardRevision.findOne({
-    where: { boardId, revision },
-    include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
-  });
-  if (!row) throw notFound(`Revision ${revision}`);
+  const found = await readIssuedRevision(boardId, revision);
+  if (!found) throw notFound(`Revision ${revision}`);
+  const { row, issued } = found;
   return {
     revision: row.revision,
-    issued: {
-      at: row.issuedAt.toISOString(),
-      byName: (row as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member',
-    },
+    issued,
     snapshot: row.snapshot as unknown as BoardSnapshot,
     sizing: row.sizing as unknown as BoardResult,
   };

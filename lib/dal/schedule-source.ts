@@ -9,7 +9,8 @@ import { readBoard, readSizedBoard } from '@/lib/dal/board-repository';
 import { findBoard } from '@/lib/dal/boards';
 import { forbidden, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
-import { BoardRevision, User } from '@/models';
+import { readIssuedRevision } from '@/lib/dal/revisions';
+import { BoardRevision } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { LabelStatus } from '@/models/way';
 
@@ -49,11 +50,9 @@ export async function getScheduleSource(actor: Actor, boardId: string, revision?
     }
   }
   const url = boardUrl(boardId);
-  const row = await BoardRevision.findOne({
-    where: { boardId, revision: target },
-    include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
-  });
-  if (row) {
+  const found = await readIssuedRevision(boardId, target);
+  if (found) {
+    const { row, issued } = found;
     const snapshot = row.snapshot as unknown as BoardSnapshot;
     // The walk checks the board as built, which is the current issued revision
     let labels: ScheduleSource['labels'] = null;
@@ -73,10 +72,7 @@ export async function getScheduleSource(actor: Actor, boardId: string, revision?
       revision: row.revision,
       status: row.revision === board.revision ? board.status : 'issued',
       frozen: true,
-      issued: {
-        at: row.issuedAt.toISOString(),
-        byName: (row as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member',
-      },
+      issued,
       labels,
       updatedAt: row.issuedAt.toISOString(),
     };

@@ -14,8 +14,8 @@ import {
 import { audit } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import { fedFromWords, wayName } from '@/lib/names';
+import { feedLoop, unfitReason } from '@/lib/sites/feed-rules';
 import type { FedFrom, FeedChange, SiteRipple } from '@/lib/sites/tree-types';
-import { isProtectiveDevice } from '@/lib/sizing';
 
 import {
   feedRefusal,
@@ -68,23 +68,6 @@ export async function lockSiteOfBoard(
   const siteId = await readBoardSiteId(actor, boardId, transaction);
   if (!siteId) throw notFound('The board');
   return lockSiteForWrite(actor, siteId, transaction, opts);
-}
-
-/** Why a way cannot feed a board of these phases, or null when it can. */
-function unfitReason(way: WayInput, wayWords: string, boardName: string, phases: 1 | 3): string | null {
-  if (!isProtectiveDevice(way.device.kind) || !way.circuit) {
-    return `${wayWords} cannot feed ${boardName}: a sub-main needs a protective device and a circuit`;
-  }
-  if (way.circuit.use !== 'distribution') {
-    return `${wayWords} cannot feed ${boardName}: set its use to distribution (a sub-main) first`;
-  }
-  if (phases === 3 && way.circuit.phases !== 3) {
-    return `${boardName} is three-phase, so it needs a three-phase sub-main, and ${wayWords} is single-phase`;
-  }
-  if (phases === 1 && way.circuit.phases === 3) {
-    return `${boardName} is single-phase: feed it from a single-phase way (one phase), not the three-phase ${wayWords}`;
-  }
-  return null;
 }
 
 const sameFeed = (a: BoardFeed, b: BoardFeed) => JSON.stringify(a) === JSON.stringify(b);
@@ -178,17 +161,8 @@ async function checkFeed(
     throw feedRefusal([{ path: 'feed.boardId', message: `${board.name} cannot be fed from one of its own ways` }]);
   }
   const parent = byId.get(feed.boardId)!;
-  // A loop: follow the feeds up from the parent; meeting this board closes one
-  const chain: TreeBoard[] = [];
-  let at: TreeBoard | undefined = parent;
-  while (at && !chain.includes(at)) {
-    chain.push(at);
-    if (at.id === board.id) break;
-    at = at.feed.from === 'way' ? byId.get(at.feed.boardId) : undefined;
-  }
-  if (at?.id === board.id) {
-    // In the direction the power would flow: this board feeds … feeds the parent, which would feed it
-    const cycle = [...chain].reverse().map((b) => ({ boardId: b.id, name: b.name }));
+  const cycle = feedLoop(byId, board.id, parent.id);
+  if (cycle) {
     const names = [...cycle, cycle[0]].map((c) => c.name).join(' feeds ');
     throw feedRefusal([{ path: 'feed.boardId', message: `Boards cannot feed each other in a loop: ${names}` }], cycle);
   }
@@ -282,6 +256,15 @@ export type Relink = { boardId: string; feed: Extract<BoardFeed, { from: 'way' }
 
 type FedFromWords = { boardName: string; wayLabel: string | null };
 
+/** Where a feed from a way comes from, in words: the feeding board's name and the way's label. */
+function feedingWay(byId: Map<string, TreeBoard>, feed: { boardId: string; wayId: string }): FedFromWords {
+  const parent = byId.get(feed.boardId);
+  return {
+    boardName: parent?.name ?? 'another board',
+    wayLabel: parent ? (wayLabelsOf(parent).get(feed.wayId) ?? null) : null,
+  };
+}
+
 /** Locks the site (update: the tree may change) and finds whom the board's removal changes; 409 unconfirmed. */
 export async function beforeBoardRemoval(
   actor: Actor,
@@ -307,12 +290,7 @@ export async function beforeBoardRemoval(
   let ownFeed: FedFromWords | null = null;
   const relinks: Relink[] = [];
   if (me?.feed.from === 'way') {
-    const wayId = me.feed.wayId;
-    const parent = byId.get(me.feed.boardId);
-    ownFeed = {
-      boardName: parent?.name ?? 'another board',
-      wayLabel: parent ? (wayLabelsOf(parent).get(wayId) ?? null) : null,
-    };
+    ownFeed = feedingWay(byId, me.feed);
     relinks.push({ boardId: board.id, feed: me.feed });
   }
   for (const c of detach) {
@@ -389,7 +367,7 @@ export async function afterBoardReturn(
  * chosen by hand (`checkFeed`: there, fit, free, no loop). Each one taken up or left is in the
  * board's history. Answers the boards fed again and those left at the origin, with why.
  */
-export async function takeUpFeeds(
+async function takeUpFeeds(
   actor: Actor,
   board: { id: string; name: string; siteId: string },
   relinks: readonly Relink[],
@@ -401,11 +379,7 @@ export async function takeUpFeeds(
   for (const r of relinks) {
     const target = byId.get(r.boardId);
     if (!target || target.feed.from !== 'origin') continue;
-    const parent = byId.get(r.feed.boardId);
-    const was = fedFromWords({
-      boardName: parent?.name ?? 'another board',
-      wayLabel: parent ? (wayLabelsOf(parent).get(r.feed.wayId) ?? null) : null,
-    });
+    const was = fedFromWords(feedingWay(byId, r.feed));
     try {
       await checkFeed(actor, { ...target, siteId: board.siteId }, r.feed, byId, transaction);
     } catch (err) {

@@ -3,120 +3,29 @@ import 'server-only';
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { engineInputOf, type BoardDto, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
+import type { BoardDto } from '@/lib/boards/schemas';
 import { transition } from '@/lib/boards/lifecycle';
 import { db } from '@/lib/db';
-import { readDraftTreeRows, readTreeBoards } from '@/lib/dal/board-repository';
+import { findBoard, readDraftTreeRows, readTreeBoards, writeBoard } from '@/lib/dal/board-repository';
 import { audit } from '@/lib/dal/audit';
-import { findBoard, writeBoard } from '@/lib/dal/board-repository';
 import { assertNotArchived } from '@/lib/dal/boards';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { conflict, notFound } from '@/lib/errors';
+import { treeDtoOf, treeOrder } from '@/lib/sites/tree-dto';
 import type {
   BoardFeedInput,
   FedFrom,
   SiteOrigin,
   SiteOriginInput,
   SiteRipple,
-  SiteTreeBoard,
   SiteTreeDto,
-  SiteTreeEdge,
 } from '@/lib/sites/tree-types';
-import { isProtectiveDevice, SIZING_CAUTION, type SupplyInput } from '@/lib/sizing';
-import { groupSelectivity, subMainLoad, unsizedBoard, worstVerdictOf, type SiteResult } from '@/lib/supply';
+import type { SupplyInput } from '@/lib/sizing';
+import { unsizedBoard, type SiteResult } from '@/lib/supply';
 
-import {
-  lockSite,
-  originSupply,
-  presizeSite,
-  resizeSite,
-  sizeTree,
-  wayLabelsOf,
-  type SizedSite,
-  type TreeBoard,
-} from './site-tree';
+import { lockSite, originSupply, presizeSite, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
-
-/** The tree DTO from the boards and their sizing as one tree. */
-export function treeDtoOf(
-  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
-  boards: readonly TreeBoard[],
-  sized: SizedSite,
-): SiteTreeDto {
-  const byId = new Map(boards.map((b) => [b.id, b]));
-  const labels = new Map(boards.map((b) => [b.id, wayLabelsOf(b)]));
-  const feeds = new Map<string, string>(); // way id → the board it feeds
-  for (const b of boards) if (b.feed.from === 'way' && !sized.detached.has(b.id)) feeds.set(b.feed.wayId, b.id);
-
-  const out: SiteTreeBoard[] = [];
-  const edges: SiteTreeEdge[] = [];
-  for (const id of treeOrder(boards, sized)) {
-    const b = byId.get(id)!;
-    const s = sized.boards.get(id);
-    const r = s?.result ?? null;
-    const sizing = s?.sizing ?? null;
-    const problem =
-      r?.problem ?? (s && !sizing ? `${b.name} cannot be sized: ${s.issues.map((i) => i.message).join('; ')}` : null);
-    out.push({
-      boardId: b.id,
-      name: b.name,
-      depth: r?.depth ?? 0,
-      fedFrom: sized.detached.has(b.id) ? null : (r?.fedFrom ?? null),
-      phase: r?.phase ?? null,
-      zdb: s?.carried?.zdb ?? r?.zdb ?? null,
-      pfc: s?.carried?.pfc ?? r?.pfc ?? null,
-      vdUsed: s?.carried?.vdUsed ?? r?.vdUsed ?? null,
-      subMainCurrent: s?.carried?.subMainCurrent ?? r?.subMainCurrent ?? null,
-      selectivity: groupSelectivity(r?.selectivity ?? []),
-      supply: s?.carried?.supply ?? (sizing ? b.supply : null),
-      sizing: sizing ? { summary: sizing.summary } : null,
-      worstVerdict: sizing ? (r?.worstVerdict ?? worstVerdictOf(sizing, r?.selectivity ?? [])) : null,
-      problem,
-      location: b.location,
-      phases: b.phases,
-      status: b.status,
-      version: b.version,
-      feed: b.feed,
-      feedsBoards: b.ways.filter((w) => feeds.has(w.id)).map((w) => ({ wayId: w.id, boardId: feeds.get(w.id)! })),
-      ways: engineInputOf(b, b.ways).ways.map((w) => ({
-        id: w.id,
-        label: labels.get(b.id)?.get(w.id) ?? null,
-        feedsBoardId: feeds.get(w.id) ?? null,
-        distribution: isProtectiveDevice(w.device.kind) && w.circuit?.use === 'distribution',
-      })),
-    });
-    const feed = b.feed;
-    if (feed.from === 'way' && !sized.detached.has(b.id) && r?.fedFrom) {
-      const parentSizing = sized.boards.get(feed.boardId)?.sizing ?? null;
-      edges.push({
-        fromBoardId: feed.boardId,
-        fromWayId: feed.wayId,
-        wayLabel: r.fedFrom.wayLabel,
-        toBoardId: b.id,
-        device: r.fedFrom.device,
-        cable: r.fedFrom.cable,
-        verdict: parentSizing?.ways.find((w) => w.id === feed.wayId)?.result?.verdict ?? null,
-        designCurrent: r.subMainCurrent,
-      });
-    }
-  }
-  return {
-    siteId: site.id,
-    siteName: site.name,
-    origin: site.origin,
-    treeVersion: site.treeVersion,
-    boards: out,
-    edges,
-    caution: SIZING_CAUTION,
-  };
-}
-
-/** The boards' ids in tree order: those sizeSite placed (parents first), then the others as read. */
-function treeOrder(boards: readonly TreeBoard[], sized: SizedSite): string[] {
-  const placed = sized.site.boards.map((r) => r.boardId);
-  return [...placed, ...boards.map((b) => b.id).filter((id) => !placed.includes(id))];
-}
 
 /** The caller's organisation's site row (404 otherwise). */
 async function readSite(actor: Actor, siteId: string) {
@@ -218,25 +127,6 @@ export async function draftTreeContext(
   for (const f of feeds ?? []) if (f.amps !== null) subMains.set(f.wayId, f.amps);
   const fedFrom = carried?.from === 'way' && !carried.problem ? carried.fedFrom : null;
   return { supply: carried?.supply ?? null, subMains, fedFrom };
-}
-
-/** A draft's settings and ways with what the tree gives it (see `draftTreeContext`). */
-export function withTreeContext<T extends { settings: BoardSettings; ways: WayInput[] }>(
-  draft: T,
-  context: { supply: SupplyInput | null; subMains: Map<string, number> },
-): { settings: BoardSettings; ways: WayInput[] } {
-  const { supply, subMains } = context;
-  return {
-    settings: supply ? { ...draft.settings, supply } : draft.settings,
-    ways: draft.ways.map((w) => {
-      const amps = subMains.get(w.id);
-      if (amps === undefined || !w.circuit) return w;
-      return {
-        ...w,
-        circuit: { ...w.circuit, load: subMainLoad(amps, w.circuit.phases, (supply ?? draft.settings.supply).uoV) },
-      };
-    }),
-  };
 }
 
 /**

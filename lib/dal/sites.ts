@@ -5,15 +5,13 @@ import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { mayRestore, siteRemoval } from '@/lib/boards/record-rules';
 import { db } from '@/lib/db';
-import { audit } from '@/lib/dal/audit';
+import { audit, auditMany } from '@/lib/dal/audit';
 import { countBoardsBySite, raiseSiteBoardVersions, readSiteBoardRecords } from '@/lib/dal/board-repository';
+import { memberNames } from '@/lib/dal/members';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/errors';
 import type { SiteInput } from '@/lib/sites/schemas';
-import { BoardRevision, Site, User } from '@/models';
+import { BoardRevision, Site } from '@/models';
 import type { SiteSummary } from '@/lib/sites/types';
-
-// The schema lives in lib/sites/schemas.ts so the browser form can share it.
-export { siteInputSchema, type SiteInput } from '@/lib/sites/schemas';
 
 function toSummary(site: Site, boardCount: number, archivedByName = 'A former member'): SiteSummary {
   return {
@@ -27,14 +25,6 @@ function toSummary(site: Site, boardCount: number, archivedByName = 'A former me
   };
 }
 
-/** The names of the people who archived these sites. */
-async function archiverNames(sites: Site[]): Promise<Map<string, string>> {
-  const ids = [...new Set(sites.map((s) => s.archivedById).filter((id): id is string => !!id))];
-  if (!ids.length) return new Map();
-  const people = await User.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'name'] });
-  return new Map(people.map((u) => [u.id, u.name]));
-}
-
 /** The organisation's live sites (or, with `archived`, the archived ones) with their board counts. */
 export async function listSites(actor: Actor, opts: { archived?: boolean } = {}): Promise<SiteSummary[]> {
   const sites = await Site.findAll({
@@ -42,7 +32,7 @@ export async function listSites(actor: Actor, opts: { archived?: boolean } = {})
     order: [['name', 'ASC']],
   });
   const bySite = await countBoardsBySite({ organisationId: actor.organisationId }, !!opts.archived);
-  const names = await archiverNames(sites);
+  const names = await memberNames(sites.map((s) => s.archivedById));
   return sites.map((s) => toSummary(s, bySite.get(s.id) ?? 0, names.get(s.archivedById ?? '')));
 }
 
@@ -57,7 +47,7 @@ export async function findSite(actor: Actor, siteId: string): Promise<Site> {
 export async function getSite(actor: Actor, siteId: string): Promise<SiteSummary> {
   const site = await findSite(actor, siteId);
   const count = (await countBoardsBySite({ siteId: site.id }, !!site.archivedAt)).get(site.id) ?? 0;
-  return toSummary(site, count, (await archiverNames([site])).get(site.archivedById ?? ''));
+  return toSummary(site, count, (await memberNames([site.archivedById])).get(site.archivedById ?? ''));
 }
 
 export async function createSite(actor: Actor, input: SiteInput): Promise<SiteSummary> {
@@ -108,24 +98,20 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
     // Every board's version moves on: an editor still open cannot save into an archived site
     if (boards.length) await raiseSiteBoardVersions(siteId, transaction);
     const live = boards.filter((b) => !b.deletedAt && !b.archivedAt);
-    await audit(
+    const boardNames = live.map((b) => ({ id: b.id, name: b.name }));
+    // The site's trail, and each board's own trail too
+    await auditMany(
       actor,
-      'site.archived',
-      { siteId, name: site.name, boards: live.map((b) => ({ id: b.id, name: b.name })) },
+      [
+        { action: 'site.archived', details: { siteId, name: site.name, boards: boardNames }, boardId: null },
+        ...live.map((b) => ({
+          action: 'board.archived' as const,
+          details: { name: b.name, revision: b.revision, siteId, site: site.name },
+          boardId: b.id,
+        })),
+      ],
       { transaction },
     );
-    // Each board's own trail says so too
-    for (const b of live) {
-      await audit(
-        actor,
-        'board.archived',
-        { name: b.name, revision: b.revision, siteId, site: site.name },
-        {
-          boardId: b.id,
-          transaction,
-        },
-      );
-    }
   });
   return getSite(actor, siteId);
 }
@@ -138,11 +124,19 @@ export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSum
     const site = await lockedSite(actor, siteId, transaction);
     if (!site?.archivedAt) throw conflict('This site is not archived.');
     await site.update({ archivedAt: null, archivedById: null }, { transaction });
-    await audit(actor, 'site.restored', { siteId, name: site.name }, { transaction });
     const boards = await readSiteBoardRecords(siteId, { transaction, live: true });
-    for (const b of boards) {
-      await audit(actor, 'board.restored', { name: b.name, siteId, site: site.name }, { boardId: b.id, transaction });
-    }
+    await auditMany(
+      actor,
+      [
+        { action: 'site.restored', details: { siteId, name: site.name }, boardId: null },
+        ...boards.map((b) => ({
+          action: 'board.restored' as const,
+          details: { name: b.name, siteId, site: site.name },
+          boardId: b.id,
+        })),
+      ],
+      { transaction },
+    );
   });
   return getSite(actor, siteId);
 }

@@ -1,11 +1,12 @@
 /**
- * The words of the e-mails a board's lifecycle sends, of a schedule sent by e-mail and of an invitation. Plain
+ * The words of the e-mails a board's lifecycle sends, of a schedule or site pack sent by e-mail and of an invitation. Plain
  * functions from facts the DAL gathered (under the board's lock) to a subject and a text: no
  * database, no environment, so the unit tests read exactly what a person receives.
  */
 import type { LifecycleNotice } from '@/lib/boards/lifecycle';
 import type { Role } from '@/lib/domain';
 import { wayTitle } from '@/lib/names';
+import { SIZING_CAUTION } from '@/lib/sizing';
 
 export type MailContent = { subject: string; text: string };
 
@@ -167,6 +168,24 @@ export function scheduleMail(f: ScheduleMailFacts): MailContent {
       ...(f.message ? ['', f.message] : []),
       '',
       `The schedule is attached as a PDF. Board: ${f.boardUrl}`,
+    ].join('\n'),
+  };
+}
+
+/** What the e-mail carrying a site pack says (lib/dal/site-pack-mail.ts). */
+export type SitePackMailFacts = { siteName: string; boardCount: number; senderName: string; message?: string };
+
+/** A site pack sent to an address: the sender's note, what the pack holds, and the design-aid caution. */
+export function sitePackMail(f: SitePackMailFacts): MailContent {
+  return {
+    subject: `Site pack: ${f.siteName}`,
+    text: [
+      `${f.senderName} sent you the site pack of ${f.siteName}: the single-line diagram of its supply, the values carried to each board, and the schedule of each of its ${f.boardCount} board${f.boardCount === 1 ? '' : 's'}.`,
+      ...(f.message ? ['', f.message] : []),
+      '',
+      'The pack is attached as a PDF.',
+      '',
+      SIZING_CAUTION,
     ].join('\n'),
   };
 }

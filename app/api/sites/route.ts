@@ -1,5 +1,6 @@
 import { defineRoute } from '@/lib/api/handler';
-import { createSite, listSites, siteInputSchema } from '@/lib/dal/sites';
+import { createSite, listSites } from '@/lib/dal/sites';
+import { siteInputSchema } from '@/lib/sites/schemas';
 
 /** GET /api/sites[?archived=1]: the organisation's live sites, or its archived ones. */
 export const GET = defineRoute({

@@ -171,6 +171,10 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     return way ? placementProblem(settings, ways, way, target.rail, target.index) : null;
   }, []);
 
+  const endDrag = () => {
+    setDragging(undefined);
+    setDropRefusal(null);
+  };
   const onDragStart = ({ active }: DragStartEvent) => {
     lastDrop.current = null;
     setDragging(active.data.current as ActiveData);
@@ -182,8 +186,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   const onDragEnd = ({ active, over }: DragEndEvent) => {
     const data = active.data.current as ActiveData;
     const overData = over?.data.current as OverData;
-    setDragging(undefined);
-    setDropRefusal(null);
+    endDrag();
     lastDrop.current = announcements.describeDrop(data, overData);
     const store = useBoardDraftStore.getState();
     if (!data || readOnly) return;
@@ -197,29 +200,20 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     else store.moveWay(data.wayId, target.rail, target.index);
   };
 
-  // "Add to the board": the first rail with room, at its end
+  // "Add to the board": the first rail with room, at its end (nowhere: the last rail's refusal shows)
   const addAnywhere = useCallback((device: DeviceOnRail) => {
-    const store = useBoardDraftStore.getState();
-    if (!store.settings) return;
-    const rails = drawRails(
-      store.settings.phases,
-      railCapacities(store.settings.enclosureModules, store.settings.rails),
-      store.ways,
-    );
-    for (const drawing of rails) {
-      const index = store.ways.filter((w) => w.rail === drawing.rail).length;
-      const way = { id: '(new)', rail: drawing.rail, position: index, device };
-      if (!placementProblem(store.settings, store.ways, way, drawing.rail, index)) {
-        store.addDevice(newWayId(), device, drawing.rail, index);
+    const { settings, ways, addDevice } = useBoardDraftStore.getState();
+    if (!settings) return;
+    const rails = drawRails(settings.phases, railCapacities(settings.enclosureModules, settings.rails), ways);
+    const id = newWayId();
+    for (const { rail } of rails) {
+      if (addDevice(id, device, rail, ways.filter((w) => w.rail === rail).length).ok) {
         toast.success(
-          `Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${drawing.rail + 1}` : 'the rail'}.`,
+          `Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${rail + 1}` : 'the rail'}.`,
         );
         return;
       }
     }
-    // Nowhere fits: the store gives the reason for the last rail
-    const last = rails[rails.length - 1];
-    store.addDevice(newWayId(), device, last.rail, store.ways.filter((w) => w.rail === last.rail).length);
   }, []);
 
   // Sending for review: save first, then ask the server
@@ -282,10 +276,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
         onDragStart={onDragStart}
         onDragOver={onDragOver}
         onDragEnd={onDragEnd}
-        onDragCancel={() => {
-          setDragging(undefined);
-          setDropRefusal(null);
-        }}
+        onDragCancel={endDrag}
         accessibility={{ announcements, screenReaderInstructions: SCREEN_READER_INSTRUCTIONS }}
       >
         <EditorToolbar

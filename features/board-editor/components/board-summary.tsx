@@ -3,12 +3,12 @@
 import { CircleCheck, CircleX, TriangleAlert } from 'lucide-react';
 import { memo } from 'react';
 
+import { fmt } from '@/components/sizing/circuit-result-view';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { cn } from '@/lib/cn';
 
 import { useDraftSizing, useSizingError } from '../hooks/use-live-sizing';
 import { useBoardDraftStore } from '../stores/board-draft-store';
-import { fmt } from '../utils/format';
 
 function Stat({ title, children, className }: { title: string; children: React.ReactNode; className?: string }) {
   return (
@@ -59,6 +59,8 @@ export const BoardSummary = memo(function BoardSummary() {
   const failing = ids('fails');
   const near = ids('near-limit');
   const phaseCurrents = s.phaseCurrentsA;
+  // Failing board checks other than those shown in their own boxes above
+  const otherFailing = s.checks.filter((c) => !c.ok && !['incoming', 'busbar', 'modules'].includes(c.code));
   return (
     <section aria-label="Board summary" className="rounded-card border border-line bg-paper-raised p-3">
       <div className="mb-2 flex items-baseline justify-between">
@@ -121,15 +123,13 @@ export const BoardSummary = memo(function BoardSummary() {
           · {wayCounts}
         </span>
       </div>
-      {s.checks.some((c) => !c.ok && !['incoming', 'busbar', 'modules'].includes(c.code)) ? (
+      {otherFailing.length ? (
         <ul className="mt-2 space-y-1 text-xs">
-          {s.checks
-            .filter((c) => !c.ok && !['incoming', 'busbar', 'modules'].includes(c.code))
-            .map((c, i) => (
-              <li key={`${c.code}-${i}`}>
-                <CheckLine ok={false} message={`${c.message} (${c.reference})`} />
-              </li>
-            ))}
+          {otherFailing.map((c, i) => (
+            <li key={`${c.code}-${i}`}>
+              <CheckLine ok={false} message={`${c.message} (${c.reference})`} />
+            </li>
+          ))}
         </ul>
       ) : null}
       <details className="mt-2 text-xs text-ink-soft">

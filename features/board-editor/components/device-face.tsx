@@ -1,9 +1,10 @@
 import { Zap } from 'lucide-react';
 
 import { cn } from '@/lib/cn';
+import { deviceFaceName } from '@/lib/names';
 import type { DeviceOnRail } from '@/lib/sizing';
 
-import { kindName, ratingText } from '../utils/device-catalogue';
+import { ratingText } from '../utils/device-catalogue';
 
 const FACE: Record<string, string> = {
   'main-switch': 'bg-ink text-paper border-ink',
@@ -84,7 +85,7 @@ export function DeviceFace({ device, className }: { device: DeviceOnRail; classN
           />
         ) : null}
         <Printed
-          text={device.modules > 1 ? kindName(device.kind) : (NARROW[device.kind] ?? kindName(device.kind))}
+          text={device.modules > 1 ? deviceFaceName(device.kind) : (NARROW[device.kind] ?? deviceFaceName(device.kind))}
           className="text-[8px] leading-none font-semibold tracking-wide whitespace-nowrap uppercase opacity-80"
         />
       </span>

@@ -2,7 +2,7 @@
 
 import { memo } from 'react';
 
-import { Field, Select } from '@/components/ui/field';
+import { SelectField } from '@/components/ui/field';
 import { deviceOnRailSchema, isProtectiveDevice, STANDARD_RATINGS_A, type DeviceOnRail } from '@/lib/sizing';
 
 import { BREAKING_KA } from '../utils/circuit-options';
@@ -58,69 +58,49 @@ export const DeviceForm = memo(function DeviceForm({ wayId, readOnly }: DeviceFo
         className="grid grid-cols-2 gap-x-3 gap-y-3 [&_:is(input,select):disabled]:cursor-not-allowed [&_:is(input,select):disabled]:bg-paper-sunk [&_:is(input,select):disabled]:text-ink-soft"
       >
         <legend className="sr-only">Device of the way</legend>
-        <Field label="Rating" error={errors.ratingA?.message}>
-          {(id, d) => (
-            <Select id={id} aria-describedby={d} aria-invalid={!!errors.ratingA} {...register('ratingA', numberOrNull)}>
-              {protective ? <option value="">Choose for me</option> : null}
-              {ratings.map((r) => (
-                <option key={r} value={r}>
-                  {r} A{protective ? ' (fixed)' : ''}
-                </option>
-              ))}
-            </Select>
-          )}
-        </Field>
+        <SelectField
+          label="Rating"
+          error={errors.ratingA?.message}
+          options={[
+            ...(protective ? [{ value: '', label: 'Choose for me' }] : []),
+            ...ratings.map((r) => ({ value: r, label: `${r} A${protective ? ' (fixed)' : ''}` })),
+          ]}
+          {...register('ratingA', numberOrNull)}
+        />
         {breaker ? (
-          <Field label="Curve" error={errors.curve?.message}>
-            {(id, d) => (
-              <Select id={id} aria-describedby={d} aria-invalid={!!errors.curve} {...register('curve')}>
-                {curves.map((c) => (
-                  <option key={c} value={c}>
-                    Type {c}
-                  </option>
-                ))}
-              </Select>
-            )}
-          </Field>
+          <SelectField
+            label="Curve"
+            error={errors.curve?.message}
+            options={curves.map((c) => ({ value: c, label: `Type ${c}` }))}
+            {...register('curve')}
+          />
         ) : null}
         {protective ? (
-          <Field label="Breaking capacity" error={errors.breakingKa?.message}>
-            {(id, d) => (
-              <Select id={id} aria-describedby={d} {...register('breakingKa', numberOrUndefined)}>
-                <option value="">Not given</option>
-                {BREAKING_KA.map((k) => (
-                  <option key={k} value={k}>
-                    {k} kA
-                  </option>
-                ))}
-              </Select>
-            )}
-          </Field>
+          <SelectField
+            label="Breaking capacity"
+            error={errors.breakingKa?.message}
+            options={[{ value: '', label: 'Not given' }, ...BREAKING_KA.map((k) => ({ value: k, label: `${k} kA` }))]}
+            {...register('breakingKa', numberOrUndefined)}
+          />
         ) : null}
         {kind === 'rcd' || kind === 'rcbo' ? (
           <>
-            <Field label="IΔn" hint="Rated residual operating current" error={errors.rcdMa?.message}>
-              {(id, d) => (
-                <Select id={id} aria-describedby={d} aria-invalid={!!errors.rcdMa} {...register('rcdMa', numberOrNull)}>
-                  {(kind === 'rcbo' ? [10, 30, 100, 300] : [30, 100, 300]).map((m) => (
-                    <option key={m} value={m}>
-                      {m} mA
-                    </option>
-                  ))}
-                </Select>
-              )}
-            </Field>
-            <Field label="RCD type" error={errors.rcdType?.message}>
-              {(id, d) => (
-                <Select id={id} aria-describedby={d} {...register('rcdType')}>
-                  {(['AC', 'A', 'F', 'B'] as const).map((t) => (
-                    <option key={t} value={t}>
-                      Type {t}
-                    </option>
-                  ))}
-                </Select>
-              )}
-            </Field>
+            <SelectField
+              label="IΔn"
+              hint="Rated residual operating current"
+              error={errors.rcdMa?.message}
+              options={(kind === 'rcbo' ? [10, 30, 100, 300] : [30, 100, 300]).map((m) => ({
+                value: m,
+                label: `${m} mA`,
+              }))}
+              {...register('rcdMa', numberOrNull)}
+            />
+            <SelectField
+              label="RCD type"
+              error={errors.rcdType?.message}
+              options={(['AC', 'A', 'F', 'B'] as const).map((t) => ({ value: t, label: `Type ${t}` }))}
+              {...register('rcdType')}
+            />
           </>
         ) : null}
       </fieldset>

@@ -1,7 +1,6 @@
 'use client';
 
-import { Button } from '@/components/ui/button';
-import { Dialog, DialogActions } from '@/components/ui/dialog';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { fedFromWords } from '@/lib/names';
 import type { FeedChange } from '@/lib/sites/tree-types';
 
@@ -17,31 +16,28 @@ type FeedChangeDialogProps = {
  * from the origin until they are linked again, and re-sizes them.
  */
 export function FeedChangeDialog({ feedChanges, onConfirm, onHold }: FeedChangeDialogProps) {
-  const open = !!feedChanges?.length;
   return (
-    <Dialog
-      open={open}
-      onClose={onHold}
+    <ConfirmDialog
+      open={!!feedChanges?.length}
+      danger={false}
       title="Other boards are fed from this board"
       description="This save takes away the way that feeds them."
+      cancelLabel="Keep editing"
+      confirmLabel="Save and feed from the origin"
+      onClose={onHold}
+      onConfirm={onConfirm}
     >
-      <ul className="space-y-1 text-sm text-ink">
+      <ul className="space-y-1">
         {(feedChanges ?? []).map((c) => (
           <li key={c.boardId}>
             <strong>{c.name}</strong>: fed now from {fedFromWords(c.from)}
           </li>
         ))}
       </ul>
-      <p className="mt-3 text-sm text-ink-soft">
+      <p className="mt-3 text-ink-soft">
         If you save, {feedChanges?.length === 1 ? 'this board is' : 'these boards are'} fed from the origin (the supply
         intake) and sized again with its values until linked to another way. Undo the change instead to keep the feed.
       </p>
-      <DialogActions>
-        <Button variant="secondary" onClick={onHold}>
-          Keep editing
-        </Button>
-        <Button onClick={onConfirm}>Save and feed from the origin</Button>
-      </DialogActions>
-    </Dialog>
+    </ConfirmDialog>
   );
 }

@@ -3,25 +3,17 @@
 import { useMutation } from '@tanstack/react-query';
 import { MessageSquare } from 'lucide-react';
 import { useRouter } from 'next/navigation';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
 import { FormAlert } from '@/components/ui/form-alert';
 import { errorMessage } from '@/lib/api/client';
-import { layoutWays } from '@/lib/boards/layout';
-import type { CommentDto } from '@/lib/boards/review-types';
-import type { ReturnNotes } from '@/lib/boards/review-types';
+import type { CommentDto, ReturnNotes } from '@/lib/boards/review-types';
 
 import { markCommentsAnswered } from '../api/board-editor-api';
+import { useWayLabels } from '../hooks/use-board-view';
 import { useBoardDraftStore } from '../stores/board-draft-store';
-
-/** The way references of the draft as it stands (they follow the designer's moves). */
-function useWayRefs(): Map<string, string | null> {
-  const ways = useBoardDraftStore((s) => s.ways);
-  const phases = useBoardDraftStore((s) => s.settings?.phases ?? 1);
-  return useMemo(() => new Map(layoutWays(phases, ways).map((p) => [p.id, p.label])), [phases, ways]);
-}
 
 function Meta({ comment }: { comment: CommentDto }) {
   return (
@@ -46,7 +38,7 @@ export function ReviewNotes({
   canAnswer: boolean;
 }) {
   const router = useRouter();
-  const refs = useWayRefs();
+  const refs = useWayLabels();
   const ways = useBoardDraftStore((s) => s.ways);
   const select = useBoardDraftStore((s) => s.select);
   const section = useRef<HTMLElement>(null);
@@ -147,7 +139,7 @@ export function ReviewNotes({
 /** The review comments on the selected way, shown above the way panel. */
 export function SelectedWayComments({ notes }: { notes: ReturnNotes }) {
   const selection = useBoardDraftStore((s) => s.selection);
-  const refs = useWayRefs();
+  const refs = useWayLabels();
   const mine = notes.wayComments.filter((c) => c.wayId && selection.includes(c.wayId));
   if (!mine.length) return null;
   return (

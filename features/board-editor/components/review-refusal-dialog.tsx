@@ -2,8 +2,7 @@
 
 import { CircleX } from 'lucide-react';
 
-import { Button } from '@/components/ui/button';
-import { Dialog, DialogActions } from '@/components/ui/dialog';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 
 import type { RefusedWay } from '../api/board-editor-api';
 
@@ -16,7 +15,17 @@ type ReviewRefusalDialogProps = {
 /** Why a board could not go for review: each failing way and what it fails. */
 export function ReviewRefusalDialog({ refusal, onShowWays, onClose }: ReviewRefusalDialogProps) {
   return (
-    <Dialog open={!!refusal} onClose={onClose} title="Not sent for review" description={refusal?.message} wide>
+    <ConfirmDialog
+      open={!!refusal}
+      danger={false}
+      wide
+      title="Not sent for review"
+      description={refusal?.message}
+      cancelLabel="Close"
+      confirmLabel="Show them on the board"
+      onClose={onClose}
+      onConfirm={() => onShowWays(refusal?.failing.map((w) => w.wayId) ?? [])}
+    >
       <ul className="max-h-[50vh] space-y-3 overflow-y-auto">
         {refusal?.failing.map((w) => (
           <li key={w.wayId} className="rounded-md border border-verdict-fail/30 bg-verdict-fail-bg/50 px-3 py-2">
@@ -33,12 +42,6 @@ export function ReviewRefusalDialog({ refusal, onShowWays, onClose }: ReviewRefu
           </li>
         ))}
       </ul>
-      <DialogActions>
-        <Button variant="secondary" onClick={onClose}>
-          Close
-        </Button>
-        <Button onClick={() => onShowWays(refusal?.failing.map((w) => w.wayId) ?? [])}>Show them on the board</Button>
-      </DialogActions>
-    </Dialog>
+    </ConfirmDialog>
   );
 }

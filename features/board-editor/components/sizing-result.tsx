@@ -1,11 +1,10 @@
 import { CircleCheck, CircleX } from 'lucide-react';
 
+import { fmt } from '@/components/sizing/circuit-result-view';
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { Caution } from '@/components/ui/caution';
 import { cn } from '@/lib/cn';
 import type { CircuitResult } from '@/lib/sizing';
-
-import { fmt, withUnit } from '../utils/format';
 
 function Row({ name, value, note }: { name: React.ReactNode; value: React.ReactNode; note?: React.ReactNode }) {
   return (
@@ -40,9 +39,9 @@ export function SizingResult({ result, stale }: { result: CircuitResult; stale?:
         {failed ? `${failed} of ${result.checks.length} checks fail.` : `All ${result.checks.length} checks pass.`}
       </p>
       <dl className="text-sm">
-        <Row name="Design current Ib" value={withUnit(result.ibA, 'A')} />
+        <Row name="Design current Ib" value={fmt(result.ibA, 2, 'A')} />
         <Row name="Device In" value={result.inA === null ? '–' : `${result.inA} A`} />
-        <Row name="Required It" value={withUnit(result.requiredItA, 'A')} note="In ÷ factors" />
+        <Row name="Required It" value={fmt(result.requiredItA, 2, 'A')} note="In ÷ factors" />
         <Row
           name="Cable"
           value={result.csaMm2 === null ? '–' : `${result.csaMm2} mm²`}
@@ -50,23 +49,23 @@ export function SizingResult({ result, stale }: { result: CircuitResult; stale?:
         />
         <Row
           name="Tabulated It"
-          value={withUnit(result.itA, 'A', 1)}
+          value={fmt(result.itA, 1, 'A')}
           note={
             result.tableRow
               ? `${result.tableRow.table.replace(/^.*?(Tables? \S+).*$/, '$1')}, method ${result.tableRow.method}`
               : undefined
           }
         />
-        <Row name="Iz after factors" value={withUnit(result.izA, 'A')} />
+        <Row name="Iz after factors" value={fmt(result.izA, 2, 'A')} />
         <Row
           name="Voltage drop"
-          value={`${withUnit(result.vdV, 'V')} (${withUnit(result.vdPct, '%')})`}
+          value={`${fmt(result.vdV, 2, 'V')} (${fmt(result.vdPct, 2, '%')})`}
           note={`limit ${fmt(result.vdLimitPct, 1)} %`}
         />
-        <Row name="R1+R2" value={withUnit(result.r1r2Ohm, 'Ω', 3)} />
-        <Row name="Zs" value={withUnit(result.zsOhm, 'Ω', 3)} note={`limit ${withUnit(result.zsMaxOhm, 'Ω', 2)}`} />
-        <Row name="Earth fault current" value={withUnit(result.faultCurrentA, 'A', 0)} />
-        <Row name="Smallest cpc (adiabatic)" value={withUnit(result.cpcMinMm2, 'mm²', 2)} />
+        <Row name="R1+R2" value={fmt(result.r1r2Ohm, 3, 'Ω')} />
+        <Row name="Zs" value={fmt(result.zsOhm, 3, 'Ω')} note={`limit ${fmt(result.zsMaxOhm, 2, 'Ω')}`} />
+        <Row name="Earth fault current" value={fmt(result.faultCurrentA, 0, 'A')} />
+        <Row name="Smallest cpc (adiabatic)" value={fmt(result.cpcMinMm2, 2, 'mm²')} />
         <Row name="Disconnection within" value={`${result.disconnectionTimeS} s`} />
       </dl>
       <div className="grid grid-cols-4 gap-1 text-center text-xs" aria-label="Correction factors" role="group">

@@ -1,7 +1,6 @@
 'use client';
 
-import { Button } from '@/components/ui/button';
-import { Dialog, DialogActions } from '@/components/ui/dialog';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { countWays, countWords } from '@/lib/boards/counts';
 
 import { useDraftSizing } from '../hooks/use-live-sizing';
@@ -20,8 +19,16 @@ export function SubmitConfirmDialog({ open, revision, onClose, onConfirm }: Prop
   const dirty = useBoardDraftStore((s) => s.dirty);
   const counts = useDraftSizing((s) => s.result.summary.counts);
   return (
-    <Dialog open={open} onClose={onClose} title={`Send ${name} for review?`}>
-      <div className="space-y-2 text-sm leading-relaxed text-ink">
+    <ConfirmDialog
+      open={open}
+      danger={false}
+      title={`Send ${name} for review?`}
+      cancelLabel="Not yet"
+      confirmLabel="Send for review"
+      onClose={onClose}
+      onConfirm={onConfirm}
+    >
+      <div className="space-y-2">
         <p>
           {/* The ways counted by way number, in the words of the boards list and the schedule */}
           Revision {revision}: {countWords(countWays(phases, ways))}
@@ -32,12 +39,6 @@ export function SubmitConfirmDialog({ open, revision, onClose, onConfirm }: Prop
           The inspectors are e-mailed, and the board cannot be changed until one of them issues it or returns it to you.
         </p>
       </div>
-      <DialogActions>
-        <Button variant="secondary" onClick={onClose}>
-          Not yet
-        </Button>
-        <Button onClick={onConfirm}>Send for review</Button>
-      </DialogActions>
-    </Dialog>
+    </ConfirmDialog>
   );
 }

@@ -142,9 +142,26 @@ function commit(state: State, next: Partial<DraftSnapshot>, key: string | null =
   };
 }
 
-const refused = (reason: string): Partial<State> => ({
-  notice: { tone: 'refused', message: reason, id: ++noticeId },
-});
+/** Refuses an edit: the reason is shown (and read out), and answered. */
+function refuse(set: (partial: Partial<State>) => void, reason: string): EditResult {
+  set({ notice: { tone: 'refused', message: reason, id: ++noticeId } });
+  return { ok: false, reason };
+}
+
+/** A way's circuit or device set to `value` (its kept form input dropped). */
+function setWayPart<K extends 'circuit' | 'device'>(
+  state: State,
+  way: EditorWay,
+  part: K,
+  value: EditorWay[K],
+  key: string | undefined,
+): Partial<State> {
+  const unfinished = without(state.unfinished, `${part}:${way.id}`);
+  // The same value again (a form showing an undo): no edit, so the redo stack stays
+  if (sameValue(way[part], value)) return { unfinished };
+  const ways = state.ways.map((w) => (w.id === way.id ? { ...w, [part]: value } : w));
+  return { ...commit(state, { ways }, key ?? null), unfinished };
+}
 
 /**
  * The board editor's draft: settings and ways, the selection, undo and redo, and whether the
@@ -175,10 +192,7 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     if (!state.settings) return { ok: false, reason: 'No board is open.' };
     const way: EditorWay = { id, rail, position: index, device, circuit: null };
     const problem = placementProblem(state.settings, state.ways, way, rail, index);
-    if (problem) {
-      set(refused(problem));
-      return { ok: false, reason: problem };
-    }
+    if (problem) return refuse(set, problem);
     set({ ...commit(state, { ways: placeWay(state.ways, way, rail, index) }), selection: [id], notice: null });
     return { ok: true };
   },
@@ -188,10 +202,7 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     const way = state.ways.find((w) => w.id === id);
     if (!state.settings || !way) return { ok: false, reason: 'That way is no longer on the board.' };
     const problem = placementProblem(state.settings, state.ways, way, rail, index);
-    if (problem) {
-      set(refused(problem));
-      return { ok: false, reason: problem };
-    }
+    if (problem) return refuse(set, problem);
     const ways = placeWay(state.ways, way, rail, index);
     // Dropped back where it was: no undo step (both lists are in rail order)
     const unchanged =
@@ -215,11 +226,7 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     const state = get();
     const way = state.ways.find((w) => w.id === id);
     if (!way) return;
-    const unfinished = without(state.unfinished, `circuit:${id}`);
-    // The same value again (a form showing an undo): no edit, so the redo stack stays
-    if (sameValue(way.circuit, circuit)) return set({ unfinished });
-    const ways = state.ways.map((w) => (w.id === id ? { ...w, circuit } : w));
-    set({ ...commit(state, { ways }, key ?? null), unfinished });
+    set(setWayPart(state, way, 'circuit', circuit, key));
   },
 
   updateDevice: (id, device, key) => {
@@ -227,17 +234,9 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     const way = state.ways.find((w) => w.id === id);
     if (!way) return { ok: false, reason: 'That way is no longer on the board.' };
     if (device.modules !== way.device.modules || device.kind !== way.device.kind) {
-      const reason = 'A different kind or width of device is a new device: drag it from the tray.';
-      set(refused(reason));
-      return { ok: false, reason };
+      return refuse(set, 'A different kind or width of device is a new device: drag it from the tray.');
     }
-    const unfinished = without(state.unfinished, `device:${id}`);
-    if (sameValue(way.device, device)) {
-      set({ unfinished });
-      return { ok: true };
-    }
-    const ways = state.ways.map((w) => (w.id === id ? { ...w, device } : w));
-    set({ ...commit(state, { ways }, key ?? null), unfinished });
+    set(setWayPart(state, way, 'device', device, key));
     return { ok: true };
   },
 
@@ -251,8 +250,7 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     const { ways, fits } = reflowWays(settings.phases, capacities, state.ways);
     if (!fits) {
       const reason = `The devices do not fit on ${rails} rail${rails === 1 ? '' : 's'} of ${capacities[0]} modules: remove some first.`;
-      set(refused(reason));
-      return { ok: false, reason };
+      return refuse(set, reason);
     }
     set({ ...commit(state, { settings, ways }), notice: null });
     return { ok: true };

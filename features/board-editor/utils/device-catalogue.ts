@@ -1,3 +1,4 @@
+import { deviceFaceName } from '@/lib/names';
 import type { DeviceOnRail } from '@/lib/sizing';
 
 /** The kinds of device the tray offers, in the order it shows them. */
@@ -154,23 +155,6 @@ export function deviceFromChoice(kind: TrayKind, choice: TrayChoice): DeviceOnRa
   }
 }
 
-const SHORT: Record<string, string> = {
-  'main-switch': 'Main switch',
-  rcd: 'RCD',
-  mcb: 'MCB',
-  rcbo: 'RCBO',
-  'fuse-bs88-2': 'BS 88-2',
-  'fuse-bs88-3': 'BS 88-3',
-  'fuse-bs3036': 'BS 3036',
-  spd: 'SPD',
-  blank: 'Blank',
-};
-
-/** The device's kind, short (as printed on it). */
-export function kindName(kind: string): string {
-  return SHORT[kind] ?? kind;
-}
-
 /** The rating as printed on the device face: "B16", "C32", "63 A", "30 mA", or "" when not set. */
 export function ratingText(device: DeviceOnRail): string {
   if (device.kind === 'mcb' || device.kind === 'rcbo') {
@@ -184,7 +168,7 @@ export function ratingText(device: DeviceOnRail): string {
 export function deviceWords(device: DeviceOnRail): string {
   const poles =
     device.poles >= 3 && (device.kind === 'mcb' || device.kind.startsWith('fuse')) ? `${device.poles}-pole ` : '';
-  const parts = [`${poles}${kindName(device.kind)}`];
+  const parts = [`${poles}${deviceFaceName(device.kind)}`];
   if (device.kind === 'main-switch' || device.kind === 'rcd' || device.kind === 'spd') parts.push(`${device.poles}P`);
   const rating = ratingText(device);
   if (rating) parts.push(rating);

@@ -9,10 +9,12 @@ import {
   returnedMail,
   reviewRequestedMail,
   scheduleMail,
+  sitePackMail,
   type IssuedFacts,
   type ReturnedFacts,
   type ReviewRequestedFacts,
 } from '@/lib/mail/templates';
+import { SIZING_CAUTION } from '@/lib/sizing';
 
 const appUrl = 'https://boards.larchfield.example.test/';
 const boardId = '3f1c2a9e-0000-4000-8000-000000000001';
@@ -206,5 +208,37 @@ describe('an invitation', () => {
     });
     expect(mail.subject).toBe('You are invited to a team on Boardwright');
     expect(mail.text).toContain('join their team on Boardwright');
+  });
+});
+
+describe('a site pack sent by e-mail', () => {
+  it('says who sent what the pack holds, with the note and the design-aid caution', () => {
+    const mail = sitePackMail({
+      siteName: 'Hollin Lane Joinery',
+      boardCount: 2,
+      senderName: 'Priya Okafor',
+      message: 'For the site file.',
+    });
+    expect(mail.subject).toBe('Site pack: Hollin Lane Joinery');
+    expect(mail.text).toBe(
+      [
+        'Priya Okafor sent you the site pack of Hollin Lane Joinery: the single-line diagram of its supply, the values carried to each board, and the schedule of each of its 2 boards.',
+        '',
+        'For the site file.',
+        '',
+        'The pack is attached as a PDF.',
+        '',
+        SIZING_CAUTION,
+      ].join('\n'),
+    );
+  });
+
+  it('counts one board as one, and leaves the note out when there is none', () => {
+    const mail = sitePackMail({ siteName: 'Hollin Lane Joinery', boardCount: 1, senderName: 'Priya Okafor' });
+    expect(mail.text.split('\n').slice(0, 2)).toEqual([
+      'Priya Okafor sent you the site pack of Hollin Lane Joinery: the single-line diagram of its supply, the values carried to each board, and the schedule of each of its 1 board.',
+      '',
+    ]);
+    expect(mail.text).not.toContain('For the site file.');
   });
 });

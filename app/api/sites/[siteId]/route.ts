@@ -1,7 +1,8 @@
 import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
-import { archiveSite, getSite, siteInputSchema, updateSite } from '@/lib/dal/sites';
+import { archiveSite, getSite, updateSite } from '@/lib/dal/sites';
+import { siteInputSchema } from '@/lib/sites/schemas';
 
 const params = z.object({ siteId: z.uuid() });
 

@@ -2,7 +2,8 @@ import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { addAttachment, listAttachments, MAX_PHOTO_BYTES, tooLarge } from '@/lib/dal/attachments';
+import { addAttachment, listAttachments } from '@/lib/dal/attachments';
+import { MAX_PHOTO_BYTES, tooLarge } from '@/lib/storage/photo-image';
 import { badRequest } from '@/lib/errors';
 
 /** Room for the multipart framing around a photo at the limit. */

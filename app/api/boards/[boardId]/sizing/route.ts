@@ -2,8 +2,10 @@ import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
 import { boardSettingsSchema, idParamsSchema, wayInputSchema } from '@/lib/boards/schemas';
-import { readStoredSizing, sizeDesign } from '@/lib/dal/board-repository';
-import { draftTreeContext, withTreeContext } from '@/lib/dal/site-supply';
+import { sizeDesign } from '@/lib/boards/size-design';
+import { readStoredSizing } from '@/lib/dal/board-repository';
+import { draftTreeContext } from '@/lib/dal/site-supply';
+import { withTreeContext } from '@/lib/sites/tree-context';
 import { badRequest } from '@/lib/errors';
 
 /** The body is optional: empty sizes the stored board; `draft` sizes unsaved edits. */

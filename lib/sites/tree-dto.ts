@@ -1,0 +1,92 @@
+import { engineInputOf } from '@/lib/boards/schemas';
+import type { SizedSite, TreeBoard } from '@/lib/dal/site-tree';
+import { isProtectiveDevice, SIZING_CAUTION } from '@/lib/sizing';
+import { groupSelectivity, wayLabels, worstVerdictOf } from '@/lib/supply';
+
+import type { SiteOrigin, SiteTreeBoard, SiteTreeDto, SiteTreeEdge } from './tree-types';
+
+/**
+ * The site tree as the site view reads it (lib/dal/site-supply.ts getSiteTree), built from the
+ * site's boards and their sizing as one tree (lib/dal/site-tree.ts sizeTree). Pure.
+ */
+
+/** The tree DTO from the boards and their sizing as one tree. */
+export function treeDtoOf(
+  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
+  boards: readonly TreeBoard[],
+  sized: SizedSite,
+): SiteTreeDto {
+  const byId = new Map(boards.map((b) => [b.id, b]));
+  const feeds = new Map<string, string>(); // way id → the board it feeds
+  for (const b of boards) if (b.feed.from === 'way' && !sized.detached.has(b.id)) feeds.set(b.feed.wayId, b.id);
+
+  const out: SiteTreeBoard[] = [];
+  const edges: SiteTreeEdge[] = [];
+  for (const id of treeOrder(boards, sized)) {
+    const b = byId.get(id)!;
+    const s = sized.boards.get(id);
+    const r = s?.result ?? null;
+    const sizing = s?.sizing ?? null;
+    const ways = engineInputOf(b, b.ways).ways;
+    const labels = wayLabels({ phases: b.phases, ways });
+    const problem =
+      r?.problem ?? (s && !sizing ? `${b.name} cannot be sized: ${s.issues.map((i) => i.message).join('; ')}` : null);
+    out.push({
+      boardId: b.id,
+      name: b.name,
+      depth: r?.depth ?? 0,
+      fedFrom: sized.detached.has(b.id) ? null : (r?.fedFrom ?? null),
+      phase: r?.phase ?? null,
+      zdb: s?.carried?.zdb ?? r?.zdb ?? null,
+      pfc: s?.carried?.pfc ?? r?.pfc ?? null,
+      vdUsed: s?.carried?.vdUsed ?? r?.vdUsed ?? null,
+      subMainCurrent: s?.carried?.subMainCurrent ?? r?.subMainCurrent ?? null,
+      selectivity: groupSelectivity(r?.selectivity ?? []),
+      supply: s?.carried?.supply ?? (sizing ? b.supply : null),
+      sizing: sizing ? { summary: sizing.summary } : null,
+      worstVerdict: sizing ? (r?.worstVerdict ?? worstVerdictOf(sizing, r?.selectivity ?? [])) : null,
+      problem,
+      location: b.location,
+      phases: b.phases,
+      status: b.status,
+      version: b.version,
+      feed: b.feed,
+      feedsBoards: b.ways.filter((w) => feeds.has(w.id)).map((w) => ({ wayId: w.id, boardId: feeds.get(w.id)! })),
+      ways: ways.map((w) => ({
+        id: w.id,
+        label: labels.get(w.id) ?? null,
+        feedsBoardId: feeds.get(w.id) ?? null,
+        distribution: isProtectiveDevice(w.device.kind) && w.circuit?.use === 'distribution',
+      })),
+    });
+    const feed = b.feed;
+    if (feed.from === 'way' && !sized.detached.has(b.id) && r?.fedFrom) {
+      const parentSizing = sized.boards.get(feed.boardId)?.sizing ?? null;
+      edges.push({
+        fromBoardId: feed.boardId,
+        fromWayId: feed.wayId,
+        wayLabel: r.fedFrom.wayLabel,
+        toBoardId: b.id,
+        device: r.fedFrom.device,
+        cable: r.fedFrom.cable,
+        verdict: parentSizing?.ways.find((w) => w.id === feed.wayId)?.result?.verdict ?? null,
+        designCurrent: r.subMainCurrent,
+      });
+    }
+  }
+  return {
+    siteId: site.id,
+    siteName: site.name,
+    origin: site.origin,
+    treeVersion: site.treeVersion,
+    boards: out,
+    edges,
+    caution: SIZING_CAUTION,
+  };
+}
+
+/** The boards' ids in tree order: those sizeSite placed (parents first), then the others as read. */
+export function treeOrder(boards: readonly TreeBoard[], sized: SizedSite): string[] {
+  const placed = sized.site.boards.map((r) => r.boardId);
+  return [...placed, ...boards.map((b) => b.id).filter((id) => !placed.includes(id))];
+}
