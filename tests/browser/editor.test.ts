@@ -294,9 +294,10 @@ describe('the board editor', () => {
       await page.locator('[data-way-label="10L1"]').focus();
       await page.keyboard.press('Delete');
       await expect.poll(() => page.locator('[data-way-label="10L1"]').count()).toBe(0);
-      await page.getByRole('button', { name: 'Save', exact: true }).click();
+      // The autosave (AUTOSAVE_MS after the change) asks; a click on Save raced it on a loaded
+      // machine (the button is disabled while that save is under way), so the test waits for it
       const question = page.getByRole('dialog', { name: 'Other boards are fed from this board' });
-      await question.waitFor();
+      await question.waitFor({ timeout: 30_000 });
       await expect(question.textContent()).resolves.toContain('Flat 1 consumer unit');
       await question.getByRole('button', { name: 'Keep editing' }).click();
       await expect(page.getByTestId('save-state').textContent()).resolves.toMatch(/Not saved/);
