@@ -5,13 +5,11 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { countWays, type CountedWay } from '@/lib/boards/counts';
 import {
-  engineInputOf,
   wayInputOf,
   type BoardCreateInput,
   type BoardFeed,
   type BoardDto,
   type BoardRow,
-  type BoardSettings,
   type BoardSummary,
   type WayInput,
   type WayRow,
@@ -19,12 +17,13 @@ import {
 import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/dal/site-feed';
-import { resizeSiteOfStaleBoard, type TreeBoard } from '@/lib/dal/site-tree';
+import { resizeSiteOfStaleBoard } from '@/lib/dal/site-tree';
 import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
-import { parseBoardInput, sizeBoard, SizingInputError, type BoardResult } from '@/lib/sizing';
+import type { BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
+import { sizeDesign, type SizedBoard, type TreeBoard } from '@/lib/supply/size-tree';
 import type { CommentDto } from '@/lib/boards/review-types';
 import { Board, Way } from '@/models';
 
@@ -199,24 +198,8 @@ const ENGINE_SETTINGS = new Set([
   'conditionalRatingKa',
 ]);
 
-/** A board sized, or the reasons the engine refused it (then `sizing` is null). */
-export type SizedBoard = { sizing: BoardResult | null; issues: FieldIssue[] };
-
-/** Sizes a board's settings and ways; a board the engine refuses gets its issues instead. */
-export function sizeDesign(board: BoardSettings & { ways: readonly WayInput[] }): SizedBoard {
-  // Parsed once, and marked so that the engine does not parse it again
-  try {
-    return { sizing: sizeBoard(parseBoardInput(engineInputOf(board, board.ways))), issues: [] };
-  } catch (err) {
-    return { sizing: null, issues: engineIssues(err) };
-  }
-}
-
-/** The engine's refusal of a board's input as field issues; any other error is thrown on. */
-export function engineIssues(err: unknown): FieldIssue[] {
-  if (!(err instanceof SizingInputError)) throw err;
-  return err.issues.map(({ path, message }) => ({ path: path || '(body)', message }));
-}
+// A board's sizing alone is pure computation: lib/supply/size-tree.ts (re-exported for the callers here)
+export { engineIssues, sizeDesign, type SizedBoard } from '@/lib/supply/size-tree';
 
 /** A stored sizing: the engine's answer as JSON text (null when it refused), or its issues. */
 export type StoredSizing = { json: string | null; issues: FieldIssue[] };
