@@ -11,7 +11,7 @@
  * trees from a fixed seed (every device, load, cable, method, supply and option the schemas
  * allow, some of them invalid on purpose, so that refusals and their messages are kept too).
  *
- * Run: npx tsx scripts/bench/sizing-golden.ts write|check FILE
+ * Run: npx tsx --conditions=react-server scripts/bench/sizing-golden.ts write|check FILE
  */
 import { createHash } from 'node:crypto';
 import { readFileSync, writeFileSync } from 'node:fs';
@@ -33,7 +33,8 @@ import {
 } from '@/lib/sizing';
 import { ARMOURED_CPC_KINDS, LOAD_TYPES, SOCKET_ARRANGEMENT_KINDS, SPECIAL_LOCATIONS } from '@/lib/sizing/types';
 import { CONDUCTOR_SIZES_MM2 } from '@/lib/sizing/tables/conductor-resistance';
-import { sizeSite, SiteTreeError, type SiteTreeInput } from '@/lib/supply';
+import { treeDtoOf } from '@/lib/dal/site-supply';
+import { groupSelectivity, sizeSite, SiteTreeError, type SelectivityPair, type SiteTreeInput } from '@/lib/supply';
 import { sizeTree as sizeTreeOf, type TreeBoard } from '@/lib/supply/size-tree';
 import * as demo from '@/scripts/demo-data';
 import * as fixtures from '@/tests/unit/supply/fixtures';
@@ -226,6 +227,18 @@ async function main() {
   const add = (name: string, f: () => unknown) => out.push([name, attempt(f)]);
   const tree = (name: string, siteId: string, origin: SiteOrigin | null, boards: TreeBoardLike[]) => {
     add(name, () => sizeTree(siteId, origin, boards));
+    // The tree as the route answers it (its selectivity grouped), and the pack's groups
+    add(`${name} (answer)`, () =>
+      treeDtoOf(
+        { id: siteId, name, origin, treeVersion: 1 },
+        boards as unknown as TreeBoard[],
+        sizeTree(siteId, origin, boards) as never,
+      ),
+    );
+    add(`${name} (selectivity groups)`, () => {
+      const sized = sizeTree(siteId, origin, boards) as { site: { boards: { selectivity: SelectivityPair[] }[] } };
+      return sized.site.boards.map((b) => groupSelectivity(b.selectivity));
+    });
     // What the route stores: each sizing as its JSON text
     add(`${name} (stored text)`, () => {
       const sized = sizeTree(siteId, origin, boards) as { boards: Map<string, { sizing: unknown }> };
