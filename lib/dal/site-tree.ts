@@ -174,15 +174,15 @@ export async function resizeSite(
     const was = b.stored ? storedOutcome(b.stored) : null;
     const before = new Map(Object.entries(was?.verdicts ?? {}));
     const after = new Map(Object.entries(outcome?.verdicts ?? {}));
-    const labels = wayLabelsOf(b);
-    const changedWays = [...new Set([...before.keys(), ...after.keys()])]
-      .filter((id) => before.get(id) !== after.get(id))
-      .map((wayId) => ({
-        wayId,
-        wayLabel: labels.get(wayId) ?? null,
-        before: before.get(wayId) ?? null,
-        after: after.get(wayId) ?? null,
-      }));
+    const changed = [...new Set([...before.keys(), ...after.keys()])].filter((id) => before.get(id) !== after.get(id));
+    // The way labels only when a verdict changed (the rail's layout, for nothing otherwise)
+    const labels = changed.length ? wayLabelsOf(b) : null;
+    const changedWays = changed.map((wayId) => ({
+      wayId,
+      wayLabel: labels?.get(wayId) ?? null,
+      before: before.get(wayId) ?? null,
+      after: after.get(wayId) ?? null,
+    }));
     // A board never sized before has nothing to compare with
     if (!b.stored) continue;
     const supplyChanged = !sameSupply(b.stored.carried?.supply, s.carried?.supply);

@@ -5,7 +5,7 @@
  * sizing serialised as the route stores it, the outcomes compared, and the answer's tree built
  * and serialised. Prints the CPU time per re-size (and the wall time); for a profile run it under
  * `node --cpu-prof`.
- * Run: npx tsx --conditions=react-server scripts/bench/site-tree-cpu.ts [iterations]
+ * Run: npx tsx --conditions=react-server scripts/bench/site-tree-cpu.ts [iterations] [--parts]
  */
 import { performance } from 'node:perf_hooks';
 
@@ -17,6 +17,7 @@ import { sizingOutcome } from '@/lib/supply';
 import * as siteTree from '@/lib/supply/size-tree';
 
 const ITER = Number(process.argv[2] ?? 200);
+const SHOW_PARTS = process.argv.includes('--parts');
 type TreeBoard = Parameters<typeof siteTree.sizeTree>[2][number];
 const sizeTree = siteTree.sizeTree;
 
@@ -94,10 +95,22 @@ function benchSite(): TreeBoard[] {
 const text = JSON.stringify(benchSite());
 const ORIGIN = { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.2, pfcKa: 6, source: 'public' } as SiteOrigin;
 
+/** Wall time per part of a re-size, ms (printed with `--parts`). */
+const parts = { read: 0, size: 0, store: 0, answer: 0 };
+let mark = 0;
+const lap = (part: keyof typeof parts) => {
+  const now = performance.now();
+  parts[part] += now - mark;
+  mark = now;
+};
+
 function once(i: number): number {
+  mark = performance.now();
   const origin = { ...ORIGIN, zeOhm: i % 2 ? 0.2 : 0.35 };
   const boards = JSON.parse(text) as TreeBoard[];
+  lap('read');
   const sized = sizeTree('bench', origin, boards);
+  lap('size');
   let bytes = 0;
   for (const [, b] of sized.boards) {
     bytes += (b.sizing ? JSON.stringify(b.sizing).length : 0) + JSON.stringify(b.issues).length;
@@ -105,11 +118,15 @@ function once(i: number): number {
     if (b.sizing) bytes += JSON.stringify(sizingOutcome(b.sizing)).length;
   }
   for (const b of boards) bytes += siteTree.wayLabelsOf(b).size;
+  lap('store');
   const tree = treeDtoOf({ id: 'bench', name: 'Bench', origin, treeVersion: i }, boards, sized);
-  return bytes + JSON.stringify({ tree }).length;
+  bytes += JSON.stringify({ tree }).length;
+  lap('answer');
+  return bytes;
 }
 
 for (let i = 0; i < 20; i++) once(i);
+for (const k of Object.keys(parts) as (keyof typeof parts)[]) parts[k] = 0;
 // CPU time rather than wall time: the machine is shared, and the wall clock counts the others' work
 const started = performance.now();
 const cpu = process.cpuUsage();
@@ -121,3 +138,7 @@ const wallMs = (performance.now() - started) / ITER;
 console.log(
   `re-size of the bench site in one process: ${cpuMs.toFixed(2)} ms of CPU each (wall ${wallMs.toFixed(2)} ms) over ${ITER} (${sink % 7})`,
 );
+if (SHOW_PARTS) {
+  const each = Object.entries(parts).map(([k, v]) => `${k} ${(v / ITER).toFixed(2)}`);
+  console.log(`wall ms per part: ${each.join(', ')}`);
+}
