@@ -1,5 +1,7 @@
 import 'server-only';
 
+import { createHash } from 'node:crypto';
+
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
@@ -196,11 +198,16 @@ export async function resizeSite(
       changedWays,
     });
   }
-  if (rows.length) {
+  // A sizing stored already, byte for byte, is kept rather than sent and stored again (most of
+  // a site's boards when one board's design changed)
+  const keep = await unchangedSizings(rows, transaction);
+  const written = rows.filter((r) => !keep.has(r.board_id));
+  const kept = rows.filter((r) => keep.has(r.board_id));
+  if (written.length) {
     // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL), not one
     // JSON document holding the sizings as escaped strings
     const bind: unknown[] = [treeVersion];
-    const values = rows.map((r) => {
+    const values = written.map((r) => {
       const at = bind.push(r.board_id, r.version, r.sizing, r.issues, r.carried, r.outcome);
       return `($${at - 5}::uuid, $${at - 4}::int, $${at - 3}::json, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int)`;
     });
@@ -210,6 +217,20 @@ export async function resizeSite(
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
          issues = EXCLUDED.issues, carried = EXCLUDED.carried, outcome = EXCLUDED.outcome,
          tree_version = EXCLUDED.tree_version`,
+      { bind, transaction },
+    );
+  }
+  if (kept.length) {
+    const bind: unknown[] = [treeVersion];
+    const values = kept.map((r) => {
+      const at = bind.push(r.board_id, r.version, r.issues, r.carried, r.outcome);
+      return `($${at - 4}::uuid, $${at - 3}::int, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb)`;
+    });
+    await db().query(
+      `UPDATE board_sizings s SET version = v.version, issues = v.issues, carried = v.carried, outcome = v.outcome,
+         tree_version = $1::int
+       FROM (VALUES ${values.join(', ')}) AS v(board_id, version, issues, carried, outcome)
+       WHERE s.board_id = v.board_id`,
       { bind, transaction },
     );
   }
@@ -235,6 +256,36 @@ export async function resizeSite(
     { transaction },
   );
   return { siteId: site.id, treeVersion, boards: ripple };
+}
+
+/**
+ * The boards among `rows` whose stored sizing is already the very text about to be stored.
+ * PostgreSQL hashes (SHA-256) only a stored sizing as long as the new text, and locks the rows it
+ * hashed until the transaction ends, so that a sizing kept is the one compared.
+ */
+async function unchangedSizings(
+  rows: readonly { board_id: string; sizing: string | null }[],
+  transaction: Transaction,
+): Promise<Set<string>> {
+  const candidates = rows.filter((r) => r.sizing !== null);
+  if (!candidates.length) return new Set();
+  const stored = await db().query<{ boardId: string; hash: string }>(
+    `SELECT s.board_id AS "boardId", encode(sha256(convert_to(s.sizing::text, 'UTF8')), 'hex') AS hash
+     FROM board_sizings s JOIN unnest($1::uuid[], $2::int[]) AS n(board_id, bytes) ON n.board_id = s.board_id
+     WHERE s.sizing IS NOT NULL AND octet_length(s.sizing::text) = n.bytes
+     FOR UPDATE OF s`,
+    {
+      bind: [candidates.map((r) => r.board_id), candidates.map((r) => Buffer.byteLength(r.sizing!))],
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
+  const text = new Map(candidates.map((r) => [r.board_id, r.sizing!]));
+  const same = new Set<string>();
+  for (const { boardId, hash } of stored) {
+    if (createHash('sha256').update(text.get(boardId)!).digest('hex') === hash) same.add(boardId);
+  }
+  return same;
 }
 
 /** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */
