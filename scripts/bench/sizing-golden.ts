@@ -1,8 +1,8 @@
 /**
  * Every number the engine and the supply tree give, for a broad fixed set of inputs, written to
  * one file, so that a change meant to make sizing cheaper can be shown to change no number:
- * run it before the change (`write out.json`) and after (`check out.json`); `check` compares the
- * two byte for byte and names the first input whose answer differs. Not a test: the file is
+ * run it before the change (`write out.txt`) and after (`check out.txt`); `check` compares the
+ * two answer by answer, byte for byte, and names the first inputs whose answers differ. Not a test: the file is
  * what the engine answered, not what it should answer (the engine's tests hold that).
  *
  * Inputs: the demo boards (scripts/demo-data.ts) alone and as the demo site's tree, the bench
@@ -480,26 +480,42 @@ async function main() {
     console.log(`${out.length} answers written to ${file} (sha256 ${digest.slice(0, 16)})`);
     return;
   }
-  const before = readFileSync(file, 'utf8').split('\n');
-  const after = body.split('\n');
+  // Compared answer by answer (by name): an answer added to this script since the file was
+  // written is counted, not compared
+  const split = (t: string) =>
+    new Map(
+      t
+        .split('\n')
+        .filter(Boolean)
+        .map((l) => [l.slice(0, l.indexOf('\t')), l.slice(l.indexOf('\t') + 1)] as [string, string]),
+    );
+  const before = split(readFileSync(file, 'utf8'));
+  const after = split(body);
   let differ = 0;
-  for (let i = 0; i < Math.max(before.length, after.length); i++) {
-    if (before[i] === after[i]) continue;
+  let compared = 0;
+  for (const [name, a] of before) {
+    const b = after.get(name);
+    if (b === undefined) {
+      differ++;
+      console.log(`missing now: ${name}`);
+      continue;
+    }
+    compared++;
+    if (a === b) continue;
     differ++;
     if (differ <= 3) {
-      const a = before[i] ?? '';
-      const b = after[i] ?? '';
       let at = 0;
       while (at < a.length && a[at] === b[at]) at++;
-      console.log(`differs: ${(a || b).split('\t')[0]} at character ${at}`);
+      console.log(`differs: ${name} at character ${at}`);
       console.log(`  before …${a.slice(Math.max(0, at - 80), at + 80)}`);
       console.log(`  after  …${b.slice(Math.max(0, at - 80), at + 80)}`);
     }
   }
+  const added = [...after.keys()].filter((k) => !before.has(k)).length;
   console.log(
     differ
-      ? `${differ} of ${out.length} answers differ`
-      : `all ${out.length} answers identical, byte for byte (sha256 ${digest.slice(0, 16)})`,
+      ? `${differ} of ${before.size} answers differ or are missing`
+      : `all ${compared} answers of the file identical, byte for byte${added ? ` (${added} answers new since, not compared)` : ''}`,
   );
   if (differ) process.exitCode = 1;
 }
