@@ -2,13 +2,14 @@
  * Every number the engine and the supply tree give, for a broad fixed set of inputs, written to
  * one file, so that a change meant to make sizing cheaper can be shown to change no number:
  * run it before the change (`write out.txt`) and after (`check out.txt`); `check` compares the
- * two answer by answer, byte for byte, and names the first inputs whose answers differ. Not a test: the file is
- * what the engine answered, not what it should answer (the engine's tests hold that).
+ * two answer by answer, byte for byte, and names the first inputs whose answers differ. Not a
+ * test: the file is what the engine answered, not what it should answer (the engine's tests hold
+ * that).
  *
  * Inputs: the demo boards (scripts/demo-data.ts) alone and as the demo site's tree, the bench
  * boards (scripts/bench/bench-board.ts, site-resize.ts), the supply tests' trees
- * (tests/unit/supply/fixtures.ts), the engine bench's circuits, and pseudo-random boards and
- * trees from a fixed seed (every device, load, cable, method, supply and option the schemas
+ * (tests/unit/supply/fixtures.ts), and pseudo-random boards, trees and single circuits
+ * (`sizeCircuit`) from a fixed seed (every device, load, cable, method, supply and option the schemas
  * allow, some of them invalid on purpose, so that refusals and their messages are kept too).
  *
  * Run: npx tsx --conditions=react-server scripts/bench/sizing-golden.ts write|check FILE
@@ -256,7 +257,7 @@ async function main() {
     stored: null,
   });
 
-  // The engine bench's circuits and the supply tests' trees
+  // The supply tests' trees (and, as a marker, which engine bench the file was written beside)
   const engineBench = readFileSync(new URL('./sizing-engine.ts', import.meta.url), 'utf8');
   add('engine bench source hash', () => createHash('sha1').update(engineBench).digest('hex'));
   for (const name of Object.keys(fixtures) as (keyof typeof fixtures)[]) {
