@@ -19,7 +19,7 @@ import {
 import { db } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/dal/site-feed';
-import { resizeSiteOfStaleBoard, type TreeBoard } from '@/lib/dal/site-tree';
+import { resizeSiteOfStaleBoard } from '@/lib/dal/site-tree';
 import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
@@ -27,6 +27,7 @@ import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
 import type { ReviewSizing } from '@/lib/boards/review-page-data';
 import type { ArchiveState, CommentDto } from '@/lib/boards/review-types';
+import type { TreeBoard } from '@/lib/supply/size-tree';
 import { Board, Way } from '@/models';
 
 /**
@@ -215,9 +216,6 @@ export async function writeBoard(
   }
   return written;
 }
-
-// Kept for lib/dal/site-tree.ts until it imports them from lib/boards/size-design.ts
-export { engineIssues, sizeDesign } from '@/lib/boards/size-design';
 
 /** The settings the engine reads: a write of any other column keeps the stored sizing. */
 const ENGINE_SETTINGS = new Set([

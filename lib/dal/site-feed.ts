@@ -16,16 +16,9 @@ import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import { fedFromWords, wayName } from '@/lib/names';
 import { feedLoop, unfitReason } from '@/lib/sites/feed-rules';
 import type { FedFrom, FeedChange, SiteRipple } from '@/lib/sites/tree-types';
+import { wayLabelsOf, type TreeBoard } from '@/lib/supply/size-tree';
 
-import {
-  feedRefusal,
-  lockSite,
-  lockSiteForWrite,
-  resizeSite,
-  wayLabelsOf,
-  type SiteLock,
-  type TreeBoard,
-} from './site-tree';
+import { feedRefusal, lockSite, lockSiteForWrite, resizeSite, type SiteLock } from './site-tree';
 
 /**
  * A board's feed and the site tree around a board write (called by lib/dal/board-repository.ts

@@ -22,8 +22,9 @@ import type {
 } from '@/lib/sites/tree-types';
 import type { SupplyInput } from '@/lib/sizing';
 import { unsizedBoard, type SiteResult } from '@/lib/supply';
+import { originSupply, sizeTree, type SizedSite, type TreeBoard } from '@/lib/supply/size-tree';
 
-import { lockSite, originSupply, presizeSite, resizeSite, sizeTree, type SizedSite, type TreeBoard } from './site-tree';
+import { lockSite, presizeSite, resizeSite } from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
 

@@ -1,40 +1,30 @@
 import 'server-only';
 
-import { isDeepStrictEqual } from 'node:util';
+import { createHash } from 'node:crypto';
 
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { engineInputOf, type BoardFeed, type BoardSettings, type WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
-import {
-  engineIssues,
-  readTreeBoards,
-  readTreeStored,
-  sizeDesign,
-  siteHasSubMains,
-  siteIsTree,
-} from '@/lib/dal/board-repository';
+import { readTreeBoards, readTreeStored, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
-import type { BoardStatus } from '@/lib/domain';
 import { wayName } from '@/lib/names';
-import type { DerivedSupply, RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
-import { parseBoardInput, type BoardInput, type BoardResult, type SupplyInput } from '@/lib/sizing';
+import type { RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
+import { sizingOutcome } from '@/lib/supply';
 import {
-  sizeSite,
-  sizingOutcome,
-  SiteTreeError,
-  wayLabels,
-  type SiteBoardInput,
-  type SiteBoardResult,
-  type SiteResult,
-  type SizingOutcome,
-} from '@/lib/supply';
+  sameOrigin,
+  sameSupply,
+  sizeTree,
+  storedOutcome,
+  wayLabelsOf,
+  type SizedSite,
+  type TreeBoard,
+} from '@/lib/supply/size-tree';
 
 /**
  * A site's boards as one supply tree, on the server: the tree read from the database, sized with
- * lib/supply's `sizeSite` and stored with every board's sizing (`board_sizings`, with the values
+ * lib/supply's `sizeTree` (size-tree.ts) and stored with every board's sizing (`board_sizings`, with the values
  * carried to it and the site's tree version).
  *
  * Concurrency: every write that changes what is carried down (a board's design or feed, the
@@ -112,201 +102,6 @@ export async function lockSiteForWrite(
   return lock;
 }
 
-/** One board of a site as the tree needs it: settings, ways, feed and what was stored for it. */
-export type TreeBoard = BoardSettings & {
-  id: string;
-  status: BoardStatus;
-  version: number;
-  archived: boolean;
-  ways: WayInput[];
-  feed: BoardFeed;
-  /**
-   * What was stored for it: the whole sizing (`readTreeBoards` by default), or (`stored:
-   * 'outcome'`) its `outcome` only, with the whole sizing only for a row stored without one.
-   */
-  stored: {
-    version: number;
-    sizing?: BoardResult | null;
-    carried: DerivedSupply | null;
-    outcome?: SizingOutcome | null;
-  } | null;
-};
-
-/** What sizing the whole site gives each board: the stored form and the tree's values. */
-export type SizedSite = {
-  /** Per board: its sizing (null: the engine refused it), the issues, and what was carried to it. */
-  boards: Map<
-    string,
-    { sizing: BoardResult | null; issues: FieldIssue[]; carried: DerivedSupply | null; result: SiteBoardResult | null }
-  >;
-  /** The tree as sizeSite answered it (boards it could size, parents first). */
-  site: SiteResult;
-  /** Feeds that could not be followed (a broken or refused link): board id → why. */
-  detached: Map<string, string>;
-};
-
-/** The origin's supply fields alone (a board's typed supply less its volt drop used). */
-export const originSupply = (o: SiteOrigin): SupplyInput => ({
-  earthing: o.earthing,
-  uoV: o.uoV,
-  zeOhm: o.zeOhm,
-  pfcKa: o.pfcKa,
-  source: o.source,
-});
-
-/** The tree issues (lib/supply validateTree) that name a board's feed: board index → message. */
-function feedIssues(err: SiteTreeError): Map<number, string> {
-  const out = new Map<number, string>();
-  for (const i of err.issues) {
-    const m = /^boards\.(\d+)\.(feed|board)/.exec(i.path);
-    if (m) out.set(Number(m[1]), [out.get(Number(m[1])), i.message].filter(Boolean).join('; '));
-  }
-  return out;
-}
-
-/**
- * Sizes a site's boards as one tree. The origin is the site's; a site without one yet sizes
- * each board fed from the origin with its own typed supply (as before the tree existed). A
- * board the engine refuses is stored with its issues and cannot feed anything; a board whose
- * feed cannot be followed (a refused parent, a way no longer fit to feed it) is sized with its
- * typed supply and says why (`problem`). Pure apart from nothing: no database.
- */
-export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: readonly TreeBoard[]): SizedSite {
-  const out: SizedSite['boards'] = new Map();
-  const detached = new Map<string, string>();
-  const byId = new Map(boards.map((b) => [b.id, b]));
-  // Boards the engine refuses on their own: stored with their issues, never in the tree. With
-  // the site's origin, each board parsed here is handed to sizeSite (parsed once, not twice).
-  const inTree = new Set<string>();
-  const inputs = new Map(boards.map((b) => [b.id, engineInputOf(b, b.ways)]));
-  const parsed = new Map<string, BoardInput>();
-  for (const b of boards) {
-    try {
-      parsed.set(b.id, parseBoardInput({ ...inputs.get(b.id)!, supply: origin ? originSupply(origin) : b.supply }));
-      inTree.add(b.id);
-    } catch (err) {
-      out.set(b.id, { sizing: null, issues: engineIssues(err), carried: null, result: null });
-    }
-  }
-  // Feeds from a board outside the tree are cut
-  const feedOf = new Map<string, BoardFeed>();
-  for (const b of boards) {
-    if (!inTree.has(b.id)) continue;
-    if (b.feed.from === 'way' && !inTree.has(b.feed.boardId)) {
-      const parent = byId.get(b.feed.boardId);
-      detached.set(
-        b.id,
-        parent
-          ? `${parent.name} cannot be sized (see its checks), so no values can be carried to ${b.name}.`
-          : `The board that fed ${b.name} is no longer on the site.`,
-      );
-      feedOf.set(b.id, { from: 'origin' });
-    } else feedOf.set(b.id, b.feed);
-  }
-  // Each group of boards under one origin: the site's, or (none given) each root's typed supply
-  const roots = boards.filter((b) => inTree.has(b.id) && feedOf.get(b.id)?.from === 'origin');
-  const groups: { origin: SiteOrigin; ids: string[] }[] = [];
-  if (origin) groups.push({ origin, ids: boards.filter((b) => inTree.has(b.id)).map((b) => b.id) });
-  else {
-    const below = new Map<string, string[]>();
-    for (const b of boards) {
-      const f = feedOf.get(b.id);
-      if (f?.from === 'way') below.set(f.boardId, [...(below.get(f.boardId) ?? []), b.id]);
-    }
-    const seen = new Set<string>();
-    for (const r of roots) {
-      const ids: string[] = [];
-      const visit = (id: string) => {
-        if (seen.has(id)) return;
-        seen.add(id);
-        ids.push(id);
-        for (const c of below.get(id) ?? []) visit(c);
-      };
-      visit(r.id);
-      groups.push({ origin: originSupply(r.supply), ids });
-    }
-    // Boards in a loop (never reached from a root): cut
-    for (const b of boards) {
-      if (inTree.has(b.id) && !seen.has(b.id)) {
-        detached.set(b.id, `${b.name} is fed in a loop of boards.`);
-        feedOf.set(b.id, { from: 'origin' });
-        groups.push({ origin: originSupply(b.supply), ids: [b.id] });
-      }
-    }
-  }
-
-  const all: SiteBoardResult[] = [];
-  for (const g of groups) {
-    const members = g.ids.map((id) => byId.get(id)!);
-    // A feed the tree refuses (a way no longer fit to feed, a loop) is cut, and the rest sized
-    for (let attempt = 0; attempt <= members.length; attempt++) {
-      const input: SiteBoardInput[] = members.map((b) => ({
-        id: b.id,
-        name: b.name,
-        siteId,
-        feed: feedOf.get(b.id)!,
-        board: inputs.get(b.id)!,
-      }));
-      try {
-        const sized = sizeSite({ siteId, origin: g.origin, boards: input, parsed: origin ? parsed : undefined });
-        all.push(...sized.boards);
-        break;
-      } catch (err) {
-        if (!(err instanceof SiteTreeError)) throw err;
-        const bad = feedIssues(err);
-        if (!bad.size) throw err;
-        for (const [i, message] of bad) {
-          const b = members[i];
-          detached.set(b.id, message);
-          feedOf.set(b.id, { from: 'origin' });
-        }
-      }
-    }
-  }
-
-  for (const r of all) {
-    const b = byId.get(r.boardId)!;
-    const problem = r.problem ?? detached.get(b.id) ?? null;
-    let sizing = r.sizing;
-    let issues: FieldIssue[] = [];
-    if (!sizing || detached.has(b.id)) {
-      // Nothing could be carried to it: sized with the origin's or its typed supply, saying why
-      ({ sizing, issues } = sizeDesign({ ...b, supply: origin ? originSupply(origin) : b.supply }));
-    }
-    const fromWay = b.feed.from === 'way';
-    const carried: DerivedSupply | null =
-      !origin && !fromWay
-        ? null
-        : {
-            from: fromWay ? 'way' : 'origin',
-            supply: r.supply && !detached.has(b.id) ? r.supply : origin ? originSupply(origin) : b.supply,
-            fedFrom: detached.has(b.id) ? null : r.fedFrom,
-            phase: r.phase,
-            zdb: detached.has(b.id) ? null : r.zdb,
-            pfc: detached.has(b.id) ? null : r.pfc,
-            vdUsed: detached.has(b.id) ? null : r.vdUsed,
-            subMainCurrent: detached.has(b.id) ? null : r.subMainCurrent,
-            problem,
-            treeVersion: 0,
-          };
-    out.set(b.id, { sizing, issues, carried, result: { ...r, problem, sizing } });
-  }
-  return { boards: out, site: { siteId, origin: origin ?? groups[0]?.origin ?? null!, boards: all }, detached };
-}
-
-/** A board's way labels ("3L2"), by way id. */
-export const wayLabelsOf = (b: TreeBoard) => wayLabels({ phases: b.phases, ways: engineInputOf(b, b.ways).ways });
-
-/** What a stored sizing gave: its way verdicts and worst verdict (its stored outcome, else from the sizing). */
-function storedOutcome(stored: NonNullable<TreeBoard['stored']>): SizingOutcome | null {
-  return stored.outcome ?? (stored.sizing ? sizingOutcome(stored.sizing) : null);
-}
-
-// Compared as values: the stored copy is jsonb, which orders its keys its own way
-const sameSupply = (a: SupplyInput | null | undefined, b: SupplyInput | null | undefined) =>
-  isDeepStrictEqual(a ?? null, b ?? null);
-const sameOrigin = (a: SiteOrigin | null, b: SiteOrigin | null) => isDeepStrictEqual(a, b);
-
 /**
  * Re-sizes every board of the site (the caller holds the site row: `lockSite`), stores each
  * board's sizing with what was carried to it, raises the site's tree version, and records in
@@ -381,15 +176,15 @@ export async function resizeSite(
     const was = b.stored ? storedOutcome(b.stored) : null;
     const before = new Map(Object.entries(was?.verdicts ?? {}));
     const after = new Map(Object.entries(outcome?.verdicts ?? {}));
-    const labels = wayLabelsOf(b);
-    const changedWays = [...new Set([...before.keys(), ...after.keys()])]
-      .filter((id) => before.get(id) !== after.get(id))
-      .map((wayId) => ({
-        wayId,
-        wayLabel: labels.get(wayId) ?? null,
-        before: before.get(wayId) ?? null,
-        after: after.get(wayId) ?? null,
-      }));
+    const changed = [...new Set([...before.keys(), ...after.keys()])].filter((id) => before.get(id) !== after.get(id));
+    // The way labels only when a verdict changed (the rail's layout, for nothing otherwise)
+    const labels = changed.length ? wayLabelsOf(b) : null;
+    const changedWays = changed.map((wayId) => ({
+      wayId,
+      wayLabel: labels?.get(wayId) ?? null,
+      before: before.get(wayId) ?? null,
+      after: after.get(wayId) ?? null,
+    }));
     // A board never sized before has nothing to compare with
     if (!b.stored) continue;
     const supplyChanged = !sameSupply(b.stored.carried?.supply, s.carried?.supply);
@@ -403,11 +198,16 @@ export async function resizeSite(
       changedWays,
     });
   }
-  if (rows.length) {
+  // A sizing stored already, byte for byte, is kept rather than sent and stored again (most of
+  // a site's boards when one board's design changed)
+  const keep = await unchangedSizings(rows, transaction);
+  const written = rows.filter((r) => !keep.has(r.board_id));
+  const kept = rows.filter((r) => keep.has(r.board_id));
+  if (written.length) {
     // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL), not one
     // JSON document holding the sizings as escaped strings
     const bind: unknown[] = [treeVersion];
-    const values = rows.map((r) => {
+    const values = written.map((r) => {
       const at = bind.push(r.board_id, r.version, r.sizing, r.issues, r.carried, r.outcome);
       return `($${at - 5}::uuid, $${at - 4}::int, $${at - 3}::json, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int)`;
     });
@@ -417,6 +217,20 @@ export async function resizeSite(
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
          issues = EXCLUDED.issues, carried = EXCLUDED.carried, outcome = EXCLUDED.outcome,
          tree_version = EXCLUDED.tree_version`,
+      { bind, transaction },
+    );
+  }
+  if (kept.length) {
+    const bind: unknown[] = [treeVersion];
+    const values = kept.map((r) => {
+      const at = bind.push(r.board_id, r.version, r.issues, r.carried, r.outcome);
+      return `($${at - 4}::uuid, $${at - 3}::int, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb)`;
+    });
+    await db().query(
+      `UPDATE board_sizings s SET version = v.version, issues = v.issues, carried = v.carried, outcome = v.outcome,
+         tree_version = $1::int
+       FROM (VALUES ${values.join(', ')}) AS v(board_id, version, issues, carried, outcome)
+       WHERE s.board_id = v.board_id`,
       { bind, transaction },
     );
   }
@@ -442,6 +256,36 @@ export async function resizeSite(
     { transaction },
   );
   return { siteId: site.id, treeVersion, boards: ripple };
+}
+
+/**
+ * The boards among `rows` whose stored sizing is already the very text about to be stored.
+ * PostgreSQL hashes (SHA-256) only a stored sizing as long as the new text, and locks the rows it
+ * hashed until the transaction ends, so that a sizing kept is the one compared.
+ */
+async function unchangedSizings(
+  rows: readonly { board_id: string; sizing: string | null }[],
+  transaction: Transaction,
+): Promise<Set<string>> {
+  const candidates = rows.filter((r) => r.sizing !== null);
+  if (!candidates.length) return new Set();
+  const stored = await db().query<{ boardId: string; hash: string }>(
+    `SELECT s.board_id AS "boardId", encode(sha256(convert_to(s.sizing::text, 'UTF8')), 'hex') AS hash
+     FROM board_sizings s JOIN unnest($1::uuid[], $2::int[]) AS n(board_id, bytes) ON n.board_id = s.board_id
+     WHERE s.sizing IS NOT NULL AND octet_length(s.sizing::text) = n.bytes
+     FOR UPDATE OF s`,
+    {
+      bind: [candidates.map((r) => r.board_id), candidates.map((r) => Buffer.byteLength(r.sizing!))],
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
+  const text = new Map(candidates.map((r) => [r.board_id, r.sizing!]));
+  const same = new Set<string>();
+  for (const { boardId, hash } of stored) {
+    if (createHash('sha256').update(text.get(boardId)!).digest('hex') === hash) same.add(boardId);
+  }
+  return same;
 }
 
 /** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */

@@ -1,5 +1,5 @@
 import { engineInputOf } from '@/lib/boards/schemas';
-import type { SizedSite, TreeBoard } from '@/lib/dal/site-tree';
+import type { SizedSite, TreeBoard } from '@/lib/supply/size-tree';
 import { isProtectiveDevice, SIZING_CAUTION } from '@/lib/sizing';
 import { groupSelectivity, wayLabels, worstVerdictOf } from '@/lib/supply';
 
@@ -7,7 +7,7 @@ import type { SiteOrigin, SiteTreeBoard, SiteTreeDto, SiteTreeEdge } from './tre
 
 /**
  * The site tree as the site view reads it (lib/dal/site-supply.ts getSiteTree), built from the
- * site's boards and their sizing as one tree (lib/dal/site-tree.ts sizeTree). Pure.
+ * site's boards and their sizing as one tree (lib/supply/size-tree.ts sizeTree). Pure.
  */
 
 /** The tree DTO from the boards and their sizing as one tree. */

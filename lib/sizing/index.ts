@@ -5,7 +5,13 @@
  * practice take precedence.
  */
 export { sizeCircuit, BS7671, NEAR_LIMIT_SHARE } from './size-circuit';
-export { parseBoardInput, parseCircuitInput, SizingInputError, type SizingInputIssue } from './validate';
+export {
+  parseBoardInput,
+  parseCircuitInput,
+  reviseBoardInput,
+  SizingInputError,
+  type SizingInputIssue,
+} from './validate';
 export { sizeBoard, applyDiversity, circuitForWay, diversityClass, isProtectiveDevice } from './board';
 export type { BoardResult, BoardSummary, DiversityRule, Phase, WayResult } from './board';
 export {

@@ -1,6 +1,14 @@
 import type { z } from 'zod';
 
-import { boardInputSchema, circuitInputSchema, type BoardInput, type CircuitInput } from './schemas';
+import {
+  boardInputSchema,
+  circuitInputSchema,
+  supplySchema,
+  waySchema,
+  type BoardInput,
+  type CircuitInput,
+  type EngineWayInput,
+} from './schemas';
 
 /** One field the engine refused: its path (dot-separated) and why. */
 export interface SizingInputIssue {
@@ -61,6 +69,46 @@ export function parseCircuitInput(raw: unknown): CircuitInput {
 /** Validate a board's input with `boardInputSchema`; as parseCircuitInput. */
 export function parseBoardInput(raw: unknown): BoardInput {
   return parseWith(boardInputSchema as z.ZodType<BoardInput>, raw);
+}
+
+/**
+ * A board this module validated, with another supply and some of its ways replaced (the supply
+ * tree carries its values down and sets each sub-main's load): the same answer as
+ * `parseBoardInput({ ...board, supply, ways })`, for less. Each way still the very object of
+ * `board.ways` at its index was validated with the board and is frozen, so it is kept; the
+ * supply and every other way are validated by their own schemas, and the board's own rules
+ * (way ids unique, a circuit only on a protective device, no three-phase circuit on a
+ * single-phase board) hold because each replaced way keeps its id, device and phases. Anything
+ * else (a refusal, an unmarked board, a way that changed more) validates the whole board again,
+ * so that a refusal names the fields exactly as `parseBoardInput` does.
+ */
+export function reviseBoardInput(board: BoardInput, supply: unknown, ways: readonly EngineWayInput[]): BoardInput {
+  const whole = () => parseBoardInput({ ...board, supply, ways });
+  if ((board as Marked)[VALIDATED] !== true || ways.length !== board.ways.length) return whole();
+  const parsedSupply = supplySchema.safeParse(supply);
+  if (!parsedSupply.success) return whole();
+  const out: EngineWayInput[] = new Array(ways.length);
+  for (let i = 0; i < ways.length; i++) {
+    const was = board.ways[i];
+    if (ways[i] === was) {
+      out[i] = was;
+      continue;
+    }
+    const way = waySchema.safeParse(ways[i]);
+    if (
+      !way.success ||
+      way.data.id !== was.id ||
+      ways[i].device !== was.device ||
+      (way.data.circuit === null) !== (was.circuit === null) ||
+      way.data.circuit?.phases !== was.circuit?.phases
+    ) {
+      return whole();
+    }
+    out[i] = way.data;
+  }
+  const revised = { ...board, supply: parsedSupply.data, ways: out };
+  Object.defineProperty(revised, VALIDATED, { value: true, enumerable: false });
+  return deepFreeze(revised);
 }
 
 /** The input itself if this module validated it, else the result of validating it (or a throw). */

@@ -3,7 +3,7 @@ import {
   conductorResistance20,
   lineVoltage,
   CABLE_PROPERTIES,
-  parseBoardInput,
+  reviseBoardInput,
   sizeBoard,
   type BoardInput,
   type BoardResult,
@@ -57,8 +57,9 @@ function withSubMainLoads(
     if (amps === undefined || !w.circuit) return w;
     return { ...w, circuit: { ...w.circuit, load: subMainLoad(amps, w.circuit.phases, supply.uoV) } };
   });
-  // Unparsed only for the demand pass: the board was parsed and only known loads changed.
-  return parse ? parseBoardInput({ ...board, supply, ways }) : { ...board, supply, ways };
+  // Unparsed only for the demand pass: the board was parsed and only known loads changed. Else
+  // only the supply and the sub-mains' ways are validated again (the rest was, with the board).
+  return parse ? reviseBoardInput(board, supply, ways) : { ...board, supply, ways };
 }
 
 /** The worst verdict of a sized board: its ways and board checks, raised to near limit by advisory selectivity. */

@@ -9,7 +9,7 @@ import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { readTreeBoards } from '@/lib/dal/board-repository';
-import { sizeTree } from '@/lib/dal/site-tree';
+import { sizeTree } from '@/lib/supply/size-tree';
 import type { SiteOrigin } from '@/lib/sites/tree-types';
 
 import { threeLevel } from '../unit/supply/fixtures';

@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
 
 import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
@@ -8,7 +8,8 @@ import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { readTreeBoards } from '@/lib/dal/board-repository';
-import { lockSite, presizeSite, resizeSite, sizeTree } from '@/lib/dal/site-tree';
+import { lockSite, presizeSite, resizeSite } from '@/lib/dal/site-tree';
+import { sizeTree } from '@/lib/supply/size-tree';
 import type { SiteRipple } from '@/lib/sites/tree-types';
 import type { BoardResult, Verdict } from '@/lib/sizing';
 import { worstVerdictOf } from '@/lib/supply';
@@ -187,5 +188,87 @@ describe('re-sizing a site compares the stored outcome', () => {
     }
     const spray = (await storedRow(t.id('fin'))).sizing!.ways.find((w) => w.id === t.id('f-spray'))!.result;
     expect(spray?.verdict).toBe('fails');
+  });
+});
+
+describe('a re-size keeps a sizing stored already instead of writing it again', () => {
+  type Full = { sizing: string | null; treeVersion: number; carried: { treeVersion: number } | null };
+  async function full(boardId: string): Promise<Full> {
+    const [row] = await db().query<Full>(
+      'SELECT sizing::text AS sizing, tree_version AS "treeVersion", carried FROM board_sizings WHERE board_id = $1',
+      { bind: [boardId], type: QueryTypes.SELECT },
+    );
+    return row;
+  }
+
+  /** The statements that write board_sizings during `f`, and their bind values. */
+  async function writesDuring(f: () => Promise<unknown>): Promise<{ sql: string; bind: unknown[] }[]> {
+    const seen: { sql: string; bind: unknown[] }[] = [];
+    const query = db().query.bind(db());
+    const spy = vi.spyOn(db(), 'query').mockImplementation(((sql: string, opts?: { bind?: unknown[] }) => {
+      if (/(INSERT INTO|UPDATE) board_sizings/.test(sql)) seen.push({ sql, bind: opts?.bind ?? [] });
+      return query(sql, opts as never);
+    }) as never);
+    try {
+      await f();
+    } finally {
+      spy.mockRestore();
+    }
+    return seen;
+  }
+
+  it('the same origin again: no sizing is sent, each row moves on to the new tree version', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    const origin = { ...fx.origin, zeOhm: 0.5 };
+    await call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
+    const before = await Promise.all(['db1', 'fin'].map((id) => full(t.id(id))));
+    const writes = await writesDuring(() =>
+      call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id }))),
+    );
+    expect(writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' '))).toEqual(['UPDATE board_sizings']);
+    const sent = writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"summary"'));
+    expect(sent).toEqual([]);
+    for (const [i, id] of ['db1', 'fin'].entries()) {
+      const after = await full(t.id(id));
+      expect(after.sizing, id).toBe(before[i].sizing);
+      expect(after.treeVersion, id).toBe(before[i].treeVersion + 1);
+      expect(after.carried?.treeVersion, id).toBe(after.treeVersion);
+    }
+  });
+
+  it('another origin: every changed sizing is written', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    const next = { ...fx.origin, zeOhm: 0.8 };
+    const writes = await writesDuring(() =>
+      call(originRoute.PUT(jsonRequest('PUT', next), ctx({ siteId: t.site.id }))),
+    );
+    expect(writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' '))).toEqual(['INSERT INTO']);
+    const fresh = sizeTree(t.site.id, next, await readTreeBoards(t.site.id));
+    for (const id of ['db1', 'fin']) {
+      expect((await full(t.id(id))).sizing, id).toBe(JSON.stringify(fresh.boards.get(t.id(id))!.sizing));
+    }
+  });
+
+  it('a stored sizing of the same length but other content is written again', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    const origin = { ...fx.origin, zeOhm: 0.5 };
+    await call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
+    const good = (await full(t.id('fin'))).sizing!;
+    // Written behind the app's back: one verdict changed, the text as long as before
+    const bad = good.replace('"verdict":"passes"', '"verdict":"failed"');
+    expect(bad).not.toBe(good);
+    expect(bad.length).toBe(good.length);
+    await db().query('UPDATE board_sizings SET sizing = $2::json WHERE board_id = $1', { bind: [t.id('fin'), bad] });
+    const writes = await writesDuring(() =>
+      call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id }))),
+    );
+    expect(writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' ')).sort()).toEqual([
+      'INSERT INTO',
+      'UPDATE board_sizings',
+    ]);
+    expect((await full(t.id('fin'))).sizing).toBe(good);
   });
 });
