@@ -14,6 +14,7 @@ import { db } from '@/lib/db';
 import { Board, Organisation, Site, Way } from '@/models';
 import { DEMO_ORG, demoUser } from '@/scripts/demo-data';
 
+import { BENCH_ORIGIN, BENCH_SETTINGS, finalWay, subMainWay } from './bench-site-ways';
 import { signInCookie } from './http-session';
 import { describe, load, type LoadResult } from './load';
 
@@ -22,36 +23,7 @@ const duration = Number(process.env.BENCH_SECONDS ?? 10);
 const warmup = Number(process.env.BENCH_WARMUP_SECONDS ?? 3);
 const CONNECTIONS = 16;
 const SITE_NAME = 'Bench site, 10 boards of 36 ways';
-const ORIGIN = { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.2, pfcKa: 6, source: 'public' } as const;
-
-const base = { method: 'C', ambientC: 30, insulationMm: 0, concealedInWall: false, phases: 1, cable: 'te-70' } as const;
-
-/** A final circuit: a fixed load on a B-curve MCB in 2.5 mm² twin and earth. */
-const finalWay = (i: number) => ({
-  device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 16 },
-  circuit: {
-    ...base,
-    use: 'fixed',
-    serves: `Load ${i + 1}`,
-    load: { kind: 'known', watts: 400 + (i % 5) * 100, powerFactor: 1 },
-    lengthM: 8 + (i % 7) * 2,
-    csaMm2: 2.5,
-  },
-});
-
-/** A sub-main: an MCB C63 over 16 mm² armoured cable, 25 m, the size chosen by the engine. */
-const subMainWay = (i: number) => ({
-  device: { kind: 'mcb', poles: 1, modules: 1, curve: 'C', ratingA: 63 },
-  circuit: {
-    ...base,
-    cable: 'swa-xlpe-90',
-    use: 'distribution',
-    serves: `Sub-board ${i + 1}`,
-    load: { kind: 'known', watts: 0, powerFactor: 1 },
-    lengthM: 25,
-    csaMm2: 16,
-  },
-});
+const ORIGIN = BENCH_ORIGIN;
 
 /**
  * The bench site, made once and found again by its name: a main board (9 sub-mains and 27
@@ -63,15 +35,7 @@ async function benchSite(): Promise<{ siteId: string; boards: number; ways: numb
   let site = await Site.findOne({ where: { organisationId: org.id, name: SITE_NAME } });
   if (!site) {
     site = await Site.create({ organisationId: org.id, name: SITE_NAME });
-    const settings = {
-      location: '',
-      phases: 1,
-      supply: { ...ORIGIN },
-      incoming: { kind: 'main-switch', ratingA: 100 },
-      enclosureModules: 48,
-      rails: 1,
-      dwelling: false,
-    };
+    const settings = BENCH_SETTINGS;
     const main = await Board.create({ ...settings, name: 'Bench main board', organisationId: org.id, siteId: site.id });
     const mainWays = [
       ...Array.from({ length: 9 }, (_, i) => subMainWay(i)),

@@ -16,6 +16,8 @@ import { sizingOutcome } from '@/lib/supply';
 
 import * as siteTree from '@/lib/supply/size-tree';
 
+import { BENCH_SETTINGS, finalWay, subMainWay } from './bench-site-ways';
+
 const ITER = Number(process.argv[2] ?? 200);
 const SHOW_PARTS = process.argv.includes('--parts');
 type TreeBoard = Parameters<typeof siteTree.sizeTree>[2][number];
@@ -25,40 +27,7 @@ let n = 0;
 const id = (tag: string) => `00000000-0000-4000-8000-${(n++).toString(16).padStart(12, '0')}${tag ? '' : ''}`;
 
 function benchSite(): TreeBoard[] {
-  const base = { method: 'C', ambientC: 30, insulationMm: 0, concealedInWall: false, phases: 1, cable: 'te-70' };
-  const finalWay = (i: number) => ({
-    device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 16 },
-    circuit: {
-      ...base,
-      use: 'fixed',
-      serves: `Load ${i + 1}`,
-      load: { kind: 'known', watts: 400 + (i % 5) * 100, powerFactor: 1 },
-      lengthM: 8 + (i % 7) * 2,
-      csaMm2: 2.5,
-    },
-  });
-  const subMainWay = (i: number) => ({
-    device: { kind: 'mcb', poles: 1, modules: 1, curve: 'C', ratingA: 63 },
-    circuit: {
-      ...base,
-      cable: 'swa-xlpe-90',
-      use: 'distribution',
-      serves: `Sub-board ${i + 1}`,
-      load: { kind: 'known', watts: 0, powerFactor: 1 },
-      lengthM: 25,
-      csaMm2: 16,
-    },
-  });
-  const settings = {
-    location: '',
-    phases: 1,
-    supply: { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.2, pfcKa: 6, source: 'public' },
-    incoming: { kind: 'main-switch', ratingA: 100 },
-    enclosureModules: 48,
-    rails: 1,
-    dwelling: false,
-    conditionalRatingKa: null,
-  } as unknown as BoardSettings;
+  const settings = { ...BENCH_SETTINGS, conditionalRatingKa: null } as unknown as BoardSettings;
   const board = (name: string, ways: object[], feed: object): TreeBoard =>
     ({
       id: id('b'),

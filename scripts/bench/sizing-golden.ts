@@ -38,6 +38,7 @@ import { treeDtoOf } from '@/lib/sites/tree-dto';
 import { groupSelectivity, sizeSite, SiteTreeError, type SelectivityPair, type SiteTreeInput } from '@/lib/supply';
 import { sizeTree as sizeTreeOf, type TreeBoard } from '@/lib/supply/size-tree';
 import * as demo from '@/scripts/demo-data';
+import { BENCH_SETTINGS, finalWay, subMainWay } from '@/scripts/bench/bench-site-ways';
 import * as fixtures from '@/tests/unit/supply/fixtures';
 
 type TreeBoardLike = BoardSettings & {
@@ -344,40 +345,7 @@ async function main() {
     add('bench board as the engine sees it', () => sizeBoard(parseBoardInput({ ...tb, ways: tb.ways } as never)));
   }
   const siteBoards = (): TreeBoardLike[] => {
-    const base = { method: 'C', ambientC: 30, insulationMm: 0, concealedInWall: false, phases: 1, cable: 'te-70' };
-    const finalWay = (i: number) => ({
-      device: { kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA: 16 },
-      circuit: {
-        ...base,
-        use: 'fixed',
-        serves: `Load ${i + 1}`,
-        load: { kind: 'known', watts: 400 + (i % 5) * 100, powerFactor: 1 },
-        lengthM: 8 + (i % 7) * 2,
-        csaMm2: 2.5,
-      },
-    });
-    const subMainWay = (i: number) => ({
-      device: { kind: 'mcb', poles: 1, modules: 1, curve: 'C', ratingA: 63 },
-      circuit: {
-        ...base,
-        cable: 'swa-xlpe-90',
-        use: 'distribution',
-        serves: `Sub-board ${i + 1}`,
-        load: { kind: 'known', watts: 0, powerFactor: 1 },
-        lengthM: 25,
-        csaMm2: 16,
-      },
-    });
-    const settings = {
-      name: 'Bench main board',
-      location: '',
-      phases: 1,
-      supply: { earthing: 'TN-C-S', uoV: 230, zeOhm: 0.2, pfcKa: 6, source: 'public' },
-      incoming: { kind: 'main-switch', ratingA: 100 },
-      enclosureModules: 48,
-      rails: 1,
-      dwelling: false,
-    } as BoardSettings;
+    const settings = { ...BENCH_SETTINGS, name: 'Bench main board' } as BoardSettings;
     const mainWays = placed([
       ...Array.from({ length: 9 }, (_, i) => ({ ...subMainWay(i), id: uid('sm') })),
       ...Array.from({ length: 27 }, (_, i) => ({ ...finalWay(i), id: uid('mw') })),
