@@ -112,9 +112,13 @@ describe('the print queue', () => {
       boards.push(board);
     }
     signInAs(team.users.inspector);
+    const done = pool.printPool().completed;
     const res = await packRoute.GET(jsonRequest('GET'), ctx({ siteId: site.id }));
     expect(res.status).toBe(200);
     const pack = await PDFDocument.load(await res.arrayBuffer());
+    // Every page rendered in the pool's thread, the pack's own pages too: four schedules and one
+    // render of the diagram and carried values, none on the thread answering requests
+    expect(pool.printPool().completed).toBe(done + boards.length + 1);
     // The pack holds its own pages and every board's schedule, each as many pages as printed alone
     let schedulePages = 0;
     for (const b of boards) {

@@ -6,7 +6,7 @@ import * as scheduleRoute from '@/app/api/boards/[boardId]/schedule/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import * as emailRoute from '@/app/api/sites/[siteId]/pack/email/route';
 import * as packRoute from '@/app/api/sites/[siteId]/pack/route';
-import { renderSitePackPdf } from '@/features/site-pack/render-site-pack';
+import { renderSitePackPdf } from '@/features/schedule/site-pack/render-site-pack';
 import { sizeSite } from '@/lib/supply';
 
 import { twoLevel } from '../unit/supply/fixtures';

@@ -9,10 +9,11 @@ import type { Actor } from '@/lib/auth/session';
 import { issuedPrintFacts, type IssuedPrintFacts } from '@/lib/dal/print-facts';
 import { getScheduleSource, type ScheduleSource } from '@/lib/dal/schedule-source';
 import { getObjectBytes, putObject } from '@/lib/storage/s3';
+import type { SiteResult } from '@/lib/supply';
 
 import { formatDate } from '../utils/build-schedule';
 import { parsePrintQuery } from '../utils/print-query';
-import type { PrintJob, RenderedPdf } from './print-job';
+import type { BoardPrintJob, PrintJob, RenderedPdf } from './print-job';
 import { printQueueFull, PrintQueueFull, renderInPool } from './print-pool';
 
 /**
@@ -36,7 +37,7 @@ const slug = (name: string) =>
     .toLowerCase() || 'board';
 
 /** The file name a render gives a board state (the same rule as build-schedule and build-labels). */
-function fileNameOf(kind: PrintJob['kind'], name: string, revision: number, frozen: boolean): string {
+function fileNameOf(kind: BoardPrintJob['kind'], name: string, revision: number, frozen: boolean): string {
   return `${kind}-${slug(name)}-rev${revision}${frozen ? '' : '-draft'}.pdf`;
 }
 
@@ -53,7 +54,7 @@ const etagOf = (key: string) => `"${crypto.createHash('sha256').update(key).dige
  * printed. Those go into a hash in the key, so a label change gives a new file; within one day
  * and one state of the walk the schedule is rendered once. Label strips print none of them.
  */
-export function storedKey(kind: PrintJob['kind'], source: KeyFacts, now: Date): string {
+export function storedKey(kind: BoardPrintJob['kind'], source: KeyFacts, now: Date): string {
   const base = `prints/${source.boardId}/rev-${source.revision}`;
   if (kind === 'labels') return `${base}/labels.pdf`;
   const labels = Object.entries(source.labels ?? {}).sort(([a], [b]) => a.localeCompare(b));
@@ -79,7 +80,11 @@ async function render(job: PrintJob): Promise<RenderedPdf> {
  * The PDF of a board state. An issued revision's is read from object storage when it is
  * there, else rendered (in the pool) and stored; a draft's is always rendered in the pool.
  */
-export async function printPdf(kind: PrintJob['kind'], source: ScheduleSource, now = new Date()): Promise<PrintedPdf> {
+export async function printPdf(
+  kind: BoardPrintJob['kind'],
+  source: ScheduleSource,
+  now = new Date(),
+): Promise<PrintedPdf> {
   const fileName = fileNameOf(kind, source.snapshot.settings.name, source.revision, source.frozen);
   const job = { kind, source, now: now.toISOString() };
   if (!source.frozen) return rendered(await timed(job), fileName);
@@ -109,7 +114,7 @@ export async function printPdf(kind: PrintJob['kind'], source: ScheduleSource, n
  * the source and renders it through `printPdf`, which stores it).
  */
 export async function storedPrintResponse(
-  kind: PrintJob['kind'],
+  kind: BoardPrintJob['kind'],
   facts: IssuedPrintFacts,
   req: Request,
   download: boolean,
@@ -183,8 +188,18 @@ function rendered(out: RenderedPdf & { renderMs: number }, fileName: string): Pr
   return { body: out.pdf, length: out.pdf.byteLength, fileName, made: 'rendered', renderMs: out.renderMs };
 }
 
+/**
+ * The site pack's own pages (the diagram and the values carried to each board), rendered off
+ * the request's event loop like every print: on the request's thread they held up every other
+ * request of the process for a few hundred milliseconds a pack, and the first pack after a start
+ * for seconds while react-pdf loaded there.
+ */
+export async function printSitePackPages(site: SiteResult, siteName: string, now = new Date()): Promise<RenderedPdf> {
+  return render({ kind: 'site-pack', site, siteName, now: now.toISOString() });
+}
+
 /** The PDF's bytes (for an e-mail attachment). */
-export async function printPdfBytes(kind: PrintJob['kind'], source: ScheduleSource): Promise<RenderedPdf> {
+export async function printPdfBytes(kind: BoardPrintJob['kind'], source: ScheduleSource): Promise<RenderedPdf> {
   const printed = await printPdf(kind, source);
   const pdf =
     printed.body instanceof Uint8Array ? printed.body : new Uint8Array(await new Response(printed.body).arrayBuffer());
@@ -233,7 +248,7 @@ export function printBusyResponse(err: PrintQueueFull, req: Request): Response {
  * refused with 503 before its source is gathered when the print queue is full.
  */
 export async function answerPrint(
-  kind: PrintJob['kind'],
+  kind: BoardPrintJob['kind'],
   { req, actor, boardId }: { req: Request; actor: Actor; boardId: string },
 ): Promise<Response> {
   const query = parsePrintQuery(req.url);

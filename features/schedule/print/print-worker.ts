@@ -7,6 +7,7 @@ import os from 'node:os';
 import { isMainThread } from 'node:worker_threads';
 
 import { renderLabelStripsPdf, renderSchedulePdf } from '../render-schedule';
+import { renderSitePackPdf } from '../site-pack/render-site-pack';
 
 import type { PrintJob, RenderedPdf } from './print-job';
 import { warmUpSource } from './warm-up';
@@ -27,6 +28,7 @@ if (!isMainThread) {
 }
 
 export default async function render(job: PrintJob): Promise<RenderedPdf> {
+  if (job.kind === 'site-pack') return renderSitePackPdf(job.site, job.siteName, new Date(job.now));
   return job.kind === 'labels' ? renderLabelStripsPdf(job.source) : renderSchedulePdf(job.source, new Date(job.now));
 }
 

@@ -2,8 +2,8 @@ import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
 
 import { layoutSite } from '@/components/site-diagram/layout';
-import { diagramPages, pageDrawingHeight } from '@/features/site-pack/components/site-pack-document';
-import { renderSitePackPdf, sitePackFileName } from '@/features/site-pack/render-site-pack';
+import { diagramPages, pageDrawingHeight } from '@/features/schedule/site-pack/components/site-pack-document';
+import { renderSitePackPdf, sitePackFileName } from '@/features/schedule/site-pack/render-site-pack';
 import { SIZING_CAUTION } from '@/lib/sizing';
 import { sizeSite, type SiteBoardInput } from '@/lib/supply';
 
