@@ -83,6 +83,16 @@ beforeAll(async () => {
 afterAll(async () => {
   const admin = new pg.Client({ connectionString: OWNER_URL.replace(/\/[^/?]+(\?|$)/, '/postgres$1') });
   await admin.connect();
+  // A session the test closed on the restored copy can still be on its way out, and the owner
+  // may not end a session of the app role (force would fail): wait up to 5 s for it to go
+  for (let i = 0; i < 50; i++) {
+    const { rows } = await admin.query<{ n: number }>(
+      'select count(*)::int as n from pg_stat_activity where datname = $1',
+      [SCRATCH],
+    );
+    if (rows[0].n === 0) break;
+    await new Promise((resolve) => setTimeout(resolve, 100));
+  }
   await admin.query(`drop database if exists "${SCRATCH}" with (force)`);
   await admin.end();
   fs.rmSync(dir, { recursive: true, force: true });
