@@ -2,14 +2,13 @@
 
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { FileDown, Mail, Printer, Tags } from 'lucide-react';
+import { FileDown, Printer, Tags } from 'lucide-react';
 import { useRouter } from 'next/navigation';
 import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
 import { Select } from '@/components/ui/field';
-import { FormAlert } from '@/components/ui/form-alert';
 import { PdfMailForm } from '@/components/ui/pdf-mail-form';
 import { errorMessage } from '@/lib/api/client';
 import { MAIL_STATUS_NAMES } from '@/lib/names';
@@ -85,19 +84,16 @@ export function ScheduleToolbar({ boardId, revision, choices }: Props) {
           </label>
         ) : null}
       </div>
-      <details className="rounded-card border border-line bg-paper-raised p-4">
-        <summary className="flex cursor-pointer items-center gap-2 text-sm font-semibold">
-          <Mail aria-hidden className="h-4 w-4" /> E-mail this schedule
-        </summary>
-        <PdfMailForm
-          to={form.register('to')}
-          message={form.register('message')}
-          errors={{ to: form.formState.errors.to?.message, message: form.formState.errors.message?.message }}
-          pending={send.isPending}
-          submitLabel="Send PDF"
-          onSubmit={form.handleSubmit((v) => send.mutate(v))}
-        />
-        {send.isError ? <FormAlert className="mt-3">{errorMessage(send.error)}</FormAlert> : null}
+      <PdfMailForm
+        title="E-mail this schedule"
+        to={form.register('to')}
+        message={form.register('message')}
+        errors={{ to: form.formState.errors.to?.message, message: form.formState.errors.message?.message }}
+        pending={send.isPending}
+        submitLabel="Send PDF"
+        onSubmit={form.handleSubmit((v) => send.mutate(v))}
+        failure={send.isError ? errorMessage(send.error) : null}
+      >
         {mails.data?.length ? (
           <table className="mt-4 w-full text-left text-sm">
             <caption className="mb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">
@@ -126,7 +122,7 @@ export function ScheduleToolbar({ boardId, revision, choices }: Props) {
             </tbody>
           </table>
         ) : null}
-      </details>
+      </PdfMailForm>
     </div>
   );
 }

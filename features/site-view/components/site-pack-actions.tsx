@@ -2,11 +2,10 @@
 
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useMutation } from '@tanstack/react-query';
-import { FileDown, FileText, Mail } from 'lucide-react';
+import { FileDown, FileText } from 'lucide-react';
 import { useForm } from 'react-hook-form';
 import { toast } from 'sonner';
 
-import { FormAlert } from '@/components/ui/form-alert';
 import { PdfMailForm } from '@/components/ui/pdf-mail-form';
 import { errorMessage } from '@/lib/api/client';
 import { sitePackEmailSchema, type SitePackEmailInput } from '@/lib/sites/tree-types';
@@ -45,20 +44,16 @@ export function SitePackActions({ siteId }: { siteId: string }) {
           <FileDown aria-hidden className="h-4 w-4" /> Download the site pack
         </a>
       </div>
-      <details className="rounded-card border border-line bg-paper-raised p-4">
-        <summary className="flex cursor-pointer items-center gap-2 text-sm font-semibold">
-          <Mail aria-hidden className="h-4 w-4" /> E-mail the site pack
-        </summary>
-        <PdfMailForm
-          to={form.register('to')}
-          message={form.register('message')}
-          errors={{ to: form.formState.errors.to?.message, message: form.formState.errors.message?.message }}
-          pending={send.isPending}
-          submitLabel="Send the pack"
-          onSubmit={form.handleSubmit((v) => send.mutate(v))}
-        />
-        {send.isError ? <FormAlert className="mt-3">{errorMessage(send.error)}</FormAlert> : null}
-      </details>
+      <PdfMailForm
+        title="E-mail the site pack"
+        to={form.register('to')}
+        message={form.register('message')}
+        errors={{ to: form.formState.errors.to?.message, message: form.formState.errors.message?.message }}
+        pending={send.isPending}
+        submitLabel="Send the pack"
+        onSubmit={form.handleSubmit((v) => send.mutate(v))}
+        failure={send.isError ? errorMessage(send.error) : null}
+      />
     </div>
   );
 }
