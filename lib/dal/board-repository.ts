@@ -1,5 +1,7 @@
 import 'server-only';
 
+import { createHash } from 'node:crypto';
+
 import { cache } from 'react';
 import { QueryTypes, type Transaction } from 'sequelize';
 
@@ -227,6 +229,16 @@ const ENGINE_SETTINGS = new Set([
   'conditionalRatingKa',
 ]);
 
+/**
+ * The stored sizing of the board's current version (`s` joined to `b`), stored whole: a row left
+ * `pending` by a change upstream (migration 0013) is sized again and stored by its first read.
+ */
+const CURRENT_SIZING = 's.board_id = b.id AND s.version = b.version AND NOT s.pending';
+
+/** The SHA-256 of a sizing's JSON text, hex (stored beside it: `sizing_sha256`, migration 0013). */
+export const sizingHash = (json: string | null): string | null =>
+  json === null ? null : createHash('sha256').update(json).digest('hex');
+
 /** A stored sizing: the engine's answer as JSON text (null when it refused), or its issues. */
 export type StoredSizing = { json: string | null; issues: FieldIssue[] };
 
@@ -237,11 +249,15 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   const stored = { json: sized.sizing && JSON.stringify(sized.sizing), issues: sized.issues };
   const outcome = sized.sizing && JSON.stringify(sizingOutcome(sized.sizing));
   await db().query(
-    `INSERT INTO board_sizings (board_id, version, sizing, issues, outcome) VALUES ($1, $2, $3::json, $4::jsonb, $5::jsonb)
-     ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing, issues = EXCLUDED.issues,
-       outcome = EXCLUDED.outcome
+    `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, outcome)
+     VALUES ($1, $2, $3::json, decode($4, 'hex'), false, $5::jsonb, $6::jsonb)
+     ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
+       sizing_sha256 = EXCLUDED.sizing_sha256, pending = false, issues = EXCLUDED.issues, outcome = EXCLUDED.outcome
      WHERE board_sizings.version <= EXCLUDED.version`,
-    { bind: [board.id, board.version, stored.json, JSON.stringify(stored.issues), outcome], transaction },
+    {
+      bind: [board.id, board.version, stored.json, sizingHash(stored.json), JSON.stringify(stored.issues), outcome],
+      transaction,
+    },
   );
   return stored;
 }
@@ -254,7 +270,7 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
 export async function readStoredSizing(actor: Actor, boardId: string, again = false): Promise<StoredSizing> {
   const rows = await select<{ current: boolean; json: string | null; issues: FieldIssue[] | null }>(
     `SELECT s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues FROM boards b
-     LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
+     LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );
@@ -278,7 +294,7 @@ export async function readBoardAndSizing(
 ): Promise<{ board: BoardDto; sized: SizedBoard }> {
   const rows = await select<{ dto: string; current: boolean; json: string | null; issues: FieldIssue[] | null }>(
     `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues
-     FROM boards b LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
+     FROM boards b LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );
@@ -480,7 +496,7 @@ export async function readReviewSource(
   >(
     `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, ${SIZING_CUT} AS cut, s.issues, ${ISSUE_FACTS}
      FROM boards b JOIN organisations o ON o.id = b.organisation_id
-       LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
+       LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
        LEFT JOIN LATERAL (SELECT s.sizing::jsonb AS j) js ON true
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
@@ -548,10 +564,11 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
 }
 
 /** What was stored for board `b`, whole (its sizing) or only its outcome (the sizing only for a row without one). */
-const STORED_SIZING_JSON = `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried)
+const STORED_SIZING_JSON = `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried,
+    'outcome', s.outcome, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending)
   FROM board_sizings s WHERE s.board_id = b.id)`;
 const STORED_OUTCOME_JSON = `(SELECT json_build_object('version', s.version, 'carried', s.carried, 'outcome', s.outcome,
-    'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END)
+    'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending)
   FROM board_sizings s WHERE s.board_id = b.id)`;
 
 /**
@@ -598,6 +615,17 @@ export async function readTreeStored(
     transaction,
   );
   return rows.map((r) => JSON.parse(r.j) as Pick<TreeBoard, 'id' | 'version' | 'stored'>);
+}
+
+/** Whether any live board of the site has no stored sizing current and whole (`CURRENT_SIZING`). */
+export async function siteHasStaleSizing(siteId: string, transaction?: Transaction): Promise<boolean> {
+  const [row] = await select<{ stale: boolean }>(
+    `SELECT EXISTS (SELECT 1 FROM boards b LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
+       WHERE b.site_id = $1 AND b.deleted_at IS NULL AND s.board_id IS NULL) AS stale`,
+    [siteId],
+    transaction,
+  );
+  return row.stale;
 }
 
 /** Whether the caller's organisation's site is a tree: it has an origin or a board fed from a way. */

@@ -24,7 +24,7 @@ import type { SupplyInput } from '@/lib/sizing';
 import { unsizedBoard, type SiteResult } from '@/lib/supply';
 import { originSupply, sizeTree, type SizedSite, type TreeBoard } from '@/lib/supply/size-tree';
 
-import { lockSite, presizeSite, resizeSite } from './site-tree';
+import { lockSite, oneSiteWriteAtATime, presizeSite, resizeSite } from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
 
@@ -55,28 +55,30 @@ export async function setSiteOrigin(
   origin: SiteOriginInput,
 ): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
   const next = originSupply(origin);
-  // Sized before the lock; used under it only if no board changed meanwhile (see presizeSite)
-  const presized = await presizeSite(actor, siteId, next);
-  return db().transaction(async (transaction) => {
-    const site = await lockSite(actor, siteId, transaction);
-    if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
-    await db().query('UPDATE sites SET origin = $2::jsonb, updated_at = now() WHERE id = $1', {
-      bind: [siteId, JSON.stringify(next)],
-      transaction,
+  return oneSiteWriteAtATime(siteId, async () => {
+    // Sized before the lock; used under it only if no board changed meanwhile (see presizeSite)
+    const presized = await presizeSite(actor, siteId, next);
+    return db().transaction(async (transaction) => {
+      const site = await lockSite(actor, siteId, transaction);
+      if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
+      await db().query('UPDATE sites SET origin = $2::jsonb, updated_at = now() WHERE id = $1', {
+        bind: [siteId, JSON.stringify(next)],
+        transaction,
+      });
+      await audit(actor, 'site.origin-changed', { siteId, from: site.origin, to: next }, { transaction });
+      const sizedOut: { sized?: SizedSite; boards?: TreeBoard[] } = {};
+      const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
+        cause: 'The site’s origin was changed',
+        sizedOut,
+        presized,
+      });
+      const tree = treeDtoOf(
+        { ...site, origin: next, treeVersion: ripple.treeVersion },
+        sizedOut.boards!,
+        sizedOut.sized!,
+      );
+      return { tree, ripple };
     });
-    await audit(actor, 'site.origin-changed', { siteId, from: site.origin, to: next }, { transaction });
-    const sizedOut: { sized?: SizedSite; boards?: TreeBoard[] } = {};
-    const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
-      cause: 'The site’s origin was changed',
-      sizedOut,
-      presized,
-    });
-    const tree = treeDtoOf(
-      { ...site, origin: next, treeVersion: ripple.treeVersion },
-      sizedOut.boards!,
-      sizedOut.sized!,
-    );
-    return { tree, ripple };
   });
 }
 

@@ -1,12 +1,18 @@
 import 'server-only';
 
-import { createHash } from 'node:crypto';
-
+import AsyncLock from 'async-lock';
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
-import { readTreeBoards, readTreeStored, siteHasSubMains, siteIsTree } from '@/lib/dal/board-repository';
+import {
+  readTreeBoards,
+  readTreeStored,
+  siteHasStaleSizing,
+  siteHasSubMains,
+  siteIsTree,
+  sizingHash,
+} from '@/lib/dal/board-repository';
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import { wayName } from '@/lib/names';
@@ -24,8 +30,9 @@ import {
 
 /**
  * A site's boards as one supply tree, on the server: the tree read from the database, sized with
- * lib/supply's `sizeTree` (size-tree.ts) and stored with every board's sizing (`board_sizings`, with the values
- * carried to it and the site's tree version).
+ * lib/supply's `sizeTree` (size-tree.ts) and stored in `board_sizings`: for every board the values
+ * carried to it, its outcome and the site's tree version; its whole sizing now for the board
+ * written, at its first read for any other whose sizing changed (`pending`, migration 0013).
  *
  * Concurrency: every write that changes what is carried down (a board's design or feed, the
  * site's origin) locks the site row (`lockSite`, SELECT … FOR UPDATE) before it re-sizes, and
@@ -34,6 +41,20 @@ import {
  * state: no board is left sized against a stale parent. Each stored sizing records the site's
  * tree version it was carried at.
  */
+
+/**
+ * Re-sizes of one site run one at a time in this process (`oneSiteWriteAtATime`). The site row's
+ * lock is what keeps them right; this only keeps a burst of them (an origin changed again and
+ * again, ten readers of a site left pending) from sizing the site side by side and then queueing
+ * on that lock with their results held: on one event loop that cost every request of the process
+ * time, and the one holding the lock waited behind the others' sizing.
+ */
+const siteWrites = new AsyncLock({ maxPending: Infinity });
+
+/** Runs `f` once no other re-size of the site is running in this process. */
+export function oneSiteWriteAtATime<T>(siteId: string, f: () => Promise<T>): Promise<T> {
+  return siteWrites.acquire(siteId, f);
+}
 
 /** The site row as locked, and how (`share`: boards of a site without sub-mains, written side by side). */
 export type SiteLock = {
@@ -104,7 +125,8 @@ export async function lockSiteForWrite(
 
 /**
  * Re-sizes every board of the site (the caller holds the site row: `lockSite`), stores each
- * board's sizing with what was carried to it, raises the site's tree version, and records in
+ * board's outcome with what was carried to it (and its whole sizing, or `pending`: see `store`),
+ * raises the site's tree version, and records in
  * the history of every board other than `writtenBoardId` whose supply or verdicts changed that
  * its supply changed, with the ways whose verdict changed. Answers the ripple for the whole site.
  */
@@ -124,13 +146,17 @@ export async function resizeSite(
     only?: string;
     /** The site sized before the lock was taken (`presizeSite`): used when its boards are still the committed ones. */
     presized?: PresizedSite;
+    /**
+     * 'all': every board's sizing is stored whole (a read found one pending). Otherwise only the
+     * written board's (`writtenBoardId`, `only`); any other whose sizing changed is left pending.
+     */
+    store?: 'all';
   } = {},
 ): Promise<SiteRipple> {
   const pre = opts.presized && !opts.only && sameOrigin(opts.presized.origin, site.origin) ? opts.presized : null;
   const current = pre ? await readTreeStored(site.id, transaction) : null;
   let boards: TreeBoard[];
   let sized: SizedSite;
-  let sizingJson: ReadonlyMap<string, string | null> | null = null;
   if (
     pre &&
     current &&
@@ -140,7 +166,7 @@ export async function resizeSite(
     // Nobody changed a board since it was sized (each write of a board or its ways raises its
     // version): that sizing is the committed tree's, compared with what is stored now
     boards = pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
-    ({ sized, sizingJson } = pre);
+    ({ sized } = pre);
   } else {
     boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
     sized = sizeTree(site.id, site.origin, boards);
@@ -151,10 +177,14 @@ export async function resizeSite(
     await db().query('UPDATE sites SET tree_version = $2 WHERE id = $1', { bind: [site.id, treeVersion], transaction });
   }
 
+  // Each board's row: its sizing written whole (the board written, or every board when
+  // `store` is 'all'), kept (the very text stored already), or left to its first read (`pending`)
   const rows: {
     board_id: string;
     version: number;
+    write: 'whole' | 'keep' | 'pending';
     sizing: string | null;
+    sha: string | null;
     issues: string;
     carried: string | null;
     outcome: string | null;
@@ -165,10 +195,18 @@ export async function resizeSite(
     if (!s) continue;
     const carried = s.carried && { ...s.carried, treeVersion };
     const outcome = s.sizing && sizingOutcome(s.sizing);
+    const supplyChanged = !b.stored || !sameSupply(b.stored.carried?.supply, s.carried?.supply);
+    const whole = opts.store === 'all' || b.id === opts.writtenBoardId || b.id === opts.only || s.sizing === null;
+    // The JSON text (and its hash) only of a sizing to store, or that may be the one stored: a
+    // board whose supply changed is left pending unmade (its checks carry the supply's values)
+    const text = whole || (!supplyChanged && !b.stored?.pending) ? s.sizing && JSON.stringify(s.sizing) : null;
+    const sha = sizingHash(text);
     rows.push({
       board_id: b.id,
       version: b.version,
-      sizing: sizingJson?.has(b.id) ? sizingJson.get(b.id)! : s.sizing && JSON.stringify(s.sizing),
+      write: sha !== null && b.stored?.sha === sha && !b.stored.pending ? 'keep' : whole ? 'whole' : 'pending',
+      sizing: text,
+      sha,
       issues: JSON.stringify(s.issues),
       carried: carried && JSON.stringify(carried),
       outcome: outcome && JSON.stringify(outcome),
@@ -187,7 +225,6 @@ export async function resizeSite(
     }));
     // A board never sized before has nothing to compare with
     if (!b.stored) continue;
-    const supplyChanged = !sameSupply(b.stored.carried?.supply, s.carried?.supply);
     if (!changedWays.length && !supplyChanged) continue;
     ripple.push({
       boardId: b.id,
@@ -198,28 +235,36 @@ export async function resizeSite(
       changedWays,
     });
   }
-  // A sizing stored already, byte for byte, is kept rather than sent and stored again (most of
-  // a site's boards when one board's design changed)
-  const keep = await unchangedSizings(rows, transaction);
-  const written = rows.filter((r) => !keep.has(r.board_id));
-  const kept = rows.filter((r) => keep.has(r.board_id));
+  const written = rows.filter((r) => r.write !== 'keep');
   if (written.length) {
-    // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL), not one
-    // JSON document holding the sizings as escaped strings
+    // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL); a pending
+    // one is not sent at all
     const bind: unknown[] = [treeVersion];
     const values = written.map((r) => {
-      const at = bind.push(r.board_id, r.version, r.sizing, r.issues, r.carried, r.outcome);
-      return `($${at - 5}::uuid, $${at - 4}::int, $${at - 3}::json, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int)`;
+      const whole = r.write === 'whole';
+      const at = bind.push(
+        r.board_id,
+        r.version,
+        whole ? r.sizing : null,
+        r.sha,
+        !whole,
+        r.issues,
+        r.carried,
+        r.outcome,
+      );
+      return `($${at - 7}::uuid, $${at - 6}::int, $${at - 5}::json, decode($${at - 4}, 'hex'), $${at - 3}::boolean,
+        $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int)`;
     });
     await db().query(
-      `INSERT INTO board_sizings (board_id, version, sizing, issues, carried, outcome, tree_version)
+      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, tree_version)
        VALUES ${values.join(', ')}
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
-         issues = EXCLUDED.issues, carried = EXCLUDED.carried, outcome = EXCLUDED.outcome,
-         tree_version = EXCLUDED.tree_version`,
+         sizing_sha256 = EXCLUDED.sizing_sha256, pending = EXCLUDED.pending, issues = EXCLUDED.issues,
+         carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, tree_version = EXCLUDED.tree_version`,
       { bind, transaction },
     );
   }
+  const kept = rows.filter((r) => r.write === 'keep');
   if (kept.length) {
     const bind: unknown[] = [treeVersion];
     const values = kept.map((r) => {
@@ -258,48 +303,16 @@ export async function resizeSite(
   return { siteId: site.id, treeVersion, boards: ripple };
 }
 
-/**
- * The boards among `rows` whose stored sizing is already the very text about to be stored.
- * PostgreSQL hashes (SHA-256) only a stored sizing as long as the new text, and locks the rows it
- * hashed until the transaction ends, so that a sizing kept is the one compared.
- */
-async function unchangedSizings(
-  rows: readonly { board_id: string; sizing: string | null }[],
-  transaction: Transaction,
-): Promise<Set<string>> {
-  const candidates = rows.filter((r) => r.sizing !== null);
-  if (!candidates.length) return new Set();
-  const stored = await db().query<{ boardId: string; hash: string }>(
-    `SELECT s.board_id AS "boardId", encode(sha256(convert_to(s.sizing::text, 'UTF8')), 'hex') AS hash
-     FROM board_sizings s JOIN unnest($1::uuid[], $2::int[]) AS n(board_id, bytes) ON n.board_id = s.board_id
-     WHERE s.sizing IS NOT NULL AND octet_length(s.sizing::text) = n.bytes
-     FOR UPDATE OF s`,
-    {
-      bind: [candidates.map((r) => r.board_id), candidates.map((r) => Buffer.byteLength(r.sizing!))],
-      type: QueryTypes.SELECT,
-      transaction,
-    },
-  );
-  const text = new Map(candidates.map((r) => [r.board_id, r.sizing!]));
-  const same = new Set<string>();
-  for (const { boardId, hash } of stored) {
-    if (createHash('sha256').update(text.get(boardId)!).digest('hex') === hash) same.add(boardId);
-  }
-  return same;
-}
-
 /** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */
 export type PresizedSite = {
   origin: SiteOrigin | null;
   boards: TreeBoard[];
   sized: SizedSite;
-  /** Each board's sizing as the JSON text to store. */
-  sizingJson: ReadonlyMap<string, string | null>;
 };
 
 /**
  * Reads and sizes the caller's organisation's site with `origin`, before the site row is locked:
- * the engine and the serialising of the sizings then run while other writes of the same site hold
+ * the engine then runs while other writes of the same site hold
  * its lock, and the locked section (`resizeSite` with `presized`) only checks that every board is
  * still at the version sized (else it reads and sizes again, under the lock), compares and stores.
  */
@@ -310,8 +323,7 @@ export async function presizeSite(
 ): Promise<PresizedSite> {
   const boards = await readTreeBoards(siteId, undefined, { stored: false, organisationId: actor.organisationId });
   const sized = sizeTree(siteId, origin, boards);
-  const sizingJson = new Map([...sized.boards].map(([id, b]) => [id, b.sizing && JSON.stringify(b.sizing)]));
-  return { origin, boards, sized, sizingJson };
+  return { origin, boards, sized };
 }
 
 /** A feed that cannot be: 422 naming the field, and the boards of a loop when it is one. */
@@ -327,9 +339,13 @@ export function feedRefusal(issues: FieldIssue[], cycle?: { boardId: string; nam
 export async function resizeSiteOfStaleBoard(actor: Actor, board: { id: string; siteId: string }): Promise<boolean> {
   const tree = await siteIsTree(actor, board.siteId);
   if (!tree) return false;
-  await db().transaction(async (transaction) => {
-    const site = await lockSite(actor, board.siteId, transaction, 'update');
-    await resizeSite(actor, site, transaction, { cause: 'The stored sizing was older than the board' });
-  });
+  await oneSiteWriteAtATime(board.siteId, () =>
+    db().transaction(async (transaction) => {
+      const site = await lockSite(actor, board.siteId, transaction, 'update');
+      // Another reader may have stored them all meanwhile
+      if (!(await siteHasStaleSizing(site.id, transaction))) return;
+      await resizeSite(actor, site, transaction, { cause: 'The stored sizing was older than the board', store: 'all' });
+    }),
+  );
   return true;
 }

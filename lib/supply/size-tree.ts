@@ -34,6 +34,10 @@ export type TreeBoard = BoardSettings & {
     sizing?: BoardResult | null;
     carried: DerivedSupply | null;
     outcome?: SizingOutcome | null;
+    /** The SHA-256 (hex) of the sizing's JSON text (null: stored before migration 0013). */
+    sha?: string | null;
+    /** Its whole sizing is still to be stored (migration 0013). */
+    pending?: boolean;
   } | null;
 };
 

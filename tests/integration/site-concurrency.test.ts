@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { isDeepStrictEqual } from 'node:util';
 
 import { QueryTypes } from 'sequelize';
@@ -9,6 +10,7 @@ import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { readTreeBoards } from '@/lib/dal/board-repository';
+import { sizingOutcome } from '@/lib/supply';
 import { sizeTree } from '@/lib/supply/size-tree';
 import type { SiteOrigin } from '@/lib/sites/tree-types';
 
@@ -65,7 +67,12 @@ async function staleBoards(siteId: string, origin: SiteOrigin): Promise<string[]
     const same =
       got &&
       got.version === b.version &&
-      JSON.stringify(got.sizing) === JSON.stringify(want.sizing) &&
+      // A sizing left pending by a change upstream (migration 0013): by its outcome, and its hash
+      // when it has one (the whole sizing is made and stored by its first read)
+      (got.pending
+        ? isDeepStrictEqual(got.outcome, sizingOutcome(want.sizing!)) &&
+          (!got.sha || got.sha === createHash('sha256').update(JSON.stringify(want.sizing)).digest('hex'))
+        : JSON.stringify(got.sizing) === JSON.stringify(want.sizing)) &&
       isDeepStrictEqual(got.carried?.supply, want.carried?.supply) &&
       got.carried?.treeVersion === site.tree_version;
     if (!same) stale.push(b.name);

@@ -1,8 +1,17 @@
 import crypto from 'node:crypto';
 
+import { QueryTypes } from 'sequelize';
+import { expect } from 'vitest';
+
+import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import type { BoardSettings, WayInput } from '@/lib/boards/schemas';
+import { db } from '@/lib/db';
+import type { DerivedSupply } from '@/lib/sites/tree-types';
+import type { BoardResult, Verdict } from '@/lib/sizing';
 import type { SiteTreeInput } from '@/lib/supply';
 import { Board, Site, Way } from '@/models';
+
+import { ctx, jsonRequest } from './helpers';
 
 /**
  * A site tree of lib/supply's unit fixtures (tests/unit/supply/fixtures.ts, hand-worked there)
@@ -41,4 +50,50 @@ export async function storeTree(organisationId: string, tree: SiteTreeInput, opt
     await Way.bulkCreate(ways.map((w) => ({ ...w, boardId: row.id })));
   }
   return { site, ids, boards, id: (fixtureId: string) => ids.get(fixtureId)! };
+}
+
+/** A board's row of `board_sizings` as stored, read straight from the table. */
+export type SizingRow = {
+  sizing: BoardResult | null;
+  text: string | null;
+  sha: string | null;
+  pending: boolean;
+  outcome: { verdicts: Record<string, Verdict>; worst: Verdict } | null;
+  carried: DerivedSupply | null;
+  version: number;
+  boardVersion: number;
+  treeVersion: number | null;
+};
+
+/** What is stored for a board now, without any route re-sizing it on the way. */
+export async function sizingRow(boardId: string): Promise<SizingRow> {
+  const [row] = await db().query<SizingRow>(
+    `SELECT s.sizing, s.sizing::text AS text, encode(s.sizing_sha256, 'hex') AS sha, s.pending, s.outcome, s.carried,
+       s.version, b.version AS "boardVersion", s.tree_version AS "treeVersion"
+     FROM board_sizings s JOIN boards b ON b.id = s.board_id WHERE s.board_id = $1`,
+    { bind: [boardId], type: QueryTypes.SELECT },
+  );
+  return row;
+}
+
+/**
+ * The board's stored sizing as a reader gets it: a sizing left pending by a change upstream
+ * (migration 0013) is stored by its first read (the sizing route, signed in as the caller's
+ * user). What the change upstream stored at once must be what that read sizes from what was
+ * committed: the same outcome (way verdicts, worst verdict), values carried and, when it left
+ * one, the same hash.
+ */
+export async function storedSizing(boardId: string): Promise<SizingRow> {
+  const now = await sizingRow(boardId);
+  if (!now.pending) return now;
+  expect(now.sizing, 'a pending sizing is not stored').toBeNull();
+  const res = await sizingRoute.POST(jsonRequest('POST'), ctx({ boardId }));
+  await res.arrayBuffer();
+  const read = await sizingRow(boardId);
+  expect(read.pending, 'stored by its first read').toBe(false);
+  expect(crypto.createHash('sha256').update(read.text!).digest('hex')).toBe(read.sha);
+  if (now.sha !== null) expect(read.sha, 'the hash left while pending is the stored text’s').toBe(now.sha);
+  expect(now.outcome, 'the outcome stored while pending is the stored sizing’s').toEqual(read.outcome);
+  expect(now.carried?.supply, 'the supply carried').toEqual(read.carried?.supply);
+  return read;
 }

@@ -13,19 +13,19 @@ import * as treeRoute from '@/app/api/sites/[siteId]/tree/route';
 import { describeAuditEntry } from '@/features/audit/utils/describe-event';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
-import type { DerivedSupply, FeedChange, SiteTreeDto } from '@/lib/sites/tree-types';
+import type { FeedChange, SiteTreeDto } from '@/lib/sites/tree-types';
 import { AuditEvent, Board } from '@/models';
 
 import { twoLevel } from '../unit/supply/fixtures';
 import { ctx, jsonRequest, makeOrganisation, signInAs } from './helpers';
-import { storeTree } from './site-fixtures';
+import { storedSizing, storeTree } from './site-fixtures';
 
 // Deleting, archiving, restoring and undeleting a board of a supply tree (two levels: Workshop
 // DB1 feeds the finishing room's board from its way w-sub; tests/unit/supply/fixtures.ts). A
 // board that feeds others is not removed unasked: 409 naming the boards fed from it; confirmed,
 // they go back to the origin in the same request, with their history saying why, and the whole
-// site is re-sized there and then (what is stored, read straight from board_sizings, never
-// sized against a board that is gone).
+// site is re-sized there and then (what is stored, read from board_sizings, never sized against
+// a board that is gone).
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
 let team: Org;
@@ -51,20 +51,12 @@ const getBoard = (boardId: string) =>
 const getTree = (siteId: string) =>
   call<{ tree: SiteTreeDto }>(treeRoute.GET(jsonRequest('GET'), ctx({ siteId }))).then((b) => b.tree);
 
-/** What is stored for a board now, without any route re-sizing it on the way. */
-async function stored(boardId: string) {
-  const [row] = await db().query<{
-    carried: DerivedSupply | null;
-    sizing: { ways: { id: string; result: { ibA: number } | null }[] } | null;
-    version: number;
-    board_version: number;
-  }>(
-    `SELECT s.carried, s.sizing, s.version, b.version AS board_version
-     FROM board_sizings s JOIN boards b ON b.id = s.board_id WHERE s.board_id = $1`,
-    { bind: [boardId], type: QueryTypes.SELECT },
-  );
-  return row;
-}
+/**
+ * What is stored for a board now: the values carried to it and its outcome as the request stored
+ * them; its whole sizing, when a change upstream left it pending, as its first read stores it,
+ * checked against the hash the request stored (tests/integration/site-fixtures.ts).
+ */
+const stored = storedSizing;
 
 async function fedFromWay(boardId: string): Promise<string | null> {
   const [row] = await db().query<{ fed_from_way_id: string | null }>(
@@ -99,7 +91,7 @@ async function expectAtOrigin(finId: string, originZe: number) {
   expect(s.carried?.fedFrom).toBeNull();
   // At the origin, the board's "Zdb" is the origin's Ze itself (nothing below the intake)
   expect(s.carried?.supply.zeOhm).toBe(originZe);
-  expect(s.version).toBe(s.board_version);
+  expect(s.version).toBe(s.boardVersion);
 }
 
 describe('removing a board of a supply tree', () => {
@@ -151,7 +143,7 @@ describe('removing a board of a supply tree', () => {
     expect(await fedFromWay(t.id('fin'))).toBe(t.id('w-sub'));
     expect((await stored(t.id('fin'))).carried?.from).toBe('way');
     const db1 = await stored(t.id('db1'));
-    expect(db1.version).toBe(db1.board_version);
+    expect(db1.version).toBe(db1.boardVersion);
     const history = await AuditEvent.findAll({ where: { boardId: t.id('fin'), action: 'board.feed-changed' } });
     const entry = history.find((e) => (e.details as { reason?: string }).reason === 'board-returned')!;
     expect(describeAuditEntry({ action: entry.action, details: entry.details, wayLabel: null })).toBe(
@@ -219,7 +211,7 @@ describe('removing a board of a supply tree', () => {
     // Workshop DB1's sub-main now carries only its own typed load (0 W): re-sized in the request
     expect(await subIb()).toBe(0);
     const db1 = await stored(t.id('db1'));
-    expect(db1.version).toBe(db1.board_version);
+    expect(db1.version).toBe(db1.boardVersion);
     // Undo: the board is back on the way that fed it (still free), and the sub-main carries its
     // demand again, all in the same request
     const back = await call<{ board: BoardDto }>(undoRoute.POST(jsonRequest('POST'), ctx({ boardId: t.id('fin') })));

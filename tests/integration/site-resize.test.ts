@@ -1,4 +1,3 @@
-import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it, vi } from 'vitest';
 
 import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
@@ -17,7 +16,7 @@ import { AuditEvent } from '@/models';
 
 import { twoLevel } from '../unit/supply/fixtures';
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
-import { storeTree } from './site-fixtures';
+import { sizingRow, storedSizing, storeTree } from './site-fixtures';
 
 // A re-size compares each board's new way verdicts with the stored ones. It reads them from the
 // stored outcome (board_sizings.outcome, migration 0012: way id → verdict, and the worst
@@ -37,16 +36,6 @@ async function call<T>(res: Promise<Response>, status = 200): Promise<T> {
   const body = await r.json();
   if (r.status !== status) throw new Error(`expected ${status}, got ${r.status}: ${JSON.stringify(body)}`);
   return body as T;
-}
-
-type Row = { sizing: BoardResult | null; outcome: { verdicts: Record<string, Verdict>; worst: Verdict } | null };
-
-async function storedRow(boardId: string): Promise<Row> {
-  const [row] = await db().query<Row>('SELECT sizing, outcome FROM board_sizings WHERE board_id = $1', {
-    bind: [boardId],
-    type: QueryTypes.SELECT,
-  });
-  return row;
 }
 
 /** The stored sizing in brief, worked out here from the sizing itself. */
@@ -71,13 +60,27 @@ async function linkedTwoLevel() {
 }
 
 describe('re-sizing a site compares the stored outcome', () => {
-  it('every stored sizing of the tree is stored with its outcome', async () => {
+  it('a change upstream stores every board’s outcome at once and its whole sizing at its first read', async () => {
     signInAs(team.users.designer);
     const { fx, t } = await linkedTwoLevel();
-    await call(originRoute.PUT(jsonRequest('PUT', { ...fx.origin, zeOhm: 1.2 }), ctx({ siteId: t.site.id })));
+    const next = { ...fx.origin, zeOhm: 1.2 };
+    await call(originRoute.PUT(jsonRequest('PUT', next), ctx({ siteId: t.site.id })));
+    const fresh = sizeTree(t.site.id, next, await readTreeBoards(t.site.id));
+    const outcomes = new Map<string, unknown>();
     for (const id of ['db1', 'fin']) {
-      const row = await storedRow(t.id(id));
-      expect(row.sizing, id).not.toBeNull();
+      const row = await sizingRow(t.id(id));
+      expect(row.pending, id).toBe(true);
+      expect(row.sizing, id).toBeNull();
+      expect(row.outcome, id).toEqual(brief(fresh.boards.get(t.id(id))!.sizing!));
+      outcomes.set(id, row.outcome);
+    }
+    // The first read (of either board) stores both, with the outcome stored before
+    await storedSizing(t.id('fin'));
+    for (const id of ['db1', 'fin']) {
+      const row = await sizingRow(t.id(id));
+      expect(row.pending, id).toBe(false);
+      expect(row.sizing, id).toEqual(fresh.boards.get(t.id(id))!.sizing);
+      expect(row.outcome, id).toEqual(outcomes.get(id));
       expect(row.outcome, id).toEqual(brief(row.sizing!));
     }
   });
@@ -86,7 +89,8 @@ describe('re-sizing a site compares the stored outcome', () => {
     signInAs(team.users.designer);
     const { board } = await makeBoard(team.org.id, 'workshop');
     await call(sizingRoute.POST(jsonRequest('POST'), ctx({ boardId: board.id })));
-    const row = await storedRow(board.id);
+    const row = await sizingRow(board.id);
+    expect(row.pending).toBe(false);
     expect(row.sizing).not.toBeNull();
     expect(row.outcome).toEqual(brief(row.sizing!));
   });
@@ -94,7 +98,7 @@ describe('re-sizing a site compares the stored outcome', () => {
   it('a sizing stored without an outcome (before migration 0012) is compared whole: the same ripple', async () => {
     signInAs(team.users.designer);
     const { fx, t } = await linkedTwoLevel();
-    const was = (await storedRow(t.id('fin'))).sizing!;
+    const was = (await storedSizing(t.id('fin'))).sizing!;
     const wasVerdicts = brief(was).verdicts;
     await db().query('UPDATE board_sizings SET outcome = NULL WHERE board_id = $1', { bind: [t.id('fin')] });
     // Ze 0.35 → 2.6 Ω: the spray booth's Zs = 2.6 + 0.093696 (the sub-main) + 0.23412 (its own
@@ -115,7 +119,7 @@ describe('re-sizing a site compares the stored outcome', () => {
     expect((newest.details as { ways: { wayId: string; before: Verdict }[] }).ways).toContainEqual(
       expect.objectContaining({ wayId: t.id('f-spray'), before: wasVerdicts[t.id('f-spray')] }),
     );
-    const row = await storedRow(t.id('fin'));
+    const row = await storedSizing(t.id('fin'));
     expect(row.outcome).toEqual(brief(row.sizing!));
   });
 
@@ -123,7 +127,9 @@ describe('re-sizing a site compares the stored outcome', () => {
     signInAs(team.users.designer);
     const a = await linkedTwoLevel();
     const b = await linkedTwoLevel();
-    // Site b's rows without outcome (compared whole), site a's with it
+    // Both sites' sizings stored whole (a pending row always has its outcome); then site b's
+    // rows without outcome (compared whole), site a's with it
+    for (const x of [a, b]) await storedSizing(x.t.id('db1'));
     await db().query('UPDATE board_sizings SET outcome = NULL WHERE board_id = ANY($1::uuid[])', {
       bind: [[b.t.id('db1'), b.t.id('fin')]],
     });
@@ -179,28 +185,19 @@ describe('re-sizing a site compares the stored outcome', () => {
     );
     await db().transaction(async (transaction) => {
       const site = await lockSite(actor, t.site.id, transaction);
-      await resizeSite(actor, { ...site, origin: next }, transaction, { presized });
+      await resizeSite(actor, { ...site, origin: next }, transaction, { presized, store: 'all' });
     });
     // What is stored is the committed tree (the 400 m sub-main) sized with the new origin
     const fresh = sizeTree(t.site.id, next, await readTreeBoards(t.site.id));
     for (const id of ['db1', 'fin']) {
-      expect((await storedRow(t.id(id))).sizing, id).toEqual(fresh.boards.get(t.id(id))!.sizing);
+      expect((await sizingRow(t.id(id))).sizing, id).toEqual(fresh.boards.get(t.id(id))!.sizing);
     }
-    const spray = (await storedRow(t.id('fin'))).sizing!.ways.find((w) => w.id === t.id('f-spray'))!.result;
+    const spray = (await sizingRow(t.id('fin'))).sizing!.ways.find((w) => w.id === t.id('f-spray'))!.result;
     expect(spray?.verdict).toBe('fails');
   });
 });
 
-describe('a re-size keeps a sizing stored already instead of writing it again', () => {
-  type Full = { sizing: string | null; treeVersion: number; carried: { treeVersion: number } | null };
-  async function full(boardId: string): Promise<Full> {
-    const [row] = await db().query<Full>(
-      'SELECT sizing::text AS sizing, tree_version AS "treeVersion", carried FROM board_sizings WHERE board_id = $1',
-      { bind: [boardId], type: QueryTypes.SELECT },
-    );
-    return row;
-  }
-
+describe('a re-size sends a board’s whole sizing only when it must', () => {
   /** The statements that write board_sizings during `f`, and their bind values. */
   async function writesDuring(f: () => Promise<unknown>): Promise<{ sql: string; bind: unknown[] }[]> {
     const seen: { sql: string; bind: unknown[] }[] = [];
@@ -216,59 +213,115 @@ describe('a re-size keeps a sizing stored already instead of writing it again', 
     }
     return seen;
   }
+  const verbs = (writes: { sql: string }[]) =>
+    writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' ')).sort();
+  const sizingsSent = (writes: { bind: unknown[] }[]) =>
+    writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"summary"'));
 
   it('the same origin again: no sizing is sent, each row moves on to the new tree version', async () => {
     signInAs(team.users.designer);
     const { fx, t } = await linkedTwoLevel();
     const origin = { ...fx.origin, zeOhm: 0.5 };
     await call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
-    const before = await Promise.all(['db1', 'fin'].map((id) => full(t.id(id))));
+    await storedSizing(t.id('fin'));
+    const before = await Promise.all(['db1', 'fin'].map((id) => sizingRow(t.id(id))));
     const writes = await writesDuring(() =>
       call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id }))),
     );
-    expect(writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' '))).toEqual(['UPDATE board_sizings']);
-    const sent = writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"summary"'));
-    expect(sent).toEqual([]);
+    expect(verbs(writes)).toEqual(['UPDATE board_sizings']);
+    expect(sizingsSent(writes)).toEqual([]);
     for (const [i, id] of ['db1', 'fin'].entries()) {
-      const after = await full(t.id(id));
-      expect(after.sizing, id).toBe(before[i].sizing);
-      expect(after.treeVersion, id).toBe(before[i].treeVersion + 1);
+      const after = await sizingRow(t.id(id));
+      expect(after.pending, id).toBe(false);
+      expect(after.text, id).toBe(before[i].text);
+      expect(after.treeVersion, id).toBe(before[i].treeVersion! + 1);
       expect(after.carried?.treeVersion, id).toBe(after.treeVersion);
     }
   });
 
-  it('another origin: every changed sizing is written', async () => {
+  it('another origin: no sizing is sent; each changed one is left pending, then stored whole by a read', async () => {
     signInAs(team.users.designer);
     const { fx, t } = await linkedTwoLevel();
     const next = { ...fx.origin, zeOhm: 0.8 };
     const writes = await writesDuring(() =>
       call(originRoute.PUT(jsonRequest('PUT', next), ctx({ siteId: t.site.id }))),
     );
-    expect(writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' '))).toEqual(['INSERT INTO']);
+    expect(verbs(writes)).toEqual(['INSERT INTO']);
+    expect(sizingsSent(writes)).toEqual([]);
     const fresh = sizeTree(t.site.id, next, await readTreeBoards(t.site.id));
+    for (const id of ['db1', 'fin']) expect((await sizingRow(t.id(id))).pending, id).toBe(true);
+    const read = await writesDuring(() => storedSizing(t.id('db1')));
+    expect(sizingsSent(read)).toHaveLength(2);
     for (const id of ['db1', 'fin']) {
-      expect((await full(t.id(id))).sizing, id).toBe(JSON.stringify(fresh.boards.get(t.id(id))!.sizing));
+      expect((await sizingRow(t.id(id))).text, id).toBe(JSON.stringify(fresh.boards.get(t.id(id))!.sizing));
     }
   });
 
-  it('a stored sizing of the same length but other content is written again', async () => {
+  it('readers of a pending site at once store it once', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    await call(originRoute.PUT(jsonRequest('PUT', { ...fx.origin, zeOhm: 0.9 }), ctx({ siteId: t.site.id })));
+    const writes = await writesDuring(() =>
+      Promise.all(
+        ['db1', 'fin', 'db1', 'fin'].map((id) =>
+          call(sizingRoute.POST(jsonRequest('POST'), ctx({ boardId: t.id(id) }))),
+        ),
+      ),
+    );
+    expect(verbs(writes)).toEqual(['INSERT INTO']);
+    expect(sizingsSent(writes)).toHaveLength(2);
+    for (const id of ['db1', 'fin']) expect((await sizingRow(t.id(id))).pending, id).toBe(false);
+  });
+
+  it('a save stores the board saved whole at once and leaves the boards below it pending', async () => {
+    signInAs(team.users.designer);
+    const { t } = await linkedTwoLevel();
+    await storedSizing(t.id('fin'));
+    const db1 = (await call<{ board: BoardDto }>(boardRoute.GET(jsonRequest('GET'), ctx({ boardId: t.id('db1') }))))
+      .board;
+    const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = db1;
+    const ways = db1.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
+    const sub = ways.find((w) => w.id === t.id('w-sub'))!;
+    sub.circuit = { ...sub.circuit!, lengthM: 400 };
+    await call(
+      boardRoute.PUT(
+        jsonRequest('PUT', {
+          version: db1.version,
+          settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
+          ways,
+        }),
+        ctx({ boardId: t.id('db1') }),
+      ),
+    );
+    const saved = await sizingRow(t.id('db1'));
+    expect(saved.pending).toBe(false);
+    expect(saved.version).toBe(saved.boardVersion);
+    expect(saved.sizing!.ways.find((w) => w.id === t.id('w-sub'))?.result?.csaMm2).toBeDefined();
+    expect((await sizingRow(t.id('fin'))).pending).toBe(true);
+    // The spray booth's volt drop now takes in a 400 m sub-main: its first read stores that
+    const fin = await storedSizing(t.id('fin'));
+    expect(fin.sizing!.ways.find((w) => w.id === t.id('f-spray'))?.result?.verdict).toBe('fails');
+  });
+
+  it('a stored sizing whose hash is not the new text’s is left pending and stored again by its read', async () => {
     signInAs(team.users.designer);
     const { fx, t } = await linkedTwoLevel();
     const origin = { ...fx.origin, zeOhm: 0.5 };
     await call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
-    const good = (await full(t.id('fin'))).sizing!;
-    // Written behind the app's back: one verdict changed, the text as long as before
+    const good = (await storedSizing(t.id('fin'))).text!;
+    // Written behind the app's back: one verdict changed, with its hash
     const bad = good.replace('"verdict":"passes"', '"verdict":"failed"');
     expect(bad).not.toBe(good);
-    expect(bad.length).toBe(good.length);
-    await db().query('UPDATE board_sizings SET sizing = $2::json WHERE board_id = $1', { bind: [t.id('fin'), bad] });
+    await db().query(
+      `UPDATE board_sizings SET sizing = $2::json, sizing_sha256 = sha256(convert_to($2::text, 'UTF8')) WHERE board_id = $1`,
+      { bind: [t.id('fin'), bad] },
+    );
     const writes = await writesDuring(() =>
       call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id }))),
     );
-    expect(writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' ')).sort()).toEqual([
-      'INSERT INTO',
-      'UPDATE board_sizings',
-    ]);
-    expect((await full(t.id('fin'))).sizing).toBe(good);
+    expect(verbs(writes)).toEqual(['INSERT INTO', 'UPDATE board_sizings']);
+    expect(sizingsSent(writes)).toEqual([]);
+    expect((await sizingRow(t.id('fin'))).pending).toBe(true);
+    expect((await storedSizing(t.id('fin'))).text).toBe(good);
   });
 });
