@@ -59,6 +59,26 @@ async function linkedTwoLevel() {
   return { fx, t };
 }
 
+/** Saves Workshop DB1 with its sub-main (way w-sub) `lengthM` long, through the board route. */
+async function subMainLength(t: Awaited<ReturnType<typeof linkedTwoLevel>>['t'], lengthM: number) {
+  const db1 = (await call<{ board: BoardDto }>(boardRoute.GET(jsonRequest('GET'), ctx({ boardId: t.id('db1') }))))
+    .board;
+  const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = db1;
+  const ways = db1.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
+  const sub = ways.find((w) => w.id === t.id('w-sub'))!;
+  sub.circuit = { ...sub.circuit!, lengthM };
+  await call(
+    boardRoute.PUT(
+      jsonRequest('PUT', {
+        version: db1.version,
+        settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
+        ways,
+      }),
+      ctx({ boardId: t.id('db1') }),
+    ),
+  );
+}
+
 describe('re-sizing a site compares the stored outcome', () => {
   it('a change upstream stores every board’s outcome at once and its whole sizing at its first read', async () => {
     signInAs(team.users.designer);
@@ -167,22 +187,7 @@ describe('re-sizing a site compares the stored outcome', () => {
     const next = { ...fx.origin, zeOhm: 0.8 };
     const presized = await presizeSite(actor, t.site.id, next);
     // Meanwhile (committed before the lock is taken) the sub-main becomes 400 m long
-    const db1 = (await call<{ board: BoardDto }>(boardRoute.GET(jsonRequest('GET'), ctx({ boardId: t.id('db1') }))))
-      .board;
-    const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = db1;
-    const ways = db1.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
-    const sub = ways.find((w) => w.id === t.id('w-sub'))!;
-    sub.circuit = { ...sub.circuit!, lengthM: 400 };
-    await call(
-      boardRoute.PUT(
-        jsonRequest('PUT', {
-          version: db1.version,
-          settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
-          ways,
-        }),
-        ctx({ boardId: t.id('db1') }),
-      ),
-    );
+    await subMainLength(t, 400);
     await db().transaction(async (transaction) => {
       const site = await lockSite(actor, t.site.id, transaction);
       await resizeSite(actor, { ...site, origin: next }, transaction, { presized, store: 'all' });
@@ -277,22 +282,7 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
     signInAs(team.users.designer);
     const { t } = await linkedTwoLevel();
     await storedSizing(t.id('fin'));
-    const db1 = (await call<{ board: BoardDto }>(boardRoute.GET(jsonRequest('GET'), ctx({ boardId: t.id('db1') }))))
-      .board;
-    const { name, location, phases, supply, incoming, enclosureModules, rails, dwelling } = db1;
-    const ways = db1.ways.map(({ id, rail, position, device, circuit }) => ({ id, rail, position, device, circuit }));
-    const sub = ways.find((w) => w.id === t.id('w-sub'))!;
-    sub.circuit = { ...sub.circuit!, lengthM: 400 };
-    await call(
-      boardRoute.PUT(
-        jsonRequest('PUT', {
-          version: db1.version,
-          settings: { name, location, phases, supply, incoming, enclosureModules, rails, dwelling },
-          ways,
-        }),
-        ctx({ boardId: t.id('db1') }),
-      ),
-    );
+    await subMainLength(t, 400);
     const saved = await sizingRow(t.id('db1'));
     expect(saved.pending).toBe(false);
     expect(saved.version).toBe(saved.boardVersion);
