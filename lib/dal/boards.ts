@@ -41,8 +41,6 @@ import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
 import { BoardRevision, Site, User } from '@/models';
 import type { ArchiveState } from '@/lib/boards/review-types';
 
-export { findBoard, readBoard as getBoard, readBoardFrame } from '@/lib/dal/board-repository';
-
 /** The organisation's boards for the lists, optionally of one site (404 for another's site). */
 export async function listBoards(
   actor: Actor,

@@ -2,7 +2,7 @@ import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
 import { commentsOf } from '@/lib/dal/comments';
-import { findBoard } from '@/lib/dal/boards';
+import { findBoard } from '@/lib/dal/board-repository';
 import { AuditEvent, User } from '@/models';
 import type { ReturnNotes } from '@/lib/boards/review-types';
 

@@ -5,7 +5,7 @@ import { Op, type Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { findBoard } from '@/lib/dal/boards';
+import { findBoard } from '@/lib/dal/board-repository';
 import { memberNames } from '@/lib/dal/members';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { enqueueMail } from '@/lib/mail/outbox';
