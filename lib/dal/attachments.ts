@@ -7,7 +7,7 @@ import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { findBoard, wayOnBoard } from '@/lib/dal/board-repository';
 import { memberNames } from '@/lib/dal/members';
-import { assertNotArchived, everIssued } from '@/lib/dal/boards';
+import { assertNotArchived, everIssued, findWritableBoard } from '@/lib/dal/boards';
 import { badRequest, notFound } from '@/lib/errors';
 import { MAX_PHOTO_BYTES, PHOTO_TYPES, sniffImageType, storedImages, tooLarge } from '@/lib/storage/photo-image';
 import { deleteObjects, getObjectStream, putObject } from '@/lib/storage/s3';
@@ -131,8 +131,7 @@ export async function openAttachment(
 export async function deleteAttachment(actor: Actor, id: string): Promise<{ effect: 'deleted' | 'withdrawn' }> {
   const row = await findAttachment(actor, id);
   const effect = await db().transaction(async (transaction) => {
-    const board = await findBoard(actor, row.boardId, { transaction, lock: true });
-    await assertNotArchived(board, transaction);
+    await findWritableBoard(actor, row.boardId, transaction);
     if (row.withdrawnAt) throw notFound('The photo');
     if (await everIssued(row.boardId, transaction)) {
       await row.update({ withdrawnAt: new Date(), withdrawnById: actor.userId }, { transaction });

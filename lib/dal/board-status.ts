@@ -9,7 +9,7 @@ import { sizeDesign } from '@/lib/boards/size-design';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { readWays, writeBoard } from '@/lib/dal/board-repository';
-import { findWritableBoard } from '@/lib/dal/boards';
+import { assertVersion, findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices } from '@/lib/dal/notices';
 import { draftTreeContext } from '@/lib/dal/site-supply';
 import { withTreeContext } from '@/lib/sites/tree-context';
@@ -49,11 +49,7 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     const board = await findWritableBoard(actor, boardId, transaction);
     const step = transition(board.status, 'submit', { revision: board.revision });
     if (step.refused) throw conflict(step.message, { status: board.status, revision: board.revision });
-    if (expectedVersion !== undefined && board.version !== expectedVersion) {
-      throw conflict('Someone else saved this board after you opened it.', {
-        currentVersion: board.version,
-      });
-    }
+    assertVersion(board, expectedVersion);
     const ways = await readWays(boardId, transaction);
 
     // Size the stored board exactly as the sizing route does (with what the site's tree gives it)

@@ -7,7 +7,7 @@ import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { findBoard, wayOnBoard } from '@/lib/dal/board-repository';
-import { assertNotArchived } from '@/lib/dal/boards';
+import { assertNotArchived, findWritableBoard } from '@/lib/dal/boards';
 import { badRequest, forbidden } from '@/lib/errors';
 import { Comment, User } from '@/models';
 import type { CommentDto } from '@/lib/boards/review-types';
@@ -78,8 +78,7 @@ export async function answerComments(
 ): Promise<{ answered: number }> {
   if (!can(actor.role, 'comments.answer')) throw forbidden('mark review comments answered');
   return db().transaction(async (transaction) => {
-    const board = await findBoard(actor, boardId, { transaction, lock: true });
-    await assertNotArchived(board, transaction);
+    await findWritableBoard(actor, boardId, transaction);
     const ids = [...new Set(commentIds)];
     const found = await Comment.findAll({ where: { boardId, id: { [Op.in]: ids } }, transaction });
     if (found.length !== ids.length) {

@@ -4,11 +4,10 @@ import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import type { BoardDto } from '@/lib/boards/schemas';
-import { transition } from '@/lib/boards/lifecycle';
 import { db } from '@/lib/db';
 import { findBoard, readDraftTreeRows, readTreeBoards, writeBoard } from '@/lib/dal/board-repository';
 import { audit } from '@/lib/dal/audit';
-import { assertNotArchived } from '@/lib/dal/boards';
+import { assertSavable } from '@/lib/dal/boards';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { conflict, notFound } from '@/lib/errors';
 import { treeDtoOf, treeOrder } from '@/lib/sites/tree-dto';
@@ -94,12 +93,7 @@ export async function setBoardFeed(
   const board = await db().transaction(async (transaction) => {
     await lockSiteOfBoard(actor, boardId, transaction, { tree: input.feed.from === 'way' });
     const row = await findBoard(actor, boardId, { transaction, lock: true });
-    await assertNotArchived(row, transaction);
-    const step = transition(row.status, 'save', { revision: row.revision });
-    if (step.refused) throw conflict(step.message);
-    if (input.version !== undefined && row.version !== input.version) {
-      throw conflict('Someone else saved this board after you opened it.', { currentVersion: row.version });
-    }
+    await assertSavable(row, input.version, transaction);
     return writeBoard(
       actor,
       row,
