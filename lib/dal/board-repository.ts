@@ -246,57 +246,57 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   return stored;
 }
 
-/**
- * The caller's organisation's board's sizing (404 otherwise), as stored for its current
- * version: one statement. A board whose stored sizing is older (written before migration 0008,
- * or behind the app's back) is sized now and stored.
- */
-export async function readStoredSizing(actor: Actor, boardId: string, again = false): Promise<StoredSizing> {
-  const rows = await select<{ current: boolean; json: string | null; issues: FieldIssue[] | null }>(
-    `SELECT s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues FROM boards b
-     LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
-     WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
-    [boardId, actor.organisationId],
-  );
-  if (!rows.length) throw notFound('The board');
-  const [row] = rows;
-  if (row.current) return { json: row.json, issues: row.issues ?? [] };
-  const board = await readBoard(actor, boardId);
-  // A board of a site's tree: the whole site is re-sized (lib/dal/site-tree.ts)
-  if (!again && (await resizeSiteOfStaleBoard(actor, board))) return readStoredSizing(actor, boardId, true);
-  return storeSizing(board);
-}
+type SizingRow = { dto: string | null; current: boolean; json: string | null; issues: FieldIssue[] | null };
 
 /**
- * The caller's organisation's board (404 otherwise) and its stored sizing, in one statement:
- * for pages that show both. A stored sizing older than the board is sized now and stored.
+ * The caller's organisation's board's sizing (404 otherwise), as stored for its current
+ * version, with `withBoard` the board too: one statement. A board whose stored sizing is older
+ * (written before migration 0008, or behind the app's back) is sized now and stored; a board
+ * of a site's tree, by re-sizing the whole site (lib/dal/site-tree.ts).
  */
-export async function readBoardAndSizing(
+async function readCurrentSizing(
   actor: Actor,
   boardId: string,
+  withBoard: boolean,
   again = false,
-): Promise<{ board: BoardDto; sized: SizedBoard }> {
-  const rows = await select<{ dto: string; current: boolean; json: string | null; issues: FieldIssue[] | null }>(
-    `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues
+): Promise<{ board: BoardDto | null; stored: StoredSizing }> {
+  const [row] = await select<SizingRow>(
+    `SELECT ${withBoard ? BOARD_DTO_JSON : 'NULL'} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json,
+       s.issues
      FROM boards b LEFT JOIN board_sizings s ON s.board_id = b.id AND s.version = b.version
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );
-  if (!rows.length) throw notFound('The board');
-  const [row] = rows;
-  const board = JSON.parse(row.dto) as BoardDto;
-  // A board of a site's tree whose stored sizing is older: the whole site is re-sized (lib/dal/site-tree.ts)
-  if (!row.current && !again && (await resizeSiteOfStaleBoard(actor, board))) {
-    return readBoardAndSizing(actor, boardId, true);
-  }
-  const { json, issues } = row.current ? { json: row.json, issues: row.issues ?? [] } : await storeSizing(board);
-  return { board, sized: { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues } };
+  if (!row) throw notFound('The board');
+  const board = row.dto === null ? null : (JSON.parse(row.dto) as BoardDto);
+  if (row.current) return { board, stored: { json: row.json, issues: row.issues ?? [] } };
+  const stale = board ?? (await readBoard(actor, boardId));
+  if (!again && (await resizeSiteOfStaleBoard(actor, stale))) return readCurrentSizing(actor, boardId, withBoard, true);
+  return { board, stored: await storeSizing(stale) };
+}
+
+const parsedSizing = ({ json, issues }: StoredSizing): SizedBoard => ({
+  sizing: json === null ? null : (JSON.parse(json) as BoardResult),
+  issues,
+});
+
+/** The caller's organisation's board's stored sizing, as JSON text (see `readCurrentSizing`). */
+export async function readStoredSizing(actor: Actor, boardId: string): Promise<StoredSizing> {
+  return (await readCurrentSizing(actor, boardId, false)).stored;
 }
 
 /** The stored sizing of the caller's organisation's board, as the engine's result. */
 export async function readSizedBoard(actor: Actor, boardId: string): Promise<SizedBoard> {
-  const { json, issues } = await readStoredSizing(actor, boardId);
-  return { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues };
+  return parsedSizing(await readStoredSizing(actor, boardId));
+}
+
+/** The caller's organisation's board and its stored sizing, in one statement: for pages that show both. */
+export async function readBoardAndSizing(
+  actor: Actor,
+  boardId: string,
+): Promise<{ board: BoardDto; sized: SizedBoard }> {
+  const { board, stored } = await readCurrentSizing(actor, boardId, true);
+  return { board: board!, sized: parsedSizing(stored) };
 }
 
 /** A new board of the caller's organisation with its first audit events: it starts at version 1. */
