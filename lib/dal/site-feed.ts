@@ -109,14 +109,16 @@ export async function beforeTreeWrite(
     }
   }
   if (issues.length) throw feedRefusal(issues);
-  if (detach.length && !write.confirmFeedChanges) {
-    const names = detach.map((c) => c.name).join(', ');
-    throw conflict(
-      `This save takes away the way that feeds ${names}; confirm to feed ${detach.length === 1 ? 'it' : 'them'} from the origin.`,
-      { feedChanges: detach },
-    );
-  }
+  refuseUnconfirmed(detach, write.confirmFeedChanges, (names) => `This save takes away the way that feeds ${names}`);
   return { site, detach, feed };
+}
+
+/** 409 naming the boards that would go back to the origin (`feedChanges`), unless there are none or it is confirmed. */
+function refuseUnconfirmed(detach: FeedChange[], confirmed: boolean | undefined, takesAway: (names: string) => string) {
+  if (confirmed || !detach.length) return;
+  const names = detach.map((c) => c.name).join(', ');
+  const them = detach.length === 1 ? 'it' : 'them';
+  throw conflict(`${takesAway(names)}; confirm to feed ${them} from the origin.`, { feedChanges: detach });
 }
 
 /** The boards fed from a way of `parent`, each as a change of its feed back to the origin. */
@@ -270,16 +272,12 @@ export async function beforeBoardRemoval(
   const byId = new Map(boards.map((b) => [b.id, b]));
   const me = byId.get(board.id);
   const detach = boardsFedFrom(board, boards, 'board-removed').filter((c) => c.boardId !== board.id);
-  if (detach.length && !opts.confirmFeedChanges) {
-    const names = detach.map((c) => c.name).join(', ');
-    const verb = opts.effect === 'deleted' ? 'Deleting' : 'Archiving';
-    throw conflict(
-      `${verb} ${board.name} takes away the supply of ${names}, fed from its ways; confirm to feed ${
-        detach.length === 1 ? 'it' : 'them'
-      } from the origin.`,
-      { feedChanges: detach },
-    );
-  }
+  const verb = opts.effect === 'deleted' ? 'Deleting' : 'Archiving';
+  refuseUnconfirmed(
+    detach,
+    opts.confirmFeedChanges,
+    (names) => `${verb} ${board.name} takes away the supply of ${names}, fed from its ways`,
+  );
   let ownFeed: FedFromWords | null = null;
   const relinks: Relink[] = [];
   if (me?.feed.from === 'way') {
@@ -358,17 +356,16 @@ export async function afterBoardReturn(
  * A feed is taken up only if it still holds: the board is still fed from the origin (nobody
  * pointed it elsewhere meanwhile), it is not deleted, and the way passes the checks of a feed
  * chosen by hand (`checkFeed`: there, fit, free, no loop). Each one taken up or left is in the
- * board's history. Answers the boards fed again and those left at the origin, with why.
+ * board's history.
  */
 async function takeUpFeeds(
   actor: Actor,
   board: { id: string; name: string; siteId: string },
   relinks: readonly Relink[],
   transaction: Transaction,
-): Promise<{ relinked: string[]; left: { boardId: string; why: string }[] }> {
+): Promise<void> {
   const boards = await readTreeBoards(board.siteId, transaction, { stored: false });
   const byId = new Map(boards.map((b) => [b.id, b]));
-  const out = { relinked: [] as string[], left: [] as { boardId: string; why: string }[] };
   for (const r of relinks) {
     const target = byId.get(r.boardId);
     if (!target || target.feed.from !== 'origin') continue;
@@ -378,7 +375,6 @@ async function takeUpFeeds(
     } catch (err) {
       if (!(err instanceof HttpError)) throw err;
       const why = err.status === 404 ? 'the way that fed it is gone' : err.message;
-      out.left.push({ boardId: target.id, why });
       await audit(
         actor,
         'board.feed-changed',
@@ -395,7 +391,5 @@ async function takeUpFeeds(
       transaction,
     );
     byId.set(target.id, { ...target, feed: r.feed });
-    out.relinked.push(target.id);
   }
-  return out;
 }
