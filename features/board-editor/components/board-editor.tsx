@@ -35,6 +35,7 @@ import { useSaveStore } from '../stores/save-store';
 import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS, type ActiveData } from '../utils/announcements';
 import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
 import { editorBoard } from '../utils/board-shape';
+import { wayName } from '../utils/describe';
 import { dropTarget, type OverData } from '../utils/drop-target';
 import { newWayId } from '../utils/ids';
 import { BinZone } from './bin-zone';
@@ -153,7 +154,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     if (!way || !settings) return;
     const label = layoutWays(settings.phases, ways).find((p) => p.id === id)?.label;
     removeWay(id);
-    toast(`Removed ${label ? `way ${label}` : deviceWords(way.device)}.`, {
+    toast(`Removed ${wayName(way, label ?? null)}.`, {
       action: { label: 'Undo', onClick: () => undo() },
     });
   }, []);

@@ -66,16 +66,8 @@ export function useDraftPersistence(boardId: string, enabled: boolean): void {
         // Storage full or refused: the draft stays in memory
       }
     };
-    const unsubscribe = useBoardDraftStore.subscribe((state, previous) => {
-      if (
-        state.ways !== previous.ways ||
-        state.settings !== previous.settings ||
-        state.dirty !== previous.dirty ||
-        state.baseVersion !== previous.baseVersion
-      ) {
-        write();
-      }
+    return useBoardDraftStore.subscribe((state, previous) => {
+      if ((['ways', 'settings', 'dirty', 'baseVersion'] as const).some((k) => state[k] !== previous[k])) write();
     });
-    return unsubscribe;
   }, [boardId, enabled]);
 }

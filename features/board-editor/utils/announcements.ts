@@ -6,6 +6,7 @@ import type { BoardSettings } from '@/lib/boards/schemas';
 import type { DeviceOnRail } from '@/lib/sizing';
 
 import type { EditorWay } from '../types/draft';
+import { wayName } from './describe';
 import { deviceWords } from './device-catalogue';
 import { dropTarget, type OverData } from './drop-target';
 
@@ -55,7 +56,10 @@ export function boardAnnouncements(
     const labels = new Map(layoutWays(settings.phases, ways).map((p) => [p.id, p.label]));
     const rail = settings.rails > 1 ? ` of rail ${target.rail + 1}` : '';
     const named = (id: string) =>
-      labels.get(id) ? `way ${labels.get(id)}` : deviceWords(ways.find((w) => w.id === id)!.device);
+      wayName(
+        ways.find((w) => w.id === id)!,
+        labels.get(id) ?? null,
+      );
     const spot = target.afterId
       ? `after ${named(target.afterId)}${rail}`
       : target.beforeId
