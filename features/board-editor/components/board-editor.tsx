@@ -20,7 +20,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
 import { layoutWays } from '@/lib/boards/layout';
-import { drawRails, placementProblem, railCapacities } from '@/lib/boards/rail';
+import { drawRails, railCapacities } from '@/lib/boards/rail';
 import type { BoardDto } from '@/lib/boards/types';
 import type { ReturnNotes } from '@/lib/boards/review-types';
 import type { DeviceOnRail } from '@/lib/sizing';
@@ -32,11 +32,11 @@ import { LiveSizing } from '../hooks/use-live-sizing';
 import { useUndoShortcuts } from '../hooks/use-undo-shortcuts';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
-import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS, type ActiveData } from '../utils/announcements';
+import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS } from '../utils/announcements';
 import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
 import { editorBoard } from '../utils/board-shape';
 import { wayName } from '../utils/describe';
-import { dropTarget, type OverData } from '../utils/drop-target';
+import { dropProblem, dropTarget, type ActiveData, type OverData } from '../utils/drop-target';
 import { newWayId } from '../utils/ids';
 import { BinZone } from './bin-zone';
 import { BoardSummary } from './board-summary';
@@ -162,14 +162,8 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   const refusalFor = useCallback((active: ActiveData, over: OverData): string | null => {
     const { settings, ways } = useBoardDraftStore.getState();
     if (!settings || !active) return null;
-    const movingId = active.from === 'rail' ? active.wayId : null;
-    const target = dropTarget(ways, movingId, over);
-    if (!target || target.kind !== 'place') return null;
-    const way =
-      active.from === 'rail'
-        ? ways.find((w) => w.id === active.wayId)
-        : { id: '(new)', rail: target.rail, position: target.index, device: active.device };
-    return way ? placementProblem(settings, ways, way, target.rail, target.index) : null;
+    const target = dropTarget(ways, active.from === 'rail' ? active.wayId : null, over);
+    return target?.kind === 'place' ? dropProblem(settings, ways, active, target) : null;
   }, []);
 
   const endDrag = () => {
