@@ -95,7 +95,6 @@ export async function listAttachments(actor: Actor, boardId: string): Promise<At
 }
 
 async function findAttachment(actor: Actor, id: string): Promise<Attachment> {
-  db();
   const row = await Attachment.findOne({ where: { id, organisationId: actor.organisationId } });
   if (!row) throw notFound('The photo');
   // A deleted draft board's photos go with it (until an undo brings them back)

@@ -451,9 +451,8 @@ const ISSUE_FACTS = `o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue"
     FROM comments c LEFT JOIN users u ON u.id = c.author_id WHERE c.board_id = $1), '[]'::json) AS comments`;
 
 /**
- * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing): PostgreSQL takes the few figures a page shows out
- * of the engine's whole answer (about 1.4 kB of working a way), so the app does not receive and
- * parse it all for them.
+ * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing): PostgreSQL cuts
+ * the few figures the page shows out of the whole answer (about 1.4 kB of working a way).
  */
 const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object(
   'summary', jsonb_build_object('connectedLoadW', j#>'{summary,connectedLoadW}', 'maxDemandA', j#>'{summary,maxDemandA}',
@@ -467,9 +466,8 @@ const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object
 
 /**
  * The review page's read, in one statement: the caller's organisation's board (404 otherwise),
- * its stored sizing cut to what the page shows, and the issue facts with the comments. Null
- * when the stored sizing is older than the board: the caller then reads it the long way, which
- * sizes the board (or its site) again and stores it.
+ * its stored sizing cut (`SIZING_CUT`), the issue facts and comments. Null when the stored
+ * sizing is older than the board (the caller reads it the long way, which sizes it again).
  */
 export async function readReviewSource(
   actor: Actor,

@@ -10,7 +10,6 @@ import { Organisation } from '@/models';
 
 /** The caller's organisation's settings. */
 export async function getOrganisationSettings(actor: Actor): Promise<OrganisationSettings> {
-  db();
   const org = await Organisation.findByPk(actor.organisationId);
   if (!org) throw notFound('The organisation');
   return { name: org.name, allowSelfIssue: org.allowSelfIssue };

@@ -47,11 +47,7 @@ export type TreeWritePlan = {
   feed: BoardFeed | null;
 };
 
-/**
- * The site of a board of the caller's organisation, locked for a write of the board (404 for
- * another organisation's board): see lib/dal/site-tree.ts lockSiteForWrite; `tree`: the write
- * links a board.
- */
+/** The site of the caller's organisation's board (else 404), locked as lib/dal/site-tree.ts lockSiteForWrite says. */
 export async function lockSiteOfBoard(
   actor: Actor,
   boardId: string,
@@ -335,9 +331,8 @@ export async function afterBoardRemoval(
 }
 
 /**
- * After a deleted or archived board came back: when the site is a tree (an origin, or boards
- * fed from ways), the site is re-sized so that the board is sized against the origin now, not
- * with what was carried to it before it left.
+ * After a deleted or archived board came back, the site of a tree is re-sized: the board is
+ * sized with what is carried to it now, not with what was carried before it left.
  */
 export async function afterBoardReturn(
   actor: Actor,

@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { mayRestore, siteRemoval } from '@/lib/boards/record-rules';
@@ -38,8 +38,7 @@ export async function listSites(actor: Actor, opts: { archived?: boolean } = {})
 
 /** One site of the caller's organisation, or 404. */
 export async function findSite(actor: Actor, siteId: string): Promise<Site> {
-  const where: WhereOptions = { id: siteId, organisationId: actor.organisationId };
-  const site = await Site.findOne({ where });
+  const site = await Site.findOne({ where: { id: siteId, organisationId: actor.organisationId } });
   if (!site) throw notFound('The site');
   return site;
 }
@@ -84,7 +83,6 @@ function lockedSite(actor: Actor, siteId: string, transaction: Transaction): Pro
  * only). The site row is locked, and so are its boards, so that no save lands half-way.
  */
 export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSummary> {
-  await findSite(actor, siteId);
   await db().transaction(async (transaction) => {
     const site = await lockedSite(actor, siteId, transaction);
     if (!site) throw notFound('The site');
