@@ -9,8 +9,8 @@ import { audit } from '@/lib/dal/audit';
 import { findBoard, wayOnBoard } from '@/lib/dal/board-repository';
 import { assertNotArchived, findWritableBoard } from '@/lib/dal/boards';
 import { badRequest, forbidden } from '@/lib/errors';
-import { Comment, User } from '@/models';
-import type { CommentDto } from '@/lib/boards/review-types';
+import { AuditEvent, Comment, User } from '@/models';
+import type { CommentDto, ReturnNotes } from '@/lib/boards/review-types';
 
 export function commentDto(c: Comment & { author?: User }): CommentDto {
   return {
@@ -94,4 +94,31 @@ export async function answerComments(
     }
     return { answered: open.length };
   });
+}
+
+/**
+ * The review of a board that was returned for its current revision and is a draft again: who
+ * returned it and when, and the comments of that revision still open (the designer marks
+ * them answered). Null when the board was not returned, or every comment is answered.
+ */
+export async function getReturnNotes(actor: Actor, boardId: string): Promise<ReturnNotes | null> {
+  const board = await findBoard(actor, boardId);
+  if (board.status !== 'draft') return null;
+  const returned = await AuditEvent.findOne({
+    where: { boardId, organisationId: actor.organisationId, action: 'review.returned' },
+    order: [['id', 'DESC']],
+  });
+  if (!returned || Number(returned.details.revision) !== board.revision) return null;
+  const comments = await commentsOf(boardId, board.revision);
+  const open = comments.filter((c) => !c.answeredAt);
+  if (!open.length) return null;
+  const who = returned.userId ? await User.findByPk(returned.userId, { attributes: ['name'] }) : null;
+  return {
+    revision: board.revision,
+    returnedByName: who?.name ?? 'A former member',
+    returnedAt: returned.createdAt.toISOString(),
+    reasons: open.filter((c) => !c.wayId),
+    wayComments: open.filter((c) => c.wayId),
+    answered: comments.length - open.length,
+  };
 }

@@ -9,7 +9,7 @@ import { can } from '@/lib/auth/permissions';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
 import { readBoard, readBoardFrame } from '@/lib/dal/board-repository';
-import { getReturnNotes } from '@/lib/dal/return-notes';
+import { getReturnNotes } from '@/lib/dal/comments';
 import { HttpError } from '@/lib/errors';
 
 import { LabelFindings } from './_components/label-findings';
