@@ -17,19 +17,7 @@ import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import type { ReviewRequestedFacts } from '@/lib/mail/templates';
 import { nameWaysIn } from '@/lib/names';
-
-/** One way that stops a board going for review, as the refusal lists it. */
-export type FailingWay = {
-  wayId: string;
-  /** The way reference (e.g. "3" or "2L1"), null for a device without one. */
-  label: string | null;
-  serves: string;
-  /** The messages of the checks it fails. */
-  problems: string[];
-};
-
-/** A board-level check that fails (incoming device, busbar, modules, poles). */
-export type FailingBoardCheck = { code: string; message: string; reference: string };
+import type { FailingBoardCheck, FailingWay } from '@/lib/boards/review-types';
 
 /**
  * Sends a draft board for review: the stored board is sized again, and a board with a failing

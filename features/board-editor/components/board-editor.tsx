@@ -22,10 +22,10 @@ import { toast } from 'sonner';
 import { layoutWays } from '@/lib/boards/layout';
 import { drawRails, railCapacities } from '@/lib/boards/rail';
 import type { BoardDto } from '@/lib/boards/types';
-import type { ReturnNotes } from '@/lib/boards/review-types';
+import type { FailingWay, ReturnNotes } from '@/lib/boards/review-types';
 import type { DeviceOnRail } from '@/lib/sizing';
 
-import { submitForReview, type RefusedWay } from '../api/board-editor-api';
+import { submitForReview } from '../api/board-editor-api';
 import { useBoardSave } from '../hooks/use-board-save';
 import { clearStoredDraft, readStoredDraft, useDraftPersistence } from '../hooks/use-draft-persistence';
 import { LiveSizing } from '../hooks/use-live-sizing';
@@ -214,7 +214,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   // Sending for review: save first, then ask the server
   const [submitting, setSubmitting] = useState(false);
   const [confirmingSubmit, setConfirmingSubmit] = useState(false);
-  const [refusal, setRefusal] = useState<{ message: string; failing: RefusedWay[] } | null>(null);
+  const [refusal, setRefusal] = useState<{ message: string; failing: FailingWay[] } | null>(null);
   const sendForReview = async () => {
     setSubmitting(true);
     try {
