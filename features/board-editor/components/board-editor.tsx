@@ -16,6 +16,7 @@ import {
   type DragStartEvent,
 } from '@dnd-kit/core';
 import { sortableKeyboardCoordinates } from '@dnd-kit/sortable';
+import { useMutation } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
@@ -212,17 +213,16 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   }, []);
 
   // Sending for review: save first, then ask the server
-  const [submitting, setSubmitting] = useState(false);
   const [confirmingSubmit, setConfirmingSubmit] = useState(false);
   const [refusal, setRefusal] = useState<{ message: string; failing: FailingWay[] } | null>(null);
-  const sendForReview = async () => {
-    setSubmitting(true);
-    try {
+  const sendForReview = useMutation({
+    mutationFn: async () => {
       if (useBoardDraftStore.getState().dirty && !(await save())) {
-        toast.error('Save the board first; it could not be saved just now.');
-        return;
+        throw new Error('Save the board first; it could not be saved just now.');
       }
-      const outcome = await submitForReview(board.id, useBoardDraftStore.getState().baseVersion);
+      return submitForReview(board.id, useBoardDraftStore.getState().baseVersion);
+    },
+    onSuccess: (outcome) => {
       if (outcome.kind === 'sent') {
         clearStoredDraft(board.id);
         useBoardDraftStore.getState().load(editorBoard(outcome.board));
@@ -232,12 +232,9 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
       } else {
         toast.error(outcome.message);
       }
-    } catch (err) {
-      toast.error((err as Error).message);
-    } finally {
-      setSubmitting(false);
-    }
-  };
+    },
+    onError: (err) => toast.error(err.message),
+  });
 
   const savePhase = useSaveStore((s) => s.phase);
   const feedChanges = useSaveStore((s) => s.feedChanges);
@@ -279,7 +276,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
           canEdit={!readOnly}
           canSubmit={can.submit && status === 'draft'}
           readOnlyReason={readOnlyReason}
-          submitting={submitting}
+          submitting={sendForReview.isPending}
           onSave={() => void save()}
           onSubmit={() => setConfirmingSubmit(true)}
         />
@@ -343,7 +340,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
           onClose={() => setConfirmingSubmit(false)}
           onConfirm={() => {
             setConfirmingSubmit(false);
-            void sendForReview();
+            sendForReview.mutate();
           }}
         />
         <ReviewRefusalDialog
