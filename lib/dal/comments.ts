@@ -40,18 +40,14 @@ export async function commentsOf(boardId: string, revision?: number): Promise<Co
   return rows.map(commentDto);
 }
 
-/** Whoever may comment: the reviewers, and the designers answering them. */
-function mayComment(actor: Actor): boolean {
-  return can(actor.role, 'boards.review') || can(actor.role, 'boards.edit');
-}
-
 /** Adds a comment on the board (wayId null) or on one of its ways, for the board's current revision. */
 export async function addComment(
   actor: Actor,
   boardId: string,
   input: { wayId?: string | null; body: string },
 ): Promise<CommentDto> {
-  if (!mayComment(actor)) throw forbidden('comment on boards');
+  // Whoever may comment: the reviewers, and the designers answering them
+  if (!can(actor.role, 'boards.review') && !can(actor.role, 'boards.edit')) throw forbidden('comment on boards');
   const created = await db().transaction(async (transaction) => {
     const board = await findBoard(actor, boardId, { transaction });
     await assertNotArchived(board, transaction);
