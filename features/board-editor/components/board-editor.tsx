@@ -73,11 +73,7 @@ const collision: CollisionDetection = (args) => {
   return closestCorners(args);
 };
 
-/**
- * The board editor: the drawn board, the device tray, the way panel and the board summary,
- * wired to the draft store; live sizing, saving with conflict handling, the kept draft and
- * undo shortcuts run in hooks beside it.
- */
+/** The board editor: its parts wired to the draft store; sizing, saving, the kept draft and undo run in hooks. */
 export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = null }: BoardEditorProps) {
   const loadedId = useBoardDraftStore((s) => s.boardId);
   const status = useBoardDraftStore((s) => s.status);

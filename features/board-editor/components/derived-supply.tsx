@@ -75,12 +75,9 @@ function derivedOf(tree: SiteTreeDto | undefined, boardId: string): Derived | nu
 }
 
 /**
- * Where the board's supply comes from, shown on the editor: fed from the site's origin, or
- * "Fed from Workshop DB1, way 3L2" with the values carried down to it (earth fault loop
- * impedance, prospective fault current, volt drop used above it), greyed because they are
- * derived, each with its working on hover or focus. An editor can choose the feeding way here
- * (asked first, naming the boards that change). After a change upstream it says which of its
- * ways changed verdict (from the board's history).
+ * Where the board's supply comes from, with the values carried down to it (greyed: derived,
+ * each with its working on hover or focus). An editor may choose the feeding way here (asked
+ * first); after a change upstream it says which ways changed verdict (from the board's history).
  */
 export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
   const queryClient = useQueryClient();

@@ -16,10 +16,8 @@ const numberOrNull = { setValueAs: (v: string) => (v === '' || v === null ? null
 const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefined ? undefined : Number(v)) } as const;
 
 /**
- * The device of the selected way, a view over the draft (`useDraftForm`): rating (chosen by
- * the sizing or fixed), curve, breaking capacity and residual current, validated with the
- * engine's deviceOnRailSchema. Its kind and width stay as dropped: a different device is a new
- * one from the tray.
+ * The device of the selected way, a view over the draft (`useDraftForm`) validated with the
+ * engine's deviceOnRailSchema. Its kind and width stay as dropped: another device comes from the tray.
  */
 export const DeviceForm = memo(function DeviceForm({ wayId, readOnly }: DeviceFormProps) {
   const device = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId)?.device) as DeviceOnRail;

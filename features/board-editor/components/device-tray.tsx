@@ -87,9 +87,8 @@ const choicesOf = (e: TrayEntry) =>
   ] as const;
 
 /**
- * The device tray: one chip per kind of device, showing the variant it will drop. The chip
- * picked (click or Enter) shows its variant choices below; drag a chip onto the board, or use
- * "Add to the board" to put it at the first place it fits.
+ * The device tray: one chip per kind, showing the variant it will drop; the chip picked shows
+ * its choices. Drag a chip onto the board, or "Add to the board" puts it where it first fits.
  */
 export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose, onAdd }: DeviceTrayProps) {
   const entry = trayEntry(active, boardPhases);

@@ -24,9 +24,8 @@ function Meta({ comment }: { comment: CommentDto }) {
 }
 
 /**
- * A returned board's review, in the editor: who returned it and why at the top, then each way
- * comment with its way (a click selects the way), until the designer marks them answered.
- * E-mail links open the editor at #review-notes.
+ * A returned board's review, in the editor, until the designer marks it answered: who returned
+ * it and why, then each way's comments. E-mail links open the editor at #review-notes.
  */
 export function ReviewNotes({
   boardId,

@@ -56,16 +56,12 @@ async function saveAttempt(boardId: string, settle: (saved: boolean) => void): P
 }
 
 /**
- * Saving the draft: `save()` on demand and on its own a few seconds after the last change, as
- * a mutation. Saves of a board run one at a time in order (the mutation's scope), each saving
- * the draft as it is when it runs. A save names the version the draft builds on; when someone
- * else saved first the save store goes to `conflict` and waits for the designer:
- * `reloadTheirs()` drops this draft for the stored board, `keepMine()` saves this draft on top
- * of theirs. A save that fails because the server is out of reach keeps the draft (in memory
- * and session storage), says so, and is tried again by the mutation's `retry`, waiting longer
- * each time. A save that would take away a way feeding other boards goes to `feeds` and waits:
- * `confirmFeeds()` saves with those boards fed from the origin, `holdFeeds()` keeps editing.
- * `save()` answers after its first attempt: whether the draft is saved now.
+ * Saving the draft, as a mutation: `save()` on demand and on its own a few seconds after the
+ * last change. Saves of a board run one at a time in order (the mutation's scope), each saving
+ * the draft as it is when it runs. A stale version waits in `conflict` (`reloadTheirs()`,
+ * `keepMine()`), a save taking feeding ways in `feeds` (`confirmFeeds()`, `holdFeeds()`); a
+ * server out of reach keeps the draft and is retried, waiting longer each time. `save()`
+ * answers after its first attempt: whether the draft is saved now.
  */
 export function useBoardSave(boardId: string, enabled: boolean) {
   const { mutate } = useMutation({
