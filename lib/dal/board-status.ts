@@ -20,15 +20,11 @@ import { nameWaysIn } from '@/lib/names';
 import type { FailingBoardCheck, FailingWay } from '@/lib/boards/review-types';
 
 /**
- * Sends a draft board for review: the stored board is sized again, and a board with a failing
- * way is refused (422, listing the ways). A failing board-level check (incoming device against
- * the maximum demand, busbar, modules) does not stop it: the inspector judges it, and the
- * e-mail names it. Otherwise, in one
- * transaction with the board row locked, the status goes from draft to in review, the version
- * moves on (so an editor still holding the old one cannot overwrite the board under review),
- * the change is audited and every active inspector of the organisation is sent an e-mail
- * through the outbox. `expectedVersion`, when given, must be the stored version (409 if not),
- * so what goes for review is what the designer saw.
+ * Sends a draft board for review, with its row locked: the stored board is sized again, and a
+ * failing way refuses it (422, listing the ways); a failing board-level check does not (the
+ * inspector judges it, and the e-mail names it). The version moves on, so an editor holding the
+ * old one cannot overwrite the board under review; the inspectors are e-mailed through the
+ * outbox. `expectedVersion` (409 if stale) makes what goes for review what the designer saw.
  */
 export async function submitBoard(actor: Actor, boardId: string, expectedVersion?: number): Promise<BoardDto> {
   return db().transaction(async (transaction) => {

@@ -157,11 +157,9 @@ export async function renameBoard(
 export type RemovalAnswer = { feedChanges: FeedChange[]; ripple: SiteRipple | null };
 
 /**
- * A removal (delete or archive, as `decide` says once the row is locked) of a board of a supply
- * tree (lib/dal/site-feed.ts beforeBoardRemoval says what a designer expects): the boards fed
- * from this board's ways named in a 409 unless `confirmFeedChanges`; confirmed, they go back to
- * the origin and the whole site is re-sized in the same transaction. The version moves on, so
- * an editor still open cannot save the board.
+ * A removal (delete or archive, as `decide` says once the row is locked), with the site's tree
+ * as lib/dal/site-feed.ts beforeBoardRemoval says. The version moves on, so an editor still
+ * open cannot save the board.
  */
 async function takeOff(
   actor: Actor,
@@ -269,13 +267,11 @@ export const restoreBoard = (actor: Actor, boardId: string) => bringBack(actor, 
 export const undeleteBoard = (actor: Actor, boardId: string) => bringBack(actor, boardId, 'deleted');
 
 /**
- * Saves the whole board at the version the editor opened, in one transaction with the board
- * row locked (concurrent saves queue on it, and every one after the first finds a newer
- * version): a stale save gets 409 with the current version and nothing is written. Removed
- * ways go, new ones are inserted (a new way's id that exists anywhere is refused: no way of
- * another board is ever touched), moved or changed ones are written and lose their label
- * check; a way left as it was is not written, so it keeps its label check. Saving an issued
- * board (labels matched or not) starts the next draft revision.
+ * Saves the whole board at the version the editor opened, with the board row locked
+ * (concurrent saves queue on it; every one after the first is stale: 409, nothing written).
+ * Only the ways that changed are written (they lose their label check); a new way's id that
+ * exists anywhere is refused, so no way of another board is touched. Saving an issued board
+ * starts the next draft revision.
  */
 export async function saveBoard(
   actor: Actor,

@@ -19,11 +19,9 @@ import { BoardRevision, Comment, Organisation } from '@/models';
 import type { BoardStatus } from '@/models/board';
 
 /**
- * Approves a board in review: it becomes issued with the next revision number, and the
- * board and its sizing are frozen in a BoardRevision with the issuer's declaration (their
- * name, typed). Someone other than the last person to change the design issues it, unless
- * the organisation allows self-issue. A board with failing ways is issued only when the
- * reviewer says so. The designers are e-mailed.
+ * Approves a board in review: issued with the next revision number, the board and its sizing
+ * frozen in a BoardRevision with the issuer's typed declaration. Not by the last to change the
+ * design unless self-issue is allowed; failing ways only when the reviewer confirms. The designers are e-mailed.
  */
 export async function approveBoard(
   actor: Actor,

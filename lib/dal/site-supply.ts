@@ -105,10 +105,9 @@ export async function setBoardFeed(
 }
 
 /**
- * What the tree gives a draft of a board (the editor's unsaved edits, sized by the board's
- * sizing route; the stored board sent for review, issued or printed): the supply carried to it
- * (null: its typed supply), the way it is carried from when the tree could follow the feed, and
- * the design current of each of its ways that feeds a board. 404 for another organisation's board.
+ * What the tree gives a draft of a board (unsaved edits, or the stored board sent for review,
+ * issued or printed): the supply carried to it (null: its typed supply), where it is fed from,
+ * and the design current of each of its ways that feeds a board. 404 for another organisation's.
  */
 export async function draftTreeContext(
   actor: Actor,
