@@ -2,7 +2,7 @@ import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { settingsOf } from '@/lib/boards/schemas';
 import { transition } from '@/lib/boards/lifecycle';
 import { sizeDesign } from '@/lib/boards/size-design';
@@ -50,7 +50,7 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     }
 
     // Every failing way and board-level check, in rail order with its way reference
-    const labels = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+    const labels = wayLabelMap(board.phases, ways);
     const byId = new Map(ways.map((w) => [w.id, w]));
     const failing: FailingWay[] = sized.ways
       .filter((w) => w.result?.verdict === 'fails')

@@ -1,7 +1,7 @@
 import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { labelCheckEvent, labelsEvent, transition } from '@/lib/boards/lifecycle';
 import { labelTextOf } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
@@ -37,7 +37,7 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
     readWayRows(boardId),
     listAttachments(actor, boardId),
   ]);
-  const refs = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+  const refs = wayLabelMap(board.phases, ways);
   const names = await memberNames(ways.map((w) => w.labelCheckedById));
   // The ways come in rail order
   const walkWays = ways.map((w) => ({
@@ -119,7 +119,7 @@ export async function labelProblems(
   boardId: string,
 ): Promise<{ wayId: string; ref: string | null; status: 'wrong' | 'missing'; note: string }[]> {
   const board = await readBoard(actor, boardId);
-  const refs = new Map(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  const refs = wayLabelMap(board.phases, board.ways);
   return board.ways
     .filter((w) => w.labelStatus === 'wrong' || w.labelStatus === 'missing')
     .map((w) => ({

@@ -4,7 +4,7 @@ import { Op, type Transaction } from 'sequelize';
 
 import { can } from '@/lib/auth/permissions';
 import type { LifecycleNotice, LifecycleStep } from '@/lib/boards/lifecycle';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { renderNotice, type MailComment, type NoticeFacts } from '@/lib/mail/templates';
@@ -66,7 +66,7 @@ export async function revisionComments(board: BoardRecord, transaction: Transact
     transaction,
   });
   const ways = await readWays(board.id, transaction);
-  const refs = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+  const refs = wayLabelMap(board.phases, ways);
   return comments.map((c) => ({
     wayId: c.wayId,
     wayRef: c.wayId ? (refs.get(c.wayId) ?? null) : null,

@@ -2,7 +2,7 @@ import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { issueRefusal } from '@/lib/boards/record-rules';
 import type { ReviewSource } from '@/lib/boards/review-page-data';
 import type { IssuePreview, ReviewData } from '@/lib/boards/review-types';
@@ -43,7 +43,7 @@ function reviewOf(
   sizing: ReviewSource['sizing'],
   sizingIssues: FieldIssue[],
 ): Omit<ReviewSource, 'revisions'> {
-  const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  const refs = Object.fromEntries(wayLabelMap(board.phases, board.ways));
   const counts = sizing?.summary.counts;
   const issue: IssuePreview = {
     revision: revisionAfter(board.revision, facts.lastIssued),

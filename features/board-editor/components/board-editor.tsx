@@ -20,7 +20,7 @@ import { useMutation } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { drawRails, railCapacities } from '@/lib/boards/rail';
 import type { BoardDto } from '@/lib/boards/types';
 import type { FailingWay, ReturnNotes } from '@/lib/boards/review-types';
@@ -149,7 +149,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     const { settings, ways, removeWay, undo } = useBoardDraftStore.getState();
     const way = ways.find((w) => w.id === id);
     if (!way || !settings) return;
-    const label = layoutWays(settings.phases, ways).find((p) => p.id === id)?.label;
+    const label = wayLabelMap(settings.phases, ways).get(id);
     removeWay(id);
     toast(`Removed ${wayName(way, label ?? null)}.`, {
       action: { label: 'Undo', onClick: () => undo() },

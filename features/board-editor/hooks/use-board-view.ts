@@ -2,7 +2,7 @@
 
 import { createContext, useContext, useMemo } from 'react';
 
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
@@ -30,7 +30,7 @@ export function useWayLabels(): Map<string, string | null> {
   const settings = useBoardDraftStore((s) => s.settings);
   const ways = useBoardDraftStore((s) => s.ways);
   return useMemo(
-    () => new Map(settings ? layoutWays(settings.phases, ways).map((p) => [p.id, p.label]) : []),
+    () => (settings ? wayLabelMap(settings.phases, ways) : new Map<string, string | null>()),
     [settings, ways],
   );
 }

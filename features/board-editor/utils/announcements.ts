@@ -1,6 +1,6 @@
 import type { Announcements, ScreenReaderInstructions } from '@dnd-kit/core';
 
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import type { BoardSettings } from '@/lib/boards/schemas';
 
 import type { EditorWay } from '../types/draft';
@@ -30,7 +30,7 @@ export function boardAnnouncements(
     if (!active || !settings) return { name: 'the device', movingId: null };
     if (active.from === 'tray') return { name: `a new ${deviceWords(active.device)}`, movingId: null };
     const way = ways.find((w) => w.id === active.wayId);
-    const label = layoutWays(settings.phases, ways).find((p) => p.id === active.wayId)?.label;
+    const label = wayLabelMap(settings.phases, ways).get(active.wayId);
     const name = way ? `${label ? `way ${label}, ` : ''}${deviceWords(way.device)}` : 'the way';
     return { name, movingId: active.wayId };
   };
@@ -48,7 +48,7 @@ export function boardAnnouncements(
     }
     if (target.stays)
       return past ? `${name} was put down where it was; nothing changed.` : `${name} would stay where it is.`;
-    const labels = new Map(layoutWays(settings.phases, ways).map((p) => [p.id, p.label]));
+    const labels = wayLabelMap(settings.phases, ways);
     const rail = settings.rails > 1 ? ` of rail ${target.rail + 1}` : '';
     const named = (id: string) =>
       wayName(
