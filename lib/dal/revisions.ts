@@ -13,10 +13,13 @@ import { BoardRevision, User } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { RevisionSummary } from '@/lib/boards/review-types';
 
-/** The issued revisions of a board, newest first. */
-export async function listRevisions(actor: Actor, boardId: string): Promise<RevisionSummary[]> {
-  await findBoard(actor, boardId);
-  return revisionsOf(boardId);
+/** The issued revisions of a board, newest first, and the board's current stage. */
+export async function listRevisions(
+  actor: Actor,
+  boardId: string,
+): Promise<{ revisions: RevisionSummary[]; current: { status: BoardStatus; revision: number } }> {
+  const { status, revision } = await findBoard(actor, boardId);
+  return { revisions: await revisionsOf(boardId), current: { status, revision } };
 }
 
 /** The issued revisions of a board, newest first, for a caller who has already read the board. */
@@ -98,13 +101,4 @@ export async function getRevisionDiff(
 ): Promise<{ from: number; to: number; toIsLive: boolean; diff: RevisionDiff }> {
   const [a, b] = await Promise.all([getRevision(actor, boardId, from), getRevision(actor, boardId, to)]);
   return { from: a.revision, to: b.revision, toIsLive: to === 'current', diff: diffRevisions(a.snapshot, b.snapshot) };
-}
-
-/** The board's status and revision, for pages that only need those. */
-export async function boardStage(
-  actor: Actor,
-  boardId: string,
-): Promise<{ status: BoardStatus; revision: number; name: string }> {
-  const board = await findBoard(actor, boardId);
-  return { status: board.status, revision: board.revision, name: board.name };
 }
