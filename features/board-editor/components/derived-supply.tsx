@@ -59,19 +59,8 @@ const changedSinceIssue = (status: BoardDto['status'], change: SupplyChange | nu
 /** What the tree carried to this board, in the shape the board's own record keeps it. */
 function derivedOf(tree: SiteTreeDto | undefined, boardId: string): Derived | null {
   const b = tree?.boards.find((x) => x.boardId === boardId);
-  if (!tree || !b || !b.supply || (!b.fedFrom && !tree.origin)) return null;
-  return {
-    from: b.fedFrom ? 'way' : 'origin',
-    supply: b.supply,
-    fedFrom: b.fedFrom,
-    phase: b.phase,
-    zdb: b.zdb,
-    pfc: b.pfc,
-    vdUsed: b.vdUsed,
-    subMainCurrent: b.subMainCurrent,
-    problem: b.problem,
-    treeVersion: tree.treeVersion,
-  };
+  if (!tree || !b?.supply || (!b.fedFrom && !tree.origin)) return null;
+  return { ...b, supply: b.supply, from: b.fedFrom ? 'way' : 'origin', treeVersion: tree.treeVersion };
 }
 
 /**

@@ -202,12 +202,7 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     if (problem) return refuse(set, problem);
     const ways = placeWay(state.ways, way, rail, index);
     // Dropped back where it was: no undo step (both lists are in rail order)
-    const unchanged =
-      ways.length === state.ways.length &&
-      ways.every(
-        (w, i) => w.id === state.ways[i].id && w.rail === state.ways[i].rail && w.position === state.ways[i].position,
-      );
-    if (unchanged) return { ok: true };
+    if (sameValue(ways, state.ways)) return { ok: true };
     set({ ...commit(state, { ways }), notice: null });
     return { ok: true };
   },
@@ -220,10 +215,8 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
   },
 
   updateCircuit: (id, circuit, key) => {
-    const state = get();
-    const way = state.ways.find((w) => w.id === id);
-    if (!way) return;
-    set(setWayPart(state, way, 'circuit', circuit, key));
+    const way = get().ways.find((w) => w.id === id);
+    if (way) set(setWayPart(get(), way, 'circuit', circuit, key));
   },
 
   updateDevice: (id, device, key) => {
