@@ -91,15 +91,11 @@ export async function recordLabel(
       );
     }
     // Record the result, then every way's result after it
-    const check = { labelStatus: input.status, labelNote: input.note?.trim() ?? '', labelCheckedById: actor.userId };
-    const statuses = await writeLabelCheck(boardId, wayId, { ...check, labelCheckedAt: new Date() }, transaction);
+    const [status, note] = [input.status, input.note?.trim() ?? ''];
+    const check = { labelStatus: status, labelNote: note, labelCheckedById: actor.userId, labelCheckedAt: new Date() };
+    const statuses = await writeLabelCheck(boardId, wayId, check, transaction);
     // The audit trail keeps every check with its note (a later revision may remove the way)
-    await audit(
-      actor,
-      'label.checked',
-      { wayId, status: input.status, note: input.note?.trim() ?? '', revision: board.revision },
-      { boardId, transaction },
-    );
+    await audit(actor, 'label.checked', { wayId, status, note, revision: board.revision }, { boardId, transaction });
     // Labels matched when every label matches; back to issued otherwise (lib/boards/lifecycle.ts)
     const progress = walkProgress(statuses);
     const step = transition(board.status, labelsEvent(statuses), { revision: board.revision });

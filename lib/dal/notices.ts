@@ -42,8 +42,7 @@ async function designers(board: BoardRecord, transaction: Transaction): Promise<
         where: { organisationId: board.organisationId, role: 'designer', active: true },
         transaction,
       });
-  const byEmail = new Map(all.map((u) => [u.email, { email: u.email, name: u.name }]));
-  return [...byEmail.values()];
+  return all.map((u) => ({ email: u.email, name: u.name }));
 }
 
 /** Every active inspector of the board's organisation. */
