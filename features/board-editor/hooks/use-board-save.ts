@@ -26,30 +26,27 @@ const passing = (err: unknown) =>
  */
 async function saveAttempt(boardId: string, settle: (saved: boolean) => void): Promise<void> {
   const { settings, ways, baseVersion, dirty } = useBoardDraftStore.getState();
-  const { phase, confirmFeeds } = useSaveStore.getState();
+  // The save store's `set` is one function for the store's life
+  const { phase, confirmFeeds, set: tell } = useSaveStore.getState();
   if (!settings || !dirty || phase === 'conflict' || phase === 'feeds' || phase === 'locked') return settle(!dirty);
   const snapshot = { settings, ways };
-  useSaveStore.getState().set({ phase: 'saving', message: null, confirmFeeds: false });
+  tell({ phase: 'saving', message: null, confirmFeeds: false });
   try {
     const outcome = await saveDraft(boardId, baseVersion, snapshot, confirmFeeds);
     if (outcome.kind === 'saved') {
       useBoardDraftStore.getState().markSaved(outcome.board.version, snapshot, outcome.board.status);
       if (!useBoardDraftStore.getState().dirty) clearStoredDraft(boardId);
-      useSaveStore.getState().set({ phase: 'saved', savedAt: Date.now(), message: null });
+      tell({ phase: 'saved', message: null });
     } else if (outcome.kind === 'feed-changes') {
-      useSaveStore
-        .getState()
-        .set({ phase: 'feeds', feedChanges: outcome.feedChanges, message: outcome.message, savedAt: null });
+      tell({ phase: 'feeds', feedChanges: outcome.feedChanges, message: outcome.message });
     } else if (outcome.kind === 'conflict') {
-      useSaveStore.getState().set({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
+      tell({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
     } else {
-      useSaveStore.getState().set({ phase: 'locked', message: outcome.message });
+      tell({ phase: 'locked', message: outcome.message });
     }
     settle(outcome.kind === 'saved' && !useBoardDraftStore.getState().dirty);
   } catch (err) {
-    useSaveStore
-      .getState()
-      .set({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
+    tell({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
     settle(false);
     throw err;
   }

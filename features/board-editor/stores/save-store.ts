@@ -13,7 +13,6 @@ type SaveState = {
   message: string | null;
   /** The stored version when a save met a conflict ("keep mine" saves on top of it). */
   theirVersion: number | null;
-  savedAt: number | null;
   /** In `feeds`: the boards whose feeding way the save takes (they would be fed from the origin). */
   feedChanges: FeedChange[] | null;
   /** The designer agreed to those feed changes: the next save sends `confirmFeedChanges`. */
@@ -26,7 +25,6 @@ const initial = {
   phase: 'idle' as SavePhase,
   message: null,
   theirVersion: null,
-  savedAt: null,
   feedChanges: null,
   confirmFeeds: false,
 };
