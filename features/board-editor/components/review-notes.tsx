@@ -3,7 +3,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { MessageSquare } from 'lucide-react';
 import { useRouter } from 'next/navigation';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef } from 'react';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
@@ -41,8 +41,6 @@ export function ReviewNotes({
   const ways = useBoardDraftStore((s) => s.ways);
   const select = useBoardDraftStore((s) => s.select);
   const section = useRef<HTMLElement>(null);
-  // Answered: the notes go at once; the page's data follows with the refresh
-  const [answered, setAnswered] = useState(false);
   useEffect(() => {
     if (window.location.hash === '#review-notes') section.current?.scrollIntoView({ block: 'start' });
   }, []);
@@ -53,13 +51,13 @@ export function ReviewNotes({
         [...notes.reasons, ...notes.wayComments].map((c) => c.id),
       ),
     onSuccess: () => {
-      setAnswered(true);
       toast.success('Review comments marked answered.');
       router.refresh();
     },
   });
   const serves = (wayId: string | null) => ways.find((w) => w.id === wayId)?.circuit?.serves;
-  if (answered) return null;
+  // Answered: the notes go at once; the page's data follows with the refresh
+  if (answer.isSuccess) return null;
   return (
     <section
       id="review-notes"
