@@ -3,12 +3,12 @@ import 'server-only';
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { wayLabelMap } from '@/lib/boards/layout';
-import { issueRefusal } from '@/lib/boards/record-rules';
+import { issueRefusal, revisionAfter } from '@/lib/boards/record-rules';
 import type { ReviewSource } from '@/lib/boards/review-page-data';
 import type { IssuePreview, ReviewData } from '@/lib/boards/review-types';
 import type { BoardDto } from '@/lib/boards/types';
 import { readBoardAndSizing, readIssueFacts, readReviewSource, type IssueFacts } from '@/lib/dal/board-repository';
-import { revisionAfter, revisionsOf } from '@/lib/dal/revisions';
+import { revisionsOf } from '@/lib/dal/revisions';
 import type { FieldIssue } from '@/lib/errors';
 
 /**

@@ -3,6 +3,7 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
+import { revisionAfter } from '@/lib/boards/record-rules';
 import { diffRevisions, type BoardSnapshot, type RevisionDiff } from '@/lib/boards/revision-diff';
 import { sizeDesign } from '@/lib/boards/size-design';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
@@ -43,11 +44,6 @@ export async function nextRevision(board: BoardRecord, transaction?: Transaction
   const last =
     ((await BoardRevision.max('revision', { where: { boardId: board.id }, transaction })) as number | null) ?? 0;
   return revisionAfter(board.revision, last);
-}
-
-/** The revision a board at `revision` would be issued as, when `lastIssued` (0: none) was issued last. */
-export function revisionAfter(revision: number, lastIssued: number): number {
-  return Math.max(revision, lastIssued + 1);
 }
 
 /** One state of a board: an issued revision, or the live board ('current'). */
