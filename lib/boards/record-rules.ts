@@ -1,7 +1,7 @@
 /**
  * The rules that keep Boardwright's records: what removing a site or a board does, who may
- * issue a board and as which revision, and when the walk asks before a label check changes a board's state (the change
- * itself is in lib/boards/lifecycle.ts). Pure functions over plain
+ * issue a board and as which revision, and when the walk asks before a label check changes a
+ * board's state (the change itself is in lib/boards/lifecycle.ts). Pure functions over plain
  * facts, so the DAL (which gathers the facts under a lock) and the UI (which explains them
  * before the click) answer the same, and the unit tests cover them directly.
  */
