@@ -116,6 +116,19 @@ const archivedJson = (table: string, through: 'board' | 'site') =>
   `json_build_object('at', ${isoSql(`${table}.archived_at`)}, 'byName', COALESCE(${table}_by.name, 'A former member'),
      'through', '${through}')`;
 
+/** The `ArchiveState` of boards row `b`: archived itself, else through its site (with `ARCHIVE_JOINS`). */
+const ARCHIVED_JSON = `CASE WHEN b.archived_at IS NOT NULL THEN ${archivedJson('b', 'board')}
+  WHEN s.archived_at IS NOT NULL THEN ${archivedJson('s', 'site')} END`;
+const ARCHIVE_JOINS = `JOIN sites s ON s.id = b.site_id
+  LEFT JOIN users b_by ON b_by.id = b.archived_by_id LEFT JOIN users s_by ON s_by.id = s.archived_by_id`;
+
+/** A board's archive state, for its pages (the "archived" banner) and for refusals. */
+export async function readArchiveState(boardId: string, transaction?: Transaction): Promise<ArchiveState> {
+  const sql = `SELECT ${ARCHIVED_JSON} AS archived FROM boards b ${ARCHIVE_JOINS} WHERE b.id = $1`;
+  const [row] = await select<{ archived: ArchiveState }>(sql, [boardId], transaction);
+  return row?.archived ?? null;
+}
+
 /**
  * The frame of the caller's organisation's board (404 otherwise), in one statement: archived
  * through the board itself, else through its site. A board's layout and its page both ask for
@@ -123,11 +136,7 @@ const archivedJson = (table: string, through: 'board' | 'site') =>
  */
 export const readBoardFrame = cache(async (actor: Actor, boardId: string): Promise<BoardFrame> => {
   const rows = await select<BoardFrame>(
-    `SELECT b.status, b.revision, b.site_id AS "siteId",
-       CASE WHEN b.archived_at IS NOT NULL THEN ${archivedJson('b', 'board')}
-         WHEN s.archived_at IS NOT NULL THEN ${archivedJson('s', 'site')} END AS archived
-     FROM boards b JOIN sites s ON s.id = b.site_id
-       LEFT JOIN users b_by ON b_by.id = b.archived_by_id LEFT JOIN users s_by ON s_by.id = s.archived_by_id
+    `SELECT b.status, b.revision, b.site_id AS "siteId", ${ARCHIVED_JSON} AS archived FROM boards b ${ARCHIVE_JOINS}
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );

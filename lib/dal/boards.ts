@@ -18,6 +18,7 @@ import { latestEventDetails, type AuditAction } from '@/lib/dal/audit';
 import {
   findBoard,
   insertBoard,
+  readArchiveState,
   readBoard,
   readBoardSummaries,
   readWays,
@@ -37,8 +38,7 @@ import { lockSite, type SiteLock } from '@/lib/dal/site-tree';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
 import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
-import { BoardRevision, Site, User } from '@/models';
-import type { ArchiveState } from '@/lib/boards/review-types';
+import { BoardRevision } from '@/models';
 
 /** The organisation's boards for the lists, optionally of one site (404 for another's site). */
 export async function listBoards(
@@ -49,23 +49,9 @@ export async function listBoards(
   return readBoardSummaries(actor, opts);
 }
 
-/** A board's archive state, for its pages (the "archived" banner) and for refusals. */
-export async function archiveStateOf(board: BoardRecord, transaction?: Transaction): Promise<ArchiveState> {
-  let at = board.archivedAt;
-  let by = board.archivedById;
-  let through: 'board' | 'site' = 'board';
-  if (!at) {
-    const site = await Site.findByPk(board.siteId, { attributes: ['archivedAt', 'archivedById'], transaction });
-    if (!site?.archivedAt) return null;
-    [at, by, through] = [site.archivedAt, site.archivedById, 'site'];
-  }
-  const who = by ? await User.findByPk(by, { attributes: ['name'], transaction }) : null;
-  return { at: at.toISOString(), byName: who?.name ?? 'A former member', through };
-}
-
 /** 409 for any change to an archived board (or a board on an archived site): it is read-only. */
 export async function assertNotArchived(board: BoardRecord, transaction?: Transaction): Promise<void> {
-  const state = await archiveStateOf(board, transaction);
+  const state = await readArchiveState(board.id, transaction);
   if (state) {
     throw conflict(
       state.through === 'site'
@@ -205,7 +191,7 @@ export async function removeBoard(actor: Actor, boardId: string, opts: { confirm
   return takeOff(actor, boardId, opts, async (board, transaction) => {
     const rule = boardRemoval(actor.role, {
       everIssued: await everIssued(boardId, transaction),
-      archived: (await archiveStateOf(board, transaction)) !== null,
+      archived: (await readArchiveState(board.id, transaction)) !== null,
     });
     if (rule.refused) throw new HttpError(rule.status, rule.message);
     return rule.effect === 'delete' ? 'deleted' : 'archived';
