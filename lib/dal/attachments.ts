@@ -129,20 +129,16 @@ export async function openAttachment(
  */
 export async function deleteAttachment(actor: Actor, id: string): Promise<{ effect: 'deleted' | 'withdrawn' }> {
   const row = await findAttachment(actor, id);
+  const { boardId, wayId } = row;
   const effect = await db().transaction(async (transaction) => {
-    await findWritableBoard(actor, row.boardId, transaction);
+    await findWritableBoard(actor, boardId, transaction);
     if (row.withdrawnAt) throw notFound('The photo');
-    if (await everIssued(row.boardId, transaction)) {
+    if (await everIssued(boardId, transaction)) {
       await row.update({ withdrawnAt: new Date(), withdrawnById: actor.userId }, { transaction });
-      await audit(
-        actor,
-        'attachment.withdrawn',
-        { attachmentId: id, wayId: row.wayId },
-        { boardId: row.boardId, transaction },
-      );
+      await audit(actor, 'attachment.withdrawn', { attachmentId: id, wayId }, { boardId, transaction });
       return 'withdrawn' as const;
     }
-    await audit(actor, 'attachment.deleted', { attachmentId: id }, { boardId: row.boardId, transaction });
+    await audit(actor, 'attachment.deleted', { attachmentId: id }, { boardId, transaction });
     await row.destroy({ transaction });
     return 'deleted' as const;
   });

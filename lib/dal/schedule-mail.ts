@@ -19,23 +19,19 @@ export async function emailSchedule(
   source: Pick<ScheduleSource, 'boardId' | 'revision' | 'snapshot' | 'frozen' | 'boardUrl'>,
   input: { to: string; message?: string; pdf: Uint8Array; fileName: string },
 ): Promise<{ id: string; status: 'queued' }> {
-  await findBoard(actor, source.boardId);
+  const { boardId, revision } = source;
+  await findBoard(actor, boardId);
   const content = scheduleMail({
     boardUrl: source.boardUrl,
     boardName: source.snapshot.settings.name,
     siteName: source.snapshot.siteName,
-    revision: source.revision,
+    revision,
     frozen: source.frozen,
     senderName: actor.name,
     message: input.message,
   });
   return queuePdfMail(actor, { ...input, ...content }, (mailId, transaction) =>
-    audit(
-      actor,
-      'schedule.emailed',
-      { mailId, to: input.to, revision: source.revision },
-      { boardId: source.boardId, transaction },
-    ),
+    audit(actor, 'schedule.emailed', { mailId, to: input.to, revision }, { boardId, transaction }),
   );
 }
 
