@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { Op, type Transaction } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 
 import { can } from '@/lib/auth/permissions';
 import type { LifecycleNotice, LifecycleStep } from '@/lib/boards/lifecycle';
@@ -29,30 +29,18 @@ async function designers(board: BoardRecord, transaction: Transaction): Promise<
     transaction,
   });
   const ids = [board.createdById, last?.userId].filter((id): id is string => !!id);
-  const people = ids.length
-    ? await User.findAll({
-        where: { id: { [Op.in]: ids }, organisationId: board.organisationId, active: true },
-        transaction,
-      })
-    : [];
+  const people = await activeMembers(board, { id: { [Op.in]: ids } }, transaction);
   const chosen = people.filter((u) => can(u.role, 'boards.edit'));
-  const all = chosen.length
-    ? chosen
-    : await User.findAll({
-        where: { organisationId: board.organisationId, role: 'designer', active: true },
-        transaction,
-      });
-  return all.map((u) => ({ email: u.email, name: u.name }));
+  return chosen.length ? chosen : activeMembers(board, { role: 'designer' }, transaction);
 }
 
-/** Every active inspector of the board's organisation. */
-async function inspectors(board: BoardRecord, transaction: Transaction): Promise<Recipient[]> {
-  const rows = await User.findAll({
-    where: { organisationId: board.organisationId, role: 'inspector', active: true },
-    attributes: ['email', 'name'],
+/** The active members of the board's organisation that `where` picks, as recipients. */
+async function activeMembers(board: BoardRecord, where: WhereOptions<User>, transaction: Transaction) {
+  const users = await User.findAll({
+    where: { ...where, organisationId: board.organisationId, active: true },
     transaction,
   });
-  return rows.map((u) => ({ email: u.email, name: u.name }));
+  return users.map((u) => ({ email: u.email, name: u.name, role: u.role }));
 }
 
 /** The comments of the board's current revision, oldest first, as the e-mails list them. */
@@ -90,8 +78,9 @@ export async function queueNotices(
   for (const { template, to } of step.notify) {
     const f = facts[template];
     if (!f) throw new Error(`The facts of the ${template} e-mail were not gathered`);
-    for (const person of await (to === 'inspectors' ? inspectors : designers)(board, transaction))
-      mails.push({ template, facts: f, to: person });
+    const people =
+      to === 'inspectors' ? activeMembers(board, { role: 'inspector' }, transaction) : designers(board, transaction);
+    for (const { email, name } of await people) mails.push({ template, facts: f, to: { email, name } });
   }
   if (!mails.length) return;
   transaction.afterCommit(async () => {
