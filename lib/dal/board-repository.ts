@@ -110,7 +110,7 @@ export async function findBoard(
 }
 
 /** What every page of one board shows around it: its status, revision, site and archive state. */
-export type BoardFrame = { status: BoardStatus; revision: number; siteId: string; archived: ArchiveState };
+type BoardFrame = { status: BoardStatus; revision: number; siteId: string; archived: ArchiveState };
 
 const archivedJson = (table: string, through: 'board' | 'site') =>
   `json_build_object('at', ${isoSql(`${table}.archived_at`)}, 'byName', COALESCE(${table}_by.name, 'A former member'),
@@ -150,7 +150,7 @@ export async function readWays(boardId: string, transaction?: Transaction): Prom
 }
 
 /** One event of the audit trail, of the board written. */
-export type BoardEvent = { action: AuditAction; details: Record<string, unknown> };
+type BoardEvent = { action: AuditAction; details: Record<string, unknown> };
 
 /**
  * One write of a board, in the caller's transaction with the row locked (`findBoard` with
@@ -237,7 +237,7 @@ const ENGINE_SETTINGS = new Set([
 ]);
 
 /** A stored sizing: the engine's answer as JSON text (null when it refused), or its issues. */
-export type StoredSizing = { json: string | null; issues: FieldIssue[] };
+type StoredSizing = { json: string | null; issues: FieldIssue[] };
 
 /** Sizes the board as read and stores it for its version (an older stored sizing is replaced). */
 async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<StoredSizing> {
@@ -504,7 +504,7 @@ export async function readReviewSource(
 }
 
 /** One issued revision's print facts as `readIssuedPrintRows` reads them. */
-export type IssuedPrintRow = {
+type IssuedPrintRow = {
   status: BoardStatus;
   boardRevision: number;
   revision: number | null;

@@ -12,7 +12,7 @@ import { badRequest, forbidden } from '@/lib/errors';
 import { AuditEvent, Comment, User } from '@/models';
 import type { CommentDto, ReturnNotes } from '@/lib/boards/review-types';
 
-export function commentDto(c: Comment & { author?: User }): CommentDto {
+function commentDto(c: Comment & { author?: User }): CommentDto {
   return {
     id: c.id,
     wayId: c.wayId,

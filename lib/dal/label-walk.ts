@@ -18,7 +18,7 @@ import type { LabelStatus } from '@/models/way';
 import type { WalkProgress, WalkData } from '@/lib/boards/walk-types';
 
 /** Counts of a walk's results. */
-export function walkProgress(statuses: LabelStatus[]): WalkProgress {
+function walkProgress(statuses: LabelStatus[]): WalkProgress {
   const count = (s: LabelStatus) => statuses.filter((x) => x === s).length;
   return {
     total: statuses.length,

@@ -17,7 +17,7 @@ import { Invitation, Organisation, User } from '@/models';
 import type { Member } from '@/lib/members/types';
 
 /** Invitations are valid for a week. */
-export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
+const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 
 const hashToken = (token: string) => crypto.createHash('sha256').update(token).digest('hex');
 

@@ -10,7 +10,7 @@ import { enqueueMail } from '@/lib/mail/outbox';
 import { renderNotice, type MailComment, type NoticeFacts } from '@/lib/mail/templates';
 import { AuditEvent, Comment, User } from '@/models';
 
-export type Recipient = { email: string; name: string };
+type Recipient = { email: string; name: string };
 
 /**
  * Who gets the review e-mails: the designer who made the board and the last designer

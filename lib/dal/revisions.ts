@@ -47,7 +47,7 @@ export async function nextRevision(board: BoardRecord, transaction?: Transaction
 }
 
 /** One state of a board: an issued revision, or the live board ('current'). */
-export type RevisionState = {
+type RevisionState = {
   revision: number;
   issued: { at: string; byName: string } | null;
   snapshot: BoardSnapshot;

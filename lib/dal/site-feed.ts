@@ -39,7 +39,7 @@ export type TreeWriteRequest = {
 };
 
 /** What `beforeTreeWrite` found, for `afterTreeWrite`. */
-export type TreeWritePlan = {
+type TreeWritePlan = {
   site: SiteLock;
   /** Boards that go back to the origin, and why. */
   detach: FeedChange[];

@@ -28,7 +28,7 @@ const bodyField = (err: ApiError, name: string): unknown => (err.body as Record<
  * How a save ended: saved, someone else saved first (with their version), the save would take
  * a feeding way from other boards (asked first: they would be fed from the origin), or refused.
  */
-export type SaveOutcome =
+type SaveOutcome =
   | { kind: 'saved'; board: BoardDto }
   | { kind: 'conflict'; theirVersion: number; message: string }
   | { kind: 'feed-changes'; feedChanges: FeedChange[]; message: string }
@@ -67,7 +67,7 @@ export async function saveDraft(
 }
 
 /** How sending for review ended. */
-export type SubmitOutcome =
+type SubmitOutcome =
   | { kind: 'sent'; board: BoardDto }
   | { kind: 'refused'; message: string; failing: FailingWay[] }
   | { kind: 'conflict'; message: string };

@@ -53,7 +53,7 @@ import { SubmitConfirmDialog } from './submit-confirm-dialog';
 import { WayPanel } from './way-panel';
 
 /** What the signed-in member may do on this board (the server checks each again). */
-export type EditorAbilities = { edit: boolean; size: boolean; submit: boolean };
+type EditorAbilities = { edit: boolean; size: boolean; submit: boolean };
 
 type BoardEditorProps = {
   board: BoardDto;

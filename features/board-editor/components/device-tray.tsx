@@ -28,7 +28,7 @@ type DeviceTrayProps = {
 };
 
 /** The tray id of a kind's draggable chip. */
-export const trayDragId = (kind: TrayKind) => `tray:${kind}`;
+const trayDragId = (kind: TrayKind) => `tray:${kind}`;
 
 function TrayChip({
   kind,

@@ -14,7 +14,7 @@ import { clearStoredDraft } from './use-draft-persistence';
 /** Quiet time after the last change before the draft saves itself, ms. */
 export const AUTOSAVE_MS = 3000;
 /** First wait before a failed save is tried again; it doubles each time, up to a minute. */
-export const RETRY_FIRST_MS = 5000;
+const RETRY_FIRST_MS = 5000;
 
 /** A failure that may pass on its own: the server not reached, or not able to answer just now. */
 const passing = (err: unknown) =>

@@ -7,7 +7,7 @@ import { wayLabelMap } from '@/lib/boards/layout';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
 /** How the drawn board is shown, from the editor: its parts read it rather than taking props. */
-export type BoardView = {
+type BoardView = {
   readOnly: boolean;
   showVerdicts: boolean;
   /** Why the device being dragged would not fit where it is, if it would not. */

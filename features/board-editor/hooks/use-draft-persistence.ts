@@ -16,7 +16,7 @@ const storedDraftSchema = z.object({
 });
 
 /** An unsaved draft kept in this browser tab, and the version it was built on. */
-export type StoredDraft = DraftSnapshot & { baseVersion: number };
+type StoredDraft = DraftSnapshot & { baseVersion: number };
 
 /** The session-storage key of a board's unsaved draft. */
 export function draftKey(boardId: string): string {

@@ -12,7 +12,7 @@ import { sameValue } from '../utils/same-value';
 export const UNDO_LIMIT = 100;
 
 /** A refusal the editor shows (and reads out) once. */
-export type EditorNotice = { message: string };
+type EditorNotice = { message: string };
 
 type State = {
   boardId: string | null;
@@ -67,7 +67,7 @@ type Actions = {
   reset: () => void;
 };
 
-export type BoardDraftState = State & Actions;
+type BoardDraftState = State & Actions;
 
 const initial: State = {
   boardId: null,

@@ -6,7 +6,7 @@ import type { FeedChange } from '@/lib/sites/tree-types';
  * Where saving stands. `conflict`: someone else saved first; `feeds`: the save would take the
  * way feeding other boards and waits for the designer; `locked`: the board may not be saved now.
  */
-export type SavePhase = 'idle' | 'saving' | 'saved' | 'failed' | 'conflict' | 'feeds' | 'locked';
+type SavePhase = 'idle' | 'saving' | 'saved' | 'failed' | 'conflict' | 'feeds' | 'locked';
 
 type SaveState = {
   phase: SavePhase;

@@ -13,7 +13,7 @@ export type OverData =
   { to: 'free'; rail: number } | { to: 'bin' } | { from: 'rail'; wayId: string; rail: number } | undefined;
 
 /** Where a drop would put the device: a place on a rail, the bin, or nowhere. */
-export type DropTarget =
+type DropTarget =
   | { kind: 'place'; rail: number; index: number; beforeId: string | null; afterId?: string; stays?: boolean }
   | { kind: 'bin' }
   | null;
