@@ -5,12 +5,17 @@ import { memo } from 'react';
 import { SelectField } from '@/components/ui/field';
 import { deviceOnRailSchema, isProtectiveDevice, STANDARD_RATINGS_A, type DeviceOnRail } from '@/lib/sizing';
 
-import { BREAKING_KA } from '../utils/circuit-options';
 import { trayEntry, type TrayKind } from '../utils/device-catalogue';
 import { useDraftForm } from '../hooks/use-draft-form';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
 type DeviceFormProps = { wayId: string; readOnly: boolean };
+
+/**
+ * Rated breaking capacities offered for circuit-breakers, kA (common BS EN 60898-1 values,
+ * from memory; the manufacturer's figure is the one that counts).
+ */
+const BREAKING_KA = [3, 4.5, 6, 10, 15, 25] as const;
 
 const numberOrNull = { setValueAs: (v: string) => (v === '' || v === null ? null : Number(v)) } as const;
 const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefined ? undefined : Number(v)) } as const;
