@@ -199,17 +199,8 @@ export async function afterTreeWrite(
 ): Promise<SiteRipple> {
   if (plan.feed) await writeFeed(actor, board.id, plan.feed, {}, transaction);
   for (const c of plan.detach) {
-    await writeFeed(
-      actor,
-      c.boardId,
-      ORIGIN,
-      {
-        reason: c.reason,
-        was: fedFromWords(c.from),
-        note: `The way of ${board.name} that fed this board was removed; it is now fed from the origin.`,
-      },
-      transaction,
-    );
+    const note = `The way of ${board.name} that fed this board was removed; it is now fed from the origin.`;
+    await writeFeed(actor, c.boardId, ORIGIN, { reason: c.reason, was: fedFromWords(c.from), note }, transaction);
   }
   return resizeSite(actor, plan.site, transaction, {
     writtenBoardId: board.id,
@@ -296,36 +287,16 @@ export async function afterBoardRemoval(
   transaction: Transaction,
 ): Promise<SiteRipple | null> {
   if (!plan.detach.length && !plan.ownFeed) return null;
+  const reason = 'board-removed';
   for (const c of plan.detach) {
-    await writeFeed(
-      actor,
-      c.boardId,
-      ORIGIN,
-      {
-        reason: 'board-removed',
-        removedBoard: board.name,
-        effect,
-        was: fedFromWords(c.from),
-        note: `${board.name}, which fed this board, was ${effect}; it is now fed from the origin.`,
-      },
-      transaction,
-    );
+    const note = `${board.name}, which fed this board, was ${effect}; it is now fed from the origin.`;
+    const details = { reason, removedBoard: board.name, effect, was: fedFromWords(c.from), note };
+    await writeFeed(actor, c.boardId, ORIGIN, details, transaction);
   }
   if (plan.ownFeed) {
     const was = fedFromWords(plan.ownFeed);
-    await writeFeed(
-      actor,
-      board.id,
-      ORIGIN,
-      {
-        reason: 'board-removed',
-        self: true,
-        effect,
-        was,
-        note: `This board was ${effect}, so it no longer takes its supply from ${was}; brought back, it is fed from the origin.`,
-      },
-      transaction,
-    );
+    const note = `This board was ${effect}, so it no longer takes its supply from ${was}; brought back, it is fed from the origin.`;
+    await writeFeed(actor, board.id, ORIGIN, { reason, self: true, effect, was, note }, transaction);
   }
   return resizeSite(actor, plan.site, transaction, { writtenBoardId: board.id, cause: `${board.name} was ${effect}` });
 }
@@ -364,27 +335,19 @@ async function takeUpFeeds(
   for (const r of relinks) {
     const target = byId.get(r.boardId);
     if (!target || target.feed.from !== 'origin') continue;
+    // Each history entry says which board came back and where the feed was
     const was = fedFromWords(feedingWay(byId, r.feed));
+    const returned = { reason: 'board-returned', returnedBoard: board.name, was };
     try {
       await checkFeed(actor, { ...target, siteId: board.siteId }, r.feed, byId, transaction);
     } catch (err) {
       if (!(err instanceof HttpError)) throw err;
       const why = err.status === 404 ? 'the way that fed it is gone' : err.message;
-      await audit(
-        actor,
-        'board.feed-changed',
-        { feed: ORIGIN, reason: 'board-returned', kept: true, was, returnedBoard: board.name, why },
-        { boardId: target.id, transaction },
-      );
+      const details = { feed: ORIGIN, ...returned, kept: true, why };
+      await audit(actor, 'board.feed-changed', details, { boardId: target.id, transaction });
       continue;
     }
-    await writeFeed(
-      actor,
-      target.id,
-      r.feed,
-      { reason: 'board-returned', returnedBoard: board.name, was },
-      transaction,
-    );
+    await writeFeed(actor, target.id, r.feed, returned, transaction);
     byId.set(target.id, { ...target, feed: r.feed });
   }
 }
