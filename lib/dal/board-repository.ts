@@ -178,12 +178,7 @@ export async function writeBoard(
       ? await beforeTreeWrite(
           actor,
           { id: boardId, siteId: board.siteId, name: write.set?.name ?? board.name, phases: board.phases },
-          {
-            ways: write.ways,
-            phases: write.set?.phases,
-            feed: write.feed,
-            confirmFeedChanges: write.confirmFeedChanges,
-          },
+          { ...write, phases: write.set?.phases },
           transaction,
         )
       : null;
@@ -320,12 +315,8 @@ export async function insertBoard(
     { transaction },
   );
   const ways = { remove: [], insert: [], update: [] };
-  return writeBoard(
-    actor,
-    created.get({ plain: true }) as BoardRecord,
-    { ways, feed: input.feed, events },
-    transaction,
-  );
+  const record = created.get({ plain: true }) as BoardRecord;
+  return writeBoard(actor, record, { ways, feed: input.feed, events }, transaction);
 }
 
 /**

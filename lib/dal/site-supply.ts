@@ -94,12 +94,8 @@ export async function setBoardFeed(
     await lockSiteOfBoard(actor, boardId, transaction, { tree: input.feed.from === 'way' });
     const row = await findBoard(actor, boardId, { transaction, lock: true });
     await assertSavable(row, input.version, transaction);
-    return writeBoard(
-      actor,
-      row,
-      { events: [], feed: input.feed, confirmFeedChanges: input.confirmFeedChanges, out },
-      transaction,
-    );
+    const { feed, confirmFeedChanges } = input;
+    return writeBoard(actor, row, { events: [], feed, confirmFeedChanges, out }, transaction);
   });
   return { board, ripple: out.ripple };
 }

@@ -98,18 +98,15 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
     const live = boards.filter((b) => !b.deletedAt && !b.archivedAt);
     const boardNames = live.map((b) => ({ id: b.id, name: b.name }));
     // The site's trail, and each board's own trail too
-    await auditMany(
-      actor,
-      [
-        { action: 'site.archived', details: { siteId, name: site.name, boards: boardNames }, boardId: null },
-        ...live.map((b) => ({
-          action: 'board.archived' as const,
-          details: { name: b.name, revision: b.revision, siteId, site: site.name },
-          boardId: b.id,
-        })),
-      ],
-      { transaction },
-    );
+    const events = [
+      { action: 'site.archived' as const, details: { siteId, name: site.name, boards: boardNames }, boardId: null },
+      ...live.map((b) => ({
+        action: 'board.archived' as const,
+        details: { name: b.name, revision: b.revision, siteId, site: site.name },
+        boardId: b.id,
+      })),
+    ];
+    await auditMany(actor, events, { transaction });
   });
   return getSite(actor, siteId);
 }
@@ -123,18 +120,15 @@ export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSum
     if (!site?.archivedAt) throw conflict('This site is not archived.');
     await site.update({ archivedAt: null, archivedById: null }, { transaction });
     const boards = await readSiteBoardRecords(siteId, { transaction, live: true });
-    await auditMany(
-      actor,
-      [
-        { action: 'site.restored', details: { siteId, name: site.name }, boardId: null },
-        ...boards.map((b) => ({
-          action: 'board.restored' as const,
-          details: { name: b.name, siteId, site: site.name },
-          boardId: b.id,
-        })),
-      ],
-      { transaction },
-    );
+    const events = [
+      { action: 'site.restored' as const, details: { siteId, name: site.name }, boardId: null },
+      ...boards.map((b) => ({
+        action: 'board.restored' as const,
+        details: { name: b.name, siteId, site: site.name },
+        boardId: b.id,
+      })),
+    ];
+    await auditMany(actor, events, { transaction });
   });
   return getSite(actor, siteId);
 }

@@ -44,12 +44,9 @@ export function ReviewNotes({
   useEffect(() => {
     if (window.location.hash === '#review-notes') section.current?.scrollIntoView({ block: 'start' });
   }, []);
+  const ids = [...notes.reasons, ...notes.wayComments].map((c) => c.id);
   const answer = useMutation({
-    mutationFn: () =>
-      markCommentsAnswered(
-        boardId,
-        [...notes.reasons, ...notes.wayComments].map((c) => c.id),
-      ),
+    mutationFn: () => markCommentsAnswered(boardId, ids),
     onSuccess: () => {
       toast.success('Review comments marked answered.');
       router.refresh();
