@@ -50,11 +50,8 @@ export function boardAnnouncements(
       return past ? `${name} was put down where it was; nothing changed.` : `${name} would stay where it is.`;
     const labels = wayLabelMap(settings.phases, ways);
     const rail = settings.rails > 1 ? ` of rail ${target.rail + 1}` : '';
-    const named = (id: string) =>
-      wayName(
-        ways.find((w) => w.id === id)!,
-        labels.get(id) ?? null,
-      );
+    const wayOf = (id: string) => ways.find((w) => w.id === id)!;
+    const named = (id: string) => wayName(wayOf(id), labels.get(id));
     const spot = target.afterId
       ? `after ${named(target.afterId)}${rail}`
       : target.beforeId
