@@ -71,6 +71,11 @@ export function layoutWays(phases: 1 | 3, ways: readonly LayoutWay[]): WayPlace[
   return places;
 }
 
+/** Each way's printed reference (null for a device without one), by way id. */
+export function wayLabelMap(phases: 1 | 3, ways: readonly LayoutWay[]): Map<string, string | null> {
+  return new Map(layoutWays(phases, ways).map((p) => [p.id, p.label]));
+}
+
 /** Phase positions a board's ways take (three-phase) or ways (single-phase). */
 export function positionsUsed(phases: 1 | 3, ways: readonly LayoutWay[]): number {
   const places = layoutWays(phases, ways);

@@ -1,7 +1,7 @@
 /**
  * The rules that keep Boardwright's records: what removing a site or a board does, who may
- * issue a board, and when the walk asks before a label check changes a board's state (the change
- * itself is in lib/boards/lifecycle.ts). Pure functions over plain
+ * issue a board and as which revision, and when the walk asks before a label check changes a
+ * board's state (the change itself is in lib/boards/lifecycle.ts). Pure functions over plain
  * facts, so the DAL (which gathers the facts under a lock) and the UI (which explains them
  * before the click) answer the same, and the unit tests cover them directly.
  */
@@ -75,6 +75,11 @@ export function issueRefusal(facts: {
     message:
       'You made the last change to this design, so someone else must issue it (an admin may allow self-issue in the organisation’s settings).',
   };
+}
+
+/** The revision a board at `revision` would be issued as, when `lastIssued` (0: none) was issued last. */
+export function revisionAfter(revision: number, lastIssued: number): number {
+  return Math.max(revision, lastIssued + 1);
 }
 
 /** Names compared as people type them: case, spacing and accents aside. */

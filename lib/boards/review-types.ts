@@ -1,4 +1,4 @@
-/** What the review, revisions and return notes answer: plain data, safe for the browser. */
+/** What the review, revisions, return notes and a refused review request answer: plain data, safe for the browser. */
 import type { Refusal } from '@/lib/boards/record-rules';
 import type { BoardDto } from '@/lib/boards/types';
 import type { FieldIssue } from '@/lib/errors';
@@ -79,3 +79,16 @@ export type ScheduleMail = {
 
 /** When and by whom a board was archived (itself, or through its site); null when it is not. */
 export type ArchiveState = { at: string; byName: string; through: 'board' | 'site' } | null;
+
+/** One way that stops a board going for review, as the refusal lists it. */
+export type FailingWay = {
+  wayId: string;
+  /** The way reference (e.g. "3" or "2L1"), null for a device without one. */
+  label: string | null;
+  serves: string;
+  /** The messages of the checks it fails. */
+  problems: string[];
+};
+
+/** A board-level check that fails (incoming device, busbar, modules, poles). */
+export type FailingBoardCheck = { code: string; message: string; reference: string };

@@ -5,7 +5,7 @@
  */
 import { deviceName } from '@/lib/names';
 
-import { layoutWays, railOrder } from './layout';
+import { railOrder, wayLabelMap } from './layout';
 import type { BoardSettings, WayInput } from './schemas';
 
 /** One way as frozen in a revision. */
@@ -158,7 +158,7 @@ function longestIncreasing(values: number[]): Set<number> {
 
 /** Way references of a snapshot's ways, by way id. */
 export function wayRefs(snapshot: Pick<BoardSnapshot, 'settings' | 'ways'>): Map<string, string | null> {
-  return new Map(layoutWays(snapshot.settings.phases, snapshot.ways).map((p) => [p.id, p.label]));
+  return wayLabelMap(snapshot.settings.phases, snapshot.ways);
 }
 
 function mention(way: SnapshotWay, ref: string | null): WayMention {

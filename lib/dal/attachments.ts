@@ -5,9 +5,9 @@ import crypto from 'node:crypto';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { wayOnBoard } from '@/lib/dal/board-repository';
+import { findBoard, wayOnBoard } from '@/lib/dal/board-repository';
 import { memberNames } from '@/lib/dal/members';
-import { assertNotArchived, everIssued, findBoard } from '@/lib/dal/boards';
+import { assertNotArchived, everIssued, findWritableBoard } from '@/lib/dal/boards';
 import { badRequest, notFound } from '@/lib/errors';
 import { MAX_PHOTO_BYTES, PHOTO_TYPES, sniffImageType, storedImages, tooLarge } from '@/lib/storage/photo-image';
 import { deleteObjects, getObjectStream, putObject } from '@/lib/storage/s3';
@@ -95,7 +95,6 @@ export async function listAttachments(actor: Actor, boardId: string): Promise<At
 }
 
 async function findAttachment(actor: Actor, id: string): Promise<Attachment> {
-  db();
   const row = await Attachment.findOne({ where: { id, organisationId: actor.organisationId } });
   if (!row) throw notFound('The photo');
   // A deleted draft board's photos go with it (until an undo brings them back)
@@ -130,21 +129,16 @@ export async function openAttachment(
  */
 export async function deleteAttachment(actor: Actor, id: string): Promise<{ effect: 'deleted' | 'withdrawn' }> {
   const row = await findAttachment(actor, id);
+  const { boardId, wayId } = row;
   const effect = await db().transaction(async (transaction) => {
-    const board = await findBoard(actor, row.boardId, { transaction, lock: true });
-    await assertNotArchived(board, transaction);
+    await findWritableBoard(actor, boardId, transaction);
     if (row.withdrawnAt) throw notFound('The photo');
-    if (await everIssued(row.boardId, transaction)) {
+    if (await everIssued(boardId, transaction)) {
       await row.update({ withdrawnAt: new Date(), withdrawnById: actor.userId }, { transaction });
-      await audit(
-        actor,
-        'attachment.withdrawn',
-        { attachmentId: id, wayId: row.wayId },
-        { boardId: row.boardId, transaction },
-      );
+      await audit(actor, 'attachment.withdrawn', { attachmentId: id, wayId }, { boardId, transaction });
       return 'withdrawn' as const;
     }
-    await audit(actor, 'attachment.deleted', { attachmentId: id }, { boardId: row.boardId, transaction });
+    await audit(actor, 'attachment.deleted', { attachmentId: id }, { boardId, transaction });
     await row.destroy({ transaction });
     return 'deleted' as const;
   });

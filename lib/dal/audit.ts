@@ -1,7 +1,7 @@
 import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { findBoard, readWays } from '@/lib/dal/board-repository';
 import { memberNames } from '@/lib/dal/members';
 import { AuditEvent } from '@/models';
@@ -130,7 +130,7 @@ export async function listAudit(
     actor.organisationId,
   );
   // Where: the current printed reference of each way named by an event
-  const labels = new Map(layoutWays(board.phases, await readWays(boardId)).map((p) => [p.id, p.label]));
+  const labels = wayLabelMap(board.phases, await readWays(boardId));
   return {
     entries: page.map((e) => {
       const wayId = typeof e.details?.wayId === 'string' ? e.details.wayId : null;

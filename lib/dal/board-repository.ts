@@ -112,11 +112,24 @@ export async function findBoard(
 }
 
 /** What every page of one board shows around it: its status, revision, site and archive state. */
-export type BoardFrame = { status: BoardStatus; revision: number; siteId: string; archived: ArchiveState };
+type BoardFrame = { status: BoardStatus; revision: number; siteId: string; archived: ArchiveState };
 
 const archivedJson = (table: string, through: 'board' | 'site') =>
   `json_build_object('at', ${isoSql(`${table}.archived_at`)}, 'byName', COALESCE(${table}_by.name, 'A former member'),
      'through', '${through}')`;
+
+/** The `ArchiveState` of boards row `b`: archived itself, else through its site (with `ARCHIVE_JOINS`). */
+const ARCHIVED_JSON = `CASE WHEN b.archived_at IS NOT NULL THEN ${archivedJson('b', 'board')}
+  WHEN s.archived_at IS NOT NULL THEN ${archivedJson('s', 'site')} END`;
+const ARCHIVE_JOINS = `JOIN sites s ON s.id = b.site_id
+  LEFT JOIN users b_by ON b_by.id = b.archived_by_id LEFT JOIN users s_by ON s_by.id = s.archived_by_id`;
+
+/** A board's archive state, for its pages (the "archived" banner) and for refusals. */
+export async function readArchiveState(boardId: string, transaction?: Transaction): Promise<ArchiveState> {
+  const sql = `SELECT ${ARCHIVED_JSON} AS archived FROM boards b ${ARCHIVE_JOINS} WHERE b.id = $1`;
+  const [row] = await select<{ archived: ArchiveState }>(sql, [boardId], transaction);
+  return row?.archived ?? null;
+}
 
 /**
  * The frame of the caller's organisation's board (404 otherwise), in one statement: archived
@@ -125,11 +138,7 @@ const archivedJson = (table: string, through: 'board' | 'site') =>
  */
 export const readBoardFrame = cache(async (actor: Actor, boardId: string): Promise<BoardFrame> => {
   const rows = await select<BoardFrame>(
-    `SELECT b.status, b.revision, b.site_id AS "siteId",
-       CASE WHEN b.archived_at IS NOT NULL THEN ${archivedJson('b', 'board')}
-         WHEN s.archived_at IS NOT NULL THEN ${archivedJson('s', 'site')} END AS archived
-     FROM boards b JOIN sites s ON s.id = b.site_id
-       LEFT JOIN users b_by ON b_by.id = b.archived_by_id LEFT JOIN users s_by ON s_by.id = s.archived_by_id
+    `SELECT b.status, b.revision, b.site_id AS "siteId", ${ARCHIVED_JSON} AS archived FROM boards b ${ARCHIVE_JOINS}
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );
@@ -143,7 +152,7 @@ export async function readWays(boardId: string, transaction?: Transaction): Prom
 }
 
 /** One event of the audit trail, of the board written. */
-export type BoardEvent = { action: AuditAction; details: Record<string, unknown> };
+type BoardEvent = { action: AuditAction; details: Record<string, unknown> };
 
 /**
  * One write of a board, in the caller's transaction with the row locked (`findBoard` with
@@ -171,12 +180,7 @@ export async function writeBoard(
       ? await beforeTreeWrite(
           actor,
           { id: boardId, siteId: board.siteId, name: write.set?.name ?? board.name, phases: board.phases },
-          {
-            ways: write.ways,
-            phases: write.set?.phases,
-            feed: write.feed,
-            confirmFeedChanges: write.confirmFeedChanges,
-          },
+          { ...write, phases: write.set?.phases },
           transaction,
         )
       : null;
@@ -240,7 +244,7 @@ export const sizingHash = (json: string | null): string | null =>
   json === null ? null : createHash('sha256').update(json).digest('hex');
 
 /** A stored sizing: the engine's answer as JSON text (null when it refused), or its issues. */
-export type StoredSizing = { json: string | null; issues: FieldIssue[] };
+type StoredSizing = { json: string | null; issues: FieldIssue[] };
 
 /** Sizes the board as read and stores it for its version (an older stored sizing is replaced). */
 async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<StoredSizing> {
@@ -262,57 +266,58 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   return stored;
 }
 
-/**
- * The caller's organisation's board's sizing (404 otherwise), as stored for its current
- * version: one statement. A board whose stored sizing is older (written before migration 0008,
- * or behind the app's back) is sized now and stored.
- */
-export async function readStoredSizing(actor: Actor, boardId: string, again = false): Promise<StoredSizing> {
-  const rows = await select<{ current: boolean; json: string | null; issues: FieldIssue[] | null }>(
-    `SELECT s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues FROM boards b
-     LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
-     WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
-    [boardId, actor.organisationId],
-  );
-  if (!rows.length) throw notFound('The board');
-  const [row] = rows;
-  if (row.current) return { json: row.json, issues: row.issues ?? [] };
-  const board = await readBoard(actor, boardId);
-  // A board of a site's tree: the whole site is re-sized (lib/dal/site-tree.ts)
-  if (!again && (await resizeSiteOfStaleBoard(actor, board))) return readStoredSizing(actor, boardId, true);
-  return storeSizing(board);
-}
+type SizingRow = { dto: string | null; current: boolean; json: string | null; issues: FieldIssue[] | null };
 
 /**
- * The caller's organisation's board (404 otherwise) and its stored sizing, in one statement:
- * for pages that show both. A stored sizing older than the board is sized now and stored.
+ * The caller's organisation's board's sizing (404 otherwise), as stored for its current
+ * version, with `withBoard` the board too: one statement. A board whose stored sizing is older
+ * (written before migration 0008, left pending by a change upstream, or written behind the app's
+ * back) is sized now and stored; a board of a site's tree, by re-sizing the whole site
+ * (lib/dal/site-tree.ts).
  */
-export async function readBoardAndSizing(
+async function readCurrentSizing(
   actor: Actor,
   boardId: string,
+  withBoard: boolean,
   again = false,
-): Promise<{ board: BoardDto; sized: SizedBoard }> {
-  const rows = await select<{ dto: string; current: boolean; json: string | null; issues: FieldIssue[] | null }>(
-    `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json, s.issues
+): Promise<{ board: BoardDto | null; stored: StoredSizing }> {
+  const [row] = await select<SizingRow>(
+    `SELECT ${withBoard ? BOARD_DTO_JSON : 'NULL'} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json,
+       s.issues
      FROM boards b LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );
-  if (!rows.length) throw notFound('The board');
-  const [row] = rows;
-  const board = JSON.parse(row.dto) as BoardDto;
-  // A board of a site's tree whose stored sizing is older: the whole site is re-sized (lib/dal/site-tree.ts)
-  if (!row.current && !again && (await resizeSiteOfStaleBoard(actor, board))) {
-    return readBoardAndSizing(actor, boardId, true);
-  }
-  const { json, issues } = row.current ? { json: row.json, issues: row.issues ?? [] } : await storeSizing(board);
-  return { board, sized: { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues } };
+  if (!row) throw notFound('The board');
+  const board = row.dto === null ? null : (JSON.parse(row.dto) as BoardDto);
+  if (row.current) return { board, stored: { json: row.json, issues: row.issues ?? [] } };
+  const stale = board ?? (await readBoard(actor, boardId));
+  if (!again && (await resizeSiteOfStaleBoard(actor, stale))) return readCurrentSizing(actor, boardId, withBoard, true);
+  return { board, stored: await storeSizing(stale) };
+}
+
+const parsedSizing = ({ json, issues }: StoredSizing): SizedBoard => ({
+  sizing: json === null ? null : (JSON.parse(json) as BoardResult),
+  issues,
+});
+
+/** The caller's organisation's board's stored sizing, as JSON text (see `readCurrentSizing`). */
+export async function readStoredSizing(actor: Actor, boardId: string): Promise<StoredSizing> {
+  return (await readCurrentSizing(actor, boardId, false)).stored;
 }
 
 /** The stored sizing of the caller's organisation's board, as the engine's result. */
 export async function readSizedBoard(actor: Actor, boardId: string): Promise<SizedBoard> {
-  const { json, issues } = await readStoredSizing(actor, boardId);
-  return { sizing: json === null ? null : (JSON.parse(json) as BoardResult), issues };
+  return parsedSizing(await readStoredSizing(actor, boardId));
+}
+
+/** The caller's organisation's board and its stored sizing, in one statement: for pages that show both. */
+export async function readBoardAndSizing(
+  actor: Actor,
+  boardId: string,
+): Promise<{ board: BoardDto; sized: SizedBoard }> {
+  const { board, stored } = await readCurrentSizing(actor, boardId, true);
+  return { board: board!, sized: parsedSizing(stored) };
 }
 
 /** A new board of the caller's organisation with its first audit events: it starts at version 1. */
@@ -327,12 +332,8 @@ export async function insertBoard(
     { transaction },
   );
   const ways = { remove: [], insert: [], update: [] };
-  return writeBoard(
-    actor,
-    created.get({ plain: true }) as BoardRecord,
-    { ways, feed: input.feed, events },
-    transaction,
-  );
+  const record = created.get({ plain: true }) as BoardRecord;
+  return writeBoard(actor, record, { ways, feed: input.feed, events }, transaction);
 }
 
 /**
@@ -467,9 +468,8 @@ const ISSUE_FACTS = `o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue"
     FROM comments c LEFT JOIN users u ON u.id = c.author_id WHERE c.board_id = $1), '[]'::json) AS comments`;
 
 /**
- * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing): PostgreSQL takes the few figures a page shows out
- * of the engine's whole answer (about 1.4 kB of working a way), so the app does not receive and
- * parse it all for them.
+ * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing): PostgreSQL cuts
+ * the few figures the page shows out of the whole answer (about 1.4 kB of working a way).
  */
 const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object(
   'summary', jsonb_build_object('connectedLoadW', j#>'{summary,connectedLoadW}', 'maxDemandA', j#>'{summary,maxDemandA}',
@@ -483,9 +483,8 @@ const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object
 
 /**
  * The review page's read, in one statement: the caller's organisation's board (404 otherwise),
- * its stored sizing cut to what the page shows, and the issue facts with the comments. Null
- * when the stored sizing is older than the board: the caller then reads it the long way, which
- * sizes the board (or its site) again and stores it.
+ * its stored sizing cut (`SIZING_CUT`), the issue facts and comments. Null when the stored
+ * sizing is older than the board (the caller reads it the long way, which sizes it again).
  */
 export async function readReviewSource(
   actor: Actor,
@@ -513,7 +512,7 @@ export async function readReviewSource(
 }
 
 /** One issued revision's print facts as `readIssuedPrintRows` reads them. */
-export type IssuedPrintRow = {
+type IssuedPrintRow = {
   status: BoardStatus;
   boardRevision: number;
   revision: number | null;

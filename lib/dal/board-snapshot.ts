@@ -12,11 +12,6 @@ import { withTreeContext } from '@/lib/sites/tree-context';
 import { fedFromWords } from '@/lib/names';
 import { Organisation, Site } from '@/models';
 
-export async function organisationName(actor: Actor, transaction?: Transaction): Promise<string> {
-  const org = await Organisation.findByPk(actor.organisationId, { attributes: ['name'], transaction });
-  return org?.name ?? '';
-}
-
 /**
  * The live board as a snapshot (what would be frozen if it were issued now). A board of a supply
  * tree is frozen as the tree sizes it (lib/dal/site-supply.ts draftTreeContext): with the supply
@@ -31,13 +26,13 @@ export async function liveSnapshot(
   // (from pg 9) a query sent while another is running on it
   const site = await Site.findByPk(board.siteId, { attributes: ['name'], transaction });
   const ways = await readWays(board.id, transaction);
-  const orgName = await organisationName(actor, transaction);
+  const org = await Organisation.findByPk(actor.organisationId, { attributes: ['name'], transaction });
   const tree = await draftTreeContext(actor, board.id, transaction);
   const design = withTreeContext({ settings: settingsOf(board), ways }, tree);
   return {
     settings: design.settings,
     siteName: site?.name ?? '',
-    organisationName: orgName,
+    organisationName: org?.name ?? '',
     ways: design.ways.map(wayInputOf),
     ...(tree.fedFrom ? { fedFrom: fedFromWords(tree.fedFrom) } : {}),
   };

@@ -2,14 +2,14 @@ import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { settingsOf } from '@/lib/boards/schemas';
 import { transition } from '@/lib/boards/lifecycle';
 import { sizeDesign } from '@/lib/boards/size-design';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
 import { readWays, writeBoard } from '@/lib/dal/board-repository';
-import { findWritableBoard } from '@/lib/dal/boards';
+import { assertVersion, findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices } from '@/lib/dal/notices';
 import { draftTreeContext } from '@/lib/dal/site-supply';
 import { withTreeContext } from '@/lib/sites/tree-context';
@@ -17,30 +17,14 @@ import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import type { ReviewRequestedFacts } from '@/lib/mail/templates';
 import { nameWaysIn } from '@/lib/names';
-
-/** One way that stops a board going for review, as the refusal lists it. */
-export type FailingWay = {
-  wayId: string;
-  /** The way reference (e.g. "3" or "2L1"), null for a device without one. */
-  label: string | null;
-  serves: string;
-  /** The messages of the checks it fails. */
-  problems: string[];
-};
-
-/** A board-level check that fails (incoming device, busbar, modules, poles). */
-export type FailingBoardCheck = { code: string; message: string; reference: string };
+import type { FailingBoardCheck, FailingWay } from '@/lib/boards/review-types';
 
 /**
- * Sends a draft board for review: the stored board is sized again, and a board with a failing
- * way is refused (422, listing the ways). A failing board-level check (incoming device against
- * the maximum demand, busbar, modules) does not stop it: the inspector judges it, and the
- * e-mail names it. Otherwise, in one
- * transaction with the board row locked, the status goes from draft to in review, the version
- * moves on (so an editor still holding the old one cannot overwrite the board under review),
- * the change is audited and every active inspector of the organisation is sent an e-mail
- * through the outbox. `expectedVersion`, when given, must be the stored version (409 if not),
- * so what goes for review is what the designer saw.
+ * Sends a draft board for review, with its row locked: the stored board is sized again, and a
+ * failing way refuses it (422, listing the ways); a failing board-level check does not (the
+ * inspector judges it, and the e-mail names it). The version moves on, so an editor holding the
+ * old one cannot overwrite the board under review; the inspectors are e-mailed through the
+ * outbox. `expectedVersion` (409 if stale) makes what goes for review what the designer saw.
  */
 export async function submitBoard(actor: Actor, boardId: string, expectedVersion?: number): Promise<BoardDto> {
   return db().transaction(async (transaction) => {
@@ -49,11 +33,7 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     const board = await findWritableBoard(actor, boardId, transaction);
     const step = transition(board.status, 'submit', { revision: board.revision });
     if (step.refused) throw conflict(step.message, { status: board.status, revision: board.revision });
-    if (expectedVersion !== undefined && board.version !== expectedVersion) {
-      throw conflict('Someone else saved this board after you opened it.', {
-        currentVersion: board.version,
-      });
-    }
+    assertVersion(board, expectedVersion);
     const ways = await readWays(boardId, transaction);
 
     // Size the stored board exactly as the sizing route does (with what the site's tree gives it)
@@ -70,7 +50,7 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     }
 
     // Every failing way and board-level check, in rail order with its way reference
-    const labels = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+    const labels = wayLabelMap(board.phases, ways);
     const byId = new Map(ways.map((w) => [w.id, w]));
     const failing: FailingWay[] = sized.ways
       .filter((w) => w.result?.verdict === 'fails')

@@ -18,11 +18,11 @@ import { latestEventDetails, type AuditAction } from '@/lib/dal/audit';
 import {
   findBoard,
   insertBoard,
+  readArchiveState,
   readBoard,
   readBoardSummaries,
   readWays,
   writeBoard,
-  type BoardEvent,
   type BoardRecord,
 } from '@/lib/dal/board-repository';
 import {
@@ -38,10 +38,7 @@ import { lockSite, type SiteLock } from '@/lib/dal/site-tree';
 import { findSite } from '@/lib/dal/sites';
 import { conflict, forbidden, HttpError } from '@/lib/errors';
 import type { FeedChange, SiteRipple } from '@/lib/sites/tree-types';
-import { BoardRevision, Site, User } from '@/models';
-import type { ArchiveState } from '@/lib/boards/review-types';
-
-export { findBoard, readBoard as getBoard, readBoardFrame } from '@/lib/dal/board-repository';
+import { BoardRevision } from '@/models';
 
 /** The organisation's boards for the lists, optionally of one site (404 for another's site). */
 export async function listBoards(
@@ -52,23 +49,9 @@ export async function listBoards(
   return readBoardSummaries(actor, opts);
 }
 
-/** A board's archive state, for its pages (the "archived" banner) and for refusals. */
-export async function archiveStateOf(board: BoardRecord, transaction?: Transaction): Promise<ArchiveState> {
-  let at = board.archivedAt;
-  let by = board.archivedById;
-  let through: 'board' | 'site' = 'board';
-  if (!at) {
-    const site = await Site.findByPk(board.siteId, { attributes: ['archivedAt', 'archivedById'], transaction });
-    if (!site?.archivedAt) return null;
-    [at, by, through] = [site.archivedAt, site.archivedById, 'site'];
-  }
-  const who = by ? await User.findByPk(by, { attributes: ['name'], transaction }) : null;
-  return { at: at.toISOString(), byName: who?.name ?? 'A former member', through };
-}
-
 /** 409 for any change to an archived board (or a board on an archived site): it is read-only. */
 export async function assertNotArchived(board: BoardRecord, transaction?: Transaction): Promise<void> {
-  const state = await archiveStateOf(board, transaction);
+  const state = await readArchiveState(board.id, transaction);
   if (state) {
     throw conflict(
       state.through === 'site'
@@ -111,7 +94,7 @@ async function changeBoard(
   opts: {
     deleted?: boolean;
     tree?: boolean;
-    after?: (board: BoardRecord, written: BoardDto, transaction: Transaction) => Promise<void>;
+    after?: (board: BoardRecord, transaction: Transaction) => Promise<unknown>;
   } = {},
 ): Promise<BoardDto> {
   return db().transaction(async (transaction) => {
@@ -119,18 +102,31 @@ async function changeBoard(
     await lockSiteOfBoard(actor, boardId, transaction, { tree: opts.tree });
     const board = await findBoard(actor, boardId, { transaction, lock: true, deleted: opts.deleted });
     const written = await writeBoard(actor, board, await change(board, transaction), transaction);
-    await opts.after?.(board, written, transaction);
+    await opts.after?.(board, transaction);
     return written;
   });
 }
 
-/** `changeBoard` for a write that may link the board to a way (the site locked for a tree write). */
-const changeLinkedBoard = (
-  actor: Actor,
-  boardId: string,
-  tree: boolean,
-  change: Parameters<typeof changeBoard>[2],
-): Promise<BoardDto> => changeBoard(actor, boardId, change, { tree });
+/**
+ * Refuses a save of the locked board with 409: archived, at a stage that is not saved
+ * (lib/boards/lifecycle.ts: a board in review), or at another version than `version`.
+ */
+export async function assertSavable(board: BoardRecord, version: number | undefined, transaction: Transaction) {
+  // An archive also moves the version on: say that it is archived, not that someone saved
+  await assertNotArchived(board, transaction);
+  // The stage first, then the version
+  const step = transition(board.status, 'save', { revision: board.revision });
+  if (step.refused) throw conflict(step.message);
+  assertVersion(board, version);
+  return step;
+}
+
+/** 409 with the stored version when the caller holds another one (`version` undefined: not checked). */
+export function assertVersion(board: BoardRecord, version: number | undefined): void {
+  if (version !== undefined && board.version !== version) {
+    throw conflict('Someone else saved this board after you opened it.', { currentVersion: board.version });
+  }
+}
 
 export async function renameBoard(
   actor: Actor,
@@ -147,99 +143,60 @@ export async function renameBoard(
 export type RemovalAnswer = { feedChanges: FeedChange[]; ripple: SiteRipple | null };
 
 /**
- * A removal (delete or archive) of a board of a supply tree (lib/dal/site-feed.ts
- * beforeBoardRemoval says what a designer expects): the site locked for a tree write, the boards
- * fed from this board's ways named in a 409 unless `confirmFeedChanges`; confirmed, they go back
- * to the origin and the whole site is re-sized in the same transaction.
+ * A removal (delete or archive, as `decide` says once the row is locked), with the site's tree
+ * as lib/dal/site-feed.ts beforeBoardRemoval says. The version moves on, so an editor still
+ * open cannot save the board.
  */
-function removal(
+async function takeOff(
   actor: Actor,
-  effect: () => 'deleted' | 'archived',
+  boardId: string,
   opts: { confirmFeedChanges?: boolean },
-  out: RemovalAnswer,
-) {
-  let plan: RemovalPlan | null = null;
-  return {
-    tree: true,
-    /** Called by `change` once the refusals of the record rules have been checked. */
-    plan: async (board: BoardRecord, transaction: Transaction) => {
-      plan = await beforeBoardRemoval(actor, board, { effect: effect(), ...opts }, transaction);
-      out.feedChanges = plan.detach;
-    },
-    after: async (board: BoardRecord, _written: BoardDto, transaction: Transaction) => {
-      if (plan) out.ripple = await afterBoardRemoval(actor, board, plan, effect(), transaction);
-    },
-    /** The feeds the removal lets go, kept in its history event so that coming back takes them up. */
-    relinks: (): Relink[] => (plan as RemovalPlan | null)?.relinks ?? [],
+  decide: (board: BoardRecord, transaction: Transaction) => Promise<'deleted' | 'archived'>,
+): Promise<{ effect: 'deleted' | 'archived' } & RemovalAnswer> {
+  const out = {
+    effect: 'deleted' as 'deleted' | 'archived',
+    plan: null as RemovalPlan | null,
+    ripple: null as RemovalAnswer['ripple'],
   };
-}
-
-/**
- * The hooks of a board coming back (undelete, restore): it takes up the feeds its removal let go
- * (`removal` is the history event that holds them: its own feed, and the boards it fed), where
- * they still hold, else rejoins the tree at the origin; the site re-sized.
- */
-function comingBack(actor: Actor, removal: 'board.deleted' | 'board.archived') {
-  let site: SiteLock | null = null;
-  let relinks: Relink[] = [];
-  return {
-    tree: true,
-    // The site locked for a tree write (`changeBoard` took that lock: this is the row as locked)
-    plan: async (board: BoardRecord, transaction: Transaction) => {
-      site = await lockSite(actor, board.siteId, transaction, 'update');
-      const details = await latestEventDetails(board.id, removal, transaction);
-      relinks = Array.isArray(details?.feeds) ? (details.feeds as Relink[]) : [];
-    },
-    after: async (board: BoardRecord, _written: BoardDto, transaction: Transaction) => {
-      if (site) await afterBoardReturn(actor, board, site, transaction, relinks);
-    },
+  const change = async (board: BoardRecord, transaction: Transaction) => {
+    const effect = (out.effect = await decide(board, transaction));
+    const plan = (out.plan = await beforeBoardRemoval(actor, board, { effect, ...opts }, transaction));
+    // The feeds it lets go are kept in its history event, so that coming back takes them up
+    const details = {
+      name: board.name,
+      ...(effect === 'archived' && { revision: board.revision }),
+      feeds: plan.relinks,
+    };
+    const set =
+      effect === 'deleted'
+        ? { deletedAt: new Date(), deletedById: actor.userId }
+        : { archivedAt: new Date(), archivedById: actor.userId };
+    return { set, events: [{ action: `board.${effect}` as const, details }] };
   };
+  await changeBoard(actor, boardId, change, {
+    tree: true,
+    after: async (board, transaction) => {
+      out.ripple = await afterBoardRemoval(actor, board, out.plan!, out.effect, transaction);
+    },
+  });
+  return { effect: out.effect, feedChanges: out.plan?.detach ?? [], ripple: out.ripple };
 }
 
 /**
  * Removes a board (lib/boards/record-rules.ts boardRemoval): a board never issued is deleted
  * (hidden everywhere, its rows kept so that the delete can be undone); a board ever issued is
- * archived, by an admin only. The version moves on, so an editor still open cannot save it.
- * A board that feeds others asks first (see `removal`).
+ * archived, by an admin only. A board that feeds others asks first (see `takeOff`).
  */
-export async function removeBoard(
-  actor: Actor,
-  boardId: string,
-  opts: { confirmFeedChanges?: boolean } = {},
-): Promise<{ effect: 'deleted' | 'archived' } & RemovalAnswer> {
-  let effect: 'deleted' | 'archived' = 'deleted';
-  const out: RemovalAnswer = { feedChanges: [], ripple: null };
-  const tree = removal(actor, () => effect, opts, out);
-  await changeBoard(
-    actor,
-    boardId,
-    async (board, transaction) => {
-      const rule = boardRemoval(actor.role, {
-        everIssued: await everIssued(boardId, transaction),
-        archived: (await archiveStateOf(board, transaction)) !== null,
-      });
-      if (rule.refused) throw new HttpError(rule.status, rule.message);
-      effect = rule.effect === 'delete' ? 'deleted' : 'archived';
-      await tree.plan(board, transaction);
-      if (rule.effect === 'delete') {
-        return {
-          set: { deletedAt: new Date(), deletedById: actor.userId },
-          events: [{ action: 'board.deleted', details: { name: board.name, feeds: tree.relinks() } }],
-        };
-      }
-      return archiving(actor, board, tree.relinks());
-    },
-    tree,
-  );
-  return { effect, ...out };
+export async function removeBoard(actor: Actor, boardId: string, opts: { confirmFeedChanges?: boolean } = {}) {
+  return takeOff(actor, boardId, opts, async (board, transaction) => {
+    const rule = boardRemoval(actor.role, {
+      everIssued: await everIssued(boardId, transaction),
+      archived: (await readArchiveState(board.id, transaction)) !== null,
+    });
+    if (rule.refused) throw new HttpError(rule.status, rule.message);
+    return rule.effect === 'delete' ? 'deleted' : 'archived';
+  });
 }
-
-const archiving = (actor: Actor, board: BoardRecord, feeds: Relink[]) => ({
-  set: { archivedAt: new Date(), archivedById: actor.userId },
-  events: [
-    { action: 'board.archived', details: { name: board.name, revision: board.revision, feeds } } satisfies BoardEvent,
-  ],
-});
 
 /** Archives a board (admins: records.archive), issued or not; a board that feeds others asks first. */
 export async function archiveBoard(
@@ -248,19 +205,10 @@ export async function archiveBoard(
   opts: { confirmFeedChanges?: boolean } = {},
 ): Promise<RemovalAnswer> {
   if (!mayRestore(actor.role, 'archived')) throw forbidden('archive boards');
-  const out: RemovalAnswer = { feedChanges: [], ripple: null };
-  const tree = removal(actor, () => 'archived', opts, out);
-  await changeBoard(
-    actor,
-    boardId,
-    async (board, transaction) => {
-      if (board.archivedAt) throw conflict('This board is archived already.');
-      await tree.plan(board, transaction);
-      return archiving(actor, board, tree.relinks());
-    },
-    tree,
-  );
-  return out;
+  return takeOff(actor, boardId, opts, async (board) => {
+    if (board.archivedAt) throw conflict('This board is archived already.');
+    return 'archived';
+  });
 }
 
 /** What bringing a board back undoes: its removal's history event, the event it writes, the columns it clears. */
@@ -269,20 +217,31 @@ const BRINGING_BACK = {
   deleted: { removal: 'board.deleted', event: 'board.undeleted', set: { deletedAt: null, deletedById: null } },
 } as const;
 
-/** Brings an archived (admins) or deleted board back into the lists as it was, fed as `comingBack` says. */
+/**
+ * Brings an archived (admins) or deleted board back into the lists as it was. It takes up the
+ * feeds its removal let go (kept in the removal's history event: its own feed, and the boards
+ * it fed) where they still hold, else rejoins the tree at the origin; the site re-sized.
+ */
 async function bringBack(actor: Actor, boardId: string, from: 'archived' | 'deleted'): Promise<BoardDto> {
   if (!mayRestore(actor.role, from)) throw forbidden(`restore ${from} boards`);
   const { removal, event, set } = BRINGING_BACK[from];
-  const tree = comingBack(actor, removal);
+  const held = { site: null as SiteLock | null, relinks: [] as Relink[] };
   const back = await changeBoard(
     actor,
     boardId,
     async (board, transaction) => {
       if (!board[from === 'archived' ? 'archivedAt' : 'deletedAt']) throw conflict(`This board is not ${from}.`);
-      await tree.plan(board, transaction);
+      // The site locked for a tree write (`changeBoard` took that lock: this is the row as locked)
+      held.site = await lockSite(actor, board.siteId, transaction, 'update');
+      const details = await latestEventDetails(board.id, removal, transaction);
+      held.relinks = Array.isArray(details?.feeds) ? (details.feeds as Relink[]) : [];
       return { set: { ...set }, events: [{ action: event, details: { name: board.name } }] };
     },
-    { ...tree, deleted: from === 'deleted' },
+    {
+      tree: true,
+      deleted: from === 'deleted',
+      after: (board, transaction) => afterBoardReturn(actor, board, held.site!, transaction, held.relinks),
+    },
   );
   return readBoard(actor, back.id);
 }
@@ -294,13 +253,11 @@ export const restoreBoard = (actor: Actor, boardId: string) => bringBack(actor, 
 export const undeleteBoard = (actor: Actor, boardId: string) => bringBack(actor, boardId, 'deleted');
 
 /**
- * Saves the whole board at the version the editor opened, in one transaction with the board
- * row locked (concurrent saves queue on it, and every one after the first finds a newer
- * version): a stale save gets 409 with the current version and nothing is written. Removed
- * ways go, new ones are inserted (a new way's id that exists anywhere is refused: no way of
- * another board is ever touched), moved or changed ones are written and lose their label
- * check; a way left as it was is not written, so it keeps its label check. Saving an issued
- * board (labels matched or not) starts the next draft revision.
+ * Saves the whole board at the version the editor opened, with the board row locked
+ * (concurrent saves queue on it; every one after the first is stale: 409, nothing written).
+ * Only the ways that changed are written (they lose their label check); a new way's id that
+ * exists anywhere is refused, so no way of another board is touched. Saving an issued board
+ * starts the next draft revision.
  */
 export async function saveBoard(
   actor: Actor,
@@ -309,48 +266,46 @@ export async function saveBoard(
   out?: TreeWriteRequest['out'],
 ): Promise<BoardDto> {
   try {
-    return await changeLinkedBoard(actor, boardId, input.settings.feed?.from === 'way', async (board, transaction) => {
-      // An archive also moves the version on: say that it is archived, not that someone saved
-      await assertNotArchived(board, transaction);
-      // The stage first (lib/boards/lifecycle.ts: a board in review is not saved), then the version
-      const step = transition(board.status, 'save', { revision: board.revision });
-      if (step.refused) throw conflict(step.message);
-      if (board.version !== input.version) {
-        throw conflict('Someone else saved this board after you opened it.', { currentVersion: board.version });
-      }
-      const diff = diffWays(await readWays(boardId, transaction), input.ways);
-      const added = new Set(diff.added);
-      const touched = new Set([...diff.changed, ...diff.moved]);
-      const { startsRevision } = step;
-      const wayEvents = (action: AuditAction, ids: string[]) => ids.map((wayId) => ({ action, details: { wayId } }));
-      return {
-        set: {
-          ...settingsOf(input.settings),
-          designChangedById: actor.userId,
-          status: step.to,
-          ...(startsRevision ? { revision: board.revision + 1 } : {}),
-        },
-        ways: {
-          remove: diff.removed,
-          insert: input.ways.filter((w) => added.has(w.id)),
-          update: input.ways.filter((w) => touched.has(w.id)),
-        },
-        // The site's tree (lib/dal/site-feed.ts): a new feed, feeding ways taken away, the ripple
-        feed: input.settings.feed,
-        confirmFeedChanges: input.confirmFeedChanges,
-        out,
-        events: [
-          ...wayEvents('way.added', diff.added),
-          ...wayEvents('way.removed', diff.removed),
-          ...wayEvents('way.moved', diff.moved),
-          ...wayEvents('way.changed', diff.changed),
-          {
-            action: step.audit ?? 'board.saved',
-            details: { version: board.version + 1, ...(startsRevision ? { newRevision: board.revision + 1 } : {}) },
+    return await changeBoard(
+      actor,
+      boardId,
+      async (board, transaction) => {
+        const step = await assertSavable(board, input.version, transaction);
+        const diff = diffWays(await readWays(boardId, transaction), input.ways);
+        const added = new Set(diff.added);
+        const touched = new Set([...diff.changed, ...diff.moved]);
+        const { startsRevision } = step;
+        const wayEvents = (action: AuditAction, ids: string[]) => ids.map((wayId) => ({ action, details: { wayId } }));
+        return {
+          set: {
+            ...settingsOf(input.settings),
+            designChangedById: actor.userId,
+            status: step.to,
+            ...(startsRevision ? { revision: board.revision + 1 } : {}),
           },
-        ],
-      };
-    });
+          ways: {
+            remove: diff.removed,
+            insert: input.ways.filter((w) => added.has(w.id)),
+            update: input.ways.filter((w) => touched.has(w.id)),
+          },
+          // The site's tree (lib/dal/site-feed.ts): a new feed, feeding ways taken away, the ripple
+          feed: input.settings.feed,
+          confirmFeedChanges: input.confirmFeedChanges,
+          out,
+          events: [
+            ...wayEvents('way.added', diff.added),
+            ...wayEvents('way.removed', diff.removed),
+            ...wayEvents('way.moved', diff.moved),
+            ...wayEvents('way.changed', diff.changed),
+            {
+              action: step.audit ?? 'board.saved',
+              details: { version: board.version + 1, ...(startsRevision ? { newRevision: board.revision + 1 } : {}) },
+            },
+          ],
+        };
+      },
+      { tree: input.settings.feed?.from === 'way' },
+    );
   } catch (err) {
     // A new way's id that some way already has (on this board or any other)
     const { parent } = err as { parent?: { constraint?: string } };

@@ -6,13 +6,13 @@ import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { wayOnBoard } from '@/lib/dal/board-repository';
-import { assertNotArchived, findBoard } from '@/lib/dal/boards';
+import { findBoard, wayOnBoard } from '@/lib/dal/board-repository';
+import { assertNotArchived, findWritableBoard } from '@/lib/dal/boards';
 import { badRequest, forbidden } from '@/lib/errors';
-import { Comment, User } from '@/models';
-import type { CommentDto } from '@/lib/boards/review-types';
+import { AuditEvent, Comment, User } from '@/models';
+import type { CommentDto, ReturnNotes } from '@/lib/boards/review-types';
 
-export function commentDto(c: Comment & { author?: User }): CommentDto {
+function commentDto(c: Comment & { author?: User }): CommentDto {
   return {
     id: c.id,
     wayId: c.wayId,
@@ -40,18 +40,14 @@ export async function commentsOf(boardId: string, revision?: number): Promise<Co
   return rows.map(commentDto);
 }
 
-/** Whoever may comment: the reviewers, and the designers answering them. */
-function mayComment(actor: Actor): boolean {
-  return can(actor.role, 'boards.review') || can(actor.role, 'boards.edit');
-}
-
 /** Adds a comment on the board (wayId null) or on one of its ways, for the board's current revision. */
 export async function addComment(
   actor: Actor,
   boardId: string,
   input: { wayId?: string | null; body: string },
 ): Promise<CommentDto> {
-  if (!mayComment(actor)) throw forbidden('comment on boards');
+  // Whoever may comment: the reviewers, and the designers answering them
+  if (!can(actor.role, 'boards.review') && !can(actor.role, 'boards.edit')) throw forbidden('comment on boards');
   const created = await db().transaction(async (transaction) => {
     const board = await findBoard(actor, boardId, { transaction });
     await assertNotArchived(board, transaction);
@@ -78,8 +74,7 @@ export async function answerComments(
 ): Promise<{ answered: number }> {
   if (!can(actor.role, 'comments.answer')) throw forbidden('mark review comments answered');
   return db().transaction(async (transaction) => {
-    const board = await findBoard(actor, boardId, { transaction, lock: true });
-    await assertNotArchived(board, transaction);
+    await findWritableBoard(actor, boardId, transaction);
     const ids = [...new Set(commentIds)];
     const found = await Comment.findAll({ where: { boardId, id: { [Op.in]: ids } }, transaction });
     if (found.length !== ids.length) {
@@ -95,4 +90,31 @@ export async function answerComments(
     }
     return { answered: open.length };
   });
+}
+
+/**
+ * The review of a board that was returned for its current revision and is a draft again: who
+ * returned it and when, and the comments of that revision still open (the designer marks
+ * them answered). Null when the board was not returned, or every comment is answered.
+ */
+export async function getReturnNotes(actor: Actor, boardId: string): Promise<ReturnNotes | null> {
+  const board = await findBoard(actor, boardId);
+  if (board.status !== 'draft') return null;
+  const returned = await AuditEvent.findOne({
+    where: { boardId, organisationId: actor.organisationId, action: 'review.returned' },
+    order: [['id', 'DESC']],
+  });
+  if (!returned || Number(returned.details.revision) !== board.revision) return null;
+  const comments = await commentsOf(boardId, board.revision);
+  const open = comments.filter((c) => !c.answeredAt);
+  if (!open.length) return null;
+  const who = returned.userId ? await User.findByPk(returned.userId, { attributes: ['name'] }) : null;
+  return {
+    revision: board.revision,
+    returnedByName: who?.name ?? 'A former member',
+    returnedAt: returned.createdAt.toISOString(),
+    reasons: open.filter((c) => !c.wayId),
+    wayComments: open.filter((c) => c.wayId),
+    answered: comments.length - open.length,
+  };
 }

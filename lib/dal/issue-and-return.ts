@@ -1,15 +1,13 @@
 import 'server-only';
 
-import type { Transaction } from 'sequelize';
-
 import type { Actor } from '@/lib/auth/session';
 import { transition } from '@/lib/boards/lifecycle';
-import { issueRefusal, sameName, type Refusal } from '@/lib/boards/record-rules';
+import { issueRefusal, sameName } from '@/lib/boards/record-rules';
 import { sizeDesign } from '@/lib/boards/size-design';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
-import { writeBoard, type BoardRecord } from '@/lib/dal/board-repository';
+import { writeBoard } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices, revisionComments } from '@/lib/dal/notices';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
@@ -20,26 +18,10 @@ import type { IssuedFacts, ReturnedFacts } from '@/lib/mail/templates';
 import { BoardRevision, Comment, Organisation } from '@/models';
 import type { BoardStatus } from '@/models/board';
 
-/** Separation of duties for this issuer and board (lib/boards/record-rules.ts issueRefusal). */
-export async function issueRefusalFor(
-  actor: Actor,
-  board: BoardRecord,
-  transaction?: Transaction,
-): Promise<Refusal | null> {
-  const org = await Organisation.findByPk(actor.organisationId, { attributes: ['allowSelfIssue'], transaction });
-  return issueRefusal({
-    issuerId: actor.userId,
-    designChangedById: board.designChangedById,
-    allowSelfIssue: org?.allowSelfIssue ?? false,
-  });
-}
-
 /**
- * Approves a board in review: it becomes issued with the next revision number, and the
- * board and its sizing are frozen in a BoardRevision with the issuer's declaration (their
- * name, typed). Someone other than the last person to change the design issues it, unless
- * the organisation allows self-issue. A board with failing ways is issued only when the
- * reviewer says so. The designers are e-mailed.
+ * Approves a board in review: issued with the next revision number, the board and its sizing
+ * frozen in a BoardRevision with the issuer's typed declaration. Not by the last to change the
+ * design unless self-issue is allowed; failing ways only when the reviewer confirms. The designers are e-mailed.
  */
 export async function approveBoard(
   actor: Actor,
@@ -54,8 +36,10 @@ export async function approveBoard(
     const board = await findWritableBoard(actor, boardId, transaction);
     const step = transition(board.status, 'approve', { revision: board.revision });
     if (step.refused) throw conflict(step.message);
-    // Separation of duties, then the declaration
-    const refusal = await issueRefusalFor(actor, board, transaction);
+    // Separation of duties (lib/boards/record-rules.ts), then the declaration
+    const org = await Organisation.findByPk(actor.organisationId, { attributes: ['allowSelfIssue'], transaction });
+    const { designChangedById } = board;
+    const refusal = issueRefusal({ issuerId: actor.userId, designChangedById, allowSelfIssue: !!org?.allowSelfIssue });
     if (refusal) throw new HttpError(refusal.status, refusal.message);
     if (!sameName(input.declaration, actor.name)) {
       throw badRequest(

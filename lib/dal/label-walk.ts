@@ -1,7 +1,7 @@
 import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { labelCheckEvent, labelsEvent, transition } from '@/lib/boards/lifecycle';
 import { labelTextOf } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
@@ -9,8 +9,8 @@ import { db } from '@/lib/db';
 import { listAttachments } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
 import { memberNames } from '@/lib/dal/members';
-import { readBoard, readWayRows, writeBoard, writeLabelCheck } from '@/lib/dal/board-repository';
-import { assertNotArchived, findBoard } from '@/lib/dal/boards';
+import { findBoard, readBoard, readWayRows, writeBoard, writeLabelCheck } from '@/lib/dal/board-repository';
+import { assertNotArchived } from '@/lib/dal/boards';
 import { conflict } from '@/lib/errors';
 import { Site } from '@/models';
 import type { BoardStatus } from '@/models/board';
@@ -18,7 +18,7 @@ import type { LabelStatus } from '@/models/way';
 import type { WalkProgress, WalkData } from '@/lib/boards/walk-types';
 
 /** Counts of a walk's results. */
-export function walkProgress(statuses: LabelStatus[]): WalkProgress {
+function walkProgress(statuses: LabelStatus[]): WalkProgress {
   const count = (s: LabelStatus) => statuses.filter((x) => x === s).length;
   return {
     total: statuses.length,
@@ -37,7 +37,7 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
     readWayRows(boardId),
     listAttachments(actor, boardId),
   ]);
-  const refs = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+  const refs = wayLabelMap(board.phases, ways);
   const names = await memberNames(ways.map((w) => w.labelCheckedById));
   // The ways come in rail order
   const walkWays = ways.map((w) => ({
@@ -91,15 +91,11 @@ export async function recordLabel(
       );
     }
     // Record the result, then every way's result after it
-    const check = { labelStatus: input.status, labelNote: input.note?.trim() ?? '', labelCheckedById: actor.userId };
-    const statuses = await writeLabelCheck(boardId, wayId, { ...check, labelCheckedAt: new Date() }, transaction);
+    const [status, note] = [input.status, input.note?.trim() ?? ''];
+    const check = { labelStatus: status, labelNote: note, labelCheckedById: actor.userId, labelCheckedAt: new Date() };
+    const statuses = await writeLabelCheck(boardId, wayId, check, transaction);
     // The audit trail keeps every check with its note (a later revision may remove the way)
-    await audit(
-      actor,
-      'label.checked',
-      { wayId, status: input.status, note: input.note?.trim() ?? '', revision: board.revision },
-      { boardId, transaction },
-    );
+    await audit(actor, 'label.checked', { wayId, status, note, revision: board.revision }, { boardId, transaction });
     // Labels matched when every label matches; back to issued otherwise (lib/boards/lifecycle.ts)
     const progress = walkProgress(statuses);
     const step = transition(board.status, labelsEvent(statuses), { revision: board.revision });
@@ -119,7 +115,7 @@ export async function labelProblems(
   boardId: string,
 ): Promise<{ wayId: string; ref: string | null; status: 'wrong' | 'missing'; note: string }[]> {
   const board = await readBoard(actor, boardId);
-  const refs = new Map(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  const refs = wayLabelMap(board.phases, board.ways);
   return board.ways
     .filter((w) => w.labelStatus === 'wrong' || w.labelStatus === 'missing')
     .map((w) => ({

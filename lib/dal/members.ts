@@ -17,13 +17,12 @@ import { Invitation, Organisation, User } from '@/models';
 import type { Member } from '@/lib/members/types';
 
 /** Invitations are valid for a week. */
-export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
+const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
 
 const hashToken = (token: string) => crypto.createHash('sha256').update(token).digest('hex');
 
 /** Members of the caller's organisation, and invitations not yet taken up. */
 export async function listMembers(actor: Actor): Promise<Member[]> {
-  db();
   const [users, invitations] = await Promise.all([
     User.findAll({ where: { organisationId: actor.organisationId }, order: [['name', 'ASC']] }),
     Invitation.findAll({
@@ -49,12 +48,11 @@ function memberOf(who: User | Invitation, active: boolean, pending: boolean): Me
  * once and stored only as a hash.
  */
 export async function inviteMember(actor: Actor, input: InviteInput): Promise<{ id: string }> {
-  const sequelize = db();
   const existing = await User.findOne({ where: { email: input.email } });
   if (existing) throw conflict('Someone with this e-mail address already has an account.');
   const token = crypto.randomBytes(32).toString('base64url');
   const org = await Organisation.findByPk(actor.organisationId);
-  return sequelize.transaction(async (transaction) => {
+  return db().transaction(async (transaction) => {
     const invitation = await Invitation.create(
       {
         organisationId: actor.organisationId,
@@ -82,7 +80,6 @@ export async function inviteMember(actor: Actor, input: InviteInput): Promise<{ 
 
 /** The invitation behind a token, if it is still open. */
 export async function findOpenInvitation(token: string) {
-  db();
   const invitation = await Invitation.findOne({ where: { tokenHash: hashToken(token) } });
   if (!invitation || invitation.acceptedAt || invitation.expiresAt < new Date()) return null;
   return { email: invitation.email, name: invitation.name, role: invitation.role };
@@ -90,8 +87,7 @@ export async function findOpenInvitation(token: string) {
 
 /** Takes up an invitation: creates the account with the chosen password, once. */
 export async function acceptInvitation(input: AcceptInviteInput): Promise<{ email: string }> {
-  const sequelize = db();
-  return sequelize.transaction(async (transaction) => {
+  return db().transaction(async (transaction) => {
     const invitation = await Invitation.findOne({
       where: { tokenHash: hashToken(input.token) },
       transaction,
@@ -119,7 +115,6 @@ export async function acceptInvitation(input: AcceptInviteInput): Promise<{ emai
 
 /** Changes a member's role or deactivates them. An admin cannot lock themselves out. */
 export async function updateMember(actor: Actor, userId: string, input: MemberUpdate): Promise<Member> {
-  db();
   const user = await User.findOne({ where: { id: userId, organisationId: actor.organisationId } });
   if (!user) throw notFound('The member');
   if (user.id === actor.userId && (input.active === false || (input.role && input.role !== 'admin'))) {

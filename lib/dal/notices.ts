@@ -1,16 +1,16 @@
 import 'server-only';
 
-import { Op, type Transaction } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 
 import { can } from '@/lib/auth/permissions';
 import type { LifecycleNotice, LifecycleStep } from '@/lib/boards/lifecycle';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { renderNotice, type MailComment, type NoticeFacts } from '@/lib/mail/templates';
 import { AuditEvent, Comment, User } from '@/models';
 
-export type Recipient = { email: string; name: string };
+type Recipient = { email: string; name: string };
 
 /**
  * Who gets the review e-mails: the designer who made the board and the last designer
@@ -29,31 +29,18 @@ async function designers(board: BoardRecord, transaction: Transaction): Promise<
     transaction,
   });
   const ids = [board.createdById, last?.userId].filter((id): id is string => !!id);
-  const people = ids.length
-    ? await User.findAll({
-        where: { id: { [Op.in]: ids }, organisationId: board.organisationId, active: true },
-        transaction,
-      })
-    : [];
+  const people = await activeMembers(board, { id: { [Op.in]: ids } }, transaction);
   const chosen = people.filter((u) => can(u.role, 'boards.edit'));
-  const all = chosen.length
-    ? chosen
-    : await User.findAll({
-        where: { organisationId: board.organisationId, role: 'designer', active: true },
-        transaction,
-      });
-  const byEmail = new Map(all.map((u) => [u.email, { email: u.email, name: u.name }]));
-  return [...byEmail.values()];
+  return chosen.length ? chosen : activeMembers(board, { role: 'designer' }, transaction);
 }
 
-/** Every active inspector of the board's organisation. */
-async function inspectors(board: BoardRecord, transaction: Transaction): Promise<Recipient[]> {
-  const rows = await User.findAll({
-    where: { organisationId: board.organisationId, role: 'inspector', active: true },
-    attributes: ['email', 'name'],
+/** The active members of the board's organisation that `where` picks, as recipients. */
+async function activeMembers(board: BoardRecord, where: WhereOptions<User>, transaction: Transaction) {
+  const users = await User.findAll({
+    where: { ...where, organisationId: board.organisationId, active: true },
     transaction,
   });
-  return rows.map((u) => ({ email: u.email, name: u.name }));
+  return users.map((u) => ({ email: u.email, name: u.name, role: u.role }));
 }
 
 /** The comments of the board's current revision, oldest first, as the e-mails list them. */
@@ -66,7 +53,7 @@ export async function revisionComments(board: BoardRecord, transaction: Transact
     transaction,
   });
   const ways = await readWays(board.id, transaction);
-  const refs = new Map(layoutWays(board.phases, ways).map((p) => [p.id, p.label]));
+  const refs = wayLabelMap(board.phases, ways);
   return comments.map((c) => ({
     wayId: c.wayId,
     wayRef: c.wayId ? (refs.get(c.wayId) ?? null) : null,
@@ -91,8 +78,9 @@ export async function queueNotices(
   for (const { template, to } of step.notify) {
     const f = facts[template];
     if (!f) throw new Error(`The facts of the ${template} e-mail were not gathered`);
-    for (const person of await (to === 'inspectors' ? inspectors : designers)(board, transaction))
-      mails.push({ template, facts: f, to: person });
+    const people =
+      to === 'inspectors' ? activeMembers(board, { role: 'inspector' }, transaction) : designers(board, transaction);
+    for (const { email, name } of await people) mails.push({ template, facts: f, to: { email, name } });
   }
   if (!mails.length) return;
   transaction.afterCommit(async () => {

@@ -10,7 +10,6 @@ import { Organisation } from '@/models';
 
 /** The caller's organisation's settings. */
 export async function getOrganisationSettings(actor: Actor): Promise<OrganisationSettings> {
-  db();
   const org = await Organisation.findByPk(actor.organisationId);
   if (!org) throw notFound('The organisation');
   return { name: org.name, allowSelfIssue: org.allowSelfIssue };
@@ -25,14 +24,9 @@ export async function updateOrganisationSettings(
   await db().transaction(async (transaction) => {
     const org = await Organisation.findByPk(actor.organisationId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!org) throw notFound('The organisation');
-    const before = org.allowSelfIssue;
+    const allowSelfIssue = { from: org.allowSelfIssue, to: input.allowSelfIssue };
     await org.update({ allowSelfIssue: input.allowSelfIssue }, { transaction });
-    await audit(
-      actor,
-      'organisation.changed',
-      { allowSelfIssue: { from: before, to: input.allowSelfIssue } },
-      { transaction },
-    );
+    await audit(actor, 'organisation.changed', { allowSelfIssue }, { transaction });
   });
   return getOrganisationSettings(actor);
 }

@@ -18,13 +18,9 @@ export type IssuedPrintFacts = Pick<ScheduleSource, 'boardId' | 'boardUrl' | 're
 };
 
 /**
- * The facts of the issued revision a print request names, in one statement, or null when it
- * names no issued revision (a draft, a revision that does not exist, a board never issued:
- * `getScheduleSource` decides those, with their refusals). The revision is chosen as
- * `getScheduleSource` chooses it: the one asked for; else the board's own when it is issued
- * or the caller may print drafts; else the last issued. The walk's label results count only
- * for the board's current issued revision, for the ways in its snapshot. 404 for a board
- * that is not the caller's organisation's.
+ * The facts of the issued revision a print request names, chosen as `getScheduleSource` chooses
+ * it, in one statement; null when it names no issued revision (`getScheduleSource` refuses
+ * those). 404 for a board that is not the caller's organisation's.
  */
 export async function issuedPrintFacts(
   actor: Actor,

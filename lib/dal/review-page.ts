@@ -2,20 +2,18 @@ import 'server-only';
 
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
-import { layoutWays } from '@/lib/boards/layout';
-import { issueRefusal } from '@/lib/boards/record-rules';
+import { wayLabelMap } from '@/lib/boards/layout';
+import { issueRefusal, revisionAfter } from '@/lib/boards/record-rules';
 import type { ReviewSource } from '@/lib/boards/review-page-data';
 import type { IssuePreview, ReviewData } from '@/lib/boards/review-types';
 import type { BoardDto } from '@/lib/boards/types';
 import { readBoardAndSizing, readIssueFacts, readReviewSource, type IssueFacts } from '@/lib/dal/board-repository';
-import { revisionAfter, revisionsOf } from '@/lib/dal/revisions';
+import { revisionsOf } from '@/lib/dal/revisions';
 import type { FieldIssue } from '@/lib/errors';
 
 /**
- * The review (GET /api/boards/:id/review): the board, its stored sizing, comments and issued
- * revisions. The board and its sizing are read first, in one statement that also checks the
- * board is the caller's organisation's (404 otherwise); the facts and comments in one more,
- * with the issued revisions beside it.
+ * The review (GET /api/boards/:id/review): the board and its stored sizing first, in one
+ * statement that also checks the organisation (404); then the facts, comments and revisions.
  */
 export async function getReview(actor: Actor, boardId: string): Promise<ReviewData> {
   const {
@@ -27,10 +25,9 @@ export async function getReview(actor: Actor, boardId: string): Promise<ReviewDa
 }
 
 /**
- * The review page's source: as `getReview`, without the issued revisions (the page's revision
- * diff loads its own) and with the sizing cut to what the page shows, in one statement (404
- * for another organisation's board). A stored sizing older than the board is sized now and
- * stored, through `getReview`'s reads.
+ * The review page's source: as `getReview` in one statement, with the sizing cut to what the
+ * page shows and no revisions (its diff loads its own); a stale stored sizing goes the
+ * `getReview` way, which sizes and stores it.
  */
 export async function getReviewSource(actor: Actor, boardId: string): Promise<ReviewSource> {
   const read = await readReviewSource(actor, boardId);
@@ -46,7 +43,7 @@ function reviewOf(
   sizing: ReviewSource['sizing'],
   sizingIssues: FieldIssue[],
 ): Omit<ReviewSource, 'revisions'> {
-  const refs = Object.fromEntries(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  const refs = Object.fromEntries(wayLabelMap(board.phases, board.ways));
   const counts = sizing?.summary.counts;
   const issue: IssuePreview = {
     revision: revisionAfter(board.revision, facts.lastIssued),

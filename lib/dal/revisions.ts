@@ -3,21 +3,24 @@ import 'server-only';
 import type { Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
+import { revisionAfter } from '@/lib/boards/record-rules';
 import { diffRevisions, type BoardSnapshot, type RevisionDiff } from '@/lib/boards/revision-diff';
 import { sizeDesign } from '@/lib/boards/size-design';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
-import type { BoardRecord } from '@/lib/dal/board-repository';
-import { findBoard } from '@/lib/dal/boards';
+import { findBoard, type BoardRecord } from '@/lib/dal/board-repository';
 import { notFound } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
 import { BoardRevision, User } from '@/models';
 import type { BoardStatus } from '@/models/board';
 import type { RevisionSummary } from '@/lib/boards/review-types';
 
-/** The issued revisions of a board, newest first. */
-export async function listRevisions(actor: Actor, boardId: string): Promise<RevisionSummary[]> {
-  await findBoard(actor, boardId);
-  return revisionsOf(boardId);
+/** The issued revisions of a board, newest first, and the board's current stage. */
+export async function listRevisions(
+  actor: Actor,
+  boardId: string,
+): Promise<{ revisions: RevisionSummary[]; current: { status: BoardStatus; revision: number } }> {
+  const { status, revision } = await findBoard(actor, boardId);
+  return { revisions: await revisionsOf(boardId), current: { status, revision } };
 }
 
 /** The issued revisions of a board, newest first, for a caller who has already read the board. */
@@ -43,13 +46,8 @@ export async function nextRevision(board: BoardRecord, transaction?: Transaction
   return revisionAfter(board.revision, last);
 }
 
-/** The revision a board at `revision` would be issued as, when `lastIssued` (0: none) was issued last. */
-export function revisionAfter(revision: number, lastIssued: number): number {
-  return Math.max(revision, lastIssued + 1);
-}
-
 /** One state of a board: an issued revision, or the live board ('current'). */
-export type RevisionState = {
+type RevisionState = {
   revision: number;
   issued: { at: string; byName: string } | null;
   snapshot: BoardSnapshot;
@@ -99,13 +97,4 @@ export async function getRevisionDiff(
 ): Promise<{ from: number; to: number; toIsLive: boolean; diff: RevisionDiff }> {
   const [a, b] = await Promise.all([getRevision(actor, boardId, from), getRevision(actor, boardId, to)]);
   return { from: a.revision, to: b.revision, toIsLive: to === 'current', diff: diffRevisions(a.snapshot, b.snapshot) };
-}
-
-/** The board's status and revision, for pages that only need those. */
-export async function boardStage(
-  actor: Actor,
-  boardId: string,
-): Promise<{ status: BoardStatus; revision: number; name: string }> {
-  const board = await findBoard(actor, boardId);
-  return { status: board.status, revision: board.revision, name: board.name };
 }

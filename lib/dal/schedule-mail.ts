@@ -5,11 +5,11 @@ import { Op, type Transaction } from 'sequelize';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { findBoard } from '@/lib/dal/boards';
+import { findBoard } from '@/lib/dal/board-repository';
 import { memberNames } from '@/lib/dal/members';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { enqueueMail } from '@/lib/mail/outbox';
-import { scheduleMail } from '@/lib/mail/templates';
+import { scheduleMail, sitePackMail } from '@/lib/mail/templates';
 import { AuditEvent, OutgoingMail } from '@/models';
 import type { ScheduleMail } from '@/lib/boards/review-types';
 
@@ -19,23 +19,32 @@ export async function emailSchedule(
   source: Pick<ScheduleSource, 'boardId' | 'revision' | 'snapshot' | 'frozen' | 'boardUrl'>,
   input: { to: string; message?: string; pdf: Uint8Array; fileName: string },
 ): Promise<{ id: string; status: 'queued' }> {
-  await findBoard(actor, source.boardId);
+  const { boardId, revision } = source;
+  await findBoard(actor, boardId);
   const content = scheduleMail({
     boardUrl: source.boardUrl,
     boardName: source.snapshot.settings.name,
     siteName: source.snapshot.siteName,
-    revision: source.revision,
+    revision,
     frozen: source.frozen,
     senderName: actor.name,
     message: input.message,
   });
   return queuePdfMail(actor, { ...input, ...content }, (mailId, transaction) =>
-    audit(
-      actor,
-      'schedule.emailed',
-      { mailId, to: input.to, revision: source.revision },
-      { boardId: source.boardId, transaction },
-    ),
+    audit(actor, 'schedule.emailed', { mailId, to: input.to, revision }, { boardId, transaction }),
+  );
+}
+
+/** Sends a site pack through the outbox, like a board schedule, and records it in the organisation's trail. */
+export async function emailSitePack(
+  actor: Actor,
+  site: { id: string; name: string; boardCount: number },
+  input: { to: string; message?: string; pdf: Uint8Array; fileName: string },
+): Promise<{ id: string; status: 'queued' }> {
+  const { name: siteName, boardCount } = site;
+  const content = sitePackMail({ siteName, boardCount, senderName: actor.name, message: input.message });
+  return queuePdfMail(actor, { ...input, ...content }, (mailId, transaction) =>
+    audit(actor, 'site.pack-emailed', { siteId: site.id, mailId, to: input.to }, { transaction }),
   );
 }
 
@@ -43,7 +52,7 @@ export async function emailSchedule(
  * Queues a PDF to an address through the outbox (stored in the transaction, then sent and
  * retried) and records it in the trail (`record`, given the mail's id) in the same transaction.
  */
-export async function queuePdfMail(
+async function queuePdfMail(
   actor: Actor,
   mail: { to: string; subject: string; text: string; pdf: Uint8Array; fileName: string },
   record: (mailId: string, transaction: Transaction) => Promise<unknown>,

@@ -39,7 +39,7 @@ export type TreeWriteRequest = {
 };
 
 /** What `beforeTreeWrite` found, for `afterTreeWrite`. */
-export type TreeWritePlan = {
+type TreeWritePlan = {
   site: SiteLock;
   /** Boards that go back to the origin, and why. */
   detach: FeedChange[];
@@ -47,11 +47,7 @@ export type TreeWritePlan = {
   feed: BoardFeed | null;
 };
 
-/**
- * The site of a board of the caller's organisation, locked for a write of the board (404 for
- * another organisation's board): see lib/dal/site-tree.ts lockSiteForWrite; `tree`: the write
- * links a board.
- */
+/** The site of the caller's organisation's board (else 404), locked as lib/dal/site-tree.ts lockSiteForWrite says. */
 export async function lockSiteOfBoard(
   actor: Actor,
   boardId: string,
@@ -109,14 +105,16 @@ export async function beforeTreeWrite(
     }
   }
   if (issues.length) throw feedRefusal(issues);
-  if (detach.length && !write.confirmFeedChanges) {
-    const names = detach.map((c) => c.name).join(', ');
-    throw conflict(
-      `This save takes away the way that feeds ${names}; confirm to feed ${detach.length === 1 ? 'it' : 'them'} from the origin.`,
-      { feedChanges: detach },
-    );
-  }
+  refuseUnconfirmed(detach, write.confirmFeedChanges, (names) => `This save takes away the way that feeds ${names}`);
   return { site, detach, feed };
+}
+
+/** 409 naming the boards that would go back to the origin (`feedChanges`), unless there are none or it is confirmed. */
+function refuseUnconfirmed(detach: FeedChange[], confirmed: boolean | undefined, takesAway: (names: string) => string) {
+  if (confirmed || !detach.length) return;
+  const names = detach.map((c) => c.name).join(', ');
+  const them = detach.length === 1 ? 'it' : 'them';
+  throw conflict(`${takesAway(names)}; confirm to feed ${them} from the origin.`, { feedChanges: detach });
 }
 
 /** The boards fed from a way of `parent`, each as a change of its feed back to the origin. */
@@ -201,17 +199,8 @@ export async function afterTreeWrite(
 ): Promise<SiteRipple> {
   if (plan.feed) await writeFeed(actor, board.id, plan.feed, {}, transaction);
   for (const c of plan.detach) {
-    await writeFeed(
-      actor,
-      c.boardId,
-      ORIGIN,
-      {
-        reason: c.reason,
-        was: fedFromWords(c.from),
-        note: `The way of ${board.name} that fed this board was removed; it is now fed from the origin.`,
-      },
-      transaction,
-    );
+    const note = `The way of ${board.name} that fed this board was removed; it is now fed from the origin.`;
+    await writeFeed(actor, c.boardId, ORIGIN, { reason: c.reason, was: fedFromWords(c.from), note }, transaction);
   }
   return resizeSite(actor, plan.site, transaction, {
     writtenBoardId: board.id,
@@ -270,16 +259,12 @@ export async function beforeBoardRemoval(
   const byId = new Map(boards.map((b) => [b.id, b]));
   const me = byId.get(board.id);
   const detach = boardsFedFrom(board, boards, 'board-removed').filter((c) => c.boardId !== board.id);
-  if (detach.length && !opts.confirmFeedChanges) {
-    const names = detach.map((c) => c.name).join(', ');
-    const verb = opts.effect === 'deleted' ? 'Deleting' : 'Archiving';
-    throw conflict(
-      `${verb} ${board.name} takes away the supply of ${names}, fed from its ways; confirm to feed ${
-        detach.length === 1 ? 'it' : 'them'
-      } from the origin.`,
-      { feedChanges: detach },
-    );
-  }
+  const verb = opts.effect === 'deleted' ? 'Deleting' : 'Archiving';
+  refuseUnconfirmed(
+    detach,
+    opts.confirmFeedChanges,
+    (names) => `${verb} ${board.name} takes away the supply of ${names}, fed from its ways`,
+  );
   let ownFeed: FedFromWords | null = null;
   const relinks: Relink[] = [];
   if (me?.feed.from === 'way') {
@@ -302,44 +287,23 @@ export async function afterBoardRemoval(
   transaction: Transaction,
 ): Promise<SiteRipple | null> {
   if (!plan.detach.length && !plan.ownFeed) return null;
+  const reason = 'board-removed';
   for (const c of plan.detach) {
-    await writeFeed(
-      actor,
-      c.boardId,
-      ORIGIN,
-      {
-        reason: 'board-removed',
-        removedBoard: board.name,
-        effect,
-        was: fedFromWords(c.from),
-        note: `${board.name}, which fed this board, was ${effect}; it is now fed from the origin.`,
-      },
-      transaction,
-    );
+    const note = `${board.name}, which fed this board, was ${effect}; it is now fed from the origin.`;
+    const details = { reason, removedBoard: board.name, effect, was: fedFromWords(c.from), note };
+    await writeFeed(actor, c.boardId, ORIGIN, details, transaction);
   }
   if (plan.ownFeed) {
     const was = fedFromWords(plan.ownFeed);
-    await writeFeed(
-      actor,
-      board.id,
-      ORIGIN,
-      {
-        reason: 'board-removed',
-        self: true,
-        effect,
-        was,
-        note: `This board was ${effect}, so it no longer takes its supply from ${was}; brought back, it is fed from the origin.`,
-      },
-      transaction,
-    );
+    const note = `This board was ${effect}, so it no longer takes its supply from ${was}; brought back, it is fed from the origin.`;
+    await writeFeed(actor, board.id, ORIGIN, { reason, self: true, effect, was, note }, transaction);
   }
   return resizeSite(actor, plan.site, transaction, { writtenBoardId: board.id, cause: `${board.name} was ${effect}` });
 }
 
 /**
- * After a deleted or archived board came back: when the site is a tree (an origin, or boards
- * fed from ways), the site is re-sized so that the board is sized against the origin now, not
- * with what was carried to it before it left.
+ * After a deleted or archived board came back, the site of a tree is re-sized: the board is
+ * sized with what is carried to it now, not with what was carried before it left.
  */
 export async function afterBoardReturn(
   actor: Actor,
@@ -358,44 +322,32 @@ export async function afterBoardReturn(
  * A feed is taken up only if it still holds: the board is still fed from the origin (nobody
  * pointed it elsewhere meanwhile), it is not deleted, and the way passes the checks of a feed
  * chosen by hand (`checkFeed`: there, fit, free, no loop). Each one taken up or left is in the
- * board's history. Answers the boards fed again and those left at the origin, with why.
+ * board's history.
  */
 async function takeUpFeeds(
   actor: Actor,
   board: { id: string; name: string; siteId: string },
   relinks: readonly Relink[],
   transaction: Transaction,
-): Promise<{ relinked: string[]; left: { boardId: string; why: string }[] }> {
+): Promise<void> {
   const boards = await readTreeBoards(board.siteId, transaction, { stored: false });
   const byId = new Map(boards.map((b) => [b.id, b]));
-  const out = { relinked: [] as string[], left: [] as { boardId: string; why: string }[] };
   for (const r of relinks) {
     const target = byId.get(r.boardId);
     if (!target || target.feed.from !== 'origin') continue;
+    // Each history entry says which board came back and where the feed was
     const was = fedFromWords(feedingWay(byId, r.feed));
+    const returned = { reason: 'board-returned', returnedBoard: board.name, was };
     try {
       await checkFeed(actor, { ...target, siteId: board.siteId }, r.feed, byId, transaction);
     } catch (err) {
       if (!(err instanceof HttpError)) throw err;
       const why = err.status === 404 ? 'the way that fed it is gone' : err.message;
-      out.left.push({ boardId: target.id, why });
-      await audit(
-        actor,
-        'board.feed-changed',
-        { feed: ORIGIN, reason: 'board-returned', kept: true, was, returnedBoard: board.name, why },
-        { boardId: target.id, transaction },
-      );
+      const details = { feed: ORIGIN, ...returned, kept: true, why };
+      await audit(actor, 'board.feed-changed', details, { boardId: target.id, transaction });
       continue;
     }
-    await writeFeed(
-      actor,
-      target.id,
-      r.feed,
-      { reason: 'board-returned', returnedBoard: board.name, was },
-      transaction,
-    );
+    await writeFeed(actor, target.id, r.feed, returned, transaction);
     byId.set(target.id, { ...target, feed: r.feed });
-    out.relinked.push(target.id);
   }
-  return out;
 }

@@ -4,11 +4,10 @@ import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import type { BoardDto } from '@/lib/boards/schemas';
-import { transition } from '@/lib/boards/lifecycle';
 import { db } from '@/lib/db';
 import { findBoard, readDraftTreeRows, readTreeBoards, writeBoard } from '@/lib/dal/board-repository';
 import { audit } from '@/lib/dal/audit';
-import { assertNotArchived } from '@/lib/dal/boards';
+import { assertSavable } from '@/lib/dal/boards';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { conflict, notFound } from '@/lib/errors';
 import { treeDtoOf, treeOrder } from '@/lib/sites/tree-dto';
@@ -96,27 +95,17 @@ export async function setBoardFeed(
   const board = await db().transaction(async (transaction) => {
     await lockSiteOfBoard(actor, boardId, transaction, { tree: input.feed.from === 'way' });
     const row = await findBoard(actor, boardId, { transaction, lock: true });
-    await assertNotArchived(row, transaction);
-    const step = transition(row.status, 'save', { revision: row.revision });
-    if (step.refused) throw conflict(step.message);
-    if (input.version !== undefined && row.version !== input.version) {
-      throw conflict('Someone else saved this board after you opened it.', { currentVersion: row.version });
-    }
-    return writeBoard(
-      actor,
-      row,
-      { events: [], feed: input.feed, confirmFeedChanges: input.confirmFeedChanges, out },
-      transaction,
-    );
+    await assertSavable(row, input.version, transaction);
+    const { feed, confirmFeedChanges } = input;
+    return writeBoard(actor, row, { events: [], feed, confirmFeedChanges, out }, transaction);
   });
   return { board, ripple: out.ripple };
 }
 
 /**
- * What the tree gives a draft of a board (the editor's unsaved edits, sized by the board's
- * sizing route; the stored board sent for review, issued or printed): the supply carried to it
- * (null: its typed supply), the way it is carried from when the tree could follow the feed, and
- * the design current of each of its ways that feeds a board. 404 for another organisation's board.
+ * What the tree gives a draft of a board (unsaved edits, or the stored board sent for review,
+ * issued or printed): the supply carried to it (null: its typed supply), where it is fed from,
+ * and the design current of each of its ways that feeds a board. 404 for another organisation's.
  */
 export async function draftTreeContext(
   actor: Actor,

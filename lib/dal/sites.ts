@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
 import { mayRestore, siteRemoval } from '@/lib/boards/record-rules';
@@ -38,8 +38,7 @@ export async function listSites(actor: Actor, opts: { archived?: boolean } = {})
 
 /** One site of the caller's organisation, or 404. */
 export async function findSite(actor: Actor, siteId: string): Promise<Site> {
-  const where: WhereOptions = { id: siteId, organisationId: actor.organisationId };
-  const site = await Site.findOne({ where });
+  const site = await Site.findOne({ where: { id: siteId, organisationId: actor.organisationId } });
   if (!site) throw notFound('The site');
   return site;
 }
@@ -84,7 +83,6 @@ function lockedSite(actor: Actor, siteId: string, transaction: Transaction): Pro
  * only). The site row is locked, and so are its boards, so that no save lands half-way.
  */
 export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSummary> {
-  await findSite(actor, siteId);
   await db().transaction(async (transaction) => {
     const site = await lockedSite(actor, siteId, transaction);
     if (!site) throw notFound('The site');
@@ -100,18 +98,15 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
     const live = boards.filter((b) => !b.deletedAt && !b.archivedAt);
     const boardNames = live.map((b) => ({ id: b.id, name: b.name }));
     // The site's trail, and each board's own trail too
-    await auditMany(
-      actor,
-      [
-        { action: 'site.archived', details: { siteId, name: site.name, boards: boardNames }, boardId: null },
-        ...live.map((b) => ({
-          action: 'board.archived' as const,
-          details: { name: b.name, revision: b.revision, siteId, site: site.name },
-          boardId: b.id,
-        })),
-      ],
-      { transaction },
-    );
+    const events = [
+      { action: 'site.archived' as const, details: { siteId, name: site.name, boards: boardNames }, boardId: null },
+      ...live.map((b) => ({
+        action: 'board.archived' as const,
+        details: { name: b.name, revision: b.revision, siteId, site: site.name },
+        boardId: b.id,
+      })),
+    ];
+    await auditMany(actor, events, { transaction });
   });
   return getSite(actor, siteId);
 }
@@ -125,18 +120,15 @@ export async function restoreSite(actor: Actor, siteId: string): Promise<SiteSum
     if (!site?.archivedAt) throw conflict('This site is not archived.');
     await site.update({ archivedAt: null, archivedById: null }, { transaction });
     const boards = await readSiteBoardRecords(siteId, { transaction, live: true });
-    await auditMany(
-      actor,
-      [
-        { action: 'site.restored', details: { siteId, name: site.name }, boardId: null },
-        ...boards.map((b) => ({
-          action: 'board.restored' as const,
-          details: { name: b.name, siteId, site: site.name },
-          boardId: b.id,
-        })),
-      ],
-      { transaction },
-    );
+    const events = [
+      { action: 'site.restored' as const, details: { siteId, name: site.name }, boardId: null },
+      ...boards.map((b) => ({
+        action: 'board.restored' as const,
+        details: { name: b.name, siteId, site: site.name },
+        boardId: b.id,
+      })),
+    ];
+    await auditMany(actor, events, { transaction });
   });
   return getSite(actor, siteId);
 }

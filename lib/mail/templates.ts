@@ -172,7 +172,7 @@ export function scheduleMail(f: ScheduleMailFacts): MailContent {
   };
 }
 
-/** What the e-mail carrying a site pack says (lib/dal/site-pack-mail.ts). */
+/** What the e-mail carrying a site pack says (lib/dal/schedule-mail.ts emailSitePack). */
 export type SitePackMailFacts = { siteName: string; boardCount: number; senderName: string; message?: string };
 
 /** A site pack sent to an address: the sender's note, what the pack holds, and the design-aid caution. */

@@ -16,7 +16,8 @@ import type { Actor } from '@/lib/auth/session';
 import type { BoardDto } from '@/lib/boards/types';
 import { addAttachment } from '@/lib/dal/attachments';
 import { submitBoard } from '@/lib/dal/board-status';
-import { archiveBoard, getBoard, removeBoard } from '@/lib/dal/boards';
+import { readBoard } from '@/lib/dal/board-repository';
+import { archiveBoard, removeBoard } from '@/lib/dal/boards';
 import { addComment } from '@/lib/dal/comments';
 import { approveBoard } from '@/lib/dal/issue-and-return';
 import { archiveSite } from '@/lib/dal/sites';
@@ -398,7 +399,7 @@ export async function makeFixture(
     await approveBoard(inspector, board.id, { acknowledgeFailures: true, declaration: inspector.name });
   }
   // The board as GET /api/boards/:id shows it, before an archive or delete hides or changes it
-  const dto = await getBoard(actorOf(org, 'admin'), board.id);
+  const dto = await readBoard(actorOf(org, 'admin'), board.id);
   if (at === 'archived') await archiveBoard(actorOf(org, 'admin'), board.id);
   if (at === 'deleted') await removeBoard(actorOf(org, 'designer'), board.id);
   if (at === 'site-archived') await archiveSite(actorOf(org, 'admin'), site.id);

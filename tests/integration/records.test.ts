@@ -33,7 +33,7 @@ import * as siteRoute from '@/app/api/sites/[siteId]/route';
 import * as sitesRoute from '@/app/api/sites/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
-import { getReturnNotes } from '@/lib/dal/return-notes';
+import { getReturnNotes } from '@/lib/dal/comments';
 import { dispatchDueMail } from '@/lib/mail/outbox';
 import { getObjectBytes } from '@/lib/storage/s3';
 import { Attachment, AuditEvent, Board, BoardRevision, Comment, Site } from '@/models';

@@ -1,4 +1,5 @@
 import { apiFetch, ApiError } from '@/lib/api/client';
+import type { FailingWay } from '@/lib/boards/review-types';
 import type { BoardDto } from '@/lib/boards/types';
 import type { FeedChange } from '@/lib/sites/tree-types';
 import type { BoardResult } from '@/lib/sizing';
@@ -27,7 +28,7 @@ const bodyField = (err: ApiError, name: string): unknown => (err.body as Record<
  * How a save ended: saved, someone else saved first (with their version), the save would take
  * a feeding way from other boards (asked first: they would be fed from the origin), or refused.
  */
-export type SaveOutcome =
+type SaveOutcome =
   | { kind: 'saved'; board: BoardDto }
   | { kind: 'conflict'; theirVersion: number; message: string }
   | { kind: 'feed-changes'; feedChanges: FeedChange[]; message: string }
@@ -65,13 +66,10 @@ export async function saveDraft(
   }
 }
 
-/** One failing way in a refusal to send for review. */
-export type RefusedWay = { wayId: string; label: string | null; serves: string; problems: string[] };
-
 /** How sending for review ended. */
-export type SubmitOutcome =
+type SubmitOutcome =
   | { kind: 'sent'; board: BoardDto }
-  | { kind: 'refused'; message: string; failing: RefusedWay[] }
+  | { kind: 'refused'; message: string; failing: FailingWay[] }
   | { kind: 'conflict'; message: string };
 
 /** Sends the stored board for review at `version`. */
@@ -85,7 +83,7 @@ export async function submitForReview(boardId: string, version: number): Promise
   } catch (err) {
     if (!(err instanceof ApiError)) throw err;
     if (err.status === 422)
-      return { kind: 'refused', message: err.message, failing: (bodyField(err, 'failing') as RefusedWay[]) ?? [] };
+      return { kind: 'refused', message: err.message, failing: (bodyField(err, 'failing') as FailingWay[]) ?? [] };
     if (err.status === 409) return { kind: 'conflict', message: err.message };
     throw err;
   }

@@ -16,26 +16,28 @@ import {
   type DragStartEvent,
 } from '@dnd-kit/core';
 import { sortableKeyboardCoordinates } from '@dnd-kit/sortable';
+import { useMutation } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
-import { layoutWays } from '@/lib/boards/layout';
-import { drawRails, placementProblem, railCapacities } from '@/lib/boards/rail';
+import { wayLabelMap } from '@/lib/boards/layout';
+import { drawRails, railCapacities } from '@/lib/boards/rail';
 import type { BoardDto } from '@/lib/boards/types';
-import type { ReturnNotes } from '@/lib/boards/review-types';
+import type { FailingWay, ReturnNotes } from '@/lib/boards/review-types';
 import type { DeviceOnRail } from '@/lib/sizing';
 
-import { submitForReview, type RefusedWay } from '../api/board-editor-api';
+import { submitForReview } from '../api/board-editor-api';
 import { useBoardSave } from '../hooks/use-board-save';
 import { clearStoredDraft, readStoredDraft, useDraftPersistence } from '../hooks/use-draft-persistence';
 import { LiveSizing } from '../hooks/use-live-sizing';
 import { useUndoShortcuts } from '../hooks/use-undo-shortcuts';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
-import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS, type ActiveData } from '../utils/announcements';
+import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS } from '../utils/announcements';
 import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
 import { editorBoard } from '../utils/board-shape';
-import { dropTarget, type OverData } from '../utils/drop-target';
+import { wayName } from '../utils/describe';
+import { dropProblem, dropTarget, type ActiveData, type OverData } from '../utils/drop-target';
 import { newWayId } from '../utils/ids';
 import { BinZone } from './bin-zone';
 import { BoardSummary } from './board-summary';
@@ -51,7 +53,7 @@ import { SubmitConfirmDialog } from './submit-confirm-dialog';
 import { WayPanel } from './way-panel';
 
 /** What the signed-in member may do on this board (the server checks each again). */
-export type EditorAbilities = { edit: boolean; size: boolean; submit: boolean };
+type EditorAbilities = { edit: boolean; size: boolean; submit: boolean };
 
 type BoardEditorProps = {
   board: BoardDto;
@@ -71,11 +73,7 @@ const collision: CollisionDetection = (args) => {
   return closestCorners(args);
 };
 
-/**
- * The board editor: the drawn board, the device tray, the way panel and the board summary,
- * wired to the draft store; live sizing, saving with conflict handling, the kept draft and
- * undo shortcuts run in hooks beside it.
- */
+/** The board editor: its parts wired to the draft store; sizing, saving, the kept draft and undo run in hooks. */
 export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = null }: BoardEditorProps) {
   const loadedId = useBoardDraftStore((s) => s.boardId);
   const status = useBoardDraftStore((s) => s.status);
@@ -151,9 +149,9 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     const { settings, ways, removeWay, undo } = useBoardDraftStore.getState();
     const way = ways.find((w) => w.id === id);
     if (!way || !settings) return;
-    const label = layoutWays(settings.phases, ways).find((p) => p.id === id)?.label;
+    const label = wayLabelMap(settings.phases, ways).get(id);
     removeWay(id);
-    toast(`Removed ${label ? `way ${label}` : deviceWords(way.device)}.`, {
+    toast(`Removed ${wayName(way, label)}.`, {
       action: { label: 'Undo', onClick: () => undo() },
     });
   }, []);
@@ -161,14 +159,8 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   const refusalFor = useCallback((active: ActiveData, over: OverData): string | null => {
     const { settings, ways } = useBoardDraftStore.getState();
     if (!settings || !active) return null;
-    const movingId = active.from === 'rail' ? active.wayId : null;
-    const target = dropTarget(ways, movingId, over);
-    if (!target || target.kind !== 'place') return null;
-    const way =
-      active.from === 'rail'
-        ? ways.find((w) => w.id === active.wayId)
-        : { id: '(new)', rail: target.rail, position: target.index, device: active.device };
-    return way ? placementProblem(settings, ways, way, target.rail, target.index) : null;
+    const target = dropTarget(ways, active.from === 'rail' ? active.wayId : null, over);
+    return target?.kind === 'place' ? dropProblem(settings, ways, active, target) : null;
   }, []);
 
   const endDrag = () => {
@@ -217,17 +209,16 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
   }, []);
 
   // Sending for review: save first, then ask the server
-  const [submitting, setSubmitting] = useState(false);
   const [confirmingSubmit, setConfirmingSubmit] = useState(false);
-  const [refusal, setRefusal] = useState<{ message: string; failing: RefusedWay[] } | null>(null);
-  const sendForReview = async () => {
-    setSubmitting(true);
-    try {
+  const [refusal, setRefusal] = useState<{ message: string; failing: FailingWay[] } | null>(null);
+  const sendForReview = useMutation({
+    mutationFn: async () => {
       if (useBoardDraftStore.getState().dirty && !(await save())) {
-        toast.error('Save the board first; it could not be saved just now.');
-        return;
+        throw new Error('Save the board first; it could not be saved just now.');
       }
-      const outcome = await submitForReview(board.id, useBoardDraftStore.getState().baseVersion);
+      return submitForReview(board.id, useBoardDraftStore.getState().baseVersion);
+    },
+    onSuccess: (outcome) => {
       if (outcome.kind === 'sent') {
         clearStoredDraft(board.id);
         useBoardDraftStore.getState().load(editorBoard(outcome.board));
@@ -237,12 +228,9 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
       } else {
         toast.error(outcome.message);
       }
-    } catch (err) {
-      toast.error((err as Error).message);
-    } finally {
-      setSubmitting(false);
-    }
-  };
+    },
+    onError: (err) => toast.error(err.message),
+  });
 
   const savePhase = useSaveStore((s) => s.phase);
   const feedChanges = useSaveStore((s) => s.feedChanges);
@@ -284,7 +272,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
           canEdit={!readOnly}
           canSubmit={can.submit && status === 'draft'}
           readOnlyReason={readOnlyReason}
-          submitting={submitting}
+          submitting={sendForReview.isPending}
           onSave={() => void save()}
           onSubmit={() => setConfirmingSubmit(true)}
         />
@@ -348,7 +336,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
           onClose={() => setConfirmingSubmit(false)}
           onConfirm={() => {
             setConfirmingSubmit(false);
-            void sendForReview();
+            sendForReview.mutate();
           }}
         />
         <ReviewRefusalDialog

@@ -32,11 +32,7 @@ function CheckLine({ ok, message }: { ok: boolean; message: string }) {
   );
 }
 
-/**
- * The board summary: maximum demand, current per phase and imbalance, the incoming device
- * against the demand, modules used, and how many ways fail or are near their limit. A count
- * selects those ways on the board.
- */
+/** The board summary: the board's own figures and checks; a count of failing or near ways selects them. */
 export const BoardSummary = memo(function BoardSummary() {
   const result = useDraftSizing((s) => s.result);
   const error = useSizingError();

@@ -15,10 +15,8 @@ type CircuitFormProps = {
 };
 
 /**
- * The circuit of the selected way, a view over the draft (`useDraftForm`). Validated with the
- * engine's own schema (circuitSpecSchema), so the panel refuses exactly what the server would.
- * Each valid change goes into the draft at once; an invalid field shows its error and the draft
- * keeps the last valid circuit.
+ * The circuit of the selected way, a view over the draft (`useDraftForm`), validated with the
+ * engine's own circuitSpecSchema, so the panel refuses exactly what the server would.
  */
 export const CircuitForm = memo(function CircuitForm({ wayId, boardPhases, readOnly }: CircuitFormProps) {
   const circuit = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId)?.circuit) as CircuitSpec;

@@ -59,28 +59,14 @@ const changedSinceIssue = (status: BoardDto['status'], change: SupplyChange | nu
 /** What the tree carried to this board, in the shape the board's own record keeps it. */
 function derivedOf(tree: SiteTreeDto | undefined, boardId: string): Derived | null {
   const b = tree?.boards.find((x) => x.boardId === boardId);
-  if (!tree || !b || !b.supply || (!b.fedFrom && !tree.origin)) return null;
-  return {
-    from: b.fedFrom ? 'way' : 'origin',
-    supply: b.supply,
-    fedFrom: b.fedFrom,
-    phase: b.phase,
-    zdb: b.zdb,
-    pfc: b.pfc,
-    vdUsed: b.vdUsed,
-    subMainCurrent: b.subMainCurrent,
-    problem: b.problem,
-    treeVersion: tree.treeVersion,
-  };
+  if (!tree || !b?.supply || (!b.fedFrom && !tree.origin)) return null;
+  return { ...b, supply: b.supply, from: b.fedFrom ? 'way' : 'origin', treeVersion: tree.treeVersion };
 }
 
 /**
- * Where the board's supply comes from, shown on the editor: fed from the site's origin, or
- * "Fed from Workshop DB1, way 3L2" with the values carried down to it (earth fault loop
- * impedance, prospective fault current, volt drop used above it), greyed because they are
- * derived, each with its working on hover or focus. An editor can choose the feeding way here
- * (asked first, naming the boards that change). After a change upstream it says which of its
- * ways changed verdict (from the board's history).
+ * Where the board's supply comes from, with the values carried down to it (greyed: derived,
+ * each with its working on hover or focus). An editor may choose the feeding way here (asked
+ * first); after a change upstream it says which ways changed verdict (from the board's history).
  */
 export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
   const queryClient = useQueryClient();

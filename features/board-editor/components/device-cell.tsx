@@ -30,10 +30,9 @@ type DeviceCellProps = {
 };
 
 /**
- * One device on the rail at its module width: way reference, the device's face and its
- * verdict as icon and colour (what it serves and the verdict in words are in the rail's
- * legend, keyed by way reference, and in full on hover and focus). Drag it (pointer or keyboard) to move it; click or Enter selects it
- * for the way panel; Delete removes it (undoable).
+ * One device on the rail at its module width, its verdict as icon and colour (in words: the
+ * rail's legend, and the tip on hover and focus). Drag it to move it; click or Enter selects
+ * it; Delete removes it (undoable).
  */
 export const DeviceCell = memo(function DeviceCell({ wayId, label, start }: DeviceCellProps) {
   const way = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId))!;

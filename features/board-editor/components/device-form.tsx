@@ -5,21 +5,24 @@ import { memo } from 'react';
 import { SelectField } from '@/components/ui/field';
 import { deviceOnRailSchema, isProtectiveDevice, STANDARD_RATINGS_A, type DeviceOnRail } from '@/lib/sizing';
 
-import { BREAKING_KA } from '../utils/circuit-options';
 import { trayEntry, type TrayKind } from '../utils/device-catalogue';
 import { useDraftForm } from '../hooks/use-draft-form';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
 type DeviceFormProps = { wayId: string; readOnly: boolean };
 
+/**
+ * Rated breaking capacities offered for circuit-breakers, kA (common BS EN 60898-1 values,
+ * from memory; the manufacturer's figure is the one that counts).
+ */
+const BREAKING_KA = [3, 4.5, 6, 10, 15, 25] as const;
+
 const numberOrNull = { setValueAs: (v: string) => (v === '' || v === null ? null : Number(v)) } as const;
 const numberOrUndefined = { setValueAs: (v: string) => (v === '' || v === undefined ? undefined : Number(v)) } as const;
 
 /**
- * The device of the selected way, a view over the draft (`useDraftForm`): rating (chosen by
- * the sizing or fixed), curve, breaking capacity and residual current, validated with the
- * engine's deviceOnRailSchema. Its kind and width stay as dropped: a different device is a new
- * one from the tray.
+ * The device of the selected way, a view over the draft (`useDraftForm`) validated with the
+ * engine's deviceOnRailSchema. Its kind and width stay as dropped: another device comes from the tray.
  */
 export const DeviceForm = memo(function DeviceForm({ wayId, readOnly }: DeviceFormProps) {
   const device = useBoardDraftStore((s) => s.ways.find((w) => w.id === wayId)?.device) as DeviceOnRail;

@@ -2,7 +2,6 @@
 
 import { useDraggable } from '@dnd-kit/core';
 import { GripVertical, Plus } from 'lucide-react';
-import { useId } from 'react';
 
 import { Button } from '@/components/ui/button';
 import { cn } from '@/lib/cn';
@@ -14,6 +13,7 @@ import {
   trayEntry,
   trayFor,
   type TrayChoice,
+  type TrayEntry,
   type TrayKind,
 } from '../utils/device-catalogue';
 
@@ -28,7 +28,7 @@ type DeviceTrayProps = {
 };
 
 /** The tray id of a kind's draggable chip. */
-export const trayDragId = (kind: TrayKind) => `tray:${kind}`;
+const trayDragId = (kind: TrayKind) => `tray:${kind}`;
 
 function TrayChip({
   kind,
@@ -76,46 +76,19 @@ function TrayChip({
   );
 }
 
-function Choice<T extends string | number>({
-  label,
-  value,
-  options,
-  format = String,
-  onChange,
-}: {
-  label: string;
-  value: T | undefined;
-  options: readonly T[];
-  format?: (v: T) => string;
-  onChange: (v: T) => void;
-}) {
-  const id = useId();
-  return (
-    <label htmlFor={id} className="flex items-center gap-1.5 text-xs text-ink-soft">
-      {label}
-      <select
-        id={id}
-        value={value === undefined ? '' : String(value)}
-        onChange={(e) => {
-          const found = options.find((o) => String(o) === e.target.value);
-          if (found !== undefined) onChange(found);
-        }}
-        className="h-8 rounded-md border border-line-strong bg-paper-raised px-2 text-xs text-ink focus:border-copper focus:outline-none"
-      >
-        {options.map((o) => (
-          <option key={String(o)} value={String(o)}>
-            {format(o)}
-          </option>
-        ))}
-      </select>
-    </label>
-  );
-}
+/** The variants a tray entry lets the designer pick, in the tray's order (a single option is no choice). */
+const choicesOf = (e: TrayEntry) =>
+  [
+    { field: 'poles', label: 'Poles', options: e.poles.length > 1 ? e.poles : undefined, unit: '' },
+    { field: 'curve', label: 'Curve', options: e.curves, unit: '' },
+    { field: 'ratingA', label: 'Rating', options: e.ratings, unit: ' A' },
+    { field: 'rcdMa', label: 'Trips at', options: e.rcdMa, unit: ' mA' },
+    { field: 'rcdType', label: 'Type', options: e.rcdTypes, unit: '' },
+  ] as const;
 
 /**
- * The device tray: one chip per kind of device, showing the variant it will drop. The chip
- * picked (click or Enter) shows its variant choices below; drag a chip onto the board, or use
- * "Add to the board" to put it at the first place it fits.
+ * The device tray: one chip per kind, showing the variant it will drop; the chip picked shows
+ * its choices. Drag a chip onto the board, or "Add to the board" puts it where it first fits.
  */
 export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose, onAdd }: DeviceTrayProps) {
   const entry = trayEntry(active, boardPhases);
@@ -147,38 +120,22 @@ export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose,
       >
         <span className="text-xs font-semibold text-ink">{entry.name}</span>
         <span className="text-xs text-ink-faint">{entry.purpose}</span>
-        {entry.poles.length > 1 ? (
-          <Choice label="Poles" value={choice.poles} options={entry.poles} onChange={(poles) => set({ poles })} />
-        ) : null}
-        {entry.curves ? (
-          <Choice label="Curve" value={choice.curve} options={entry.curves} onChange={(curve) => set({ curve })} />
-        ) : null}
-        {entry.ratings ? (
-          <Choice
-            label="Rating"
-            value={choice.ratingA}
-            options={entry.ratings}
-            format={(v) => `${v} A`}
-            onChange={(ratingA) => set({ ratingA })}
-          />
-        ) : null}
-        {entry.rcdMa ? (
-          <Choice
-            label="Trips at"
-            value={choice.rcdMa}
-            options={entry.rcdMa}
-            format={(v) => `${v} mA`}
-            onChange={(rcdMa) => set({ rcdMa })}
-          />
-        ) : null}
-        {entry.rcdTypes ? (
-          <Choice
-            label="Type"
-            value={choice.rcdType}
-            options={entry.rcdTypes}
-            onChange={(rcdType) => set({ rcdType })}
-          />
-        ) : null}
+        {choicesOf(entry).map(({ field, label, options, unit }) =>
+          options ? (
+            <label key={field} className="flex items-center gap-1.5 text-xs text-ink-soft">
+              {label}
+              <select
+                value={String(choice[field] ?? '')}
+                onChange={(e) => set({ [field]: options.find((o) => String(o) === e.target.value) })}
+                className="h-8 rounded-md border border-line-strong bg-paper-raised px-2 text-xs text-ink focus:border-copper focus:outline-none"
+              >
+                {options.map((o) => (
+                  <option key={o} value={o}>{`${o}${unit}`}</option>
+                ))}
+              </select>
+            </label>
+          ) : null,
+        )}
         <Button size="sm" variant="secondary" className="ml-auto" onClick={() => onAdd(activeDevice)}>
           <Plus aria-hidden className="h-4 w-4" /> Add to the board
         </Button>

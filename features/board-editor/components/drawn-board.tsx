@@ -61,10 +61,7 @@ function useRailViews(): RailView[] {
   });
 }
 
-/**
- * The board as drawn: the enclosure and each rail to scale, every device at its module width
- * with its way reference, what it serves and its verdict, RCD brackets, gaps and free modules.
- */
+/** The board as drawn: the enclosure and each rail to scale (`RailRow`). */
 export const DrawnBoard = memo(function DrawnBoard({
   readOnly,
   showVerdicts,

@@ -10,11 +10,7 @@ type FeedChangeDialogProps = {
   onHold: () => void;
 };
 
-/**
- * The save would take away a way that feeds other boards of the site (it was removed or
- * moved). Asked before saving: each board named with what feeds it now; confirming feeds them
- * from the origin until they are linked again, and re-sizes them.
- */
+/** Asked before a save that takes away a way feeding other boards: confirmed, they are fed from the origin. */
 export function FeedChangeDialog({ feedChanges, onConfirm, onHold }: FeedChangeDialogProps) {
   return (
     <ConfirmDialog

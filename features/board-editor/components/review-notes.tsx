@@ -3,7 +3,7 @@
 import { useMutation } from '@tanstack/react-query';
 import { MessageSquare } from 'lucide-react';
 import { useRouter } from 'next/navigation';
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef } from 'react';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
@@ -24,9 +24,8 @@ function Meta({ comment }: { comment: CommentDto }) {
 }
 
 /**
- * A returned board's review, in the editor: who returned it and why at the top, then each way
- * comment with its way (a click selects the way), until the designer marks them answered.
- * E-mail links open the editor at #review-notes.
+ * A returned board's review, in the editor, until the designer marks it answered: who returned
+ * it and why, then each way's comments. E-mail links open the editor at #review-notes.
  */
 export function ReviewNotes({
   boardId,
@@ -42,25 +41,20 @@ export function ReviewNotes({
   const ways = useBoardDraftStore((s) => s.ways);
   const select = useBoardDraftStore((s) => s.select);
   const section = useRef<HTMLElement>(null);
-  // Answered: the notes go at once; the page's data follows with the refresh
-  const [answered, setAnswered] = useState(false);
   useEffect(() => {
     if (window.location.hash === '#review-notes') section.current?.scrollIntoView({ block: 'start' });
   }, []);
+  const ids = [...notes.reasons, ...notes.wayComments].map((c) => c.id);
   const answer = useMutation({
-    mutationFn: () =>
-      markCommentsAnswered(
-        boardId,
-        [...notes.reasons, ...notes.wayComments].map((c) => c.id),
-      ),
+    mutationFn: () => markCommentsAnswered(boardId, ids),
     onSuccess: () => {
-      setAnswered(true);
       toast.success('Review comments marked answered.');
       router.refresh();
     },
   });
   const serves = (wayId: string | null) => ways.find((w) => w.id === wayId)?.circuit?.serves;
-  if (answered) return null;
+  // Answered: the notes go at once; the page's data follows with the refresh
+  if (answer.isSuccess) return null;
   return (
     <section
       id="review-notes"

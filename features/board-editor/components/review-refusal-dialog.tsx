@@ -4,10 +4,10 @@ import { CircleX } from 'lucide-react';
 
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 
-import type { RefusedWay } from '../api/board-editor-api';
+import type { FailingWay } from '@/lib/boards/review-types';
 
 type ReviewRefusalDialogProps = {
-  refusal: { message: string; failing: RefusedWay[] } | null;
+  refusal: { message: string; failing: FailingWay[] } | null;
   onShowWays: (ids: string[]) => void;
   onClose: () => void;
 };

@@ -18,10 +18,7 @@ function Row({ name, value, note }: { name: React.ReactNode; value: React.ReactN
   );
 }
 
-/**
- * The whole sizing of one way: the verdict, the factors, required and chosen figures, voltage
- * drop, R1+R2, Zs against its limit, fault current, every check with its reference, and the caution.
- */
+/** The whole sizing of one way: its figures, factors, every check with its reference, and the caution. */
 export function SizingResult({ result, stale }: { result: CircuitResult; stale?: boolean }) {
   const f = result.factors;
   const failed = result.checks.filter((c) => !c.ok).length;

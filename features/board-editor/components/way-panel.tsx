@@ -38,10 +38,7 @@ function WaySizing({ wayId }: { wayId: string }) {
   return <SizingResult result={result} stale={pending || sizedFor === 0} />;
 }
 
-/**
- * The way panel: the selected way's device and circuit, and below them the full sizing of
- * the way. Several ways selected (from the board summary): a list to step through them.
- */
+/** The selected way's device, circuit and sizing; several selected (from the summary): a list to step through. */
 export const WayPanel = memo(function WayPanel({ readOnly, showSizing, onRemove }: WayPanelProps) {
   const settings = useBoardDraftStore((s) => s.settings);
   const ways = useBoardDraftStore((s) => s.ways);

@@ -14,7 +14,7 @@ import { clearStoredDraft } from './use-draft-persistence';
 /** Quiet time after the last change before the draft saves itself, ms. */
 export const AUTOSAVE_MS = 3000;
 /** First wait before a failed save is tried again; it doubles each time, up to a minute. */
-export const RETRY_FIRST_MS = 5000;
+const RETRY_FIRST_MS = 5000;
 
 /** A failure that may pass on its own: the server not reached, or not able to answer just now. */
 const passing = (err: unknown) =>
@@ -26,46 +26,39 @@ const passing = (err: unknown) =>
  */
 async function saveAttempt(boardId: string, settle: (saved: boolean) => void): Promise<void> {
   const { settings, ways, baseVersion, dirty } = useBoardDraftStore.getState();
-  const { phase, confirmFeeds } = useSaveStore.getState();
+  // The save store's `set` is one function for the store's life
+  const { phase, confirmFeeds, set: tell } = useSaveStore.getState();
   if (!settings || !dirty || phase === 'conflict' || phase === 'feeds' || phase === 'locked') return settle(!dirty);
   const snapshot = { settings, ways };
-  useSaveStore.getState().set({ phase: 'saving', message: null, confirmFeeds: false });
+  tell({ phase: 'saving', message: null, confirmFeeds: false });
   try {
     const outcome = await saveDraft(boardId, baseVersion, snapshot, confirmFeeds);
     if (outcome.kind === 'saved') {
       useBoardDraftStore.getState().markSaved(outcome.board.version, snapshot, outcome.board.status);
       if (!useBoardDraftStore.getState().dirty) clearStoredDraft(boardId);
-      useSaveStore.getState().set({ phase: 'saved', savedAt: Date.now(), message: null });
+      tell({ phase: 'saved', message: null });
     } else if (outcome.kind === 'feed-changes') {
-      useSaveStore
-        .getState()
-        .set({ phase: 'feeds', feedChanges: outcome.feedChanges, message: outcome.message, savedAt: null });
+      tell({ phase: 'feeds', feedChanges: outcome.feedChanges, message: outcome.message });
     } else if (outcome.kind === 'conflict') {
-      useSaveStore.getState().set({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
+      tell({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
     } else {
-      useSaveStore.getState().set({ phase: 'locked', message: outcome.message });
+      tell({ phase: 'locked', message: outcome.message });
     }
     settle(outcome.kind === 'saved' && !useBoardDraftStore.getState().dirty);
   } catch (err) {
-    useSaveStore
-      .getState()
-      .set({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
+    tell({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
     settle(false);
     throw err;
   }
 }
 
 /**
- * Saving the draft: `save()` on demand and on its own a few seconds after the last change, as
- * a mutation. Saves of a board run one at a time in order (the mutation's scope), each saving
- * the draft as it is when it runs. A save names the version the draft builds on; when someone
- * else saved first the save store goes to `conflict` and waits for the designer:
- * `reloadTheirs()` drops this draft for the stored board, `keepMine()` saves this draft on top
- * of theirs. A save that fails because the server is out of reach keeps the draft (in memory
- * and session storage), says so, and is tried again by the mutation's `retry`, waiting longer
- * each time. A save that would take away a way feeding other boards goes to `feeds` and waits:
- * `confirmFeeds()` saves with those boards fed from the origin, `holdFeeds()` keeps editing.
- * `save()` answers after its first attempt: whether the draft is saved now.
+ * Saving the draft, as a mutation: `save()` on demand and on its own a few seconds after the
+ * last change. Saves of a board run one at a time in order (the mutation's scope), each saving
+ * the draft as it is when it runs. A stale version waits in `conflict` (`reloadTheirs()`,
+ * `keepMine()`), a save taking feeding ways in `feeds` (`confirmFeeds()`, `holdFeeds()`); a
+ * server out of reach keeps the draft and is retried, waiting longer each time. `save()`
+ * answers after its first attempt: whether the draft is saved now.
  */
 export function useBoardSave(boardId: string, enabled: boolean) {
   const { mutate } = useMutation({

@@ -2,12 +2,12 @@
 
 import { createContext, useContext, useMemo } from 'react';
 
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
 /** How the drawn board is shown, from the editor: its parts read it rather than taking props. */
-export type BoardView = {
+type BoardView = {
   readOnly: boolean;
   showVerdicts: boolean;
   /** Why the device being dragged would not fit where it is, if it would not. */
@@ -30,7 +30,7 @@ export function useWayLabels(): Map<string, string | null> {
   const settings = useBoardDraftStore((s) => s.settings);
   const ways = useBoardDraftStore((s) => s.ways);
   return useMemo(
-    () => new Map(settings ? layoutWays(settings.phases, ways).map((p) => [p.id, p.label]) : []),
+    () => (settings ? wayLabelMap(settings.phases, ways) : new Map<string, string | null>()),
     [settings, ways],
   );
 }

@@ -16,7 +16,7 @@ const storedDraftSchema = z.object({
 });
 
 /** An unsaved draft kept in this browser tab, and the version it was built on. */
-export type StoredDraft = DraftSnapshot & { baseVersion: number };
+type StoredDraft = DraftSnapshot & { baseVersion: number };
 
 /** The session-storage key of a board's unsaved draft. */
 export function draftKey(boardId: string): string {
@@ -66,16 +66,8 @@ export function useDraftPersistence(boardId: string, enabled: boolean): void {
         // Storage full or refused: the draft stays in memory
       }
     };
-    const unsubscribe = useBoardDraftStore.subscribe((state, previous) => {
-      if (
-        state.ways !== previous.ways ||
-        state.settings !== previous.settings ||
-        state.dirty !== previous.dirty ||
-        state.baseVersion !== previous.baseVersion
-      ) {
-        write();
-      }
+    return useBoardDraftStore.subscribe((state, previous) => {
+      if ((['ways', 'settings', 'dirty', 'baseVersion'] as const).some((k) => state[k] !== previous[k])) write();
     });
-    return unsubscribe;
   }, [boardId, enabled]);
 }

@@ -12,10 +12,10 @@ import { sizeDraft } from '../api/board-editor-api';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
 /** Quiet time after a change before the draft is sized again, when changes come quickly, ms. */
-export const SIZING_DEBOUNCE_MS = 80;
+const SIZING_DEBOUNCE_MS = 80;
 
 /** The sizing of the draft at one edit sequence. */
-export type DraftSizing = { editSeq: number; result: BoardResult };
+type DraftSizing = { editSeq: number; result: BoardResult };
 
 /** The query key of the draft's sizing at an edit sequence. */
 export const sizingKey = (boardId: string, editSeq: number) => ['board-sizing', boardId, editSeq] as const;

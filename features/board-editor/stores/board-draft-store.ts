@@ -11,8 +11,8 @@ import { sameValue } from '../utils/same-value';
 /** How many steps undo keeps (the issue asks for at least 50). */
 export const UNDO_LIMIT = 100;
 
-/** A refusal or a note the editor shows (and reads out) once. */
-export type EditorNotice = { tone: 'refused' | 'info'; message: string; id: number };
+/** A refusal the editor shows (and reads out) once. */
+type EditorNotice = { message: string };
 
 type State = {
   boardId: string | null;
@@ -61,14 +61,13 @@ type Actions = {
   markSaved: (version: number, snapshot: DraftSnapshot, status?: BoardStatus) => void;
   /** Keep this draft but build on `version` (after a conflict: "keep mine"). */
   rebase: (version: number) => void;
-  setStatus: (status: BoardStatus) => void;
   /** Keeps (or, with null, drops) a form's input that is not valid yet. */
   keepUnfinished: (key: string, values: unknown) => void;
   clearNotice: () => void;
   reset: () => void;
 };
 
-export type BoardDraftState = State & Actions;
+type BoardDraftState = State & Actions;
 
 const initial: State = {
   boardId: null,
@@ -86,8 +85,6 @@ const initial: State = {
   notice: null,
   unfinished: {},
 };
-
-let noticeId = 0;
 
 const isSaved = (saved: DraftSnapshot | null, settings: BoardSettings | null, ways: EditorWay[]) =>
   !!saved && saved.settings === settings && saved.ways === ways;
@@ -144,7 +141,7 @@ function commit(state: State, next: Partial<DraftSnapshot>, key: string | null =
 
 /** Refuses an edit: the reason is shown (and read out), and answered. */
 function refuse(set: (partial: Partial<State>) => void, reason: string): EditResult {
-  set({ notice: { tone: 'refused', message: reason, id: ++noticeId } });
+  set({ notice: { message: reason } });
   return { ok: false, reason };
 }
 
@@ -205,12 +202,7 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
     if (problem) return refuse(set, problem);
     const ways = placeWay(state.ways, way, rail, index);
     // Dropped back where it was: no undo step (both lists are in rail order)
-    const unchanged =
-      ways.length === state.ways.length &&
-      ways.every(
-        (w, i) => w.id === state.ways[i].id && w.rail === state.ways[i].rail && w.position === state.ways[i].position,
-      );
-    if (unchanged) return { ok: true };
+    if (sameValue(ways, state.ways)) return { ok: true };
     set({ ...commit(state, { ways }), notice: null });
     return { ok: true };
   },
@@ -223,10 +215,8 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
   },
 
   updateCircuit: (id, circuit, key) => {
-    const state = get();
-    const way = state.ways.find((w) => w.id === id);
-    if (!way) return;
-    set(setWayPart(state, way, 'circuit', circuit, key));
+    const way = get().ways.find((w) => w.id === id);
+    if (way) set(setWayPart(get(), way, 'circuit', circuit, key));
   },
 
   updateDevice: (id, device, key) => {
@@ -286,7 +276,6 @@ export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
   },
 
   rebase: (version) => set({ baseVersion: version }),
-  setStatus: (status) => set({ status }),
   clearNotice: () => set({ notice: null }),
   keepUnfinished: (key, values) =>
     set((state) => ({

@@ -6,14 +6,13 @@ import type { FeedChange } from '@/lib/sites/tree-types';
  * Where saving stands. `conflict`: someone else saved first; `feeds`: the save would take the
  * way feeding other boards and waits for the designer; `locked`: the board may not be saved now.
  */
-export type SavePhase = 'idle' | 'saving' | 'saved' | 'failed' | 'conflict' | 'feeds' | 'locked';
+type SavePhase = 'idle' | 'saving' | 'saved' | 'failed' | 'conflict' | 'feeds' | 'locked';
 
 type SaveState = {
   phase: SavePhase;
   message: string | null;
   /** The stored version when a save met a conflict ("keep mine" saves on top of it). */
   theirVersion: number | null;
-  savedAt: number | null;
   /** In `feeds`: the boards whose feeding way the save takes (they would be fed from the origin). */
   feedChanges: FeedChange[] | null;
   /** The designer agreed to those feed changes: the next save sends `confirmFeedChanges`. */
@@ -26,7 +25,6 @@ const initial = {
   phase: 'idle' as SavePhase,
   message: null,
   theirVersion: null,
-  savedAt: null,
   feedChanges: null,
   confirmFeeds: false,
 };

@@ -1,13 +1,12 @@
 import type { Announcements, ScreenReaderInstructions } from '@dnd-kit/core';
 
-import { layoutWays } from '@/lib/boards/layout';
-import { placementProblem } from '@/lib/boards/rail';
+import { wayLabelMap } from '@/lib/boards/layout';
 import type { BoardSettings } from '@/lib/boards/schemas';
-import type { DeviceOnRail } from '@/lib/sizing';
 
 import type { EditorWay } from '../types/draft';
+import { wayName } from './describe';
 import { deviceWords } from './device-catalogue';
-import { dropTarget, type OverData } from './drop-target';
+import { dropProblem, dropTarget, type ActiveData, type OverData } from './drop-target';
 
 /** What the screen reader is told on reaching a draggable device. Our words. */
 export const SCREEN_READER_INSTRUCTIONS: ScreenReaderInstructions = {
@@ -16,8 +15,6 @@ export const SCREEN_READER_INSTRUCTIONS: ScreenReaderInstructions = {
 };
 
 type Getter = () => { settings: BoardSettings | null; ways: EditorWay[] };
-/** What is being dragged, from the draggables' data. */
-export type ActiveData = { from: 'tray'; device: DeviceOnRail } | { from: 'rail'; wayId: string } | undefined;
 
 /**
  * Spoken feedback while dragging with the keyboard (or pointer), in Boardwright's own words:
@@ -30,18 +27,17 @@ export function boardAnnouncements(
 ): Announcements & { describeDrop: (active: ActiveData, over: OverData) => string } {
   const describe = (active: ActiveData) => {
     const { settings, ways } = get();
-    if (!active || !settings) return { name: 'the device', device: null, movingId: null };
-    if (active.from === 'tray')
-      return { name: `a new ${deviceWords(active.device)}`, device: active.device, movingId: null };
+    if (!active || !settings) return { name: 'the device', movingId: null };
+    if (active.from === 'tray') return { name: `a new ${deviceWords(active.device)}`, movingId: null };
     const way = ways.find((w) => w.id === active.wayId);
-    const label = layoutWays(settings.phases, ways).find((p) => p.id === active.wayId)?.label;
+    const label = wayLabelMap(settings.phases, ways).get(active.wayId);
     const name = way ? `${label ? `way ${label}, ` : ''}${deviceWords(way.device)}` : 'the way';
-    return { name, device: way?.device ?? null, movingId: active.wayId };
+    return { name, movingId: active.wayId };
   };
 
   const where = (active: ActiveData, over: OverData, past: boolean): string => {
     const { settings, ways } = get();
-    const { name, device, movingId } = describe(active);
+    const { name, movingId } = describe(active);
     const target = dropTarget(ways, movingId, over);
     if (!target || !settings) return past ? `${name} was put back; nothing changed.` : `${name} is not over the board.`;
     if (target.kind === 'bin') {
@@ -52,18 +48,16 @@ export function boardAnnouncements(
     }
     if (target.stays)
       return past ? `${name} was put down where it was; nothing changed.` : `${name} would stay where it is.`;
-    const labels = new Map(layoutWays(settings.phases, ways).map((p) => [p.id, p.label]));
+    const labels = wayLabelMap(settings.phases, ways);
     const rail = settings.rails > 1 ? ` of rail ${target.rail + 1}` : '';
-    const named = (id: string) =>
-      labels.get(id) ? `way ${labels.get(id)}` : deviceWords(ways.find((w) => w.id === id)!.device);
+    const wayOf = (id: string) => ways.find((w) => w.id === id)!;
+    const named = (id: string) => wayName(wayOf(id), labels.get(id));
     const spot = target.afterId
       ? `after ${named(target.afterId)}${rail}`
       : target.beforeId
         ? `before ${named(target.beforeId)}${rail}`
         : `at the end${rail || ' of the rail'}`;
-    const moving = movingId ? ways.find((w) => w.id === movingId) : undefined;
-    const candidate = moving ?? (device ? { id: '(new)', rail: target.rail, position: target.index, device } : null);
-    const problem = candidate ? placementProblem(settings, ways, candidate, target.rail, target.index) : null;
+    const problem = active ? dropProblem(settings, ways, active, target) : null;
     if (problem)
       return past ? `${name} was not placed. ${problem}` : `${name} would go ${spot}, but it does not fit. ${problem}`;
     return past ? `${name} was put down ${spot}.` : `${name} would go ${spot}.`;

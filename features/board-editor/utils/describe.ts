@@ -6,7 +6,7 @@ import { deviceWords } from './device-catalogue';
 const VERDICT = { passes: 'passes', 'near-limit': 'is near its limit', fails: 'fails' } as const;
 
 /** "way 3" or, for a device without a way number, its kind: how the editor names a way aloud. */
-export function wayName(way: EditorWay, label: string | null): string {
+export function wayName(way: EditorWay, label: string | null | undefined): string {
   return label ? `way ${label}` : deviceWords(way.device);
 }
 

@@ -1,9 +1,8 @@
 import { deviceFaceName } from '@/lib/names';
 import type { DeviceOnRail } from '@/lib/sizing';
 
-/** The kinds of device the tray offers, in the order it shows them. */
-export const TRAY_KINDS = ['main-switch', 'rcd', 'mcb', 'rcbo', 'fuse-bs88-2', 'fuse-bs3036', 'spd', 'blank'] as const;
-export type TrayKind = (typeof TRAY_KINDS)[number];
+/** The kinds of device the tray offers (`TRAY` has them in the order it shows them). */
+export type TrayKind = 'main-switch' | 'rcd' | 'mcb' | 'rcbo' | 'fuse-bs88-2' | 'fuse-bs3036' | 'spd' | 'blank';
 
 /** A tray item's chosen variant: every field the tray lets the designer pick. */
 export type TrayChoice = {
@@ -33,7 +32,7 @@ export type TrayEntry = {
 const MCB_RATINGS = [6, 10, 16, 20, 25, 32, 40, 50, 63] as const;
 const RCBO_RATINGS = [6, 10, 16, 20, 25, 32, 40] as const;
 
-export const TRAY: readonly TrayEntry[] = [
+const TRAY: readonly TrayEntry[] = [
   {
     kind: 'main-switch',
     name: 'Main switch',

@@ -1,13 +1,19 @@
 import { railOrder } from '@/lib/boards/layout';
+import { placementProblem } from '@/lib/boards/rail';
+import type { BoardSettings } from '@/lib/boards/schemas';
+import type { DeviceOnRail } from '@/lib/sizing';
 
 import type { EditorWay } from '../types/draft';
+
+/** What is being dragged, from the draggables' data. */
+export type ActiveData = { from: 'tray'; device: DeviceOnRail } | { from: 'rail'; wayId: string } | undefined;
 
 /** What a drag is over, from the drop zones' data. */
 export type OverData =
   { to: 'free'; rail: number } | { to: 'bin' } | { from: 'rail'; wayId: string; rail: number } | undefined;
 
 /** Where a drop would put the device: a place on a rail, the bin, or nowhere. */
-export type DropTarget =
+type DropTarget =
   | { kind: 'place'; rail: number; index: number; beforeId: string | null; afterId?: string; stays?: boolean }
   | { kind: 'bin' }
   | null;
@@ -40,4 +46,18 @@ export function dropTarget(ways: readonly EditorWay[], movingId: string | null, 
   return fromLeft
     ? { kind: 'place', rail: target.rail, index, beforeId: onRail[at + 1]?.id ?? null, afterId: target.id }
     : { kind: 'place', rail: target.rail, index, beforeId: target.id };
+}
+
+/** Why the dragged device would not fit at the place `target`, or null when it fits. */
+export function dropProblem(
+  settings: BoardSettings,
+  ways: readonly EditorWay[],
+  active: NonNullable<ActiveData>,
+  target: Extract<DropTarget, { kind: 'place' }>,
+): string | null {
+  const way =
+    active.from === 'rail'
+      ? ways.find((w) => w.id === active.wayId)
+      : { id: '(new)', rail: target.rail, position: target.index, device: active.device };
+  return way ? placementProblem(settings, ways, way, target.rail, target.index) : null;
 }

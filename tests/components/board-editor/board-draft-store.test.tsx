@@ -26,6 +26,19 @@ describe('the board draft store', () => {
     expect(store().past).toHaveLength(0);
   });
 
+  it('a way dropped back where it was is no edit; dropped one place on, it is one undo step', () => {
+    store().load(demoBoard('flat'));
+    const [, second] = store().ways;
+    const before = store().ways;
+    expect(store().moveWay(second.id, second.rail, 1)).toEqual({ ok: true });
+    expect(store().ways).toBe(before);
+    expect(store().past).toHaveLength(0);
+    expect(store().dirty).toBe(false);
+    store().moveWay(second.id, second.rail, 2);
+    expect(store().ways).not.toBe(before);
+    expect(store().past).toHaveLength(1);
+  });
+
   it('undo and redo step through changes, and the dirty flag follows the saved copy', () => {
     store().load(demoBoard('flat'));
     const before = store().ways;

@@ -6,6 +6,7 @@ import {
   issueRefusal,
   labelChangeUnverifies,
   mayRestore,
+  revisionAfter,
   sameName,
   siteRemoval,
 } from '@/lib/boards/record-rules';
@@ -83,6 +84,24 @@ describe('label checks and the board status', () => {
     fc.assert(
       fc.property(fc.constantFrom(...BOARD_STATUSES), fc.constantFrom(...LABEL_STATUSES), (status, next) => {
         expect(labelChangeUnverifies(status, next)).toBe(status === 'labels-matched' && next !== 'matches');
+      }),
+    );
+  });
+});
+
+describe('the revision a board is issued as', () => {
+  it('is its own revision, unless that one was issued already', () => {
+    expect(revisionAfter(1, 0)).toBe(1); // never issued: revision 1
+    expect(revisionAfter(2, 1)).toBe(2); // the draft after issue 1
+    expect(revisionAfter(1, 1)).toBe(2); // revision 1 issued meanwhile: the next one
+  });
+
+  it('is never one issued already, nor below the board’s own', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 500 }), fc.integer({ min: 0, max: 500 }), (revision, lastIssued) => {
+        const next = revisionAfter(revision, lastIssued);
+        expect(next).toBeGreaterThan(lastIssued);
+        expect(next).toBeGreaterThanOrEqual(revision);
       }),
     );
   });

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
 import { isIssued } from '@/lib/boards/lifecycle';
-import { readBoardFrame } from '@/lib/dal/boards';
+import { readBoardFrame } from '@/lib/dal/board-repository';
 import { HttpError } from '@/lib/errors';
 
 import { ArchivedBanner } from './_components/archived-banner';

@@ -8,8 +8,8 @@ import { RevisionDiff } from '@/features/review/components/revision-diff';
 import { can } from '@/lib/auth/permissions';
 import { requireActor } from '@/lib/auth/session';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { getBoard, readBoardFrame } from '@/lib/dal/boards';
-import { getReturnNotes } from '@/lib/dal/return-notes';
+import { readBoard, readBoardFrame } from '@/lib/dal/board-repository';
+import { getReturnNotes } from '@/lib/dal/comments';
 import { HttpError } from '@/lib/errors';
 
 import { LabelFindings } from './_components/label-findings';
@@ -26,7 +26,7 @@ export default async function BoardPage({ params }: Props) {
   const actor = await requireActor('boards.read');
   let board;
   try {
-    board = await getBoard(actor, parsed.data.boardId);
+    board = await readBoard(actor, parsed.data.boardId);
   } catch (err) {
     if (err instanceof HttpError && err.status === 404) notFound();
     throw err;

@@ -1,13 +1,14 @@
 import { defineRoute } from '@/lib/api/handler';
 import { boardRenameSchema, boardSaveSchema, idParamsSchema } from '@/lib/boards/schemas';
-import { getBoard, removeBoard, renameBoard, saveBoard } from '@/lib/dal/boards';
+import { readBoard } from '@/lib/dal/board-repository';
+import { removeBoard, renameBoard, saveBoard } from '@/lib/dal/boards';
 import { removalQuerySchema } from '@/lib/sites/tree-types';
 
 /** GET /api/boards/:boardId: the board with its ways. */
 export const GET = defineRoute({
   action: 'boards.read',
   params: idParamsSchema,
-  handler: async ({ actor, params: { boardId } }) => Response.json({ board: await getBoard(actor, boardId) }),
+  handler: async ({ actor, params: { boardId } }) => Response.json({ board: await readBoard(actor, boardId) }),
 });
 
 /**

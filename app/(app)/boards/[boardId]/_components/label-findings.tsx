@@ -1,5 +1,5 @@
 import { LABEL_STATE_LOOKS } from '@/components/ui/label-state-badge';
-import { layoutWays } from '@/lib/boards/layout';
+import { wayLabelMap } from '@/lib/boards/layout';
 import type { BoardDto } from '@/lib/boards/types';
 
 /**
@@ -7,7 +7,7 @@ import type { BoardDto } from '@/lib/boards/types';
  * designer and inspector to act on. Server-rendered from the board's ways.
  */
 export function LabelFindings({ board }: { board: BoardDto }) {
-  const labels = new Map(layoutWays(board.phases, board.ways).map((p) => [p.id, p.label]));
+  const labels = wayLabelMap(board.phases, board.ways);
   const checked = board.ways.filter((w) => w.labelStatus !== 'unchecked');
   const problems = board.ways.filter((w) => w.labelStatus === 'wrong' || w.labelStatus === 'missing');
   if (!checked.length) return null;

@@ -10,7 +10,7 @@ import { buildSchedule } from '@/features/schedule/utils/build-schedule';
 import { boardQrCode } from '@/features/schedule/utils/qr-code';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
-import { boardStage, listRevisions } from '@/lib/dal/revisions';
+import { listRevisions } from '@/lib/dal/revisions';
 import { getScheduleSource } from '@/lib/dal/schedule-source';
 import { HttpError } from '@/lib/errors';
 
@@ -50,7 +50,6 @@ export default async function SchedulePage({
   const loaded = await Promise.all([
     getScheduleSource(actor, boardId, query.data.revision),
     listRevisions(actor, boardId),
-    boardStage(actor, boardId),
   ]).catch((err: unknown) => {
     if (err instanceof HttpError && (err.status === 404 || err.status === 403)) return err;
     throw err;
@@ -63,7 +62,7 @@ export default async function SchedulePage({
       </EmptyState>
     );
   }
-  const [source, revisions, stage] = loaded;
+  const [source, { revisions, current: stage }] = loaded;
   const data = buildSchedule(source);
   const choices = [
     ...(can(actor.role, 'schedule.print-draft') && !revisions.some((r) => r.revision === stage.revision)

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 
 import { defineRoute } from '@/lib/api/handler';
-import { emailSitePack } from '@/lib/dal/site-pack-mail';
+import { emailSitePack } from '@/lib/dal/schedule-mail';
 import { sitePackEmailSchema } from '@/lib/sites/tree-types';
 
 import { composeSitePack } from '../compose';
