@@ -2,6 +2,7 @@ import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 
 import { JOIN_MARK_MM, MODULE_PITCH_MM, type LabelSheet } from '../utils/build-labels';
 import { PRINT_FONT } from '../utils/fonts';
+import { PRINT_INK } from '../utils/print-palette';
 
 /** Points per millimetre (72 pt to the inch). */
 const MM = 72 / 25.4;
@@ -10,7 +11,7 @@ const MM = 72 / 25.4;
 const LABEL_HEIGHT_MM = 14;
 
 const styles = StyleSheet.create({
-  page: { fontFamily: PRINT_FONT, color: '#1f2a37', padding: 10 * MM, fontSize: 7 },
+  page: { fontFamily: PRINT_FONT, color: PRINT_INK, padding: 10 * MM, fontSize: 7 },
   title: { fontSize: 11, fontWeight: 700 },
   meta: { fontSize: 7.5, color: '#4b5563', marginTop: 2 },
   scale: { flexDirection: 'row', alignItems: 'center', marginTop: 5, marginBottom: 6 },

@@ -1,16 +1,17 @@
 import { Document, Image, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 
 import { PRINT_FONT } from '../utils/fonts';
+import {
+  PRINT_COPPER as COPPER,
+  PRINT_FAINT as FAINT,
+  PRINT_INK as INK,
+  PRINT_SOFT as SOFT,
+  VERDICT_TONES as TONES,
+} from '../utils/print-palette';
 import type { ScheduleData, ScheduleFact, ScheduleRow } from '../utils/build-schedule';
 import { PAGE, scaledColumns, type SchedulePage } from '../utils/paginate-schedule';
 
-// Boardwright's print palette: the app's ink, copper and verdict tones.
-const INK = '#1f2a37';
-const SOFT = '#4b5563';
-const FAINT = '#8a93a0';
 const LINE = '#dcd7cc';
-const COPPER = '#b5652b';
-const TONES = { passes: '#2f7d4f', 'near-limit': '#9a6a00', fails: '#b3261e' } as const;
 
 const styles = StyleSheet.create({
   page: {

@@ -5,7 +5,7 @@ import { SIZING_CAUTION } from '@/lib/sizing';
 import type { SiteResult } from '@/lib/supply';
 
 import { SitePackDocument } from './components/site-pack-document';
-import { registerSitePackFonts } from './utils/fonts';
+import { registerPrintFonts } from '../utils/fonts';
 
 export type RenderedSitePack = { pdf: Uint8Array; fileName: string };
 
@@ -30,7 +30,7 @@ export async function renderSitePackPdf(
   siteName: string,
   now = new Date(),
 ): Promise<RenderedSitePack> {
-  registerSitePackFonts();
+  registerPrintFonts();
   const printedOn = now.toISOString().slice(0, 10);
   const element = createElement(SitePackDocument, {
     site,

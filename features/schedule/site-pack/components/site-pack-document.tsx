@@ -5,16 +5,14 @@ import { DIAGRAM, layoutSite, type PlacedBoard } from '@/components/site-diagram
 import { EARTHING_NAMES, fedFromWords, selectivityWords, SUPPLY_SOURCE_NAMES, VERDICT_WORDS } from '@/lib/names';
 import { groupSelectivity, placesWords, type SiteBoardResult, type SiteResult, type Working } from '@/lib/supply';
 
-import { SITE_PACK_FONT } from '../utils/fonts';
+import { PRINT_FONT } from '../../utils/fonts';
+import { PRINT_INK as INK, PRINT_SOFT as SOFT, VERDICT_TONES as VERDICT_INK } from '../../utils/print-palette';
 
-const INK = '#1f2a37';
-const SOFT = '#4b5563';
 const LINE = '#b9b2a3';
-const VERDICT_INK = { passes: '#2a7246', 'near-limit': '#8a5e00', fails: '#b3261e' } as const;
 
 const styles = StyleSheet.create({
   page: {
-    fontFamily: SITE_PACK_FONT,
+    fontFamily: PRINT_FONT,
     fontSize: 9,
     color: INK,
     paddingTop: 36,
@@ -128,28 +126,28 @@ function BoardDrawing({ p }: { p: PlacedBoard }) {
               />
             </G>
           ) : null}
-          <Text x={x} y={y - feedHeight + 18} style={{ fontFamily: SITE_PACK_FONT, fontSize: 10 }} fill={INK}>
+          <Text x={x} y={y - feedHeight + 18} style={{ fontFamily: PRINT_FONT, fontSize: 10 }} fill={INK}>
             {`${b.fedFrom.device}${b.fedFrom.wayLabel ? ` (way ${b.fedFrom.wayLabel})` : ''}${b.phase ? `, ${b.phase}` : ''}`}
           </Text>
-          <Text x={x} y={y - feedHeight + 32} style={{ fontFamily: SITE_PACK_FONT, fontSize: 9 }} fill={SOFT}>
+          <Text x={x} y={y - feedHeight + 32} style={{ fontFamily: PRINT_FONT, fontSize: 9 }} fill={SOFT}>
             {b.fedFrom.cable}
           </Text>
         </G>
       ) : null}
       <Rect x={x} y={y} width={w} height={h} rx={6} stroke={LINE} strokeWidth={1.2} fill="#ffffff" />
-      <Text x={x + 10} y={y + 20} style={{ fontFamily: SITE_PACK_FONT, fontSize: 12, fontWeight: 700 }} fill={INK}>
+      <Text x={x + 10} y={y + 20} style={{ fontFamily: PRINT_FONT, fontSize: 12, fontWeight: 700 }} fill={INK}>
         {b.name}
       </Text>
-      <Text x={x + 10} y={y + 40} style={{ fontFamily: SITE_PACK_FONT, fontSize: 10 }} fill={INK}>
+      <Text x={x + 10} y={y + 40} style={{ fontFamily: PRINT_FONT, fontSize: 10 }} fill={INK}>
         {b.problem ? 'No carried values: see the sub-main above' : values}
       </Text>
-      <Text x={x + 10} y={y + 58} style={{ fontFamily: SITE_PACK_FONT, fontSize: 10 }} fill={SOFT}>
+      <Text x={x + 10} y={y + 58} style={{ fontFamily: PRINT_FONT, fontSize: 10 }} fill={SOFT}>
         {second}
       </Text>
       <Text
         x={x + 10}
         y={y + 78}
-        style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700 }}
+        style={{ fontFamily: PRINT_FONT, fontSize: 10, fontWeight: 700 }}
         fill={b.worstVerdict ? VERDICT_INK[b.worstVerdict] : SOFT}
       >
         {b.worstVerdict ? `Worst verdict: ${VERDICT_WORDS[b.worstVerdict]}` : 'Not sized'}
@@ -207,7 +205,7 @@ function BoardValues({ b }: { b: SiteBoardResult }) {
       {/* The board's name is never alone at the foot of a page: its first value stays with it */}
       <View wrap={false}>
         <Text
-          style={{ fontFamily: SITE_PACK_FONT, fontSize: 10, fontWeight: 700, marginBottom: 3 }}
+          style={{ fontFamily: PRINT_FONT, fontSize: 10, fontWeight: 700, marginBottom: 3 }}
         >{`${b.name}, fed from ${fedFromWords(b.fedFrom)}${b.phase ? ` (${b.phase})` : ''}`}</Text>
         {b.problem ? <Text>{b.problem}</Text> : null}
         {lines[0] ?? null}
@@ -289,7 +287,7 @@ export function SitePackDocument({
                 <Text
                   x={DIAGRAM.margin + 10}
                   y={DIAGRAM.margin + 20}
-                  style={{ fontFamily: SITE_PACK_FONT, fontSize: 12, fontWeight: 700 }}
+                  style={{ fontFamily: PRINT_FONT, fontSize: 12, fontWeight: 700 }}
                   fill={INK}
                 >
                   Origin (supply intake)
@@ -297,7 +295,7 @@ export function SitePackDocument({
                 <Text
                   x={DIAGRAM.margin + 10}
                   y={DIAGRAM.margin + 38}
-                  style={{ fontFamily: SITE_PACK_FONT, fontSize: 9 }}
+                  style={{ fontFamily: PRINT_FONT, fontSize: 9 }}
                   fill={SOFT}
                 >
                   {`${EARTHING_NAMES[o.earthing] ?? o.earthing}, Uo ${o.uoV} V, Ze ${n(o.zeOhm, 3)} Ω, PFC ${n(o.pfcKa, 2)} kA`}
