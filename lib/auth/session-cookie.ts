@@ -1,9 +1,8 @@
 import { cookies } from 'next/headers';
 import { decode } from 'next-auth/jwt';
 
+import { SESSION_COOKIE_NAMES } from '@/lib/auth/cookie-names';
 import { env } from '@/lib/env';
-
-const COOKIE_NAMES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
 
 /**
  * The user id in the request's session cookie, or null. Decrypts next-auth's JWT directly
@@ -12,7 +11,7 @@ const COOKIE_NAMES = ['__Secure-next-auth.session-token', 'next-auth.session-tok
  */
 export async function sessionUserId(): Promise<string | null> {
   const store = await cookies();
-  const raw = COOKIE_NAMES.map((n) => store.get(n)?.value).find(Boolean);
+  const raw = SESSION_COOKIE_NAMES.map((n) => store.get(n)?.value).find(Boolean);
   if (!raw) return null;
   const token = await decode({ token: raw, secret: env().NEXTAUTH_SECRET }).catch(() => null);
   if (typeof token?.userId !== 'string') return null;

@@ -28,6 +28,41 @@ describe('sign-in', () => {
     await expect(page.getByRole('heading', { name: 'Sign in' }).isVisible()).resolves.toBe(true);
   });
 
+  it('a signed-out deep link comes back to its page after signing in', async () => {
+    const b = await openBrowser();
+    try {
+      await b.page.goto(`${APP_URL}/sites?from=mail`);
+      await expect.poll(() => new URL(b.page.url()).pathname).toBe('/login');
+      expect(new URL(b.page.url()).searchParams.get('callbackUrl')).toBe('/sites?from=mail');
+      await b.page.getByLabel('E-mail').fill(demoUser('inspector').email);
+      await b.page.getByLabel('Password').fill(demoUser('inspector').password);
+      await b.page.getByRole('button', { name: 'Sign in' }).click();
+      await expect
+        .poll(() => `${new URL(b.page.url()).pathname}${new URL(b.page.url()).search}`)
+        .toBe('/sites?from=mail');
+    } finally {
+      await b.close();
+    }
+  });
+
+  it('a session cookie that does not decrypt is no session: the page sends the visitor to sign in', async () => {
+    const b = await openBrowser();
+    try {
+      const { hostname } = new URL(APP_URL);
+      // proxy.ts lets a request with the cookie through; the page's own check (getActor) refuses it
+      await b.context.addCookies([
+        { name: 'next-auth.session-token', value: 'not-a-token', domain: hostname, path: '/' },
+      ]);
+      const res = await b.page.goto(`${APP_URL}/boards`);
+      await expect.poll(() => new URL(b.page.url()).pathname).toBe('/login');
+      expect(res?.ok()).toBe(true);
+      await expect(b.page.getByRole('heading', { name: 'Sign in' }).isVisible()).resolves.toBe(true);
+      expect(await b.page.getByRole('link', { name: 'Boards' }).count()).toBe(0);
+    } finally {
+      await b.close();
+    }
+  });
+
   it('a wrong password is refused with a message', async () => {
     const { page } = browser;
     await page.goto(`${APP_URL}/login`);
