@@ -378,7 +378,13 @@ export const WORKSHOP_SUB_MAINS = {
 export const WORKSHOP_SITE_BOARD: { settings: BoardSettings; ways: Way[] } = {
   // A larger main switch: the workshop now carries the flat and the finishing room as well
   settings: { ...WORKSHOP_BOARD.settings, incoming: { kind: 'main-switch', ratingA: 200, busbarRatingA: 200 } },
-  ways: [...WORKSHOP_BOARD.ways.slice(0, -2), WORKSHOP_SUB_MAINS.finishing, WORKSHOP_SUB_MAINS.flat],
+  // Its drawn main switch is the 200 A of its settings too (the first way of WORKSHOP_BOARD is the 125 A one)
+  ways: [
+    mainSwitch(4, 200),
+    ...WORKSHOP_BOARD.ways.slice(1, -2),
+    WORKSHOP_SUB_MAINS.finishing,
+    WORKSHOP_SUB_MAINS.flat,
+  ],
 };
 
 /** The finishing room's board, fed from Workshop DB1 (its supply values are carried down). */
