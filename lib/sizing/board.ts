@@ -331,6 +331,23 @@ export function sizeBoard(raw: BoardInput): BoardResult {
     `${deviceName({ kind: inc.kind, ratingA: inc.ratingA, rcdMa: inc.rcdMa })} (incoming) ${incomingOk ? '≥' : '<'} maximum demand ${maxDemandA.toFixed(1)} A.`,
     `${BS7671} 311.1, 433.1.1`,
   );
+  // A main switch drawn on the rail is the incoming main switch of the settings, entered twice:
+  // the record must show one device (common practice: an inspector returns a schedule whose rail
+  // shows a 125 A main switch where the settings size the board's 161 A demand against 200 A).
+  if (inc.kind === 'main-switch') {
+    for (const way of input.ways) {
+      // A drawn main switch with no rating given claims nothing to disagree with
+      if (way.device.kind !== 'main-switch' || (way.device.ratingA ?? inc.ratingA) === inc.ratingA) continue;
+      boardChecks.push(
+        check(
+          'incoming-drawn',
+          false,
+          `The main switch drawn on the rail is ${way.device.ratingA} A but the incoming main switch in the board's settings is ${inc.ratingA} A: they are one device, so make them agree.`,
+          'Board record: one incoming device (common practice)',
+        ),
+      );
+    }
+  }
   const busbarCheck =
     inc.busbarRatingA === undefined
       ? null

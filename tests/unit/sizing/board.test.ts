@@ -168,6 +168,33 @@ describe('sizeBoard: the workshop three-phase board (non-dwelling)', () => {
     expect(small.summary.busbarCheck?.ok).toBe(false);
     expect(small.summary.modulesCheck.ok).toBe(false);
   });
+
+  it('a main switch drawn with another rating than the incoming main switch of the settings fails the board', () => {
+    // The drawn main switch and the incoming device are one device entered twice (common practice:
+    // the record shows one rating for it)
+    const drawn = (ratingA?: number) =>
+      sizeBoard({
+        ...input,
+        ways: input.ways.map((w) => (w.id === 'ms' ? { ...w, device: { ...w.device, ratingA } } : w)),
+      });
+    const agree = (r: ReturnType<typeof sizeBoard>) => r.summary.checks.filter((c) => c.code === 'incoming-drawn');
+    expect(agree(drawn(63))).toEqual([]);
+    // No rating drawn: nothing to disagree with
+    expect(agree(drawn(undefined))).toEqual([]);
+    const [smaller] = agree(drawn(40));
+    expect(smaller.ok).toBe(false);
+    expect(smaller.message).toBe(
+      "The main switch drawn on the rail is 40 A but the incoming main switch in the board's settings is 63 A: they are one device, so make them agree.",
+    );
+    expect(agree(drawn(100))).toHaveLength(1);
+    // An incoming device of another kind (a fuse ahead of the board) is not the drawn switch
+    const fused = sizeBoard({
+      ...input,
+      incoming: { kind: 'fuse-bs88-2', ratingA: 80 },
+      ways: input.ways.map((w) => (w.id === 'ms' ? { ...w, device: { ...w.device, ratingA: 100 } } : w)),
+    });
+    expect(agree(fused)).toEqual([]);
+  });
 });
 
 describe('sizeBoard: blanks are spare ways', () => {
