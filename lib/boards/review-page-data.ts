@@ -28,10 +28,14 @@ export type ReviewWayRow = {
   comments: CommentDto[];
 };
 
-/** The parts of a board's sizing summary the review page shows. */
+/** The parts of a board's sizing summary the review page shows; `failing`: the board's checks that fail. */
 export type ReviewSummary = Pick<BoardSummary, 'connectedLoadW' | 'maxDemandA' | 'counts'> & {
   incomingCheck: { message: string };
+  failing: string[];
 };
+
+/** The summary as the review page reads it: its board checks cut to those that fail (or all of them). */
+type ReviewSummarySource = Omit<ReviewSummary, 'failing'> & { checks: { ok: boolean; message: string }[] };
 
 /** The parts of a way's sizing the review page's table shows (its checks load when the way is opened). */
 export type ReviewWayResult = Pick<
@@ -40,7 +44,7 @@ export type ReviewWayResult = Pick<
 >;
 
 /** A board's sizing cut to what the review page shows: the engine's whole answer is one too. */
-export type ReviewSizing = { ways: { id: string; result: ReviewWayResult | null }[]; summary: ReviewSummary };
+export type ReviewSizing = { ways: { id: string; result: ReviewWayResult | null }[]; summary: ReviewSummarySource };
 
 /** What the review page is made from: the review, its sizing whole or cut to what the page shows. */
 export type ReviewSource = Omit<ReviewData, 'sizing'> & { sizing: ReviewSizing | null };
@@ -89,6 +93,7 @@ export function reviewPageData(data: ReviewSource): ReviewPageData {
       maxDemandA: sizing.summary.maxDemandA,
       counts: sizing.summary.counts,
       incomingCheck: { message: sizing.summary.incomingCheck.message },
+      failing: sizing.summary.checks.filter((c) => !c.ok).map((c) => c.message),
     },
   };
 }

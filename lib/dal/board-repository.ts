@@ -473,7 +473,9 @@ const ISSUE_FACTS = `o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue"
  */
 const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object(
   'summary', jsonb_build_object('connectedLoadW', j#>'{summary,connectedLoadW}', 'maxDemandA', j#>'{summary,maxDemandA}',
-    'counts', j#>'{summary,counts}', 'incomingCheck', jsonb_build_object('message', j#>'{summary,incomingCheck,message}')),
+    'counts', j#>'{summary,counts}', 'incomingCheck', jsonb_build_object('message', j#>'{summary,incomingCheck,message}'),
+    'checks', (SELECT COALESCE(jsonb_agg(jsonb_build_object('ok', c->'ok', 'message', c->'message') ORDER BY i), '[]'::jsonb)
+      FROM jsonb_array_elements(j#>'{summary,checks}') WITH ORDINALITY AS y(c, i) WHERE c->'ok' = 'false'::jsonb)),
   'ways', (SELECT COALESCE(jsonb_agg(jsonb_build_object('id', w->'id', 'result', CASE WHEN jsonb_typeof(w->'result') = 'object'
       THEN jsonb_build_object('ibA', w#>'{result,ibA}', 'inA', w#>'{result,inA}', 'csaMm2', w#>'{result,csaMm2}',
         'izA', w#>'{result,izA}', 'vdPct', w#>'{result,vdPct}', 'zsOhm', w#>'{result,zsOhm}',

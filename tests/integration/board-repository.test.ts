@@ -227,6 +227,18 @@ describe('the review page’s read (getReviewSource)', () => {
     expect(cut.issue).toEqual(whole.issue);
   });
 
+  it("cuts the board's failing checks out as the whole sizing has them", async () => {
+    const { board } = await makeBoard(team.org.id, 'workshop');
+    // Too small an enclosure for its ways, written behind the app's back (the version moves on)
+    await Board.update({ enclosureModules: 12 }, { where: { id: board.id } });
+    const whole = await getReview(actor, board.id);
+    const cut = await getReviewSource(actor, board.id);
+    const failing = whole.sizing!.summary.checks.filter((c) => !c.ok).map((c) => c.message);
+    expect(failing).toEqual([expect.stringMatching(/^\d+ of 12 modules used\.$/)]);
+    expect(reviewPageData(cut).summary!.failing).toEqual(failing);
+    expect(reviewPageData(cut)).toEqual(reviewPageData({ ...whole, revisions: [] }));
+  });
+
   it('sizes a board whose stored sizing is older than the board, stores it, and answers as the long way does', async () => {
     const { board } = await makeBoard(team.org.id, 'flat');
     await readStoredSizing(actor, board.id);

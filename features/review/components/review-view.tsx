@@ -121,6 +121,16 @@ export function ReviewView({
               </p>
             )}
           </div>
+          {summary?.failing.length ? (
+            <div className="sm:col-span-2 lg:col-span-4">
+              <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Board checks that fail</h2>
+              <ul className="list-disc pl-5 text-verdict-fail">
+                {summary.failing.map((message) => (
+                  <li key={message}>{message}</li>
+                ))}
+              </ul>
+            </div>
+          ) : null}
         </section>
 
         <section

@@ -80,6 +80,24 @@ describe('reviewPageData: the review cut to the rows and summary the page shows'
     expect(page.summary!.incomingCheck.message).toBe(sizing.summary.incomingCheck.message);
   });
 
+  it("lists the board's checks that fail, in the engine's words, and none when all hold", () => {
+    expect(page.summary!.failing).toEqual([]);
+    // A full enclosure and a drawn main switch that is not the incoming one (lib/sizing/board.ts)
+    const failing = sizeBoard(
+      boardInputSchema.parse({
+        supply: FLAT_SUPPLY,
+        phases: 1,
+        enclosureModules: 4,
+        dwelling: true,
+        incoming: { kind: 'main-switch', ratingA: 100, busbarRatingA: 100 },
+        ways: ways.map((w) => (w.id === 'main' ? { ...w, device: { ...w.device, ratingA: 80 } } : w)),
+      }),
+    );
+    const messages = failing.summary.checks.filter((c) => !c.ok).map((c) => c.message);
+    expect(messages).toHaveLength(2);
+    expect(reviewPageData({ ...review, sizing: failing }).summary!.failing).toEqual(messages);
+  });
+
   it('shows a way without a circuit as no circuit, with dashes for the figures and no verdict', () => {
     expect(row('spare')).toMatchObject({ ref: '2', serves: null, loadType: null, sized: false, verdict: null });
     expect(row('spare').figures).toEqual(['—', '—', '—', '—', '—']);
