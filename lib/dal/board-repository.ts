@@ -692,10 +692,7 @@ export async function writeBoardFeed(
 
 /** What the tree stored for a board (the supply carried to it) and the sub-main currents of the boards its ways feed. */
 export async function readDraftTreeRows(actor: Actor, boardId: string, transaction?: Transaction) {
-  return select<{
-    carried: DerivedSupply | null;
-    feeds: { wayId: string; amps: number | null }[] | null;
-  }>(
+  return select<{ carried: DerivedSupply | null; feeds: { wayId: string; amps: number | null }[] | null }>(
     `SELECT (SELECT s.carried FROM board_sizings s WHERE s.board_id = b.id) AS carried,
        (SELECT json_agg(json_build_object('wayId', d.fed_from_way_id,
           'amps', (SELECT (s.carried->'subMainCurrent'->>'value')::float8 FROM board_sizings s WHERE s.board_id = d.id)))

@@ -151,9 +151,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     if (!way || !settings) return;
     const label = wayLabelMap(settings.phases, ways).get(id);
     removeWay(id);
-    toast(`Removed ${wayName(way, label)}.`, {
-      action: { label: 'Undo', onClick: () => undo() },
-    });
+    toast(`Removed ${wayName(way, label)}.`, { action: { label: 'Undo', onClick: () => undo() } });
   }, []);
 
   const refusalFor = useCallback((active: ActiveData, over: OverData): string | null => {

@@ -85,13 +85,7 @@ const TRAY: readonly TrayEntry[] = [
     ratings: [5, 15, 20, 30, 45, 60, 100],
     initial: { poles: 1, ratingA: 30 },
   },
-  {
-    kind: 'spd',
-    name: 'SPD',
-    purpose: 'Surge protection',
-    poles: [2, 4],
-    initial: { poles: 2 },
-  },
+  { kind: 'spd', name: 'SPD', purpose: 'Surge protection', poles: [2, 4], initial: { poles: 2 } },
   { kind: 'blank', name: 'Blank', purpose: 'Covers a spare module', poles: [1], initial: { poles: 1 } },
 ];
 
