@@ -640,17 +640,10 @@ export async function siteIsTree(actor: Actor, siteId: string, transaction?: Tra
 }
 
 /** The site of the caller's organisation's board, or null. */
-export async function readBoardSiteId(
-  actor: Actor,
-  boardId: string,
-  transaction?: Transaction,
-): Promise<string | null> {
-  const rows = await select<{ site_id: string }>(
-    'SELECT site_id FROM boards WHERE id = $1 AND organisation_id = $2',
-    [boardId, actor.organisationId],
-    transaction,
-  );
-  return rows[0]?.site_id ?? null;
+export async function readBoardSiteId(actor: Actor, boardId: string, transaction?: Transaction) {
+  const sql = 'SELECT site_id FROM boards WHERE id = $1 AND organisation_id = $2';
+  const [row] = await select<{ site_id: string }>(sql, [boardId, actor.organisationId], transaction);
+  return row?.site_id ?? null;
 }
 
 /** The board a feeding way is on (the caller's organisation's), with its site; none when there is no such way. */

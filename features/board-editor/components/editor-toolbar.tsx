@@ -117,9 +117,7 @@ export function EditorToolbar({
               className="h-8 rounded-md border border-line-strong bg-paper-raised px-2 text-xs text-ink"
             >
               {[1, 2, 3, 4].map((n) => (
-                <option key={n} value={n}>
-                  {n}
-                </option>
+                <option key={n}>{n}</option>
               ))}
             </select>
           </label>

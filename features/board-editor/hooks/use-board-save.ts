@@ -119,9 +119,8 @@ export function useBoardSave(boardId: string, enabled: boolean) {
 
   /** Keeps editing without saving (the draft stays unsaved, here and in this browser tab). */
   const holdFeeds = useCallback(() => {
-    useSaveStore
-      .getState()
-      .set({ phase: 'idle', feedChanges: null, message: 'Not saved: a way that feeds another board was taken away.' });
+    const message = 'Not saved: a way that feeds another board was taken away.';
+    useSaveStore.getState().set({ phase: 'idle', feedChanges: null, message });
   }, []);
 
   return { save, reloadTheirs, keepMine, confirmFeeds, holdFeeds };

@@ -126,16 +126,10 @@ export function deviceFromChoice(kind: TrayKind, choice: TrayChoice): DeviceOnRa
   const base = { kind, poles: choice.poles, modules: choice.poles } as DeviceOnRail;
   switch (kind) {
     case 'mcb':
-      return { ...base, curve: choice.curve ?? 'B', ratingA: choice.ratingA ?? null, breakingKa: 6 };
-    case 'rcbo':
-      return {
-        ...base,
-        curve: choice.curve ?? 'B',
-        ratingA: choice.ratingA ?? null,
-        breakingKa: 6,
-        rcdMa: choice.rcdMa ?? 30,
-        rcdType: choice.rcdType ?? 'A',
-      };
+    case 'rcbo': {
+      const breaker = { ...base, curve: choice.curve ?? 'B', ratingA: choice.ratingA ?? null, breakingKa: 6 };
+      return kind === 'mcb' ? breaker : { ...breaker, rcdMa: choice.rcdMa ?? 30, rcdType: choice.rcdType ?? 'A' };
+    }
     case 'rcd':
       return { ...base, ratingA: choice.ratingA ?? 63, rcdMa: choice.rcdMa ?? 30, rcdType: choice.rcdType ?? 'A' };
     case 'main-switch':
