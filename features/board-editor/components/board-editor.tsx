@@ -34,7 +34,7 @@ import { useUndoShortcuts } from '../hooks/use-undo-shortcuts';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
 import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS } from '../utils/announcements';
-import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
+import { deviceWords } from '../utils/device-catalogue';
 import { editorBoard } from '../utils/board-shape';
 import { wayName } from '../utils/describe';
 import { dropProblem, dropTarget, type ActiveData, type OverData } from '../utils/drop-target';
@@ -116,11 +116,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     window.addEventListener('beforeunload', onBeforeUnload);
     return () => window.removeEventListener('beforeunload', onBeforeUnload);
   }, []);
-
-  // Tray choices, kept per number of phases so that the tray's defaults follow the board's
-  // supply when it changes, and the kind whose choices are shown
-  const [choicesByPhases, setChoicesByPhases] = useState(() => ({ 1: initialChoices(1), 3: initialChoices(3) }));
-  const [activeKind, setActiveKind] = useState<TrayKind>('mcb');
 
   // Drag state: what is being dragged and whether it would fit where it is
   const [dragging, setDragging] = useState<ActiveData>(undefined);
@@ -277,18 +272,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
         {reviewNotes ? <ReviewNotes boardId={board.id} notes={reviewNotes} canAnswer={can.edit} /> : null}
         <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
           <div className="min-w-0 space-y-3">
-            {!readOnly ? (
-              <DeviceTray
-                choices={choicesByPhases[phases]}
-                active={activeKind}
-                boardPhases={phases}
-                onActivate={setActiveKind}
-                onChoose={(kind, choice) =>
-                  setChoicesByPhases((c) => ({ ...c, [phases]: { ...c[phases], [kind]: choice } }))
-                }
-                onAdd={addAnywhere}
-              />
-            ) : null}
+            {!readOnly ? <DeviceTray boardPhases={phases} onAdd={addAnywhere} /> : null}
             <Notice />
             <DrawnBoard
               readOnly={readOnly}
