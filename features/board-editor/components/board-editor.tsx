@@ -17,7 +17,7 @@ import {
 } from '@dnd-kit/core';
 import { sortableKeyboardCoordinates } from '@dnd-kit/sortable';
 import { useMutation } from '@tanstack/react-query';
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
 import { wayLabelMap } from '@/lib/boards/layout';
@@ -72,6 +72,40 @@ const collision: CollisionDetection = (args) => {
   }
   return closestCorners(args);
 };
+
+/** Removes a way, with a toast whose action undoes it. */
+function removeWithUndo(id: string) {
+  const { settings, ways, removeWay, undo } = useBoardDraftStore.getState();
+  const way = ways.find((w) => w.id === id);
+  if (!way || !settings) return;
+  const label = wayLabelMap(settings.phases, ways).get(id);
+  removeWay(id);
+  toast(`Removed ${wayName(way, label)}.`, { action: { label: 'Undo', onClick: () => undo() } });
+}
+
+/** Why the dragged device would not fit where it is over, or null. */
+function refusalFor(active: ActiveData, over: OverData): string | null {
+  const { settings, ways } = useBoardDraftStore.getState();
+  if (!settings || !active) return null;
+  const target = dropTarget(ways, active.from === 'rail' ? active.wayId : null, over);
+  return target?.kind === 'place' ? dropProblem(settings, ways, active, target) : null;
+}
+
+// "Add to the board": the first rail with room, at its end (nowhere: the last rail's refusal shows)
+function addAnywhere(device: DeviceOnRail) {
+  const { settings, ways, addDevice } = useBoardDraftStore.getState();
+  if (!settings) return;
+  const rails = drawRails(settings.phases, railCapacities(settings.enclosureModules, settings.rails), ways);
+  const id = newWayId();
+  for (const { rail } of rails) {
+    if (addDevice(id, device, rail, ways.filter((w) => w.rail === rail).length).ok) {
+      toast.success(
+        `Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${rail + 1}` : 'the rail'}.`,
+      );
+      return;
+    }
+  }
+}
 
 /** The board editor: its parts wired to the draft store; sizing, saving, the kept draft and undo run in hooks. */
 export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = null }: BoardEditorProps) {
@@ -140,22 +174,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     }),
   );
 
-  const removeWithUndo = useCallback((id: string) => {
-    const { settings, ways, removeWay, undo } = useBoardDraftStore.getState();
-    const way = ways.find((w) => w.id === id);
-    if (!way || !settings) return;
-    const label = wayLabelMap(settings.phases, ways).get(id);
-    removeWay(id);
-    toast(`Removed ${wayName(way, label)}.`, { action: { label: 'Undo', onClick: () => undo() } });
-  }, []);
-
-  const refusalFor = useCallback((active: ActiveData, over: OverData): string | null => {
-    const { settings, ways } = useBoardDraftStore.getState();
-    if (!settings || !active) return null;
-    const target = dropTarget(ways, active.from === 'rail' ? active.wayId : null, over);
-    return target?.kind === 'place' ? dropProblem(settings, ways, active, target) : null;
-  }, []);
-
   const endDrag = () => {
     setDragging(undefined);
     setDropRefusal(null);
@@ -184,22 +202,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     if (data.from === 'tray') store.addDevice(newWayId(), data.device, target.rail, target.index);
     else store.moveWay(data.wayId, target.rail, target.index);
   };
-
-  // "Add to the board": the first rail with room, at its end (nowhere: the last rail's refusal shows)
-  const addAnywhere = useCallback((device: DeviceOnRail) => {
-    const { settings, ways, addDevice } = useBoardDraftStore.getState();
-    if (!settings) return;
-    const rails = drawRails(settings.phases, railCapacities(settings.enclosureModules, settings.rails), ways);
-    const id = newWayId();
-    for (const { rail } of rails) {
-      if (addDevice(id, device, rail, ways.filter((w) => w.rail === rail).length).ok) {
-        toast.success(
-          `Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${rail + 1}` : 'the rail'}.`,
-        );
-        return;
-      }
-    }
-  }, []);
 
   // Sending for review: save first, then ask the server
   const [confirmingSubmit, setConfirmingSubmit] = useState(false);
