@@ -28,17 +28,9 @@ type DeviceTrayProps = {
 /** The tray id of a kind's draggable chip. */
 const trayDragId = (kind: TrayKind) => `tray:${kind}`;
 
-function TrayChip({
-  kind,
-  device,
-  active,
-  onActivate,
-}: {
-  kind: TrayKind;
-  device: DeviceOnRail;
-  active: boolean;
-  onActivate: () => void;
-}) {
+type TrayChipProps = { kind: TrayKind; device: DeviceOnRail; active: boolean; onActivate: () => void };
+
+function TrayChip({ kind, device, active, onActivate }: TrayChipProps) {
   const { attributes, listeners, setNodeRef, isDragging } = useDraggable({
     id: trayDragId(kind),
     data: { from: 'tray', kind, device },

@@ -51,15 +51,8 @@ function SaveState() {
 }
 
 /** The editor's top bar: the board, its status and saving state, undo and redo, rails, save and send. */
-export function EditorToolbar({
-  siteName,
-  canEdit,
-  canSubmit,
-  readOnlyReason,
-  submitting,
-  onSave,
-  onSubmit,
-}: EditorToolbarProps) {
+export function EditorToolbar(props: EditorToolbarProps) {
+  const { siteName, canEdit, canSubmit, readOnlyReason, submitting, onSave, onSubmit } = props;
   const settings = useBoardDraftStore((s) => s.settings);
   const status = useBoardDraftStore((s) => s.status);
   const canUndo = useBoardDraftStore((s) => s.past.length > 0);
