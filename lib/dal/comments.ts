@@ -1,6 +1,6 @@
 import 'server-only';
 
-import { Op, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 
 import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
@@ -86,17 +86,17 @@ export async function answerComments(
   return db().transaction(async (transaction) => {
     await findWritableBoard(actor, boardId, transaction);
     const ids = [...new Set(commentIds)];
-    const found = await Comment.findAll({ where: { boardId, id: { [Op.in]: ids } }, transaction });
+    const found = await Comment.findAll({ where: { boardId, id: ids }, transaction });
     if (found.length !== ids.length) {
       throw badRequest([{ path: 'commentIds', message: 'Some of those comments are not on this board.' }]);
     }
-    const open = found.filter((c) => !c.answeredAt);
+    const open = found.filter((c) => !c.answeredAt).map((c) => c.id);
     if (open.length) {
       await Comment.update(
         { answeredAt: new Date(), answeredById: actor.userId },
-        { where: { id: { [Op.in]: open.map((c) => c.id) } }, transaction },
+        { where: { id: open }, transaction },
       );
-      await audit(actor, 'comments.answered', { commentIds: open.map((c) => c.id) }, { boardId, transaction });
+      await audit(actor, 'comments.answered', { commentIds: open }, { boardId, transaction });
     }
     return { answered: open.length };
   });
