@@ -645,17 +645,10 @@ export async function siteIsTree(actor: Actor, siteId: string, transaction?: Tra
 }
 
 /** The site of the caller's organisation's board, or null. */
-export async function readBoardSiteId(
-  actor: Actor,
-  boardId: string,
-  transaction?: Transaction,
-): Promise<string | null> {
-  const rows = await select<{ site_id: string }>(
-    'SELECT site_id FROM boards WHERE id = $1 AND organisation_id = $2',
-    [boardId, actor.organisationId],
-    transaction,
-  );
-  return rows[0]?.site_id ?? null;
+export async function readBoardSiteId(actor: Actor, boardId: string, transaction?: Transaction) {
+  const sql = 'SELECT site_id FROM boards WHERE id = $1 AND organisation_id = $2';
+  const [row] = await select<{ site_id: string }>(sql, [boardId, actor.organisationId], transaction);
+  return row?.site_id ?? null;
 }
 
 /** The board a feeding way is on (the caller's organisation's), with its site; none when there is no such way. */
@@ -697,10 +690,7 @@ export async function writeBoardFeed(
 
 /** What the tree stored for a board (the supply carried to it) and the sub-main currents of the boards its ways feed. */
 export async function readDraftTreeRows(actor: Actor, boardId: string, transaction?: Transaction) {
-  return select<{
-    carried: DerivedSupply | null;
-    feeds: { wayId: string; amps: number | null }[] | null;
-  }>(
+  return select<{ carried: DerivedSupply | null; feeds: { wayId: string; amps: number | null }[] | null }>(
     `SELECT (SELECT s.carried FROM board_sizings s WHERE s.board_id = b.id) AS carried,
        (SELECT json_agg(json_build_object('wayId', d.fed_from_way_id,
           'amps', (SELECT (s.carried->'subMainCurrent'->>'value')::float8 FROM board_sizings s WHERE s.board_id = d.id)))

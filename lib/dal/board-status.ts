@@ -3,16 +3,14 @@ import 'server-only';
 import type { Actor } from '@/lib/auth/session';
 import { countWays, countWords } from '@/lib/boards/counts';
 import { wayLabelMap } from '@/lib/boards/layout';
-import { settingsOf } from '@/lib/boards/schemas';
 import { transition } from '@/lib/boards/lifecycle';
 import { sizeDesign } from '@/lib/boards/size-design';
 import type { BoardDto } from '@/lib/boards/types';
 import { db } from '@/lib/db';
-import { readWays, writeBoard } from '@/lib/dal/board-repository';
+import { liveSnapshot } from '@/lib/dal/board-snapshot';
+import { writeBoard } from '@/lib/dal/board-repository';
 import { assertVersion, findWritableBoard } from '@/lib/dal/boards';
 import { queueNotices } from '@/lib/dal/notices';
-import { draftTreeContext } from '@/lib/dal/site-supply';
-import { withTreeContext } from '@/lib/sites/tree-context';
 import { env } from '@/lib/env';
 import { conflict, unprocessable } from '@/lib/errors';
 import type { ReviewRequestedFacts } from '@/lib/mail/templates';
@@ -34,14 +32,11 @@ export async function submitBoard(actor: Actor, boardId: string, expectedVersion
     const step = transition(board.status, 'submit', { revision: board.revision });
     if (step.refused) throw conflict(step.message, { status: board.status, revision: board.revision });
     assertVersion(board, expectedVersion);
-    const ways = await readWays(boardId, transaction);
 
-    // Size the stored board exactly as the sizing route does (with what the site's tree gives it)
-    const design = withTreeContext(
-      { settings: settingsOf(board), ways },
-      await draftTreeContext(actor, boardId, transaction),
-    );
-    const { sizing: sized, issues } = sizeDesign({ ...design.settings, ways: design.ways });
+    // Size the stored board exactly as the sizing route does and as issuing freezes it (with what
+    // the site's tree gives it: lib/dal/board-snapshot.ts liveSnapshot)
+    const { settings, ways } = await liveSnapshot(actor, board, transaction);
+    const { sizing: sized, issues } = sizeDesign({ ...settings, ways });
     if (!sized) {
       throw unprocessable('The stored board is not complete enough to size; open it in the editor and save it again.', {
         failing: [],

@@ -153,14 +153,12 @@ async function takeOff(
   opts: { confirmFeedChanges?: boolean },
   decide: (board: BoardRecord, transaction: Transaction) => Promise<'deleted' | 'archived'>,
 ): Promise<{ effect: 'deleted' | 'archived' } & RemovalAnswer> {
-  const out = {
-    effect: 'deleted' as 'deleted' | 'archived',
-    plan: null as RemovalPlan | null,
-    ripple: null as RemovalAnswer['ripple'],
-  };
+  let effect: 'deleted' | 'archived' = 'deleted';
+  let plan: RemovalPlan | null = null;
+  let ripple: SiteRipple | null = null;
   const change = async (board: BoardRecord, transaction: Transaction) => {
-    const effect = (out.effect = await decide(board, transaction));
-    const plan = (out.plan = await beforeBoardRemoval(actor, board, { effect, ...opts }, transaction));
+    effect = await decide(board, transaction);
+    plan = await beforeBoardRemoval(actor, board, { effect, ...opts }, transaction);
     // The feeds it lets go are kept in its history event, so that coming back takes them up
     const details = {
       name: board.name,
@@ -173,13 +171,11 @@ async function takeOff(
         : { archivedAt: new Date(), archivedById: actor.userId };
     return { set, events: [{ action: `board.${effect}` as const, details }] };
   };
-  await changeBoard(actor, boardId, change, {
-    tree: true,
-    after: async (board, transaction) => {
-      out.ripple = await afterBoardRemoval(actor, board, out.plan!, out.effect, transaction);
-    },
-  });
-  return { effect: out.effect, feedChanges: out.plan?.detach ?? [], ripple: out.ripple };
+  const after = async (board: BoardRecord, transaction: Transaction) => {
+    ripple = await afterBoardRemoval(actor, board, plan!, effect, transaction);
+  };
+  await changeBoard(actor, boardId, change, { tree: true, after });
+  return { effect, feedChanges: (plan as RemovalPlan | null)?.detach ?? [], ripple };
 }
 
 /**

@@ -1,12 +1,12 @@
 import 'server-only';
 
-import { Op } from 'sequelize';
+import type { Transaction } from 'sequelize';
 
 import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import { db } from '@/lib/db';
 import { audit } from '@/lib/dal/audit';
-import { findBoard, wayOnBoard } from '@/lib/dal/board-repository';
+import { findBoard, wayOnBoard, type BoardRecord } from '@/lib/dal/board-repository';
 import { assertNotArchived, findWritableBoard } from '@/lib/dal/boards';
 import { badRequest, forbidden } from '@/lib/errors';
 import { AuditEvent, Comment, User } from '@/models';
@@ -31,13 +31,30 @@ export async function listComments(actor: Actor, boardId: string): Promise<Comme
 }
 
 /** Every comment on a board (or of one revision), oldest first, for a caller who has already read the board. */
-export async function commentsOf(boardId: string, revision?: number): Promise<CommentDto[]> {
+export async function commentsOf(boardId: string, revision?: number, transaction?: Transaction) {
   const rows = await Comment.findAll({
     where: { boardId, ...(revision === undefined ? {} : { revision }) },
     include: [{ model: User, as: 'author', attributes: ['name'] }],
     order: [['createdAt', 'ASC']],
+    transaction,
   });
   return rows.map(commentDto);
+}
+
+/** Writes the caller's comment (on a way, or with null on the board) for the board's current revision, and its trail entry. */
+export async function insertComment(
+  actor: Actor,
+  board: BoardRecord,
+  wayId: string | null,
+  body: string,
+  transaction: Transaction,
+) {
+  const created = await Comment.create(
+    { boardId: board.id, wayId, revision: board.revision, authorId: actor.userId, body },
+    { transaction },
+  );
+  await audit(actor, 'board.comment', { commentId: created.id, wayId }, { boardId: board.id, transaction });
+  return created;
 }
 
 /** Adds a comment on the board (wayId null) or on one of its ways, for the board's current revision. */
@@ -52,16 +69,9 @@ export async function addComment(
     const board = await findBoard(actor, boardId, { transaction });
     await assertNotArchived(board, transaction);
     const wayId = input.wayId ?? null;
-    if (wayId) {
-      if (!(await wayOnBoard(boardId, wayId, transaction)))
-        throw badRequest([{ path: 'wayId', message: 'That way is not on this board.' }]);
-    }
-    const comment = await Comment.create(
-      { boardId, wayId, revision: board.revision, authorId: actor.userId, body: input.body },
-      { transaction },
-    );
-    await audit(actor, 'board.comment', { commentId: comment.id, wayId }, { boardId, transaction });
-    return comment;
+    if (wayId && !(await wayOnBoard(boardId, wayId, transaction)))
+      throw badRequest([{ path: 'wayId', message: 'That way is not on this board.' }]);
+    return insertComment(actor, board, wayId, input.body, transaction);
   });
   return commentDto(Object.assign(created, { author: { name: actor.name } as User }));
 }
@@ -76,17 +86,17 @@ export async function answerComments(
   return db().transaction(async (transaction) => {
     await findWritableBoard(actor, boardId, transaction);
     const ids = [...new Set(commentIds)];
-    const found = await Comment.findAll({ where: { boardId, id: { [Op.in]: ids } }, transaction });
+    const found = await Comment.findAll({ where: { boardId, id: ids }, transaction });
     if (found.length !== ids.length) {
       throw badRequest([{ path: 'commentIds', message: 'Some of those comments are not on this board.' }]);
     }
-    const open = found.filter((c) => !c.answeredAt);
+    const open = found.filter((c) => !c.answeredAt).map((c) => c.id);
     if (open.length) {
       await Comment.update(
         { answeredAt: new Date(), answeredById: actor.userId },
-        { where: { id: { [Op.in]: open.map((c) => c.id) } }, transaction },
+        { where: { id: open }, transaction },
       );
-      await audit(actor, 'comments.answered', { commentIds: open.map((c) => c.id) }, { boardId, transaction });
+      await audit(actor, 'comments.answered', { commentIds: open }, { boardId, transaction });
     }
     return { answered: open.length };
   });

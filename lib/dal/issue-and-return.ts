@@ -5,10 +5,10 @@ import { transition } from '@/lib/boards/lifecycle';
 import { issueRefusal, sameName } from '@/lib/boards/record-rules';
 import { sizeDesign } from '@/lib/boards/size-design';
 import { db } from '@/lib/db';
-import { audit } from '@/lib/dal/audit';
 import { liveSnapshot } from '@/lib/dal/board-snapshot';
 import { writeBoard } from '@/lib/dal/board-repository';
 import { findWritableBoard } from '@/lib/dal/boards';
+import { insertComment } from '@/lib/dal/comments';
 import { queueNotices, revisionComments } from '@/lib/dal/notices';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { nextRevision } from '@/lib/dal/revisions';
@@ -111,13 +111,7 @@ export async function returnBoard(
     const step = transition(board.status, 'return', { revision: board.revision });
     if (step.refused) throw conflict(step.message);
     // The closing comment, and at least one comment in all
-    if (input.comment) {
-      const c = await Comment.create(
-        { boardId, wayId: null, revision: board.revision, authorId: actor.userId, body: input.comment },
-        { transaction },
-      );
-      await audit(actor, 'board.comment', { commentId: c.id, wayId: null }, { boardId, transaction });
-    }
+    if (input.comment) await insertComment(actor, board, null, input.comment, transaction);
     const count = await Comment.count({ where: { boardId, revision: board.revision }, transaction });
     if (!count) {
       throw badRequest([{ path: 'comment', message: 'Say what needs changing before returning the board.' }]);

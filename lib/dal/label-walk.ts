@@ -9,7 +9,7 @@ import { db } from '@/lib/db';
 import { listAttachments } from '@/lib/dal/attachments';
 import { audit } from '@/lib/dal/audit';
 import { memberNames } from '@/lib/dal/members';
-import { findBoard, readBoard, readWayRows, writeBoard, writeLabelCheck } from '@/lib/dal/board-repository';
+import { findBoard, readWayRows, writeBoard, writeLabelCheck } from '@/lib/dal/board-repository';
 import { assertNotArchived } from '@/lib/dal/boards';
 import { conflict } from '@/lib/errors';
 import { Site } from '@/models';
@@ -109,19 +109,9 @@ export async function recordLabel(
   });
 }
 
-/** Label problems of a board (wrong or missing), for the board page and the designer. */
-export async function labelProblems(
-  actor: Actor,
-  boardId: string,
-): Promise<{ wayId: string; ref: string | null; status: 'wrong' | 'missing'; note: string }[]> {
-  const board = await readBoard(actor, boardId);
-  const refs = wayLabelMap(board.phases, board.ways);
-  return board.ways
-    .filter((w) => w.labelStatus === 'wrong' || w.labelStatus === 'missing')
-    .map((w) => ({
-      wayId: w.id,
-      ref: refs.get(w.id) ?? null,
-      status: w.labelStatus as 'wrong' | 'missing',
-      note: w.labelNote,
-    }));
+/** The labels of a walk found wrong or missing, in rail order, for the board page and the designer. */
+export function labelProblems(walk: WalkData) {
+  return walk.ways.flatMap(({ id, ref, status, note }) =>
+    status === 'wrong' || status === 'missing' ? [{ wayId: id, ref, status, note }] : [],
+  );
 }

@@ -26,11 +26,7 @@ export async function listMembers(actor: Actor): Promise<Member[]> {
   const [users, invitations] = await Promise.all([
     User.findAll({ where: { organisationId: actor.organisationId }, order: [['name', 'ASC']] }),
     Invitation.findAll({
-      where: {
-        organisationId: actor.organisationId,
-        acceptedAt: null,
-        expiresAt: { [Op.gt]: new Date() },
-      },
+      where: { organisationId: actor.organisationId, acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
       order: [['createdAt', 'DESC']],
     }),
   ]);

@@ -6,9 +6,10 @@ import { can } from '@/lib/auth/permissions';
 import type { LifecycleNotice, LifecycleStep } from '@/lib/boards/lifecycle';
 import { wayLabelMap } from '@/lib/boards/layout';
 import { readWays, type BoardRecord } from '@/lib/dal/board-repository';
+import { commentsOf } from '@/lib/dal/comments';
 import { enqueueMail } from '@/lib/mail/outbox';
 import { renderNotice, type MailComment, type NoticeFacts } from '@/lib/mail/templates';
-import { AuditEvent, Comment, User } from '@/models';
+import { AuditEvent, User } from '@/models';
 
 type Recipient = { email: string; name: string };
 
@@ -46,19 +47,13 @@ async function activeMembers(board: BoardRecord, where: WhereOptions<User>, tran
 /** The comments of the board's current revision, oldest first, as the e-mails list them. */
 export async function revisionComments(board: BoardRecord, transaction: Transaction): Promise<MailComment[]> {
   // One after another: both run on the transaction's one connection
-  const comments = await Comment.findAll({
-    where: { boardId: board.id, revision: board.revision },
-    include: [{ model: User, as: 'author', attributes: ['name'] }],
-    order: [['createdAt', 'ASC']],
-    transaction,
-  });
-  const ways = await readWays(board.id, transaction);
-  const refs = wayLabelMap(board.phases, ways);
-  return comments.map((c) => ({
-    wayId: c.wayId,
-    wayRef: c.wayId ? (refs.get(c.wayId) ?? null) : null,
-    authorName: (c as Comment & { author?: User }).author?.name ?? null,
-    body: c.body,
+  const comments = await commentsOf(board.id, board.revision, transaction);
+  const refs = wayLabelMap(board.phases, await readWays(board.id, transaction));
+  return comments.map(({ wayId, authorName, body }) => ({
+    wayId,
+    wayRef: wayId ? (refs.get(wayId) ?? null) : null,
+    authorName,
+    body,
   }));
 }
 

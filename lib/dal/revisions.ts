@@ -70,12 +70,8 @@ export async function getRevision(actor: Actor, boardId: string, revision: numbe
   const board = await findBoard(actor, boardId);
   if (revision === 'current') {
     const snapshot = await liveSnapshot(actor, board);
-    return {
-      revision: board.revision,
-      issued: null,
-      snapshot,
-      sizing: sizeDesign({ ...snapshot.settings, ways: snapshot.ways }).sizing,
-    };
+    const { sizing } = sizeDesign({ ...snapshot.settings, ways: snapshot.ways });
+    return { revision: board.revision, issued: null, snapshot, sizing };
   }
   const found = await readIssuedRevision(boardId, revision);
   if (!found) throw notFound(`Revision ${revision}`);

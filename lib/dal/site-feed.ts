@@ -141,16 +141,12 @@ async function checkFeed(
   byId: Map<string, TreeBoard>,
   transaction: Transaction,
 ): Promise<BoardFeed> {
-  const rows = await readFeedingWayBoard(actor, feed.boardId, feed.wayId, transaction);
-  if (!rows.length || rows[0].deleted) throw notFound('The feeding way');
-  if (rows[0].site_id !== board.siteId) {
-    throw feedRefusal([
-      { path: 'feed.boardId', message: `${rows[0].board_name} is on another site; a board is fed from its own site` },
-    ]);
-  }
-  if (feed.boardId === board.id) {
-    throw feedRefusal([{ path: 'feed.boardId', message: `${board.name} cannot be fed from one of its own ways` }]);
-  }
+  const refuse = (path: 'feed.boardId' | 'feed.wayId', message: string) => feedRefusal([{ path, message }]);
+  const [found] = await readFeedingWayBoard(actor, feed.boardId, feed.wayId, transaction);
+  if (!found || found.deleted) throw notFound('The feeding way');
+  if (found.site_id !== board.siteId)
+    throw refuse('feed.boardId', `${found.board_name} is on another site; a board is fed from its own site`);
+  if (feed.boardId === board.id) throw refuse('feed.boardId', `${board.name} cannot be fed from one of its own ways`);
   const parent = byId.get(feed.boardId)!;
   const cycle = feedLoop(byId, board.id, parent.id);
   if (cycle) {
@@ -161,15 +157,11 @@ async function checkFeed(
   const label = wayLabelsOf(parent).get(way.id) ?? null;
   const wayWords = `${label ? wayName(label) : 'The way'} of ${parent.name}`;
   const why = unfitReason(way, wayWords, board.name, board.phases);
-  if (why) throw feedRefusal([{ path: 'feed.wayId', message: why }]);
+  if (why) throw refuse('feed.wayId', why);
   const taken = [...byId.values()].find(
     (b) => b.id !== board.id && b.feed.from === 'way' && b.feed.wayId === feed.wayId,
   );
-  if (taken) {
-    throw feedRefusal([
-      { path: 'feed.wayId', message: `${wayWords} already feeds ${taken.name}; a way feeds one board` },
-    ]);
-  }
+  if (taken) throw refuse('feed.wayId', `${wayWords} already feeds ${taken.name}; a way feeds one board`);
   return feed;
 }
 

@@ -87,9 +87,7 @@ export async function archiveSite(actor: Actor, siteId: string): Promise<SiteSum
     const site = await lockedSite(actor, siteId, transaction);
     if (!site) throw notFound('The site');
     const boards = await readSiteBoardRecords(siteId, { transaction, lock: true });
-    const issued = boards.length
-      ? await BoardRevision.count({ where: { boardId: { [Op.in]: boards.map((b) => b.id) } }, transaction })
-      : 0;
+    const issued = await BoardRevision.count({ where: { boardId: boards.map((b) => b.id) }, transaction });
     const rule = siteRemoval(actor.role, { holdsIssued: issued > 0, archived: !!site.archivedAt });
     if (rule.refused) throw new HttpError(rule.status, rule.message);
     await site.update({ archivedAt: new Date(), archivedById: actor.userId }, { transaction });

@@ -25,14 +25,15 @@ export function sizeDraft(boardId: string, draft: DraftSnapshot, signal?: AbortS
 const bodyField = (err: ApiError, name: string): unknown => (err.body as Record<string, unknown> | undefined)?.[name];
 
 /**
- * How a save ended: saved, someone else saved first (with their version), the save would take
- * a feeding way from other boards (asked first: they would be fed from the origin), or refused.
+ * How a save ended, as the save store's phase: saved, someone else saved first (with their
+ * version), the save would take a feeding way from other boards (asked first: they would be fed
+ * from the origin), or refused.
  */
 type SaveOutcome =
-  | { kind: 'saved'; board: BoardDto }
-  | { kind: 'conflict'; theirVersion: number; message: string }
-  | { kind: 'feed-changes'; feedChanges: FeedChange[]; message: string }
-  | { kind: 'locked'; message: string };
+  | { phase: 'saved'; board: BoardDto }
+  | { phase: 'conflict'; theirVersion: number; message: string }
+  | { phase: 'feeds'; feedChanges: FeedChange[]; message: string }
+  | { phase: 'locked'; message: string };
 
 /**
  * Saves the draft on top of `version`; `confirmFeedChanges`: the designer agreed that boards fed
@@ -52,16 +53,16 @@ export async function saveDraft(
       ...(confirmFeedChanges ? { confirmFeedChanges } : {}),
     };
     const { board } = await apiFetch<{ board: BoardDto }>(`/api/boards/${boardId}`, { method: 'PUT', body });
-    return { kind: 'saved', board };
+    return { phase: 'saved', board };
   } catch (err) {
     if (!(err instanceof ApiError)) throw err;
     const theirVersion = bodyField(err, 'currentVersion');
     if (err.status === 409 && typeof theirVersion === 'number')
-      return { kind: 'conflict', theirVersion, message: err.message };
+      return { phase: 'conflict', theirVersion, message: err.message };
     const feedChanges = bodyField(err, 'feedChanges');
     if (err.status === 409 && Array.isArray(feedChanges))
-      return { kind: 'feed-changes', feedChanges: feedChanges as FeedChange[], message: err.message };
-    if (err.status === 409 || err.status === 403) return { kind: 'locked', message: err.message };
+      return { phase: 'feeds', feedChanges: feedChanges as FeedChange[], message: err.message };
+    if (err.status === 409 || err.status === 403) return { phase: 'locked', message: err.message };
     throw err;
   }
 }

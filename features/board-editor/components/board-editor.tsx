@@ -17,7 +17,7 @@ import {
 } from '@dnd-kit/core';
 import { sortableKeyboardCoordinates } from '@dnd-kit/sortable';
 import { useMutation } from '@tanstack/react-query';
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { toast } from 'sonner';
 
 import { wayLabelMap } from '@/lib/boards/layout';
@@ -34,7 +34,7 @@ import { useUndoShortcuts } from '../hooks/use-undo-shortcuts';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 import { useSaveStore } from '../stores/save-store';
 import { boardAnnouncements, SCREEN_READER_INSTRUCTIONS } from '../utils/announcements';
-import { deviceWords, initialChoices, type TrayKind } from '../utils/device-catalogue';
+import { deviceWords } from '../utils/device-catalogue';
 import { editorBoard } from '../utils/board-shape';
 import { wayName } from '../utils/describe';
 import { dropProblem, dropTarget, type ActiveData, type OverData } from '../utils/drop-target';
@@ -72,6 +72,40 @@ const collision: CollisionDetection = (args) => {
   }
   return closestCorners(args);
 };
+
+/** Removes a way, with a toast whose action undoes it. */
+function removeWithUndo(id: string) {
+  const { settings, ways, removeWay, undo } = useBoardDraftStore.getState();
+  const way = ways.find((w) => w.id === id);
+  if (!way || !settings) return;
+  const label = wayLabelMap(settings.phases, ways).get(id);
+  removeWay(id);
+  toast(`Removed ${wayName(way, label)}.`, { action: { label: 'Undo', onClick: () => undo() } });
+}
+
+/** Why the dragged device would not fit where it is over, or null. */
+function refusalFor(active: ActiveData, over: OverData): string | null {
+  const { settings, ways } = useBoardDraftStore.getState();
+  if (!settings || !active) return null;
+  const target = dropTarget(ways, active.from === 'rail' ? active.wayId : null, over);
+  return target?.kind === 'place' ? dropProblem(settings, ways, active, target) : null;
+}
+
+// "Add to the board": the first rail with room, at its end (nowhere: the last rail's refusal shows)
+function addAnywhere(device: DeviceOnRail) {
+  const { settings, ways, addDevice } = useBoardDraftStore.getState();
+  if (!settings) return;
+  const rails = drawRails(settings.phases, railCapacities(settings.enclosureModules, settings.rails), ways);
+  const id = newWayId();
+  for (const { rail } of rails) {
+    if (addDevice(id, device, rail, ways.filter((w) => w.rail === rail).length).ok) {
+      toast.success(
+        `Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${rail + 1}` : 'the rail'}.`,
+      );
+      return;
+    }
+  }
+}
 
 /** The board editor: its parts wired to the draft store; sizing, saving, the kept draft and undo run in hooks. */
 export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = null }: BoardEditorProps) {
@@ -117,11 +151,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     return () => window.removeEventListener('beforeunload', onBeforeUnload);
   }, []);
 
-  // Tray choices, kept per number of phases so that the tray's defaults follow the board's
-  // supply when it changes, and the kind whose choices are shown
-  const [choicesByPhases, setChoicesByPhases] = useState(() => ({ 1: initialChoices(1), 3: initialChoices(3) }));
-  const [activeKind, setActiveKind] = useState<TrayKind>('mcb');
-
   // Drag state: what is being dragged and whether it would fit where it is
   const [dragging, setDragging] = useState<ActiveData>(undefined);
   const [dropRefusal, setDropRefusal] = useState<string | null>(null);
@@ -144,24 +173,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
       keyboardCodes: { start: ['Space'], cancel: ['Escape'], end: ['Space', 'Enter'] },
     }),
   );
-
-  const removeWithUndo = useCallback((id: string) => {
-    const { settings, ways, removeWay, undo } = useBoardDraftStore.getState();
-    const way = ways.find((w) => w.id === id);
-    if (!way || !settings) return;
-    const label = wayLabelMap(settings.phases, ways).get(id);
-    removeWay(id);
-    toast(`Removed ${wayName(way, label)}.`, {
-      action: { label: 'Undo', onClick: () => undo() },
-    });
-  }, []);
-
-  const refusalFor = useCallback((active: ActiveData, over: OverData): string | null => {
-    const { settings, ways } = useBoardDraftStore.getState();
-    if (!settings || !active) return null;
-    const target = dropTarget(ways, active.from === 'rail' ? active.wayId : null, over);
-    return target?.kind === 'place' ? dropProblem(settings, ways, active, target) : null;
-  }, []);
 
   const endDrag = () => {
     setDragging(undefined);
@@ -191,22 +202,6 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
     if (data.from === 'tray') store.addDevice(newWayId(), data.device, target.rail, target.index);
     else store.moveWay(data.wayId, target.rail, target.index);
   };
-
-  // "Add to the board": the first rail with room, at its end (nowhere: the last rail's refusal shows)
-  const addAnywhere = useCallback((device: DeviceOnRail) => {
-    const { settings, ways, addDevice } = useBoardDraftStore.getState();
-    if (!settings) return;
-    const rails = drawRails(settings.phases, railCapacities(settings.enclosureModules, settings.rails), ways);
-    const id = newWayId();
-    for (const { rail } of rails) {
-      if (addDevice(id, device, rail, ways.filter((w) => w.rail === rail).length).ok) {
-        toast.success(
-          `Added ${deviceWords(device)} at the end of ${rails.length > 1 ? `rail ${rail + 1}` : 'the rail'}.`,
-        );
-        return;
-      }
-    }
-  }, []);
 
   // Sending for review: save first, then ask the server
   const [confirmingSubmit, setConfirmingSubmit] = useState(false);
@@ -279,18 +274,7 @@ export function BoardEditor({ board, can, reviewNotes = null, readOnlyBecause = 
         {reviewNotes ? <ReviewNotes boardId={board.id} notes={reviewNotes} canAnswer={can.edit} /> : null}
         <div className="grid grid-cols-1 gap-4 xl:grid-cols-[minmax(0,1fr)_400px]">
           <div className="min-w-0 space-y-3">
-            {!readOnly ? (
-              <DeviceTray
-                choices={choicesByPhases[phases]}
-                active={activeKind}
-                boardPhases={phases}
-                onActivate={setActiveKind}
-                onChoose={(kind, choice) =>
-                  setChoicesByPhases((c) => ({ ...c, [phases]: { ...c[phases], [kind]: choice } }))
-                }
-                onAdd={addAnywhere}
-              />
-            ) : null}
+            {!readOnly ? <DeviceTray boardPhases={phases} onAdd={addAnywhere} /> : null}
             <Notice />
             <DrawnBoard
               readOnly={readOnly}

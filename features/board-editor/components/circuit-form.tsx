@@ -8,11 +8,7 @@ import { circuitSpecSchema, type CircuitSpec } from '@/lib/sizing';
 import { useDraftForm } from '../hooks/use-draft-form';
 import { useBoardDraftStore } from '../stores/board-draft-store';
 
-type CircuitFormProps = {
-  wayId: string;
-  boardPhases: 1 | 3;
-  readOnly: boolean;
-};
+type CircuitFormProps = { wayId: string; boardPhases: 1 | 3; readOnly: boolean };
 
 /**
  * The circuit of the selected way, a view over the draft (`useDraftForm`), validated with the

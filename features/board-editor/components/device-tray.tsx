@@ -2,6 +2,7 @@
 
 import { useDraggable } from '@dnd-kit/core';
 import { GripVertical, Plus } from 'lucide-react';
+import { useState } from 'react';
 
 import { Button } from '@/components/ui/button';
 import { cn } from '@/lib/cn';
@@ -10,6 +11,7 @@ import type { DeviceOnRail } from '@/lib/sizing';
 import {
   deviceFromChoice,
   deviceWords,
+  initialChoices,
   trayEntry,
   trayFor,
   type TrayChoice,
@@ -18,11 +20,7 @@ import {
 } from '../utils/device-catalogue';
 
 type DeviceTrayProps = {
-  choices: Record<TrayKind, TrayChoice>;
-  active: TrayKind;
   boardPhases: 1 | 3;
-  onActivate: (kind: TrayKind) => void;
-  onChoose: (kind: TrayKind, choice: TrayChoice) => void;
   /** Puts the active device at the first place it fits (the keyboard's way in). */
   onAdd: (device: DeviceOnRail) => void;
 };
@@ -30,17 +28,9 @@ type DeviceTrayProps = {
 /** The tray id of a kind's draggable chip. */
 const trayDragId = (kind: TrayKind) => `tray:${kind}`;
 
-function TrayChip({
-  kind,
-  device,
-  active,
-  onActivate,
-}: {
-  kind: TrayKind;
-  device: DeviceOnRail;
-  active: boolean;
-  onActivate: () => void;
-}) {
+type TrayChipProps = { kind: TrayKind; device: DeviceOnRail; active: boolean; onActivate: () => void };
+
+function TrayChip({ kind, device, active, onActivate }: TrayChipProps) {
   const { attributes, listeners, setNodeRef, isDragging } = useDraggable({
     id: trayDragId(kind),
     data: { from: 'tray', kind, device },
@@ -90,10 +80,16 @@ const choicesOf = (e: TrayEntry) =>
  * The device tray: one chip per kind, showing the variant it will drop; the chip picked shows
  * its choices. Drag a chip onto the board, or "Add to the board" puts it where it first fits.
  */
-export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose, onAdd }: DeviceTrayProps) {
+export function DeviceTray({ boardPhases, onAdd }: DeviceTrayProps) {
+  // The choices, kept per number of phases so that the tray's defaults follow the board's supply
+  // when it changes, and the kind whose choices are shown
+  const [choicesByPhases, setChoicesByPhases] = useState(() => ({ 1: initialChoices(1), 3: initialChoices(3) }));
+  const [active, setActive] = useState<TrayKind>('mcb');
+  const choices = choicesByPhases[boardPhases];
   const entry = trayEntry(active, boardPhases);
   const choice = choices[active];
-  const set = (patch: Partial<TrayChoice>) => onChoose(active, { ...choice, ...patch });
+  const set = (patch: Partial<TrayChoice>) =>
+    setChoicesByPhases((c) => ({ ...c, [boardPhases]: { ...c[boardPhases], [active]: { ...choice, ...patch } } }));
   const activeDevice = deviceFromChoice(active, choice);
   const needsThree = boardPhases === 1 && choice.poles >= 3;
   return (
@@ -109,7 +105,7 @@ export function DeviceTray({ choices, active, boardPhases, onActivate, onChoose,
             kind={e.kind}
             device={deviceFromChoice(e.kind, choices[e.kind])}
             active={e.kind === active}
-            onActivate={() => onActivate(e.kind)}
+            onActivate={() => setActive(e.kind)}
           />
         ))}
       </div>

@@ -62,13 +62,8 @@ function useRailViews(): RailView[] {
 }
 
 /** The board as drawn: the enclosure and each rail to scale (`RailRow`). */
-export const DrawnBoard = memo(function DrawnBoard({
-  readOnly,
-  showVerdicts,
-  dropRefusal = null,
-  onRemove,
-  derivedSupply = null,
-}: DrawnBoardProps) {
+export const DrawnBoard = memo(function DrawnBoard(props: DrawnBoardProps) {
+  const { readOnly, showVerdicts, dropRefusal = null, onRemove, derivedSupply = null } = props;
   const settings = useBoardDraftStore((s) => s.settings);
   const editSeq = useBoardDraftStore((s) => s.editSeq);
   const sizedFor = useDraftSizing((s) => s.editSeq) ?? 0;

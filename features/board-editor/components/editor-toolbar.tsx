@@ -51,15 +51,8 @@ function SaveState() {
 }
 
 /** The editor's top bar: the board, its status and saving state, undo and redo, rails, save and send. */
-export function EditorToolbar({
-  siteName,
-  canEdit,
-  canSubmit,
-  readOnlyReason,
-  submitting,
-  onSave,
-  onSubmit,
-}: EditorToolbarProps) {
+export function EditorToolbar(props: EditorToolbarProps) {
+  const { siteName, canEdit, canSubmit, readOnlyReason, submitting, onSave, onSubmit } = props;
   const settings = useBoardDraftStore((s) => s.settings);
   const status = useBoardDraftStore((s) => s.status);
   const canUndo = useBoardDraftStore((s) => s.past.length > 0);
@@ -117,9 +110,7 @@ export function EditorToolbar({
               className="h-8 rounded-md border border-line-strong bg-paper-raised px-2 text-xs text-ink"
             >
               {[1, 2, 3, 4].map((n) => (
-                <option key={n} value={n}>
-                  {n}
-                </option>
+                <option key={n}>{n}</option>
               ))}
             </select>
           </label>

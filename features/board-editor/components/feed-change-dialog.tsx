@@ -4,11 +4,7 @@ import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { fedFromWords } from '@/lib/names';
 import type { FeedChange } from '@/lib/sites/tree-types';
 
-type FeedChangeDialogProps = {
-  feedChanges: FeedChange[] | null;
-  onConfirm: () => void;
-  onHold: () => void;
-};
+type FeedChangeDialogProps = { feedChanges: FeedChange[] | null; onConfirm: () => void; onHold: () => void };
 
 /** Asked before a save that takes away a way feeding other boards: confirmed, they are fed from the origin. */
 export function FeedChangeDialog({ feedChanges, onConfirm, onHold }: FeedChangeDialogProps) {

@@ -23,19 +23,13 @@ function Meta({ comment }: { comment: CommentDto }) {
   );
 }
 
+type ReviewNotesProps = { boardId: string; notes: ReturnNotes; canAnswer: boolean };
+
 /**
  * A returned board's review, in the editor, until the designer marks it answered: who returned
  * it and why, then each way's comments. E-mail links open the editor at #review-notes.
  */
-export function ReviewNotes({
-  boardId,
-  notes,
-  canAnswer,
-}: {
-  boardId: string;
-  notes: ReturnNotes;
-  canAnswer: boolean;
-}) {
+export function ReviewNotes({ boardId, notes, canAnswer }: ReviewNotesProps) {
   const router = useRouter();
   const refs = useWayLabels();
   const ways = useBoardDraftStore((s) => s.ways);

@@ -17,11 +17,7 @@ import { CircuitForm } from './circuit-form';
 import { DeviceForm } from './device-form';
 import { SizingResult } from './sizing-result';
 
-type WayPanelProps = {
-  readOnly: boolean;
-  showSizing: boolean;
-  onRemove: (id: string) => void;
-};
+type WayPanelProps = { readOnly: boolean; showSizing: boolean; onRemove: (id: string) => void };
 
 /** The way's full sizing: drawn again for an answer or a pending state, without the forms above it. */
 function WaySizing({ wayId }: { wayId: string }) {

@@ -33,18 +33,14 @@ async function saveAttempt(boardId: string, settle: (saved: boolean) => void): P
   tell({ phase: 'saving', message: null, confirmFeeds: false });
   try {
     const outcome = await saveDraft(boardId, baseVersion, snapshot, confirmFeeds);
-    if (outcome.kind === 'saved') {
-      useBoardDraftStore.getState().markSaved(outcome.board.version, snapshot, outcome.board.status);
-      if (!useBoardDraftStore.getState().dirty) clearStoredDraft(boardId);
-      tell({ phase: 'saved', message: null });
-    } else if (outcome.kind === 'feed-changes') {
-      tell({ phase: 'feeds', feedChanges: outcome.feedChanges, message: outcome.message });
-    } else if (outcome.kind === 'conflict') {
-      tell({ phase: 'conflict', theirVersion: outcome.theirVersion, message: outcome.message });
-    } else {
-      tell({ phase: 'locked', message: outcome.message });
+    if (outcome.phase !== 'saved') {
+      tell(outcome);
+      return settle(false);
     }
-    settle(outcome.kind === 'saved' && !useBoardDraftStore.getState().dirty);
+    useBoardDraftStore.getState().markSaved(outcome.board.version, snapshot, outcome.board.status);
+    if (!useBoardDraftStore.getState().dirty) clearStoredDraft(boardId);
+    tell({ phase: 'saved', message: null });
+    settle(!useBoardDraftStore.getState().dirty);
   } catch (err) {
     tell({ phase: 'failed', message: `${errorMessage(err)} Your changes are kept in this browser.` });
     settle(false);
@@ -119,9 +115,8 @@ export function useBoardSave(boardId: string, enabled: boolean) {
 
   /** Keeps editing without saving (the draft stays unsaved, here and in this browser tab). */
   const holdFeeds = useCallback(() => {
-    useSaveStore
-      .getState()
-      .set({ phase: 'idle', feedChanges: null, message: 'Not saved: a way that feeds another board was taken away.' });
+    const message = 'Not saved: a way that feeds another board was taken away.';
+    useSaveStore.getState().set({ phase: 'idle', feedChanges: null, message });
   }, []);
 
   return { save, reloadTheirs, keepMine, confirmFeeds, holdFeeds };

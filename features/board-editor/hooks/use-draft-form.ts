@@ -5,8 +5,23 @@ import { useEffect, useRef } from 'react';
 import { useForm, type DefaultValues, type FieldValues } from 'react-hook-form';
 import type { z } from 'zod';
 
+import { formErrorMap } from '@/lib/forms/zod-messages';
+
 import { useBoardDraftStore } from '../stores/board-draft-store';
-import { editorErrorMap } from '../utils/error-map';
+
+/**
+ * The app's plain-words messages, with strict bounds said as such ("more than 0", not "0 or
+ * more") for the engine's `gt` and `lt` limits.
+ */
+const editorErrorMap: z.core.$ZodErrorMap = (issue) => {
+  if (issue.code === 'too_small' && issue.origin === 'number' && issue.inclusive === false) {
+    return `Use more than ${String(issue.minimum)}.`;
+  }
+  if (issue.code === 'too_big' && issue.origin === 'number' && issue.inclusive === false) {
+    return `Use less than ${String(issue.maximum)}.`;
+  }
+  return formErrorMap(issue);
+};
 
 /**
  * A way's form as a view over the draft store. The fields show the draft's value, or the input

@@ -95,19 +95,13 @@ const SizingStoreContext = createContext<StoreApi<Published>>(
   createStore<Published>()(() => ({ sizing: undefined, pending: false, error: null })),
 );
 
+type LiveSizingProps = { boardId: string; enabled: boolean; children: React.ReactNode };
+
 /**
  * Sizes the open draft after every change (`enabled`: the member may see sizing) and gives the
  * components inside it the answer through `useDraftSizing`. The draft stays editable all the while.
  */
-export function LiveSizing({
-  boardId,
-  enabled,
-  children,
-}: {
-  boardId: string;
-  enabled: boolean;
-  children: React.ReactNode;
-}) {
+export function LiveSizing({ boardId, enabled, children }: LiveSizingProps) {
   const editSeq = useBoardDraftStore((s) => s.editSeq);
   const open = useBoardDraftStore((s) => s.boardId === boardId && s.settings !== null);
   const settled = useSettledEditSeq(boardId, enabled && open);

@@ -1,4 +1,5 @@
 import { create } from 'zustand';
+import { combine } from 'zustand/middleware';
 
 import { normalisePositions, placementProblem, placeWay, railCapacities, reflowWays } from '@/lib/boards/rail';
 import type { BoardSettings } from '@/lib/boards/schemas';
@@ -6,85 +7,52 @@ import type { CircuitSpec, DeviceOnRail } from '@/lib/sizing';
 import type { BoardStatus } from '@/lib/domain';
 
 import type { DraftSnapshot, EditorBoard, EditorWay, EditResult } from '../types/draft';
-import { sameValue } from '../utils/same-value';
 
 /** How many steps undo keeps (the issue asks for at least 50). */
 export const UNDO_LIMIT = 100;
 
-/** A refusal the editor shows (and reads out) once. */
-type EditorNotice = { message: string };
-
-type State = {
-  boardId: string | null;
-  settings: BoardSettings | null;
-  ways: EditorWay[];
-  status: BoardStatus;
+const initial = {
+  boardId: null as string | null,
+  settings: null as BoardSettings | null,
+  ways: [] as EditorWay[],
+  status: 'draft' as BoardStatus,
   /** The stored version the draft builds on; a save names it. */
-  baseVersion: number;
+  baseVersion: 0,
   /** The edit sequence: goes up on every change to the draft (edit, undo, redo, load); live sizing keys on it. */
-  editSeq: number;
+  editSeq: 0,
   /** The draft as last saved (or loaded); compared by reference for the dirty flag. */
-  saved: DraftSnapshot | null;
-  dirty: boolean;
-  past: DraftSnapshot[];
-  future: DraftSnapshot[];
+  saved: null as DraftSnapshot | null,
+  dirty: false,
+  past: [] as DraftSnapshot[],
+  future: [] as DraftSnapshot[],
   /** Edits with the same key in a row merge into one undo step (typing in one field). */
-  lastKey: string | null;
-  selection: string[];
-  notice: EditorNotice | null;
+  lastKey: null as string | null,
+  selection: [] as string[],
+  /** A refusal the editor shows (and reads out) once. */
+  notice: null as { message: string } | null,
   /**
    * What a way's form holds while it is not valid yet, by form and way (`circuit:<id>`), so
    * that it survives selecting another way. Not part of the draft: no undo step, no save.
    */
-  unfinished: Record<string, unknown>;
+  unfinished: {} as Record<string, unknown>,
 };
 
-type Actions = {
-  /** Opens a board; `draft` restores unsaved work kept from an earlier visit. */
-  load: (board: EditorBoard, draft?: DraftSnapshot) => void;
-  /** Puts a new device (with the id the caller made) at an index of a rail. */
-  addDevice: (id: string, device: DeviceOnRail, rail: number, index: number) => EditResult;
-  /** Moves a way to an index of a rail (the index counts the rail's ways without it). */
-  moveWay: (id: string, rail: number, index: number) => EditResult;
-  removeWay: (id: string) => void;
-  /** Sets a way's circuit (null: a spare way). `key` merges a run of edits into one undo step. */
-  updateCircuit: (id: string, circuit: CircuitSpec | null, key?: string) => void;
-  /** Changes a way's device details (not its width: that is a new device). */
-  updateDevice: (id: string, device: DeviceOnRail, key?: string) => EditResult;
-  /** Sets how many rails the enclosure has; refused if the ways would not fit. */
-  setRails: (rails: number) => EditResult;
-  select: (id: string | null) => void;
-  selectMany: (ids: string[]) => void;
-  undo: () => void;
-  redo: () => void;
-  /** The draft `snapshot` was saved and the board is now at `version`. */
-  markSaved: (version: number, snapshot: DraftSnapshot, status?: BoardStatus) => void;
-  /** Keep this draft but build on `version` (after a conflict: "keep mine"). */
-  rebase: (version: number) => void;
-  /** Keeps (or, with null, drops) a form's input that is not valid yet. */
-  keepUnfinished: (key: string, values: unknown) => void;
-  clearNotice: () => void;
-  reset: () => void;
-};
+type State = typeof initial;
 
-type BoardDraftState = State & Actions;
-
-const initial: State = {
-  boardId: null,
-  settings: null,
-  ways: [],
-  status: 'draft',
-  baseVersion: 0,
-  editSeq: 0,
-  saved: null,
-  dirty: false,
-  past: [],
-  future: [],
-  lastKey: null,
-  selection: [],
-  notice: null,
-  unfinished: {},
-};
+/**
+ * Whether two plain JSON-like values are the same: objects compared key by key in any order
+ * (a stored board's jsonb keeps keys in its own order), a key holding `undefined` counted as
+ * absent (a form's empty optional field).
+ */
+function sameValue(a: unknown, b: unknown): boolean {
+  if (Object.is(a, b)) return true;
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return false;
+  if (Array.isArray(a) !== Array.isArray(b)) return false;
+  const keys = (o: object) => Object.entries(o).filter(([, v]) => v !== undefined);
+  const left = keys(a);
+  const right = new Map(keys(b));
+  return left.length === right.size && left.every(([k, v]) => right.has(k) && sameValue(v, right.get(k)));
+}
 
 const isSaved = (saved: DraftSnapshot | null, settings: BoardSettings | null, ways: EditorWay[]) =>
   !!saved && saved.settings === settings && saved.ways === ways;
@@ -165,122 +133,131 @@ function setWayPart<K extends 'circuit' | 'device'>(
  * draft differs from what was last saved. Pure state: no fetches, timers or storage here;
  * hooks (live sizing, saving, session storage) watch it.
  */
-export const useBoardDraftStore = create<BoardDraftState>()((set, get) => ({
-  ...initial,
+export const useBoardDraftStore = create(
+  combine(initial, (set, get) => ({
+    /** Opens a board; `draft` restores unsaved work kept from an earlier visit. */
+    load: (board: EditorBoard, draft?: DraftSnapshot) => {
+      const saved = { settings: board.settings, ways: normalisePositions(board.ways) };
+      const current = draft ? { settings: draft.settings, ways: normalisePositions(draft.ways) } : saved;
+      set({
+        ...initial,
+        boardId: board.id,
+        status: board.status,
+        baseVersion: board.version,
+        settings: current.settings,
+        ways: current.ways,
+        saved,
+        dirty: !!draft,
+        editSeq: get().editSeq + 1,
+      });
+    },
 
-  load: (board, draft) => {
-    const saved = { settings: board.settings, ways: normalisePositions(board.ways) };
-    const current = draft ? { settings: draft.settings, ways: normalisePositions(draft.ways) } : saved;
-    set({
-      ...initial,
-      boardId: board.id,
-      status: board.status,
-      baseVersion: board.version,
-      settings: current.settings,
-      ways: current.ways,
-      saved,
-      dirty: !!draft,
-      editSeq: get().editSeq + 1,
-    });
-  },
+    /** Puts a new device (with the id the caller made) at an index of a rail. */
+    addDevice: (id: string, device: DeviceOnRail, rail: number, index: number): EditResult => {
+      const state = get();
+      if (!state.settings) return { ok: false, reason: 'No board is open.' };
+      const way: EditorWay = { id, rail, position: index, device, circuit: null };
+      const problem = placementProblem(state.settings, state.ways, way, rail, index);
+      if (problem) return refuse(set, problem);
+      set({ ...commit(state, { ways: placeWay(state.ways, way, rail, index) }), selection: [id], notice: null });
+      return { ok: true };
+    },
 
-  addDevice: (id, device, rail, index) => {
-    const state = get();
-    if (!state.settings) return { ok: false, reason: 'No board is open.' };
-    const way: EditorWay = { id, rail, position: index, device, circuit: null };
-    const problem = placementProblem(state.settings, state.ways, way, rail, index);
-    if (problem) return refuse(set, problem);
-    set({ ...commit(state, { ways: placeWay(state.ways, way, rail, index) }), selection: [id], notice: null });
-    return { ok: true };
-  },
+    /** Moves a way to an index of a rail (the index counts the rail's ways without it). */
+    moveWay: (id: string, rail: number, index: number): EditResult => {
+      const state = get();
+      const way = state.ways.find((w) => w.id === id);
+      if (!state.settings || !way) return { ok: false, reason: 'That way is no longer on the board.' };
+      const problem = placementProblem(state.settings, state.ways, way, rail, index);
+      if (problem) return refuse(set, problem);
+      const ways = placeWay(state.ways, way, rail, index);
+      // Dropped back where it was: no undo step (both lists are in rail order)
+      if (sameValue(ways, state.ways)) return { ok: true };
+      set({ ...commit(state, { ways }), notice: null });
+      return { ok: true };
+    },
 
-  moveWay: (id, rail, index) => {
-    const state = get();
-    const way = state.ways.find((w) => w.id === id);
-    if (!state.settings || !way) return { ok: false, reason: 'That way is no longer on the board.' };
-    const problem = placementProblem(state.settings, state.ways, way, rail, index);
-    if (problem) return refuse(set, problem);
-    const ways = placeWay(state.ways, way, rail, index);
-    // Dropped back where it was: no undo step (both lists are in rail order)
-    if (sameValue(ways, state.ways)) return { ok: true };
-    set({ ...commit(state, { ways }), notice: null });
-    return { ok: true };
-  },
+    removeWay: (id: string) => {
+      const state = get();
+      if (!state.ways.some((w) => w.id === id)) return;
+      const ways = normalisePositions(state.ways.filter((w) => w.id !== id));
+      set({ ...commit(state, { ways }), selection: state.selection.filter((s) => s !== id) });
+    },
 
-  removeWay: (id) => {
-    const state = get();
-    if (!state.ways.some((w) => w.id === id)) return;
-    const ways = normalisePositions(state.ways.filter((w) => w.id !== id));
-    set({ ...commit(state, { ways }), selection: state.selection.filter((s) => s !== id) });
-  },
+    /** Sets a way's circuit (null: a spare way). `key` merges a run of edits into one undo step. */
+    updateCircuit: (id: string, circuit: CircuitSpec | null, key?: string) => {
+      const way = get().ways.find((w) => w.id === id);
+      if (way) set(setWayPart(get(), way, 'circuit', circuit, key));
+    },
 
-  updateCircuit: (id, circuit, key) => {
-    const way = get().ways.find((w) => w.id === id);
-    if (way) set(setWayPart(get(), way, 'circuit', circuit, key));
-  },
+    /** Changes a way's device details (not its width: that is a new device). */
+    updateDevice: (id: string, device: DeviceOnRail, key?: string): EditResult => {
+      const state = get();
+      const way = state.ways.find((w) => w.id === id);
+      if (!way) return { ok: false, reason: 'That way is no longer on the board.' };
+      if (device.modules !== way.device.modules || device.kind !== way.device.kind) {
+        return refuse(set, 'A different kind or width of device is a new device: drag it from the tray.');
+      }
+      set(setWayPart(state, way, 'device', device, key));
+      return { ok: true };
+    },
 
-  updateDevice: (id, device, key) => {
-    const state = get();
-    const way = state.ways.find((w) => w.id === id);
-    if (!way) return { ok: false, reason: 'That way is no longer on the board.' };
-    if (device.modules !== way.device.modules || device.kind !== way.device.kind) {
-      return refuse(set, 'A different kind or width of device is a new device: drag it from the tray.');
-    }
-    set(setWayPart(state, way, 'device', device, key));
-    return { ok: true };
-  },
+    /** Sets how many rails the enclosure has; refused if the ways would not fit. */
+    setRails: (rails: number): EditResult => {
+      const state = get();
+      if (!state.settings) return { ok: false, reason: 'No board is open.' };
+      if (rails < 1 || rails > 12) return { ok: false, reason: 'A board has between 1 and 12 rails.' };
+      const settings = { ...state.settings, rails };
+      // The devices flow over the new rails in their order, each rail filled from the left
+      const capacities = railCapacities(settings.enclosureModules, rails);
+      const { ways, fits } = reflowWays(settings.phases, capacities, state.ways);
+      if (!fits) {
+        const reason = `The devices do not fit on ${rails} rail${rails === 1 ? '' : 's'} of ${capacities[0]} modules: remove some first.`;
+        return refuse(set, reason);
+      }
+      set({ ...commit(state, { settings, ways }), notice: null });
+      return { ok: true };
+    },
 
-  setRails: (rails) => {
-    const state = get();
-    if (!state.settings) return { ok: false, reason: 'No board is open.' };
-    if (rails < 1 || rails > 12) return { ok: false, reason: 'A board has between 1 and 12 rails.' };
-    const settings = { ...state.settings, rails };
-    // The devices flow over the new rails in their order, each rail filled from the left
-    const capacities = railCapacities(settings.enclosureModules, rails);
-    const { ways, fits } = reflowWays(settings.phases, capacities, state.ways);
-    if (!fits) {
-      const reason = `The devices do not fit on ${rails} rail${rails === 1 ? '' : 's'} of ${capacities[0]} modules: remove some first.`;
-      return refuse(set, reason);
-    }
-    set({ ...commit(state, { settings, ways }), notice: null });
-    return { ok: true };
-  },
+    select: (id: string | null) => set({ selection: id ? [id] : [] }),
+    selectMany: (ids: string[]) => set({ selection: ids }),
 
-  select: (id) => set({ selection: id ? [id] : [] }),
-  selectMany: (ids) => set({ selection: ids }),
+    undo: () => {
+      const state = get();
+      const previous = state.past[state.past.length - 1];
+      if (!previous) return;
+      set(travel(state, previous, state.past.slice(0, -1), [present(state), ...state.future]));
+    },
 
-  undo: () => {
-    const state = get();
-    const previous = state.past[state.past.length - 1];
-    if (!previous) return;
-    set(travel(state, previous, state.past.slice(0, -1), [present(state), ...state.future]));
-  },
+    redo: () => {
+      const state = get();
+      const next = state.future[0];
+      if (!next) return;
+      set(travel(state, next, [...state.past, present(state)].slice(-UNDO_LIMIT), state.future.slice(1)));
+    },
 
-  redo: () => {
-    const state = get();
-    const next = state.future[0];
-    if (!next) return;
-    set(travel(state, next, [...state.past, present(state)].slice(-UNDO_LIMIT), state.future.slice(1)));
-  },
+    /** The draft `snapshot` was saved and the board is now at `version`. */
+    markSaved: (version: number, snapshot: DraftSnapshot, status?: BoardStatus) => {
+      const state = get();
+      set({
+        baseVersion: version,
+        saved: snapshot,
+        dirty: !isSaved(snapshot, state.settings, state.ways),
+        // The next edit starts a new undo step rather than merging into a saved one
+        lastKey: null,
+        ...(status ? { status } : {}),
+      });
+    },
 
-  markSaved: (version, snapshot, status) => {
-    const state = get();
-    set({
-      baseVersion: version,
-      saved: snapshot,
-      dirty: !isSaved(snapshot, state.settings, state.ways),
-      // The next edit starts a new undo step rather than merging into a saved one
-      lastKey: null,
-      ...(status ? { status } : {}),
-    });
-  },
-
-  rebase: (version) => set({ baseVersion: version }),
-  clearNotice: () => set({ notice: null }),
-  keepUnfinished: (key, values) =>
-    set((state) => ({
-      unfinished: values === null ? without(state.unfinished, key) : { ...state.unfinished, [key]: values },
-    })),
-  // The edit sequence carries on: a sizing kept for an earlier opening never passes for this one
-  reset: () => set({ ...initial, editSeq: get().editSeq }),
-}));
+    /** Keep this draft but build on `version` (after a conflict: "keep mine"). */
+    rebase: (version: number) => set({ baseVersion: version }),
+    clearNotice: () => set({ notice: null }),
+    /** Keeps (or, with null, drops) a form's input that is not valid yet. */
+    keepUnfinished: (key: string, values: unknown) =>
+      set((state) => ({
+        unfinished: values === null ? without(state.unfinished, key) : { ...state.unfinished, [key]: values },
+      })),
+    // The edit sequence carries on: a sizing kept for an earlier opening never passes for this one
+    reset: () => set({ ...initial, editSeq: get().editSeq }),
+  })),
+);

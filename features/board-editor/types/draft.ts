@@ -8,11 +8,7 @@ export type EditorWay = WayInput;
 export type DraftSnapshot = { settings: BoardSettings; ways: EditorWay[] };
 
 /** A board as the editor opens it. */
-export type EditorBoard = DraftSnapshot & {
-  id: string;
-  version: number;
-  status: BoardStatus;
-};
+export type EditorBoard = DraftSnapshot & { id: string; version: number; status: BoardStatus };
 
 /** The answer to an edit that may be refused: the reason is in words for the designer. */
 export type EditResult = { ok: true } | { ok: false; reason: string };

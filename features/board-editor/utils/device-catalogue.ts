@@ -85,13 +85,7 @@ const TRAY: readonly TrayEntry[] = [
     ratings: [5, 15, 20, 30, 45, 60, 100],
     initial: { poles: 1, ratingA: 30 },
   },
-  {
-    kind: 'spd',
-    name: 'SPD',
-    purpose: 'Surge protection',
-    poles: [2, 4],
-    initial: { poles: 2 },
-  },
+  { kind: 'spd', name: 'SPD', purpose: 'Surge protection', poles: [2, 4], initial: { poles: 2 } },
   { kind: 'blank', name: 'Blank', purpose: 'Covers a spare module', poles: [1], initial: { poles: 1 } },
 ];
 
@@ -132,16 +126,10 @@ export function deviceFromChoice(kind: TrayKind, choice: TrayChoice): DeviceOnRa
   const base = { kind, poles: choice.poles, modules: choice.poles } as DeviceOnRail;
   switch (kind) {
     case 'mcb':
-      return { ...base, curve: choice.curve ?? 'B', ratingA: choice.ratingA ?? null, breakingKa: 6 };
-    case 'rcbo':
-      return {
-        ...base,
-        curve: choice.curve ?? 'B',
-        ratingA: choice.ratingA ?? null,
-        breakingKa: 6,
-        rcdMa: choice.rcdMa ?? 30,
-        rcdType: choice.rcdType ?? 'A',
-      };
+    case 'rcbo': {
+      const breaker = { ...base, curve: choice.curve ?? 'B', ratingA: choice.ratingA ?? null, breakingKa: 6 };
+      return kind === 'mcb' ? breaker : { ...breaker, rcdMa: choice.rcdMa ?? 30, rcdType: choice.rcdType ?? 'A' };
+    }
     case 'rcd':
       return { ...base, ratingA: choice.ratingA ?? 63, rcdMa: choice.rcdMa ?? 30, rcdType: choice.rcdType ?? 'A' };
     case 'main-switch':

@@ -1,23 +1,19 @@
 import { DndContext } from '@dnd-kit/core';
-import { render, screen, within } from '@testing-library/react';
+import { fireEvent, render, screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 
 import { DeviceTray } from '@/features/board-editor/components/device-tray';
-import { initialChoices, type TrayKind } from '@/features/board-editor/utils/device-catalogue';
+import type { TrayKind } from '@/features/board-editor/utils/device-catalogue';
 
+/** The tray of a board of `phases`, with the chip of `active` picked. */
 function renderTray(phases: 1 | 3, active: TrayKind) {
-  return render(
+  const view = render(
     <DndContext>
-      <DeviceTray
-        choices={initialChoices(phases)}
-        active={active}
-        boardPhases={phases}
-        onActivate={() => {}}
-        onChoose={() => {}}
-        onAdd={() => {}}
-      />
+      <DeviceTray boardPhases={phases} onAdd={() => {}} />
     </DndContext>,
   );
+  fireEvent.click(view.container.querySelector(`[data-tray-kind="${active}"]`)!);
+  return view;
 }
 
 const chip = (kind: TrayKind) => document.querySelector(`[data-tray-kind="${kind}"]`)!.textContent;

@@ -10,7 +10,7 @@ export const GET = defineRoute({
   action: 'boards.read',
   params: idParamsSchema,
   handler: async ({ actor, params: { boardId } }) => {
-    const [walk, problems] = await Promise.all([getWalk(actor, boardId), labelProblems(actor, boardId)]);
-    return Response.json({ walk, problems });
+    const walk = await getWalk(actor, boardId);
+    return Response.json({ walk, problems: labelProblems(walk) });
   },
 });
