@@ -190,6 +190,14 @@ describe('sites are archived, not deleted', () => {
     expect((await siteRoute.DELETE(jsonRequest('DELETE'), bySite(siteId))).status).toBe(409);
     expect(await Site.count({ where: { id: siteId } })).toBe(1);
   });
+
+  it('a site with no boards archives too (its count of issued revisions is over no boards)', async () => {
+    const site = await Site.create({ organisationId: team.org.id, name: `Empty yard ${crypto.randomUUID()}` });
+    signInAs(team.users.designer);
+    const res = await siteRoute.DELETE(jsonRequest('DELETE'), bySite(site.id));
+    expect(res.status).toBe(200);
+    expect((await Site.findByPk(site.id))!.archivedAt).not.toBeNull();
+  });
 });
 
 describe('boards', () => {
