@@ -1,18 +1,16 @@
 import type { MigrationFn } from 'umzug';
 import type { QueryInterface } from 'sequelize';
 
-// A stored sizing is the engine's answer at the time it was stored, and a board is not sized
-// again until it is written or left pending. When the engine changes an answer (here: a board
-// whose drawn main switch disagrees with the incoming main switch of its settings now fails,
-// lib/sizing/board.ts), every stored sizing is marked pending, so that its first read sizes the
-// board (or its site's tree) again with the engine of this release and stores it. Issued revisions
-// keep what was issued. Down: nothing to undo (a pending sizing is only stored again on read).
-export const MARK_STORED_SIZINGS_PENDING = `
-  update board_sizings set pending = true, sizing = null, sizing_sha256 = null where not pending;
-`;
-
+// A stored sizing is the engine's answer when it was stored, and a board is not sized again
+// until it is written or left pending. `engine` is the engine's revision that made it
+// (lib/sizing/revision.ts ENGINE_REVISION): a sizing of another revision is not current
+// (lib/dal/board-repository.ts CURRENT_SIZING), so its first read sizes the board (or its site's
+// tree) again with the engine of the release and stores it. Rows stored before have none, so
+// every one is sized again once. Issued revisions keep what was issued.
 export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
-  await qi.sequelize.query(MARK_STORED_SIZINGS_PENDING);
+  await qi.sequelize.query('alter table board_sizings add column engine smallint');
 };
 
-export const down: MigrationFn<QueryInterface> = async () => {};
+export const down: MigrationFn<QueryInterface> = async ({ context: qi }) => {
+  await qi.sequelize.query('alter table board_sizings drop column engine');
+};

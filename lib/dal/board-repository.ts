@@ -24,7 +24,7 @@ import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/da
 import { resizeSiteOfStaleBoard } from '@/lib/dal/site-tree';
 import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
-import type { BoardResult } from '@/lib/sizing';
+import { ENGINE_REVISION, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
 import type { ReviewSizing } from '@/lib/boards/review-page-data';
@@ -234,10 +234,11 @@ const ENGINE_SETTINGS = new Set([
 ]);
 
 /**
- * The stored sizing of the board's current version (`s` joined to `b`), stored whole: a row left
- * `pending` by a change upstream (migration 0013) is sized again and stored by its first read.
+ * The stored sizing of the board's current version (`s` joined to `b`), stored whole by this
+ * engine: a row left `pending` by a change upstream (migration 0013), or made by another revision
+ * of the engine (migration 0014), is sized again and stored by its first read.
  */
-const CURRENT_SIZING = 's.board_id = b.id AND s.version = b.version AND NOT s.pending';
+const CURRENT_SIZING = `s.board_id = b.id AND s.version = b.version AND NOT s.pending AND s.engine = ${ENGINE_REVISION}`;
 
 /** The SHA-256 of a sizing's JSON text, hex (stored beside it: `sizing_sha256`, migration 0013). */
 export const sizingHash = (json: string | null): string | null =>
@@ -253,10 +254,11 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   const stored = { json: sized.sizing && JSON.stringify(sized.sizing), issues: sized.issues };
   const outcome = sized.sizing && JSON.stringify(sizingOutcome(sized.sizing));
   await db().query(
-    `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, outcome)
-     VALUES ($1, $2, $3::json, decode($4, 'hex'), false, $5::jsonb, $6::jsonb)
+    `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, outcome, engine)
+     VALUES ($1, $2, $3::json, decode($4, 'hex'), false, $5::jsonb, $6::jsonb, ${ENGINE_REVISION})
      ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
-       sizing_sha256 = EXCLUDED.sizing_sha256, pending = false, issues = EXCLUDED.issues, outcome = EXCLUDED.outcome
+       sizing_sha256 = EXCLUDED.sizing_sha256, pending = false, issues = EXCLUDED.issues, outcome = EXCLUDED.outcome,
+       engine = EXCLUDED.engine
      WHERE board_sizings.version <= EXCLUDED.version`,
     {
       bind: [board.id, board.version, stored.json, sizingHash(stored.json), JSON.stringify(stored.issues), outcome],

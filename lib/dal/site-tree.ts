@@ -16,6 +16,7 @@ import {
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import { wayName } from '@/lib/names';
+import { ENGINE_REVISION } from '@/lib/sizing';
 import type { RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
 import { sizingOutcome } from '@/lib/supply';
 import {
@@ -253,14 +254,16 @@ export async function resizeSite(
         r.outcome,
       );
       return `($${at - 7}::uuid, $${at - 6}::int, $${at - 5}::json, decode($${at - 4}, 'hex'), $${at - 3}::boolean,
-        $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int)`;
+        $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int, ${ENGINE_REVISION})`;
     });
     await db().query(
-      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, tree_version)
+      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, tree_version,
+         engine)
        VALUES ${values.join(', ')}
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
          sizing_sha256 = EXCLUDED.sizing_sha256, pending = EXCLUDED.pending, issues = EXCLUDED.issues,
-         carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, tree_version = EXCLUDED.tree_version`,
+         carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, tree_version = EXCLUDED.tree_version,
+         engine = EXCLUDED.engine`,
       { bind, transaction },
     );
   }
@@ -273,7 +276,7 @@ export async function resizeSite(
     });
     await db().query(
       `UPDATE board_sizings s SET version = v.version, issues = v.issues, carried = v.carried, outcome = v.outcome,
-         tree_version = $1::int
+         tree_version = $1::int, engine = ${ENGINE_REVISION}
        FROM (VALUES ${values.join(', ')}) AS v(board_id, version, issues, carried, outcome)
        WHERE s.board_id = v.board_id`,
       { bind, transaction },

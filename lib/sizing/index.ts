@@ -72,3 +72,4 @@ export { STANDARD_RATINGS_A, RCD_SENSITIVITIES_MA } from './tables/ratings';
 /** The caution every sizing screen and printed schedule carries. */
 export const SIZING_CAUTION =
   'A design aid: results must be checked by a competent person against the current edition of BS 7671 (or local wiring rules) and manufacturers’ data; local codes and licensed practice take precedence.';
+export { ENGINE_REVISION } from './revision';

@@ -13,7 +13,7 @@ import { createBoard, renameBoard } from '@/lib/dal/boards';
 import { approveBoard } from '@/lib/dal/issue-and-return';
 import { getReview, getReviewSource } from '@/lib/dal/review-page';
 import { db } from '@/lib/db';
-import { MARK_STORED_SIZINGS_PENDING } from '@/migrations/0014-stored-sizings-sized-again';
+import { ENGINE_REVISION } from '@/lib/sizing';
 import { AuditEvent, Board, Comment, Site, Way } from '@/models';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
@@ -263,30 +263,37 @@ describe('the review page’s read (getReviewSource)', () => {
   });
 });
 
-describe('migration 0014: stored sizings sized again by the engine of this release', () => {
-  it('a stored answer of an older engine is served until marked pending; then the first read sizes the board afresh and stores it', async () => {
+describe('stored sizings carry the engine revision that made them (migration 0014)', () => {
+  it('an answer of another engine revision is not served: the first read sizes the board afresh and stores it', async () => {
     const { board } = await makeBoard(team.org.id, 'flat');
     const fresh = await readStoredSizing(actor, board.id);
     expect(fresh.json).not.toBeNull();
-    // What an older engine stored for the same version of the board
+    const row = async () =>
+      (
+        await db().query<{ engine: number | null; pending: boolean; sha: string; json: string }>(
+          `SELECT engine, pending, encode(sizing_sha256, 'hex') AS sha, sizing::text AS json
+           FROM board_sizings WHERE board_id = $1`,
+          { bind: [board.id], type: QueryTypes.SELECT },
+        )
+      )[0];
+    expect((await row()).engine).toBe(ENGINE_REVISION);
+    // What an older engine stored for the same version of the board (and a row from before the stamp)
     const older = JSON.stringify({ ...JSON.parse(fresh.json!), ways: [] });
+    for (const engine of [ENGINE_REVISION - 1, null]) {
+      await db().query('UPDATE board_sizings SET sizing = $2::json, engine = $3 WHERE board_id = $1', {
+        bind: [board.id, older, engine],
+      });
+      expect((await readStoredSizing(actor, board.id)).json).toBe(fresh.json);
+      const stored = await row();
+      expect(stored).toEqual({
+        engine: ENGINE_REVISION,
+        pending: false,
+        json: fresh.json,
+        sha: crypto.createHash('sha256').update(fresh.json!).digest('hex'),
+      });
+    }
+    // The same answer of this revision is served as stored (no sizing again)
     await db().query('UPDATE board_sizings SET sizing = $2::json WHERE board_id = $1', { bind: [board.id, older] });
     expect((await readStoredSizing(actor, board.id)).json).toBe(older);
-
-    await db().query(MARK_STORED_SIZINGS_PENDING);
-    const [marked] = await db().query<{ pending: boolean; sizing: unknown }>(
-      'SELECT pending, sizing FROM board_sizings WHERE board_id = $1',
-      { bind: [board.id], type: QueryTypes.SELECT },
-    );
-    expect(marked).toEqual({ pending: true, sizing: null });
-
-    expect((await readStoredSizing(actor, board.id)).json).toBe(fresh.json);
-    const [stored] = await db().query<{ pending: boolean; sha: string; json: string }>(
-      `SELECT pending, encode(sizing_sha256, 'hex') AS sha, sizing::text AS json FROM board_sizings WHERE board_id = $1`,
-      { bind: [board.id], type: QueryTypes.SELECT },
-    );
-    expect(stored.pending).toBe(false);
-    expect(stored.json).toBe(fresh.json);
-    expect(stored.sha).toBe(crypto.createHash('sha256').update(fresh.json!).digest('hex'));
   });
 });

@@ -1,3 +1,4 @@
+import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it, vi } from 'vitest';
 
 import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
@@ -10,7 +11,7 @@ import { readTreeBoards } from '@/lib/dal/board-repository';
 import { lockSite, presizeSite, resizeSite } from '@/lib/dal/site-tree';
 import { sizeTree } from '@/lib/supply/size-tree';
 import type { SiteRipple } from '@/lib/sites/tree-types';
-import type { BoardResult, Verdict } from '@/lib/sizing';
+import { ENGINE_REVISION, type BoardResult, type Verdict } from '@/lib/sizing';
 import { worstVerdictOf } from '@/lib/supply';
 import { AuditEvent } from '@/models';
 
@@ -312,6 +313,30 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
     expect(verbs(writes)).toEqual(['INSERT INTO', 'UPDATE board_sizings']);
     expect(sizingsSent(writes)).toEqual([]);
     expect((await sizingRow(t.id('fin'))).pending).toBe(true);
+    expect((await storedSizing(t.id('fin'))).text).toBe(good);
+  });
+
+  it('sizings stored by another engine revision are not current: one read re-sizes the site and stamps every board', async () => {
+    signInAs(team.users.designer);
+    const { t } = await linkedTwoLevel();
+    const good = (await storedSizing(t.id('fin'))).text!;
+    await storedSizing(t.id('db1'));
+    // An older engine's answer for the board below (with its hash, as that engine stored it),
+    // and both rows stamped by an older revision
+    await db().query(
+      `UPDATE board_sizings SET sizing = $2::json, sizing_sha256 = sha256(convert_to($2::text, 'UTF8')) WHERE board_id = $1`,
+      { bind: [t.id('fin'), good.replace('"verdict":"passes"', '"verdict":"failed"')] },
+    );
+    await db().query(`UPDATE board_sizings SET engine = $2 WHERE board_id = ANY($1::uuid[])`, {
+      bind: [[t.id('db1'), t.id('fin')], ENGINE_REVISION - 1],
+    });
+    await call(sizingRoute.POST(jsonRequest('POST'), ctx({ boardId: t.id('db1') })));
+    const engines = await db().query<{ engine: number }>(
+      'SELECT engine FROM board_sizings WHERE board_id = ANY($1::uuid[])',
+      { bind: [[t.id('db1'), t.id('fin')]], type: QueryTypes.SELECT },
+    );
+    expect(engines.map((r) => r.engine)).toEqual([ENGINE_REVISION, ENGINE_REVISION]);
+    expect((await sizingRow(t.id('fin'))).pending).toBe(false);
     expect((await storedSizing(t.id('fin'))).text).toBe(good);
   });
 });
