@@ -138,8 +138,8 @@ export async function readArchiveState(boardId: string, transaction?: Transactio
  */
 export const readBoardFrame = cache(async (actor: Actor, boardId: string): Promise<BoardFrame> => {
   const rows = await select<BoardFrame>(
-    `SELECT b.status, b.revision, b.site_id AS "siteId", ${ARCHIVED_JSON} AS archived FROM boards b ${ARCHIVE_JOINS}
-     WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
+    `/* prepare:board_frame */ SELECT b.status, b.revision, b.site_id AS "siteId", ${ARCHIVED_JSON} AS archived
+     FROM boards b ${ARCHIVE_JOINS} WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );
   if (!rows.length) throw notFound('The board');
@@ -284,7 +284,8 @@ async function readCurrentSizing(
   again = false,
 ): Promise<{ board: BoardDto | null; stored: StoredSizing }> {
   const [row] = await select<SizingRow>(
-    `SELECT ${withBoard ? BOARD_DTO_JSON : 'NULL'} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json,
+    `/* prepare:${withBoard ? 'board_and_sizing' : 'stored_sizing'} */
+     SELECT ${withBoard ? BOARD_DTO_JSON : 'NULL'} AS dto, s.board_id IS NOT NULL AS current, s.sizing::text AS json,
        s.issues
      FROM boards b LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
@@ -500,7 +501,8 @@ export async function readReviewSource(
   const rows = await select<
     IssueFacts & { dto: string; current: boolean; cut: string | null; issues: FieldIssue[] | null }
   >(
-    `SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, ${SIZING_CUT} AS cut, s.issues, ${ISSUE_FACTS}
+    `/* prepare:review_source */
+     SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, ${SIZING_CUT} AS cut, s.issues, ${ISSUE_FACTS}
      FROM boards b JOIN organisations o ON o.id = b.organisation_id
        LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
        LEFT JOIN LATERAL (SELECT s.sizing::jsonb AS j OFFSET 0) js ON true
