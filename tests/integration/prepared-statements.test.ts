@@ -59,7 +59,7 @@ describe('prepared statements (lib/db.ts)', () => {
     await getReviewSource(actor, board.id); // sizes the new board and stores its sizing
     const query = vi.spyOn(pg.Client.prototype, 'query');
     // More than five executions: PostgreSQL may then switch the statement to a generic plan
-    const answers = [];
+    const answers: Awaited<ReturnType<typeof getReviewSource>>[] = [];
     for (let i = 0; i < 7; i++) answers.push(await getReviewSource(actor, board.id));
     const named = query.mock.calls.filter(([config]) => (config as { name?: string })?.name === 'review_source');
     query.mockRestore();
