@@ -1,6 +1,6 @@
 import type { CommentDto, ReviewData } from '@/lib/boards/review-types';
 import { deviceName, loadTypeName } from '@/lib/names';
-import type { BoardSummary, CircuitResult, Verdict } from '@/lib/sizing';
+import type { BoardResult, BoardSummary, CircuitResult, Verdict } from '@/lib/sizing';
 
 /** A way's checks as the review page shows them when the way is opened. */
 export type WayChecks = Pick<CircuitResult['checks'][number], 'code' | 'ok' | 'message' | 'reference'>[];
@@ -51,6 +51,36 @@ export type ReviewSource = Omit<ReviewData, 'sizing'> & { sizing: ReviewSizing |
 
 /** The review page's props: the review, with its sizing cut to the table's rows and the summary. */
 export type ReviewPageData = Omit<ReviewData, 'sizing'> & { summary: ReviewSummary | null; rows: ReviewWayRow[] };
+
+/**
+ * A sizing cut to what the review page shows (stored beside it, migration 0015): each way's
+ * figures and verdict, the board's summary and, of its checks, those that fail.
+ */
+export function reviewSizingOf(sizing: Pick<BoardResult, 'ways' | 'summary'>): ReviewSizing {
+  const { connectedLoadW, maxDemandA, counts, incomingCheck, checks } = sizing.summary;
+  return {
+    summary: {
+      connectedLoadW,
+      maxDemandA,
+      counts,
+      incomingCheck: { message: incomingCheck.message },
+      checks: checks.filter((c) => !c.ok).map(({ ok, message }) => ({ ok, message })),
+    },
+    ways: sizing.ways.map(({ id, result: r }) => ({
+      id,
+      result: r && {
+        ibA: r.ibA,
+        inA: r.inA,
+        csaMm2: r.csaMm2,
+        izA: r.izA,
+        vdPct: r.vdPct,
+        zsOhm: r.zsOhm,
+        zsMaxOhm: r.zsMaxOhm,
+        verdict: r.verdict,
+      },
+    })),
+  };
+}
 
 const fmt = (v: number | null | undefined, d: number) => (v === null || v === undefined ? '—' : v.toFixed(d));
 

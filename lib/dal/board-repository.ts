@@ -27,7 +27,7 @@ import { notFound, type FieldIssue } from '@/lib/errors';
 import { ENGINE_REVISION, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
-import type { ReviewSizing } from '@/lib/boards/review-page-data';
+import { reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
 import type { ArchiveState, CommentDto } from '@/lib/boards/review-types';
 import type { TreeBoard } from '@/lib/supply/size-tree';
 import { Board, Way } from '@/models';
@@ -254,14 +254,22 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   const stored = { json: sized.sizing && JSON.stringify(sized.sizing), issues: sized.issues };
   const outcome = sized.sizing && JSON.stringify(sizingOutcome(sized.sizing));
   await db().query(
-    `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, outcome, engine)
-     VALUES ($1, $2, $3::json, decode($4, 'hex'), false, $5::jsonb, $6::jsonb, ${ENGINE_REVISION})
+    `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, outcome, review, engine)
+     VALUES ($1, $2, $3::json, decode($4, 'hex'), false, $5::jsonb, $6::jsonb, $7::jsonb, ${ENGINE_REVISION})
      ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
        sizing_sha256 = EXCLUDED.sizing_sha256, pending = false, issues = EXCLUDED.issues, outcome = EXCLUDED.outcome,
-       engine = EXCLUDED.engine
+       review = EXCLUDED.review, engine = EXCLUDED.engine
      WHERE board_sizings.version <= EXCLUDED.version`,
     {
-      bind: [board.id, board.version, stored.json, sizingHash(stored.json), JSON.stringify(stored.issues), outcome],
+      bind: [
+        board.id,
+        board.version,
+        stored.json,
+        sizingHash(stored.json),
+        JSON.stringify(stored.issues),
+        outcome,
+        sized.sizing && JSON.stringify(reviewSizingOf(sized.sizing)),
+      ],
       transaction,
     },
   );
@@ -471,8 +479,9 @@ const ISSUE_FACTS = `o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue"
     FROM comments c LEFT JOIN users u ON u.id = c.author_id WHERE c.board_id = $1), '[]'::json) AS comments`;
 
 /**
- * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing): PostgreSQL cuts
- * the few figures the page shows out of the whole answer (about 1.4 kB of working a way).
+ * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing), for a row stored
+ * without its cut (`review`, migration 0015): PostgreSQL cuts the few figures the page shows out of
+ * the whole answer (about 1.4 kB of working a way), as `reviewSizingOf` does when a sizing is stored.
  */
 const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object(
   'summary', jsonb_build_object('connectedLoadW', j#>'{summary,connectedLoadW}', 'maxDemandA', j#>'{summary,maxDemandA}',
@@ -488,7 +497,7 @@ const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object
 
 /**
  * The review page's read, in one statement: the caller's organisation's board (404 otherwise),
- * its stored sizing cut (`SIZING_CUT`), the issue facts and comments. Null when the stored
+ * its stored sizing's cut (stored, else `SIZING_CUT`), the issue facts and comments. Null when the stored
  * sizing is older than the board (the caller reads it the long way, which sizes it again).
  * `OFFSET 0` keeps the planner from pulling the lateral subquery up into the select list, which
  * put `s.sizing::jsonb` in place of each of SIZING_CUT's `j`: the 60 kB text was parsed seven
@@ -502,10 +511,11 @@ export async function readReviewSource(
     IssueFacts & { dto: string; current: boolean; cut: string | null; issues: FieldIssue[] | null }
   >(
     `/* prepare:review_source */
-     SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, ${SIZING_CUT} AS cut, s.issues, ${ISSUE_FACTS}
+     SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, COALESCE(s.review::text, ${SIZING_CUT}) AS cut,
+       s.issues, ${ISSUE_FACTS}
      FROM boards b JOIN organisations o ON o.id = b.organisation_id
        LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
-       LEFT JOIN LATERAL (SELECT s.sizing::jsonb AS j OFFSET 0) js ON true
+       LEFT JOIN LATERAL (SELECT s.sizing::jsonb AS j WHERE s.review IS NULL OFFSET 0) js ON true
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );

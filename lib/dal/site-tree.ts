@@ -15,6 +15,7 @@ import {
 } from '@/lib/dal/board-repository';
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
+import { reviewSizingOf } from '@/lib/boards/review-page-data';
 import { wayName } from '@/lib/names';
 import { ENGINE_REVISION } from '@/lib/sizing';
 import type { RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
@@ -189,6 +190,7 @@ export async function resizeSite(
     issues: string;
     carried: string | null;
     outcome: string | null;
+    review: string | null;
   }[] = [];
   const ripple: RippleBoard[] = [];
   for (const b of boards) {
@@ -202,15 +204,17 @@ export async function resizeSite(
     // board whose supply changed is left pending unmade (its checks carry the supply's values)
     const text = whole || (!supplyChanged && !b.stored?.pending) ? s.sizing && JSON.stringify(s.sizing) : null;
     const sha = sizingHash(text);
+    const write = sha !== null && b.stored?.sha === sha && !b.stored.pending ? 'keep' : whole ? 'whole' : 'pending';
     rows.push({
       board_id: b.id,
       version: b.version,
-      write: sha !== null && b.stored?.sha === sha && !b.stored.pending ? 'keep' : whole ? 'whole' : 'pending',
+      write,
       sizing: text,
       sha,
       issues: JSON.stringify(s.issues),
       carried: carried && JSON.stringify(carried),
       outcome: outcome && JSON.stringify(outcome),
+      review: write === 'whole' && s.sizing ? JSON.stringify(reviewSizingOf(s.sizing)) : null,
     });
     const was = b.stored ? storedOutcome(b.stored) : null;
     const before = new Map(Object.entries(was?.verdicts ?? {}));
@@ -252,17 +256,18 @@ export async function resizeSite(
         r.issues,
         r.carried,
         r.outcome,
+        r.review,
       );
-      return `($${at - 7}::uuid, $${at - 6}::int, $${at - 5}::json, decode($${at - 4}, 'hex'), $${at - 3}::boolean,
-        $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int, ${ENGINE_REVISION})`;
+      return `($${at - 8}::uuid, $${at - 7}::int, $${at - 6}::json, decode($${at - 5}, 'hex'), $${at - 4}::boolean,
+        $${at - 3}::jsonb, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int, ${ENGINE_REVISION})`;
     });
     await db().query(
-      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, tree_version,
-         engine)
+      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, review,
+         tree_version, engine)
        VALUES ${values.join(', ')}
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
          sizing_sha256 = EXCLUDED.sizing_sha256, pending = EXCLUDED.pending, issues = EXCLUDED.issues,
-         carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, tree_version = EXCLUDED.tree_version,
+         carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, review = EXCLUDED.review, tree_version = EXCLUDED.tree_version,
          engine = EXCLUDED.engine`,
       { bind, transaction },
     );

@@ -6,14 +6,14 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { Actor } from '@/lib/auth/session';
-import { reviewPageData } from '@/lib/boards/review-page-data';
+import { reviewPageData, reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
 import { readBoard, readBoardFrame, readStoredSizing } from '@/lib/dal/board-repository';
 import { submitBoard } from '@/lib/dal/board-status';
 import { createBoard, renameBoard } from '@/lib/dal/boards';
 import { approveBoard } from '@/lib/dal/issue-and-return';
 import { getReview, getReviewSource } from '@/lib/dal/review-page';
 import { db } from '@/lib/db';
-import { ENGINE_REVISION } from '@/lib/sizing';
+import { ENGINE_REVISION, type BoardResult } from '@/lib/sizing';
 import { AuditEvent, Board, Comment, Site, Way } from '@/models';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
 
@@ -237,6 +237,32 @@ describe('the review page’s read (getReviewSource)', () => {
     expect(failing).toEqual([expect.stringMatching(/^\d+ of 12 modules used\.$/)]);
     expect(reviewPageData(cut).summary!.failing).toEqual(failing);
     expect(reviewPageData(cut)).toEqual(reviewPageData({ ...whole, revisions: [] }));
+  });
+
+  it('reads the cut stored with the sizing (migration 0015); a row stored without one is cut the same by PostgreSQL', async () => {
+    const { board } = await makeBoard(team.org.id, 'workshop');
+    await Board.update({ enclosureModules: 12 }, { where: { id: board.id } });
+    await readStoredSizing(actor, board.id);
+    const rowOf = async () => {
+      const [row] = await db().query<{ review: ReviewSizing | null; sizing: BoardResult }>(
+        'SELECT review, sizing FROM board_sizings WHERE board_id = $1',
+        { bind: [board.id], type: QueryTypes.SELECT },
+      );
+      return row;
+    };
+    const { review, sizing } = await rowOf();
+    expect(review).toEqual(reviewSizingOf(sizing));
+    expect(review!.summary.checks.map((c) => c.ok)).toEqual([false]);
+    const stored = await getReviewSource(actor, board.id);
+    const setReview = (value: ReviewSizing | null) =>
+      db().query('UPDATE board_sizings SET review = $2::jsonb WHERE board_id = $1', {
+        bind: [board.id, value && JSON.stringify(value)],
+      });
+    await setReview(null);
+    expect(await getReviewSource(actor, board.id)).toEqual(stored);
+    // The page shows the stored cut, not one made again from the whole sizing
+    await setReview({ ...review!, summary: { ...review!.summary, maxDemandA: 12345 } });
+    expect((await getReviewSource(actor, board.id)).sizing!.summary.maxDemandA).toBe(12345);
   });
 
   it('sizes a board whose stored sizing is older than the board, stores it, and answers as the long way does', async () => {

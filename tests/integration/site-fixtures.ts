@@ -4,6 +4,7 @@ import { QueryTypes } from 'sequelize';
 import { expect } from 'vitest';
 
 import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
+import { reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
 import type { BoardSettings, WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import type { DerivedSupply } from '@/lib/sites/tree-types';
@@ -59,6 +60,7 @@ export type SizingRow = {
   sha: string | null;
   pending: boolean;
   outcome: { verdicts: Record<string, Verdict>; worst: Verdict } | null;
+  review: ReviewSizing | null;
   carried: DerivedSupply | null;
   version: number;
   boardVersion: number;
@@ -68,7 +70,7 @@ export type SizingRow = {
 /** What is stored for a board now, without any route re-sizing it on the way. */
 export async function sizingRow(boardId: string): Promise<SizingRow> {
   const [row] = await db().query<SizingRow>(
-    `SELECT s.sizing, s.sizing::text AS text, encode(s.sizing_sha256, 'hex') AS sha, s.pending, s.outcome, s.carried,
+    `SELECT s.sizing, s.sizing::text AS text, encode(s.sizing_sha256, 'hex') AS sha, s.pending, s.outcome, s.review, s.carried,
        s.version, b.version AS "boardVersion", s.tree_version AS "treeVersion"
      FROM board_sizings s JOIN boards b ON b.id = s.board_id WHERE s.board_id = $1`,
     { bind: [boardId], type: QueryTypes.SELECT },
@@ -85,8 +87,12 @@ export async function sizingRow(boardId: string): Promise<SizingRow> {
  */
 export async function storedSizing(boardId: string): Promise<SizingRow> {
   const now = await sizingRow(boardId);
-  if (!now.pending) return now;
+  if (!now.pending) {
+    expect(now.review, 'the review page’s cut, stored with it').toEqual(now.sizing && reviewSizingOf(now.sizing));
+    return now;
+  }
   expect(now.sizing, 'a pending sizing is not stored').toBeNull();
+  expect(now.review, 'nor its cut for the review page').toBeNull();
   const res = await sizingRoute.POST(jsonRequest('POST'), ctx({ boardId }));
   await res.arrayBuffer();
   const read = await sizingRow(boardId);
@@ -95,5 +101,6 @@ export async function storedSizing(boardId: string): Promise<SizingRow> {
   if (now.sha !== null) expect(read.sha, 'the hash left while pending is the stored text’s').toBe(now.sha);
   expect(now.outcome, 'the outcome stored while pending is the stored sizing’s').toEqual(read.outcome);
   expect(now.carried?.supply, 'the supply carried').toEqual(read.carried?.supply);
+  expect(read.review, 'the review page’s cut, stored with it').toEqual(read.sizing && reviewSizingOf(read.sizing));
   return read;
 }

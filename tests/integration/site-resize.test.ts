@@ -221,8 +221,9 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
   }
   const verbs = (writes: { sql: string }[]) =>
     writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' ')).sort();
+  // A whole sizing (its summary's diversity rules), not the review page's cut of it
   const sizingsSent = (writes: { bind: unknown[] }[]) =>
-    writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"summary"'));
+    writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"diversityRules"'));
 
   it('the same origin again: no sizing is sent, each row moves on to the new tree version', async () => {
     signInAs(team.users.designer);
