@@ -583,10 +583,12 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
 
 /** What was stored for board `b`, whole (its sizing) or only its outcome (the sizing only for a row without one). */
 const STORED_SIZING_JSON = `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried,
-    'outcome', s.outcome, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending)
+    'outcome', s.outcome, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending,
+    'review', s.review IS NOT NULL)
   FROM board_sizings s WHERE s.board_id = b.id)`;
 const STORED_OUTCOME_JSON = `(SELECT json_build_object('version', s.version, 'carried', s.carried, 'outcome', s.outcome,
-    'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending)
+    'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending,
+    'review', s.review IS NOT NULL)
   FROM board_sizings s WHERE s.board_id = b.id)`;
 
 /**

@@ -204,7 +204,10 @@ export async function resizeSite(
     // board whose supply changed is left pending unmade (its checks carry the supply's values)
     const text = whole || (!supplyChanged && !b.stored?.pending) ? s.sizing && JSON.stringify(s.sizing) : null;
     const sha = sizingHash(text);
-    const write = sha !== null && b.stored?.sha === sha && !b.stored.pending ? 'keep' : whole ? 'whole' : 'pending';
+    // The very text stored already is kept, if the review page's cut of it was stored with it
+    // (a row stored before migration 0015 is written whole again)
+    const same = sha !== null && b.stored?.sha === sha && !b.stored.pending;
+    const write = same && b.stored?.review ? 'keep' : whole || same ? 'whole' : 'pending';
     rows.push({
       board_id: b.id,
       version: b.version,

@@ -38,6 +38,8 @@ export type TreeBoard = BoardSettings & {
     sha?: string | null;
     /** Its whole sizing is still to be stored (migration 0013). */
     pending?: boolean;
+    /** Whether the review page's cut of it is stored too (migration 0015). */
+    review?: boolean;
   } | null;
 };
 

@@ -5,6 +5,7 @@ import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
+import { reviewSizingOf } from '@/lib/boards/review-page-data';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { readTreeBoards } from '@/lib/dal/board-repository';
@@ -243,6 +244,25 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
       expect(after.text, id).toBe(before[i].text);
       expect(after.treeVersion, id).toBe(before[i].treeVersion! + 1);
       expect(after.carried?.treeVersion, id).toBe(after.treeVersion);
+    }
+  });
+
+  it('the same origin again writes whole a row stored without the review page’s cut (before migration 0015)', async () => {
+    signInAs(team.users.designer);
+    const { fx, t } = await linkedTwoLevel();
+    const origin = { ...fx.origin, zeOhm: 0.5 };
+    await call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
+    await storedSizing(t.id('fin'));
+    await db().query('UPDATE board_sizings SET review = NULL WHERE board_id = $1', { bind: [t.id('fin')] });
+    const writes = await writesDuring(() =>
+      call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id }))),
+    );
+    expect(verbs(writes)).toEqual(['INSERT INTO', 'UPDATE board_sizings']);
+    expect(sizingsSent(writes)).toHaveLength(1);
+    for (const id of ['db1', 'fin']) {
+      const row = await sizingRow(t.id(id));
+      expect(row.pending, id).toBe(false);
+      expect(row.review, id).toEqual(reviewSizingOf(row.sizing!));
     }
   });
 
