@@ -8,6 +8,7 @@ import { Select } from '@/components/ui/field';
 import { errorMessage } from '@/lib/api/client';
 
 import { fetchDiff, fetchRevisions, reviewKeys } from '../api/review-api';
+import { useInBrowser } from '../hooks/use-in-browser';
 import { RevisionDiffView } from './revision-diff-view';
 
 /**
@@ -15,6 +16,12 @@ import { RevisionDiffView } from './revision-diff-view';
  * draft), with pickers for both. Self-contained, so the board page can embed it.
  */
 export function RevisionDiff({ boardId }: { boardId: string }) {
+  // Its revisions load in the browser: the server renders what it would show until then
+  if (!useInBrowser()) return <p className="text-sm text-ink-soft">Loading revisions…</p>;
+  return <RevisionPickers boardId={boardId} />;
+}
+
+function RevisionPickers({ boardId }: { boardId: string }) {
   const id = useId();
   const list = useQuery({ queryKey: reviewKeys.revisions(boardId), queryFn: () => fetchRevisions(boardId) });
   const [picked, setPicked] = useState<{ from?: string; to?: string }>({});

@@ -2,7 +2,7 @@
 
 import { useQuery } from '@tanstack/react-query';
 import { ChevronDown, ChevronRight, CircleCheck, CircleX, MessageSquare } from 'lucide-react';
-import { Fragment, useState, useSyncExternalStore } from 'react';
+import { Fragment, useState } from 'react';
 
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { FormAlert } from '@/components/ui/form-alert';
@@ -10,25 +10,11 @@ import { errorMessage } from '@/lib/api/client';
 import type { ReviewWayRow } from '@/lib/boards/review-page-data';
 
 import { fetchWayChecks, reviewKeys } from '../api/review-api';
+import { useInBrowser } from '../hooks/use-in-browser';
 import { CommentThread } from './comment-thread';
 import { CommentForm } from './review-islands';
 
 const NUMBER_HEADINGS = ['Ib A', 'mm²', 'Iz A', 'Volt drop %', 'Zs Ω (max)'];
-
-const subscribeNever = () => () => {};
-
-/**
- * Whether this render is in the browser. The ways table is drawn there only: the server sends
- * its rows as data (a few hundred bytes a way), not as markup rendered twice (as React Server
- * Component output and again as HTML), which made the review page cost the server about four
- * times a light page of the app.
- */
-const useInBrowser = () =>
-  useSyncExternalStore(
-    subscribeNever,
-    () => true,
-    () => false,
-  );
 
 /** A way's checks, loaded when the way is opened. */
 function Checks({ boardId, wayId }: { boardId: string; wayId: string }) {
