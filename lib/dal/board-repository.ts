@@ -235,10 +235,12 @@ const ENGINE_SETTINGS = new Set([
 
 /**
  * The stored sizing of the board's current version (`s` joined to `b`), stored whole by this
- * engine: a row left `pending` by a change upstream (migration 0013), or made by another revision
- * of the engine (migration 0014), is sized again and stored by its first read.
+ * engine with the review page's cut of it: a row left `pending` by a change upstream (migration
+ * 0013), made by another revision of the engine (migration 0014) or stored without its cut
+ * (migration 0015) is sized again and stored by its first read.
  */
-const CURRENT_SIZING = `s.board_id = b.id AND s.version = b.version AND NOT s.pending AND s.engine = ${ENGINE_REVISION}`;
+const CURRENT_SIZING = `s.board_id = b.id AND s.version = b.version AND NOT s.pending AND s.engine = ${ENGINE_REVISION}
+  AND (s.review IS NOT NULL OR s.sizing IS NULL)`;
 
 /** The SHA-256 of a sizing's JSON text, hex (stored beside it: `sizing_sha256`, migration 0013). */
 export const sizingHash = (json: string | null): string | null =>
@@ -479,29 +481,10 @@ const ISSUE_FACTS = `o.name AS "orgName", o.allow_self_issue AS "allowSelfIssue"
     FROM comments c LEFT JOIN users u ON u.id = c.author_id WHERE c.board_id = $1), '[]'::json) AS comments`;
 
 /**
- * `ReviewSizing` (lib/boards/review-page-data.ts) of jsonb `j` (a stored sizing), for a row stored
- * without its cut (`review`, migration 0015): PostgreSQL cuts the few figures the page shows out of
- * the whole answer (about 1.4 kB of working a way), as `reviewSizingOf` does when a sizing is stored.
- */
-const SIZING_CUT = `CASE WHEN jsonb_typeof(j) = 'object' THEN jsonb_build_object(
-  'summary', jsonb_build_object('connectedLoadW', j#>'{summary,connectedLoadW}', 'maxDemandA', j#>'{summary,maxDemandA}',
-    'counts', j#>'{summary,counts}', 'incomingCheck', jsonb_build_object('message', j#>'{summary,incomingCheck,message}'),
-    'checks', (SELECT COALESCE(jsonb_agg(jsonb_build_object('ok', c->'ok', 'message', c->'message') ORDER BY i), '[]'::jsonb)
-      FROM jsonb_array_elements(j#>'{summary,checks}') WITH ORDINALITY AS y(c, i) WHERE c->'ok' = 'false'::jsonb)),
-  'ways', (SELECT COALESCE(jsonb_agg(jsonb_build_object('id', w->'id', 'result', CASE WHEN jsonb_typeof(w->'result') = 'object'
-      THEN jsonb_build_object('ibA', w#>'{result,ibA}', 'inA', w#>'{result,inA}', 'csaMm2', w#>'{result,csaMm2}',
-        'izA', w#>'{result,izA}', 'vdPct', w#>'{result,vdPct}', 'zsOhm', w#>'{result,zsOhm}',
-        'zsMaxOhm', w#>'{result,zsMaxOhm}', 'verdict', w#>'{result,verdict}') END) ORDER BY i), '[]'::jsonb)
-    FROM jsonb_array_elements(j->'ways') WITH ORDINALITY AS x(w, i))
-)::text END`;
-
-/**
  * The review page's read, in one statement: the caller's organisation's board (404 otherwise),
- * its stored sizing's cut (stored, else `SIZING_CUT`), the issue facts and comments. Null when the stored
- * sizing is older than the board (the caller reads it the long way, which sizes it again).
- * `OFFSET 0` keeps the planner from pulling the lateral subquery up into the select list, which
- * put `s.sizing::jsonb` in place of each of SIZING_CUT's `j`: the 60 kB text was parsed seven
- * times, 26 ms of PostgreSQL's CPU a page against 2 ms parsed once (bench sub-board, 36 ways).
+ * the cut of its stored sizing the page shows (`review`, migration 0015), the issue facts and
+ * comments. Null when the stored sizing is not current (the caller reads it the long way, which
+ * sizes it again).
  */
 export async function readReviewSource(
   actor: Actor,
@@ -511,11 +494,10 @@ export async function readReviewSource(
     IssueFacts & { dto: string; current: boolean; cut: string | null; issues: FieldIssue[] | null }
   >(
     `/* prepare:review_source */
-     SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, COALESCE(s.review::text, ${SIZING_CUT}) AS cut,
-       s.issues, ${ISSUE_FACTS}
+     SELECT ${BOARD_DTO_JSON} AS dto, s.board_id IS NOT NULL AS current, s.review::text AS cut, s.issues,
+       ${ISSUE_FACTS}
      FROM boards b JOIN organisations o ON o.id = b.organisation_id
        LEFT JOIN board_sizings s ON ${CURRENT_SIZING}
-       LEFT JOIN LATERAL (SELECT s.sizing::jsonb AS j WHERE s.review IS NULL OFFSET 0) js ON true
      WHERE b.id = $1 AND b.organisation_id = $2 AND b.deleted_at IS NULL`,
     [boardId, actor.organisationId],
   );

@@ -239,7 +239,7 @@ describe('the review page’s read (getReviewSource)', () => {
     expect(reviewPageData(cut)).toEqual(reviewPageData({ ...whole, revisions: [] }));
   });
 
-  it('reads the cut stored with the sizing (migration 0015); a row stored without one is cut the same by PostgreSQL', async () => {
+  it('reads the cut stored with the sizing (migration 0015); a row stored without one is sized again by its read', async () => {
     const { board } = await makeBoard(team.org.id, 'workshop');
     await Board.update({ enclosureModules: 12 }, { where: { id: board.id } });
     await readStoredSizing(actor, board.id);
@@ -259,6 +259,9 @@ describe('the review page’s read (getReviewSource)', () => {
         bind: [board.id, value && JSON.stringify(value)],
       });
     await setReview(null);
+    // Not current without its cut: this read sizes the board the long way and stores both
+    expect(reviewPageData(await getReviewSource(actor, board.id))).toEqual(reviewPageData(stored));
+    expect((await rowOf()).review).toEqual(review);
     expect(await getReviewSource(actor, board.id)).toEqual(stored);
     // The page shows the stored cut, not one made again from the whole sizing
     await setReview({ ...review!, summary: { ...review!.summary, maxDemandA: 12345 } });
