@@ -226,16 +226,21 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
   const sizingsSent = (writes: { bind: unknown[] }[]) =>
     writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"diversityRules"'));
 
-  it('the same origin again: no sizing is sent, each row moves on to the new tree version', async () => {
+  /** A two-level site put on one origin and stored whole, with a call that puts the same origin again. */
+  async function storedAtOneOrigin() {
     signInAs(team.users.designer);
     const { fx, t } = await linkedTwoLevel();
     const origin = { ...fx.origin, zeOhm: 0.5 };
-    await call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
+    const putOrigin = () => call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
+    await putOrigin();
     await storedSizing(t.id('fin'));
+    return { t, putOrigin };
+  }
+
+  it('the same origin again: no sizing is sent, each row moves on to the new tree version', async () => {
+    const { t, putOrigin } = await storedAtOneOrigin();
     const before = await Promise.all(['db1', 'fin'].map((id) => sizingRow(t.id(id))));
-    const writes = await writesDuring(() =>
-      call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id }))),
-    );
+    const writes = await writesDuring(putOrigin);
     expect(verbs(writes)).toEqual(['UPDATE board_sizings']);
     expect(sizingsSent(writes)).toEqual([]);
     for (const [i, id] of ['db1', 'fin'].entries()) {
@@ -248,15 +253,9 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
   });
 
   it('the same origin again writes whole a row stored without the review page’s cut (before migration 0015)', async () => {
-    signInAs(team.users.designer);
-    const { fx, t } = await linkedTwoLevel();
-    const origin = { ...fx.origin, zeOhm: 0.5 };
-    await call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })));
-    await storedSizing(t.id('fin'));
+    const { t, putOrigin } = await storedAtOneOrigin();
     await db().query('UPDATE board_sizings SET review = NULL WHERE board_id = $1', { bind: [t.id('fin')] });
-    const writes = await writesDuring(() =>
-      call(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id }))),
-    );
+    const writes = await writesDuring(putOrigin);
     expect(verbs(writes)).toEqual(['INSERT INTO', 'UPDATE board_sizings']);
     expect(sizingsSent(writes)).toHaveLength(1);
     for (const id of ['db1', 'fin']) {
