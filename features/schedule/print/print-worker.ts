@@ -10,7 +10,7 @@ import { renderLabelStripsPdf, renderSchedulePdf } from '../render-schedule';
 import { renderSitePackPdf } from '../site-pack/render-site-pack';
 
 import type { PrintJob, RenderedPdf } from './print-job';
-import { warmUpSource } from './warm-up';
+import { warmUpSite, warmUpSource } from './warm-up';
 
 /**
  * A render thread runs at a lower priority (PRINT_NICE, default 10) than the thread answering
@@ -33,7 +33,7 @@ export default async function render(job: PrintJob): Promise<RenderedPdf> {
 }
 
 /**
- * Renders the warm-up board's schedule and label strips and throws them away (print-pool.ts
+ * Renders the warm-up board's schedule, label strips and site pack pages and throws them away (print-pool.ts
  * `warmPrintPool`); answers how long it took, in milliseconds.
  */
 export async function warmUp(): Promise<number> {
@@ -41,5 +41,6 @@ export async function warmUp(): Promise<number> {
   const source = warmUpSource();
   await renderSchedulePdf(source, new Date());
   await renderLabelStripsPdf(source);
+  await renderSitePackPdf(warmUpSite(source), source.snapshot.siteName, new Date());
   return performance.now() - started;
 }

@@ -2,6 +2,7 @@ import type { SnapshotWay } from '@/lib/boards/revision-diff';
 import { boardSizingInput } from '@/lib/boards/sizing-input';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
+import { sizeSite, type SiteResult } from '@/lib/supply';
 
 const te = { phases: 1, cable: 'te-70', method: 'C', ambientC: 30, insulationMm: 0, csaMm2: null } as const;
 const mcb = (ratingA: number) => ({ kind: 'mcb', poles: 1, modules: 1, curve: 'B', ratingA, breakingKa: 6 }) as const;
@@ -63,4 +64,19 @@ export function warmUpSource(): ScheduleSource {
     labels: null,
     updatedAt: new Date().toISOString(),
   };
+}
+
+/**
+ * The warm-up board as a site of one board fed from the origin, sized by the tree's engine: the
+ * site pack's own pages (the diagram and the carried values) are rendered from it once, so the
+ * first site pack after a server start does not wait for their code to load and warm.
+ */
+export function warmUpSite(source: ScheduleSource): SiteResult {
+  const { settings, ways } = source.snapshot;
+  const { supply: _typed, ...board } = boardSizingInput(settings, ways);
+  return sizeSite({
+    siteId: 'warm-up',
+    origin: settings.supply,
+    boards: [{ id: 'warm-up', name: settings.name, siteId: 'warm-up', feed: { from: 'origin' }, board: { ...board } }],
+  });
 }
