@@ -21,7 +21,7 @@ export default function proxy(request: NextRequest) {
 /**
  * The proxy runs only for a page request that carries neither session cookie (`missing`: the
  * matcher fails when any of them is present, with a value), so a signed-in page view does not
- * pay for it: about 0.5 ms of CPU a page (scripts/bench/pages.ts). Next reads this object
+ * pay for it: about 1 ms of CPU on the review page (DEVELOPERS.md). Next reads this object
  * without running the module, so the names are written out; a unit test holds them equal to
  * SESSION_COOKIE_NAMES (tests/unit/auth/proxy-matcher.test.ts).
  */

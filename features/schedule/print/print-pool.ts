@@ -77,9 +77,10 @@ export async function closePrintPool(): Promise<void> {
 }
 
 /**
- * Starts the print pool and has its first thread render a small board and a site of it (print-worker.ts
- * `warmUp`); a production server does it as it starts (instrumentation.ts), so that the first print after a server start does not wait seconds for the thread
- * to load react-pdf and the fonts: measured on the demo site's pack, 5.0 s cold against 1.7 to
+ * Starts the print pool and has its first thread render a small board and a site of it
+ * (print-worker.ts `warmUp`); a production server does it as it starts (instrumentation.ts), so
+ * that the first print after a server start does not wait seconds for the thread to load
+ * react-pdf and the fonts: measured on the demo site's pack, 5.0 s cold against 1.7 to
  * 1.9 s warm. Errors are logged, never thrown: a failed warm-up leaves the pool as it would
  * have been.
  */

@@ -33,8 +33,8 @@ export default async function render(job: PrintJob): Promise<RenderedPdf> {
 }
 
 /**
- * Renders the warm-up board's schedule, label strips and site pack pages and throws them away (print-pool.ts
- * `warmPrintPool`); answers how long it took, in milliseconds.
+ * Renders the warm-up board's schedule, label strips and site pack pages and throws them away
+ * (print-pool.ts `warmPrintPool`); answers how long it took, in milliseconds.
  */
 export async function warmUp(): Promise<number> {
   const started = performance.now();

@@ -77,6 +77,6 @@ export function warmUpSite(source: ScheduleSource): SiteResult {
   return sizeSite({
     siteId: 'warm-up',
     origin: settings.supply,
-    boards: [{ id: 'warm-up', name: settings.name, siteId: 'warm-up', feed: { from: 'origin' }, board: { ...board } }],
+    boards: [{ id: 'warm-up', name: settings.name, siteId: 'warm-up', feed: { from: 'origin' }, board }],
   });
 }
