@@ -563,15 +563,14 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
   return row.tree;
 }
 
-/** What was stored for board `b`, whole (its sizing) or only its outcome (the sizing only for a row without one). */
-const STORED_SIZING_JSON = `(SELECT json_build_object('version', s.version, 'sizing', s.sizing, 'carried', s.carried,
-    'outcome', s.outcome, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending,
+/** What was stored for board `b`, with `sizing` as its sizing. */
+const storedJson = (sizing: string) => `(SELECT json_build_object('version', s.version, 'sizing', ${sizing},
+    'carried', s.carried, 'outcome', s.outcome, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending,
     'review', s.review IS NOT NULL)
   FROM board_sizings s WHERE s.board_id = b.id)`;
-const STORED_OUTCOME_JSON = `(SELECT json_build_object('version', s.version, 'carried', s.carried, 'outcome', s.outcome,
-    'sizing', CASE WHEN s.outcome IS NULL THEN s.sizing END, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending,
-    'review', s.review IS NOT NULL)
-  FROM board_sizings s WHERE s.board_id = b.id)`;
+/** Whole (its sizing), or only its outcome (the sizing only for a row without one). */
+const STORED_SIZING_JSON = storedJson('s.sizing');
+const STORED_OUTCOME_JSON = storedJson('CASE WHEN s.outcome IS NULL THEN s.sizing END');
 
 /**
  * The site's boards (not deleted), oldest first, with their ways in rail order and feed, and what
