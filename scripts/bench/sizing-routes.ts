@@ -40,27 +40,35 @@ async function main() {
   await trivialRun(warmup);
   await sizingRun(warmup);
   await draftRun(warmup);
-  // The trivial route before and after the others: its mean is the base of the ratios, so a
-  // machine whose load changes during the run moves the base with it
+  // The trivial route before, between and after the two: each route's ratios are against the
+  // mean of the trivial runs just around it, so a machine whose load drifts during the run
+  // moves each base with it
   const trivialBefore = await trivialRun(duration);
   const sizing = await sizingRun(duration);
+  const trivialBetween = await trivialRun(duration);
   const draft = await draftRun(duration);
   const trivialAfter = await trivialRun(duration);
-  const base = { rps: (trivialBefore.rps + trivialAfter.rps) / 2, p95: (trivialBefore.p95 + trivialAfter.p95) / 2 };
+  const around = (a: typeof trivialBefore, b: typeof trivialBefore) => ({
+    rps: (a.rps + b.rps) / 2,
+    p95: (a.p95 + b.p95) / 2,
+  });
+  const sizingBase = around(trivialBefore, trivialBetween);
+  const draftBase = around(trivialBetween, trivialAfter);
   console.log(
     `board: ${ways} ways (${draftBody.length} bytes as a draft); 16 connections, ${duration} s each after ` +
       `${warmup} s of warm-up (not counted), ${baseUrl} (one process)`,
   );
   console.log(describe('GET /api/me (trivial, signed in)', trivialBefore));
   console.log(describe('POST /api/boards/:id/sizing (stored)', sizing));
+  console.log(describe('GET /api/me again', trivialBetween));
   console.log(describe('… the same, draft in the body (editor)', draft));
   console.log(describe('GET /api/me again', trivialAfter));
-  const ratio = sizing.rps / base.rps;
-  const p95Ratio = sizing.p95 / base.p95;
-  const draftRatio = draft.rps / base.rps;
+  const ratio = sizing.rps / sizingBase.rps;
+  const p95Ratio = sizing.p95 / sizingBase.p95;
+  const draftRatio = draft.rps / draftBase.rps;
   const storedMet = ratio >= 0.5 && p95Ratio <= 1.5 && sizing.errors + sizing.non2xx === 0;
   const draftMet = draftRatio >= 0.4 && draft.errors + draft.non2xx === 0;
-  console.log('\nratios against the trivial route (the mean of its two runs):');
+  console.log('\nratios against the trivial route (the mean of its runs just before and after each):');
   console.log(
     `  stored sizing  req/s ${ratio.toFixed(2)} × (target ≥ 0.5), p95 ${p95Ratio.toFixed(2)} × (target ≤ 1.5): ` +
       `${storedMet ? 'met' : 'NOT met'}`,
