@@ -6,6 +6,7 @@ import Link from 'next/link';
 import { useId, useState } from 'react';
 
 import { FeedSelect } from '@/components/site-diagram/feed-select';
+import { SelectivityList } from '@/components/site-diagram/selectivity-list';
 import { boardsBelow, feedOfKey, feedWords, sameFeed, type FeedChoice } from '@/components/site-diagram/tree-model';
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
@@ -106,6 +107,8 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
   const derived = derivedOf(tree.data, board.id) ?? board.derivedSupply;
   const change = history.data ?? null;
   const below = boardsBelow(boards, board.id).map((b) => b.name);
+  // The judgements between the sub-main's device and this board's devices (the tree sizes them)
+  const selectivity = boards.find((b) => b.boardId === board.id)?.selectivity ?? [];
 
   return (
     <section
@@ -123,6 +126,7 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
       </div>
       <SupplyWords derived={derived} typed={board.supply} />
       {derived && derived.from === 'way' ? <CarriedValues derived={derived} /> : null}
+      {selectivity.length ? <SelectivityList groups={selectivity} className="mt-3 text-xs text-ink-soft" /> : null}
       {changedSinceIssue(board.status, change) ? (
         <p
           role="note"

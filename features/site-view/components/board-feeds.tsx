@@ -18,6 +18,7 @@ import { useId } from 'react';
 
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { FeedSelect } from '@/components/site-diagram/feed-select';
+import { SelectivityList } from '@/components/site-diagram/selectivity-list';
 import {
   boardFedBy,
   feedOfKey,
@@ -27,10 +28,9 @@ import {
   type TreeBoard,
 } from '@/components/site-diagram/tree-model';
 import { cn } from '@/lib/cn';
-import { fedFromWords, selectivityWords } from '@/lib/names';
+import { fedFromWords } from '@/lib/names';
 import { ka, ohm, pct } from '@/lib/sites/supply-words';
-import type { SelectivityGroup, SiteTreeBoard } from '@/lib/sites/tree-types';
-import { placesWords } from '@/lib/supply/group-selectivity';
+import type { SiteTreeBoard } from '@/lib/sites/tree-types';
 
 type BoardFeedsProps = {
   /** The site's boards, parents first, with their carried values. */
@@ -125,35 +125,6 @@ function OriginTarget({ disabled }: { disabled?: boolean }) {
       <PlugZap aria-hidden className="h-4 w-4" />
       Origin (supply intake): drop a board here to feed it straight from the origin
     </div>
-  );
-}
-
-/**
- * Selectivity between the sub-main's device and the devices below it, folded away: one line per
- * judgement with the ways it covers, and its working. Advisory: never a failure of the board.
- */
-function SelectivityList({ groups }: { groups: readonly SelectivityGroup[] }) {
-  const toLook = groups.filter((g) => g.outcome !== 'selective').length;
-  return (
-    <details className="mt-1 text-xs text-ink-soft">
-      <summary className="cursor-pointer hover:text-ink">
-        Selectivity below the sub-main (advisory):{' '}
-        {toLook ? `${toLook} of ${groups.length} not selective throughout` : 'selective throughout'}
-      </summary>
-      {/* Paragraphs, not a list: the card is an item of the board list */}
-      <div className="mt-1 space-y-1.5 pl-4">
-        {groups.map((g, i) => (
-          <p key={i}>
-            <span className="text-ink">
-              {g.upstream} above {g.device}
-              {g.places.length ? ` (${placesWords(g.places)})` : ''}: {selectivityWords(g.outcome, g.upToA)}
-            </span>
-            <span className="block">{g.working.text}</span>
-            <span className="block text-ink-faint">Basis: {g.working.sources.join('; ')}</span>
-          </p>
-        ))}
-      </div>
-    </details>
   );
 }
 
