@@ -278,6 +278,78 @@ async function storeSizing(board: BoardDto, transaction?: Transaction): Promise<
   return stored;
 }
 
+/**
+ * A board's row of a site re-size (lib/dal/site-tree.ts `resizeSite`), each JSON as text: its
+ * sizing written whole, kept (the very text stored already: only what was carried and its outcome
+ * are written), or left `pending` for its first read (the sizing not sent).
+ */
+export type TreeSizingRow = {
+  board_id: string;
+  version: number;
+  write: 'whole' | 'keep' | 'pending';
+  sizing: string | null;
+  sha: string | null;
+  issues: string;
+  carried: string | null;
+  outcome: string | null;
+  review: string | null;
+};
+
+/** Stores a site re-size's rows at the site's tree version `treeVersion`: two statements at most. */
+export async function writeTreeSizings(
+  rows: readonly TreeSizingRow[],
+  treeVersion: number,
+  transaction: Transaction,
+): Promise<void> {
+  const written = rows.filter((r) => r.write !== 'keep');
+  if (written.length) {
+    // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL); a pending
+    // one is not sent at all
+    const bind: unknown[] = [treeVersion];
+    const values = written.map((r) => {
+      const whole = r.write === 'whole';
+      const at = bind.push(
+        r.board_id,
+        r.version,
+        whole ? r.sizing : null,
+        r.sha,
+        !whole,
+        r.issues,
+        r.carried,
+        r.outcome,
+        r.review,
+      );
+      return `($${at - 8}::uuid, $${at - 7}::int, $${at - 6}::json, decode($${at - 5}, 'hex'), $${at - 4}::boolean,
+        $${at - 3}::jsonb, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int, ${ENGINE_REVISION})`;
+    });
+    await db().query(
+      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, review,
+         tree_version, engine)
+       VALUES ${values.join(', ')}
+       ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
+         sizing_sha256 = EXCLUDED.sizing_sha256, pending = EXCLUDED.pending, issues = EXCLUDED.issues,
+         carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, review = EXCLUDED.review, tree_version = EXCLUDED.tree_version,
+         engine = EXCLUDED.engine`,
+      { bind, transaction },
+    );
+  }
+  const kept = rows.filter((r) => r.write === 'keep');
+  if (kept.length) {
+    const bind: unknown[] = [treeVersion];
+    const values = kept.map((r) => {
+      const at = bind.push(r.board_id, r.version, r.issues, r.carried, r.outcome);
+      return `($${at - 4}::uuid, $${at - 3}::int, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb)`;
+    });
+    await db().query(
+      `UPDATE board_sizings s SET version = v.version, issues = v.issues, carried = v.carried, outcome = v.outcome,
+         tree_version = $1::int, engine = ${ENGINE_REVISION}
+       FROM (VALUES ${values.join(', ')}) AS v(board_id, version, issues, carried, outcome)
+       WHERE s.board_id = v.board_id`,
+      { bind, transaction },
+    );
+  }
+}
+
 type SizingRow = { dto: string | null; current: boolean; json: string | null; issues: FieldIssue[] | null };
 
 /**

@@ -12,12 +12,13 @@ import {
   siteHasSubMains,
   siteIsTree,
   sizingHash,
+  writeTreeSizings,
+  type TreeSizingRow,
 } from '@/lib/dal/board-repository';
 import { auditMany } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import { reviewSizingOf } from '@/lib/boards/review-page-data';
 import { wayName } from '@/lib/names';
-import { ENGINE_REVISION } from '@/lib/sizing';
 import type { RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
 import { sizingOutcome } from '@/lib/supply';
 import {
@@ -181,17 +182,7 @@ export async function resizeSite(
 
   // Each board's row: its sizing written whole (the board written, or every board when
   // `store` is 'all'), kept (the very text stored already), or left to its first read (`pending`)
-  const rows: {
-    board_id: string;
-    version: number;
-    write: 'whole' | 'keep' | 'pending';
-    sizing: string | null;
-    sha: string | null;
-    issues: string;
-    carried: string | null;
-    outcome: string | null;
-    review: string | null;
-  }[] = [];
+  const rows: TreeSizingRow[] = [];
   const ripple: RippleBoard[] = [];
   for (const b of boards) {
     const s = sized.boards.get(b.id);
@@ -243,53 +234,7 @@ export async function resizeSite(
       changedWays,
     });
   }
-  const written = rows.filter((r) => r.write !== 'keep');
-  if (written.length) {
-    // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL); a pending
-    // one is not sent at all
-    const bind: unknown[] = [treeVersion];
-    const values = written.map((r) => {
-      const whole = r.write === 'whole';
-      const at = bind.push(
-        r.board_id,
-        r.version,
-        whole ? r.sizing : null,
-        r.sha,
-        !whole,
-        r.issues,
-        r.carried,
-        r.outcome,
-        r.review,
-      );
-      return `($${at - 8}::uuid, $${at - 7}::int, $${at - 6}::json, decode($${at - 5}, 'hex'), $${at - 4}::boolean,
-        $${at - 3}::jsonb, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int, ${ENGINE_REVISION})`;
-    });
-    await db().query(
-      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, review,
-         tree_version, engine)
-       VALUES ${values.join(', ')}
-       ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
-         sizing_sha256 = EXCLUDED.sizing_sha256, pending = EXCLUDED.pending, issues = EXCLUDED.issues,
-         carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, review = EXCLUDED.review, tree_version = EXCLUDED.tree_version,
-         engine = EXCLUDED.engine`,
-      { bind, transaction },
-    );
-  }
-  const kept = rows.filter((r) => r.write === 'keep');
-  if (kept.length) {
-    const bind: unknown[] = [treeVersion];
-    const values = kept.map((r) => {
-      const at = bind.push(r.board_id, r.version, r.issues, r.carried, r.outcome);
-      return `($${at - 4}::uuid, $${at - 3}::int, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb)`;
-    });
-    await db().query(
-      `UPDATE board_sizings s SET version = v.version, issues = v.issues, carried = v.carried, outcome = v.outcome,
-         tree_version = $1::int, engine = ${ENGINE_REVISION}
-       FROM (VALUES ${values.join(', ')}) AS v(board_id, version, issues, carried, outcome)
-       WHERE s.board_id = v.board_id`,
-      { bind, transaction },
-    );
-  }
+  await writeTreeSizings(rows, treeVersion, transaction);
   // Each board below whose supply or verdicts changed: its history says so (one insert for all)
   await auditMany(
     actor,

@@ -84,7 +84,7 @@ describe('client code never imports server-only modules', () => {
   });
 });
 
-describe('only the board repository reads or writes boards and ways', () => {
+describe('only the board repository reads or writes boards, ways and their stored sizings', () => {
   it('the Board and Way models are refused outside lib/dal/board-repository.ts, types included', async () => {
     const value = "import { Board } from '@/models';\nexport const x = () => Board.count();\n";
     expect(await rulesHit('lib/dal/probe.ts', value)).toContain('no-restricted-imports');
@@ -99,11 +99,13 @@ describe('only the board repository reads or writes boards and ways', () => {
     expect(await rulesHit('lib/dal/probe.ts', others)).toEqual([]);
   });
 
-  it('SQL naming either table is refused outside it, in strings and templates', async () => {
+  it('SQL naming one of those tables is refused outside it, in strings and templates', async () => {
     const update = "export const sql = 'UPDATE boards SET status = $2 WHERE id = $1';\n";
     expect(await rulesHit('lib/dal/probe.ts', update)).toContain('no-restricted-syntax');
     const join = 'export const sql = `SELECT 1 FROM sites s\n  JOIN ways w ON w.site_id = s.id`;\n';
     expect(await rulesHit('lib/probe.ts', join)).toContain('no-restricted-syntax');
+    const sizings = "export const sql = 'INSERT INTO board_sizings (board_id) VALUES ($1)';\n";
+    expect(await rulesHit('lib/dal/site-tree.ts', sizings)).toContain('no-restricted-syntax');
     const words = "export const text = 'Send boards for review; count the ways';\n";
     expect(await rulesHit('lib/probe.ts', words)).toEqual([]);
   });
