@@ -18,3 +18,15 @@ export const conflict = (message: string, body: Record<string, unknown> = {}) =>
 export const badRequest = (issues: FieldIssue[], message = 'Some fields are not valid.') =>
   new HttpError(400, message, { issues });
 export const unprocessable = (message: string, body: Record<string, unknown> = {}) => new HttpError(422, message, body);
+
+/** Node's socket errors of a service that is away (nothing answered): the database, file storage. */
+export const SOCKET_AWAY_CODES = [
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EPIPE',
+  'EHOSTUNREACH',
+  'ENETUNREACH',
+  'ENOTFOUND',
+  'EAI_AGAIN',
+] as const;

@@ -3,7 +3,7 @@ import { ZodError, type z } from 'zod';
 import type { Action } from '@/lib/auth/permissions';
 import { requireActor, type Actor } from '@/lib/auth/session';
 import type { Role } from '@/lib/domain';
-import { badRequest, HttpError, type FieldIssue } from '@/lib/errors';
+import { badRequest, HttpError, SOCKET_AWAY_CODES, type FieldIssue } from '@/lib/errors';
 
 /** Largest JSON body any route accepts. */
 export const MAX_BODY_BYTES = 2 * 1024 * 1024;
@@ -50,15 +50,8 @@ export function parseQuery<S extends z.ZodType>(url: string, schema: S): z.infer
 
 // Error codes of a database that is away: node socket errors, and PostgreSQL's connection
 // exceptions (class 08), shutdown and start-up (57P01-57P03).
-const DOWN_CODES = new Set([
-  'ECONNREFUSED',
-  'ECONNRESET',
-  'ETIMEDOUT',
-  'EPIPE',
-  'EHOSTUNREACH',
-  'ENETUNREACH',
-  'ENOTFOUND',
-  'EAI_AGAIN',
+const DOWN_CODES = new Set<string>([
+  ...SOCKET_AWAY_CODES,
   '57P01',
   '57P02',
   '57P03',

@@ -1,12 +1,15 @@
 import crypto from 'node:crypto';
 
 import sharp from 'sharp';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
 
 import * as attachmentsRoute from '@/app/api/boards/[boardId]/attachments/route';
 import * as photoRoute from '@/app/api/attachments/[attachmentId]/route';
 import * as thumbRoute from '@/app/api/attachments/[attachmentId]/thumb/route';
-import { Way } from '@/models';
+import { s3 } from '@/lib/storage/s3';
+import { Attachment, Way } from '@/models';
+
+import { noAnswer } from '../stubs/storage-away';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
 
@@ -125,5 +128,28 @@ describe('photos', () => {
     expect(removed.status).toBe(200);
     expect(await removed.json()).toEqual({ effect: 'deleted' });
     expect((await fetchPhoto(photoRoute, attachment.id)).status).toBe(404);
+  });
+
+  it('while the file storage is away, an upload is refused with 503 saying so and records nothing', async () => {
+    signInAs(team.users.installer);
+    const kept = await upload(png, 'board-before.png', 'image/png');
+    expect(kept.status).toBe(201);
+    const { attachment } = await kept.json();
+    const rows = await Attachment.count({ where: { boardId } });
+    const send = vi.spyOn(s3(), 'send').mockRejectedValue((await noAnswer()) as never);
+    try {
+      const res = await upload(png, 'board-during.png', 'image/png');
+      expect(res.status).toBe(503);
+      expect(res.headers.get('retry-after')).toBe('5');
+      expect((await res.json()).error).toBe(
+        'File storage is not reachable just now. Nothing was changed; try again shortly.',
+      );
+      expect(await Attachment.count({ where: { boardId } })).toBe(rows);
+      // A stored photo cannot be read meanwhile: 503 too, not an error of ours
+      expect((await fetchPhoto(photoRoute, attachment.id)).status).toBe(503);
+    } finally {
+      send.mockRestore();
+    }
+    expect((await fetchPhoto(photoRoute, attachment.id)).status).toBe(200);
   });
 });

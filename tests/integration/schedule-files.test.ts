@@ -22,6 +22,8 @@ import { getScheduleSource } from '@/lib/dal/schedule-source';
 import * as storage from '@/lib/storage/s3';
 import { getObjectBytes } from '@/lib/storage/s3';
 
+import { noAnswer } from '../stubs/storage-away';
+
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
 
 vi.mock('@/features/schedule/print/print-pool', async (importActual) => {
@@ -127,6 +129,38 @@ describe('an issued revision', () => {
     } finally {
       reads.mockRestore();
     }
+  });
+
+  it('is rendered and answered all the same while the file storage is away, and stored once it is back', async () => {
+    const board = await issuedBoard();
+    signInAs(team.users.installer);
+    // Every storage call fails as the SDK fails when nothing answers
+    const send = vi.spyOn(storage.s3(), 'send').mockRejectedValue((await noAnswer()) as never);
+    const warn = vi.spyOn(console, 'warn').mockImplementation(() => undefined);
+    const before = renders.mock.calls.length;
+    let away: Uint8Array;
+    try {
+      const first = await download(scheduleRoute, board.id);
+      expect(first.timing).toMatch(/^render;/);
+      expect(await pdfText(first.bytes)).toContain('Flat 1 consumer unit');
+      // Not stored, so not kept: rendered again while the storage is still away
+      const second = await download(scheduleRoute, board.id);
+      expect(second.timing).toMatch(/^render;/);
+      expect(renders.mock.calls.length).toBe(before + 2);
+      expect(send).toHaveBeenCalled();
+      const said = warn.mock.calls.map(([m]) => String(m));
+      expect(said.some((m) => m.includes('not stored'))).toBe(true);
+      expect(said.some((m) => m.includes('rendered instead'))).toBe(true);
+      away = first.bytes;
+    } finally {
+      send.mockRestore();
+      warn.mockRestore();
+    }
+    // Back: rendered once more and stored, then answered from storage, the same file
+    expect((await download(scheduleRoute, board.id)).timing).toMatch(/^render;/);
+    const stored = await download(scheduleRoute, board.id);
+    expect(stored.timing).toMatch(/^stored;/);
+    expect(stored.bytes.byteLength).toBe(away.byteLength);
   });
 
   it('is rendered once when several ask for it before it is stored', async () => {

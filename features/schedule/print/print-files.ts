@@ -8,7 +8,7 @@ import { can } from '@/lib/auth/permissions';
 import type { Actor } from '@/lib/auth/session';
 import { issuedPrintFacts, type IssuedPrintFacts } from '@/lib/dal/print-facts';
 import { getScheduleSource, type ScheduleSource } from '@/lib/dal/schedule-source';
-import { getObjectBytes, putObject } from '@/lib/storage/s3';
+import { getObjectBytes, putObject, StorageUnavailable } from '@/lib/storage/s3';
 import type { SiteResult } from '@/lib/supply';
 
 import { formatDate } from '../utils/build-schedule';
@@ -97,8 +97,12 @@ export async function printPdf(
   if (!pending) {
     pending = timed(job)
       .then(async (out) => {
-        await putObject(key, out.pdf, 'application/pdf');
-        keepFile(key, out.pdf);
+        // The file is a render of a fixed record (the revision's snapshot is in the database):
+        // with the storage away it is answered all the same, and stored by a later print
+        await putObject(key, out.pdf, 'application/pdf').then(
+          () => keepFile(key, out.pdf),
+          (err: unknown) => unlessStorageAway(err, 'not stored'),
+        );
         return out;
       })
       .finally(() => storing.delete(key));
@@ -170,9 +174,17 @@ function keepFile(key: string, pdf: Uint8Array): void {
 async function storedFile(key: string): Promise<Uint8Array | null> {
   const kept = files?.get(key);
   if (kept) return kept;
-  const bytes = await getObjectBytes(key);
+  // With the storage away, a file not kept here is rendered again from its record
+  const bytes = await getObjectBytes(key).catch((err: unknown) => unlessStorageAway(err, 'rendered instead'));
   if (bytes) keepFile(key, bytes);
   return bytes;
+}
+
+/** Logs a storage that is away (the print goes on without it: null); rethrows anything else. */
+function unlessStorageAway(err: unknown, what: string): null {
+  if (!(err instanceof StorageUnavailable)) throw err;
+  console.warn(`[print] file storage is not reachable: an issued file ${what}`);
+  return null;
 }
 
 /** Renders of issued files under way in this process, by storage key (removed when stored). */
