@@ -2,7 +2,8 @@
 # scripts/backup.sh [FILE] — a backup of the app database (DATABASE_OWNER_URL, else DATABASE_URL, from scripts/env.sh) in
 # pg_dump's custom format, to FILE or to .data/backups/<database>-<UTC time>.dump. The file is
 # written under a temporary name and checked with pg_restore --list before it takes its name.
-# Photos live in object storage (S3), not in the database: back the bucket up separately.
+# Photos live in object storage (S3), not in the database: they are copied beside the dump, to
+# FILE.files (scripts/files.ts backup: every object but the stored prints, with a manifest).
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
 
@@ -25,3 +26,4 @@ mkdir -p "$(dirname "$OUT")"
 "$PGBIN/pg_restore" --list "$OUT.partial" >/dev/null
 mv "$OUT.partial" "$OUT"
 echo "Backed up database $DB to $OUT ($(du -h "$OUT" | cut -f1))"
+(cd "$ROOT" && node_modules/.bin/tsx scripts/files.ts backup "$OUT.files")

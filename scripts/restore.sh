@@ -3,6 +3,8 @@
 # the app database (from DATABASE_OWNER_URL, else DATABASE_URL) or into DATABASE on the same server, created if missing.
 # The restore runs in one transaction: it lands whole or not at all. Replacing a database that
 # holds tables needs --yes (or typing its name at the prompt). Stop the app first.
+# Restoring into the app database also puts back the photos copied beside the dump (FILE.files,
+# scripts/files.ts restore); into another database, it says how to put them back.
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
 
@@ -66,3 +68,11 @@ fi
 echo "Restored $FILE into database $TARGET"
 # The backup holds no grants: the app role gets its own again (lib/db-roles.ts)
 (cd "$ROOT" && DATABASE_OWNER_URL="$TARGET_URL" node_modules/.bin/tsx scripts/migrate.ts grants)
+if [ -d "$FILE.files" ]; then
+  if [ "$TARGET" = "$APP_DB" ]; then
+    (cd "$ROOT" && node_modules/.bin/tsx scripts/files.ts restore "$FILE.files")
+  else
+    echo "The photos in $FILE.files were not put back (a restore into another database than the app's):"
+    echo "  node_modules/.bin/tsx scripts/files.ts restore $FILE.files"
+  fi
+fi

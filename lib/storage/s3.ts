@@ -5,27 +5,13 @@ import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3C
 import { env } from '@/lib/env';
 import { HttpError, SOCKET_AWAY_CODES } from '@/lib/errors';
 
+import { s3Config } from './s3-config';
+
 let client: S3Client | undefined;
 
-/**
- * The S3 client (one per server bundle, made on first use). Path-style addressing and checksums only when
- * required: the local S3 fake stores the SDK's streaming checksum frames inside the
- * object otherwise (a 2 MB upload came back 55 bytes longer, its framing and a checksum line
- * stored inside it).
- */
+/** The S3 client (one per server bundle, made on first use; settings in s3-config.ts). */
 export function s3(): S3Client {
-  if (client) return client;
-  const e = env();
-  client = new S3Client({
-    region: e.S3_REGION,
-    endpoint: e.S3_ENDPOINT,
-    forcePathStyle: true,
-    credentials: { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-    // A storage that hangs fails the call (StorageUnavailable) instead of holding the request
-    requestHandler: { connectionTimeout: 3_000, requestTimeout: 30_000, throwOnRequestTimeout: true },
-  });
+  client ??= new S3Client(s3Config(env()));
   return client;
 }
 

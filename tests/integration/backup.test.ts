@@ -15,6 +15,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { BoardDto } from '@/lib/boards/types';
+import { deleteObjects, getObjectBytes, putObject } from '@/lib/storage/s3';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
 
@@ -40,6 +41,18 @@ function script(name: string, args: string[]) {
     timeout: 120_000,
   });
 }
+
+/** scripts/files.ts, as the scripts run it. */
+function files(command: 'backup' | 'restore', folder: string) {
+  return promisify(execFile)('node_modules/.bin/tsx', ['scripts/files.ts', command, folder], {
+    cwd: ROOT,
+    env: process.env,
+    encoding: 'utf8',
+    timeout: 120_000,
+  });
+}
+
+const sha256 = (data: Uint8Array) => crypto.createHash('sha256').update(data).digest('hex');
 
 /** Rows of one organisation, from a database, in a stable order. */
 async function rowsOf(url: string, organisationId: string) {
@@ -112,6 +125,8 @@ describe('backup and restore', () => {
 
     const restore = await script('restore.sh', [dumpFile, SCRATCH]);
     expect(restore.stdout).toContain(`Created database ${SCRATCH}`);
+    // Into another database than the app's: the photos beside the dump are left where they are
+    expect(restore.stdout).toContain(`The photos in ${dumpFile}.files were not put back`);
     expect(await rowsOf(scratchUrl(), organisationId)).toEqual(before);
   });
 
@@ -164,5 +179,63 @@ describe('backup and restore', () => {
     await expect(script('restore.sh', [dumpFile, 'x"; drop database y; --'])).rejects.toMatchObject({
       stderr: expect.stringContaining('letters, digits and _ only'),
     });
+  });
+});
+
+describe('the photos in object storage', () => {
+  /** A photo's object as the app stores one, and a stored print, in the bucket. */
+  async function storedPhoto() {
+    const key = `org/${organisationId}/boards/${crypto.randomUUID()}/photos/${crypto.randomUUID()}/original.png`;
+    const bytes = new Uint8Array(crypto.randomBytes(5000));
+    await putObject(key, bytes, 'image/png');
+    await putObject(
+      `prints/${crypto.randomUUID()}/rev-1/labels.pdf`,
+      new Uint8Array([37, 80, 68, 70]),
+      'application/pdf',
+    );
+    return { key, bytes };
+  }
+
+  it('are copied beside the dump, stored prints left out, and put back byte for byte', async () => {
+    const photo = await storedPhoto();
+    const file = path.join(dir, 'with-photos.dump');
+    const backup = await script('backup.sh', [file]);
+    expect(backup.stdout).toMatch(/Backed up \d+ files \(\d+ KiB\) of bucket \S+ to .*with-photos\.dump\.files/);
+    const manifest = JSON.parse(fs.readFileSync(`${file}.files/manifest.json`, 'utf8')) as {
+      objects: { key: string; bytes: number; sha256: string; contentType: string }[];
+    };
+    expect(manifest.objects.find((o) => o.key === photo.key)).toEqual({
+      key: photo.key,
+      bytes: 5000,
+      sha256: sha256(photo.bytes),
+      contentType: 'image/png',
+    });
+    // A stored print is a render of a revision in the database: not a record to keep
+    expect(manifest.objects.filter((o) => o.key.startsWith('prints/'))).toEqual([]);
+
+    // Lost from storage, then put back from the copy
+    await deleteObjects([photo.key]);
+    expect(await getObjectBytes(photo.key)).toBeNull();
+    const restore = await files('restore', `${file}.files`);
+    expect(restore.stdout).toMatch(/Restored \d+ files into bucket/);
+    expect(Buffer.from((await getObjectBytes(photo.key))!).equals(Buffer.from(photo.bytes))).toBe(true);
+  });
+
+  it('a copy changed since the backup stops the restore before anything is put back', async () => {
+    const photo = await storedPhoto();
+    const other = await storedPhoto();
+    const folder = path.join(dir, 'photos-only');
+    await files('backup', folder);
+    await expect(files('backup', folder)).rejects.toMatchObject({ stderr: expect.stringContaining('exists already') });
+    await deleteObjects([photo.key, other.key]);
+    // One copy altered on disk
+    const copy = path.join(folder, 'objects', ...other.key.split('/'));
+    fs.writeFileSync(copy, Buffer.from('not the photo'));
+    await expect(files('restore', folder)).rejects.toMatchObject({
+      stderr: expect.stringContaining(`Changed since the backup (its SHA-256 differs): ${other.key}`),
+    });
+    // Nothing was put back, not even the copies that were sound
+    expect(await getObjectBytes(photo.key)).toBeNull();
+    expect(await getObjectBytes(other.key)).toBeNull();
   });
 });
