@@ -320,6 +320,20 @@ export function selectivityWords(outcome: SelectivityOutcome, upToA?: number | n
   return SELECTIVITY_WORDS[outcome];
 }
 
+/**
+ * Judgements of selectivity in brief, by outcome in the order of SELECTIVITY_WORDS: "selective
+ * throughout" when all are, else each outcome's count ("2 selective up to a stated current,
+ * 1 cannot be judged from the data held").
+ */
+export function selectivitySummary(outcomes: readonly SelectivityOutcome[]): string {
+  if (outcomes.every((o) => o === 'selective')) return 'selective throughout';
+  return (Object.keys(SELECTIVITY_WORDS) as SelectivityOutcome[])
+    .map((o) => [outcomes.filter((x) => x === o).length, SELECTIVITY_WORDS[o].toLowerCase()] as const)
+    .filter(([n]) => n > 0)
+    .map(([n, words]) => `${n} ${words}`)
+    .join(', ');
+}
+
 /** What a board is fed from, in words: "the origin" or "Workshop DB1, way 3L2". */
 export function fedFromWords(feed: { boardName: string; wayLabel: string | null } | null): string {
   if (!feed) return 'the origin (the supply intake)';

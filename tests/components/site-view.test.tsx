@@ -47,7 +47,8 @@ describe('SiteView', () => {
     expect(groups.length).toBeGreaterThan(0);
     // Worked in tests/unit/supply/carried-values.test.ts: C20 above the B16, selective up to 5 × 20 = 100 A
     expect(fin.textContent).toContain('Selective up to 100 A');
-    expect(summary.textContent).toMatch(/not selective throughout|selective throughout/);
+    // One judgement (the C20 above the B16), counted by its outcome
+    expect(summary.textContent).toBe('Selectivity below the sub-main (advisory): 1 selective up to a stated current');
     for (const g of groups) expect(fin.textContent).toContain(g.working.text);
     // The origin's board has no sub-main above it: nothing to state
     expect(within(list).getAllByRole('listitem')[0].textContent).not.toContain('Selectivity');
