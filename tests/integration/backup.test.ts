@@ -33,10 +33,10 @@ const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'bw-backup-'));
 const dumpFile = path.join(dir, 'boardwright.dump');
 
 /** Runs one of the project's scripts against the test database. */
-function script(name: string, args: string[]) {
+function script(name: string, args: string[], env: Record<string, string> = { DATABASE_URL: SOURCE_URL }) {
   return promisify(execFile)('bash', [`scripts/${name}`, ...args], {
     cwd: ROOT,
-    env: { ...process.env, DATABASE_URL: SOURCE_URL },
+    env: { ...process.env, ...env },
     encoding: 'utf8',
     timeout: 120_000,
   });
@@ -213,10 +213,15 @@ describe('the photos in object storage', () => {
     // A stored print is a render of a revision in the database: not a record to keep
     expect(manifest.objects.filter((o) => o.key.startsWith('prints/'))).toEqual([]);
 
-    // Lost from storage, then put back from the copy
+    // Lost from storage, then put back by the restore into the app's database (here the scratch
+    // copy stands for it: the settings name it as the app's)
     await deleteObjects([photo.key]);
     expect(await getObjectBytes(photo.key)).toBeNull();
-    const restore = await files('restore', `${file}.files`);
+    const restore = await script('restore.sh', [file, '--yes'], {
+      DATABASE_URL: scratchUrl(),
+      DATABASE_OWNER_URL: scratchUrl(OWNER_URL),
+    });
+    expect(restore.stdout).toContain(`Restored ${file} into database ${SCRATCH}`);
     expect(restore.stdout).toMatch(/Restored \d+ files into bucket/);
     expect(Buffer.from((await getObjectBytes(photo.key))!).equals(Buffer.from(photo.bytes))).toBe(true);
   });
