@@ -95,3 +95,14 @@ export function boardFedBy(boards: readonly TreeBoard[], way: FeedWay): string |
 export function sameFeed(a: FeedChoice, b: FeedChoice): boolean {
   return feedKey(a) === feedKey(b);
 }
+
+/**
+ * Whether a board is near the limit only through the selectivity below its sub-main (advisory):
+ * no way is near the limit or failing, so the worst verdict was raised by a judgement below the
+ * sub-main (lib/supply `worstVerdictOf`: a failing board check would make it fail).
+ */
+export function nearLimitBySelectivityOnly(b: Pick<SiteTreeBoard, 'worstVerdict' | 'sizing' | 'selectivity'>): boolean {
+  if (b.worstVerdict !== 'near-limit' || !b.sizing || !b.selectivity.length) return false;
+  const { counts } = b.sizing.summary;
+  return counts.nearLimit === 0 && counts.fails === 0;
+}

@@ -54,6 +54,36 @@ describe('SiteView', () => {
     expect(within(list).getAllByRole('listitem')[0].textContent).not.toContain('Selectivity');
   });
 
+  it('says when a board is near the limit only through the selectivity below its sub-main', async () => {
+    const tree = treeDto();
+    // The fixture's finishing room: every way passes, and the C20 above its B16 is selective
+    // only up to 100 A (advisory), which raises its worst verdict to near limit
+    const fin = tree.boards.find((b) => b.boardId === 'fin')!;
+    expect(fin.worstVerdict).toBe('near-limit');
+    expect(fin.sizing!.summary.counts).toMatchObject({ nearLimit: 0, fails: 0 });
+    // The same board, had one of its ways been near the limit itself
+    const own = structuredClone(tree);
+    own.boards.find((b) => b.boardId === 'fin')!.sizing!.summary.counts.nearLimit = 1;
+    const note = 'from the selectivity below its sub-main (advisory); every way passes';
+
+    mockFetch(json({ tree }));
+    const { unmount } = renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink={false} />);
+    let cards = within(await screen.findByRole('list', { name: 'Boards of the site, in supply order' })).getAllByRole(
+      'listitem',
+    );
+    expect(cards[2].textContent).toContain(note);
+    // The board fed from the origin passes: nothing to say
+    expect(cards[0].textContent).not.toContain(note);
+    unmount();
+
+    mockFetch(json({ tree: own }));
+    renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink={false} />);
+    cards = within(await screen.findByRole('list', { name: 'Boards of the site, in supply order' })).getAllByRole(
+      'listitem',
+    );
+    expect(cards[2].textContent).not.toContain(note);
+  });
+
   it('asks before re-pointing a board, naming every board that changes, then sends the confirmed feed', async () => {
     const fetch = mockFetch(json({ tree: treeDto() }), json({ board: {}, ripple: null }), json({ tree: treeDto() }));
     renderWithQuery(<SiteView siteId="site-1" siteName="Hollin Lane Joinery" canLink />);

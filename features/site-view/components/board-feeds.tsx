@@ -23,6 +23,7 @@ import {
   boardFedBy,
   feedOfKey,
   feedWayWords,
+  nearLimitBySelectivityOnly,
   type FeedChoice,
   type FeedWay,
   type TreeBoard,
@@ -185,6 +186,11 @@ function BoardCard({
               {board.name}
             </Link>
             {result.worstVerdict ? <VerdictBadge verdict={result.worstVerdict} /> : null}
+            {nearLimitBySelectivityOnly(result) ? (
+              <span className="text-xs text-ink-soft">
+                from the selectivity below its sub-main (advisory); every way passes
+              </span>
+            ) : null}
           </div>
           <p className="mt-1 text-ink-soft">
             {result.problem ? result.problem : values.length ? values.join(' · ') : 'Not sized yet'}
