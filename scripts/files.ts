@@ -74,28 +74,28 @@ async function restore(client: S3Client, bucket: string, dir: string): Promise<v
   const manifestFile = path.join(dir, 'manifest.json');
   if (!fs.existsSync(manifestFile)) throw new Error(`No manifest.json in ${dir}: not a file backup.`);
   const manifest = JSON.parse(fs.readFileSync(manifestFile, 'utf8')) as Manifest;
-  // Every copy checked before anything is put
-  const checked = manifest.objects.map((o) => {
-    const file = fileOf(dir, o.key);
-    if (!fs.existsSync(file)) throw new Error(`Missing from the backup: ${o.key}. Nothing was restored.`);
-    const data = new Uint8Array(fs.readFileSync(file));
+  // Every copy checked before anything is put; each is read again to put it, so that only one
+  // file at a time is held in memory however large the bucket
+  const read = (o: Entry) => new Uint8Array(fs.readFileSync(fileOf(dir, o.key)));
+  for (const o of manifest.objects) {
+    if (!fs.existsSync(fileOf(dir, o.key))) throw new Error(`Missing from the backup: ${o.key}. Nothing was restored.`);
+    const data = read(o);
     if (data.byteLength !== o.bytes || sha256(data) !== o.sha256) {
       throw new Error(`Changed since the backup (its SHA-256 differs): ${o.key}. Nothing was restored.`);
     }
-    return { ...o, data };
-  });
-  for (const o of checked) {
+  }
+  for (const o of manifest.objects) {
     await client.send(
       new PutObjectCommand({
         Bucket: bucket,
         Key: o.key,
-        Body: o.data,
+        Body: read(o),
         ContentType: o.contentType,
         ContentLength: o.bytes,
       }),
     );
   }
-  console.log(`Restored ${checked.length} files into bucket ${bucket} from ${dir}`);
+  console.log(`Restored ${manifest.objects.length} files into bucket ${bucket} from ${dir}`);
 }
 
 async function main() {

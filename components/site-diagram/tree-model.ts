@@ -1,7 +1,8 @@
 /**
  * What the site view and a board's supply panel need from a site's tree (`SiteTreeDto`, as the
  * server answers it): which boards change when one is re-pointed, and which ways of the other
- * boards can feed a board. Pure: no fetching, no React.
+ * boards can feed a board, and whether a board is near the limit through its selectivity alone.
+ * Pure: no fetching, no React.
  */
 import { fedFromWords, wayName } from '@/lib/names';
 import type { SiteTreeBoard } from '@/lib/sites/tree-types';
