@@ -2,13 +2,16 @@ import path from 'node:path';
 
 import { Font } from '@react-pdf/renderer';
 
+import { installPdfkitFontReuse } from '@/lib/pdf/pdfkit-font-reuse';
+
 /** The family name the printed documents use. */
 export const PRINT_FONT = 'BoardwrightPrint';
 
 let registered = false;
 
 /**
- * Registers the fonts shipped in public/fonts with react-pdf, once per process. DejaVu Sans
+ * Registers the fonts shipped in public/fonts with react-pdf, once per process, and has pdfkit
+ * select a font it has opened already without opening it again (lib/pdf/pdfkit-font-reuse.ts). DejaVu Sans
  * Condensed (a free licence, see public/fonts/DejaVu-LICENSE.txt) is used because react-pdf
  * needs static TTF or WOFF files and the app's Inter is only installed as a variable WOFF2;
  * its narrow width also suits a schedule of thirteen columns. It has Ω, ², ✓ and ✗.
@@ -25,6 +28,7 @@ export function registerPrintFonts(): void {
   });
   // Way references and cable sizes must never be split across lines with a hyphen.
   Font.registerHyphenationCallback((word) => [word]);
+  installPdfkitFontReuse();
   registered = true;
 }
 
