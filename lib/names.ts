@@ -229,6 +229,15 @@ export function deviceName(device: NamedDevice, chosenRatingA?: number | null): 
   return parts.join(' ');
 }
 
+/**
+ * A volt drop limit in % for display: a whole limit as it is (3 or 5, the limits at the origin),
+ * one carried down a site's tree (the origin's less what the sub-mains above used) to two
+ * decimals, as the drop beside it is shown.
+ */
+export function vdLimitText(pct: number): string {
+  return Number.isInteger(pct) ? String(pct) : pct.toFixed(2);
+}
+
 /** "way 3L2" or "way 7": how a message names a way. */
 export function wayName(number: string | number): string {
   return `way ${number}`;

@@ -2,6 +2,7 @@ import { Check as CheckIcon, X } from 'lucide-react';
 
 import { Caution } from '@/components/ui/caution';
 import { cn } from '@/lib/cn';
+import { vdLimitText } from '@/lib/names';
 import type { CircuitResult } from '@/lib/sizing';
 
 import { VerdictBadge } from './verdict-badge';
@@ -80,7 +81,7 @@ export function CircuitResultView({ result, compact }: { result: CircuitResult; 
         <Step n={4} title="Voltage drop">
           <Row label="mV/A/m" value={fmt(result.tableRow?.mvAm, 2)} />
           <Row label="Drop" value={fmt(result.vdV, 2, 'V')} />
-          <Row label="Drop / limit" value={`${fmt(result.vdPct, 2, '%')} / ${fmt(result.vdLimitPct, 0, '%')}`} />
+          <Row label="Drop / limit" value={`${fmt(result.vdPct, 2, '%')} / ${vdLimitText(result.vdLimitPct)} %`} />
         </Step>
         <Step n={5} title="Earth fault loop">
           <Row label="R1+R2" value={fmt(result.r1r2Ohm, 3, 'Ω')} />

@@ -4,6 +4,7 @@ import { fmt } from '@/components/sizing/circuit-result-view';
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { Caution } from '@/components/ui/caution';
 import { cn } from '@/lib/cn';
+import { vdLimitText } from '@/lib/names';
 import type { CircuitResult } from '@/lib/sizing';
 
 function Row({ name, value, note }: { name: React.ReactNode; value: React.ReactNode; note?: React.ReactNode }) {
@@ -57,7 +58,7 @@ export function SizingResult({ result, stale }: { result: CircuitResult; stale?:
         <Row
           name="Voltage drop"
           value={`${fmt(result.vdV, 2, 'V')} (${fmt(result.vdPct, 2, '%')})`}
-          note={`limit ${fmt(result.vdLimitPct, 1)} %`}
+          note={`limit ${vdLimitText(result.vdLimitPct)} %`}
         />
         <Row name="R1+R2" value={fmt(result.r1r2Ohm, 3, 'Ω')} />
         <Row name="Zs" value={fmt(result.zsOhm, 3, 'Ω')} note={`limit ${fmt(result.zsMaxOhm, 2, 'Ω')}`} />

@@ -15,6 +15,7 @@ import {
   LABEL_STATUS_NAMES,
   loadTypeName,
   nameWaysIn,
+  vdLimitText,
   VERDICT_WORDS,
   wayTitle,
 } from '@/lib/names';
@@ -187,7 +188,7 @@ function rowFor(
     cells.ib = num(result.ibA, 1);
     cells.conductors = result.csaMm2 ? `${result.csaMm2} / ${result.cpcMm2 ?? '—'}` : '—';
     cells.iz = num(result.izA, 1);
-    cells.vd = result.vdPct === null ? '—' : `${num(result.vdPct, 2)} (${result.vdLimitPct})`;
+    cells.vd = result.vdPct === null ? '—' : `${num(result.vdPct, 2)} (${vdLimitText(result.vdLimitPct)})`;
     cells.r1r2 = num(result.r1r2Ohm, 3);
     cells.zs = result.zsOhm === null ? '—' : `${num(result.zsOhm, 2)} (${num(result.zsMaxOhm, 2)})`;
     cells.result = marked(VERDICT_MARKS[result.verdict], VERDICT_WORDS[result.verdict]);

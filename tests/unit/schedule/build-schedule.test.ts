@@ -108,6 +108,20 @@ describe('the schedule’s content', () => {
     expect(buildSchedule(plain).supply).toContainEqual({ label: 'Ze', value: '21 Ω' });
   });
 
+  it('prints the volt drop limit carried down to two decimals, and an origin limit whole', () => {
+    const way = { id: 'x', device: mcb, circuit: circuit('Lights') };
+    // A public supply's lighting limit is 3 % at the origin (BS 7671 Appendix 4, Table 4Ab); a
+    // board whose sub-mains used 0.803 % leaves 3 − 0.803 = 2.197 % to its final circuits
+    const fed = source([way]);
+    const supply = { ...fed.snapshot.settings.supply, vdUsedPct: 0.803 };
+    const settings = { ...fed.snapshot.settings, supply };
+    const sizing = sizeBoard(boardInputSchema.parse(boardSizingInput(settings, fed.snapshot.ways)));
+    expect(sizing.ways[0].result?.vdLimitPct).toBeCloseTo(2.197, 12);
+    const vdCell = (s: ScheduleSource) => buildSchedule(s).groups.flatMap((g) => g.rows)[0].cells.vd;
+    expect(vdCell({ ...fed, snapshot: { ...fed.snapshot, settings }, sizing })).toMatch(/^\d+\.\d\d \(2\.20\)$/);
+    expect(vdCell(source([way]))).toMatch(/^\d+\.\d\d \(3\)$/);
+  });
+
   it('a draft says it is not issued, in its status and in a notice', () => {
     const data = buildSchedule(
       source([{ id: 'x', device: mcb, circuit: circuit('Lights') }], { frozen: false, issued: null, status: 'draft' }),
