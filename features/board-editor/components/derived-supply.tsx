@@ -7,6 +7,7 @@ import { useId, useState } from 'react';
 
 import { FeedSelect } from '@/components/site-diagram/feed-select';
 import { SelectivityList } from '@/components/site-diagram/selectivity-list';
+import { siteTreeKey, useSiteTree } from '@/components/site-diagram/site-tree-query';
 import { boardsBelow, feedOfKey, feedWords, sameFeed, type FeedChoice } from '@/components/site-diagram/tree-model';
 import { VerdictBadge } from '@/components/sizing/verdict-badge';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
@@ -73,11 +74,7 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
   const queryClient = useQueryClient();
   const selectId = useId();
   const [pending, setPending] = useState<FeedChoice | null>(null);
-  const tree = useQuery({
-    queryKey: ['sites', 'tree', board.siteId],
-    queryFn: async () =>
-      (await apiFetch<{ tree: SiteTreeDto }>(`/api/sites/${encodeURIComponent(board.siteId)}/tree`)).tree,
-  });
+  const tree = useSiteTree(board.siteId);
   const history = useQuery({
     queryKey: ['boards', board.id, 'supply-change'],
     // Only the supply changes and the approvals: the newest of each are on this one page however
@@ -96,7 +93,7 @@ export function DerivedSupply({ board, canEdit }: DerivedSupplyProps) {
       }),
     // The carried values are read with the board: load the page again
     onSuccess: async () => {
-      await queryClient.invalidateQueries({ queryKey: ['sites', 'tree', board.siteId] });
+      await queryClient.invalidateQueries({ queryKey: siteTreeKey(board.siteId) });
       window.location.reload();
     },
   });

@@ -5,12 +5,13 @@ import { PageHeader } from '@/components/ui/page-header';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { allows } from '@/lib/boards/lifecycle';
 import type { ReviewPageData } from '@/lib/boards/review-page-data';
-import { deviceName } from '@/lib/names';
-import { supplyInUseWords } from '@/lib/sites/supply-words';
+import { deviceName, fedFromWords } from '@/lib/names';
+import { pct, supplyInUseWords } from '@/lib/sites/supply-words';
 
 import { CommentThread } from './comment-thread';
 import { CommentForm, DecisionArea, DecisionButtons, ReturnForm } from './review-islands';
 import { RevisionDiff } from './revision-diff';
+import { ReviewSelectivity } from './review-selectivity';
 import { WaysTable } from './ways-table';
 
 const fmt = (v: number | null | undefined, d: number) => (v === null || v === undefined ? '—' : v.toFixed(d));
@@ -36,6 +37,8 @@ export function ReviewView({
   const inReview = allows(board.status, 'approve');
   const boardSummary = { id: board.id, name: board.name, siteName: board.siteName, location: board.location };
   const supply = supplyInUseWords(board.supply, board.derivedSupply);
+  // Fed from another board's way: where from, and what the sub-mains above used of the volt drop
+  const fed = board.derivedSupply?.from === 'way' && !board.derivedSupply.problem ? board.derivedSupply : null;
 
   return (
     <DecisionArea>
@@ -94,6 +97,12 @@ export function ReviewView({
             <p>
               {board.phases === 3 ? 'Three-phase' : 'Single-phase'}, {board.supply.source} supply
             </p>
+            {fed ? (
+              <p>
+                Fed from {fedFromWords(fed.fedFrom)}
+                {fed.vdUsed ? ` · volt drop used above ${pct(fed.vdUsed.value)}` : ''}
+              </p>
+            ) : null}
           </div>
           <div>
             <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Incoming</h2>
@@ -121,6 +130,11 @@ export function ReviewView({
               </p>
             )}
           </div>
+          {fed ? (
+            <div className="sm:col-span-2 lg:col-span-4">
+              <ReviewSelectivity siteId={board.siteId} boardId={board.id} />
+            </div>
+          ) : null}
           {summary?.failing.length ? (
             <div className="sm:col-span-2 lg:col-span-4">
               <h2 className="text-xs font-semibold uppercase tracking-wide text-ink-soft">Board checks that fail</h2>

@@ -1,15 +1,6 @@
 import { apiFetch } from '@/lib/api/client';
 import type { FeedChoice } from '@/components/site-diagram/tree-model';
-import type { BoardSaveAnswer, SitePackEmailInput, SiteTreeDto } from '@/lib/sites/tree-types';
-
-/** Cache key of a site's tree. */
-export const siteTreeKey = (siteId: string) => ['sites', 'tree', siteId] as const;
-
-/** GET /api/sites/:siteId/tree */
-export async function fetchSiteTree(siteId: string): Promise<SiteTreeDto> {
-  const { tree } = await apiFetch<{ tree: SiteTreeDto }>(`/api/sites/${encodeURIComponent(siteId)}/tree`);
-  return tree;
-}
+import type { BoardSaveAnswer, SitePackEmailInput } from '@/lib/sites/tree-types';
 
 /**
  * PUT /api/boards/:boardId/feed, confirmed: the screen has already asked, naming every board

@@ -1,14 +1,11 @@
 'use client';
 
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+
+import { siteTreeKey } from '@/components/site-diagram/site-tree-query';
 
 import type { PendingFeed } from '../utils/repoint';
-import { fetchSiteTree, putBoardFeed, siteTreeKey } from './site-tree-api';
-
-/** The site's supply tree, sized, as the site view shows it. */
-export function useSiteTree(siteId: string) {
-  return useQuery({ queryKey: siteTreeKey(siteId), queryFn: () => fetchSiteTree(siteId) });
-}
+import { putBoardFeed } from './site-tree-api';
 
 /** Feeds a board from the origin or another board's way; the tree is read again afterwards. */
 export function useSetFeed(siteId: string) {

@@ -3,12 +3,13 @@
 import { useState } from 'react';
 
 import { SiteDiagram } from '@/components/site-diagram/site-diagram';
+import { useSiteTree } from '@/components/site-diagram/site-tree-query';
 import { sameFeed, type FeedChoice } from '@/components/site-diagram/tree-model';
 import { Caution } from '@/components/ui/caution';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { ErrorState } from '@/components/ui/error-state';
 
-import { useSetFeed, useSiteTree } from '../api/use-site-tree';
+import { useSetFeed } from '../api/use-site-tree';
 import { repointWords, type PendingFeed } from '../utils/repoint';
 import { BoardFeeds } from './board-feeds';
 import { SitePackActions } from './site-pack-actions';
