@@ -395,6 +395,11 @@ export function buildSchedule(source: ScheduleSource, now = new Date()): Schedul
             { label: 'Fed from', value: source.snapshot.fedFrom },
             { label: 'Zdb (carried)', value: `${num(settings.supply.zeOhm, 3)} Ω` },
             { label: 'PFC (carried)', value: `${num(settings.supply.pfcKa, 2)} kA` },
+            // What the sub-mains above used of the volt drop: the final circuits' limit is less by it
+            // (the label fits the PDF header's 50 pt label column on one line: 47 pt at 7 pt)
+            ...(settings.supply.vdUsedPct
+              ? [{ label: 'Vd used above', value: `${num(settings.supply.vdUsedPct, 2)} %` }]
+              : []),
           ]
         : [
             { label: 'Ze', value: `${settings.supply.zeOhm} Ω` },

@@ -104,6 +104,17 @@ describe('the schedule’s content', () => {
     expect(fed.supply).toContainEqual({ label: 'Zdb (carried)', value: '0.444 Ω' });
     expect(fed.supply).toContainEqual({ label: 'PFC (carried)', value: '0.99 kA' });
     expect(fed.supply.map((r) => r.label)).not.toContain('Ze');
+    // Nothing used above it (a board fed from a way with no volt drop carried): no such row
+    expect(fed.supply.map((r) => r.label)).not.toContain('Vd used above');
+    const used = buildSchedule({
+      ...plain,
+      snapshot: {
+        ...plain.snapshot,
+        settings: { ...plain.snapshot.settings, supply: { ...carried, vdUsedPct: 0.80302 } },
+        fedFrom: 'Workshop DB1, way 1',
+      },
+    });
+    expect(used.supply).toContainEqual({ label: 'Vd used above', value: '0.80 %' });
     // A board fed from the origin (or issued before) keeps its Ze and PFC as typed
     expect(buildSchedule(plain).supply).toContainEqual({ label: 'Ze', value: '21 Ω' });
   });
