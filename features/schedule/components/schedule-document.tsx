@@ -9,7 +9,7 @@ import {
   VERDICT_TONES as TONES,
 } from '../utils/print-palette';
 import type { ScheduleData, ScheduleFact, ScheduleRow } from '../utils/build-schedule';
-import { PAGE, scaledColumns, type SchedulePage } from '../utils/paginate-schedule';
+import { PAGE, pageGroupHeading, scaledColumns, type SchedulePage } from '../utils/paginate-schedule';
 
 const LINE = '#dcd7cc';
 
@@ -241,10 +241,7 @@ export function ScheduleDocument({
           {page.items.map((item, i) =>
             item.kind === 'group' ? (
               <View key={`g${i}`} style={styles.group}>
-                <Text style={styles.groupText}>
-                  {item.heading}
-                  {item.continued ? ' (continued)' : ''}
-                </Text>
+                <Text style={styles.groupText}>{pageGroupHeading(item)}</Text>
               </View>
             ) : (
               <Row key={item.row.wayId} row={item.row} columns={columns} index={item.index} />

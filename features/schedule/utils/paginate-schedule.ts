@@ -31,6 +31,14 @@ export const PAGE = {
 /** Width of the table, points. */
 export const TABLE_WIDTH = PAGE.width - 2 * PAGE.marginX;
 
+/**
+ * A group's heading as a page prints it: marked continued when the page starts inside the group,
+ * once (a run of ways that resumes after an RCBO is headed "… (continued)" already).
+ */
+export function pageGroupHeading(item: { heading: string; continued: boolean }): string {
+  return item.continued && !item.heading.endsWith('(continued)') ? `${item.heading} (continued)` : item.heading;
+}
+
 /** Room for the body of a page below the header, points. */
 const BODY_HEIGHT = PAGE.height - PAGE.marginTop - PAGE.marginBottom - PAGE.headerHeight;
 

@@ -5,6 +5,7 @@ import { SCHEDULE_COLUMNS } from '@/features/schedule/utils/build-schedule';
 import {
   countLines,
   PAGE,
+  pageGroupHeading,
   paginateSchedule,
   rowHeight,
   scaledColumns,
@@ -92,6 +93,16 @@ describe('pages of the schedule', () => {
       if (!page.items.length) continue;
       expect(page.items[0]).toMatchObject({ kind: 'group', heading: 'Group 0', continued: i > 0 });
     }
+  });
+
+  it('says continued once on a page that starts inside a run already headed as continued', () => {
+    // A run of ways resuming after an RCBO is headed "… (continued)" by buildSchedule; the 36-way
+    // bench board printed "Main switch 125 A, 4-pole (continued) (continued)" on its second page
+    expect(pageGroupHeading({ heading: 'Main switch 125 A, 4-pole (continued)', continued: true })).toBe(
+      'Main switch 125 A, 4-pole (continued)',
+    );
+    expect(pageGroupHeading({ heading: 'Group 0', continued: true })).toBe('Group 0 (continued)');
+    expect(pageGroupHeading({ heading: 'Group 0', continued: false })).toBe('Group 0');
   });
 
   it('long “serves” texts take more room, so fewer rows fit on a page', () => {
