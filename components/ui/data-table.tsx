@@ -189,7 +189,11 @@ function RowCards<T>({
         const cells = row.getVisibleCells();
         const place = (where: string) => cells.filter((c) => (c.column.columnDef.meta?.card ?? 'field') === where);
         const render = (c: (typeof cells)[number]) => flexRender(c.column.columnDef.cell, c.getContext());
-        const subs = place('sub');
+        // A line under the title of what the row has: an empty value leaves no "· —" behind
+        const subs = place('sub').filter((c) => {
+          const value = c.getValue();
+          return value !== '' && value !== null && value !== undefined;
+        });
         return (
           <li key={row.id} className="rounded-card border border-line bg-paper-raised p-3">
             <div className="flex items-start justify-between gap-3">

@@ -90,6 +90,12 @@ describe('BoardsTable', () => {
     expect(within(workshop).getByText('Issued')).toBeTruthy();
     expect(within(workshop).getByText('Three-phase')).toBeTruthy();
     expect(within(workshop).getByRole('button', { name: /rename workshop db1/i })).toBeTruthy();
+    // Under the name: the site and the location, and the site alone for a board without one
+    expect(workshop.textContent).toContain('Oakley Joinery workshop · Machine shop, north wall');
+    const spray = cards.find((c) => within(c).queryByRole('link', { name: 'Spray booth sub-board' }))!;
+    expect(spray.textContent).toContain('Oakley Joinery workshop');
+    expect(spray.textContent).not.toContain('·');
+    expect(spray.textContent).not.toContain('—');
     // The list is the phone's; the table the wider screens' (Tailwind's md breakpoint)
     expect(screen.getByTestId('row-cards').className).toContain('md:hidden');
     expect(screen.getByRole('table').parentElement!.className).toContain('hidden md:block');
