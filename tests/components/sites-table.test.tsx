@@ -46,6 +46,27 @@ function renderTable(canEdit = true) {
 }
 
 describe('SitesTable', () => {
+  it('draws each site as a card for a phone: its name, its client under it, its boards', () => {
+    render(
+      <SitesTable
+        sites={[...sites, { ...sites[2], id: '44444444-4444-4444-8444-444444444444', name: 'Yard', client: '' }]}
+        canEdit={false}
+        onRename={vi.fn()}
+        onDelete={vi.fn()}
+      />,
+    );
+    const cards = within(screen.getByRole('list', { name: 'Sites' })).getAllByRole('listitem');
+    expect(cards).toHaveLength(4);
+    const flat = cards.find((c) => within(c).queryByRole('link', { name: 'Flat above the workshop' }))!;
+    expect(flat.textContent).toContain('R. Oakley');
+    expect(within(flat).getByText('Boards').nextElementSibling?.textContent).toBe('3');
+    // A site without a client: no empty line under its name
+    const yard = cards.find((c) => within(c).queryByRole('link', { name: 'Yard' }))!;
+    expect(yard.querySelector('p')).toBeNull();
+    // The list is the phone's; the table the wider screens'
+    expect(screen.getByTestId('row-cards').className).toContain('md:hidden');
+  });
+
   it('starts sorted by name and reverses on a second click', async () => {
     const user = userEvent.setup();
     renderTable();
@@ -87,14 +108,17 @@ describe('SitesTable', () => {
     expect(shownNames()).toEqual(['Canal boathouse']);
     await user.clear(search);
     await user.type(search, 'substation');
-    expect(screen.getByText(/no site matches/i)).toBeTruthy();
+    // Said in the table, and in place of the cards on a phone
+    expect(screen.getAllByText(/no site matches/i)).toHaveLength(2);
   });
 
   it('links each site to its page and offers edit and archive only to editors', () => {
     const { unmount } = renderTable(true);
-    const link = screen.getByRole('link', { name: 'Canal boathouse' });
+    // The table's (the phone's cards repeat them: the other test)
+    const table = within(screen.getByRole('table'));
+    const link = table.getByRole('link', { name: 'Canal boathouse' });
     expect(link.getAttribute('href')).toBe('/sites/33333333-3333-4333-8333-333333333333');
-    expect(screen.getAllByRole('button', { name: /^archive /i })).toHaveLength(3);
+    expect(table.getAllByRole('button', { name: /^archive /i })).toHaveLength(3);
     unmount();
     renderTable(false);
     expect(screen.queryByRole('button', { name: /^archive /i })).toBeNull();

@@ -1,4 +1,4 @@
-import { screen, waitFor } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 
@@ -45,7 +45,7 @@ describe('SitesView', () => {
     renderWithQuery(<SitesView role="admin" />);
     expect(await screen.findByText('The database is not reachable just now.')).toBeTruthy();
     await user.click(screen.getByRole('button', { name: /try again/i }));
-    expect(await screen.findByRole('link', { name: 'Canal boathouse' })).toBeTruthy();
+    expect(await within(await screen.findByRole('table')).findByRole('link', { name: 'Canal boathouse' })).toBeTruthy();
     await waitFor(() => expect(fetch).toHaveBeenCalledTimes(2));
   });
 
@@ -65,7 +65,8 @@ describe('SitesView', () => {
       json({ sites: [] }),
     );
     renderWithQuery(<SitesView role="designer" />);
-    await user.click(await screen.findByRole('button', { name: 'Archive Flat above the workshop' }));
+    const table = within(await screen.findByRole('table'));
+    await user.click(await table.findByRole('button', { name: 'Archive Flat above the workshop' }));
     expect(screen.getByRole('dialog', { name: 'Archive this site?' }).textContent).toMatch(
       /and its board leave the lists and become read-only\. Nothing is deleted/,
     );

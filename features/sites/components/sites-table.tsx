@@ -44,6 +44,7 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete, remove
         accessorKey: 'name',
         header: 'Site',
         sortingFn: byText,
+        meta: { card: 'title' },
         cell: ({ row }) => (
           <Link
             href={`/sites/${row.original.id}`}
@@ -58,6 +59,7 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete, remove
         accessorKey: 'client',
         header: 'Client',
         sortingFn: byText,
+        meta: { card: 'sub' },
         cell: textOrDash(),
       },
       {
@@ -105,7 +107,13 @@ export function SitesTable({ sites, loading, canEdit, onRename, onDelete, remove
         />
         {!loading ? <RowCount shown={shown} total={sites.length} one="site" many="sites" /> : null}
       </div>
-      <DataTable table={table} caption="Sites" loading={loading} noMatch={`No site matches “${search.trim()}”.`} />
+      <DataTable
+        table={table}
+        caption="Sites"
+        loading={loading}
+        phoneCards
+        noMatch={`No site matches “${search.trim()}”.`}
+      />
     </div>
   );
 }
