@@ -63,9 +63,11 @@ export function DataTable<T>({
   return (
     <>
       {phoneCards ? <RowCards table={table} caption={caption} loading={loading} noMatch={noMatch} /> : null}
+      {/* relative: screen-reader-only words in the table are placed inside this scrolling box (beside
+          it, they widened a phone's page) */}
       <div
         className={cn(
-          'overflow-x-auto rounded-card border border-line bg-paper-raised',
+          'relative overflow-x-auto rounded-card border border-line bg-paper-raised',
           phoneCards && 'hidden md:block',
         )}
       >

@@ -246,7 +246,11 @@ function CarriedValues({ derived }: { derived: Derived }) {
   );
 }
 
-/** One derived value, greyed, with its working shown while it is hovered or focused. */
+/**
+ * One derived value, greyed, with its working shown while it is hovered or focused. The working
+ * takes no room while hidden (a hidden box still widened a phone's page) and opens towards the
+ * middle from a value in the right-hand column.
+ */
 function CarriedStat({ name, words, value }: { name: string; words: string; value: CarriedValue | null }) {
   const id = useId();
   return (
@@ -265,7 +269,7 @@ function CarriedStat({ name, words, value }: { name: string; words: string; valu
         <div
           id={id}
           role="tooltip"
-          className="invisible absolute top-full left-0 z-20 mt-1 w-72 rounded-md border border-line-strong bg-paper-raised p-3 text-xs text-ink shadow-lg group-focus-within:visible group-hover:visible"
+          className="absolute top-full left-0 z-20 mt-1 hidden w-72 max-w-[calc(100vw-2rem)] rounded-md border border-line-strong bg-paper-raised p-3 text-xs text-ink shadow-lg group-even:right-0 group-even:left-auto group-focus-within:block group-hover:block"
         >
           <p>{value.working.text}</p>
           {value.working.steps.length ? (

@@ -20,7 +20,7 @@ export function OutboxTable({ rows }: { rows: OutboxRow[] }) {
     return <p className="text-sm text-ink-soft">Nothing has been queued yet.</p>;
   }
   return (
-    <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
+    <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
       <table className="w-full border-collapse">
         <caption className="sr-only">Outbox</caption>
         <thead className="bg-paper-sunk/60">

@@ -64,7 +64,7 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
 
   return (
     <>
-      <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
+      <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
         <table className="w-full border-collapse">
           <caption className="sr-only">Members</caption>
           <thead className="bg-paper-sunk/60">
@@ -190,7 +190,7 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
 /** Invitations sent but not yet taken up. */
 export function PendingInvitations({ invitations }: { invitations: Member[] }) {
   return (
-    <div className="overflow-x-auto rounded-card border border-line bg-paper-raised">
+    <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
       <table className="w-full border-collapse">
         <caption className="sr-only">Invitations waiting to be accepted</caption>
         <thead className="bg-paper-sunk/60">

@@ -149,7 +149,9 @@ export function ReviewView({
 
         <section
           aria-labelledby="ways-heading"
-          className="overflow-x-auto rounded-card border border-line bg-paper-raised"
+          // relative: the table's screen-reader-only words are placed inside this scrolling box,
+          // not beside it, where they made a phone's page wider than the screen
+          className="relative overflow-x-auto rounded-card border border-line bg-paper-raised"
         >
           <h2 id="ways-heading" className="sr-only">
             Ways
