@@ -105,6 +105,12 @@ const reviewView = async (page: Page) => {
   await page.getByRole('columnheader', { name: 'Zs Ω (max)' }).waitFor();
 };
 
+// The editor of a board fed from a sub-main once its verdicts and its Supply panel have drawn
+const fedEditorView = async (page: Page) => {
+  await page.locator('[data-verdict]').first().waitFor();
+  await page.getByTestId('derived-supply').getByLabel('Fed from').waitFor();
+};
+
 const SCREENS: Screen[] = [
   { name: 'sign-in', role: null, path: () => '/login', ready: heading('Boardwright') },
   { name: 'sites', role: 'designer', path: () => '/sites', ready: heading('Sites') },
@@ -136,10 +142,7 @@ const SCREENS: Screen[] = [
     name: 'editor of a board fed from a sub-main (derived supply)',
     role: 'designer',
     path: ({ flat }) => `/boards/${flat}`,
-    ready: async (page) => {
-      await page.locator('[data-verdict]').first().waitFor();
-      await page.getByTestId('derived-supply').getByLabel('Fed from').waitFor();
-    },
+    ready: fedEditorView,
   },
   {
     name: 'editor (inspector, read only)',
@@ -207,10 +210,7 @@ const SCREENS: Screen[] = [
     role: 'designer',
     phone: true,
     path: ({ flat }) => `/boards/${flat}`,
-    ready: async (page) => {
-      await page.locator('[data-verdict]').first().waitFor();
-      await page.getByTestId('derived-supply').getByLabel('Fed from').waitFor();
-    },
+    ready: fedEditorView,
   },
   { name: 'sites (phone)', role: 'designer', phone: true, path: () => '/sites', ready: heading('Sites') },
   { name: 'members', role: 'admin', path: () => '/members', ready: heading('Members') },
