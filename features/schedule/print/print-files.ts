@@ -48,17 +48,33 @@ type KeyFacts = Pick<ScheduleSource, 'boardId' | 'boardUrl' | 'revision' | 'stat
 const etagOf = (key: string) => `"${crypto.createHash('sha256').update(key).digest('base64url').slice(0, 27)}"`;
 
 /**
+ * The layout of the printed documents: raise it with any change to what a schedule or label strip
+ * prints or how (a fix in the PDF's wording, figures or layout), so that the files stored for
+ * issued revisions are rendered again with it instead of being served as they were. 2: the carried
+ * volt drop limit to two decimals, "Vd used above", "(continued)" once.
+ */
+export const PRINT_LAYOUT = 2;
+
+/**
  * Where an issued revision's PDF is stored. The revision itself never changes (its row cannot be
  * updated), but its schedule also prints what can: the label walk's results and notes, the
  * board's stage (issued, labels matched), the issuer's name as read now and the day it is
  * printed. Those go into a hash in the key, so a label change gives a new file; within one day
  * and one state of the walk the schedule is rendered once. Label strips print none of them.
+ * Both keys name the print layout (`PRINT_LAYOUT`).
  */
-export function storedKey(kind: BoardPrintJob['kind'], source: KeyFacts, now: Date): string {
+export function storedKey(kind: BoardPrintJob['kind'], source: KeyFacts, now: Date, layout = PRINT_LAYOUT): string {
   const base = `prints/${source.boardId}/rev-${source.revision}`;
-  if (kind === 'labels') return `${base}/labels.pdf`;
+  if (kind === 'labels') return `${base}/labels-v${layout}.pdf`;
   const labels = Object.entries(source.labels ?? {}).sort(([a], [b]) => a.localeCompare(b));
-  const state = JSON.stringify([source.status, source.issued, labels, formatDate(now.toISOString()), source.boardUrl]);
+  const state = JSON.stringify([
+    source.status,
+    source.issued,
+    labels,
+    formatDate(now.toISOString()),
+    source.boardUrl,
+    layout,
+  ]);
   const hash = crypto.createHash('sha256').update(state).digest('hex').slice(0, 24);
   return `${base}/schedule-${hash}.pdf`;
 }
