@@ -11,10 +11,10 @@ let registered = false;
 
 /**
  * Registers the fonts shipped in public/fonts with react-pdf, once per process, and has pdfkit
- * select a font it has opened already without opening it again (lib/pdf/pdfkit-font-reuse.ts). DejaVu Sans
- * Condensed (a free licence, see public/fonts/DejaVu-LICENSE.txt) is used because react-pdf
- * needs static TTF or WOFF files and the app's Inter is only installed as a variable WOFF2;
- * its narrow width also suits a schedule of thirteen columns. It has Ω, ², ✓ and ✗.
+ * select a font it has opened already without opening it again (lib/pdf/pdfkit-font-reuse.ts).
+ * DejaVu Sans Condensed (a free licence, see public/fonts/DejaVu-LICENSE.txt) is used because
+ * react-pdf needs static TTF or WOFF files and the app's Inter is only installed as a variable
+ * WOFF2; its narrow width also suits a schedule of thirteen columns. It has Ω, ², ✓ and ✗.
  */
 export function registerPrintFonts(): void {
   if (registered) return;
