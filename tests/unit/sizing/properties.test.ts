@@ -268,7 +268,8 @@ describe('robustness', () => {
       }),
       { numRuns: 3000 },
     );
-    // Both sides of the schema are reached (about 3 % of these wide inputs are valid)
+    // Both sides of the schema are reached (about 3 % of these wide inputs are valid: 76 to 108 of
+    // the 3000 in eight runs)
     expect(accepted).toBeGreaterThan(50);
     expect(refused).toBeGreaterThan(1000);
   });
@@ -324,6 +325,8 @@ describe('robustness', () => {
       ),
       { numRuns: 800 },
     );
-    expect(accepted).toBeGreaterThan(50);
+    // The accepted side is reached: 57 to 76 of the 800 boards in ten runs, so a bound of 50 failed
+    // now and then by chance; 25 is about five standard deviations below the mean
+    expect(accepted).toBeGreaterThan(25);
   });
 });
