@@ -7,6 +7,7 @@ import { LabelStripsDocument } from './components/label-strips-document';
 import { ScheduleDocument } from './components/schedule-document';
 import { buildLabelSheet } from './utils/build-labels';
 import { buildSchedule } from './utils/build-schedule';
+import { fitScheduleHeader } from './utils/fit-header';
 import { printFontMeasure, registerPrintFonts } from './utils/fonts';
 import { paginateSchedule } from './utils/paginate-schedule';
 import { boardQrCode } from './utils/qr-code';
@@ -18,7 +19,13 @@ export async function renderSchedulePdf(source: ScheduleSource, now = new Date()
   const data = buildSchedule(source, now);
   const [qrDataUrl, measure] = await Promise.all([boardQrCode(data.boardUrl), printFontMeasure()]);
   const pages = paginateSchedule(data, measure);
-  const element = createElement(ScheduleDocument, { data, qrDataUrl, pages }) as unknown as ReactElement<DocumentProps>;
+  const header = fitScheduleHeader(data, measure);
+  const element = createElement(ScheduleDocument, {
+    data,
+    header,
+    qrDataUrl,
+    pages,
+  }) as unknown as ReactElement<DocumentProps>;
   const buffer = await renderToBuffer(element);
   return { pdf: new Uint8Array(buffer), fileName: data.fileName };
 }

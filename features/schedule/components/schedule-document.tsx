@@ -9,6 +9,7 @@ import {
   VERDICT_TONES as TONES,
 } from '../utils/print-palette';
 import type { ScheduleData, ScheduleFact, ScheduleRow } from '../utils/build-schedule';
+import { HEADER, type FittedHeader } from '../utils/fit-header';
 import { PAGE, pageGroupHeading, scaledColumns, type SchedulePage } from '../utils/paginate-schedule';
 
 const LINE = '#dcd7cc';
@@ -30,15 +31,16 @@ const styles = StyleSheet.create({
     paddingBottom: 6,
     marginBottom: 4,
   },
-  brand: { width: 250, paddingRight: 10 },
-  org: { fontSize: 7.5, color: SOFT, textTransform: 'uppercase', letterSpacing: 0.6 },
-  title: { fontSize: 8, color: COPPER, fontWeight: 700, marginTop: 3 },
-  boardName: { fontSize: 14, fontWeight: 700, marginTop: 1 },
-  place: { fontSize: 8, color: SOFT, marginTop: 2 },
-  facts: { flex: 1, paddingHorizontal: 8, borderLeftWidth: 0.5, borderLeftColor: LINE },
+  // The header's texts are fitted to these boxes beforehand (utils/fit-header.ts)
+  brand: { width: HEADER.brandWidth, paddingRight: HEADER.brandPadRight },
+  org: { fontSize: HEADER.orgSize, color: SOFT, textTransform: 'uppercase', letterSpacing: 0.6 },
+  title: { fontSize: HEADER.titleSize, color: COPPER, fontWeight: 700, marginTop: HEADER.titleGap },
+  boardName: { fontWeight: 700, marginTop: HEADER.nameGap },
+  place: { fontSize: HEADER.placeSize, color: SOFT, marginTop: HEADER.placeGap },
+  facts: { flex: 1, paddingHorizontal: HEADER.factsPadX, borderLeftWidth: 0.5, borderLeftColor: LINE },
   // Eight rows (a fed board's supply) of 8.2 pt lines fit the header's 74 pt with 1 pt between
-  factRow: { flexDirection: 'row', marginBottom: 1 },
-  factLabel: { width: 50, color: SOFT },
+  factRow: { flexDirection: 'row', marginBottom: HEADER.factGap },
+  factLabel: { width: HEADER.factLabelWidth, color: SOFT },
   factValue: { flex: 1, fontWeight: 700 },
   qr: { width: 58, height: 58, marginLeft: 6 },
   qrCaption: { fontSize: 5.5, color: FAINT, textAlign: 'center', width: 58, marginLeft: 6, marginTop: 1 },
@@ -100,7 +102,7 @@ const styles = StyleSheet.create({
     flexDirection: 'row',
   },
   caution: { flex: 1, fontSize: 6.5, color: INK, paddingRight: 12 },
-  pageNo: { width: 140, fontSize: 6.5, color: SOFT, textAlign: 'right' },
+  pageNo: { width: HEADER.footerWidth, fontSize: HEADER.footerSize, color: SOFT, textAlign: 'right' },
 });
 
 function Facts({ facts, labelWidth = 50 }: { facts: ScheduleFact[]; labelWidth?: number }) {
@@ -149,23 +151,20 @@ function Row({ row, columns, index }: { row: ScheduleRow; columns: Column[]; ind
   );
 }
 
-function Header({ data, qrDataUrl }: { data: ScheduleData; qrDataUrl: string }) {
+function Header({ data, header, qrDataUrl }: { data: ScheduleData; header: FittedHeader; qrDataUrl: string }) {
   return (
     <View style={styles.header}>
       <View style={styles.brand}>
         <Text style={styles.org}>{data.organisationName}</Text>
         <Text style={styles.title}>Board schedule</Text>
-        <Text style={styles.boardName}>{data.boardName}</Text>
-        <Text style={styles.place}>
-          {data.siteName}
-          {data.location ? ` · ${data.location}` : ''}
-        </Text>
+        <Text style={[styles.boardName, { fontSize: header.boardNameSize }]}>{header.boardName}</Text>
+        <Text style={styles.place}>{header.place}</Text>
       </View>
       <View style={styles.facts}>
-        <Facts facts={data.supply} />
+        <Facts facts={header.supply} />
       </View>
       <View style={styles.facts}>
-        <Facts facts={data.document} />
+        <Facts facts={header.document} />
       </View>
       <View>
         {/* react-pdf's Image has no alt text; the caption below says what the code is */}
@@ -204,10 +203,13 @@ function Summary({ data }: { data: ScheduleData }) {
  */
 export function ScheduleDocument({
   data,
+  header,
   qrDataUrl,
   pages,
 }: {
   data: ScheduleData;
+  /** The header's and footer's texts fitted to their boxes (`fitScheduleHeader`). */
+  header: FittedHeader;
   qrDataUrl: string;
   pages: SchedulePage[];
 }) {
@@ -222,7 +224,7 @@ export function ScheduleDocument({
     >
       {pages.map((page, p) => (
         <Page key={p} size="A4" orientation="landscape" style={styles.page} wrap={false}>
-          <Header data={data} qrDataUrl={qrDataUrl} />
+          <Header data={data} header={header} qrDataUrl={qrDataUrl} />
           {data.draft ? (
             <Text style={styles.draftBanner}>
               Draft, revision {data.revision}: not issued. Do not build or label a board from this print.
@@ -261,7 +263,7 @@ export function ScheduleDocument({
           <View style={styles.footer}>
             <Text style={styles.caution}>Caution. {data.caution}</Text>
             <Text style={styles.pageNo}>
-              {data.boardName} · revision {data.revision} · page {p + 1} of {pages.length}
+              {header.footerName} · revision {data.revision} · page {p + 1} of {pages.length}
             </Text>
           </View>
         </Page>

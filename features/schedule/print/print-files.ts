@@ -51,9 +51,10 @@ const etagOf = (key: string) => `"${crypto.createHash('sha256').update(key).dige
  * The layout of the printed documents: raise it with any change to what a schedule or label strip
  * prints or how (a fix in the PDF's wording, figures or layout), so that the files stored for
  * issued revisions are rendered again with it instead of being served as they were. 2: the carried
- * volt drop limit to two decimals, "Vd used above", "(continued)" once.
+ * volt drop limit to two decimals, "Vd used above", "(continued)" once. 3: long names fitted to
+ * the header and footer (utils/fit-header.ts).
  */
-export const PRINT_LAYOUT = 2;
+export const PRINT_LAYOUT = 3;
 
 /**
  * Where an issued revision's PDF is stored. The revision itself never changes (its row cannot be
