@@ -9,7 +9,22 @@ export const DIAGRAM = {
   /** Space above a board for its sub-main's line, symbol and label. */
   feedHeight: 46,
   originHeight: 76,
+  /**
+   * The characters of a board's name that its box shows (14 px text in the box less its
+   * padding: about 0.55 em a character of mixed text; wider text is clipped at the box's edge).
+   */
+  nameChars: 40,
 } as const;
+
+/** A board's name as its box shows it: whole, or cut at a word near its room with an ellipsis. */
+export function boxName(name: string, chars: number = DIAGRAM.nameChars): string {
+  if (name.length <= chars) return name;
+  let cut = name.slice(0, chars - 1);
+  const space = cut.lastIndexOf(' ');
+  // Back to the last word's end, unless the cut is at one already or none is near
+  if (name[cut.length] !== ' ' && space > chars * 0.7) cut = cut.slice(0, space);
+  return `${cut.replace(/[\s,;:·–—-]+$/, '')}…`;
+}
 
 /** What the layout needs of a board: where it hangs in the tree. */
 export type LayoutBoard = Pick<SiteBoardResult, 'boardId' | 'depth' | 'fedFrom'>;

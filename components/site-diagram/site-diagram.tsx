@@ -6,7 +6,7 @@ import { amps, ka, ohm, pct } from '@/lib/sites/supply-words';
 import type { BoardSummary } from '@/lib/sizing';
 import type { SiteBoardResult, SiteOrigin } from '@/lib/supply';
 
-import { DIAGRAM, layoutSite, type PlacedBoard } from './layout';
+import { boxName, DIAGRAM, layoutSite, type PlacedBoard } from './layout';
 
 /** A board as the diagram draws it: its carried values, worst verdict and maximum demand. */
 export type DiagramBoard = Omit<SiteBoardResult, 'sizing' | 'sizedInput' | 'selectivity'> & {
@@ -162,9 +162,13 @@ function BoardNode({
           className="fill-paper-raised stroke-line-strong"
           strokeWidth={1.5}
         />
-        <text x={x + 12} y={y + 22} className="fill-ink text-[14px] font-semibold underline">
-          {b.name}
-        </text>
+        {/* The name, cut to its box (its whole is the tooltip and in the link's name) */}
+        <svg x={x + 12} y={y} width={w - 24} height={30} overflow="hidden">
+          <text x={0} y={22} className="fill-ink text-[14px] font-semibold underline">
+            {boxName(b.name)}
+            {boxName(b.name) === b.name ? null : <title>{b.name}</title>}
+          </text>
+        </svg>
       </a>
       {/*
         The values are in the link's name already, which starts with its visible text (the

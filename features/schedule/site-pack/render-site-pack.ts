@@ -4,8 +4,11 @@ import { createElement, type ReactElement } from 'react';
 import { SIZING_CAUTION } from '@/lib/sizing';
 import type { SiteResult } from '@/lib/supply';
 
+import { DIAGRAM } from '@/components/site-diagram/layout';
+
 import { SitePackDocument } from './components/site-pack-document';
-import { registerPrintFonts } from '../utils/fonts';
+import { shortenToFit } from '../utils/fit-header';
+import { printFontMeasure, type TextMeasure } from '../utils/fonts';
 
 export type RenderedSitePack = { pdf: Uint8Array; fileName: string };
 
@@ -16,6 +19,14 @@ export function sitePackFileName(siteName: string): string {
     .replace(/[^a-z0-9]+/g, '-')
     .replace(/^-+|-+$/g, '');
   return `site-pack-${slug || 'site'}.pdf`;
+}
+
+/** The board's name in the drawing: 12 pt bold in its box less 10 units each side. */
+const NAME_BOX = { width: DIAGRAM.boxWidth - 20, lines: 1, size: 12, bold: true } as const;
+
+/** Each board's name as its box in the drawing has room for (cut with an ellipsis), by board id. */
+export function diagramBoxNames(site: SiteResult, measure: TextMeasure): Map<string, string> {
+  return new Map(site.boards.map((b) => [b.boardId, shortenToFit(b.name, '', NAME_BOX, measure)]));
 }
 
 /**
@@ -30,13 +41,14 @@ export async function renderSitePackPdf(
   siteName: string,
   now = new Date(),
 ): Promise<RenderedSitePack> {
-  registerPrintFonts();
+  const measure = await printFontMeasure();
   const printedOn = now.toISOString().slice(0, 10);
   const element = createElement(SitePackDocument, {
     site,
     siteName,
     printedOn,
     caution: SIZING_CAUTION,
+    boxNames: diagramBoxNames(site, measure),
   }) as unknown as ReactElement<DocumentProps>;
   const buffer = await renderToBuffer(element);
   return { pdf: new Uint8Array(buffer), fileName: sitePackFileName(siteName) };

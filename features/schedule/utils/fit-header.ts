@@ -72,7 +72,8 @@ export function shortenToFit(head: string, tail: string, box: Box, measure: Text
   }
   let cut = head.slice(0, lo);
   const space = cut.lastIndexOf(' ');
-  if (space > cut.length * 0.75) cut = cut.slice(0, space);
+  // Back to the last word's end, unless the cut is at one already or none is near
+  if (head[cut.length] !== ' ' && space > cut.length * 0.75) cut = cut.slice(0, space);
   return `${cut.replace(/[\s,;:·–—-]+$/, '')}…${tail}`;
 }
 

@@ -37,6 +37,24 @@ describe('SiteDiagram', () => {
     expect(within(node as HTMLElement).getByText(/^(Passes|Near limit|Fails)$/)).toBeTruthy();
   });
 
+  it('cuts a long name to its box with an ellipsis: the whole name is the tooltip and starts the link’s name', () => {
+    const t = threeLevel();
+    const long = 'Finishing room sub-distribution board beside the spray booth extract fan isolator';
+    t.boards = t.boards.map((b) => (b.id === 'fin' ? { ...b, name: long } : b));
+    render(<SiteDiagram site={sizeSite(t)} siteName="Site" hrefOf={(id) => `/boards/${id}`} />);
+    const link = screen.getByRole('link', { name: new RegExp(`^${long}:`) });
+    const text = link.querySelector('text')!;
+    expect(text.querySelector('title')?.textContent).toBe(long);
+    const shown = text.textContent!.replace(long, '');
+    expect(shown).toBe('Finishing room sub-distribution board…');
+    // Drawn in a box of its own, which clips what a wide name still runs over
+    expect(text.closest('svg')!.getAttribute('width')).toBe(String(330 - 24));
+    // A short name is drawn whole, without a tooltip
+    const short = screen.getByRole('link', { name: /^Machine shop board:/ }).querySelector('text')!;
+    expect(short.textContent).toBe('Machine shop board');
+    expect(short.querySelector('title')).toBeNull();
+  });
+
   it('opens a board by click and, without links, by keyboard as a button', async () => {
     const user = userEvent.setup();
     const onOpen = vi.fn();

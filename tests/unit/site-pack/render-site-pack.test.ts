@@ -3,7 +3,8 @@ import { describe, expect, it } from 'vitest';
 
 import { layoutSite } from '@/components/site-diagram/layout';
 import { diagramPages, pageDrawingHeight } from '@/features/schedule/site-pack/components/site-pack-document';
-import { renderSitePackPdf, sitePackFileName } from '@/features/schedule/site-pack/render-site-pack';
+import { diagramBoxNames, renderSitePackPdf, sitePackFileName } from '@/features/schedule/site-pack/render-site-pack';
+import { printFontMeasure } from '@/features/schedule/utils/fonts';
 import { SIZING_CAUTION } from '@/lib/sizing';
 import { sizeSite, type SiteBoardInput } from '@/lib/supply';
 
@@ -39,6 +40,24 @@ describe('renderSitePackPdf', () => {
     expect(all).toContain('MCB C20 (way 2L3), L3');
     expect(all).toContain('Selective up to 100 A');
     expect(all).toMatch(/Basis: Site-supply method \(carried values\), rule 1/);
+  }, 60_000);
+
+  it('cuts a board’s name to its box in the drawing, and prints it whole in the carried values', async () => {
+    const t = threeLevel();
+    const long = 'Finishing room sub-distribution board beside the spray booth extract fan isolator';
+    t.boards = t.boards.map((b) => (b.id === 'fin' ? { ...b, name: long } : b));
+    const site = sizeSite(t);
+    const measure = await printFontMeasure();
+    const names = diagramBoxNames(site, measure);
+    const cut = names.get('fin')!;
+    expect(cut.endsWith('…')).toBe(true);
+    expect(long.startsWith(cut.slice(0, -1))).toBe(true);
+    // The box is 330 units wide, the name drawn 10 in at 12 pt bold: it ends 10 short of the edge
+    expect(measure(cut, 12, true)).toBeLessThanOrEqual(330 - 20);
+    expect(names.get('ms')).toBe('Machine shop board');
+    const all = (await pagesOf((await renderSitePackPdf(site, 'Site')).pdf)).join(' ');
+    expect(all).toContain(cut);
+    expect(all).toContain(`${long}, fed from`);
   }, 60_000);
 
   it('splits a tall diagram into pages of whole boards', () => {

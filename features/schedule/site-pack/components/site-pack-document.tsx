@@ -67,7 +67,7 @@ export function diagramPages(
 
 const n = (x: number, d: number) => x.toFixed(d);
 
-function BoardDrawing({ p }: { p: PlacedBoard }) {
+function BoardDrawing({ p, name }: { p: PlacedBoard; name: string }) {
   const { board: b, x, y, stemX, stemTopY } = p;
   const { boxWidth: w, boxHeight: h, feedHeight } = DIAGRAM;
   const values = [b.zdb ? `Zdb ${n(b.zdb.value, 3)} Ω` : null, b.pfc ? `PFC ${n(b.pfc.value, 2)} kA` : null]
@@ -136,7 +136,7 @@ function BoardDrawing({ p }: { p: PlacedBoard }) {
       ) : null}
       <Rect x={x} y={y} width={w} height={h} rx={6} stroke={LINE} strokeWidth={1.2} fill="#ffffff" />
       <Text x={x + 10} y={y + 20} style={{ fontFamily: PRINT_FONT, fontSize: 12, fontWeight: 700 }} fill={INK}>
-        {b.name}
+        {name}
       </Text>
       <Text x={x + 10} y={y + 40} style={{ fontFamily: PRINT_FONT, fontSize: 10 }} fill={INK}>
         {b.problem ? 'No carried values: see the sub-main above' : values}
@@ -239,11 +239,14 @@ export function SitePackDocument({
   siteName,
   printedOn,
   caution,
+  boxNames,
 }: {
   site: SiteResult;
   siteName: string;
   printedOn: string;
   caution: string;
+  /** Each board's name cut to its box in the drawing (`diagramBoxNames`), by board id. */
+  boxNames: ReadonlyMap<string, string>;
 }) {
   const layout = layoutSite(site);
   const pages = diagramPages(layout.boards, pageDrawingHeight(layout.width));
@@ -303,7 +306,7 @@ export function SitePackDocument({
               </G>
             ) : null}
             {pg.boards.map((p) => (
-              <BoardDrawing key={p.board.boardId} p={p} />
+              <BoardDrawing key={p.board.boardId} p={p} name={boxNames.get(p.board.boardId) ?? p.board.name} />
             ))}
           </Svg>
           <Footer caution={caution} siteName={siteName} />
