@@ -49,6 +49,11 @@ describe('MailboxView', () => {
     expect(within(row).getByText('connect ECONNREFUSED 127.0.0.1:2525')).toBeTruthy();
     // Queued with its date and time, in the app's one format
     expect(row.querySelector('time')?.textContent).toMatch(/^1 Mar 2025, \d{2}:\d{2}$/);
+    // On a phone, a card: the subject on top, the status beside it, the address under it
+    const [card] = within(screen.getByRole('list', { name: 'Outbox' })).getAllByRole('listitem');
+    expect(card.firstElementChild!.textContent).toBe('You are invited to Oakley Electrical on BoardwrightWaiting');
+    expect(card.textContent).toContain('sam@example.test');
+    expect(within(card).getByText('Attempts').nextElementSibling?.textContent).toBe('3');
     expect(screen.getByText('Board schedule: Workshop DB1')).toBeTruthy();
     expect(screen.getByText(/workshop-db1\.pdf/)).toBeTruthy();
     expect(screen.getByText(/1 item\(s\) were not in the expected shape/)).toBeTruthy();

@@ -51,6 +51,36 @@ describe('MembersView', () => {
     expect(screen.queryByRole('combobox', { name: 'Role of Alex Rowe' })).toBeNull();
   });
 
+  it('draws each member and invitation as a card on a phone, with the same controls', async () => {
+    const user = userEvent.setup();
+    const fetch = mockFetch(
+      json({ members }),
+      json({ member: { ...members[1], role: 'inspector' } }),
+      json({ members }),
+    );
+    renderWithQuery(<MembersView currentUserId={ADMIN} />);
+    const cards = within(await screen.findByRole('list', { name: 'Members' })).getAllByRole('listitem');
+    expect(cards.map((c) => c.querySelector('.font-medium')?.textContent)).toEqual(['Alex Rowe(you)', 'Dana Finch']);
+    const dana = within(cards[1]);
+    // Under the name, the e-mail; the access as the card's badge; the joining date as a named field
+    expect(cards[1].textContent).toContain('designer@example.test');
+    expect(dana.getByText('Active')).toBeTruthy();
+    expect(dana.getByText('Member since')).toBeTruthy();
+    expect(dana.getByRole('button', { name: 'Deactivate Dana Finch' })).toBeTruthy();
+    // The admin's own card has no role choice and no deactivation
+    expect(within(cards[0]).queryByRole('combobox')).toBeNull();
+    expect(within(cards[0]).queryByRole('button')).toBeNull();
+    await user.selectOptions(dana.getByRole('combobox', { name: 'Role of Dana Finch' }), 'inspector');
+    await waitFor(() => expect(fetch).toHaveBeenCalledTimes(3));
+    expect(sentBody(fetch, 1)).toEqual({ role: 'inspector' });
+    const waiting = within(screen.getByRole('list', { name: /waiting/i })).getAllByRole('listitem');
+    expect(waiting).toHaveLength(1);
+    expect(waiting[0].textContent).toContain('Sam Hale');
+    expect(waiting[0].textContent).toContain('Inspector');
+    // The cards are the phone's, the tables the wider screens'
+    for (const list of screen.getAllByTestId('row-cards')) expect(list.className).toContain('md:hidden');
+  });
+
   it('changes a role with PATCH', async () => {
     const user = userEvent.setup();
     const fetch = mockFetch(
@@ -59,7 +89,8 @@ describe('MembersView', () => {
       json({ members }),
     );
     renderWithQuery(<MembersView currentUserId={ADMIN} />);
-    const role = await screen.findByRole('combobox', { name: 'Role of Dana Finch' });
+    const table = within(await screen.findByRole('table', { name: 'Members' }));
+    const role = table.getByRole('combobox', { name: 'Role of Dana Finch' });
     await user.selectOptions(role, 'inspector');
     await waitFor(() => expect(fetch).toHaveBeenCalledTimes(3));
     expect(fetch.mock.calls[1][0]).toBe(`/api/members/${DESIGNER}`);
@@ -75,10 +106,11 @@ describe('MembersView', () => {
       json({ members: [members[0], { ...members[1], active: false }] }),
     );
     renderWithQuery(<MembersView currentUserId={ADMIN} />);
-    await user.click(await screen.findByRole('button', { name: 'Deactivate Dana Finch' }));
+    const table = within(await screen.findByRole('table', { name: 'Members' }));
+    await user.click(table.getByRole('button', { name: 'Deactivate Dana Finch' }));
     expect(fetch).toHaveBeenCalledTimes(1);
     await user.click(screen.getByRole('button', { name: 'Deactivate' }));
-    expect(await screen.findByRole('button', { name: 'Reactivate Dana Finch' })).toBeTruthy();
+    expect(await table.findByRole('button', { name: 'Reactivate Dana Finch' })).toBeTruthy();
     expect(sentBody(fetch, 1)).toEqual({ active: false });
   });
 });

@@ -1,12 +1,20 @@
-import { CircleAlert, CircleCheck, Clock } from 'lucide-react';
+'use client';
 
+import {
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from '@tanstack/react-table';
+import { CircleAlert, CircleCheck, Clock } from 'lucide-react';
+import { useState } from 'react';
+
+import { byText, DataTable } from '@/components/ui/data-table';
 import { When } from '@/components/ui/when';
 import { cn } from '@/lib/cn';
 
 import type { OutboxRow } from '../types/mailbox';
-
-const th = 'h-11 px-4 text-left text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase';
-const td = 'px-4 py-3 align-top text-sm text-ink';
 
 const statusLook = {
   queued: { word: 'Waiting', icon: Clock, tone: 'text-verdict-near' },
@@ -14,72 +22,73 @@ const statusLook = {
   failed: { word: 'Gave up', icon: CircleAlert, tone: 'text-verdict-fail' },
 } as const;
 
-/** Every message the app has queued: where it went, whether it left, and why not. */
+const columns: ColumnDef<OutboxRow>[] = [
+  {
+    id: 'createdAt',
+    accessorKey: 'createdAt',
+    header: 'Queued',
+    sortDescFirst: true,
+    meta: { className: 'whitespace-nowrap' },
+    cell: ({ row }) => (
+      <span className="text-sm text-ink-soft">
+        <When iso={row.original.createdAt} />
+      </span>
+    ),
+  },
+  { id: 'to', accessorKey: 'toAddress', header: 'To', sortingFn: byText, meta: { card: 'sub' } },
+  { id: 'subject', accessorKey: 'subject', header: 'Subject', sortingFn: byText, meta: { card: 'title' } },
+  {
+    id: 'status',
+    accessorFn: (row) => statusLook[row.status].word,
+    header: 'Status',
+    meta: { card: 'badge', className: 'whitespace-nowrap' },
+    cell: ({ row: { original: row } }) => {
+      const look = statusLook[row.status];
+      const Icon = look.icon;
+      return (
+        <>
+          <span className={cn('inline-flex items-center gap-1.5 text-sm font-medium', look.tone)}>
+            <Icon aria-hidden className="h-4 w-4" />
+            {look.word}
+          </span>
+          {row.sentAt ? (
+            <span className="block text-xs text-ink-faint">
+              <When iso={row.sentAt} />
+            </span>
+          ) : null}
+        </>
+      );
+    },
+  },
+  { id: 'attempts', accessorKey: 'attempts', header: 'Attempts', sortDescFirst: true, meta: { align: 'right' } },
+  {
+    id: 'lastError',
+    accessorKey: 'lastError',
+    header: 'Last error',
+    enableSorting: false,
+    meta: { className: 'max-w-[24rem] text-xs text-ink-soft' },
+    cell: ({ row }) =>
+      row.original.lastError ? (
+        <span className="line-clamp-3 font-mono break-words">{row.original.lastError}</span>
+      ) : (
+        <span className="text-ink-faint">—</span>
+      ),
+  },
+];
+
+/** Every message the app has queued: where it went, whether it left, and why not; a card per message on a phone. */
 export function OutboxTable({ rows }: { rows: OutboxRow[] }) {
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const table = useReactTable({
+    data: rows,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
   if (!rows.length) {
     return <p className="text-sm text-ink-soft">Nothing has been queued yet.</p>;
   }
-  return (
-    <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
-      <table className="w-full border-collapse">
-        <caption className="sr-only">Outbox</caption>
-        <thead className="bg-paper-sunk/60">
-          <tr className="border-b border-line">
-            <th scope="col" className={th}>
-              Queued
-            </th>
-            <th scope="col" className={th}>
-              To
-            </th>
-            <th scope="col" className={th}>
-              Subject
-            </th>
-            <th scope="col" className={th}>
-              Status
-            </th>
-            <th scope="col" className={cn(th, 'text-right')}>
-              Attempts
-            </th>
-            <th scope="col" className={th}>
-              Last error
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((row) => {
-            const look = statusLook[row.status];
-            const Icon = look.icon;
-            return (
-              <tr key={row.id} className="border-b border-line last:border-0">
-                <td className={cn(td, 'whitespace-nowrap text-ink-soft')}>
-                  <When iso={row.createdAt} />
-                </td>
-                <td className={td}>{row.toAddress}</td>
-                <td className={td}>{row.subject}</td>
-                <td className={cn(td, 'whitespace-nowrap')}>
-                  <span className={cn('inline-flex items-center gap-1.5 font-medium', look.tone)}>
-                    <Icon aria-hidden className="h-4 w-4" />
-                    {look.word}
-                  </span>
-                  {row.sentAt ? (
-                    <span className="block text-xs text-ink-faint">
-                      <When iso={row.sentAt} />
-                    </span>
-                  ) : null}
-                </td>
-                <td className={cn(td, 'text-right tabular-nums')}>{row.attempts}</td>
-                <td className={cn(td, 'max-w-[24rem] text-xs text-ink-soft')}>
-                  {row.lastError ? (
-                    <span className="line-clamp-3 break-words font-mono">{row.lastError}</span>
-                  ) : (
-                    <span className="text-ink-faint">—</span>
-                  )}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
-  );
+  return <DataTable table={table} caption="Outbox" phoneCards />;
 }

@@ -1,23 +1,27 @@
 'use client';
 
+import {
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from '@tanstack/react-table';
 import { UserCheck, UserX } from 'lucide-react';
 import { useState } from 'react';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { byText, DataTable } from '@/components/ui/data-table';
 import { Select } from '@/components/ui/field';
 import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
-import { cn } from '@/lib/cn';
 import type { Member } from '@/lib/members/types';
 import type { Role } from '@/lib/domain';
 
 import { useUpdateMember } from '../api/use-members';
 import { ROLE_CHOICES, roleLabel } from '../utils/roles';
-
-const th = 'h-11 px-4 text-left text-xs font-semibold tracking-wide whitespace-nowrap text-ink-soft uppercase';
-const td = 'h-14 px-4 align-middle text-sm text-ink';
 
 type MembersTableProps = {
   members: Member[];
@@ -25,11 +29,12 @@ type MembersTableProps = {
   currentUserId: string;
 };
 
-/** The organisation's members: change a role, deactivate or reactivate. */
+/** The organisation's members: change a role, deactivate or reactivate; a card per member on a phone. */
 export function MembersTable({ members, currentUserId }: MembersTableProps) {
   const update = useUpdateMember();
   const [deactivating, setDeactivating] = useState<Member | null>(null);
   const [confirmError, setConfirmError] = useState<string | null>(null);
+  const [sorting, setSorting] = useState<SortingState>([]);
   const busyId = update.isPending ? update.variables?.userId : undefined;
 
   async function changeRole(member: Member, role: Role) {
@@ -62,110 +67,97 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
     }
   }
 
+  const columns: ColumnDef<Member>[] = [
+    nameColumn((m) =>
+      m.id === currentUserId ? <span className="ml-2 text-xs font-normal text-ink-faint">(you)</span> : null,
+    ),
+    emailColumn,
+    {
+      id: 'role',
+      accessorFn: (m) => roleLabel(m.role),
+      header: 'Role',
+      sortingFn: byText,
+      cell: ({ row: { original: member } }) =>
+        member.id === currentUserId ? (
+          roleLabel(member.role)
+        ) : (
+          <Select
+            aria-label={`Role of ${member.name}`}
+            className="h-9 w-40"
+            value={member.role}
+            disabled={busyId === member.id || !member.active}
+            onChange={(event) => void changeRole(member, event.target.value as Role)}
+          >
+            {ROLE_CHOICES.map((r) => (
+              <option key={r.value} value={r.value}>
+                {r.label}
+              </option>
+            ))}
+          </Select>
+        ),
+    },
+    {
+      id: 'access',
+      accessorFn: (m) => (m.active ? 'Active' : 'Deactivated'),
+      header: 'Access',
+      meta: { card: 'badge' },
+      cell: ({ row: { original: member } }) =>
+        member.active ? (
+          <span className="inline-flex items-center gap-1.5 text-sm text-verdict-pass">
+            <UserCheck aria-hidden className="h-4 w-4" /> Active
+          </span>
+        ) : (
+          <span className="inline-flex items-center gap-1.5 text-sm text-ink-soft">
+            <UserX aria-hidden className="h-4 w-4" /> Deactivated
+          </span>
+        ),
+    },
+    sinceColumn('Member since'),
+    {
+      id: 'actions',
+      header: () => <span className="sr-only">Actions</span>,
+      enableSorting: false,
+      meta: { align: 'right', card: 'actions' },
+      cell: ({ row: { original: member } }) => {
+        const busy = busyId === member.id;
+        if (member.id === currentUserId) return null;
+        return member.active ? (
+          <Button
+            variant="quiet"
+            size="sm"
+            disabled={busy}
+            onClick={() => setDeactivating(member)}
+            aria-label={`Deactivate ${member.name}`}
+            className="hover:text-verdict-fail"
+          >
+            Deactivate
+          </Button>
+        ) : (
+          <Button
+            variant="secondary"
+            size="sm"
+            disabled={busy}
+            onClick={() => void reactivate(member)}
+            aria-label={`Reactivate ${member.name}`}
+          >
+            Reactivate
+          </Button>
+        );
+      },
+    },
+  ];
+  const table = useReactTable({
+    data: members,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
+
   return (
     <>
-      <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
-        <table className="w-full border-collapse">
-          <caption className="sr-only">Members</caption>
-          <thead className="bg-paper-sunk/60">
-            <tr className="border-b border-line">
-              <th scope="col" className={th}>
-                Name
-              </th>
-              <th scope="col" className={th}>
-                E-mail
-              </th>
-              <th scope="col" className={th}>
-                Role
-              </th>
-              <th scope="col" className={th}>
-                Access
-              </th>
-              <th scope="col" className={th}>
-                Member since
-              </th>
-              <th scope="col" className={cn(th, 'text-right')}>
-                <span className="sr-only">Actions</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {members.map((member) => {
-              const self = member.id === currentUserId;
-              const busy = busyId === member.id;
-              return (
-                <tr
-                  key={member.id}
-                  className={cn('border-b border-line last:border-0', !member.active && 'bg-paper/60')}
-                >
-                  <td className={cn(td, 'font-medium')}>
-                    {member.name}
-                    {self ? <span className="ml-2 text-xs font-normal text-ink-faint">(you)</span> : null}
-                  </td>
-                  <td className={cn(td, 'text-ink-soft')}>{member.email}</td>
-                  <td className={td}>
-                    {self ? (
-                      roleLabel(member.role)
-                    ) : (
-                      <Select
-                        aria-label={`Role of ${member.name}`}
-                        className="h-9 w-40"
-                        value={member.role}
-                        disabled={busy || !member.active}
-                        onChange={(event) => void changeRole(member, event.target.value as Role)}
-                      >
-                        {ROLE_CHOICES.map((r) => (
-                          <option key={r.value} value={r.value}>
-                            {r.label}
-                          </option>
-                        ))}
-                      </Select>
-                    )}
-                  </td>
-                  <td className={td}>
-                    {member.active ? (
-                      <span className="inline-flex items-center gap-1.5 text-verdict-pass">
-                        <UserCheck aria-hidden className="h-4 w-4" /> Active
-                      </span>
-                    ) : (
-                      <span className="inline-flex items-center gap-1.5 text-ink-soft">
-                        <UserX aria-hidden className="h-4 w-4" /> Deactivated
-                      </span>
-                    )}
-                  </td>
-                  <td className={cn(td, 'text-ink-soft')}>
-                    <When iso={member.createdAt} />
-                  </td>
-                  <td className={cn(td, 'text-right')}>
-                    {self ? null : member.active ? (
-                      <Button
-                        variant="quiet"
-                        size="sm"
-                        disabled={busy}
-                        onClick={() => setDeactivating(member)}
-                        aria-label={`Deactivate ${member.name}`}
-                        className="hover:text-verdict-fail"
-                      >
-                        Deactivate
-                      </Button>
-                    ) : (
-                      <Button
-                        variant="secondary"
-                        size="sm"
-                        disabled={busy}
-                        onClick={() => void reactivate(member)}
-                        aria-label={`Reactivate ${member.name}`}
-                      >
-                        Reactivate
-                      </Button>
-                    )}
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <DataTable table={table} caption="Members" phoneCards />
       <ConfirmDialog
         open={deactivating !== null}
         title="Deactivate this member?"
@@ -187,41 +179,62 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
   );
 }
 
-/** Invitations sent but not yet taken up. */
+/** Invitations sent but not yet taken up; a card per invitation on a phone. */
 export function PendingInvitations({ invitations }: { invitations: Member[] }) {
-  return (
-    <div className="relative overflow-x-auto rounded-card border border-line bg-paper-raised">
-      <table className="w-full border-collapse">
-        <caption className="sr-only">Invitations waiting to be accepted</caption>
-        <thead className="bg-paper-sunk/60">
-          <tr className="border-b border-line">
-            <th scope="col" className={th}>
-              Name
-            </th>
-            <th scope="col" className={th}>
-              E-mail
-            </th>
-            <th scope="col" className={th}>
-              Role
-            </th>
-            <th scope="col" className={th}>
-              Invited
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {invitations.map((invitation) => (
-            <tr key={invitation.id} className="border-b border-line last:border-0">
-              <td className={cn(td, 'font-medium')}>{invitation.name}</td>
-              <td className={cn(td, 'text-ink-soft')}>{invitation.email}</td>
-              <td className={td}>{roleLabel(invitation.role)}</td>
-              <td className={cn(td, 'text-ink-soft')}>
-                <When iso={invitation.createdAt} />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
-  );
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const table = useReactTable({
+    data: invitations,
+    columns: [
+      nameColumn(() => null),
+      emailColumn,
+      { id: 'role', accessorFn: (m) => roleLabel(m.role), header: 'Role', sortingFn: byText },
+      sinceColumn('Invited'),
+    ],
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
+  return <DataTable table={table} caption="Invitations waiting to be accepted" phoneCards />;
+}
+
+/** The person's name (the card's title), with what `after` adds beside it. */
+function nameColumn(after: (m: Member) => React.ReactNode): ColumnDef<Member> {
+  return {
+    id: 'name',
+    accessorKey: 'name',
+    header: 'Name',
+    sortingFn: byText,
+    meta: { card: 'title' },
+    cell: ({ row: { original: m } }) => (
+      <span className="font-medium">
+        {m.name}
+        {after(m)}
+      </span>
+    ),
+  };
+}
+
+const emailColumn: ColumnDef<Member> = {
+  id: 'email',
+  accessorKey: 'email',
+  header: 'E-mail',
+  sortingFn: byText,
+  meta: { card: 'sub' },
+  cell: ({ getValue }) => <span className="break-all text-ink-soft">{getValue<string>()}</span>,
+};
+
+/** When the member joined or was invited (`createdAt`), newest first when sorted. */
+function sinceColumn(header: string): ColumnDef<Member> {
+  return {
+    id: 'createdAt',
+    accessorKey: 'createdAt',
+    header,
+    sortDescFirst: true,
+    cell: ({ row }) => (
+      <span className="text-ink-soft">
+        <When iso={row.original.createdAt} />
+      </span>
+    ),
+  };
 }
