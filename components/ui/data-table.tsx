@@ -191,11 +191,13 @@ function RowCards<T>({
         const cells = row.getVisibleCells();
         const place = (where: string) => cells.filter((c) => (c.column.columnDef.meta?.card ?? 'field') === where);
         const render = (c: (typeof cells)[number]) => flexRender(c.column.columnDef.cell, c.getContext());
-        // A line under the title of what the row has: an empty value leaves no "· —" behind
-        const subs = place('sub').filter((c) => {
+        // A card shows what the row has: an empty value leaves no "· —" under the title, nor a
+        // named field with a dash
+        const filled = (c: (typeof cells)[number]) => {
           const value = c.getValue();
           return value !== '' && value !== null && value !== undefined;
-        });
+        };
+        const subs = place('sub').filter(filled);
         return (
           <li key={row.id} className="rounded-card border border-line bg-paper-raised p-3">
             <div className="flex items-start justify-between gap-3">
@@ -221,15 +223,17 @@ function RowCards<T>({
               </p>
             ) : null}
             <dl className="mt-2 flex flex-wrap gap-x-4 gap-y-1 text-sm">
-              {place('field').map((c) => {
-                const header = c.column.columnDef.header;
-                return (
-                  <div key={c.id} className="flex items-baseline gap-1.5">
-                    <dt className="text-xs text-ink-soft">{typeof header === 'string' ? header : c.column.id}</dt>
-                    <dd className="text-ink tabular-nums">{render(c)}</dd>
-                  </div>
-                );
-              })}
+              {place('field')
+                .filter(filled)
+                .map((c) => {
+                  const header = c.column.columnDef.header;
+                  return (
+                    <div key={c.id} className="flex items-baseline gap-1.5">
+                      <dt className="text-xs text-ink-soft">{typeof header === 'string' ? header : c.column.id}</dt>
+                      <dd className="text-ink tabular-nums">{render(c)}</dd>
+                    </div>
+                  );
+                })}
             </dl>
             {place('actions').map((c) => (
               <div key={c.id} className="mt-2 flex justify-end">

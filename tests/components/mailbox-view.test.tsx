@@ -24,6 +24,16 @@ describe('MailboxView', () => {
             createdAt: '2025-03-01T09:00:00.000Z',
             sentAt: null,
           },
+          {
+            id: 'm2',
+            toAddress: 'dana@example.test',
+            subject: 'Review wanted: Workshop DB1',
+            status: 'sent',
+            attempts: 1,
+            lastError: null,
+            createdAt: '2025-03-01T08:00:00.000Z',
+            sentAt: '2025-03-01T08:00:05.000Z',
+          },
         ],
         caught: [
           {
@@ -50,10 +60,14 @@ describe('MailboxView', () => {
     // Queued with its date and time, in the app's one format
     expect(row.querySelector('time')?.textContent).toMatch(/^1 Mar 2025, \d{2}:\d{2}$/);
     // On a phone, a card: the subject on top, the status beside it, the address under it
-    const [card] = within(screen.getByRole('list', { name: 'Outbox' })).getAllByRole('listitem');
+    const [card, sent] = within(screen.getByRole('list', { name: 'Outbox' })).getAllByRole('listitem');
     expect(card.firstElementChild!.textContent).toBe('You are invited to Oakley Electrical on BoardwrightWaiting');
     expect(card.textContent).toContain('sam@example.test');
     expect(within(card).getByText('Attempts').nextElementSibling?.textContent).toBe('3');
+    expect(within(card).getByText('Last error')).toBeTruthy();
+    // A message sent without an error: its card names no empty field
+    expect(within(sent).queryByText('Last error')).toBeNull();
+    expect(sent.textContent).not.toContain('—');
     expect(screen.getByText('Board schedule: Workshop DB1')).toBeTruthy();
     expect(screen.getByText(/workshop-db1\.pdf/)).toBeTruthy();
     expect(screen.getByText(/1 item\(s\) were not in the expected shape/)).toBeTruthy();
