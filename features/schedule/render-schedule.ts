@@ -5,10 +5,10 @@ import type { ScheduleSource } from '@/lib/dal/schedule-source';
 
 import { LabelStripsDocument } from './components/label-strips-document';
 import { ScheduleDocument } from './components/schedule-document';
-import { buildLabelSheet } from './utils/build-labels';
+import { buildLabelSheet, fitLabelTexts } from './utils/build-labels';
 import { buildSchedule } from './utils/build-schedule';
 import { fitScheduleHeader } from './utils/fit-header';
-import { printFontMeasure, registerPrintFonts } from './utils/fonts';
+import { printFontMeasure } from './utils/fonts';
 import { paginateSchedule } from './utils/paginate-schedule';
 import { boardQrCode } from './utils/qr-code';
 
@@ -32,8 +32,7 @@ export async function renderSchedulePdf(source: ScheduleSource, now = new Date()
 
 /** The label strips PDF of a board state, drawn to the module pitch. */
 export async function renderLabelStripsPdf(source: ScheduleSource): Promise<RenderedPdf> {
-  registerPrintFonts();
-  const sheet = buildLabelSheet(source);
+  const sheet = fitLabelTexts(buildLabelSheet(source), await printFontMeasure());
   const element = createElement(LabelStripsDocument, { sheet }) as unknown as ReactElement<DocumentProps>;
   const buffer = await renderToBuffer(element);
   return { pdf: new Uint8Array(buffer), fileName: sheet.fileName };

@@ -1,14 +1,8 @@
 import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 
-import { JOIN_MARK_MM, MODULE_PITCH_MM, type LabelSheet } from '../utils/build-labels';
+import { JOIN_MARK_MM, LABEL, MM, MODULE_PITCH_MM, type LabelSheet } from '../utils/build-labels';
 import { PRINT_FONT } from '../utils/fonts';
 import { PRINT_INK } from '../utils/print-palette';
-
-/** Points per millimetre (72 pt to the inch). */
-const MM = 72 / 25.4;
-
-/** Height of a label, mm. */
-const LABEL_HEIGHT_MM = 14;
 
 const styles = StyleSheet.create({
   page: { fontFamily: PRINT_FONT, color: PRINT_INK, padding: 10 * MM, fontSize: 7 },
@@ -18,22 +12,23 @@ const styles = StyleSheet.create({
   scaleBar: { width: 50 * MM, height: 4, backgroundColor: '#1f2a37', marginRight: 6 },
   railTitle: { fontSize: 8, fontWeight: 700, marginTop: 8, marginBottom: 3 },
   strip: { flexDirection: 'row', marginBottom: 5 },
+  // The text between the number and the device is fitted to this box beforehand (`fitLabelTexts`)
   cell: {
-    height: LABEL_HEIGHT_MM * MM,
-    borderWidth: 0.6,
+    height: LABEL.heightMm * MM,
+    borderWidth: LABEL.border,
     borderStyle: 'dashed',
     borderColor: '#6b7580',
-    paddingHorizontal: 2,
-    paddingVertical: 1.5,
+    paddingHorizontal: LABEL.padX,
+    paddingVertical: LABEL.padY,
     justifyContent: 'space-between',
   },
-  ref: { fontSize: 9, fontWeight: 700, textAlign: 'center' },
-  text: { fontSize: 5.6, textAlign: 'center' },
-  device: { fontSize: 4.8, textAlign: 'center', color: '#4b5563' },
+  ref: { fontSize: LABEL.refSize, fontWeight: 700, textAlign: 'center' },
+  text: { textAlign: 'center' },
+  device: { fontSize: LABEL.deviceSize, textAlign: 'center', color: '#4b5563' },
   draft: { color: '#b3261e', fontWeight: 700, fontSize: 8, marginTop: 3 },
   join: {
     width: JOIN_MARK_MM * MM,
-    height: LABEL_HEIGHT_MM * MM,
+    height: LABEL.heightMm * MM,
     backgroundColor: '#f3e2d3',
     justifyContent: 'center',
     alignItems: 'center',
@@ -87,7 +82,7 @@ export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
                 {strip.cells.map((cell) => (
                   <View key={cell.wayId} style={[styles.cell, { width: cell.modules * MODULE_PITCH_MM * MM }]}>
                     <Text style={styles.ref}>{cell.ref ?? ' '}</Text>
-                    <Text style={styles.text}>{cell.text}</Text>
+                    <Text style={[styles.text, { fontSize: cell.textSize }]}>{cell.text}</Text>
                     <Text style={styles.device}>{cell.device}</Text>
                   </View>
                 ))}

@@ -52,9 +52,10 @@ const etagOf = (key: string) => `"${crypto.createHash('sha256').update(key).dige
  * prints or how (a fix in the PDF's wording, figures or layout), so that the files stored for
  * issued revisions are rendered again with it instead of being served as they were. 2: the carried
  * volt drop limit to two decimals, "Vd used above", "(continued)" once. 3: long names fitted to
- * the header and footer (utils/fit-header.ts).
+ * the header and footer (utils/fit-header.ts). 4: a label's text fitted between its number and its
+ * device (`fitLabelTexts`).
  */
-export const PRINT_LAYOUT = 3;
+export const PRINT_LAYOUT = 4;
 
 /**
  * Where an issued revision's PDF is stored. The revision itself never changes (its row cannot be

@@ -9,6 +9,10 @@ import { labelTextOf } from '@/lib/boards/revision-diff';
 import { deviceName } from '@/lib/names';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 
+import { shortenToFit } from './fit-header';
+import type { TextMeasure } from './fonts';
+import { countLines, PAGE } from './paginate-schedule';
+
 /** The common DIN-rail module pitch, mm (one 1-pole MCB is 17.5 mm wide: common practice, EN 60715 rail). */
 export const MODULE_PITCH_MM = 17.5;
 
@@ -21,10 +25,27 @@ export const JOIN_MARK_MM = 6;
 /** Modules that fit on one printed piece of a strip, with room for a join mark at each end. */
 export const MODULES_PER_STRIP = Math.floor((STRIP_WIDTH_MM - 2 * JOIN_MARK_MM) / MODULE_PITCH_MM);
 
+/** A label's geometry and type sizes, shared with the PDF document, points unless named. */
+export const LABEL = {
+  heightMm: 14,
+  padX: 2,
+  padY: 1.5,
+  border: 0.6,
+  refSize: 9,
+  /** What the way serves: its sizes, largest first (the first at which it fits is used). */
+  textSizes: [5.6, 5, 4.5],
+  deviceSize: 4.8,
+} as const;
+
+/** Points per millimetre (72 pt to the inch). */
+export const MM = 72 / 25.4;
+
 export type LabelCell = {
   wayId: string;
   ref: string | null;
   text: string;
+  /** The size the text is printed at, points (`fitLabelTexts`). */
+  textSize: number;
   device: string;
   modules: number;
 };
@@ -80,7 +101,16 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
         .flatMap((way) => {
           const skipped = places.get(way.id)?.skippedBefore ?? 0;
           const gap: LabelCell[] = skipped
-            ? [{ wayId: `${way.id}:gap`, ref: null, text: '', device: '', modules: skipped }]
+            ? [
+                {
+                  wayId: `${way.id}:gap`,
+                  ref: null,
+                  text: '',
+                  textSize: LABEL.textSizes[0],
+                  device: '',
+                  modules: skipped,
+                },
+              ]
             : [];
           return [
             ...gap,
@@ -88,6 +118,7 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
               wayId: way.id,
               ref: places.get(way.id)?.label ?? null,
               text: labelTextOf(way),
+              textSize: LABEL.textSizes[0],
               device: way.device.kind === 'blank' ? '' : deviceName(way.device),
               modules: Math.max(1, way.device.modules),
             },
@@ -108,5 +139,29 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
       }
       return { rail, modules: moduleAt, strips };
     }),
+  };
+}
+
+/**
+ * The labels' texts fitted to their labels with the print font's measure: a long text steps
+ * down in size (to 4.5 pt) to fit between the way's number and the device, and what still does
+ * not fit ends in "…", rather than running over the device's name or out of the label.
+ */
+export function fitLabelTexts(sheet: LabelSheet, measure: TextMeasure): LabelSheet {
+  const line = PAGE.lineHeight / PAGE.fontSize;
+  const room = LABEL.heightMm * MM - 2 * (LABEL.padY + LABEL.border) - line * (LABEL.refSize + LABEL.deviceSize);
+  const fit = (cell: LabelCell): LabelCell => {
+    const width = cell.modules * MODULE_PITCH_MM * MM - 2 * (LABEL.padX + LABEL.border);
+    const box = (size: number) => ({ width, lines: Math.max(1, Math.floor(room / (line * size))), size });
+    const fits = (size: number) => countLines(cell.text, width, measure, size) <= box(size).lines;
+    const size = LABEL.textSizes.find(fits) ?? LABEL.textSizes.at(-1)!;
+    return { ...cell, textSize: size, text: shortenToFit(cell.text, '', box(size), measure) };
+  };
+  return {
+    ...sheet,
+    rails: sheet.rails.map((rail) => ({
+      ...rail,
+      strips: rail.strips.map((strip) => ({ ...strip, cells: strip.cells.map(fit) })),
+    })),
   };
 }

@@ -1,6 +1,15 @@
 import { describe, expect, it } from 'vitest';
 
-import { buildLabelSheet, JOIN_MARK_MM, MODULE_PITCH_MM } from '@/features/schedule/utils/build-labels';
+import {
+  buildLabelSheet,
+  fitLabelTexts,
+  JOIN_MARK_MM,
+  LABEL,
+  MM,
+  MODULE_PITCH_MM,
+} from '@/features/schedule/utils/build-labels';
+import { printFontMeasure } from '@/features/schedule/utils/fonts';
+import { countLines, PAGE } from '@/features/schedule/utils/paginate-schedule';
 import type { SnapshotWay } from '@/lib/boards/revision-diff';
 import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { demoWays, FLAT_BOARD } from '@/scripts/demo-data';
@@ -139,5 +148,42 @@ describe('label strips', () => {
     expect(cells[2]).toMatchObject({ text: '', device: '' });
     // The strip is as long as the rail is drawn: 4 + 1 + 2 + 3 modules
     expect(sheet.rails[0].modules).toBe(10);
+  });
+
+  it('a long text steps down in size, then is cut with an ellipsis, to fit between the number and the device', async () => {
+    const measure = await printFontMeasure();
+    const serves = (text: string) => ({
+      phases: 1 as const,
+      cable: 'te-70' as const,
+      method: 'C' as const,
+      ambientC: 30,
+      insulationMm: 0,
+      csaMm2: null,
+      serves: text,
+      use: 'lighting' as const,
+      load: { kind: 'known' as const, watts: 300, powerFactor: 1 },
+      lengthM: 10,
+    });
+    const texts = [
+      'Lights',
+      'Sockets: office and mess room (radial) and kitchen',
+      'Lighting: machine shop north bay, office corridor, stair and the store room beside the yard door',
+    ];
+    const ways = texts.map((t, i) => ({ id: `w${i}`, rail: 0, position: i, device: device(1), circuit: serves(t) }));
+    const cells = fitLabelTexts(buildLabelSheet(source(ways as SnapshotWay[])), measure).rails[0].strips[0].cells;
+    // A short text at the full size, whole
+    expect(cells[0]).toMatchObject({ text: 'Lights', textSize: 5.6 });
+    // Each text in the room its label has (14 mm less the padding, the number and the device), so
+    // that it never runs over the device's name
+    const line = PAGE.lineHeight / PAGE.fontSize;
+    const room = LABEL.heightMm * MM - 2 * (LABEL.padY + LABEL.border) - line * (LABEL.refSize + LABEL.deviceSize);
+    const width = MODULE_PITCH_MM * MM - 2 * (LABEL.padX + LABEL.border);
+    for (const c of cells)
+      expect(countLines(c.text, width, measure, c.textSize) * line * c.textSize).toBeLessThanOrEqual(room);
+    // A longer one smaller but whole; the longest at the smallest size, cut
+    expect(cells[1].textSize).toBeLessThan(5.6);
+    expect(cells[1].text).toBe(texts[1]);
+    expect(cells[2].textSize).toBe(4.5);
+    expect(cells[2].text).toMatch(/^Lighting: machine shop .*…$/);
   });
 });

@@ -25,7 +25,7 @@ const PRINT_SOURCES = [
 ];
 
 /** The print code's fingerprint, recorded with the layout it was reviewed at. */
-const REVIEWED = { layout: 3, sha256: '78f3329f70c92997586a0468230e243b32c1ffbe0aa4232787c78ae94cc1f4a3' };
+const REVIEWED = { layout: 4, sha256: '023cda4861d79649a4c6124b202c52baf53fc23b0cde70705837dcbd41046a13' };
 
 function fingerprint(): string {
   const hash = crypto.createHash('sha256');
