@@ -1,5 +1,5 @@
 import type { CommentDto, ReviewData } from '@/lib/boards/review-types';
-import { deviceName, loadTypeName } from '@/lib/names';
+import { deviceName, loadTypeName, vdLimitText } from '@/lib/names';
 import type { BoardResult, BoardSummary, CircuitResult, Verdict } from '@/lib/sizing';
 
 /** A way's checks as the review page shows them when the way is opened. */
@@ -20,7 +20,7 @@ export type ReviewWayRow = {
   /** The circuit's kind of load, in words; null when the way has no circuit. */
   loadType: string | null;
   device: string;
-  /** Ib A, mm², Iz A, volt drop %, Zs Ω with its maximum in brackets ('—' where there is none). */
+  /** Ib A, mm², Iz A, volt drop % and Zs Ω each with its limit in brackets ('—' where there is none). */
   figures: [string, string, string, string, string];
   /** Whether the way has a sizing (a circuit the engine sized), so checks to open. */
   sized: boolean;
@@ -40,11 +40,22 @@ type ReviewSummarySource = Omit<ReviewSummary, 'failing'> & { checks: { ok: bool
 /** The parts of a way's sizing the review page's table shows (its checks load when the way is opened). */
 export type ReviewWayResult = Pick<
   CircuitResult,
-  'ibA' | 'inA' | 'csaMm2' | 'izA' | 'vdPct' | 'zsOhm' | 'zsMaxOhm' | 'verdict'
+  'ibA' | 'inA' | 'csaMm2' | 'izA' | 'vdPct' | 'vdLimitPct' | 'zsOhm' | 'zsMaxOhm' | 'verdict'
 >;
 
+/**
+ * The shape of the stored cut (`board_sizings.review`): a stored cut of another shape is not
+ * current, so the board is sized again and its cut stored by its first read
+ * (lib/dal/board-repository.ts `CURRENT_SIZING`). 2: each way's volt drop limit.
+ */
+export const REVIEW_CUT = 2;
+
 /** A board's sizing cut to what the review page shows: the engine's whole answer is one too. */
-export type ReviewSizing = { ways: { id: string; result: ReviewWayResult | null }[]; summary: ReviewSummarySource };
+export type ReviewSizing = {
+  cut?: number;
+  ways: { id: string; result: ReviewWayResult | null }[];
+  summary: ReviewSummarySource;
+};
 
 /** What the review page is made from: the review, its sizing whole or cut to what the page shows. */
 export type ReviewSource = Omit<ReviewData, 'sizing'> & { sizing: ReviewSizing | null };
@@ -59,6 +70,7 @@ export type ReviewPageData = Omit<ReviewData, 'sizing'> & { summary: ReviewSumma
 export function reviewSizingOf(sizing: Pick<BoardResult, 'ways' | 'summary'>): ReviewSizing {
   const { connectedLoadW, maxDemandA, counts, incomingCheck, checks } = sizing.summary;
   return {
+    cut: REVIEW_CUT,
     summary: {
       connectedLoadW,
       maxDemandA,
@@ -74,6 +86,7 @@ export function reviewSizingOf(sizing: Pick<BoardResult, 'ways' | 'summary'>): R
         csaMm2: r.csaMm2,
         izA: r.izA,
         vdPct: r.vdPct,
+        vdLimitPct: r.vdLimitPct,
         zsOhm: r.zsOhm,
         zsMaxOhm: r.zsMaxOhm,
         verdict: r.verdict,
@@ -106,7 +119,8 @@ export function reviewPageData(data: ReviewSource): ReviewPageData {
         fmt(r?.ibA, 1),
         r?.csaMm2 === undefined || r?.csaMm2 === null ? '—' : String(r.csaMm2),
         fmt(r?.izA, 1),
-        fmt(r?.vdPct, 2),
+        // The limit of a board fed from another is what the sub-mains above left of the origin's
+        r ? `${fmt(r.vdPct, 2)} (${vdLimitText(r.vdLimitPct)})` : '—',
         r ? `${fmt(r.zsOhm, 2)} (${fmt(r.zsMaxOhm, 2)})` : '—',
       ],
       sized: !!r,

@@ -27,7 +27,7 @@ import { notFound, type FieldIssue } from '@/lib/errors';
 import { ENGINE_REVISION, type BoardResult } from '@/lib/sizing';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
-import { reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
+import { REVIEW_CUT, reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
 import type { ArchiveState, CommentDto } from '@/lib/boards/review-types';
 import type { TreeBoard } from '@/lib/supply/size-tree';
 import { Board, Way } from '@/models';
@@ -236,11 +236,12 @@ const ENGINE_SETTINGS = new Set([
 /**
  * The stored sizing of the board's current version (`s` joined to `b`), stored whole by this
  * engine with the review page's cut of it: a row left `pending` by a change upstream (migration
- * 0013), made by another revision of the engine (migration 0014) or stored without its cut
- * (migration 0015) is sized again and stored by its first read.
+ * 0013), made by another revision of the engine (migration 0014) or stored without its cut of
+ * this shape (migration 0015, `REVIEW_CUT`) is sized again and stored by its first read.
  */
+const CURRENT_CUT = `(s.review->>'cut')::int IS NOT DISTINCT FROM ${REVIEW_CUT}`;
 const CURRENT_SIZING = `s.board_id = b.id AND s.version = b.version AND NOT s.pending AND s.engine = ${ENGINE_REVISION}
-  AND (s.review IS NOT NULL OR s.sizing IS NULL)`;
+  AND (${CURRENT_CUT} OR s.sizing IS NULL)`;
 
 /** The SHA-256 of a sizing's JSON text, hex (stored beside it: `sizing_sha256`, migration 0013). */
 export const sizingHash = (json: string | null): string | null =>
@@ -638,7 +639,7 @@ export async function siteHasSubMains(siteId: string, transaction?: Transaction)
 /** What was stored for board `b`, with `sizing` as its sizing. */
 const storedJson = (sizing: string) => `(SELECT json_build_object('version', s.version, 'sizing', ${sizing},
     'carried', s.carried, 'outcome', s.outcome, 'sha', encode(s.sizing_sha256, 'hex'), 'pending', s.pending,
-    'review', s.review IS NOT NULL)
+    'review', ${CURRENT_CUT})
   FROM board_sizings s WHERE s.board_id = b.id)`;
 /** Whole (its sizing), or only its outcome (the sizing only for a row without one). */
 const STORED_SIZING_JSON = storedJson('s.sizing');

@@ -263,6 +263,13 @@ describe('the review page’s read (getReviewSource)', () => {
     expect(reviewPageData(await getReviewSource(actor, board.id))).toEqual(reviewPageData(stored));
     expect((await rowOf()).review).toEqual(review);
     expect(await getReviewSource(actor, board.id)).toEqual(stored);
+    // A cut of an older shape (without each way's volt drop limit: before REVIEW_CUT 2) is not
+    // current either
+    const { cut: _cut, ...older } = review!;
+    const noLimits = older.ways.map((w) => ({ ...w, result: w.result && { ...w.result, vdLimitPct: undefined } }));
+    await setReview({ ...older, ways: noLimits } as ReviewSizing);
+    expect(reviewPageData(await getReviewSource(actor, board.id))).toEqual(reviewPageData(stored));
+    expect((await rowOf()).review).toEqual(review);
     // The page shows the stored cut, not one made again from the whole sizing
     await setReview({ ...review!, summary: { ...review!.summary, maxDemandA: 12345 } });
     expect((await getReviewSource(actor, board.id)).sizing!.summary.maxDemandA).toBe(12345);

@@ -5,7 +5,7 @@ import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
-import { reviewSizingOf } from '@/lib/boards/review-page-data';
+import { REVIEW_CUT, reviewSizingOf } from '@/lib/boards/review-page-data';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { readTreeBoards } from '@/lib/dal/board-repository';
@@ -263,6 +263,17 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
       expect(row.pending, id).toBe(false);
       expect(row.review, id).toEqual(reviewSizingOf(row.sizing!));
     }
+  });
+
+  it('the same origin again writes whole a row stored with a cut of an older shape (REVIEW_CUT)', async () => {
+    const { t, putOrigin } = await storedAtOneOrigin();
+    await db().query(`UPDATE board_sizings SET review = review - 'cut' WHERE board_id = $1`, { bind: [t.id('fin')] });
+    const writes = await writesDuring(putOrigin);
+    expect(verbs(writes)).toEqual(['INSERT INTO', 'UPDATE board_sizings']);
+    expect(sizingsSent(writes)).toHaveLength(1);
+    const row = await sizingRow(t.id('fin'));
+    expect(row.review).toEqual(reviewSizingOf(row.sizing!));
+    expect(row.review!.cut).toBe(REVIEW_CUT);
   });
 
   it('another origin: no sizing is sent; each changed one is left pending, then stored whole by a read', async () => {

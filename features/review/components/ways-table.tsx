@@ -14,7 +14,7 @@ import { useInBrowser } from '../hooks/use-in-browser';
 import { CommentThread } from './comment-thread';
 import { CommentForm } from './review-islands';
 
-const NUMBER_HEADINGS = ['Ib A', 'mm²', 'Iz A', 'Volt drop %', 'Zs Ω (max)'];
+const NUMBER_HEADINGS = ['Ib A', 'mm²', 'Iz A', 'Volt drop % (max)', 'Zs Ω (max)'];
 
 /** A way's checks, loaded when the way is opened. */
 function Checks({ boardId, wayId }: { boardId: string; wayId: string }) {

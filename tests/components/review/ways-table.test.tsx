@@ -18,7 +18,7 @@ const rows: ReviewWayRow[] = [
     serves: 'Bench sockets',
     loadType: 'Socket outlets',
     device: 'RCBO B20',
-    figures: ['14.2', '2.5', '27.0', '1.84', '0.61 (2.19)'],
+    figures: ['14.2', '2.5', '27.0', '1.84 (2.63)', '0.61 (2.19)'],
     sized: true,
     verdict: 'passes',
     comments: [

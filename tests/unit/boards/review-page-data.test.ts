@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 
-import { reviewPageData, wayChecksOf } from '@/lib/boards/review-page-data';
+import { reviewPageData, reviewSizingOf, wayChecksOf } from '@/lib/boards/review-page-data';
 import type { ReviewData } from '@/lib/boards/review-types';
 import { boardInputSchema, sizeBoard } from '@/lib/sizing';
 
@@ -70,7 +70,8 @@ describe('reviewPageData: the review cut to the rows and summary the page shows'
         full.ibA.toFixed(1),
         String(full.csaMm2),
         full.izA!.toFixed(1),
-        full.vdPct!.toFixed(2),
+        // A board fed from the origin: the limit as the engine set it, whole (3 % for lighting)
+        `${full.vdPct!.toFixed(2)} (${full.vdLimitPct})`,
         `${full.zsOhm!.toFixed(2)} (${full.zsMaxOhm!.toFixed(2)})`,
       ],
     });
@@ -96,6 +97,23 @@ describe('reviewPageData: the review cut to the rows and summary the page shows'
     const messages = failing.summary.checks.filter((c) => !c.ok).map((c) => c.message);
     expect(messages).toHaveLength(2);
     expect(reviewPageData({ ...review, sizing: failing }).summary!.failing).toEqual(messages);
+  });
+
+  it('gives a board fed from another the volt drop limit its sub-mains left, to two decimals', () => {
+    // Sub-mains above that used 0.803 % leave a lighting circuit 3 − 0.803 = 2.197 % of the
+    // origin's 3 % (BS 7671:2018 Appendix 4 Table 4Ab: 3 % lighting, 5 % other uses)
+    const fed = sizeBoard(
+      boardInputSchema.parse({
+        supply: { ...FLAT_SUPPLY, vdUsedPct: 0.803 },
+        phases: 1,
+        enclosureModules: 12,
+        dwelling: true,
+        incoming: { kind: 'main-switch', ratingA: 100, busbarRatingA: 100 },
+        ways,
+      }),
+    );
+    const lights = reviewPageData({ ...review, sizing: reviewSizingOf(fed) }).rows.find((r) => r.id === 'lights')!;
+    expect(lights.figures[3]).toMatch(/^\d+\.\d\d \(2\.20\)$/);
   });
 
   it('shows a way without a circuit as no circuit, with dashes for the figures and no verdict', () => {
