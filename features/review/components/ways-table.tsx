@@ -83,7 +83,7 @@ export function WaysTable({
           <th className="px-3 py-2">Comments</th>
         </tr>
       </thead>
-      <tbody className="[&_tr.w>td]:px-3 [&_tr.w>td]:py-2 [&_tr.w>td:nth-child(n+4):nth-child(-n+8)]:text-right [&_tr.w>td:nth-child(n+4):nth-child(-n+8)]:tabular-nums">
+      <tbody className="[&_tr.w>td]:px-3 [&_tr.w>td]:py-2 [&_tr.w>td:nth-child(n+4):nth-child(-n+8)]:text-right [&_tr.w>td:nth-child(n+4):nth-child(-n+8)]:tabular-nums [&_tr.w>td:nth-child(n+4):nth-child(-n+8)]:whitespace-nowrap">
         {rows.map((way) => {
           const expanded = open === way.id;
           return (
