@@ -1,8 +1,18 @@
 'use client';
 
-import { flexRender, type Row, type RowData, type Table } from '@tanstack/react-table';
+import {
+  flexRender,
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type Row,
+  type RowData,
+  type SortingState,
+  type Table,
+} from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
-import { Fragment } from 'react';
+import { Fragment, useState } from 'react';
 
 import { cn } from '@/lib/cn';
 
@@ -44,6 +54,19 @@ const collator = new Intl.Collator('en-GB', { numeric: true, sensitivity: 'base'
  */
 export function byText<T>(a: Row<T>, b: Row<T>, columnId: string): number {
   return collator.compare(String(a.getValue(columnId) ?? ''), String(b.getValue(columnId) ?? ''));
+}
+
+/** A table of `data` sortable by its columns, in the order given until a heading is pressed. */
+export function useSortableTable<T>(data: T[], columns: ColumnDef<T>[]): Table<T> {
+  const [sorting, setSorting] = useState<SortingState>([]);
+  return useReactTable({
+    data,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
 }
 
 /**

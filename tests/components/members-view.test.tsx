@@ -38,6 +38,14 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
+/** The members screen as the admin, with the answers a role change gets. */
+function renderForRoleChange() {
+  const user = userEvent.setup();
+  const fetch = mockFetch(json({ members }), json({ member: { ...members[1], role: 'inspector' } }), json({ members }));
+  renderWithQuery(<MembersView currentUserId={ADMIN} />);
+  return { user, fetch };
+}
+
 describe('MembersView', () => {
   it('lists members and waiting invitations apart, and guards the admin’s own row', async () => {
     mockFetch(json({ members }));
@@ -52,13 +60,7 @@ describe('MembersView', () => {
   });
 
   it('draws each member and invitation as a card on a phone, with the same controls', async () => {
-    const user = userEvent.setup();
-    const fetch = mockFetch(
-      json({ members }),
-      json({ member: { ...members[1], role: 'inspector' } }),
-      json({ members }),
-    );
-    renderWithQuery(<MembersView currentUserId={ADMIN} />);
+    const { user, fetch } = renderForRoleChange();
     const cards = within(await screen.findByRole('list', { name: 'Members' })).getAllByRole('listitem');
     expect(cards.map((c) => c.querySelector('.font-medium')?.textContent)).toEqual(['Alex Rowe(you)', 'Dana Finch']);
     const dana = within(cards[1]);
@@ -82,13 +84,7 @@ describe('MembersView', () => {
   });
 
   it('changes a role with PATCH', async () => {
-    const user = userEvent.setup();
-    const fetch = mockFetch(
-      json({ members }),
-      json({ member: { ...members[1], role: 'inspector' } }),
-      json({ members }),
-    );
-    renderWithQuery(<MembersView currentUserId={ADMIN} />);
+    const { user, fetch } = renderForRoleChange();
     const table = within(await screen.findByRole('table', { name: 'Members' }));
     const role = table.getByRole('combobox', { name: 'Role of Dana Finch' });
     await user.selectOptions(role, 'inspector');

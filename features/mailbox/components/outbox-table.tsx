@@ -1,16 +1,9 @@
 'use client';
 
-import {
-  getCoreRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnDef,
-  type SortingState,
-} from '@tanstack/react-table';
+import type { ColumnDef } from '@tanstack/react-table';
 import { CircleAlert, CircleCheck, Clock } from 'lucide-react';
-import { useState } from 'react';
 
-import { byText, DataTable } from '@/components/ui/data-table';
+import { byText, DataTable, useSortableTable } from '@/components/ui/data-table';
 import { When } from '@/components/ui/when';
 import { cn } from '@/lib/cn';
 
@@ -78,15 +71,7 @@ const columns: ColumnDef<OutboxRow>[] = [
 
 /** Every message the app has queued: where it went, whether it left, and why not; a card per message on a phone. */
 export function OutboxTable({ rows }: { rows: OutboxRow[] }) {
-  const [sorting, setSorting] = useState<SortingState>([]);
-  const table = useReactTable({
-    data: rows,
-    columns,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  const table = useSortableTable(rows, columns);
   if (!rows.length) {
     return <p className="text-sm text-ink-soft">Nothing has been queued yet.</p>;
   }

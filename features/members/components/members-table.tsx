@@ -1,19 +1,13 @@
 'use client';
 
-import {
-  getCoreRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnDef,
-  type SortingState,
-} from '@tanstack/react-table';
+import type { ColumnDef } from '@tanstack/react-table';
 import { UserCheck, UserX } from 'lucide-react';
 import { useState } from 'react';
 import { toast } from 'sonner';
 
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { byText, DataTable } from '@/components/ui/data-table';
+import { byText, DataTable, useSortableTable } from '@/components/ui/data-table';
 import { Select } from '@/components/ui/field';
 import { When } from '@/components/ui/when';
 import { errorMessage } from '@/lib/api/client';
@@ -34,7 +28,6 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
   const update = useUpdateMember();
   const [deactivating, setDeactivating] = useState<Member | null>(null);
   const [confirmError, setConfirmError] = useState<string | null>(null);
-  const [sorting, setSorting] = useState<SortingState>([]);
   const busyId = update.isPending ? update.variables?.userId : undefined;
 
   async function changeRole(member: Member, role: Role) {
@@ -146,14 +139,7 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
       },
     },
   ];
-  const table = useReactTable({
-    data: members,
-    columns,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  const table = useSortableTable(members, columns);
 
   return (
     <>
@@ -181,20 +167,12 @@ export function MembersTable({ members, currentUserId }: MembersTableProps) {
 
 /** Invitations sent but not yet taken up; a card per invitation on a phone. */
 export function PendingInvitations({ invitations }: { invitations: Member[] }) {
-  const [sorting, setSorting] = useState<SortingState>([]);
-  const table = useReactTable({
-    data: invitations,
-    columns: [
-      nameColumn(() => null),
-      emailColumn,
-      { id: 'role', accessorFn: (m) => roleLabel(m.role), header: 'Role', sortingFn: byText },
-      sinceColumn('Invited'),
-    ],
-    state: { sorting },
-    onSortingChange: setSorting,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  const table = useSortableTable(invitations, [
+    nameColumn(() => null),
+    emailColumn,
+    { id: 'role', accessorFn: (m) => roleLabel(m.role), header: 'Role', sortingFn: byText },
+    sinceColumn('Invited'),
+  ]);
   return <DataTable table={table} caption="Invitations waiting to be accepted" phoneCards />;
 }
 
