@@ -1,6 +1,6 @@
 import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 
-import { JOIN_MARK_MM, LABEL, MM, MODULE_PITCH_MM, type LabelSheet } from '../utils/build-labels';
+import { JOIN_MARK_MM, LABEL, MM, MODULE_PITCH_MM, shortenedLabels, type LabelSheet } from '../utils/build-labels';
 import { PRINT_FONT } from '../utils/fonts';
 import { PRINT_INK } from '../utils/print-palette';
 
@@ -26,6 +26,8 @@ const styles = StyleSheet.create({
   text: { textAlign: 'center' },
   device: { fontSize: LABEL.deviceSize, textAlign: 'center', color: '#4b5563' },
   draft: { color: '#b3261e', fontWeight: 700, fontSize: 8, marginTop: 3 },
+  shortened: { marginTop: 8, fontSize: 7 },
+  shortenedTitle: { fontSize: 8, fontWeight: 700, marginBottom: 2 },
   join: {
     width: JOIN_MARK_MM * MM,
     height: LABEL.heightMm * MM,
@@ -95,6 +97,18 @@ export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
             ))}
           </View>
         ))}
+        {shortenedLabels(sheet).length ? (
+          <View style={styles.shortened}>
+            <Text style={styles.shortenedTitle}>
+              Labels shortened to fit: their whole text, as the schedule gives it
+            </Text>
+            {shortenedLabels(sheet).map((l, i) => (
+              <Text key={i}>
+                {l.name}: {l.whole}
+              </Text>
+            ))}
+          </View>
+        ) : null}
       </Page>
     </Document>
   );

@@ -53,7 +53,7 @@ const etagOf = (key: string) => `"${crypto.createHash('sha256').update(key).dige
  * issued revisions are rendered again with it instead of being served as they were. 2: the carried
  * volt drop limit to two decimals, "Vd used above", "(continued)" once. 3: long names fitted to
  * the header and footer (utils/fit-header.ts). 4: a label's text fitted between its number and its
- * device (`fitLabelTexts`).
+ * device (`fitLabelTexts`), the shortened ones listed whole under the strips.
  */
 export const PRINT_LAYOUT = 4;
 

@@ -46,6 +46,8 @@ export type LabelCell = {
   text: string;
   /** The size the text is printed at, points (`fitLabelTexts`). */
   textSize: number;
+  /** The whole text, when the label prints it shortened to fit (`fitLabelTexts`). */
+  whole?: string;
   device: string;
   modules: number;
 };
@@ -145,7 +147,8 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
 /**
  * The labels' texts fitted to their labels with the print font's measure: a long text steps
  * down in size (to 4.5 pt) to fit between the way's number and the device, and what still does
- * not fit ends in "…", rather than running over the device's name or out of the label.
+ * not fit ends in "…", rather than running over the device's name or out of the label (the
+ * sheet lists such labels with their whole text, as the schedule has it).
  */
 export function fitLabelTexts(sheet: LabelSheet, measure: TextMeasure): LabelSheet {
   const line = PAGE.lineHeight / PAGE.fontSize;
@@ -155,7 +158,8 @@ export function fitLabelTexts(sheet: LabelSheet, measure: TextMeasure): LabelShe
     const box = (size: number) => ({ width, lines: Math.max(1, Math.floor(room / (line * size))), size });
     const fits = (size: number) => countLines(cell.text, width, measure, size) <= box(size).lines;
     const size = LABEL.textSizes.find(fits) ?? LABEL.textSizes.at(-1)!;
-    return { ...cell, textSize: size, text: shortenToFit(cell.text, '', box(size), measure) };
+    const text = shortenToFit(cell.text, '', box(size), measure);
+    return { ...cell, textSize: size, text, ...(text === cell.text ? {} : { whole: cell.text }) };
   };
   return {
     ...sheet,
@@ -164,4 +168,13 @@ export function fitLabelTexts(sheet: LabelSheet, measure: TextMeasure): LabelShe
       strips: rail.strips.map((strip) => ({ ...strip, cells: strip.cells.map(fit) })),
     })),
   };
+}
+
+/** The labels printed shortened, with their whole text: "way 3" (or the device) and the text. */
+export function shortenedLabels(sheet: LabelSheet): { name: string; whole: string }[] {
+  return sheet.rails.flatMap((rail) =>
+    rail.strips.flatMap((strip) =>
+      strip.cells.flatMap((c) => (c.whole ? [{ name: c.ref ? `Way ${c.ref}` : c.device, whole: c.whole }] : [])),
+    ),
+  );
 }

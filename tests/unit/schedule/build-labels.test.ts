@@ -7,6 +7,7 @@ import {
   LABEL,
   MM,
   MODULE_PITCH_MM,
+  shortenedLabels,
 } from '@/features/schedule/utils/build-labels';
 import { printFontMeasure } from '@/features/schedule/utils/fonts';
 import { countLines, PAGE } from '@/features/schedule/utils/paginate-schedule';
@@ -185,5 +186,10 @@ describe('label strips', () => {
     expect(cells[1].text).toBe(texts[1]);
     expect(cells[2].textSize).toBe(4.5);
     expect(cells[2].text).toMatch(/^Lighting: machine shop .*…$/);
+    // The sheet lists the shortened label with its whole text; the others are not listed
+    expect(shortenedLabels(fitLabelTexts(buildLabelSheet(source(ways as SnapshotWay[])), measure))).toEqual([
+      { name: 'Way 3', whole: texts[2] },
+    ]);
+    expect(cells[1].whole).toBeUndefined();
   });
 });

@@ -25,7 +25,7 @@ const PRINT_SOURCES = [
 ];
 
 /** The print code's fingerprint, recorded with the layout it was reviewed at. */
-const REVIEWED = { layout: 4, sha256: '023cda4861d79649a4c6124b202c52baf53fc23b0cde70705837dcbd41046a13' };
+const REVIEWED = { layout: 4, sha256: 'a1f15bfeca780b05ac05575ef8a008d56bb005e924901215556143054d0a7f58' };
 
 function fingerprint(): string {
   const hash = crypto.createHash('sha256');
