@@ -1,3 +1,4 @@
+import { cutWithEllipsis } from '@/lib/ellipsis';
 import type { SiteBoardResult } from '@/lib/supply';
 
 /** Sizes of the drawing, in viewBox units (the SVG scales to its container's width). */
@@ -18,12 +19,8 @@ export const DIAGRAM = {
 
 /** A board's name as its box shows it: whole, or cut at a word near its room with an ellipsis. */
 export function boxName(name: string, chars: number = DIAGRAM.nameChars): string {
-  if (name.length <= chars) return name;
-  let cut = name.slice(0, chars - 1);
-  const space = cut.lastIndexOf(' ');
-  // Back to the last word's end, unless the cut is at one already or none is near
-  if (name[cut.length] !== ' ' && space > chars * 0.7) cut = cut.slice(0, space);
-  return `${cut.replace(/[\s,;:·–—-]+$/, '')}…`;
+  // The ellipsis takes the last character's room; back to a word's end in the last 30 %
+  return name.length <= chars ? name : cutWithEllipsis(name, chars - 1, chars * 0.7);
 }
 
 /** What the layout needs of a board: where it hangs in the tree. */

@@ -43,6 +43,7 @@ const styles = StyleSheet.create({
 
 /** Way labels drawn to the module pitch, strip by strip in rail order, with cut lines. */
 export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
+  const shortened = shortenedLabels(sheet);
   return (
     <Document
       title={`Labels: ${sheet.boardName}, revision ${sheet.revision}`}
@@ -97,12 +98,12 @@ export function LabelStripsDocument({ sheet }: { sheet: LabelSheet }) {
             ))}
           </View>
         ))}
-        {shortenedLabels(sheet).length ? (
+        {shortened.length ? (
           <View style={styles.shortened}>
             <Text style={styles.shortenedTitle}>
               Labels shortened to fit: their whole text, as the schedule gives it
             </Text>
-            {shortenedLabels(sheet).map((l, i) => (
+            {shortened.map((l, i) => (
               <Text key={i}>
                 {l.name}: {l.whole}
               </Text>

@@ -5,6 +5,8 @@
  * it. The board name steps down in size until it fits; what still does not fit is shortened with
  * an ellipsis, keeping the part that matters most ("…, way 3L2" of a feed). Pure.
  */
+import { cutWithEllipsis } from '@/lib/ellipsis';
+
 import type { ScheduleData, ScheduleFact } from './build-schedule';
 import type { TextMeasure } from './fonts';
 import { countLines, PAGE } from './paginate-schedule';
@@ -70,11 +72,8 @@ export function shortenToFit(head: string, tail: string, box: Box, measure: Text
     if (fits(`${head.slice(0, mid).trimEnd()}…${tail}`, box, measure)) lo = mid;
     else hi = mid - 1;
   }
-  let cut = head.slice(0, lo);
-  const space = cut.lastIndexOf(' ');
-  // Back to the last word's end, unless the cut is at one already or none is near
-  if (head[cut.length] !== ' ' && space > cut.length * 0.75) cut = cut.slice(0, space);
-  return `${cut.replace(/[\s,;:·–—-]+$/, '')}…${tail}`;
+  // Back to a word's end when one is in the last quarter of the cut
+  return `${cutWithEllipsis(head, lo, lo * 0.75)}${tail}`;
 }
 
 /** A "Fed from" value keeps its way ("…, way 3L2"): the board's name is what gets shortened. */

@@ -25,7 +25,7 @@ const PRINT_SOURCES = [
 ];
 
 /** The print code's fingerprint, recorded with the layout it was reviewed at. */
-const REVIEWED = { layout: 4, sha256: 'a1f15bfeca780b05ac05575ef8a008d56bb005e924901215556143054d0a7f58' };
+const REVIEWED = { layout: 4, sha256: '434b7ba0122db2a33a31f62731cde4bc73f1d8fef889ec65a097bd2378698f72' };
 
 function fingerprint(): string {
   const hash = crypto.createHash('sha256');
