@@ -23,8 +23,8 @@ node_modules/.bin/tsx scripts/migrate.ts up
 node_modules/.bin/tsx scripts/seed.ts
 if [ "${SKIP_BUILD:-0}" != 1 ] || [ ! -f .next/BUILD_ID ]; then
   npm run --silent build
-elif [ ! -f .next/print-worker.mjs ]; then
-  node scripts/build-print-worker.mjs
+elif [ ! -f .next/print-worker.mjs ] || [ ! -f .next/presize-worker.mjs ]; then
+  node scripts/build-workers.mjs
 fi
 
 echo

@@ -4,6 +4,7 @@ import type { Actor } from '@/lib/auth/session';
 import { wayLabelMap } from '@/lib/boards/layout';
 import { findBoard, readWays } from '@/lib/dal/board-repository';
 import { memberNames } from '@/lib/dal/members';
+import { db, type Statement } from '@/lib/db';
 import { AuditEvent } from '@/models';
 import type { AuditPage } from '@/lib/audit-types';
 
@@ -78,22 +79,39 @@ export async function audit(
  * Appends several events in a single insert (a save records one per way touched; a re-sized site
  * one per board whose supply changed): each event's own `boardId` when it has one, else `opts.boardId`.
  */
+/** One history entry of `auditMany`. */
+export type AuditEntry = { action: AuditAction; details: Record<string, unknown>; boardId?: string | null };
+
 export async function auditMany(
   actor: Actor,
-  events: { action: AuditAction; details: Record<string, unknown>; boardId?: string | null }[],
+  events: readonly AuditEntry[],
   opts: { boardId?: string | null; transaction?: Transaction } = {},
 ): Promise<void> {
-  if (!events.length) return;
-  await AuditEvent.bulkCreate(
-    events.map((e) => ({
-      organisationId: actor.organisationId,
-      boardId: e.boardId !== undefined ? e.boardId : (opts.boardId ?? null),
-      userId: actor.userId,
-      action: e.action,
-      details: e.details,
-    })),
-    { transaction: opts.transaction },
-  );
+  const statement = auditStatement(actor, events, opts.boardId);
+  if (statement) await db().query(statement.sql, { bind: statement.bind, transaction: opts.transaction });
+}
+
+/** The insert of `auditMany` (null for no events), to send with other writes (lib/db.ts `asOneStatement`). */
+export function auditStatement(
+  actor: Actor,
+  events: readonly AuditEntry[],
+  boardId: string | null = null,
+): Statement | null {
+  if (!events.length) return null;
+  // Each event stamped with the clock (two in one transaction keep their order)
+  const rows = events.map((e) => ({
+    board_id: e.boardId !== undefined ? e.boardId : boardId,
+    action: e.action,
+    details: e.details,
+  }));
+  return {
+    sql: `INSERT INTO audit_events (organisation_id, board_id, user_id, action, details, created_at)
+     SELECT $1::uuid, e.board_id, $2::uuid, e.action, e.details, clock_timestamp()
+     FROM ROWS FROM (json_to_recordset($3::json) AS (board_id uuid, action text, details jsonb))
+       WITH ORDINALITY AS e(board_id, action, details, n)
+     ORDER BY e.n`,
+    bind: [actor.organisationId, actor.userId, JSON.stringify(rows)],
+  };
 }
 
 /** Most events one page holds. */

@@ -2,6 +2,7 @@ import 'server-only';
 
 import { createHash } from 'node:crypto';
 
+import { LRUCache } from 'lru-cache';
 import { cache } from 'react';
 import { QueryTypes, type Transaction } from 'sequelize';
 
@@ -18,13 +19,14 @@ import {
   type WayInput,
   type WayRow,
 } from '@/lib/boards/schemas';
-import { db } from '@/lib/db';
+import { db, type Statement } from '@/lib/db';
 import { auditMany, type AuditAction } from '@/lib/dal/audit';
 import { afterTreeWrite, beforeTreeWrite, type TreeWriteRequest } from '@/lib/dal/site-feed';
 import { resizeSiteOfStaleBoard } from '@/lib/dal/site-tree';
 import type { DerivedSupply } from '@/lib/sites/tree-types';
 import { notFound, type FieldIssue } from '@/lib/errors';
 import { ENGINE_REVISION, type BoardResult } from '@/lib/sizing';
+import { deepFreeze } from '@/lib/sizing/validate';
 import type { BoardStatus, LabelStatus } from '@/lib/domain';
 import { sizingOutcome } from '@/lib/supply';
 import { REVIEW_CUT, reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
@@ -296,12 +298,9 @@ export type TreeSizingRow = {
   review: string | null;
 };
 
-/** Stores a site re-size's rows at the site's tree version `treeVersion`: two statements at most. */
-export async function writeTreeSizings(
-  rows: readonly TreeSizingRow[],
-  treeVersion: number,
-  transaction: Transaction,
-): Promise<void> {
+/** The statements that store a site re-size's rows at the site's tree version `treeVersion` (two at most). */
+export function treeSizingStatements(rows: readonly TreeSizingRow[], treeVersion: number): Statement[] {
+  const out: Statement[] = [];
   const written = rows.filter((r) => r.write !== 'keep');
   if (written.length) {
     // Each sizing its own bind parameter (sent as text, parsed once by PostgreSQL); a pending
@@ -323,16 +322,16 @@ export async function writeTreeSizings(
       return `($${at - 8}::uuid, $${at - 7}::int, $${at - 6}::json, decode($${at - 5}, 'hex'), $${at - 4}::boolean,
         $${at - 3}::jsonb, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb, $1::int, ${ENGINE_REVISION})`;
     });
-    await db().query(
-      `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, review,
+    out.push({
+      sql: `INSERT INTO board_sizings (board_id, version, sizing, sizing_sha256, pending, issues, carried, outcome, review,
          tree_version, engine)
        VALUES ${values.join(', ')}
        ON CONFLICT (board_id) DO UPDATE SET version = EXCLUDED.version, sizing = EXCLUDED.sizing,
          sizing_sha256 = EXCLUDED.sizing_sha256, pending = EXCLUDED.pending, issues = EXCLUDED.issues,
          carried = EXCLUDED.carried, outcome = EXCLUDED.outcome, review = EXCLUDED.review, tree_version = EXCLUDED.tree_version,
          engine = EXCLUDED.engine`,
-      { bind, transaction },
-    );
+      bind,
+    });
   }
   const kept = rows.filter((r) => r.write === 'keep');
   if (kept.length) {
@@ -341,14 +340,15 @@ export async function writeTreeSizings(
       const at = bind.push(r.board_id, r.version, r.issues, r.carried, r.outcome);
       return `($${at - 4}::uuid, $${at - 3}::int, $${at - 2}::jsonb, $${at - 1}::jsonb, $${at}::jsonb)`;
     });
-    await db().query(
-      `UPDATE board_sizings s SET version = v.version, issues = v.issues, carried = v.carried, outcome = v.outcome,
+    out.push({
+      sql: `UPDATE board_sizings s SET version = v.version, issues = v.issues, carried = v.carried, outcome = v.outcome,
          tree_version = $1::int, engine = ${ENGINE_REVISION}
        FROM (VALUES ${values.join(', ')}) AS v(board_id, version, issues, carried, outcome)
        WHERE s.board_id = v.board_id`,
-      { bind, transaction },
-    );
+      bind,
+    });
   }
+  return out;
 }
 
 type SizingRow = { dto: string | null; current: boolean; json: string | null; issues: FieldIssue[] | null };
@@ -646,9 +646,45 @@ const STORED_SIZING_JSON = storedJson('s.sizing');
 const STORED_OUTCOME_JSON = storedJson('CASE WHEN s.outcome IS NULL THEN s.sizing END');
 
 /**
+ * The boards of each site as last read outside a transaction (committed states), frozen, each
+ * under the key of its state: id, version, `stamped_in` and the board its feed's way is on. The
+ * database raises a board's version and stamps it in every transaction that writes its row or a
+ * way's place, device or circuit (migration 0008), so a key names one state of all a TreeBoard
+ * holds but `stored`. A read sends the keys it holds, and PostgreSQL leaves out the JSON of every
+ * board still at its key.
+ */
+type HeldBoards = Map<string, { key: string; board: TreeBoard }>;
+const treeBoards = new LRUCache<string, { organisationId: string; boards: HeldBoards }>({ max: 200 });
+
+/**
+ * The site's boards as last read outside a transaction (`readTreeBoards`), without reading
+ * them again: null when none are held or the site is not the organisation's. They may be out of
+ * date; a caller compares their versions with the committed ones before it trusts them.
+ */
+export function heldTreeBoards(siteId: string, organisationId: string): TreeBoard[] | null {
+  const held = treeBoards.get(siteId);
+  if (!held?.boards.size || held.organisationId !== organisationId) return null;
+  return [...held.boards.values()].map((h) => h.board);
+}
+
+/** Forgets the boards held for the site (the next `readTreeBoards` reads them whole). */
+export function forgetTreeBoards(siteId: string): void {
+  treeBoards.delete(siteId);
+}
+const TREE_BOARD_KEY = `b.id::text || ':' || b.version || ':' || COALESCE(b.stamped_in::text, '-') || ':' ||
+  COALESCE((SELECT fw.board_id::text FROM ways fw WHERE fw.id = b.fed_from_way_id), '-')`;
+
+/** The JSON text each board of `treeBoards` was parsed from. */
+const textOf = new WeakMap<TreeBoard, string>();
+
+/** The JSON text a board read without `stored` came from (`readTreeBoards`), or its JSON now. */
+export const treeBoardText = (board: TreeBoard): string => textOf.get(board) ?? JSON.stringify(board);
+
+/**
  * The site's boards (not deleted), oldest first, with their ways in rail order and feed, and what
  * was stored for each (`stored`: its whole sizing; `'outcome'`: only what a re-size compares, the
  * stored `outcome` (way verdicts and worst verdict), and the whole sizing only for a row that has none).
+ * Without `stored` each board is the very (frozen) object of the last read while it is unchanged.
  */
 export async function readTreeBoards(
   siteId: string,
@@ -656,20 +692,38 @@ export async function readTreeBoards(
   opts: { stored?: boolean | 'outcome'; only?: string; organisationId?: string } = {},
 ): Promise<TreeBoard[]> {
   const stored = opts.stored ?? true;
-  const rows = await select<{ j: string }>(
-    `SELECT json_build_object(
+  const held: HeldBoards = new Map(treeBoards.get(siteId)?.boards);
+  const known = new Map(held);
+  const rows = await select<{ id: string; org: string; key: string; j: string | null; s: string | null }>(
+    `SELECT b.id, b.organisation_id AS org, ${TREE_BOARD_KEY} AS key, CASE WHEN ${TREE_BOARD_KEY} = ANY($4::text[]) THEN NULL ELSE json_build_object(
        'id', b.id, ${SETTINGS_JSON}, 'archived', b.archived_at IS NOT NULL,
-       'feed', ${FEED_JSON}, 'ways', ${waysJson()},
-       'stored', ${stored === 'outcome' ? STORED_OUTCOME_JSON : stored ? STORED_SIZING_JSON : 'NULL'}
-     )::text AS j
+       'feed', ${FEED_JSON}, 'ways', ${waysJson()}, 'stored', NULL
+     )::text END AS j,
+     ${stored === 'outcome' ? STORED_OUTCOME_JSON : stored ? STORED_SIZING_JSON : 'NULL'}::text AS s
      FROM boards b
      WHERE b.site_id = $1 AND b.deleted_at IS NULL AND ($2::uuid IS NULL OR b.id = $2)
        AND ($3::uuid IS NULL OR b.organisation_id = $3)
      ORDER BY b.created_at, b.id`,
-    [siteId, opts.only ?? null, opts.organisationId ?? null],
+    [siteId, opts.only ?? null, opts.organisationId ?? null, [...known.values()].map((h) => h.key)],
     transaction,
   );
-  return rows.map((r) => JSON.parse(r.j) as TreeBoard);
+  const boards = rows.map((r) => {
+    let board: TreeBoard;
+    if (r.j === null) board = known.get(r.id)!.board;
+    else {
+      board = deepFreeze(JSON.parse(r.j) as TreeBoard);
+      textOf.set(board, r.j);
+    }
+    // What a transaction reads may be its own uncommitted write: not kept
+    if (r.j !== null && !transaction) held.set(r.id, { key: r.key, board });
+    return stored ? { ...board, stored: r.s === null ? null : (JSON.parse(r.s) as TreeBoard['stored']) } : board;
+  });
+  if (!transaction && !opts.only && rows.length) {
+    const live = new Set(rows.map((r) => r.id));
+    for (const id of held.keys()) if (!live.has(id)) held.delete(id);
+    treeBoards.set(siteId, { organisationId: rows[0].org, boards: held });
+  }
+  return boards;
 }
 
 /**

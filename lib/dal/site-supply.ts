@@ -6,11 +6,10 @@ import type { Actor } from '@/lib/auth/session';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { findBoard, readDraftTreeRows, readTreeBoards, writeBoard } from '@/lib/dal/board-repository';
-import { audit } from '@/lib/dal/audit';
 import { assertSavable } from '@/lib/dal/boards';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import { conflict, notFound } from '@/lib/errors';
-import { treeDtoOf, treeOrder } from '@/lib/sites/tree-dto';
+import { treeDtoOf, treeOrder, withTreeHead } from '@/lib/sites/tree-dto';
 import type {
   BoardFeedInput,
   FedFrom,
@@ -21,9 +20,9 @@ import type {
 } from '@/lib/sites/tree-types';
 import type { SupplyInput } from '@/lib/sizing';
 import { unsizedBoard, type SiteResult } from '@/lib/supply';
-import { originSupply, sizeTree, type SizedSite, type TreeBoard } from '@/lib/supply/size-tree';
+import { originSupply, sizeTree } from '@/lib/supply/size-tree';
 
-import { lockSite, oneSiteWriteAtATime, presizeSite, resizeSite } from './site-tree';
+import { lockSite, presizeSite, presizeThenWrite, resizeSite, type SizedOut } from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
 
@@ -54,31 +53,34 @@ export async function setSiteOrigin(
   origin: SiteOriginInput,
 ): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
   const next = originSupply(origin);
-  return oneSiteWriteAtATime(siteId, async () => {
-    // Sized before the lock; used under it only if no board changed meanwhile (see presizeSite)
-    const presized = await presizeSite(actor, siteId, next);
-    return db().transaction(async (transaction) => {
-      const site = await lockSite(actor, siteId, transaction);
-      if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
-      await db().query('UPDATE sites SET origin = $2::jsonb, updated_at = now() WHERE id = $1', {
-        bind: [siteId, JSON.stringify(next)],
-        transaction,
-      });
-      await audit(actor, 'site.origin-changed', { siteId, from: site.origin, to: next }, { transaction });
-      const sizedOut: { sized?: SizedSite; boards?: TreeBoard[] } = {};
-      const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
-        cause: 'The site’s origin was changed',
-        sizedOut,
-        presized,
-      });
-      const tree = treeDtoOf(
-        { ...site, origin: next, treeVersion: ripple.treeVersion },
-        sizedOut.boards!,
-        sizedOut.sized!,
-      );
-      return { tree, ripple };
-    });
-  });
+  // Sized before the lock; used under it only if no board changed meanwhile (see presizeSite)
+  const { site, ripple, sizedOut } = await presizeThenWrite(
+    siteId,
+    () => presizeSite(actor, siteId, next),
+    (presized, written) =>
+      db().transaction(async (transaction) => {
+        const site = await lockSite(actor, siteId, transaction);
+        if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
+        const sizedOut: SizedOut = {};
+        // The origin stored and its history entry recorded with the re-size's own writes
+        const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
+          cause: 'The site’s origin was changed',
+          sizedOut,
+          presized,
+          origin: next,
+          events: [{ action: 'site.origin-changed', details: { siteId, from: site.origin, to: next }, boardId: null }],
+        });
+        // Everything written: the next write of the site may begin while this one commits
+        written();
+        return { site, ripple, sizedOut };
+      }),
+  );
+  // The answer built once the site is free for the next write (its boards and edges as presized)
+  const meta = { ...site, origin: next, treeVersion: ripple.treeVersion };
+  const tree = sizedOut.tree
+    ? withTreeHead(meta, sizedOut.tree)
+    : treeDtoOf(meta, sizedOut.boards!, sizedOut.sized ?? sizeTree(siteId, next, sizedOut.boards!));
+  return { tree, ripple };
 }
 
 /**

@@ -4,29 +4,34 @@ import AsyncLock from 'async-lock';
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { db } from '@/lib/db';
+import { asOneStatement, db, type Statement } from '@/lib/db';
 import {
+  forgetTreeBoards,
+  heldTreeBoards,
   readTreeBoards,
   readTreeStored,
   siteHasStaleSizing,
   siteHasSubMains,
   siteIsTree,
   sizingHash,
-  writeTreeSizings,
+  treeSizingStatements,
   type TreeSizingRow,
 } from '@/lib/dal/board-repository';
-import { auditMany } from '@/lib/dal/audit';
+import { auditStatement, type AuditEntry } from '@/lib/dal/audit';
 import { conflict, HttpError, notFound, type FieldIssue } from '@/lib/errors';
 import { reviewSizingOf } from '@/lib/boards/review-page-data';
 import { wayName } from '@/lib/names';
 import type { RippleBoard, SiteOrigin, SiteRipple } from '@/lib/sites/tree-types';
-import { sizingOutcome } from '@/lib/supply';
+import { runPresize } from '@/lib/sites/presize-pool';
+import type { PresizeAnswer } from '@/lib/sites/presize';
 import {
+  briefsOf,
   sameOrigin,
   sameSupply,
   sizeTree,
   storedOutcome,
   wayLabelsOf,
+  type SizedBrief,
   type SizedSite,
   type TreeBoard,
 } from '@/lib/supply/size-tree';
@@ -57,6 +62,46 @@ const siteWrites = new AsyncLock({ maxPending: Infinity });
 /** Runs `f` once no other re-size of the site is running in this process. */
 export function oneSiteWriteAtATime<T>(siteId: string, f: () => Promise<T>): Promise<T> {
   return siteWrites.acquire(siteId, f);
+}
+
+/** The one re-size of each site being sized ahead of its turn to write (`presizeThenWrite`). */
+const sitePresizes = new AsyncLock({ maxPending: Infinity });
+
+/**
+ * Runs `presize` (reads and sizing, no lock held in the database), then `write` with its answer
+ * once no other re-size of the site is running in this process (`oneSiteWriteAtATime`). One
+ * re-size of a site is sized while the one before it writes: the event loop sizes the next while
+ * PostgreSQL stores the last, and no more than one sizing waits with its result held. `write`
+ * calls `written` once its last statement is done: the next write of the site then begins its
+ * transaction while this one commits (it waits for the site row's lock in the database, which is
+ * what keeps the writes right).
+ */
+export function presizeThenWrite<P, T>(
+  siteId: string,
+  presize: () => Promise<P>,
+  write: (presized: P, written: () => void) => Promise<T>,
+): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    sitePresizes.acquire(siteId, (release) => {
+      presize().then(
+        (presized) =>
+          oneSiteWriteAtATime(siteId, () => {
+            // The next re-size of the site may size once this one's turn to write has come
+            release();
+            let written!: () => void;
+            const turn = new Promise<void>((done) => (written = done));
+            const result = write(presized, written);
+            result.then(written, written);
+            result.then(resolve, reject);
+            return turn;
+          }),
+        (err: unknown) => {
+          release();
+          reject(err);
+        },
+      );
+    });
+  });
 }
 
 /** The site row as locked, and how (`share`: boards of a site without sub-mains, written side by side). */
@@ -141,7 +186,7 @@ export async function resizeSite(
     writtenBoardId?: string | null;
     cause?: string;
     /** Hands back the boards as read and their sizing (to answer the tree without sizing it twice). */
-    sizedOut?: { sized?: SizedSite; boards?: TreeBoard[] };
+    sizedOut?: SizedOut;
     /**
      * Only this board (a site without sub-mains under a share lock: its boards are independent,
      * so the others are unchanged and the tree version stays).
@@ -154,12 +199,18 @@ export async function resizeSite(
      * written board's (`writtenBoardId`, `only`); any other whose sizing changed is left pending.
      */
     store?: 'all';
+    /** The site's new origin, stored with the tree version (the caller holds the site as changed: `site.origin`). */
+    origin?: SiteOrigin;
+    /** History entries of the write itself, recorded before those of the boards below. */
+    events?: AuditEntry[];
   } = {},
 ): Promise<SiteRipple> {
   const pre = opts.presized && !opts.only && sameOrigin(opts.presized.origin, site.origin) ? opts.presized : null;
   const current = pre ? await readTreeStored(site.id, transaction) : null;
   let boards: TreeBoard[];
-  let sized: SizedSite;
+  let sized: SizedSite | null = null;
+  let briefs: Map<string, SizedBrief>;
+  let asRead: TreeBoard[];
   if (
     pre &&
     current &&
@@ -169,46 +220,64 @@ export async function resizeSite(
     // Nobody changed a board since it was sized (each write of a board or its ways raises its
     // version): that sizing is the committed tree's, compared with what is stored now
     boards = pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
-    ({ sized } = pre);
+    ({ briefs } = pre);
+    asRead = pre.boards;
+    if (opts.sizedOut) opts.sizedOut.tree = pre.tree;
   } else {
+    // Boards held for a presize are out of date: the next presize reads them again
+    if (pre) forgetTreeBoards(site.id);
     boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
     sized = sizeTree(site.id, site.origin, boards);
+    briefs = briefsOf(sized);
+    asRead = boards;
   }
-  if (opts.sizedOut) Object.assign(opts.sizedOut, { sized, boards });
+  const supplyChanged = (b: TreeBoard) =>
+    !b.stored || !sameSupply(b.stored.carried?.supply, briefs.get(b.id)?.carried?.supply);
+  const whole = (b: TreeBoard) =>
+    opts.store === 'all' || b.id === opts.writtenBoardId || b.id === opts.only || briefs.get(b.id)?.refused === true;
+  // The JSON text (and its hash) only of a sizing to store, or that may be the one stored: a
+  // board whose supply changed is left pending unmade (its checks carry the supply's values)
+  const needsText = (b: TreeBoard) =>
+    briefs.get(b.id)?.refused === false && (whole(b) || (!supplyChanged(b) && !b.stored?.pending));
+  // The presize kept only each board's brief: the sizings themselves are made here when needed
+  if (!sized && boards.some(needsText)) sized = sizeTree(site.id, site.origin, asRead);
+  if (opts.sizedOut) Object.assign(opts.sizedOut, { boards: asRead, sized });
   const treeVersion = opts.only ? site.treeVersion : site.treeVersion + 1;
-  if (!opts.only) {
-    await db().query('UPDATE sites SET tree_version = $2 WHERE id = $1', { bind: [site.id, treeVersion], transaction });
-  }
+  const siteWrite: Statement | null = opts.origin
+    ? {
+        sql: 'UPDATE sites SET origin = $3::jsonb, tree_version = $2, updated_at = now() WHERE id = $1',
+        bind: [site.id, treeVersion, JSON.stringify(opts.origin)],
+      }
+    : opts.only
+      ? null
+      : { sql: 'UPDATE sites SET tree_version = $2 WHERE id = $1', bind: [site.id, treeVersion] };
 
   // Each board's row: its sizing written whole (the board written, or every board when
   // `store` is 'all'), kept (the very text stored already), or left to its first read (`pending`)
   const rows: TreeSizingRow[] = [];
   const ripple: RippleBoard[] = [];
   for (const b of boards) {
-    const s = sized.boards.get(b.id);
-    if (!s) continue;
-    const carried = s.carried && { ...s.carried, treeVersion };
-    const outcome = s.sizing && sizingOutcome(s.sizing);
-    const supplyChanged = !b.stored || !sameSupply(b.stored.carried?.supply, s.carried?.supply);
-    const whole = opts.store === 'all' || b.id === opts.writtenBoardId || b.id === opts.only || s.sizing === null;
-    // The JSON text (and its hash) only of a sizing to store, or that may be the one stored: a
-    // board whose supply changed is left pending unmade (its checks carry the supply's values)
-    const text = whole || (!supplyChanged && !b.stored?.pending) ? s.sizing && JSON.stringify(s.sizing) : null;
+    const brief = briefs.get(b.id);
+    if (!brief) continue;
+    const carried = brief.carried && { ...brief.carried, treeVersion };
+    const { outcome } = brief;
+    const full = needsText(b) ? sized!.boards.get(b.id)!.sizing : null;
+    const text = full && JSON.stringify(full);
     const sha = sizingHash(text);
     // The very text stored already is kept, if the review page's cut of it was stored with it
     // (a row stored before migration 0015 is written whole again)
     const same = sha !== null && b.stored?.sha === sha && !b.stored.pending;
-    const write = same && b.stored?.review ? 'keep' : whole || same ? 'whole' : 'pending';
+    const write = same && b.stored?.review ? 'keep' : whole(b) || same ? 'whole' : 'pending';
     rows.push({
       board_id: b.id,
       version: b.version,
       write,
       sizing: text,
       sha,
-      issues: JSON.stringify(s.issues),
+      issues: JSON.stringify(brief.issues),
       carried: carried && JSON.stringify(carried),
       outcome: outcome && JSON.stringify(outcome),
-      review: write === 'whole' && s.sizing ? JSON.stringify(reviewSizingOf(s.sizing)) : null,
+      review: write === 'whole' && full ? JSON.stringify(reviewSizingOf(full)) : null,
     });
     const was = b.stored ? storedOutcome(b.stored) : null;
     const before = new Map(Object.entries(was?.verdicts ?? {}));
@@ -224,21 +293,21 @@ export async function resizeSite(
     }));
     // A board never sized before has nothing to compare with
     if (!b.stored) continue;
-    if (!changedWays.length && !supplyChanged) continue;
+    if (!changedWays.length && !supplyChanged(b)) continue;
     ripple.push({
       boardId: b.id,
       name: b.name,
-      supplyChanged,
+      supplyChanged: supplyChanged(b),
       worstBefore: was?.worst ?? null,
-      worstAfter: s.result?.worstVerdict ?? outcome?.worst ?? null,
+      worstAfter: brief.worst,
       changedWays,
     });
   }
-  await writeTreeSizings(rows, treeVersion, transaction);
-  // Each board below whose supply or verdicts changed: its history says so (one insert for all)
-  await auditMany(
-    actor,
-    ripple
+  // Each board below whose supply or verdicts changed: its history says so. The site, the
+  // boards' rows and the history are written in one statement
+  const history = auditStatement(actor, [
+    ...(opts.events ?? []),
+    ...ripple
       .filter((r) => r.boardId !== opts.writtenBoardId)
       .map((r) => ({
         action: 'board.supply-changed' as const,
@@ -254,32 +323,45 @@ export async function resizeSite(
           })),
         },
       })),
-    { transaction },
-  );
+  ]);
+  const writes = [siteWrite, ...treeSizingStatements(rows, treeVersion), history].filter((w) => w !== null);
+  if (writes.length) {
+    const { sql, bind } = asOneStatement(writes);
+    await db().query(sql, { bind, transaction });
+  }
   return { siteId: site.id, treeVersion, boards: ripple };
 }
 
+/**
+ * What `resizeSite` hands back to answer the tree without sizing it twice: the tree's boards and
+ * edges as presized, or the boards as read and their sizing.
+ */
+export type SizedOut = { tree?: PresizeAnswer['tree']; boards?: TreeBoard[]; sized?: SizedSite | null };
+
 /** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */
-export type PresizedSite = {
+export type PresizedSite = PresizeAnswer & {
   origin: SiteOrigin | null;
   boards: TreeBoard[];
-  sized: SizedSite;
 };
 
 /**
- * Reads and sizes the caller's organisation's site with `origin`, before the site row is locked:
- * the engine then runs while other writes of the same site hold
- * its lock, and the locked section (`resizeSite` with `presized`) only checks that every board is
- * still at the version sized (else it reads and sizes again, under the lock), compares and stores.
+ * Reads and sizes the caller's organisation's site with `origin`, before the site row is locked
+ * (in the presize pool's thread on a production server, lib/sites/presize-pool.ts): the engine
+ * then runs while other writes of the same site hold its lock, and the locked section
+ * (`resizeSite` with `presized`) only checks that every board is still at the version sized
+ * (else it reads and sizes again, under the lock), compares and stores.
  */
 export async function presizeSite(
   actor: Pick<Actor, 'organisationId'>,
   siteId: string,
   origin: SiteOrigin | null,
 ): Promise<PresizedSite> {
-  const boards = await readTreeBoards(siteId, undefined, { stored: false, organisationId: actor.organisationId });
-  const sized = sizeTree(siteId, origin, boards);
-  return { origin, boards, sized };
+  // The boards as last read, if any (`resizeSite` compares their versions with the committed
+  // ones under the lock, and sizes again when they are not)
+  const boards =
+    heldTreeBoards(siteId, actor.organisationId) ??
+    (await readTreeBoards(siteId, undefined, { stored: false, organisationId: actor.organisationId }));
+  return { origin, boards, ...(await runPresize({ siteId, origin, boards })) };
 }
 
 /** A feed that cannot be: 422 naming the field, and the boards of a loop when it is one. */

@@ -1,5 +1,4 @@
-import { engineInputOf } from '@/lib/boards/schemas';
-import type { SizedSite, TreeBoard } from '@/lib/supply/size-tree';
+import { treeBoardInput, type SizedSite, type TreeBoard } from '@/lib/supply/size-tree';
 import { isProtectiveDevice, SIZING_CAUTION } from '@/lib/sizing';
 import { groupSelectivity, wayLabels, worstVerdictOf } from '@/lib/supply';
 
@@ -27,7 +26,7 @@ export function treeDtoOf(
     const s = sized.boards.get(id);
     const r = s?.result ?? null;
     const sizing = s?.sizing ?? null;
-    const ways = engineInputOf(b, b.ways).ways;
+    const ways = treeBoardInput(b).ways;
     const labels = wayLabels({ phases: b.phases, ways });
     const problem =
       r?.problem ?? (s && !sizing ? `${b.name} cannot be sized: ${s.issues.map((i) => i.message).join('; ')}` : null);
@@ -74,13 +73,21 @@ export function treeDtoOf(
       });
     }
   }
+  return withTreeHead(site, { boards: out, edges });
+}
+
+/** The tree DTO of the site's boards and edges (`treeDtoOf`'s, made elsewhere: lib/sites/presize.ts). */
+export function withTreeHead(
+  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
+  parts: Pick<SiteTreeDto, 'boards' | 'edges'>,
+): SiteTreeDto {
   return {
     siteId: site.id,
     siteName: site.name,
     origin: site.origin,
     treeVersion: site.treeVersion,
-    boards: out,
-    edges,
+    boards: parts.boards,
+    edges: parts.edges,
     caution: SIZING_CAUTION,
   };
 }

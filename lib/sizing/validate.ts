@@ -38,7 +38,8 @@ export class SizingInputError extends Error {
 const VALIDATED = Symbol('boardwright.sizing.validated');
 type Marked = { [VALIDATED]?: true };
 
-function deepFreeze<T>(value: T): T {
+/** Freezes `value` and everything it holds. */
+export function deepFreeze<T>(value: T): T {
   if (value !== null && typeof value === 'object' && !Object.isFrozen(value)) {
     Object.freeze(value);
     for (const v of Object.values(value as Record<string, unknown>)) deepFreeze(v);

@@ -5,7 +5,15 @@ import type { BoardStatus } from '@/lib/domain';
 import type { FieldIssue } from '@/lib/errors';
 import { engineIssues, sizeDesign } from '@/lib/boards/size-design';
 import type { DerivedSupply, SiteOrigin } from '@/lib/sites/tree-types';
-import { parseBoardInput, type BoardInput, type BoardResult, type SupplyInput } from '@/lib/sizing';
+import {
+  parseBoardInput,
+  reviseBoardInput,
+  type BoardInput,
+  type BoardResult,
+  type SupplyInput,
+  type Verdict,
+} from '@/lib/sizing';
+import { deepFreeze } from '@/lib/sizing/validate';
 
 import { sizeSite, sizingOutcome, type SizingOutcome } from './size-site';
 import type { SiteBoardInput, SiteBoardResult, SiteResult } from './types';
@@ -65,6 +73,40 @@ export const originSupply = (o: SiteOrigin): SupplyInput => ({
   source: o.source,
 });
 
+/** A board's engine input, and that input as the engine's schema parses it with its typed supply (null: refused). */
+type Prepared = { input: BoardInput; parsed: BoardInput | null };
+
+/**
+ * The engine input of each frozen board (lib/dal's `readTreeBoards` hands out the same frozen
+ * object while a board is unchanged): a site re-sized again parses only the supply carried to
+ * each board (`reviseBoardInput`), not its ways again.
+ */
+const preparedBoards = new WeakMap<TreeBoard, Prepared>();
+
+function prepare(b: TreeBoard): Prepared {
+  const held = preparedBoards.get(b);
+  if (held) return held;
+  const frozen = Object.isFrozen(b);
+  const input = engineInputOf(b, b.ways);
+  if (frozen) deepFreeze(input);
+  let parsed: BoardInput | null = null;
+  try {
+    parsed = parseBoardInput(input);
+  } catch {
+    // Parsed whole with the supply it is sized with (`withSupply`), which names what is wrong
+  }
+  const out = { input, parsed };
+  if (frozen) preparedBoards.set(b, out);
+  return out;
+}
+
+/** The engine input of a board of a site (`engineInputOf` of its settings and ways). */
+export const treeBoardInput = (b: TreeBoard): BoardInput => prepare(b).input;
+
+/** What `parseBoardInput({ ...input, supply })` answers (or throws), for less when the board parsed. */
+const withSupply = (p: Prepared, supply: unknown): BoardInput =>
+  p.parsed ? reviseBoardInput(p.parsed, supply, p.parsed.ways) : parseBoardInput({ ...p.input, supply });
+
 /** The tree issues (lib/supply validateTree) that name a board's feed: board index → message. */
 function feedIssues(err: SiteTreeError): Map<number, string> {
   const out = new Map<number, string>();
@@ -89,11 +131,12 @@ export function sizeTree(siteId: string, origin: SiteOrigin | null, boards: read
   // Boards the engine refuses on their own: stored with their issues, never in the tree. With
   // the site's origin, each board parsed here is handed to sizeSite (parsed once, not twice).
   const inTree = new Set<string>();
-  const inputs = new Map(boards.map((b) => [b.id, engineInputOf(b, b.ways)]));
+  const prepared = new Map(boards.map((b) => [b.id, prepare(b)]));
+  const inputs = new Map(boards.map((b) => [b.id, prepared.get(b.id)!.input]));
   const parsed = new Map<string, BoardInput>();
   for (const b of boards) {
     try {
-      parsed.set(b.id, parseBoardInput({ ...inputs.get(b.id)!, supply: origin ? originSupply(origin) : b.supply }));
+      parsed.set(b.id, withSupply(prepared.get(b.id)!, origin ? originSupply(origin) : b.supply));
       inTree.add(b.id);
     } catch (err) {
       out.set(b.id, { sizing: null, issues: engineIssues(err), carried: null, result: null });
@@ -217,3 +260,30 @@ export function storedOutcome(stored: NonNullable<TreeBoard['stored']>): SizingO
 export const sameSupply = (a: SupplyInput | null | undefined, b: SupplyInput | null | undefined) =>
   isDeepStrictEqual(a ?? null, b ?? null);
 export const sameOrigin = (a: SiteOrigin | null, b: SiteOrigin | null) => isDeepStrictEqual(a, b);
+
+/** What a re-size stores and compares of one board's sizing, without the sizing itself. */
+export type SizedBrief = {
+  /** The engine refused the board (its issues say why). */
+  refused: boolean;
+  issues: FieldIssue[];
+  carried: DerivedSupply | null;
+  outcome: SizingOutcome | null;
+  /** The board's worst verdict, selectivity counted (the ripple's). */
+  worst: Verdict | null;
+};
+
+/** Each board's brief of a sized site (`SizedBrief`). */
+export function briefsOf(sized: SizedSite): Map<string, SizedBrief> {
+  const out = new Map<string, SizedBrief>();
+  for (const [id, s] of sized.boards) {
+    const outcome = s.sizing && sizingOutcome(s.sizing);
+    out.set(id, {
+      refused: s.sizing === null,
+      issues: s.issues,
+      carried: s.carried,
+      outcome,
+      worst: s.result?.worstVerdict ?? outcome?.worst ?? null,
+    });
+  }
+  return out;
+}

@@ -24,7 +24,7 @@ const workerFile = path.join(process.cwd(), '.data', `print-worker-queue-${crypt
 const saved = { threads: process.env.PRINT_THREADS, queue: process.env.PRINT_QUEUE };
 
 beforeAll(async () => {
-  const { buildPrintWorker } = (await import(path.join(process.cwd(), 'scripts/build-print-worker.mjs'))) as {
+  const { buildPrintWorker } = (await import(path.join(process.cwd(), 'scripts/build-workers.mjs'))) as {
     buildPrintWorker: (out: string) => Promise<string>;
   };
   await buildPrintWorker(workerFile);

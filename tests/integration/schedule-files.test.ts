@@ -2,7 +2,7 @@
  * Printing off the request path: an issued revision's schedule and label strips are rendered
  * once and then served from object storage (the S3 fake); a change on the label walk gives the
  * schedule a new file; drafts are rendered every time, in the print pool's worker threads.
- * The worker is bundled here the way `npm run build` bundles it (scripts/build-print-worker.mjs).
+ * The worker is bundled here the way `npm run build` bundles it (scripts/build-workers.mjs).
  */
 import crypto from 'node:crypto';
 import fs from 'node:fs';
@@ -39,7 +39,7 @@ const workerFile = path.join(process.cwd(), '.data', `print-worker-test-${crypto
 
 beforeAll(async () => {
   // Inside the checkout, so that the bundle's package imports resolve from node_modules
-  const { buildPrintWorker } = (await import(path.join(process.cwd(), 'scripts/build-print-worker.mjs'))) as {
+  const { buildPrintWorker } = (await import(path.join(process.cwd(), 'scripts/build-workers.mjs'))) as {
     buildPrintWorker: (out: string) => Promise<string>;
   };
   await buildPrintWorker(workerFile);

@@ -220,8 +220,12 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
     }
     return seen;
   }
+  // Each write of board_sizings, also within a statement that writes other tables too (lib/db.ts asOneStatement)
   const verbs = (writes: { sql: string }[]) =>
-    writes.map((w) => w.sql.trim().split(/\s+/).slice(0, 2).join(' ')).sort();
+    writes
+      .flatMap((w) => [...w.sql.matchAll(/(INSERT INTO|UPDATE) board_sizings/g)])
+      .map((m) => (m[1] === 'UPDATE' ? 'UPDATE board_sizings' : 'INSERT INTO'))
+      .sort();
   // A whole sizing (its summary's diversity rules), not the review page's cut of it
   const sizingsSent = (writes: { bind: unknown[] }[]) =>
     writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"diversityRules"'));

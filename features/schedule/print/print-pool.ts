@@ -21,7 +21,7 @@ const holder = globalThis as { [POOL]?: Piscina<PrintJob, RenderedPdf> };
 
 /**
  * The bundled worker file: PRINT_WORKER_FILE, else `print-worker.mjs` in the build folder
- * (`NEXT_DIST_DIR`, default `.next`), where scripts/build-print-worker.mjs writes it.
+ * (`NEXT_DIST_DIR`, default `.next`), where scripts/build-workers.mjs writes it.
  */
 export function printWorkerFile(): string {
   return (

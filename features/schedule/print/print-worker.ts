@@ -1,7 +1,7 @@
 /**
  * The print worker: renders one schedule or label strips PDF in a worker thread of the print
  * pool (print-pool.ts), so that a render's CPU never holds up the server's own event loop.
- * Bundled into `<distDir>/print-worker.mjs` by scripts/build-print-worker.mjs after `next build`.
+ * Bundled into `<distDir>/print-worker.mjs` by scripts/build-workers.mjs after `next build`.
  */
 import os from 'node:os';
 import { isMainThread } from 'node:worker_threads';
