@@ -59,3 +59,54 @@ export function asOneStatement(statements: readonly Statement[]): Statement {
   const last = parts.pop()!;
   return { sql: parts.length ? `WITH ${parts.map((p, i) => `w${i} AS (${p})`).join(', ')} ${last}` : last, bind };
 }
+
+/** A value of a bind parameter as an SQL literal (the simple protocol has no parameters). */
+function literal(value: unknown): string {
+  if (value === null || value === undefined) return 'NULL';
+  if (typeof value === 'boolean') return value ? 'TRUE' : 'FALSE';
+  if (typeof value === 'number' && Number.isFinite(value)) return String(value);
+  if (typeof value === 'string') return pg.escapeLiteral(value);
+  throw new TypeError(`No literal for a bind value of type ${typeof value}`);
+}
+
+/** The statement with its parameters written in as literals ($1… replaced once, left to right). */
+const withLiterals = ({ sql, bind }: Statement): string =>
+  sql.replace(/\$(\d+)/g, (_, n: string) => literal(bind[Number(n) - 1]));
+
+/** Sends statements in one round trip, and answers the rows of each (none for BEGIN and COMMIT). */
+export type Trip = (statements: readonly Statement[], end?: 'commit') => Promise<Record<string, unknown>[][]>;
+
+/**
+ * A transaction in as few round trips as it has steps, on a connection of the pool taken for it
+ * alone: the first trip opens it (BEGIN goes with its statements), `trip(…, 'commit')` sends the
+ * last statements with COMMIT, and any error (or `f` returning before it committed) rolls it
+ * back. In one trip the statements go as one text (the simple protocol, parameters written in as
+ * literals by pg's escaping), and each still runs on a snapshot of its own: a read sent after a
+ * lock sees what was committed before the lock was granted. For a write whose every step counts
+ * (each trip wakes the database: on these machines that costs more than the statements).
+ */
+export async function inFewTrips<T>(f: (trip: Trip) => Promise<T>): Promise<T> {
+  const pool = db().connectionManager as unknown as {
+    getConnection(): Promise<pg.Client>;
+    releaseConnection(client: pg.Client): Promise<void>;
+  };
+  const client = await pool.getConnection();
+  const tx: { state: 'none' | 'open' | 'done' } = { state: 'none' };
+  const trip: Trip = async (statements, end) => {
+    if (tx.state === 'done') throw new Error('The transaction has ended.');
+    const texts = [...(tx.state === 'none' ? ['BEGIN'] : []), ...statements.map(withLiterals)];
+    if (end === 'commit') texts.push('COMMIT');
+    tx.state = 'open';
+    const out = (await client.query(texts.join(';\n'))) as unknown as pg.QueryResult | pg.QueryResult[];
+    if (end === 'commit') tx.state = 'done';
+    return (Array.isArray(out) ? out : [out])
+      .filter((r) => r.command !== 'BEGIN' && r.command !== 'COMMIT')
+      .map((r) => r.rows as Record<string, unknown>[]);
+  };
+  try {
+    return await f(trip);
+  } finally {
+    if (tx.state === 'open') await client.query('ROLLBACK').catch(() => undefined);
+    await pool.releaseConnection(client);
+  }
+}

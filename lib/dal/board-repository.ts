@@ -731,19 +731,26 @@ export async function readTreeBoards(
  * stored for it (its outcome): enough to tell whether boards read earlier are still the
  * committed ones (every write of a board or its ways raises its version, migration 0008).
  */
-export async function readTreeStored(
-  siteId: string,
-  transaction: Transaction,
-): Promise<Pick<TreeBoard, 'id' | 'version' | 'stored'>[]> {
-  const rows = await select<{ j: string }>(
-    `SELECT json_build_object('id', b.id, 'version', b.version, 'stored', ${STORED_OUTCOME_JSON})::text AS j
+export async function readTreeStored(siteId: string, transaction: Transaction): Promise<TreeStored[]> {
+  const { sql, bind } = treeStoredStatement(siteId);
+  return treeStoredOf(await select<{ j: string }>(sql, bind, transaction));
+}
+
+/** A board of a site with its version and what was stored for it (`readTreeStored`). */
+export type TreeStored = Pick<TreeBoard, 'id' | 'version' | 'stored'>;
+
+/** The statement of `readTreeStored`, to send with others (lib/db.ts `inFewTrips`); its rows read by `treeStoredOf`. */
+export function treeStoredStatement(siteId: string): Statement {
+  return {
+    sql: `SELECT json_build_object('id', b.id, 'version', b.version, 'stored', ${STORED_OUTCOME_JSON})::text AS j
      FROM boards b WHERE b.site_id = $1 AND b.deleted_at IS NULL
      ORDER BY b.created_at, b.id`,
-    [siteId],
-    transaction,
-  );
-  return rows.map((r) => JSON.parse(r.j) as Pick<TreeBoard, 'id' | 'version' | 'stored'>);
+    bind: [siteId],
+  };
 }
+
+export const treeStoredOf = (rows: readonly Record<string, unknown>[]): TreeStored[] =>
+  rows.map((r) => JSON.parse(r.j as string) as TreeStored);
 
 /** Whether any live board of the site has no stored sizing current and whole (`CURRENT_SIZING`). */
 export async function siteHasStaleSizing(siteId: string, transaction?: Transaction): Promise<boolean> {

@@ -8,6 +8,7 @@ import { db } from '@/lib/db';
 import { findBoard, readDraftTreeRows, readTreeBoards, writeBoard } from '@/lib/dal/board-repository';
 import { assertSavable } from '@/lib/dal/boards';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
+import type { AuditEntry } from '@/lib/dal/audit';
 import { conflict, notFound } from '@/lib/errors';
 import { treeDtoOf, treeOrder, withTreeHead } from '@/lib/sites/tree-dto';
 import type {
@@ -22,7 +23,15 @@ import type { SupplyInput } from '@/lib/sizing';
 import { unsizedBoard, type SiteResult } from '@/lib/supply';
 import { originSupply, sizeTree } from '@/lib/supply/size-tree';
 
-import { lockSite, presizeSite, presizeThenWrite, resizeSite, type SizedOut } from './site-tree';
+import {
+  ARCHIVED_SITE,
+  lockSite,
+  presizeSite,
+  presizeThenWrite,
+  resizeSite,
+  writePresizedSite,
+  type SizedOut,
+} from './site-tree';
 
 /** The site tree's routes: the tree as the site view needs it, the origin, a board's feed. */
 
@@ -53,27 +62,35 @@ export async function setSiteOrigin(
   origin: SiteOriginInput,
 ): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
   const next = originSupply(origin);
-  // Sized before the lock; used under it only if no board changed meanwhile (see presizeSite)
+  const cause = 'The site’s origin was changed';
+  const events = (site: { origin: SiteOrigin | null }): AuditEntry[] => [
+    { action: 'site.origin-changed', details: { siteId, from: site.origin, to: next }, boardId: null },
+  ];
+  // Sized before the lock, and written in two round trips when no board changed meanwhile (see
+  // writePresizedSite); else re-sized under the lock, the presize used where it still holds
   const { site, ripple, sizedOut } = await presizeThenWrite(
     siteId,
     () => presizeSite(actor, siteId, next),
-    (presized, written) =>
-      db().transaction(async (transaction) => {
+    async (presized, written) => {
+      const fast = await writePresizedSite(actor, siteId, presized, { cause, events });
+      if (fast) return { ...fast, sizedOut: { tree: presized.tree } as SizedOut };
+      return db().transaction(async (transaction) => {
         const site = await lockSite(actor, siteId, transaction);
-        if (site.archived) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
+        if (site.archived) throw conflict(ARCHIVED_SITE);
         const sizedOut: SizedOut = {};
         // The origin stored and its history entry recorded with the re-size's own writes
         const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
-          cause: 'The site’s origin was changed',
+          cause,
           sizedOut,
           presized,
           origin: next,
-          events: [{ action: 'site.origin-changed', details: { siteId, from: site.origin, to: next }, boardId: null }],
+          events: events(site),
         });
         // Everything written: the next write of the site may begin while this one commits
         written();
         return { site, ripple, sizedOut };
-      }),
+      });
+    },
   );
   // The answer built once the site is free for the next write (its boards and edges as presized)
   const meta = { ...site, origin: next, treeVersion: ripple.treeVersion };

@@ -4,12 +4,15 @@ import AsyncLock from 'async-lock';
 import { QueryTypes, type Transaction } from 'sequelize';
 
 import type { Actor } from '@/lib/auth/session';
-import { asOneStatement, db, type Statement } from '@/lib/db';
+import { asOneStatement, db, inFewTrips, type Statement } from '@/lib/db';
 import {
   forgetTreeBoards,
   heldTreeBoards,
   readTreeBoards,
   readTreeStored,
+  treeStoredOf,
+  treeStoredStatement,
+  type TreeStored,
   siteHasStaleSizing,
   siteHasSubMains,
   siteIsTree,
@@ -138,17 +141,28 @@ export async function lockSite(
   const prior = heldSiteLock(transaction, siteId);
   if (prior && (prior.mode === 'update' || mode === 'share')) return prior;
   if (prior) throw conflict('The site’s supply tree changed while this was being saved; save again.');
-  const rows = await db().query<Omit<SiteLock, 'mode'>>(
-    `SELECT id, name, origin, tree_version AS "treeVersion", archived_at IS NOT NULL AS archived FROM sites
-     WHERE id = $1 AND organisation_id = $2 ${mode === 'update' ? 'FOR UPDATE' : 'FOR SHARE'}`,
-    { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT, transaction },
-  );
+  const { sql, bind } = siteLockStatement(actor, siteId, mode);
+  const rows = await db().query<Omit<SiteLock, 'mode'>>(sql, { bind, type: QueryTypes.SELECT, transaction });
   if (!rows.length) throw notFound('The site');
   const lock: SiteLock = { ...rows[0], mode };
   if (!held.has(transaction)) held.set(transaction, new Map());
   held.get(transaction)!.set(siteId, lock);
   return lock;
 }
+
+/** The statement of `lockSite`. */
+const siteLockStatement = (
+  actor: Pick<Actor, 'organisationId'>,
+  siteId: string,
+  mode: 'share' | 'update',
+): Statement => ({
+  sql: `SELECT id, name, origin, tree_version AS "treeVersion", archived_at IS NOT NULL AS archived FROM sites
+     WHERE id = $1 AND organisation_id = $2 ${mode === 'update' ? 'FOR UPDATE' : 'FOR SHARE'}`,
+  bind: [siteId, actor.organisationId],
+});
+
+/** An archived site refuses every write (409). */
+export const ARCHIVED_SITE = 'This site is archived, so it is read-only; an admin may restore it.';
 
 /**
  * Locks the site for a board write: `update` when the site has sub-mains or the write links a
@@ -171,6 +185,30 @@ export async function lockSiteForWrite(
   return lock;
 }
 
+/** How `resizeSite` re-sizes and what it records. */
+export type ResizeOptions = {
+  writtenBoardId?: string | null;
+  cause?: string;
+  /** Hands back the boards as read and their sizing (to answer the tree without sizing it twice). */
+  sizedOut?: SizedOut;
+  /**
+   * Only this board (a site without sub-mains under a share lock: its boards are independent,
+   * so the others are unchanged and the tree version stays).
+   */
+  only?: string;
+  /** The site sized before the lock was taken (`presizeSite`): used when its boards are still the committed ones. */
+  presized?: PresizedSite;
+  /**
+   * 'all': every board's sizing is stored whole (a read found one pending). Otherwise only the
+   * written board's (`writtenBoardId`, `only`); any other whose sizing changed is left pending.
+   */
+  store?: 'all';
+  /** The site's new origin, stored with the tree version (the caller holds the site as changed: `site.origin`). */
+  origin?: SiteOrigin;
+  /** History entries of the write itself, recorded before those of the boards below. */
+  events?: AuditEntry[];
+};
+
 /**
  * Re-sizes every board of the site (the caller holds the site row: `lockSite`), stores each
  * board's outcome with what was carried to it (and its whole sizing, or `pending`: see `store`),
@@ -182,28 +220,7 @@ export async function resizeSite(
   actor: Actor,
   site: { id: string; origin: SiteOrigin | null; treeVersion: number },
   transaction: Transaction,
-  opts: {
-    writtenBoardId?: string | null;
-    cause?: string;
-    /** Hands back the boards as read and their sizing (to answer the tree without sizing it twice). */
-    sizedOut?: SizedOut;
-    /**
-     * Only this board (a site without sub-mains under a share lock: its boards are independent,
-     * so the others are unchanged and the tree version stays).
-     */
-    only?: string;
-    /** The site sized before the lock was taken (`presizeSite`): used when its boards are still the committed ones. */
-    presized?: PresizedSite;
-    /**
-     * 'all': every board's sizing is stored whole (a read found one pending). Otherwise only the
-     * written board's (`writtenBoardId`, `only`); any other whose sizing changed is left pending.
-     */
-    store?: 'all';
-    /** The site's new origin, stored with the tree version (the caller holds the site as changed: `site.origin`). */
-    origin?: SiteOrigin;
-    /** History entries of the write itself, recorded before those of the boards below. */
-    events?: AuditEntry[];
-  } = {},
+  opts: ResizeOptions = {},
 ): Promise<SiteRipple> {
   const pre = opts.presized && !opts.only && sameOrigin(opts.presized.origin, site.origin) ? opts.presized : null;
   const current = pre ? await readTreeStored(site.id, transaction) : null;
@@ -211,12 +228,7 @@ export async function resizeSite(
   let sized: SizedSite | null = null;
   let briefs: Map<string, SizedBrief>;
   let asRead: TreeBoard[];
-  if (
-    pre &&
-    current &&
-    current.length === pre.boards.length &&
-    current.every((c, i) => c.id === pre.boards[i].id && c.version === pre.boards[i].version)
-  ) {
+  if (pre && current && asPresized(pre, current)) {
     // Nobody changed a board since it was sized (each write of a board or its ways raises its
     // version): that sizing is the committed tree's, compared with what is stored now
     boards = pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
@@ -231,17 +243,54 @@ export async function resizeSite(
     briefs = briefsOf(sized);
     asRead = boards;
   }
-  const supplyChanged = (b: TreeBoard) =>
-    !b.stored || !sameSupply(b.stored.carried?.supply, briefs.get(b.id)?.carried?.supply);
-  const whole = (b: TreeBoard) =>
-    opts.store === 'all' || b.id === opts.writtenBoardId || b.id === opts.only || briefs.get(b.id)?.refused === true;
-  // The JSON text (and its hash) only of a sizing to store, or that may be the one stored: a
-  // board whose supply changed is left pending unmade (its checks carry the supply's values)
-  const needsText = (b: TreeBoard) =>
-    briefs.get(b.id)?.refused === false && (whole(b) || (!supplyChanged(b) && !b.stored?.pending));
   // The presize kept only each board's brief: the sizings themselves are made here when needed
-  if (!sized && boards.some(needsText)) sized = sizeTree(site.id, site.origin, asRead);
+  if (!sized && needsSizings(boards, briefs, opts)) sized = sizeTree(site.id, site.origin, asRead);
   if (opts.sizedOut) Object.assign(opts.sizedOut, { boards: asRead, sized });
+  const { ripple, writes } = planResize(actor, site, { boards, briefs, sized }, opts);
+  if (writes.length) {
+    const { sql, bind } = asOneStatement(writes);
+    await db().query(sql, { bind, transaction });
+  }
+  return ripple;
+}
+
+/** Whether the boards as presized are still the committed ones (same boards, same versions). */
+const asPresized = (pre: PresizedSite, current: readonly TreeStored[]) =>
+  current.length === pre.boards.length &&
+  current.every((c, i) => c.id === pre.boards[i].id && c.version === pre.boards[i].version);
+
+type PlanOptions = Pick<ResizeOptions, 'store' | 'writtenBoardId' | 'only' | 'origin' | 'events' | 'cause'>;
+
+/** A board's sizing is stored whole: every board's (`store`), the written board's, or a refused board's. */
+const storedWhole = (b: TreeBoard, brief: SizedBrief | undefined, opts: PlanOptions) =>
+  opts.store === 'all' || b.id === opts.writtenBoardId || b.id === opts.only || brief?.refused === true;
+
+/** Whether the values carried to the board are not the stored ones. */
+const supplyChangedOf = (b: TreeBoard, brief: SizedBrief | undefined) =>
+  !b.stored || !sameSupply(b.stored.carried?.supply, brief?.carried?.supply);
+
+/**
+ * Whether the board's sizing itself is needed (its JSON text and hash): to store it whole, or
+ * because it may be the one stored. A board whose supply changed is left pending unmade (its
+ * checks carry the supply's values).
+ */
+const needsSizing = (b: TreeBoard, brief: SizedBrief | undefined, opts: PlanOptions) =>
+  brief?.refused === false && (storedWhole(b, brief, opts) || (!supplyChangedOf(b, brief) && !b.stored?.pending));
+
+const needsSizings = (boards: readonly TreeBoard[], briefs: Map<string, SizedBrief>, opts: PlanOptions) =>
+  boards.some((b) => needsSizing(b, briefs.get(b.id), opts));
+
+/**
+ * What a re-size writes (the site's tree version, and origin when given; each board's row; the
+ * history) and answers, from the boards with what is stored for them, each one's brief and,
+ * when `needsSizings`, the sizings themselves.
+ */
+function planResize(
+  actor: Actor,
+  site: { id: string; treeVersion: number },
+  { boards, briefs, sized }: { boards: readonly TreeBoard[]; briefs: Map<string, SizedBrief>; sized: SizedSite | null },
+  opts: PlanOptions,
+): { ripple: SiteRipple; writes: Statement[] } {
   const treeVersion = opts.only ? site.treeVersion : site.treeVersion + 1;
   const siteWrite: Statement | null = opts.origin
     ? {
@@ -261,13 +310,13 @@ export async function resizeSite(
     if (!brief) continue;
     const carried = brief.carried && { ...brief.carried, treeVersion };
     const { outcome } = brief;
-    const full = needsText(b) ? sized!.boards.get(b.id)!.sizing : null;
+    const full = needsSizing(b, brief, opts) ? sized!.boards.get(b.id)!.sizing : null;
     const text = full && JSON.stringify(full);
     const sha = sizingHash(text);
     // The very text stored already is kept, if the review page's cut of it was stored with it
     // (a row stored before migration 0015 is written whole again)
     const same = sha !== null && b.stored?.sha === sha && !b.stored.pending;
-    const write = same && b.stored?.review ? 'keep' : whole(b) || same ? 'whole' : 'pending';
+    const write = same && b.stored?.review ? 'keep' : storedWhole(b, brief, opts) || same ? 'whole' : 'pending';
     rows.push({
       board_id: b.id,
       version: b.version,
@@ -293,11 +342,12 @@ export async function resizeSite(
     }));
     // A board never sized before has nothing to compare with
     if (!b.stored) continue;
-    if (!changedWays.length && !supplyChanged(b)) continue;
+    const supplyChanged = supplyChangedOf(b, brief);
+    if (!changedWays.length && !supplyChanged) continue;
     ripple.push({
       boardId: b.id,
       name: b.name,
-      supplyChanged: supplyChanged(b),
+      supplyChanged,
       worstBefore: was?.worst ?? null,
       worstAfter: brief.worst,
       changedWays,
@@ -325,11 +375,7 @@ export async function resizeSite(
       })),
   ]);
   const writes = [siteWrite, ...treeSizingStatements(rows, treeVersion), history].filter((w) => w !== null);
-  if (writes.length) {
-    const { sql, bind } = asOneStatement(writes);
-    await db().query(sql, { bind, transaction });
-  }
-  return { siteId: site.id, treeVersion, boards: ripple };
+  return { ripple: { siteId: site.id, treeVersion, boards: ripple }, writes };
 }
 
 /**
@@ -362,6 +408,40 @@ export async function presizeSite(
     heldTreeBoards(siteId, actor.organisationId) ??
     (await readTreeBoards(siteId, undefined, { stored: false, organisationId: actor.organisationId }));
   return { origin, boards, ...(await runPresize({ siteId, origin, boards })) };
+}
+
+/**
+ * Writes the re-size of a presized site (`presizeSite`) in two round trips (lib/db.ts
+ * `inFewTrips`): the site row locked with what is stored for its boards read after the lock,
+ * then the writes of `planResize` with COMMIT. Answers null, having written nothing, when its
+ * boards are no longer the ones presized or a board's sizing is needed whole (to store it, or to
+ * compare it with the stored one): the caller then re-sizes under `lockSite` as before. 404 for
+ * another organisation's site, 409 for an archived one.
+ */
+export async function writePresizedSite(
+  actor: Actor,
+  siteId: string,
+  presized: PresizedSite,
+  opts: { cause: string; events: (site: SiteLock) => AuditEntry[] },
+): Promise<{ site: SiteLock; ripple: SiteRipple } | null> {
+  return inFewTrips(async (trip) => {
+    const [locked, stored] = await trip([siteLockStatement(actor, siteId, 'update'), treeStoredStatement(siteId)]);
+    if (!locked.length) throw notFound('The site');
+    const site: SiteLock = { ...(locked[0] as Omit<SiteLock, 'mode'>), mode: 'update' };
+    if (site.archived) throw conflict(ARCHIVED_SITE);
+    const current = treeStoredOf(stored);
+    if (!asPresized(presized, current)) {
+      // Boards held for a presize are out of date: the next presize reads them again
+      forgetTreeBoards(siteId);
+      return null;
+    }
+    const boards = presized.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
+    const plan: PlanOptions = { origin: presized.origin ?? undefined, cause: opts.cause, events: opts.events(site) };
+    if (needsSizings(boards, presized.briefs, plan)) return null;
+    const { ripple, writes } = planResize(actor, site, { boards, briefs: presized.briefs, sized: null }, plan);
+    await trip([asOneStatement(writes)], 'commit');
+    return { site, ripple };
+  });
 }
 
 /** A feed that cannot be: 422 naming the field, and the boards of a loop when it is one. */

@@ -8,6 +8,7 @@ import { db } from '@/lib/db';
 import { audit, auditMany } from '@/lib/dal/audit';
 import { countBoardsBySite, raiseSiteBoardVersions, readSiteBoardRecords } from '@/lib/dal/board-repository';
 import { memberNames } from '@/lib/dal/members';
+import { ARCHIVED_SITE } from '@/lib/dal/site-tree';
 import { conflict, forbidden, HttpError, notFound } from '@/lib/errors';
 import type { SiteInput } from '@/lib/sites/schemas';
 import { BoardRevision, Site } from '@/models';
@@ -60,7 +61,7 @@ export async function createSite(actor: Actor, input: SiteInput): Promise<SiteSu
 
 export async function updateSite(actor: Actor, siteId: string, input: Partial<SiteInput>): Promise<SiteSummary> {
   const site = await findSite(actor, siteId);
-  if (site.archivedAt) throw conflict('This site is archived, so it is read-only; an admin may restore it.');
+  if (site.archivedAt) throw conflict(ARCHIVED_SITE);
   await db().transaction(async (transaction) => {
     await site.update(input, { transaction });
     await audit(actor, 'site.renamed', { siteId, ...input }, { transaction });

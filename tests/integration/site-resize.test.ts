@@ -1,3 +1,4 @@
+import pg from 'pg';
 import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it, vi } from 'vitest';
 
@@ -205,14 +206,24 @@ describe('re-sizing a site compares the stored outcome', () => {
 });
 
 describe('a re-size sends a board’s whole sizing only when it must', () => {
-  /** The statements that write board_sizings during `f`, and their bind values. */
+  /**
+   * The statements that write board_sizings during `f`, and their bind values: as pg's client
+   * sends them, through Sequelize or in a few round trips with the values written in
+   * (lib/db.ts inFewTrips).
+   */
   async function writesDuring(f: () => Promise<unknown>): Promise<{ sql: string; bind: unknown[] }[]> {
     const seen: { sql: string; bind: unknown[] }[] = [];
-    const query = db().query.bind(db());
-    const spy = vi.spyOn(db(), 'query').mockImplementation(((sql: string, opts?: { bind?: unknown[] }) => {
-      if (/(INSERT INTO|UPDATE) board_sizings/.test(sql)) seen.push({ sql, bind: opts?.bind ?? [] });
-      return query(sql, opts as never);
-    }) as never);
+    const query = pg.Client.prototype.query;
+    const spy = vi.spyOn(pg.Client.prototype, 'query').mockImplementation(function (
+      this: pg.Client,
+      ...args: unknown[]
+    ) {
+      const [first, second] = args as [string | { text: string; values?: unknown[] }, unknown];
+      const sql = typeof first === 'string' ? first : first.text;
+      const bind = (Array.isArray(second) ? second : typeof first === 'string' ? [] : first.values) ?? [];
+      if (/(INSERT INTO|UPDATE) board_sizings/.test(sql)) seen.push({ sql, bind });
+      return (query as (...a: unknown[]) => unknown).apply(this, args);
+    } as never);
     try {
       await f();
     } finally {
@@ -227,8 +238,10 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
       .map((m) => (m[1] === 'UPDATE' ? 'UPDATE board_sizings' : 'INSERT INTO'))
       .sort();
   // A whole sizing (its summary's diversity rules), not the review page's cut of it
-  const sizingsSent = (writes: { bind: unknown[] }[]) =>
-    writes.flatMap((w) => w.bind).filter((v) => typeof v === 'string' && v.includes('"diversityRules"'));
+  const sizingsSent = (writes: { sql: string; bind: unknown[] }[]) =>
+    writes
+      .flatMap((w) => [w.sql, ...w.bind])
+      .filter((v) => typeof v === 'string' && v.includes('"diversityRules"'));
 
   /** A two-level site put on one origin and stored whole, with a call that puts the same origin again. */
   async function storedAtOneOrigin() {
