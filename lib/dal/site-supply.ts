@@ -10,7 +10,7 @@ import { assertSavable } from '@/lib/dal/boards';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import type { AuditEntry } from '@/lib/dal/audit';
 import { conflict, notFound } from '@/lib/errors';
-import { treeDtoOf, treeOrder, withTreeHead } from '@/lib/sites/tree-dto';
+import { treeDtoJson, treeDtoOf, treeOrder, treePartsJson } from '@/lib/sites/tree-dto';
 import type {
   BoardFeedInput,
   FedFrom,
@@ -54,13 +54,10 @@ export async function getSiteTree(actor: Actor, siteId: string): Promise<SiteTre
 
 /**
  * Sets the site's origin and re-sizes every board of the site in the same transaction (the
- * site row locked): answers the tree and the ripple. An archived site is read-only (409).
+ * site row locked): answers the JSON text of `{ tree, ripple }` (`SiteTreeDto`, `SiteRipple`),
+ * the tree's boards and edges as the presize wrote them. An archived site is read-only (409).
  */
-export async function setSiteOrigin(
-  actor: Actor,
-  siteId: string,
-  origin: SiteOriginInput,
-): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
+export async function setSiteOrigin(actor: Actor, siteId: string, origin: SiteOriginInput): Promise<string> {
   const next = originSupply(origin);
   const cause = 'The site’s origin was changed';
   const events = (site: { origin: SiteOrigin | null }): AuditEntry[] => [
@@ -73,7 +70,7 @@ export async function setSiteOrigin(
     () => presizeSite(actor, siteId, next),
     async (presized, written) => {
       const fast = await writePresizedSite(actor, siteId, presized, { cause, events });
-      if (fast) return { ...fast, sizedOut: { tree: presized.tree } as SizedOut };
+      if (fast) return { ...fast, sizedOut: { treeParts: presized.treeParts } as SizedOut };
       return db().transaction(async (transaction) => {
         const site = await lockSite(actor, siteId, transaction);
         if (site.archived) throw conflict(ARCHIVED_SITE);
@@ -94,10 +91,10 @@ export async function setSiteOrigin(
   );
   // The answer built once the site is free for the next write (its boards and edges as presized)
   const meta = { ...site, origin: next, treeVersion: ripple.treeVersion };
-  const tree = sizedOut.tree
-    ? withTreeHead(meta, sizedOut.tree)
-    : treeDtoOf(meta, sizedOut.boards!, sizedOut.sized ?? sizeTree(siteId, next, sizedOut.boards!));
-  return { tree, ripple };
+  const parts =
+    sizedOut.treeParts ??
+    treePartsJson(treeDtoOf(meta, sizedOut.boards!, sizedOut.sized ?? sizeTree(siteId, next, sizedOut.boards!)));
+  return `{"tree":${treeDtoJson(meta, parts)},"ripple":${JSON.stringify(ripple)}}`;
 }
 
 /**

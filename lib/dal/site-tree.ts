@@ -234,7 +234,7 @@ export async function resizeSite(
     boards = pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
     ({ briefs } = pre);
     asRead = pre.boards;
-    if (opts.sizedOut) opts.sizedOut.tree = pre.tree;
+    if (opts.sizedOut) opts.sizedOut.treeParts = pre.treeParts;
   } else {
     // Boards held for a presize are out of date: the next presize reads them again
     if (pre) forgetTreeBoards(site.id);
@@ -382,7 +382,7 @@ function planResize(
  * What `resizeSite` hands back to answer the tree without sizing it twice: the tree's boards and
  * edges as presized, or the boards as read and their sizing.
  */
-export type SizedOut = { tree?: PresizeAnswer['tree']; boards?: TreeBoard[]; sized?: SizedSite | null };
+export type SizedOut = { treeParts?: string; boards?: TreeBoard[]; sized?: SizedSite | null };
 
 /** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */
 export type PresizedSite = PresizeAnswer & {

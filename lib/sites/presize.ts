@@ -1,7 +1,7 @@
 import { briefsOf, sizeTree, type SizedBrief, type TreeBoard } from '@/lib/supply/size-tree';
 
-import { treeDtoOf } from './tree-dto';
-import type { SiteOrigin, SiteTreeDto } from './tree-types';
+import { treeDtoOf, treePartsJson } from './tree-dto';
+import type { SiteOrigin } from './tree-types';
 
 /**
  * A site re-sized ahead of its write (lib/dal/site-tree.ts `presizeSite`): pure, so that it runs
@@ -13,16 +13,17 @@ export type PresizeTask = { siteId: string; origin: SiteOrigin | null; boards: r
 
 /**
  * What the write needs of the sized site: each board's brief (what it stores and compares
- * unless a sizing is stored whole) and the tree's boards and edges as the answer gives them.
+ * unless a sizing is stored whole) and the tree's boards and edges as the answer gives them, as
+ * JSON text (`treePartsJson`: the answer is sent as it is, never parsed in the server).
  */
 export type PresizeAnswer = {
   briefs: Map<string, SizedBrief>;
-  tree: Pick<SiteTreeDto, 'boards' | 'edges'>;
+  treeParts: string;
 };
 
 /** Sizes the site as one tree and answers its briefs and the tree's boards and edges. */
 export function presizeTree({ siteId, origin, boards }: PresizeTask): PresizeAnswer {
   const sized = sizeTree(siteId, origin, boards);
   const tree = treeDtoOf({ id: siteId, name: '', origin, treeVersion: 0 }, boards, sized);
-  return { briefs: briefsOf(sized), tree: { boards: tree.boards, edges: tree.edges } };
+  return { briefs: briefsOf(sized), treeParts: treePartsJson(tree) };
 }

@@ -92,6 +92,27 @@ export function withTreeHead(
   };
 }
 
+/** The tree's boards and edges as JSON text: `{"boards":[…],"edges":[…]}`. */
+export const treePartsJson = (tree: Pick<SiteTreeDto, 'boards' | 'edges'>): string =>
+  JSON.stringify({ boards: tree.boards, edges: tree.edges });
+
+/**
+ * The JSON text of the tree DTO (`withTreeHead`'s, the same text) from its boards and edges as
+ * `treePartsJson` wrote them.
+ */
+export function treeDtoJson(
+  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
+  parts: string,
+): string {
+  const head = JSON.stringify({
+    siteId: site.id,
+    siteName: site.name,
+    origin: site.origin,
+    treeVersion: site.treeVersion,
+  });
+  return `${head.slice(0, -1)},${parts.slice(1, -1)},"caution":${JSON.stringify(SIZING_CAUTION)}}`;
+}
+
 /** The boards' ids in tree order: those sizeSite placed (parents first), then the others as read. */
 export function treeOrder(boards: readonly TreeBoard[], sized: SizedSite): string[] {
   const placed = sized.site.boards.map((r) => r.boardId);

@@ -84,7 +84,8 @@ describe('the presize worker', () => {
       const inWorker = await withWorker(true, () => presizePool.runPresize(task));
       expect(inWorker).toEqual(presizeTree(task));
       // The carried Ze is the origin's (a board fed from the origin), so the worker did size it
-      const db1 = inWorker.tree.boards.find((b) => b.boardId === t.id('db1'))!;
+      const parts = JSON.parse(inWorker.treeParts) as Pick<SiteTreeDto, 'boards' | 'edges'>;
+      const db1 = parts.boards.find((b) => b.boardId === t.id('db1'))!;
       expect(db1.zdb?.value).toBeCloseTo(zeOhm, 9);
     }
   });

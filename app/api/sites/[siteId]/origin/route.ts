@@ -14,5 +14,6 @@ export const PUT = defineRoute({
   action: 'boards.edit',
   params,
   body: siteOriginSchema,
-  handler: async ({ actor, params: { siteId }, body }) => Response.json(await setSiteOrigin(actor, siteId, body)),
+  handler: async ({ actor, params: { siteId }, body }) =>
+    new Response(await setSiteOrigin(actor, siteId, body), { headers: { 'content-type': 'application/json' } }),
 });
