@@ -14,6 +14,9 @@ export const PUT = defineRoute({
   action: 'boards.edit',
   params,
   body: siteOriginSchema,
+  // The answer's JSON text as bytes (a string body is scanned for lone surrogates first)
   handler: async ({ actor, params: { siteId }, body }) =>
-    new Response(await setSiteOrigin(actor, siteId, body), { headers: { 'content-type': 'application/json' } }),
+    new Response(Buffer.from(await setSiteOrigin(actor, siteId, body)), {
+      headers: { 'content-type': 'application/json' },
+    }),
 });
