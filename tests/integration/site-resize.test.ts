@@ -239,9 +239,7 @@ describe('a re-size sends a board’s whole sizing only when it must', () => {
       .sort();
   // A whole sizing (its summary's diversity rules), not the review page's cut of it
   const sizingsSent = (writes: { sql: string; bind: unknown[] }[]) =>
-    writes
-      .flatMap((w) => [w.sql, ...w.bind])
-      .filter((v) => typeof v === 'string' && v.includes('"diversityRules"'));
+    writes.flatMap((w) => [w.sql, ...w.bind]).filter((v) => typeof v === 'string' && v.includes('"diversityRules"'));
 
   /** A two-level site put on one origin and stored whole, with a call that puts the same origin again. */
   async function storedAtOneOrigin() {
