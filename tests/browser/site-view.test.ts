@@ -93,6 +93,8 @@ describe('the site view', () => {
       // Drag the loft's board by its handle onto the yard board's free sub-main
       const handle = page.getByRole('button', { name: `Drag ${downName} onto a feeding way` });
       const target = page.locator(`[data-drop-target="${upId}:${subMainId}"]`);
+      // Both in view: the handle (below) first, then the way above it if it is not in view yet
+      await handle.scrollIntoViewIfNeeded();
       await target.scrollIntoViewIfNeeded();
       const from = await center(handle);
       await page.mouse.move(from.x, from.y);
@@ -145,6 +147,51 @@ describe('the site view', () => {
       const note = page.getByTestId('supply-change');
       await note.waitFor();
       for (const id of changed) await expect(note.locator(`[data-changed-way="${id}"]`).count()).resolves.toBe(1);
+      expect(errors).toEqual([]);
+    } finally {
+      await close();
+    }
+  });
+
+  it('changes the origin: a bad value is named, a good one re-sizes every board and the diagram shows it', async () => {
+    const { page, close } = await openBrowser();
+    const errors: string[] = [];
+    page.on('console', (m: ConsoleMessage) => {
+      if (m.type() === 'error') errors.push(m.text());
+    });
+    page.on('pageerror', (e) => errors.push(String(e)));
+    try {
+      await signIn(page, 'designer');
+      await page.goto(`${APP_URL}/sites/${siteId}`);
+      const values = page.getByTestId('origin-values');
+      await values.waitFor();
+      const zeBefore = (await tree(page)).origin!.zeOhm;
+      await expect(values.textContent()).resolves.toContain(`Ze ${zeBefore.toFixed(3)} Ω`);
+
+      await page.getByRole('button', { name: 'Change the origin' }).click();
+      const dialog = page.getByRole('dialog', { name: 'The site’s origin' });
+      await dialog.waitFor();
+      // A negative Ze is refused, naming the field; nothing is saved
+      const ze = dialog.getByLabel('Ze (Ω)');
+      await ze.fill('-1');
+      await dialog.getByRole('button', { name: 'Save and size the site' }).click();
+      await expect.poll(() => ze.getAttribute('aria-invalid')).toBe('true');
+      expect((await tree(page)).origin!.zeOhm).toBe(zeBefore);
+
+      // Ze 1.1 Ω: every board fed from the origin carries it (the yard board directly)
+      await ze.fill('1.1');
+      await dialog.getByRole('button', { name: 'Save and size the site' }).click();
+      await dialog.waitFor({ state: 'hidden' });
+      await expect.poll(() => values.textContent()).toContain('Ze 1.100 Ω');
+      const after = await tree(page);
+      expect(after.origin!.zeOhm).toBe(1.1);
+      const yard = after.boards.find((b) => b.boardId === upId)!;
+      expect(yard.zdb?.value).toBeCloseTo(1.1, 9);
+      // The diagram drawn from the answer shows the yard board's new Zdb
+      const box = page.getByTestId('site-diagram').getByRole('link', { name: new RegExp(`^${upName}:`) });
+      await expect
+        .poll(() => box.getAttribute('aria-label'))
+        .toContain('earth fault loop impedance at the board 1.100 Ω');
       expect(errors).toEqual([]);
     } finally {
       await close();

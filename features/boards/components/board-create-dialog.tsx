@@ -10,11 +10,12 @@ import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { Field, Input, Select } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import { boardCreateSchema, type BoardCreateInput } from '@/lib/boards/schemas';
+import { numberOrEmpty } from '@/lib/forms/number-or-empty';
 import { useServerForm } from '@/lib/forms/use-server-form';
 
 import type { SiteOption } from '../api/boards-api';
 import { useCreateBoard } from '../api/use-board-mutations';
-import { newBoardDefaults, numberOrEmpty, type BoardCreateValues } from '../utils/board-defaults';
+import { newBoardDefaults, type BoardCreateValues } from '../utils/board-defaults';
 
 const legendClass = 'mb-3 text-xs font-semibold tracking-wide text-ink-soft uppercase';
 const decimal = { type: 'number', step: 'any', inputMode: 'decimal' } as const;

@@ -1,6 +1,12 @@
 import { apiFetch } from '@/lib/api/client';
 import type { FeedChoice } from '@/components/site-diagram/tree-model';
-import type { BoardSaveAnswer, SitePackEmailInput } from '@/lib/sites/tree-types';
+import type {
+  BoardSaveAnswer,
+  SiteOriginInput,
+  SitePackEmailInput,
+  SiteRipple,
+  SiteTreeDto,
+} from '@/lib/sites/tree-types';
 
 /**
  * PUT /api/boards/:boardId/feed, confirmed: the screen has already asked, naming every board
@@ -19,4 +25,12 @@ export async function postSitePackEmail(
   input: SitePackEmailInput,
 ): Promise<{ mail: { id: string; to: string } }> {
   return apiFetch(`/api/sites/${encodeURIComponent(siteId)}/pack/email`, { method: 'POST', body: input });
+}
+
+/** PUT /api/sites/:siteId/origin: the site's origin set and every board re-sized with it. */
+export async function putSiteOrigin(
+  siteId: string,
+  origin: SiteOriginInput,
+): Promise<{ tree: SiteTreeDto; ripple: SiteRipple }> {
+  return apiFetch(`/api/sites/${encodeURIComponent(siteId)}/origin`, { method: 'PUT', body: origin });
 }

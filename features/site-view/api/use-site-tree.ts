@@ -3,9 +3,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 
 import { siteTreeKey } from '@/components/site-diagram/site-tree-query';
+import type { SiteOriginInput } from '@/lib/sites/tree-types';
 
 import type { PendingFeed } from '../utils/repoint';
-import { putBoardFeed } from './site-tree-api';
+import { putBoardFeed, putSiteOrigin } from './site-tree-api';
 
 /** Feeds a board from the origin or another board's way; the tree is read again afterwards. */
 export function useSetFeed(siteId: string) {
@@ -17,5 +18,17 @@ export function useSetFeed(siteId: string) {
         queryClient.invalidateQueries({ queryKey: siteTreeKey(siteId) }),
         queryClient.invalidateQueries({ queryKey: ['boards'] }),
       ]),
+  });
+}
+
+/** Sets the site's origin: the answer is the tree re-sized with it, kept as the tree read. */
+export function useSetOrigin(siteId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (origin: SiteOriginInput) => putSiteOrigin(siteId, origin),
+    onSuccess: async ({ tree }) => {
+      queryClient.setQueryData(siteTreeKey(siteId), tree);
+      await queryClient.invalidateQueries({ queryKey: ['boards'] });
+    },
   });
 }

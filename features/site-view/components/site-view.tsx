@@ -12,6 +12,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { useSetFeed } from '../api/use-site-tree';
 import { repointWords, type PendingFeed } from '../utils/repoint';
 import { BoardFeeds } from './board-feeds';
+import { OriginPanel } from './origin-panel';
 import { SitePackActions } from './site-pack-actions';
 
 type SiteViewProps = {
@@ -56,6 +57,7 @@ export function SiteView({ siteId, siteName, canLink, canPrint = false }: SiteVi
         </p>
       </div>
       <Caution />
+      {view ? <OriginPanel siteId={siteId} origin={view.origin} canEdit={canLink} /> : null}
       {query.isError ? (
         <ErrorState
           title="The supply tree could not be loaded"
