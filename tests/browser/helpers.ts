@@ -71,3 +71,13 @@ export async function boardIdByName(page: Page, name: string): Promise<string> {
   if (!board) throw new Error(`no board named ${name}`);
   return board.id;
 }
+
+/** What the page reports as going wrong from now on: console errors and uncaught exceptions. */
+export function watchErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('console', (m) => {
+    if (m.type() === 'error') errors.push(m.text());
+  });
+  page.on('pageerror', (e) => errors.push(String(e)));
+  return errors;
+}

@@ -6,7 +6,7 @@
  */
 import crypto from 'node:crypto';
 
-import type { ConsoleMessage, Locator, Page } from 'playwright-core';
+import type { Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { db } from '@/lib/db';
@@ -14,7 +14,7 @@ import type { SiteTreeDto } from '@/lib/sites/tree-types';
 import { Board, Organisation, Site, Way } from '@/models';
 import { DEMO_ORG, FLAT_BOARD, WORKSHOP_SITE_BOARD, WORKSHOP_SUB_MAINS, demoWays } from '@/scripts/demo-data';
 
-import { APP_URL, openBrowser, signIn } from './helpers';
+import { APP_URL, openBrowser, signIn, watchErrors } from './helpers';
 
 const tag = crypto.randomUUID().slice(0, 6);
 const upName = `Yard DB ${tag}`;
@@ -78,11 +78,7 @@ async function tree(page: Page): Promise<SiteTreeDto> {
 describe('the site view', () => {
   it('links a board by dragging it onto a sub-main; a longer sub-main upstream changes its verdicts', async () => {
     const { page, close } = await openBrowser();
-    const errors: string[] = [];
-    page.on('console', (m: ConsoleMessage) => {
-      if (m.type() === 'error') errors.push(m.text());
-    });
-    page.on('pageerror', (e) => errors.push(String(e)));
+    const errors = watchErrors(page);
     try {
       await signIn(page, 'designer');
       await page.goto(`${APP_URL}/sites/${siteId}`);
@@ -155,11 +151,7 @@ describe('the site view', () => {
 
   it('changes the origin: a bad value is named, a good one re-sizes every board and the diagram shows it', async () => {
     const { page, close } = await openBrowser();
-    const errors: string[] = [];
-    page.on('console', (m: ConsoleMessage) => {
-      if (m.type() === 'error') errors.push(m.text());
-    });
-    page.on('pageerror', (e) => errors.push(String(e)));
+    const errors = watchErrors(page);
     try {
       await signIn(page, 'designer');
       await page.goto(`${APP_URL}/sites/${siteId}`);

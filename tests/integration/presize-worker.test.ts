@@ -11,7 +11,6 @@ import path from 'node:path';
 
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import * as treeRoute from '@/app/api/sites/[siteId]/tree/route';
 import { db } from '@/lib/db';
@@ -20,9 +19,8 @@ import { presizeTree } from '@/lib/sites/presize';
 import * as presizePool from '@/lib/sites/presize-pool';
 import type { SiteRipple, SiteTreeDto } from '@/lib/sites/tree-types';
 
-import { twoLevel } from '../unit/supply/fixtures';
 import { ctx, jsonRequest, makeOrganisation, signInAs } from './helpers';
-import { sizingRow, storeTree } from './site-fixtures';
+import { answerOf, linkedTwoLevel, sizingRow } from './site-fixtures';
 
 type Org = Awaited<ReturnType<typeof makeOrganisation>>;
 let team: Org;
@@ -53,26 +51,10 @@ async function withWorker<T>(on: boolean, f: () => Promise<T>): Promise<T> {
   }
 }
 
-async function call<T>(res: Promise<Response>): Promise<T> {
-  const r = await res;
-  const body = await r.json();
-  if (r.status !== 200) throw new Error(`expected 200, got ${r.status}: ${JSON.stringify(body)}`);
-  return body as T;
-}
-
-/** The two-level demo tree stored and linked: Workshop DB1's way w-sub feeds the finishing room. */
+/** The two-level demo tree stored and linked (site-fixtures.ts), signed in as its designer. */
 async function linked() {
   signInAs(team.users.designer);
-  const fx = twoLevel();
-  const t = await storeTree(team.org.id, fx);
-  await call(originRoute.PUT(jsonRequest('PUT', fx.origin), ctx({ siteId: t.site.id })));
-  await call(
-    feedRoute.PUT(
-      jsonRequest('PUT', { feed: { from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') } }),
-      ctx({ boardId: t.id('fin') }),
-    ),
-  );
-  return { fx, t };
+  return linkedTwoLevel(team.org.id);
 }
 
 describe('the presize worker', () => {
@@ -96,7 +78,7 @@ describe('the presize worker', () => {
     // One site re-sized through the worker, its twin in this process, with the same new origin
     const origin = { ...a.fx.origin, zeOhm: 0.9 };
     const put = (siteId: string) =>
-      call<{ tree: SiteTreeDto; ripple: SiteRipple }>(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId })));
+      answerOf<{ tree: SiteTreeDto; ripple: SiteRipple }>(originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId })));
     const viaWorker = await withWorker(true, () => put(a.t.site.id));
     const here = await withWorker(false, () => put(b.t.site.id));
 
@@ -115,7 +97,7 @@ describe('the presize worker', () => {
     expect(viaWorker.ripple.boards.find((x) => x.boardId === a.t.id('fin'))?.supplyChanged).toBe(true);
 
     // The tree as the site view reads it (sized in this process) is the route's answer
-    const read = await call<{ tree: SiteTreeDto }>(treeRoute.GET(jsonRequest('GET'), ctx({ siteId: a.t.site.id })));
+    const read = await answerOf<{ tree: SiteTreeDto }>(treeRoute.GET(jsonRequest('GET'), ctx({ siteId: a.t.site.id })));
     expect(read.tree).toEqual(viaWorker.tree);
 
     // The stored rows: the same carried values, outcome and issues, at the new tree version
@@ -133,7 +115,7 @@ describe('the presize worker', () => {
   it('the same origin again through the worker keeps the rows stored, as in this process', async () => {
     const { fx, t } = await linked();
     const put = () =>
-      call<{ tree: SiteTreeDto; ripple: SiteRipple }>(
+      answerOf<{ tree: SiteTreeDto; ripple: SiteRipple }>(
         originRoute.PUT(jsonRequest('PUT', fx.origin), ctx({ siteId: t.site.id })),
       );
     const first = await withWorker(true, put);
@@ -147,7 +129,7 @@ describe('the presize worker', () => {
   it('sizes from the boards read before; one changed since is caught under the lock and the site sized again', async () => {
     const { fx, t } = await linked();
     // The site view's read: the boards are held for the next presize
-    await call(treeRoute.GET(jsonRequest('GET'), ctx({ siteId: t.site.id })));
+    await answerOf(treeRoute.GET(jsonRequest('GET'), ctx({ siteId: t.site.id })));
     // The spray booth's circuit made 120 m long behind the app's back (the database raises
     // the board's version, migration 0008)
     await db().query(`UPDATE ways SET circuit = jsonb_set(circuit, '{lengthM}', '120') WHERE id = $1`, {
@@ -155,12 +137,12 @@ describe('the presize worker', () => {
     });
     const origin = { ...fx.origin, zeOhm: 0.4 };
     const answer = await withWorker(true, () =>
-      call<{ tree: SiteTreeDto; ripple: SiteRipple }>(
+      answerOf<{ tree: SiteTreeDto; ripple: SiteRipple }>(
         originRoute.PUT(jsonRequest('PUT', origin), ctx({ siteId: t.site.id })),
       ),
     );
     // The answer and the stored row are the changed board's: as a fresh read sizes it
-    const read = await call<{ tree: SiteTreeDto }>(treeRoute.GET(jsonRequest('GET'), ctx({ siteId: t.site.id })));
+    const read = await answerOf<{ tree: SiteTreeDto }>(treeRoute.GET(jsonRequest('GET'), ctx({ siteId: t.site.id })));
     expect(answer.tree).toEqual(read.tree);
     const row = await sizingRow(t.id('fin'));
     expect(row.version).toBe(row.boardVersion);

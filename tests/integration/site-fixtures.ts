@@ -3,7 +3,9 @@ import crypto from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { expect } from 'vitest';
 
+import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
 import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
+import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import { reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
 import type { BoardSettings, WayInput } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
@@ -12,6 +14,7 @@ import type { BoardResult, Verdict } from '@/lib/sizing';
 import type { SiteTreeInput } from '@/lib/supply';
 import { Board, Site, Way } from '@/models';
 
+import { twoLevel } from '../unit/supply/fixtures';
 import { ctx, jsonRequest } from './helpers';
 
 /**
@@ -103,4 +106,30 @@ export async function storedSizing(boardId: string): Promise<SizingRow> {
   expect(now.carried?.supply, 'the supply carried').toEqual(read.carried?.supply);
   expect(read.review, 'the review page’s cut, stored with it').toEqual(read.sizing && reviewSizingOf(read.sizing));
   return read;
+}
+
+/** A route's JSON answer, which must have `status` (else the test fails with the body). */
+export async function answerOf<T>(res: Promise<Response>, status = 200): Promise<T> {
+  const r = await res;
+  const body = await r.json();
+  if (r.status !== status) throw new Error(`expected ${status}, got ${r.status}: ${JSON.stringify(body)}`);
+  return body as T;
+}
+
+/**
+ * The two-level tree (tests/unit/supply/fixtures.ts `twoLevel`) stored for the organisation,
+ * given its origin and linked through the routes: Workshop DB1's way w-sub feeds the finishing
+ * room. The caller is signed in as a designer of that organisation.
+ */
+export async function linkedTwoLevel(organisationId: string) {
+  const fx = twoLevel();
+  const t = await storeTree(organisationId, fx);
+  await answerOf(originRoute.PUT(jsonRequest('PUT', fx.origin), ctx({ siteId: t.site.id })));
+  await answerOf(
+    feedRoute.PUT(
+      jsonRequest('PUT', { feed: { from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') } }),
+      ctx({ boardId: t.id('fin') }),
+    ),
+  );
+  return { fx, t };
 }

@@ -8,7 +8,6 @@ import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
 import * as restoreRoute from '@/app/api/boards/[boardId]/restore/route';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import * as undoRoute from '@/app/api/boards/[boardId]/undo-delete/route';
-import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
 import * as treeRoute from '@/app/api/sites/[siteId]/tree/route';
 import { describeAuditEntry } from '@/features/audit/utils/describe-event';
 import type { BoardDto } from '@/lib/boards/schemas';
@@ -16,9 +15,8 @@ import { db } from '@/lib/db';
 import type { FeedChange, SiteTreeDto } from '@/lib/sites/tree-types';
 import { AuditEvent, Board } from '@/models';
 
-import { twoLevel } from '../unit/supply/fixtures';
 import { ctx, jsonRequest, makeOrganisation, signInAs } from './helpers';
-import { storedSizing, storeTree } from './site-fixtures';
+import { answerOf, storedSizing, linkedTwoLevel as linkedTwoLevelOf } from './site-fixtures';
 
 // Deleting, archiving, restoring and undeleting a board of a supply tree (two levels: Workshop
 // DB1 feeds the finishing room's board from its way w-sub; tests/unit/supply/fixtures.ts). A
@@ -34,12 +32,7 @@ beforeAll(async () => {
   team = await makeOrganisation('Removal');
 });
 
-async function call<T>(res: Promise<Response>, status = 200): Promise<T> {
-  const r = await res;
-  const body = await r.json();
-  if (r.status !== status) throw new Error(`expected ${status}, got ${r.status}: ${JSON.stringify(body)}`);
-  return body as T;
-}
+const call = answerOf;
 
 const url = (confirm: boolean) => `http://127.0.0.1/api${confirm ? '?confirmFeedChanges=1' : ''}`;
 const remove = <T>(boardId: string, confirm: boolean, status = 200) =>
@@ -66,21 +59,13 @@ async function fedFromWay(boardId: string): Promise<string | null> {
   return row.fed_from_way_id;
 }
 
-/** The two-level tree stored, given its origin and linked through the routes. */
+/** The two-level tree stored, given its origin and linked through the routes (site-fixtures.ts). */
 async function linkedTwoLevel() {
   signInAs(team.users.designer);
-  const fx = twoLevel();
-  const t = await storeTree(team.org.id, fx);
-  await call(originRoute.PUT(jsonRequest('PUT', fx.origin), ctx({ siteId: t.site.id })));
-  await call(
-    feedRoute.PUT(
-      jsonRequest('PUT', { feed: { from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') } }),
-      ctx({ boardId: t.id('fin') }),
-    ),
-  );
+  const linked = await linkedTwoLevelOf(team.org.id);
   // Linked: the finishing room is sized with what Workshop DB1's sub-main carries
-  expect((await stored(t.id('fin'))).carried?.from).toBe('way');
-  return { fx, t };
+  expect((await stored(linked.t.id('fin'))).carried?.from).toBe('way');
+  return linked;
 }
 
 /** The finishing room is fed from the origin and sized with the origin's own values. */

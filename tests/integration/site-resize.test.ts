@@ -2,7 +2,6 @@ import pg from 'pg';
 import { QueryTypes } from 'sequelize';
 import { beforeAll, describe, expect, it, vi } from 'vitest';
 
-import * as feedRoute from '@/app/api/boards/[boardId]/feed/route';
 import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import * as sizingRoute from '@/app/api/boards/[boardId]/sizing/route';
 import * as originRoute from '@/app/api/sites/[siteId]/origin/route';
@@ -17,9 +16,8 @@ import { ENGINE_REVISION, type BoardResult, type Verdict } from '@/lib/sizing';
 import { worstVerdictOf } from '@/lib/supply';
 import { AuditEvent } from '@/models';
 
-import { twoLevel } from '../unit/supply/fixtures';
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
-import { sizingRow, storedSizing, storeTree } from './site-fixtures';
+import { answerOf, sizingRow, storedSizing, linkedTwoLevel as linkedTwoLevelOf } from './site-fixtures';
 
 // A re-size compares each board's new way verdicts with the stored ones. It reads them from the
 // stored outcome (board_sizings.outcome, migration 0012: way id → verdict, and the worst
@@ -34,12 +32,7 @@ beforeAll(async () => {
   team = await makeOrganisation('Resize');
 });
 
-async function call<T>(res: Promise<Response>, status = 200): Promise<T> {
-  const r = await res;
-  const body = await r.json();
-  if (r.status !== status) throw new Error(`expected ${status}, got ${r.status}: ${JSON.stringify(body)}`);
-  return body as T;
-}
+const call = answerOf;
 
 /** The stored sizing in brief, worked out here from the sizing itself. */
 function brief(sizing: BoardResult) {
@@ -49,17 +42,10 @@ function brief(sizing: BoardResult) {
   };
 }
 
+/** The two-level tree stored, given its origin and linked through the routes (site-fixtures.ts). */
 async function linkedTwoLevel() {
-  const fx = twoLevel();
-  const t = await storeTree(team.org.id, fx);
-  await call(originRoute.PUT(jsonRequest('PUT', fx.origin), ctx({ siteId: t.site.id })));
-  await call(
-    feedRoute.PUT(
-      jsonRequest('PUT', { feed: { from: 'way', boardId: t.id('db1'), wayId: t.id('w-sub') } }),
-      ctx({ boardId: t.id('fin') }),
-    ),
-  );
-  return { fx, t };
+  signInAs(team.users.designer);
+  return linkedTwoLevelOf(team.org.id);
 }
 
 /** Saves Workshop DB1 with its sub-main (way w-sub) `lengthM` long, through the board route. */

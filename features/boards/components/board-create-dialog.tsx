@@ -10,6 +10,7 @@ import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { Field, Input, Select } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
 import { boardCreateSchema, type BoardCreateInput } from '@/lib/boards/schemas';
+import { bindField } from '@/lib/forms/bind-field';
 import { numberOrEmpty } from '@/lib/forms/number-or-empty';
 import { useServerForm } from '@/lib/forms/use-server-form';
 
@@ -128,15 +129,7 @@ function BoardCreateForm({ sites, siteId, onClose }: { sites: SiteOption[]; site
   });
   const num = { setValueAs: numberOrEmpty };
 
-  // Wires one control to its label, its error and the form
-  const bind =
-    (path: FieldPath<BoardCreateValues>, error: unknown, options?: typeof num) =>
-    (id: string, describedBy: string | undefined) => ({
-      id,
-      'aria-describedby': describedBy,
-      'aria-invalid': error ? true : undefined,
-      ...register(path, options),
-    });
+  const bind = bindField(register);
   const { supply: supplyErrors, incoming: incomingErrors } = errors;
 
   return (

@@ -9,6 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Dialog, DialogActions } from '@/components/ui/dialog';
 import { Field, Input, Select } from '@/components/ui/field';
 import { FormAlert } from '@/components/ui/form-alert';
+import { bindField } from '@/lib/forms/bind-field';
 import { numberOrEmpty } from '@/lib/forms/number-or-empty';
 import { useServerForm } from '@/lib/forms/use-server-form';
 import { EARTHING_NAMES, SUPPLY_SOURCE_NAMES } from '@/lib/names';
@@ -103,14 +104,7 @@ function OriginForm({ siteId, origin, onClose }: { siteId: string; origin: SiteO
     },
   });
   const num = { setValueAs: numberOrEmpty };
-  const bind =
-    (path: FieldPath<OriginValues>, error: unknown, options?: typeof num) =>
-    (id: string, describedBy: string | undefined) => ({
-      id,
-      'aria-describedby': describedBy,
-      'aria-invalid': error ? true : undefined,
-      ...register(path, options),
-    });
+  const bind = bindField(register);
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
