@@ -69,7 +69,7 @@ export async function setSiteOrigin(actor: Actor, siteId: string, origin: SiteOr
     siteId,
     () => presizeSite(actor, siteId, next),
     async (presized, written) => {
-      const fast = await writePresizedSite(actor, siteId, presized, { cause, events });
+      const fast = await writePresizedSite(actor, siteId, presized, { cause, events, written });
       if (fast) return { ...fast, sizedOut: { treeParts: presized.treeParts } as SizedOut };
       return db().transaction(async (transaction) => {
         const site = await lockSite(actor, siteId, transaction);

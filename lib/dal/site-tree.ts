@@ -422,7 +422,12 @@ export async function writePresizedSite(
   actor: Actor,
   siteId: string,
   presized: PresizedSite,
-  opts: { cause: string; events: (site: SiteLock) => AuditEntry[] },
+  opts: {
+    cause: string;
+    events: (site: SiteLock) => AuditEntry[];
+    /** Called as the last trip (the writes and COMMIT) is sent: the next write of the site may begin. */
+    written?: () => void;
+  },
 ): Promise<{ site: SiteLock; ripple: SiteRipple } | null> {
   return inFewTrips(async (trip) => {
     const [locked, stored] = await trip([siteLockStatement(actor, siteId, 'update'), treeStoredStatement(siteId)]);
@@ -439,7 +444,11 @@ export async function writePresizedSite(
     const plan: PlanOptions = { origin: presized.origin ?? undefined, cause: opts.cause, events: opts.events(site) };
     if (needsSizings(boards, presized.briefs, plan)) return null;
     const { ripple, writes } = planResize(actor, site, { boards, briefs: presized.briefs, sized: null }, plan);
-    await trip([asOneStatement(writes)], 'commit');
+    // The next write of the site sends its lock now: PostgreSQL grants it as this one commits,
+    // and what it reads after the lock is what this one committed
+    const last = trip([asOneStatement(writes)], 'commit');
+    opts.written?.();
+    await last;
     return { site, ripple };
   });
 }
