@@ -89,9 +89,15 @@ describe('the site view', () => {
       // Drag the loft's board by its handle onto the yard board's free sub-main
       const handle = page.getByRole('button', { name: `Drag ${downName} onto a feeding way` });
       const target = page.locator(`[data-drop-target="${upId}:${subMainId}"]`);
-      // Both in view: the handle (below) first, then the way above it if it is not in view yet
+      // Both in view at once (a mouse drags only over what is shown): a tall window, the
+      // handle (below) scrolled to first, then the way above it if it is not in view yet
+      await page.setViewportSize({ width: 1440, height: 2000 });
       await handle.scrollIntoViewIfNeeded();
       await target.scrollIntoViewIfNeeded();
+      for (const box of [await handle.boundingBox(), await target.boundingBox()]) {
+        expect(box!.y).toBeGreaterThanOrEqual(0);
+        expect(box!.y + box!.height).toBeLessThanOrEqual(2000);
+      }
       const from = await center(handle);
       await page.mouse.move(from.x, from.y);
       await page.mouse.down();
