@@ -70,7 +70,7 @@ export async function setSiteOrigin(actor: Actor, siteId: string, origin: SiteOr
     () => presizeSite(actor, siteId, next),
     async (presized, written) => {
       const fast = await writePresizedSite(actor, siteId, presized, { cause, events, written });
-      if (fast) return { ...fast, sizedOut: { treeParts: presized.treeParts } as SizedOut };
+      if (fast) return { ...fast, sizedOut: { treeParts: presized.treeParts } };
       return db().transaction(async (transaction) => {
         const site = await lockSite(actor, siteId, transaction);
         if (site.archived) throw conflict(ARCHIVED_SITE);

@@ -223,21 +223,17 @@ export async function resizeSite(
   opts: ResizeOptions = {},
 ): Promise<SiteRipple> {
   const pre = opts.presized && !opts.only && sameOrigin(opts.presized.origin, site.origin) ? opts.presized : null;
-  const current = pre ? await readTreeStored(site.id, transaction) : null;
+  const stillPresized = pre && presizedWithStored(site.id, pre, await readTreeStored(site.id, transaction));
   let boards: TreeBoard[];
   let sized: SizedSite | null = null;
   let briefs: Map<string, SizedBrief>;
   let asRead: TreeBoard[];
-  if (pre && current && asPresized(pre, current)) {
-    // Nobody changed a board since it was sized (each write of a board or its ways raises its
-    // version): that sizing is the committed tree's, compared with what is stored now
-    boards = pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
+  if (pre && stillPresized) {
+    boards = stillPresized;
     ({ briefs } = pre);
     asRead = pre.boards;
     if (opts.sizedOut) opts.sizedOut.treeParts = pre.treeParts;
   } else {
-    // Boards held for a presize are out of date: the next presize reads them again
-    if (pre) forgetTreeBoards(site.id);
     boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
     sized = sizeTree(site.id, site.origin, boards);
     briefs = briefsOf(sized);
@@ -254,10 +250,22 @@ export async function resizeSite(
   return ripple;
 }
 
-/** Whether the boards as presized are still the committed ones (same boards, same versions). */
-const asPresized = (pre: PresizedSite, current: readonly TreeStored[]) =>
-  current.length === pre.boards.length &&
-  current.every((c, i) => c.id === pre.boards[i].id && c.version === pre.boards[i].version);
+/**
+ * The boards as presized with what is stored for them now, if they are still the committed ones
+ * (same boards, same versions: each write of a board or its ways raises its version), so that
+ * the presize's sizing is the committed tree's. Else null, and the boards held for a presize are
+ * forgotten (out of date: the next presize reads them again).
+ */
+function presizedWithStored(siteId: string, pre: PresizedSite, current: readonly TreeStored[]): TreeBoard[] | null {
+  const same =
+    current.length === pre.boards.length &&
+    current.every((c, i) => c.id === pre.boards[i].id && c.version === pre.boards[i].version);
+  if (!same) {
+    forgetTreeBoards(siteId);
+    return null;
+  }
+  return pre.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
+}
 
 type PlanOptions = Pick<ResizeOptions, 'store' | 'writtenBoardId' | 'only' | 'origin' | 'events' | 'cause'>;
 
@@ -434,13 +442,8 @@ export async function writePresizedSite(
     if (!locked.length) throw notFound('The site');
     const site: SiteLock = { ...(locked[0] as Omit<SiteLock, 'mode'>), mode: 'update' };
     if (site.archived) throw conflict(ARCHIVED_SITE);
-    const current = treeStoredOf(stored);
-    if (!asPresized(presized, current)) {
-      // Boards held for a presize are out of date: the next presize reads them again
-      forgetTreeBoards(siteId);
-      return null;
-    }
-    const boards = presized.boards.map((b, i) => ({ ...b, stored: current[i].stored }));
+    const boards = presizedWithStored(siteId, presized, treeStoredOf(stored));
+    if (!boards) return null;
     const plan: PlanOptions = { origin: presized.origin ?? undefined, cause: opts.cause, events: opts.events(site) };
     if (needsSizings(boards, presized.briefs, plan)) return null;
     const { ripple, writes } = planResize(actor, site, { boards, briefs: presized.briefs, sized: null }, plan);
