@@ -726,20 +726,15 @@ export async function readTreeBoards(
   return boards;
 }
 
+/** A board of a site with its version and what was stored for it (`treeStoredStatement`). */
+export type TreeStored = Pick<TreeBoard, 'id' | 'version' | 'stored'>;
+
 /**
  * The site's boards (not deleted) in `readTreeBoards`' order, each with its version and what was
  * stored for it (its outcome): enough to tell whether boards read earlier are still the
- * committed ones (every write of a board or its ways raises its version, migration 0008).
+ * committed ones (every write of a board or its ways raises its version, migration 0008). A
+ * statement to send with others (lib/db.ts `inFewTrips`); its rows read by `treeStoredOf`.
  */
-export async function readTreeStored(siteId: string, transaction: Transaction): Promise<TreeStored[]> {
-  const { sql, bind } = treeStoredStatement(siteId);
-  return treeStoredOf(await select<{ j: string }>(sql, bind, transaction));
-}
-
-/** A board of a site with its version and what was stored for it (`readTreeStored`). */
-export type TreeStored = Pick<TreeBoard, 'id' | 'version' | 'stored'>;
-
-/** The statement of `readTreeStored`, to send with others (lib/db.ts `inFewTrips`); its rows read by `treeStoredOf`. */
 export function treeStoredStatement(siteId: string): Statement {
   return {
     sql: `SELECT json_build_object('id', b.id, 'version', b.version, 'stored', ${STORED_OUTCOME_JSON})::text AS j

@@ -10,7 +10,7 @@ import { assertSavable } from '@/lib/dal/boards';
 import { lockSiteOfBoard } from '@/lib/dal/site-feed';
 import type { AuditEntry } from '@/lib/dal/audit';
 import { conflict, notFound } from '@/lib/errors';
-import { treeDtoJson, treeDtoOf, treeOrder, treePartsJson } from '@/lib/sites/tree-dto';
+import { treeDtoJson, treeDtoOf, treeOrder, treePartsJson, type TreeHead } from '@/lib/sites/tree-dto';
 import type {
   BoardFeedInput,
   FedFrom,
@@ -37,7 +37,7 @@ import {
 
 /** The caller's organisation's site row (404 otherwise). */
 async function readSite(actor: Actor, siteId: string) {
-  const rows = await db().query<{ id: string; name: string; origin: SiteOrigin | null; treeVersion: number }>(
+  const rows = await db().query<TreeHead>(
     'SELECT id, name, origin, tree_version AS "treeVersion" FROM sites WHERE id = $1 AND organisation_id = $2',
     { bind: [siteId, actor.organisationId], type: QueryTypes.SELECT },
   );
@@ -64,13 +64,13 @@ export async function setSiteOrigin(actor: Actor, siteId: string, origin: SiteOr
     { action: 'site.origin-changed', details: { siteId, from: site.origin, to: next }, boardId: null },
   ];
   // Sized before the lock, and written in two round trips when no board changed meanwhile (see
-  // writePresizedSite); else re-sized under the lock, the presize used where it still holds
-  const { site, ripple, sizedOut } = await presizeThenWrite(
+  // writePresizedSite); else read and re-sized under the lock
+  const { site, ripple, parts } = await presizeThenWrite(
     siteId,
     () => presizeSite(actor, siteId, next),
     async (presized, written) => {
       const fast = await writePresizedSite(actor, siteId, presized, { cause, events, written });
-      if (fast) return { ...fast, sizedOut: { treeParts: presized.treeParts } };
+      if (fast) return { ...fast, parts: () => presized.treeParts };
       return db().transaction(async (transaction) => {
         const site = await lockSite(actor, siteId, transaction);
         if (site.archived) throw conflict(ARCHIVED_SITE);
@@ -79,22 +79,19 @@ export async function setSiteOrigin(actor: Actor, siteId: string, origin: SiteOr
         const ripple = await resizeSite(actor, { ...site, origin: next }, transaction, {
           cause,
           sizedOut,
-          presized,
           origin: next,
           events: events(site),
         });
         // Everything written: the next write of the site may begin while this one commits
         written();
-        return { site, ripple, sizedOut };
+        const parts = (meta: TreeHead) => treePartsJson(treeDtoOf(meta, sizedOut.boards!, sizedOut.sized!));
+        return { site, ripple, parts };
       });
     },
   );
-  // The answer built once the site is free for the next write (its boards and edges as presized)
+  // The answer built once the site is free for the next write
   const meta = { ...site, origin: next, treeVersion: ripple.treeVersion };
-  const parts =
-    sizedOut.treeParts ??
-    treePartsJson(treeDtoOf(meta, sizedOut.boards!, sizedOut.sized ?? sizeTree(siteId, next, sizedOut.boards!)));
-  return `{"tree":${treeDtoJson(meta, parts)},"ripple":${JSON.stringify(ripple)}}`;
+  return `{"tree":${treeDtoJson(meta, parts(meta))},"ripple":${JSON.stringify(ripple)}}`;
 }
 
 /**

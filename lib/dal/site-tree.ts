@@ -9,7 +9,6 @@ import {
   forgetTreeBoards,
   heldTreeBoards,
   readTreeBoards,
-  readTreeStored,
   treeStoredOf,
   treeStoredStatement,
   type TreeStored,
@@ -29,7 +28,6 @@ import { runPresize } from '@/lib/sites/presize-pool';
 import type { PresizeAnswer } from '@/lib/sites/presize';
 import {
   briefsOf,
-  sameOrigin,
   sameSupply,
   sizeTree,
   storedOutcome,
@@ -196,8 +194,6 @@ export type ResizeOptions = {
    * so the others are unchanged and the tree version stays).
    */
   only?: string;
-  /** The site sized before the lock was taken (`presizeSite`): used when its boards are still the committed ones. */
-  presized?: PresizedSite;
   /**
    * 'all': every board's sizing is stored whole (a read found one pending). Otherwise only the
    * written board's (`writtenBoardId`, `only`); any other whose sizing changed is left pending.
@@ -222,26 +218,10 @@ export async function resizeSite(
   transaction: Transaction,
   opts: ResizeOptions = {},
 ): Promise<SiteRipple> {
-  const pre = opts.presized && !opts.only && sameOrigin(opts.presized.origin, site.origin) ? opts.presized : null;
-  const stillPresized = pre && presizedWithStored(site.id, pre, await readTreeStored(site.id, transaction));
-  let boards: TreeBoard[];
-  let sized: SizedSite | null = null;
-  let briefs: Map<string, SizedBrief>;
-  let asRead: TreeBoard[];
-  if (pre && stillPresized) {
-    boards = stillPresized;
-    ({ briefs } = pre);
-    asRead = pre.boards;
-    if (opts.sizedOut) opts.sizedOut.treeParts = pre.treeParts;
-  } else {
-    boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
-    sized = sizeTree(site.id, site.origin, boards);
-    briefs = briefsOf(sized);
-    asRead = boards;
-  }
-  // The presize kept only each board's brief: the sizings themselves are made here when needed
-  if (!sized && needsSizings(boards, briefs, opts)) sized = sizeTree(site.id, site.origin, asRead);
-  if (opts.sizedOut) Object.assign(opts.sizedOut, { boards: asRead, sized });
+  const boards = await readTreeBoards(site.id, transaction, { only: opts.only, stored: 'outcome' });
+  const sized = sizeTree(site.id, site.origin, boards);
+  const briefs = briefsOf(sized);
+  if (opts.sizedOut) Object.assign(opts.sizedOut, { boards, sized });
   const { ripple, writes } = planResize(actor, site, { boards, briefs, sized }, opts);
   if (writes.length) {
     const { sql, bind } = asOneStatement(writes);
@@ -386,13 +366,10 @@ function planResize(
   return { ripple: { siteId: site.id, treeVersion, boards: ripple }, writes };
 }
 
-/**
- * What `resizeSite` hands back to answer the tree without sizing it twice: the tree's boards and
- * edges as presized, or the boards as read and their sizing.
- */
-export type SizedOut = { treeParts?: string; boards?: TreeBoard[]; sized?: SizedSite | null };
+/** What `resizeSite` hands back to answer the tree without sizing it twice: the boards as read and their sizing. */
+export type SizedOut = { boards?: TreeBoard[]; sized?: SizedSite };
 
-/** A site sized outside its lock (`presizeSite`), for `resizeSite` to use if nothing changed meanwhile. */
+/** A site sized outside its lock (`presizeSite`), for `writePresizedSite` to write if nothing changed meanwhile. */
 export type PresizedSite = PresizeAnswer & {
   origin: SiteOrigin | null;
   boards: TreeBoard[];
@@ -402,16 +379,16 @@ export type PresizedSite = PresizeAnswer & {
  * Reads and sizes the caller's organisation's site with `origin`, before the site row is locked
  * (in the presize pool's thread on a production server, lib/sites/presize-pool.ts): the engine
  * then runs while other writes of the same site hold its lock, and the locked section
- * (`resizeSite` with `presized`) only checks that every board is still at the version sized
- * (else it reads and sizes again, under the lock), compares and stores.
+ * (`writePresizedSite`) only checks that every board is still at the version sized, compares and
+ * stores.
  */
 export async function presizeSite(
   actor: Pick<Actor, 'organisationId'>,
   siteId: string,
   origin: SiteOrigin | null,
 ): Promise<PresizedSite> {
-  // The boards as last read, if any (`resizeSite` compares their versions with the committed
-  // ones under the lock, and sizes again when they are not)
+  // The boards as last read, if any (`writePresizedSite` compares their versions with the
+  // committed ones under the lock, and writes nothing when they are not)
   const boards =
     heldTreeBoards(siteId, actor.organisationId) ??
     (await readTreeBoards(siteId, undefined, { stored: false, organisationId: actor.organisationId }));

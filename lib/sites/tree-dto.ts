@@ -9,12 +9,11 @@ import type { SiteOrigin, SiteTreeBoard, SiteTreeDto, SiteTreeEdge } from './tre
  * site's boards and their sizing as one tree (lib/supply/size-tree.ts sizeTree). Pure.
  */
 
+/** The site row the tree DTO is headed with. */
+export type TreeHead = { id: string; name: string; origin: SiteOrigin | null; treeVersion: number };
+
 /** The tree DTO from the boards and their sizing as one tree. */
-export function treeDtoOf(
-  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
-  boards: readonly TreeBoard[],
-  sized: SizedSite,
-): SiteTreeDto {
+export function treeDtoOf(site: TreeHead, boards: readonly TreeBoard[], sized: SizedSite): SiteTreeDto {
   const byId = new Map(boards.map((b) => [b.id, b]));
   const feeds = new Map<string, string>(); // way id → the board it feeds
   for (const b of boards) if (b.feed.from === 'way' && !sized.detached.has(b.id)) feeds.set(b.feed.wayId, b.id);
@@ -77,10 +76,7 @@ export function treeDtoOf(
 }
 
 /** The tree DTO of the site's boards and edges (`treeDtoOf`'s, made elsewhere: lib/sites/presize.ts). */
-export function withTreeHead(
-  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
-  parts: Pick<SiteTreeDto, 'boards' | 'edges'>,
-): SiteTreeDto {
+export function withTreeHead(site: TreeHead, parts: Pick<SiteTreeDto, 'boards' | 'edges'>): SiteTreeDto {
   return {
     siteId: site.id,
     siteName: site.name,
@@ -100,10 +96,7 @@ export const treePartsJson = (tree: Pick<SiteTreeDto, 'boards' | 'edges'>): stri
  * The JSON text of the tree DTO (`withTreeHead`'s, the same text) from its boards and edges as
  * `treePartsJson` wrote them.
  */
-export function treeDtoJson(
-  site: { id: string; name: string; origin: SiteOrigin | null; treeVersion: number },
-  parts: string,
-): string {
+export function treeDtoJson(site: TreeHead, parts: string): string {
   const head = JSON.stringify({
     siteId: site.id,
     siteName: site.name,

@@ -9,7 +9,7 @@ import { REVIEW_CUT, reviewSizingOf } from '@/lib/boards/review-page-data';
 import type { BoardDto } from '@/lib/boards/schemas';
 import { db } from '@/lib/db';
 import { readTreeBoards } from '@/lib/dal/board-repository';
-import { lockSite, presizeSite, resizeSite } from '@/lib/dal/site-tree';
+import { presizeSite, writePresizedSite } from '@/lib/dal/site-tree';
 import { sizeTree } from '@/lib/supply/size-tree';
 import type { SiteRipple } from '@/lib/sites/tree-types';
 import { ENGINE_REVISION, type BoardResult, type Verdict } from '@/lib/sizing';
@@ -162,7 +162,7 @@ describe('re-sizing a site compares the stored outcome', () => {
     }
   });
 
-  it('a site sized before the lock is sized again under it when a board changed meanwhile', async () => {
+  it('a site sized before the lock writes nothing on the two-trip way when a board changed meanwhile', async () => {
     signInAs(team.users.designer);
     const { fx, t } = await linkedTwoLevel();
     const u = team.users.designer;
@@ -177,17 +177,22 @@ describe('re-sizing a site compares the stored outcome', () => {
     const presized = await presizeSite(actor, t.site.id, next);
     // Meanwhile (committed before the lock is taken) the sub-main becomes 400 m long
     await subMainLength(t, 400);
-    await db().transaction(async (transaction) => {
-      const site = await lockSite(actor, t.site.id, transaction);
-      await resizeSite(actor, { ...site, origin: next }, transaction, { presized, store: 'all' });
-    });
-    // What is stored is the committed tree (the 400 m sub-main) sized with the new origin
-    const fresh = sizeTree(t.site.id, next, await readTreeBoards(t.site.id));
-    for (const id of ['db1', 'fin']) {
-      expect((await sizingRow(t.id(id))).sizing, id).toEqual(fresh.boards.get(t.id(id))!.sizing);
-    }
-    const spray = (await sizingRow(t.id('fin'))).sizing!.ways.find((w) => w.id === t.id('f-spray'))!.result;
-    expect(spray?.verdict).toBe('fails');
+    const siteRow = () =>
+      db().query<{ origin: unknown; tree_version: number }>('SELECT origin, tree_version FROM sites WHERE id = $1', {
+        bind: [t.site.id],
+        type: QueryTypes.SELECT,
+      });
+    const before = await siteRow();
+    const rowsBefore = await Promise.all(['db1', 'fin'].map((id) => sizingRow(t.id(id))));
+    const history = () => AuditEvent.count({ where: { organisationId: team.org.id } });
+    const historyBefore = await history();
+    const events = () => [{ action: 'site.origin-changed' as const, details: {}, boardId: null }];
+    const written = await writePresizedSite(actor, t.site.id, presized, { cause: 'test', events });
+    // Nothing written: the caller re-sizes under the lock (tests/integration/presize-worker.test.ts)
+    expect(written).toBeNull();
+    expect(await siteRow()).toEqual(before);
+    expect(await Promise.all(['db1', 'fin'].map((id) => sizingRow(t.id(id))))).toEqual(rowsBefore);
+    expect(await history()).toBe(historyBefore);
   });
 });
 
