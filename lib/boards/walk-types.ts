@@ -6,8 +6,15 @@ export type WalkWay = {
   id: string;
   /** The printed way reference, null for a main switch, RCD or SPD. */
   ref: string | null;
-  /** The words of the label on the strip. */
+  /** The words of the label, as the schedule gives them. */
   labelText: string;
+  /**
+   * What the printed strip reads when it shortens `labelText` to fit the label (ending in "…");
+   * absent when it prints it whole (features/schedule `withStripTexts`).
+   */
+  stripText?: string;
+  /** How many modules wide the device is (its label is as wide). */
+  modules: number;
   device: string;
   rail: number;
   status: LabelStatus;

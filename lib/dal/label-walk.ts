@@ -45,6 +45,7 @@ export async function getWalk(actor: Actor, boardId: string): Promise<WalkData> 
     ref: refs.get(w.id) ?? null,
     labelText: labelTextOf(w),
     device: deviceName(w.device),
+    modules: Math.max(1, w.device.modules),
     rail: w.rail,
     status: w.labelStatus,
     note: w.labelNote,

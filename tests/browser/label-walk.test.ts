@@ -17,6 +17,7 @@ import { APP_URL, demoUser, openBrowser, signIn } from './helpers';
 let boardId: string;
 let boardName: string;
 let total: number;
+const LONG_SERVES = 'Sockets: living room, both bedrooms, the landing and the loft hatch spur for the aerial amplifier';
 
 beforeAll(async () => {
   // A board of its own in the demo organisation, so other tests' boards are left alone
@@ -32,7 +33,11 @@ beforeAll(async () => {
     // Sending for review is the editor's step; the row is put in review directly
     status: 'in-review',
   });
-  const ways = demoWays(FLAT_BOARD);
+  const ways = demoWays(FLAT_BOARD).sort((a, b) => a.rail - b.rail || a.position - b.position);
+  // The fourth device on the rail (an MCB, one module) serves more than its label can hold
+  const fourth = ways[3];
+  expect(fourth.circuit, 'the fourth device has a circuit').toBeTruthy();
+  fourth.circuit = { ...fourth.circuit!, serves: LONG_SERVES };
   await Way.bulkCreate(ways.map((w) => ({ ...w, boardId: board.id })));
   boardId = board.id;
   total = ways.length;
@@ -92,7 +97,12 @@ describe('review and label walk', () => {
       }
       await page.locator('[data-sonner-toast]').first().waitFor();
       expect(await page.locator('[data-sonner-toast]:not([data-removed="true"])').count()).toBe(1);
-      // The fourth way: a photo of it, then reload: the walk resumes there with the photo
+      // The fourth way: its label is printed shortened, and the walk says what the strip reads
+      await expect(page.getByText(LONG_SERVES).count()).resolves.toBe(1);
+      await expect(page.getByTestId('strip-text').textContent()).resolves.toMatch(
+        /^The printed strip shortens it to fit: Sockets: living room.*…$/,
+      );
+      // A photo of it, then reload: the walk resumes there with the photo
       const fourth = await page.getByRole('heading', { level: 2 }).textContent();
       await page
         .locator('input[type="file"]')
@@ -120,9 +130,9 @@ describe('review and label walk', () => {
       await expect(summary.locator('[data-summary="wrong"] dd').textContent()).resolves.toBe('1');
       await expect(summary.locator('[data-summary="unchecked"] dd').textContent()).resolves.toBe(String(total - 4));
       await expect(summary.locator('[data-summary="photos"] dd').textContent()).resolves.toBe('1');
-      await expect(summary.getByRole('button', { name: /Label says Cooker/ }).textContent()).resolves.toContain(
-        'Label is wrong',
-      );
+      const wrongOne = await summary.getByRole('button', { name: /Label says Cooker/ }).textContent();
+      expect(wrongOne).toContain('Label is wrong');
+      expect(wrongOne).toMatch(/printed shortened: Sockets: living room.*…/);
     } finally {
       await first.close();
     }

@@ -6,7 +6,10 @@ import * as scheduleRoute from '@/app/api/boards/[boardId]/schedule/route';
 import * as labelRoute from '@/app/api/boards/[boardId]/ways/[wayId]/label/route';
 import * as walkRoute from '@/app/api/boards/[boardId]/ways/walk/route';
 import type { WalkData } from '@/lib/boards/walk-types';
-import { Board } from '@/models';
+import { buildLabelSheet, fitLabelTexts } from '@/features/schedule/utils/build-labels';
+import { printFontMeasure } from '@/features/schedule/utils/fonts';
+import { getScheduleSource } from '@/lib/dal/schedule-source';
+import { Board, Way } from '@/models';
 
 import { ctx, jsonRequest, makeBoard, makeOrganisation, signInAs } from './helpers';
 
@@ -19,8 +22,9 @@ beforeAll(async () => {
   other = await makeOrganisation('Strangers');
 });
 
-async function issuedBoard() {
+async function issuedBoard(before?: (boardId: string) => Promise<unknown>) {
   const { board } = await makeBoard(team.org.id, 'flat');
+  await before?.(board.id);
   await board.update({ status: 'in-review' });
   signInAs(team.users.inspector);
   expect(
@@ -53,6 +57,30 @@ async function scheduleText(boardId: string) {
 }
 
 describe('the label walk', () => {
+  it('says what the printed strip reads where it shortens a label to fit, as the strips PDF prints it', async () => {
+    const long = 'Sockets: kitchen worktop left of the sink, utility room, boiler cupboard and the garage freezer spur';
+    let wayId = '';
+    const board = await issuedBoard(async (boardId) => {
+      const way = (await Way.findAll({ where: { boardId } })).find((w) => w.circuit?.serves && w.device.modules === 1)!;
+      wayId = way.id;
+      await way.update({ circuit: { ...way.circuit!, serves: long } });
+    });
+    signInAs(team.users.installer);
+    const { walk: data } = await walk(board.id);
+    const way = data.ways.find((w) => w.id === wayId)!;
+    expect(way.labelText).toContain(long);
+    // What the label strips PDF prints for that way (features/schedule/render-schedule.ts)
+    const actor = { ...team.users.installer, userId: team.users.installer.id, organisationId: team.org.id };
+    const sheet = fitLabelTexts(buildLabelSheet(await getScheduleSource(actor, board.id)), await printFontMeasure());
+    const cell = sheet.rails.flatMap((r) => r.strips.flatMap((s) => s.cells)).find((c) => c.wayId === wayId)!;
+    expect(cell.whole).toBe(way.labelText);
+    expect(way.stripText).toBe(cell.text);
+    expect(way.stripText).toMatch(/…$/);
+    // A label printed whole says nothing more
+    const short = data.ways.find((w) => w.labelText === 'Main switch')!;
+    expect(short.stripText).toBeUndefined();
+  });
+
   it('is for issued boards only', async () => {
     const { board } = await makeBoard(team.org.id, 'flat');
     signInAs(team.users.installer);

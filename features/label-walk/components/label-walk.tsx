@@ -152,6 +152,11 @@ export function LabelWalk({ initial, canRecord }: { initial: WalkData; canRecord
           <div>
             <p className="text-xs text-ink-soft">The label should read</p>
             <p className="text-lg font-semibold leading-snug">{way.labelText}</p>
+            {way.stripText ? (
+              <p className="mt-1 text-sm text-ink-soft" data-testid="strip-text">
+                The printed strip shortens it to fit: <span className="font-medium text-ink">{way.stripText}</span>
+              </p>
+            ) : null}
             <p className="text-sm text-ink-soft">{way.device}</p>
           </div>
           {way.checkedByName && way.checkedAt ? (

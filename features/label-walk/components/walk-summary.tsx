@@ -62,7 +62,10 @@ export function WalkSummary({ data, onGoTo }: { data: WalkData; onGoTo: (wayId: 
                     <span className="font-semibold">{name(w)}</span>
                     <LabelStateBadge status={w.status} />
                   </span>
-                  <span className="text-sm">Should read: {w.labelText}</span>
+                  <span className="text-sm">
+                    Should read: {w.labelText}
+                    {w.stripText ? ` (printed shortened: ${w.stripText})` : ''}
+                  </span>
                   {w.note ? <span className="text-sm text-ink-soft">Note: {w.note}</span> : null}
                 </button>
               </li>

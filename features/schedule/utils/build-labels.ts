@@ -151,15 +151,9 @@ export function buildLabelSheet(source: ScheduleSource): LabelSheet {
  * sheet lists such labels with their whole text, as the schedule has it).
  */
 export function fitLabelTexts(sheet: LabelSheet, measure: TextMeasure): LabelSheet {
-  const line = PAGE.lineHeight / PAGE.fontSize;
-  const room = LABEL.heightMm * MM - 2 * (LABEL.padY + LABEL.border) - line * (LABEL.refSize + LABEL.deviceSize);
   const fit = (cell: LabelCell): LabelCell => {
-    const width = cell.modules * MODULE_PITCH_MM * MM - 2 * (LABEL.padX + LABEL.border);
-    const box = (size: number) => ({ width, lines: Math.max(1, Math.floor(room / (line * size))), size });
-    const fits = (size: number) => countLines(cell.text, width, measure, size) <= box(size).lines;
-    const size = LABEL.textSizes.find(fits) ?? LABEL.textSizes.at(-1)!;
-    const text = shortenToFit(cell.text, '', box(size), measure);
-    return { ...cell, textSize: size, text, ...(text === cell.text ? {} : { whole: cell.text }) };
+    const { textSize, text } = fitLabelText(cell.text, cell.modules, measure);
+    return { ...cell, textSize, text, ...(text === cell.text ? {} : { whole: cell.text }) };
   };
   return {
     ...sheet,
@@ -168,6 +162,17 @@ export function fitLabelTexts(sheet: LabelSheet, measure: TextMeasure): LabelShe
       strips: rail.strips.map((strip) => ({ ...strip, cells: strip.cells.map(fit) })),
     })),
   };
+}
+
+/** A label's text fitted to a label `modules` wide (`fitLabelTexts`): the size it is printed at, and what is printed. */
+export function fitLabelText(whole: string, modules: number, measure: TextMeasure): { textSize: number; text: string } {
+  const line = PAGE.lineHeight / PAGE.fontSize;
+  const room = LABEL.heightMm * MM - 2 * (LABEL.padY + LABEL.border) - line * (LABEL.refSize + LABEL.deviceSize);
+  const width = modules * MODULE_PITCH_MM * MM - 2 * (LABEL.padX + LABEL.border);
+  const box = (size: number) => ({ width, lines: Math.max(1, Math.floor(room / (line * size))), size });
+  const fits = (size: number) => countLines(whole, width, measure, size) <= box(size).lines;
+  const textSize = LABEL.textSizes.find(fits) ?? LABEL.textSizes.at(-1)!;
+  return { textSize, text: shortenToFit(whole, '', box(textSize), measure) };
 }
 
 /** The labels printed shortened, with their whole text: "way 3" (or the device) and the text. */

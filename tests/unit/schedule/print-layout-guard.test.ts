@@ -25,7 +25,7 @@ const PRINT_SOURCES = [
 ];
 
 /** The print code's fingerprint, recorded with the layout it was reviewed at. */
-const REVIEWED = { layout: 4, sha256: '434b7ba0122db2a33a31f62731cde4bc73f1d8fef889ec65a097bd2378698f72' };
+const REVIEWED = { layout: 4, sha256: 'ee7ab7d91e9548513a96015dd2aa47e7353bd5f42586f247dff167eddb4a3e77' };
 
 function fingerprint(): string {
   const hash = crypto.createHash('sha256');

@@ -4,6 +4,7 @@ import { z } from 'zod';
 
 import { EmptyState } from '@/components/ui/empty-state';
 import { LabelWalk } from '@/features/label-walk/components/label-walk';
+import { withStripTexts } from '@/features/schedule/utils/strip-texts';
 import { can } from '@/lib/auth/permissions';
 import { getActor } from '@/lib/auth/session';
 import { isIssued } from '@/lib/boards/lifecycle';
@@ -37,5 +38,5 @@ export default async function WalkPage({ params }: { params: Promise<{ boardId: 
       </EmptyState>
     );
   }
-  return <LabelWalk initial={walk} canRecord={can(actor.role, 'walk.record')} />;
+  return <LabelWalk initial={await withStripTexts(walk)} canRecord={can(actor.role, 'walk.record')} />;
 }

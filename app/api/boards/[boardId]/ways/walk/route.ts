@@ -1,16 +1,18 @@
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
+import { withStripTexts } from '@/features/schedule/utils/strip-texts';
 import { getWalk, labelProblems } from '@/lib/dal/label-walk';
 
 /**
  * GET /api/boards/:boardId/ways/walk: the label walk (every device in rail order with its
- * result and photos, and the progress) and the labels found wrong or missing.
+ * result, what its printed strip reads when shortened, and photos; the progress) and the labels
+ * found wrong or missing.
  */
 export const GET = defineRoute({
   action: 'boards.read',
   params: idParamsSchema,
   handler: async ({ actor, params: { boardId } }) => {
-    const walk = await getWalk(actor, boardId);
+    const walk = await withStripTexts(await getWalk(actor, boardId));
     return Response.json({ walk, problems: labelProblems(walk) });
   },
 });
