@@ -1,7 +1,7 @@
 import type { MigrationFn } from 'umzug';
 import type { QueryInterface } from 'sequelize';
 
-// A site is one supply tree (the design notes' "A site's boards as one supply tree").
+// A site is one supply tree (its method: `sizeSite`, lib/supply/size-site.ts).
 //
 // - `sites.origin`: the supply intake of the site, as JSON {earthing, uoV, zeOhm, pfcKa, source}
 //   (validated by lib/sites/tree-types.ts siteOriginSchema). Null: not given yet; then each board

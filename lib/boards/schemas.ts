@@ -34,7 +34,7 @@ export const designCurrentOverrideSchema = z
 /**
  * Where a board's supply comes from: the site's origin, or one way (a sub-main) of another board
  * of the same site. A board fed from a way is sized with the values carried down to it (its
- * typed supply is not used); see lib/supply and the design notes' "A site's boards as one supply tree".
+ * typed supply is not used); see `sizeSite` (lib/supply/size-site.ts) for the method.
  */
 export const boardFeedSchema = z.discriminatedUnion('from', [
   z.object({ from: z.literal('origin') }).strict(),

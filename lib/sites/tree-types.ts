@@ -1,7 +1,7 @@
 /**
  * A site's supply tree as the API hands it over: plain data and zod schemas, safe for the
- * browser (no database, no server-only module). The method is the design notes' "A site's boards
- * as one supply tree"; the values are lib/supply's (`sizeSite`), stored with each board's sizing.
+ * browser (no database, no server-only module). The method and the values are lib/supply's
+ * (`sizeSite`, lib/supply/size-site.ts), stored with each board's sizing.
  *
  * Routes (request → answer):
  * - `GET  /api/sites/[siteId]/tree` → `{ tree: SiteTreeDto }` (anyone who may read boards).

@@ -150,8 +150,8 @@ interface Cold {
 }
 
 /**
- * Carry the supply down a site's tree and size every board with it (the method of the design
- * notes "A site's boards as one supply tree", rules 1–6):
+ * Carry the supply down a site's tree and size every board with it, by these rules (the tests
+ * cite them by number, "sizeSite rule n"):
  * 1. Zdb = Zdb(above) + R1+R2 of the sub-main (at its operating temperature); Zdb = Ze at a board
  *    fed from the origin.
  * 2. Prospective fault current, cold conductors, resistive only (reactance neglected, common

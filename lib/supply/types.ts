@@ -1,6 +1,6 @@
 /**
- * Plain types of a site's supply tree (see the method in the design notes, "A site's boards as
- * one supply tree"). Pure: no database, no zod model. The board's own part is the sizing
+ * Plain types of a site's supply tree (the method: `sizeSite`, lib/supply/size-site.ts). Pure:
+ * no database, no zod model. The board's own part is the sizing
  * engine's board input without its supply (the tree supplies it), so the tree can be wired to
  * the stored board shape later by mapping a stored board to `SiteBoardInput`.
  */

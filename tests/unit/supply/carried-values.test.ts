@@ -9,7 +9,9 @@ import { threeLevel, twoLevel } from './fixtures';
 // Resistances: IEC 60228 at 20 °C (BS 7671 Table I1 lists the same values): 2.5 mm² 7.41,
 // 1.5 mm² 12.1, 4 mm² 4.61, 10 mm² 1.83, 16 mm² 1.15 mΩ/m. Temperature multipliers 1.20 (70 °C
 // thermoplastic) and 1.28 (90 °C thermosetting): BS 7671 Appendix 3 practice.
-// Rules: "site-supply.md rule n" is the numbered rule of the design notes on the supply tree.
+// Rules: "sizeSite rule n" is the numbered rule of the method that sizeSite's comment states
+// (lib/supply/size-site.ts): 1 Zdb, 2 fault current, 3 volt drop used, 4 the sub-main's design
+// current, 5 selectivity, 6 each board sized with the carried values.
 
 const board = (site: SiteResult, id: string): SiteBoardResult => {
   const b = site.boards.find((x) => x.boardId === id);
@@ -31,14 +33,14 @@ describe('two levels: Workshop DB1 feeds the Finishing room board', () => {
     expect(fin.fedFrom?.cable).toBe('10 mm² armoured thermosetting, 20 m, reference method C');
   });
 
-  it('at the first board the origin values hold (site-supply.md rule 1: Zdb = Ze)', () => {
+  it('at the first board the origin values hold (sizeSite rule 1: Zdb = Ze)', () => {
     expect(db1.zdb?.value).toBe(0.35);
     expect(db1.pfc?.value).toBe(1.5);
     expect(db1.vdUsed?.value).toBe(0);
     expect(db1.supply).toEqual({ earthing: 'TN-C-S', uoV: 230, zeOhm: 0.35, pfcKa: 1.5, source: 'public' });
   });
 
-  it('the sub-main design current is the finishing room maximum demand (site-supply.md rule 4)', () => {
+  it('the sub-main design current is the finishing room maximum demand (sizeSite rule 4)', () => {
     // Ib: 2300 / 230 = 10 A and 1150 / 230 = 5 A. Not a dwelling: 100 % of the largest + 75 % of
     // the others (the engine's assumption for a non-dwelling, common practice): 10 + 0.75 · 5 = 13.75 A.
     expect(fin.subMainCurrent?.maxDemandA).toBeCloseTo(13.75, 9);
@@ -51,7 +53,7 @@ describe('two levels: Workshop DB1 feeds the Finishing room board', () => {
     expect(db1.sizing?.summary.maxDemandA).toBeCloseTo(17.75, 9);
   });
 
-  it('Zdb at the finishing room (site-supply.md rule 1)', () => {
+  it('Zdb at the finishing room (sizeSite rule 1)', () => {
     // 10 mm² armoured 3-core, single-phase: the cpc is a spare 10 mm² core (the engine's default).
     // R1+R2 = (1.83 + 1.83) mΩ/m × 20 m × 1.28 = 0.093696 Ω; Zdb = 0.35 + 0.093696 = 0.443696 Ω.
     expect(fin.zdb?.value).toBeCloseTo(0.443696, 6);
@@ -59,7 +61,7 @@ describe('two levels: Workshop DB1 feeds the Finishing room board', () => {
     expect(fin.zdb?.working.steps.join(' ')).toContain('1.830');
   });
 
-  it('prospective fault current at the finishing room (site-supply.md rule 2)', () => {
+  it('prospective fault current at the finishing room (sizeSite rule 2)', () => {
     // Zsrc = 230 / 1500 = 0.153333 Ω. Line–neutral loop, cold: (1.83 + 1.83) × 20 / 1000 = 0.0732 Ω.
     // Isc = 230 / (0.153333 + 0.0732) = 1015.30 A.
     // Earth fault, cold: Zcold = 0.35 + 0.0732 = 0.4232 Ω → 230 / 0.4232 = 543.48 A.
@@ -70,7 +72,7 @@ describe('two levels: Workshop DB1 feeds the Finishing room board', () => {
     expect(fin.pfc?.working.text).toMatch(/reactance neglected/);
   });
 
-  it('volt drop used above the finishing room (site-supply.md rule 3)', () => {
+  it('volt drop used above the finishing room (sizeSite rule 3)', () => {
     // Table 4E4B two-core 10 mm²: 4.7 mV/A/m (confirmed). 4.7 × 13.75 × 20 / 1000 = 1.2925 V;
     // 1.2925 / 230 = 0.561957 %.
     expect(fin.vdUsed?.value).toBeCloseTo(0.561957, 5);
@@ -87,7 +89,7 @@ describe('two levels: Workshop DB1 feeds the Finishing room board', () => {
     expect(sizeBoard({ ...fin.sizedInput!, supply: { ...fin.supply! } })).toEqual(fin.sizing);
   });
 
-  it('selectivity: C32 above B16 and B10 is selective up to 5 × 32 = 160 A (site-supply.md rule 5)', () => {
+  it('selectivity: C32 above B16 and B10 is selective up to 5 × 32 = 160 A (sizeSite rule 5)', () => {
     // Breaker above breaker: up to the upper breaker's lowest instantaneous trip, 5·In for type C
     // (BS EN 60898-1 bands, common practice); the fault current at the board, 1015 A, is above it.
     const oc = fin.selectivity.filter((p) => p.kind === 'overcurrent');
@@ -131,7 +133,7 @@ describe('three levels: Workshop DB1 → Machine shop board (three-phase) → Fi
     expect(ms.phase).toBeNull();
   });
 
-  it('design currents: the most loaded phase of the machine shop (site-supply.md rule 4)', () => {
+  it('design currents: the most loaded phase of the machine shop (sizeSite rule 4)', () => {
     // Finishing room: 2300 / 230 = 10 A. Machine shop: panel saw 4000 / (√3 × 400 × 0.85) = 6.7924 A
     // on every phase (100 %, the largest "other" circuit), the sub-main 10 A on L3 at 100 %:
     // L3 = 16.7924 A, the most loaded phase.
@@ -172,7 +174,7 @@ describe('three levels: Workshop DB1 → Machine shop board (three-phase) → Fi
     expect(spray?.vdLimitPct).toBeCloseTo(3.967751, 5);
   });
 
-  it('selectivity of each sub-main against the devices below it (site-supply.md rule 5)', () => {
+  it('selectivity of each sub-main against the devices below it (sizeSite rule 5)', () => {
     // 63 A fuse above the 16 A fuse: 63 ≥ 1.6 × 16 = 25.6 → selective throughout (gG ratio, from memory).
     // 63 A fuse above the C20: the fuse's pre-arcing I²t is not held → cannot be judged.
     expect(ms.selectivity.map((p) => [p.downstream, p.outcome])).toEqual([

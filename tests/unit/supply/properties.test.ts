@@ -8,7 +8,9 @@ import { threeLevel, twoLevel } from './fixtures';
 
 // Random trees of up to six boards, all single-phase or all three-phase, each board fed from the
 // origin or from a sub-main way of an earlier board, with random sub-main cables, lengths,
-// devices and loads. The properties are those of the design notes (site-supply.md, "Checks").
+// devices and loads. The properties are physics of a radial tree: going down, Zdb never falls,
+// the fault current never rises and the volt drop used never falls; a board sized with carried
+// values is the same board sized alone with those values typed in.
 
 const cables1 = ['te-70', 'multi-pvc-70', 'swa-xlpe-90'] as const;
 const cables3 = ['multi-pvc-70', 'swa-xlpe-90'] as const;
