@@ -25,7 +25,7 @@ const PRINT_SOURCES = [
 ];
 
 /** The print code's fingerprint, recorded with the layout it was reviewed at. */
-const REVIEWED = { layout: 4, sha256: 'ee7ab7d91e9548513a96015dd2aa47e7353bd5f42586f247dff167eddb4a3e77' };
+const REVIEWED = { layout: 4, sha256: '5b62ebe86c5827c68b7d27a0f1a4db7a8f7a0e9540cdef44c1b3b74f211ec904' };
 
 function fingerprint(): string {
   const hash = crypto.createHash('sha256');
