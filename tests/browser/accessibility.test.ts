@@ -91,6 +91,11 @@ type Screen = {
 const heading = (name: string | RegExp) => async (page: Page) => {
   await page.getByRole('heading', { name, level: 1 }).first().waitFor();
 };
+// The schedule's table is drawn in the browser once the page has loaded
+const scheduleSheet = async (page: Page) => {
+  await heading(/Schedule/)(page);
+  await page.locator('[data-print-root] tbody td').first().waitFor();
+};
 
 // The site page once its supply tree (diagram and list) has loaded
 const siteView = async (page: Page) => {
@@ -175,12 +180,12 @@ const SCREENS: Screen[] = [
     path: () => `/boards/${inReviewId}/review`,
     ready: reviewView,
   },
-  { name: 'schedule', role: 'inspector', path: () => `/boards/${issuedId}/schedule`, ready: heading(/Schedule/) },
+  { name: 'schedule', role: 'inspector', path: () => `/boards/${issuedId}/schedule`, ready: scheduleSheet },
   {
     name: 'schedule (installer)',
     role: 'installer',
     path: () => `/boards/${issuedId}/schedule`,
-    ready: heading(/Schedule/),
+    ready: scheduleSheet,
   },
   {
     name: 'label walk (phone)',

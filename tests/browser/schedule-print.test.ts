@@ -31,6 +31,8 @@ describe('the schedule page, printed from the browser', () => {
       await page.goto(`${APP_URL}/boards/${boardId}/schedule`);
       const sheet = page.locator('[data-print-root]');
       await sheet.waitFor();
+      // Its table is drawn in the browser (features/schedule/components/schedule-table.tsx)
+      await sheet.locator('tbody td').first().waitFor();
 
       // On screen: the tabs and the toolbar are there
       expect(await page.getByRole('navigation', { name: 'Board views' }).isVisible()).toBe(true);

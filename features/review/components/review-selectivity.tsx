@@ -5,7 +5,7 @@ import { useSiteTree } from '@/components/site-diagram/site-tree-query';
 import { nearLimitBySelectivityOnly } from '@/components/site-diagram/tree-model';
 import { errorMessage } from '@/lib/api/client';
 
-import { useInBrowser } from '../hooks/use-in-browser';
+import { useInBrowser } from '@/lib/use-in-browser';
 
 /**
  * A board fed from another board: the judgements of selectivity between its sub-main's device and

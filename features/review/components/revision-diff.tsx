@@ -8,7 +8,7 @@ import { Select } from '@/components/ui/field';
 import { errorMessage } from '@/lib/api/client';
 
 import { fetchDiff, fetchRevisions, reviewKeys } from '../api/review-api';
-import { useInBrowser } from '../hooks/use-in-browser';
+import { useInBrowser } from '@/lib/use-in-browser';
 import { RevisionDiffView } from './revision-diff-view';
 
 /**

@@ -10,7 +10,7 @@ import { errorMessage } from '@/lib/api/client';
 import type { ReviewWayRow } from '@/lib/boards/review-page-data';
 
 import { fetchWayChecks, reviewKeys } from '../api/review-api';
-import { useInBrowser } from '../hooks/use-in-browser';
+import { useInBrowser } from '@/lib/use-in-browser';
 import { CommentThread } from './comment-thread';
 import { CommentForm } from './review-islands';
 

@@ -8,7 +8,8 @@ import {
   PRINT_SOFT as SOFT,
   VERDICT_TONES as TONES,
 } from '../utils/print-palette';
-import type { ScheduleData, ScheduleFact, ScheduleRow } from '../utils/build-schedule';
+import type { ScheduleRow } from '../types/schedule-table';
+import type { ScheduleData, ScheduleFact } from '../utils/build-schedule';
 import { HEADER, type FittedHeader } from '../utils/fit-header';
 import { PAGE, pageGroupHeading, scaledColumns, type SchedulePage } from '../utils/paginate-schedule';
 

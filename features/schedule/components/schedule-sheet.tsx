@@ -1,8 +1,5 @@
-import { cn } from '@/lib/cn';
-
 import type { ScheduleData } from '../utils/build-schedule';
-
-const TONES = { passes: 'text-verdict-pass', 'near-limit': 'text-verdict-near', fails: 'text-verdict-fail' } as const;
+import { ScheduleTable } from './schedule-table';
 
 /** The board schedule as a web page, from the same data as the PDF; prints on A4 landscape. */
 export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataUrl: string }) {
@@ -40,56 +37,7 @@ export function ScheduleSheet({ data, qrDataUrl }: { data: ScheduleData; qrDataU
         </p>
       ) : null}
       <p className="mt-2 text-xs text-ink-soft print:text-[8px]">{data.designValuesNote}</p>
-      <div className="mt-1 overflow-x-auto">
-        <table className="w-full border-collapse text-left">
-          <thead className="bg-ink text-white">
-            <tr>
-              {data.columns.map((c) => (
-                <th
-                  key={c.key}
-                  scope="col"
-                  className={cn('px-2 py-1.5 align-bottom font-semibold', c.align === 'right' && 'text-right')}
-                >
-                  {c.heading}
-                </th>
-              ))}
-            </tr>
-          </thead>
-          {data.groups.map((group, g) => (
-            <tbody key={g} className="break-inside-avoid-page">
-              <tr>
-                <th
-                  colSpan={data.columns.length}
-                  scope="colgroup"
-                  className="bg-copper-light px-2 py-1 text-left font-semibold text-copper-dark"
-                >
-                  {group.heading}
-                </th>
-              </tr>
-              {group.rows.map((row) => (
-                <tr key={row.wayId} className={cn('border-b border-line', row.spare && 'text-ink-faint')}>
-                  {data.columns.map((c) => (
-                    <td
-                      key={c.key}
-                      className={cn(
-                        'px-2 py-1',
-                        c.align === 'right' && 'whitespace-nowrap text-right tabular-nums',
-                        c.key === 'way' && 'font-bold text-ink',
-                        c.key === 'result' && row.verdict && cn('font-semibold', TONES[row.verdict]),
-                        c.key === 'label' &&
-                          (row.label === 'wrong' || row.label === 'missing') &&
-                          'font-semibold text-verdict-fail',
-                      )}
-                    >
-                      {row.cells[c.key]}
-                    </td>
-                  ))}
-                </tr>
-              ))}
-            </tbody>
-          ))}
-        </table>
-      </div>
+      <ScheduleTable columns={data.columns} groups={data.groups} />
       <div className="mt-4 grid gap-6 md:grid-cols-[1fr_2fr] print:grid-cols-[1fr_2fr]">
         <section>
           <h3 className="mb-1 font-semibold">Totals</h3>

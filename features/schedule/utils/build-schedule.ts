@@ -23,29 +23,7 @@ import type { ScheduleSource } from '@/lib/dal/schedule-source';
 import { SIZING_CAUTION, type CircuitResult, type Verdict } from '@/lib/sizing';
 import type { LabelStatus } from '@/lib/domain';
 
-export type ColumnKey =
-  | 'way'
-  | 'serves'
-  | 'load'
-  | 'protection'
-  | 'ib'
-  | 'cable'
-  | 'conductors'
-  | 'run'
-  | 'iz'
-  | 'vd'
-  | 'r1r2'
-  | 'zs'
-  | 'result'
-  | 'label';
-
-export type ScheduleColumn = {
-  key: ColumnKey;
-  heading: string;
-  /** Share of the table width, in points on A4 landscape. */
-  width: number;
-  align: 'left' | 'right' | 'center';
-};
+import type { ColumnKey, ScheduleColumn, ScheduleGroup, ScheduleRow } from '../types/schedule-table';
 
 /**
  * Boardwright's own columns, in the order a designer reasons about a way: what it is and
@@ -70,16 +48,6 @@ export const SCHEDULE_COLUMNS: readonly ScheduleColumn[] = [
   { key: 'result', heading: 'Design check', width: 58, align: 'left' },
   { key: 'label', heading: 'Label on site', width: 70, align: 'left' },
 ];
-
-export type ScheduleRow = {
-  wayId: string;
-  cells: Record<ColumnKey, string>;
-  verdict: Verdict | null;
-  spare: boolean;
-  label: LabelStatus | null;
-};
-
-export type ScheduleGroup = { heading: string; rows: ScheduleRow[] };
 
 export type ScheduleFact = { label: string; value: string };
 

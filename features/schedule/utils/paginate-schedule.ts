@@ -4,7 +4,8 @@
  * letting react-pdf split a long table, and lets every page repeat the header, the
  * column headings and the group it continues. Pure.
  */
-import type { ScheduleColumn, ScheduleData, ScheduleRow } from './build-schedule';
+import type { ScheduleColumn, ScheduleRow } from '../types/schedule-table';
+import type { ScheduleData } from './build-schedule';
 import type { TextMeasure } from './fonts';
 
 /** Page geometry shared with the PDF document, points (A4 landscape is 841.89 × 595.28). */

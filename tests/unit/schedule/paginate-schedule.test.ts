@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
-import type { ScheduleData, ScheduleRow } from '@/features/schedule/utils/build-schedule';
+import type { ScheduleRow } from '@/features/schedule/types/schedule-table';
+import type { ScheduleData } from '@/features/schedule/utils/build-schedule';
 import { SCHEDULE_COLUMNS } from '@/features/schedule/utils/build-schedule';
 import {
   countLines,

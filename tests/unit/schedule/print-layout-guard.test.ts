@@ -25,7 +25,7 @@ const PRINT_SOURCES = [
 ];
 
 /** The print code's fingerprint, recorded with the layout it was reviewed at. */
-const REVIEWED = { layout: 4, sha256: '5b62ebe86c5827c68b7d27a0f1a4db7a8f7a0e9540cdef44c1b3b74f211ec904' };
+const REVIEWED = { layout: 4, sha256: 'b8c6714dc56437edda36eed8efcbf86b1f2c9b379002401b84c117b441d08848' };
 
 function fingerprint(): string {
   const hash = crypto.createHash('sha256');
