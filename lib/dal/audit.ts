@@ -75,13 +75,13 @@ export async function audit(
   await auditMany(actor, [{ action, details }], opts);
 }
 
+/** One history entry of `auditMany`. */
+export type AuditEntry = { action: AuditAction; details: Record<string, unknown>; boardId?: string | null };
+
 /**
  * Appends several events in a single insert (a save records one per way touched; a re-sized site
  * one per board whose supply changed): each event's own `boardId` when it has one, else `opts.boardId`.
  */
-/** One history entry of `auditMany`. */
-export type AuditEntry = { action: AuditAction; details: Record<string, unknown>; boardId?: string | null };
-
 export async function auditMany(
   actor: Actor,
   events: readonly AuditEntry[],
