@@ -504,6 +504,13 @@ export async function readWayRows(boardId: string, transaction?: Transaction): P
   return (await Way.findAll({ where: { boardId }, order, transaction, raw: true })) as unknown as WayRow[];
 }
 
+/** What the label walk recorded for each way of the board: id → status and note. */
+export async function readLabelChecks(boardId: string): Promise<Map<string, { status: LabelStatus; note: string }>> {
+  const sql = 'SELECT id, label_status AS status, label_note AS note FROM ways WHERE board_id = $1';
+  const rows = await select<{ id: string; status: LabelStatus; note: string }>(sql, [boardId]);
+  return new Map(rows.map(({ id, status, note }) => [id, { status, note }]));
+}
+
 /**
  * Records a label check on one way of the board (404 for a way not on it). A label check is
  * not a design write: the version stays. Answers every way's label status after it.

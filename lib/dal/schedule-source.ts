@@ -5,7 +5,7 @@ import type { Actor } from '@/lib/auth/session';
 import { isIssued } from '@/lib/boards/lifecycle';
 import type { BoardSnapshot } from '@/lib/boards/revision-diff';
 import { boardUrl, liveSnapshot } from '@/lib/dal/board-snapshot';
-import { findBoard, readBoard, readSizedBoard } from '@/lib/dal/board-repository';
+import { findBoard, readLabelChecks, readSizedBoard } from '@/lib/dal/board-repository';
 import { forbidden, notFound, type FieldIssue } from '@/lib/errors';
 import type { BoardResult } from '@/lib/sizing';
 import { readIssuedRevision } from '@/lib/dal/revisions';
@@ -56,11 +56,8 @@ export async function getScheduleSource(actor: Actor, boardId: string, revision?
     // The walk checks the board as built, which is the current issued revision
     let labels: ScheduleSource['labels'] = null;
     if (issuedNow && row.revision === board.revision) {
-      const { ways } = await readBoard(actor, boardId);
-      const inSnapshot = new Set(snapshot.ways.map((w) => w.id));
-      labels = Object.fromEntries(
-        ways.filter((w) => inSnapshot.has(w.id)).map((w) => [w.id, { status: w.labelStatus, note: w.labelNote }]),
-      );
+      const checks = await readLabelChecks(boardId);
+      labels = Object.fromEntries(snapshot.ways.flatMap((w) => (checks.has(w.id) ? [[w.id, checks.get(w.id)!]] : [])));
     }
     return {
       boardId,
