@@ -1,6 +1,6 @@
+import { withStripTexts } from '@/features/schedule/utils/strip-texts';
 import { defineRoute } from '@/lib/api/handler';
 import { idParamsSchema } from '@/lib/boards/schemas';
-import { withStripTexts } from '@/features/schedule/utils/strip-texts';
 import { getWalk, labelProblems } from '@/lib/dal/label-walk';
 
 /**
