@@ -104,13 +104,15 @@ export async function findBoard(
   boardId: string,
   opts: ReadOptions & { lock?: boolean } = {},
 ): Promise<BoardRecord> {
+  // `raw`: the row as a plain object, without building a model instance of it
   const board = await Board.findOne({
     where: { id: boardId, organisationId: actor.organisationId, ...(opts.deleted ? {} : { deletedAt: null }) },
     transaction: opts.transaction,
     lock: opts.lock ? opts.transaction?.LOCK.UPDATE : undefined,
+    raw: true,
   });
   if (!board) throw notFound('The board');
-  return board.get({ plain: true }) as BoardRecord;
+  return board as BoardRecord;
 }
 
 /** What every page of one board shows around it: its status, revision, site and archive state. */

@@ -54,14 +54,20 @@ type RevisionState = {
   sizing: BoardResult | null;
 };
 
+/** An issued revision's row as a plain object. */
+type RevisionRow = Pick<BoardRevision, 'revision' | 'snapshot' | 'sizing' | 'issuedAt'>;
+
 /** An issued revision of a board with who issued it, or null. */
 export async function readIssuedRevision(boardId: string, revision: number) {
-  const row = await BoardRevision.findOne({
+  // `raw` and `nest`: a plain object (its snapshot and sizing are large), without a model instance
+  const row = (await BoardRevision.findOne({
     where: { boardId, revision },
     include: [{ model: User, as: 'issuedBy', attributes: ['name'] }],
-  });
+    raw: true,
+    nest: true,
+  })) as (RevisionRow & { issuedBy: { name: string | null } }) | null;
   if (!row) return null;
-  const byName = (row as BoardRevision & { issuedBy?: User }).issuedBy?.name ?? 'A former member';
+  const byName = row.issuedBy.name ?? 'A former member';
   return { row, issued: { at: row.issuedAt.toISOString(), byName } };
 }
 
