@@ -7,7 +7,7 @@ import * as boardRoute from '@/app/api/boards/[boardId]/route';
 import { saveBodyOf } from '@/lib/api/save-body';
 import type { Actor } from '@/lib/auth/session';
 import { reviewPageData, reviewSizingOf, type ReviewSizing } from '@/lib/boards/review-page-data';
-import { readBoard, readBoardFrame, readStoredSizing } from '@/lib/dal/board-repository';
+import { findBoard, readBoard, readBoardFrame, readStoredSizing } from '@/lib/dal/board-repository';
 import { submitBoard } from '@/lib/dal/board-status';
 import { createBoard, renameBoard } from '@/lib/dal/boards';
 import { approveBoard } from '@/lib/dal/issue-and-return';
@@ -168,6 +168,24 @@ describe('a board’s first version and its stored sizing through the lifecycle'
     expect(approved.boardVersion).toBe(submitted.boardVersion + 1);
     expect(approved.version).toBe(approved.boardVersion);
     expect(approved.sizing).toBe(before.sizing);
+  });
+});
+
+describe('the board row (findBoard)', () => {
+  it('is the model’s row as a plain object, every attribute with its type, archived or deleted alike', async () => {
+    const { board } = await makeBoard(team.org.id, 'workshop');
+    await Board.update(
+      { conditionalRatingKa: 16, archivedAt: new Date(), archivedById: team.users.admin.id },
+      { where: { id: board.id } },
+    );
+    const row = await findBoard(actor, board.id);
+    expect(row).toEqual((await Board.findByPk(board.id))!.get({ plain: true }));
+    expect(row.archivedAt).toBeInstanceOf(Date);
+    expect(row.conditionalRatingKa).toBe(16);
+    expect(row.supply).toMatchObject({ earthing: expect.any(String) });
+    await Board.update({ deletedAt: new Date() }, { where: { id: board.id } });
+    await expect(findBoard(actor, board.id)).rejects.toMatchObject({ status: 404 });
+    expect((await findBoard(actor, board.id, { deleted: true })).deletedAt).toBeInstanceOf(Date);
   });
 });
 
